@@ -3,3 +3,21 @@
  * as globals. Re-exports only; each concept lives in its own file.
  */
 export * from "./methods/method-log.ts";
+
+export * from "./spectrum/spectrum.ts";
+export * from "./spectrum/grid.ts";
+export * from "./spectrum/sample.ts";
+export * from "./spectrum/resample.ts";
+export * from "./spectrum/arithmetic.ts";
+export * from "./spectrum/normalise.ts";
+export * from "./spectrum/spectrum-set.ts";
+
+export * from "./observers/standard-observer.ts";
+export * from "./illuminants/planckian-radiator.ts";
+export * from "./illuminants/illuminant-a.ts";
+export * from "./illuminants/daylight.ts";
+export * from "./illuminants/standard-illuminant.ts";
+
+export * from "./colorimetry/chromaticity.ts";
+export * from "./colorimetry/tristimulus.ts";
+export * from "./colorimetry/cielab.ts";

@@ -1,0 +1,198 @@
+/**
+ * Tristimulus values X, Y, Z from spectra by summation over the CIE colour-matching functions
+ * (CIE 015:2018 §7.1–7.2, eqs. 7.1–7.2; the 1 nm / 5 nm practice of ASTM E308-22 §7).
+ */
+import { noteMethod } from "../methods/method-log.ts";
+import { colourMatchingAt, observerByName, type Observer, type ObserverName } from "../observers/standard-observer.ts";
+import { illuminant as illuminantByName } from "../illuminants/standard-illuminant.ts";
+import { regularStep } from "../spectrum/grid.ts";
+import { sampler, type Extrapolation, type Interpolation } from "../spectrum/sample.ts";
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import type { Tristimulus } from "./chromaticity.ts";
+
+export interface ObjectColourOptions {
+  /** Illuminant name ("D65", "A", "FL2", ...) or a spectrum; default D65. */
+  illuminant?: string | Spectrum;
+  /** Observer; default the CIE 1931 2° observer. */
+  observer?: ObserverName | Observer | 2 | 10;
+  /** Summation interval in nm: 1 or 5. Default 1 when the sample is measured at 1 nm, otherwise 5 (CIE 015:2018 §7.2). */
+  interval?: 1 | 5;
+  /** Wavelength range of the summation; default 360–830 nm (CIE 015:2018), cut to what the illuminant covers. */
+  range?: readonly [number, number];
+  /** How the sample is read between its samples (default "auto": Sprague for even data, CIE 167:2005). */
+  interpolation?: Interpolation;
+  /** How the sample is read beyond its measured range (default "hold": the end values, CIE 015:2018 §7.2.2). */
+  extrapolation?: Extrapolation;
+}
+
+/** The weighting functions k·S(λ)·x̄(λ), k·S(λ)·ȳ(λ), k·S(λ)·z̄(λ) on a grid, k = 100/Σ S ȳ (CIE 015:2018 eq. 7.2). */
+export interface WeightingTable {
+  readonly wavelengths: readonly number[];
+  readonly wx: Float64Array;
+  readonly wy: Float64Array;
+  readonly wz: Float64Array;
+  readonly illuminantName: string;
+  readonly observer: Observer;
+  readonly interval: number;
+}
+
+const weightCache = new Map<string, WeightingTable>();
+
+function resolveIlluminant(ill: string | Spectrum | undefined): Spectrum {
+  if (ill === undefined) return illuminantByName("D65");
+  return typeof ill === "string" ? illuminantByName(ill) : ill;
+}
+
+function resolveRange(requested: readonly [number, number] | undefined, ill: Spectrum, obs: Observer): [number, number] {
+  const [a, b] = requested ?? [360, 830];
+  if (!(Number.isFinite(a) && Number.isFinite(b) && a < b)) throw new Error(`tristimulus: wavelength range ${a}–${b} nm is not valid`);
+  const start = Math.max(a, ill.wavelengths[0]!, obs.wavelengths[0]!);
+  const end = Math.min(b, ill.wavelengths.at(-1)!, obs.wavelengths.at(-1)!);
+  if (end <= start) throw new Error(`tristimulus: illuminant "${ill.name}" (${ill.wavelengths[0]}–${ill.wavelengths.at(-1)} nm) does not cover ${a}–${b} nm`);
+  return [start, end];
+}
+
+function gridFor(range: [number, number], interval: number): number[] {
+  const first = Math.ceil(range[0] / interval - 1e-9) * interval;
+  const out: number[] = [];
+  for (let w = first; w <= range[1] + 1e-9; w += interval) out.push(Math.round(w * 1e9) / 1e9);
+  return out;
+}
+
+/** The weighting table for an illuminant and observer at 1 or 5 nm (computed once per run and kept). */
+export function weightingTable(options: Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range"> & { interval: 1 | 5 }): WeightingTable {
+  const ill = resolveIlluminant(options.illuminant);
+  const obs = observerByName(options.observer ?? "2°");
+  const range = resolveRange(options.range, ill, obs);
+  const key = typeof options.illuminant === "object" ? undefined : `${ill.name}|${obs.name}|${options.interval}|${range.join("-")}`;
+  const cached = key ? weightCache.get(key) : undefined;
+  if (cached) return cached;
+  const wavelengths = gridFor(range, options.interval);
+  const readS = sampler(ill, { extrapolation: "refuse" });
+  const n = wavelengths.length;
+  const wx = new Float64Array(n), wy = new Float64Array(n), wz = new Float64Array(n);
+  let sumY = 0;
+  for (let i = 0; i < n; i++) {
+    const s = readS(wavelengths[i]!);
+    const [x, y, z] = colourMatchingAt(obs, wavelengths[i]!);
+    wx[i] = s * x;
+    wy[i] = s * y;
+    wz[i] = s * z;
+    sumY += s * y;
+  }
+  if (!(sumY > 0)) throw new Error(`tristimulus: illuminant "${ill.name}" has no power where the observer sees`);
+  const k = 100 / sumY;
+  for (let i = 0; i < n; i++) {
+    wx[i]! *= k;
+    wy[i]! *= k;
+    wz[i]! *= k;
+  }
+  const table: WeightingTable = { wavelengths, wx, wy, wz, illuminantName: ill.name, observer: obs, interval: options.interval };
+  if (key) weightCache.set(key, table);
+  return table;
+}
+
+function defaultInterval(sample: Spectrum | undefined, ill: Spectrum): 1 | 5 {
+  const illStep = regularStep(ill);
+  if (illStep !== undefined && illStep > 1) return 5;
+  if (!sample) return 1;
+  return regularStep(sample) === 1 ? 1 : 5;
+}
+
+/**
+ * X, Y, Z of an object colour: a reflectance or transmittance (as a fraction) under an illuminant, normalised so
+ * that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 eqs. 7.1–7.2).
+ */
+export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {}): Tristimulus {
+  if (sample.quantity !== "reflectance" && sample.quantity !== "transmittance" && sample.quantity !== "other") {
+    throw new Error(`tristimulus: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`);
+  }
+  const ill = resolveIlluminant(options.illuminant);
+  const interval = options.interval ?? defaultInterval(sample, ill);
+  const table = weightingTable({ ...options, interval });
+  const read = sampler(sample, { interpolation: options.interpolation, extrapolation: options.extrapolation });
+  let X = 0, Y = 0, Z = 0;
+  const w = table.wavelengths;
+  for (let i = 0; i < w.length; i++) {
+    const r = read(w[i]!);
+    X += table.wx[i]! * r;
+    Y += table.wy[i]! * r;
+    Z += table.wz[i]! * r;
+  }
+  noteObjectColourMethod(table);
+  return { X, Y, Z };
+}
+
+function noteObjectColourMethod(table: WeightingTable): void {
+  noteMethod("observer", table.observer.name + ".");
+  noteMethod("illuminant", `Object colours were computed under ${table.illuminantName}.`);
+  noteMethod(
+    "integration",
+    `Tristimulus values were summed at ${table.interval} nm intervals over ${table.wavelengths[0]}–${table.wavelengths.at(-1)} nm, normalised to Y = 100 for the perfect reflecting diffuser (CIE 015:2018 §7).`,
+  );
+}
+
+/** Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white (Y = 100). */
+export function whitePoint(options: Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range"> = {}): Tristimulus {
+  const ill = resolveIlluminant(options.illuminant);
+  const table = weightingTable({ ...options, interval: options.interval ?? defaultInterval(undefined, ill) });
+  let X = 0, Y = 0, Z = 0;
+  for (let i = 0; i < table.wavelengths.length; i++) {
+    X += table.wx[i]!;
+    Y += table.wy[i]!;
+    Z += table.wz[i]!;
+  }
+  noteObjectColourMethod(table);
+  return { X, Y, Z };
+}
+
+export interface LightOptions {
+  observer?: ObserverName | Observer | 2 | 10;
+  /**
+   * "relative" (default): scaled so that Y = 100. "absolute": k = Km = 683 lm/W (CIE 015:2018 eq. 7.5;
+   * the SI defines Kcd = 683 lm/W at 540 THz), so a radiance in W/(sr·m²·nm) gives Y in cd/m².
+   */
+  scale?: "relative" | "absolute";
+}
+
+/** Km, the maximum luminous efficacy for photopic vision used with the CIE 1931 observer: 683 lm/W (CIE 015:2018 §7.1). */
+export const KM_PHOTOPIC = 683;
+
+/**
+ * X, Y, Z of a light source from its spectral distribution (CIE 015:2018 eq. 7.5): summed at the source's own
+ * 1 nm or 5 nm samples, otherwise after interpolation to 1 nm, over the range the source and observer share.
+ */
+export function lightTristimulus(source: Spectrum, options: LightOptions = {}): Tristimulus {
+  const obs = observerByName(options.observer ?? "2°");
+  const step = regularStep(source);
+  const onWholeNm = step !== undefined && (step === 1 || step === 5) && Number.isInteger(source.wavelengths[0]!);
+  const start = Math.max(source.wavelengths[0]!, obs.wavelengths[0]!);
+  const end = Math.min(source.wavelengths.at(-1)!, obs.wavelengths.at(-1)!);
+  if (end <= start) throw new Error(`lightTristimulus: "${source.name}" (${source.wavelengths[0]}–${source.wavelengths.at(-1)} nm) lies outside the observer's 360–830 nm`);
+  const interval = onWholeNm ? step : 1;
+  const grid = onWholeNm ? source.wavelengths.filter((w) => w >= start && w <= end) : gridFor([start, end], 1);
+  const read = sampler(source, { extrapolation: "refuse" });
+  let X = 0, Y = 0, Z = 0;
+  for (const w of grid) {
+    const s = read(w);
+    const [x, y, z] = colourMatchingAt(obs, w);
+    X += s * x;
+    Y += s * y;
+    Z += s * z;
+  }
+  noteMethod("observer", obs.name + ".");
+  const absolute = options.scale === "absolute";
+  noteMethod(
+    "integration",
+    absolute
+      ? `Light-source tristimulus values were summed at ${interval} nm intervals with Km = ${KM_PHOTOPIC} lm/W (absolute, CIE 015:2018 eq. 7.5).`
+      : `Light-source tristimulus values were summed at ${interval} nm intervals and scaled to Y = 100 (relative).`,
+  );
+  if (absolute) {
+    const k = KM_PHOTOPIC * interval;
+    return { X: k * X, Y: k * Y, Z: k * Z };
+  }
+  if (!(Y > 0)) throw new Error(`lightTristimulus: "${source.name}" has no luminous power (Y = 0), so it cannot be scaled to Y = 100`);
+  const k = 100 / Y;
+  return { X: k * X, Y: 100, Z: k * Z };
+}

@@ -1,0 +1,46 @@
+/** CIE daylight illuminants from the components S0, S1, S2 (CIE 015:2018 §4.1.2, eqs. 4.3–4.7). */
+import { CIE_DAYLIGHT_COMPONENTS_TABLE } from "../data/cie-daylight-components.ts";
+import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
+import type { Chromaticity } from "../colorimetry/chromaticity.ts";
+
+/** Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K (CIE 015:2018 eqs. 4.5–4.6). */
+export function daylightChromaticity(cct: number): Chromaticity {
+  if (!Number.isFinite(cct) || cct < 4000 || cct > 25000) {
+    throw new Error(`daylight chromaticity: CIE 015 defines daylight from 4000 K to 25000 K; ${cct} K is outside that range`);
+  }
+  const t = cct;
+  const x =
+    t <= 7000
+      ? -4.607e9 / t ** 3 + 2.9678e6 / t ** 2 + 0.09911e3 / t + 0.244063
+      : -2.0064e9 / t ** 3 + 1.9018e6 / t ** 2 + 0.24748e3 / t + 0.23704;
+  const y = -3.0 * x * x + 2.87 * x - 0.275;
+  return { x, y };
+}
+
+/** The factors M1, M2 of S1 and S2 for a daylight chromaticity (CIE 015:2018 eq. 4.7). */
+export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false): [number, number] {
+  const m = 0.0241 + 0.2562 * xy.x - 0.7341 * xy.y;
+  let m1 = (-1.3515 - 1.7703 * xy.x + 5.9114 * xy.y) / m;
+  let m2 = (0.03 - 31.4424 * xy.x + 30.0717 * xy.y) / m;
+  if (roundToThreeDecimals) {
+    m1 = Math.round(m1 * 1000) / 1000;
+    m2 = Math.round(m2 * 1000) / 1000;
+  }
+  return [m1, m2];
+}
+
+/**
+ * Relative spectral power of CIE daylight at a CCT (K), S(λ) = S0 + M1·S1 + M2·S2, 300–830 nm at 5 nm.
+ * `roundFactors` rounds M1 and M2 to 3 decimals, as CIE 015:2018 does for the tabulated D50, D55, D75.
+ */
+export function daylightSpectrum(cct: number, options: { roundFactors?: boolean; name?: string } = {}): Spectrum {
+  const [m1, m2] = daylightFactors(daylightChromaticity(cct), options.roundFactors ?? false);
+  const t = CIE_DAYLIGHT_COMPONENTS_TABLE;
+  const s0 = t.columns.S0!, s1 = t.columns.S1!, s2 = t.columns.S2!;
+  return spectrumOnGrid(
+    t.start,
+    t.step,
+    s0.map((v, i) => v + m1 * s1[i]! + m2 * s2[i]!),
+    { name: options.name ?? `CIE daylight ${cct} K`, quantity: "relative power" },
+  );
+}

@@ -1,0 +1,111 @@
+/**
+ * Reading a spectrum between and beyond its samples: interpolation (linear; Sprague for evenly spaced data as
+ * CIE 167:2005 recommends; a natural cubic spline for uneven data) and extrapolation (holding the end values, the
+ * CIE 015:2018 §7.2.2 practice; zero; or refusing).
+ */
+import { noteMethod } from "../methods/method-log.ts";
+import { regularStep } from "./grid.ts";
+import { cubicSplineInterpolator } from "./interpolate-spline.ts";
+import { linearInterpolator } from "./interpolate-linear.ts";
+import { spragueInterpolator } from "./interpolate-sprague.ts";
+import type { Spectrum } from "./spectrum.ts";
+
+export type Interpolation = "linear" | "sprague" | "spline" | "auto";
+export type Extrapolation = "hold" | "zero" | "refuse";
+
+export interface SamplingOptions {
+  /** "auto" (default): Sprague for evenly spaced data with at least 6 samples, otherwise a cubic spline (3+ samples) or linear. */
+  interpolation?: Interpolation;
+  /** "hold" (default): the nearest end value, as CIE 015:2018 advises; "zero"; or "refuse" to throw outside the data. */
+  extrapolation?: Extrapolation;
+}
+
+/** The interpolation "auto" resolves to for this spectrum. */
+export function resolveInterpolation(s: Spectrum, requested: Interpolation = "auto"): Exclude<Interpolation, "auto"> {
+  const n = s.wavelengths.length;
+  const step = regularStep(s);
+  if (requested === "sprague") {
+    if (step === undefined) throw new Error(`spectrum "${s.name}": Sprague interpolation needs evenly spaced wavelengths; use "spline" for uneven data`);
+    if (n < 6) throw new Error(`spectrum "${s.name}": Sprague interpolation needs at least 6 samples, it has ${n}`);
+    return "sprague";
+  }
+  if (requested === "spline") {
+    if (n < 3) throw new Error(`spectrum "${s.name}": a cubic spline needs at least 3 samples, it has ${n}`);
+    return "spline";
+  }
+  if (requested === "linear") return "linear";
+  if (step !== undefined && n >= 6) return "sprague";
+  if (n >= 3) return "spline";
+  return "linear";
+}
+
+const METHOD_WORDS: Record<Exclude<Interpolation, "auto">, string> = {
+  linear: "linear interpolation between samples",
+  sprague: "Sprague interpolation of evenly spaced data (CIE 167:2005)",
+  spline: "natural cubic spline interpolation of unevenly spaced data",
+};
+
+/** A function giving the spectrum's value at any wavelength (nm), built once for repeated reading. */
+export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength: number) => number {
+  const method = resolveInterpolation(s, options.interpolation);
+  const extrapolation = options.extrapolation ?? "hold";
+  const w = s.wavelengths;
+  const v = s.values;
+  const first = w[0]!;
+  const last = w[w.length - 1]!;
+  const inner =
+    w.length === 1
+      ? () => v[0]!
+      : method === "sprague"
+        ? spragueInterpolator(first, regularStep(s)!, v)
+        : method === "spline"
+          ? cubicSplineInterpolator(w, v)
+          : linearInterpolator(w, v);
+  let notedInterpolation = false;
+  let notedExtrapolation = false;
+  return (wavelength: number) => {
+    if (!Number.isFinite(wavelength)) throw new Error(`spectrum "${s.name}": cannot read a value at wavelength ${wavelength}`);
+    const tol = 1e-9;
+    if (wavelength < first - tol || wavelength > last + tol) {
+      if (extrapolation === "refuse") {
+        throw new Error(`spectrum "${s.name}" covers ${first}–${last} nm; ${wavelength} nm is outside it (extrapolation refused)`);
+      }
+      if (!notedExtrapolation) {
+        notedExtrapolation = true;
+        noteMethod(
+          "extrapolation",
+          extrapolation === "hold"
+            ? "Values beyond the measured range were taken equal to the nearest measured value (CIE 015:2018 practice)."
+            : "Values beyond the measured range were taken as zero.",
+        );
+      }
+      if (extrapolation === "zero") return 0;
+      return wavelength < first ? v[0]! : v[v.length - 1]!;
+    }
+    const index = exactIndex(w, wavelength);
+    if (index >= 0) return v[index]!;
+    if (!notedInterpolation) {
+      notedInterpolation = true;
+      noteMethod("interpolation", `Spectral data were interpolated by ${METHOD_WORDS[method]}.`);
+    }
+    return inner(Math.min(Math.max(wavelength, first), last));
+  };
+}
+
+/** The spectrum's value at one wavelength (nm). */
+export function valueAt(s: Spectrum, wavelength: number, options: SamplingOptions = {}): number {
+  return sampler(s, options)(wavelength);
+}
+
+function exactIndex(w: readonly number[], x: number): number {
+  let lo = 0;
+  let hi = w.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const d = w[mid]! - x;
+    if (Math.abs(d) <= 1e-9) return mid;
+    if (d < 0) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  return -1;
+}

@@ -1,0 +1,104 @@
+/**
+ * The sampled spectral distribution: wavelengths in nm (strictly increasing), one value per wavelength, what the
+ * values are, and a name. A plain, serializable object; every operation on it is a pure function in this folder.
+ */
+
+/** What a spectrum's values measure. Transmittance and reflectance are stored as fractions (0–1), never percent. */
+export type SpectralQuantity =
+  | "relative power"
+  | "radiance"
+  | "irradiance"
+  | "radiant flux"
+  | "transmittance"
+  | "reflectance"
+  | "absorbance"
+  | "optical density"
+  | "colour matching"
+  | "luminous efficiency"
+  | "other";
+
+export interface Spectrum {
+  readonly kind: "spectrum";
+  readonly name: string;
+  readonly quantity: SpectralQuantity;
+  /** Unit of the values, e.g. "W/(sr·m²·nm)"; empty for relative or dimensionless quantities. */
+  readonly unit: string;
+  readonly wavelengths: readonly number[];
+  readonly values: readonly number[];
+}
+
+/** Optional description of a spectrum. */
+export interface SpectrumLabel {
+  name?: string;
+  quantity?: SpectralQuantity;
+  unit?: string;
+}
+
+/** Builds a spectrum from wavelengths (nm) and values, checking that both are finite and the wavelengths increase. */
+export function spectrum(wavelengths: readonly number[], values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+  const name = label.name ?? "spectrum";
+  if (wavelengths.length !== values.length) {
+    throw new Error(`spectrum "${name}": ${wavelengths.length} wavelengths but ${values.length} values`);
+  }
+  if (wavelengths.length === 0) throw new Error(`spectrum "${name}": no samples (an empty spectrum)`);
+  for (let i = 0; i < wavelengths.length; i++) {
+    const wl = wavelengths[i]!;
+    if (!Number.isFinite(wl)) throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl}, not a finite number`);
+    if (wl <= 0) throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl} nm; wavelengths must be positive`);
+    if (i > 0 && wl <= wavelengths[i - 1]!) {
+      throw new Error(
+        `spectrum "${name}": wavelength #${i + 1} (${wl} nm) does not increase after ${wavelengths[i - 1]} nm; sort the samples and remove duplicates`,
+      );
+    }
+    const v = values[i]!;
+    if (!Number.isFinite(v)) throw new Error(`spectrum "${name}": the value at ${wl} nm is ${v}, not a finite number`);
+  }
+  return {
+    kind: "spectrum",
+    name,
+    quantity: label.quantity ?? "other",
+    unit: label.unit ?? "",
+    wavelengths: [...wavelengths],
+    values: [...values],
+  };
+}
+
+/** Builds a spectrum on a regular grid: the first wavelength, the step (nm), and one value per step. */
+export function spectrumOnGrid(start: number, step: number, values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+  if (!Number.isFinite(start) || !Number.isFinite(step) || step <= 0) {
+    throw new Error(`spectrum "${label.name ?? "spectrum"}": grid start ${start} nm, step ${step} nm is not a valid grid`);
+  }
+  return spectrum(
+    values.map((_, i) => roundWavelength(start + i * step)),
+    values,
+    label,
+  );
+}
+
+/** Builds a spectrum from [wavelength, value] pairs. */
+export function spectrumFromPairs(pairs: ReadonlyArray<readonly [number, number]>, label: SpectrumLabel = {}): Spectrum {
+  return spectrum(
+    pairs.map((p) => p[0]),
+    pairs.map((p) => p[1]),
+    label,
+  );
+}
+
+/** A copy of a spectrum with new values on the same wavelengths (and optionally a new label). */
+export function withValues(s: Spectrum, values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+  return spectrum(s.wavelengths, values, {
+    name: label.name ?? s.name,
+    quantity: label.quantity ?? s.quantity,
+    unit: label.unit ?? s.unit,
+  });
+}
+
+/** Removes floating-point noise from computed wavelengths (grids are specified to well under 1e-9 nm). */
+export function roundWavelength(wl: number): number {
+  return Math.round(wl * 1e9) / 1e9;
+}
+
+/** True when the value is a spectrum object. */
+export function isSpectrum(value: unknown): value is Spectrum {
+  return typeof value === "object" && value !== null && (value as { kind?: unknown }).kind === "spectrum";
+}
