@@ -21,3 +21,13 @@ export * from "./illuminants/standard-illuminant.ts";
 export * from "./colorimetry/chromaticity.ts";
 export * from "./colorimetry/tristimulus.ts";
 export * from "./colorimetry/cielab.ts";
+
+// Core colorimetry added by the colorimetry owner below this line.
+
+// Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
+export * from "./plot/index.ts";
+export * from "./filters/index.ts";
+export * from "./mixing/index.ts";
+export * from "./halftone/index.ts";
+export * from "./rendering/index.ts";
+export * from "./files/index.ts";

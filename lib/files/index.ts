@@ -1,0 +1,2 @@
+/** Barrel for lib/files (re-exports only). */
+export {};

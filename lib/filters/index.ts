@@ -1,0 +1,2 @@
+/** Barrel for lib/filters (re-exports only). */
+export {};

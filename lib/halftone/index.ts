@@ -1,0 +1,2 @@
+/** Barrel for lib/halftone (re-exports only). */
+export {};

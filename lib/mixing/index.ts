@@ -1,0 +1,2 @@
+/** Barrel for lib/mixing (re-exports only). */
+export {};

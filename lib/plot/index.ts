@@ -1,0 +1,2 @@
+/** Barrel for lib/plot (re-exports only). */
+export {};

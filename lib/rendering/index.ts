@@ -1,0 +1,2 @@
+/** Barrel for lib/rendering (re-exports only). */
+export {};
