@@ -1,0 +1,65 @@
+/**
+ * Beer–Lambert (Bouguer–Lambert–Beer) scaling of internal transmittance: absorbance is proportional to path length
+ * and concentration, so τᵢ at thickness d₂ and concentration c₂ is τᵢ(d₁, c₁)^((d₂c₂)/(d₁c₁)) (IUPAC Gold Book,
+ * "Beer–Lambert law"). Only internal transmittance scales this way; surface reflections do not.
+ */
+import { noteMethod } from "../methods/method-log.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { requireFraction, requireFractionSpectrum, requireNonNegative, requirePositive } from "./checks.ts";
+import { externalTransmittance, internalTransmittance, type PlateOptions } from "./plate.ts";
+
+/** τᵢ raised to the path ratio: τᵢ' = τᵢ^ratio (Beer–Lambert; ratio = new path × concentration over the old). */
+export function scaleInternalValue(internal: number, ratio: number): number {
+  requireFraction(internal, "internal transmittance");
+  requireNonNegative(ratio, "Beer–Lambert path ratio");
+  return internal ** ratio;
+}
+
+/** From-and-to values of the thickness and/or concentration; a missing pair counts as unchanged. */
+export interface PathChange {
+  /** [from, to] thickness in any one unit, e.g. [2, 3] mm. */
+  thickness?: readonly [number, number];
+  /** [from, to] concentration in any one unit. */
+  concentration?: readonly [number, number];
+}
+
+/** The Beer–Lambert ratio (d₂/d₁)·(c₂/c₁) of a change of thickness and/or concentration. */
+export function pathRatio(change: PathChange): number {
+  let ratio = 1;
+  for (const key of ["thickness", "concentration"] as const) {
+    const pair = change[key];
+    if (pair === undefined) continue;
+    if (!Array.isArray(pair) || pair.length !== 2) throw new Error(`${key} must be a [from, to] pair, got ${JSON.stringify(pair)}`);
+    const from = requirePositive(pair[0], `${key} (from)`);
+    const to = requireNonNegative(pair[1], `${key} (to)`);
+    ratio *= to / from;
+  }
+  if (change.thickness === undefined && change.concentration === undefined) {
+    throw new Error("Beer–Lambert scaling: give thickness: [from, to] and/or concentration: [from, to]");
+  }
+  return ratio;
+}
+
+/** Internal transmittance spectrum scaled to another thickness and/or concentration (Beer–Lambert: τᵢ^ratio). */
+export function scaleInternalTransmittance(internal: Spectrum, change: PathChange | number, name?: string): Spectrum {
+  const ratio = typeof change === "number" ? requireNonNegative(change, "Beer–Lambert path ratio") : pathRatio(change);
+  requireFractionSpectrum(internal, "internal transmittance");
+  noteMethod(
+    "optics",
+    "Internal transmittance was scaled to other thicknesses or concentrations by the Beer–Lambert law, τᵢ' = τᵢ^((d'c')/(dc)) (IUPAC Gold Book).",
+  );
+  return spectrum(internal.wavelengths, internal.values.map((t) => t ** ratio), {
+    name: name ?? `${internal.name} ×${+ratio.toPrecision(6)} path`,
+    quantity: "transmittance",
+  });
+}
+
+/**
+ * A measured (external) filter transmittance at another thickness/concentration: surface reflections removed with
+ * the plate relation, the bulk scaled by Beer–Lambert, and the surfaces put back (Hecht §4.6; IUPAC Gold Book).
+ */
+export function scaleFilterTransmittance(external: Spectrum, change: PathChange, options: PlateOptions): Spectrum {
+  const inner = internalTransmittance(external, options);
+  const scaled = scaleInternalTransmittance(inner, change);
+  return externalTransmittance(scaled, { ...options, name: options.name ?? `${external.name} (rescaled)` });
+}

@@ -1,0 +1,45 @@
+/**
+ * Reflection at a smooth surface at normal incidence from the refractive indices on either side (Fresnel equations
+ * at 0°; Hecht, Optics, 5th ed., §4.6.2: R = ((n_t − n_i)/(n_t + n_i))²).
+ */
+import { noteMethod } from "../methods/method-log.ts";
+import { sampler } from "../spectrum/sample.ts";
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { requireFinite } from "./checks.ts";
+
+/** A refractive index: one number for all wavelengths, or a dispersion curve (a spectrum of n against wavelength). */
+export type RefractiveIndex = number | Spectrum;
+
+/** Reflectance of one surface at normal incidence, ρ = ((n − n₀)/(n + n₀))² (Fresnel; Hecht, Optics §4.6.2). */
+export function surfaceReflectance(index: number, outsideIndex = 1): number {
+  requireFinite(index, "refractive index");
+  requireFinite(outsideIndex, "refractive index of the surrounding medium");
+  if (index < 1 || outsideIndex < 1) {
+    throw new Error(`refractive indices ${index} and ${outsideIndex}: optical glass and plastics have n ≥ 1; check the value`);
+  }
+  return ((index - outsideIndex) / (index + outsideIndex)) ** 2;
+}
+
+/** The refractive index at each wavelength: a constant, or a dispersion curve read by interpolation (no extrapolation). */
+export function indexAtWavelengths(index: RefractiveIndex, wavelengths: readonly number[]): number[] {
+  if (typeof index === "number") {
+    requireFinite(index, "refractive index");
+    return wavelengths.map(() => index);
+  }
+  const read = sampler(index, { extrapolation: "refuse" });
+  return wavelengths.map((w) => read(w));
+}
+
+/** Surface reflectance at normal incidence at each wavelength (Fresnel; Hecht, Optics §4.6.2). */
+export function surfaceReflectanceAt(index: RefractiveIndex, wavelengths: readonly number[], outsideIndex = 1): number[] {
+  noteMethod(
+    "optics",
+    "Surface reflection was computed at normal incidence from the refractive index, ρ = ((n − 1)/(n + 1))² (Fresnel equations; Hecht, Optics §4.6).",
+  );
+  return indexAtWavelengths(index, wavelengths).map((n) => surfaceReflectance(n, outsideIndex));
+}
+
+/** A short description of an index for names and method notes. */
+export function describeIndex(index: RefractiveIndex): string {
+  return typeof index === "number" ? `n = ${index}` : `n(λ) from "${index.name}"`;
+}

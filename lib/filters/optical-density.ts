@@ -1,0 +1,44 @@
+/** Optical density (decadic absorbance of a filter), D = −log₁₀ T, and back, T = 10^−D (ISO 5-1 transmission density). */
+import { noteMethod } from "../methods/method-log.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { requireFinite, requireFraction } from "./checks.ts";
+
+/** D = −log₁₀ T for a transmittance fraction T > 0 (ISO 5-1 transmission density). */
+export function opticalDensity(transmittance: number): number {
+  requireFraction(transmittance, "transmittance");
+  if (transmittance === 0) throw new Error("transmittance 0 has infinite optical density; give a small positive floor for blocked bands");
+  return -Math.log10(transmittance);
+}
+
+/** T = 10^−D (ISO 5-1 transmission density, inverted). */
+export function transmittanceFromDensity(density: number): number {
+  requireFinite(density, "optical density");
+  if (density < 0) throw new Error(`optical density ${density} is negative, i.e. a transmittance above 1; check the data`);
+  return 10 ** -density;
+}
+
+/** Optical density at each wavelength, D(λ) = −log₁₀ T(λ); a zero transmittance is an error naming its wavelength. */
+export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
+  noteMethod("optics", "Optical density D = −log₁₀ T (decadic).");
+  const values = transmittance.values.map((t, i) => {
+    try {
+      return opticalDensity(t);
+    } catch (e) {
+      throw new Error(`"${transmittance.name}" at ${transmittance.wavelengths[i]} nm: ${(e as Error).message}`);
+    }
+  });
+  return spectrum(transmittance.wavelengths, values, { name: transmittance.name, quantity: "optical density" });
+}
+
+/** Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ). */
+export function transmittanceFromDensitySpectrum(density: Spectrum): Spectrum {
+  noteMethod("optics", "Optical density D = −log₁₀ T (decadic).");
+  const values = density.values.map((d, i) => {
+    try {
+      return transmittanceFromDensity(d);
+    } catch (e) {
+      throw new Error(`"${density.name}" at ${density.wavelengths[i]} nm: ${(e as Error).message}`);
+    }
+  });
+  return spectrum(density.wavelengths, values, { name: density.name, quantity: "transmittance" });
+}

@@ -1,0 +1,101 @@
+/**
+ * Parametric filter curves for demonstrations and what-if studies (not measurements): ideal and smoothed band-pass,
+ * long-pass and short-pass edges, neutral density, and an absorbing dye from its absorbance curve. Smoothed edges are
+ * logistic curves whose 10 %–90 % rise spans `edgeWidth` nm (common practice, no source); the dye follows the
+ * Beer–Lambert law (IUPAC Gold Book).
+ */
+import { noteMethod } from "../methods/method-log.ts";
+import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { requireFinite, requireFraction, requireNonNegative, requirePositive } from "./checks.ts";
+
+/** The default grid of parametric curves: 360–830 nm every 1 nm, the range of the CIE observers. */
+export const PARAMETRIC_GRID: WavelengthGrid = { start: 360, end: 830, step: 1 };
+
+export interface EdgeShape {
+  /** Transmittance in the pass band, a fraction (default 1). */
+  peak?: number;
+  /** Transmittance in the blocked band, a fraction (default 0). */
+  floor?: number;
+  /** Distance in nm over which the edge rises from 10 % to 90 % of its step; 0 (default) gives an ideal, sharp edge. */
+  edgeWidth?: number;
+  grid?: WavelengthGrid;
+  name?: string;
+}
+
+/** Logistic step rising through 0.5 at x = 0 with 10–90 % width w: 1/(1 + exp(−x·2ln9/w)); a unit step when w = 0. */
+export function smoothStep(x: number, edgeWidth: number): number {
+  if (edgeWidth === 0) return x >= 0 ? 1 : 0;
+  return 1 / (1 + Math.exp((-x * 2 * Math.log(9)) / edgeWidth));
+}
+
+function shape(options: EdgeShape): { peak: number; floor: number; edgeWidth: number; wavelengths: number[] } {
+  const peak = requireFraction(options.peak ?? 1, "pass-band transmittance (peak)");
+  const floor = requireFraction(options.floor ?? 0, "blocking transmittance (floor)");
+  if (floor > peak) throw new Error(`the blocking transmittance ${floor} is above the pass-band transmittance ${peak}`);
+  const edgeWidth = requireNonNegative(options.edgeWidth ?? 0, "edge width (nm)");
+  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; smoothed edges are logistic with the stated 10–90 % edge width.");
+  return { peak, floor, edgeWidth, wavelengths: gridWavelengths(options.grid ?? PARAMETRIC_GRID) };
+}
+
+/** A long-pass filter: blocks below `edge` nm (its 50 % point) and passes above (logistic edge; common practice, no source). */
+export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
+  requirePositive(edge, "long-pass edge wavelength (nm)");
+  const s = shape(options);
+  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(w - edge, s.edgeWidth)), {
+    name: options.name ?? `long-pass ${edge} nm`,
+    quantity: "transmittance",
+  });
+}
+
+/** A short-pass filter: passes below `edge` nm (its 50 % point) and blocks above (logistic edge; common practice, no source). */
+export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
+  requirePositive(edge, "short-pass edge wavelength (nm)");
+  const s = shape(options);
+  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(edge - w, s.edgeWidth)), {
+    name: options.name ?? `short-pass ${edge} nm`,
+    quantity: "transmittance",
+  });
+}
+
+/**
+ * A band-pass filter centred on `centre` nm with full width `width` nm between its 50 % points: the product of a
+ * long-pass and a short-pass edge (ideal when edgeWidth is 0; common practice, no source).
+ */
+export function bandPassFilter(centre: number, width: number, options: EdgeShape = {}): Spectrum {
+  requirePositive(centre, "band-pass centre wavelength (nm)");
+  requirePositive(width, "band-pass width (nm)");
+  const s = shape(options);
+  const lo = centre - width / 2;
+  const hi = centre + width / 2;
+  return spectrum(
+    s.wavelengths,
+    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(w - lo, s.edgeWidth) * smoothStep(hi - w, s.edgeWidth)),
+    { name: options.name ?? `band-pass ${centre}/${width} nm`, quantity: "transmittance" },
+  );
+}
+
+/** A neutral density filter: T = 10^−D at every wavelength (ISO 5-1 transmission density). */
+export function neutralDensityFilter(density: number, options: { grid?: WavelengthGrid; name?: string } = {}): Spectrum {
+  requireNonNegative(density, "neutral density");
+  const w = gridWavelengths(options.grid ?? PARAMETRIC_GRID);
+  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; smoothed edges are logistic with the stated 10–90 % edge width.");
+  return spectrum(w, w.map(() => 10 ** -density), { name: options.name ?? `ND ${density}`, quantity: "transmittance" });
+}
+
+/**
+ * Internal transmittance of an absorbing dye layer from its decadic absorbance curve A(λ) (measured at some
+ * reference concentration and path): τᵢ = 10^(−amount·A), `amount` = (c·d)/(c_ref·d_ref) (Beer–Lambert, IUPAC Gold Book).
+ */
+export function dyeFilter(absorbance: Spectrum, options: { amount?: number; name?: string } = {}): Spectrum {
+  const amount = requireNonNegative(options.amount ?? 1, "dye amount (relative concentration × path)");
+  absorbance.values.forEach((a, i) => {
+    requireFinite(a, `absorbance of "${absorbance.name}" at ${absorbance.wavelengths[i]} nm`);
+    if (a < 0) throw new Error(`absorbance of "${absorbance.name}" is ${a} at ${absorbance.wavelengths[i]} nm; a dye's absorbance cannot be negative`);
+  });
+  noteMethod("optics", "Dye layers follow the Beer–Lambert law: τᵢ = 10^(−A·c·d) with decadic absorbance A (IUPAC Gold Book).");
+  return spectrum(absorbance.wavelengths, absorbance.values.map((a) => 10 ** (-amount * a)), {
+    name: options.name ?? `${absorbance.name} ×${amount}`,
+    quantity: "transmittance",
+  });
+}
