@@ -23,6 +23,8 @@ export * from "./colorimetry/tristimulus.ts";
 export * from "./colorimetry/cielab.ts";
 
 // Core colorimetry added by the colorimetry owner below this line.
+export * from "./temperature/planckian-locus.ts";
+export * from "./temperature/cct.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
 export * from "./plot/index.ts";

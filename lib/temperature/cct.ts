@@ -1,0 +1,103 @@
+/**
+ * Correlated colour temperature (CCT) and distance from the Planckian locus (Duv) in the CIE 1960 UCS
+ * (CIE 015:2018 §9.5), and the inverse: the chromaticity at a given CCT and Duv.
+ */
+import { chromaticityXy, uv1960FromXy, xyFromUv1960, type Chromaticity } from "../colorimetry/chromaticity.ts";
+import { lightTristimulus } from "../colorimetry/tristimulus.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { cctOhno, OHNO_RANGE_K } from "./cct-ohno.ts";
+import { cctRobertson } from "./cct-robertson.ts";
+import { planckianLocusAtReciprocal, planckianNormal } from "./planckian-locus.ts";
+
+export type CctMethod = "ohno" | "robertson";
+
+export interface CctOptions {
+  /** "ohno" (default): Ohno 2014 combined method; "robertson": Robertson 1968. */
+  method?: CctMethod;
+}
+
+export interface CctResult {
+  /** Correlated colour temperature in kelvin. */
+  readonly cct: number;
+  /** Signed distance from the Planckian locus in CIE 1960 uv; positive above the locus (towards green). */
+  readonly duv: number;
+}
+
+/** |Duv| beyond which CIE 015:2018 §9.5 regards a correlated colour temperature as meaningless. */
+export const DUV_LIMIT = 0.05;
+
+const LOCUS_WORDS = "Planckian locus from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm, 360–830 nm; distances in the CIE 1960 UCS";
+
+function checkXy(xy: Chromaticity, what: string): void {
+  if (typeof xy !== "object" || xy === null || !Number.isFinite(xy.x) || !Number.isFinite(xy.y)) {
+    throw new Error(`${what}: chromaticity (${xy?.x}, ${xy?.y}) must be two finite numbers`);
+  }
+  if (xy.x <= 0 || xy.y <= 0 || xy.x + xy.y >= 1) {
+    throw new Error(`${what}: chromaticity (${xy.x}, ${xy.y}) is not a physical chromaticity (need x > 0, y > 0, x + y < 1)`);
+  }
+}
+
+/** Duv of a 1960 (u, v) at a temperature: the distance to the locus point, signed by v − v_T (Ohno 2014). */
+function duvAt(u: number, v: number, cct: number): number {
+  const p = planckianLocusAtReciprocal(1 / cct);
+  return Math.hypot(u - p.u, v - p.v) * Math.sign(v - p.v);
+}
+
+/**
+ * CCT (K) and Duv of a CIE 1931 chromaticity: Ohno (2014) combined triangular/parabolic method by default, or
+ * Robertson (1968); an error when |Duv| > 0.05 (CIE 015:2018 §9.5) or the CCT is outside the method's range.
+ */
+export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
+  checkXy(xy, "cctAndDuv");
+  const method = options.method ?? "ohno";
+  const uv = uv1960FromXy(xy);
+  let result: CctResult;
+  if (method === "ohno") {
+    result = cctOhno(uv);
+    noteMethod(
+      "colour temperature",
+      `Correlated colour temperature and Duv by Ohno's combined triangular/parabolic method (Ohno 2014, LEUKOS 10:47–55) on a Planckian table in 1 % steps from ${OHNO_RANGE_K[0]} K to ${OHNO_RANGE_K[1]} K, refined around the nearest point to steps of about 0.0003 % (so the 1 %-table correction factor 0.99991 is not applied); ${LOCUS_WORDS}.`,
+    );
+  } else if (method === "robertson") {
+    const cct = cctRobertson(uv);
+    result = { cct, duv: duvAt(uv.u, uv.v, cct) };
+    noteMethod(
+      "colour temperature",
+      `Correlated colour temperature by Robertson's method (JOSA 58:1528, 1968) on his 31 isotemperature lines (0–600 MK⁻¹), recomputed from the ${LOCUS_WORDS}; Duv as the distance to the locus at that temperature.`,
+    );
+  } else {
+    throw new Error(`cctAndDuv: unknown method "${String(method)}"; use "ohno" or "robertson"`);
+  }
+  if (Math.abs(result.duv) > DUV_LIMIT) {
+    throw new Error(
+      `cctAndDuv: chromaticity (${xy.x.toFixed(5)}, ${xy.y.toFixed(5)}) is ${Math.abs(result.duv).toFixed(4)} from the Planckian locus in uv (Duv = ${result.duv.toFixed(4)}); CIE 015:2018 regards a CCT as meaningless beyond |Duv| = ${DUV_LIMIT}`,
+    );
+  }
+  return result;
+}
+
+/** CCT and Duv of a light source from its spectral distribution (CIE 1931 2° observer; CIE 015:2018 §9.5). */
+export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctResult {
+  const xyz = lightTristimulus(spd, { observer: "2°" });
+  return cctAndDuv(chromaticityXy(xyz), options);
+}
+
+/**
+ * The CIE 1931 chromaticity at a CCT and Duv: the Planckian point at T moved Duv along the normal to the locus in
+ * CIE 1960 uv (the inverse of the definition in CIE 015:2018 §9.5 and Ohno 2014).
+ */
+export function chromaticityAtCct(cct: number, duv = 0): Chromaticity {
+  if (typeof cct !== "number" || !Number.isFinite(cct) || cct < OHNO_RANGE_K[0] || cct > OHNO_RANGE_K[1]) {
+    throw new Error(`chromaticityAtCct: CCT ${cct} K is outside ${OHNO_RANGE_K[0]}–${OHNO_RANGE_K[1]} K`);
+  }
+  if (typeof duv !== "number" || !Number.isFinite(duv) || Math.abs(duv) > DUV_LIMIT) {
+    throw new Error(`chromaticityAtCct: Duv ${duv} is not a finite number within ±${DUV_LIMIT}`);
+  }
+  const p = planckianNormal(cct);
+  const xy = xyFromUv1960({ u: p.u + duv * p.nu, v: p.v + duv * p.nv });
+  if (!(xy.x > 0 && xy.y > 0 && xy.x + xy.y < 1)) {
+    throw new Error(`chromaticityAtCct: ${cct} K with Duv ${duv} lies outside the range of real colours (x = ${xy.x.toFixed(4)}, y = ${xy.y.toFixed(4)})`);
+  }
+  return xy;
+}
