@@ -1,0 +1,242 @@
+/**
+ * Display functions a notebook cell calls to put something in the report. Each turns its argument into a plain
+ * output record (see records.ts) and hands it to the cell process; nothing returns a value, so a display call as a
+ * cell's last line is not shown twice. Available in every cell as globals and as `import { ... } from "tristim"`.
+ */
+import { inspect } from "node:util";
+import { checkDigits, formatNumber } from "./format-number.ts";
+import { currentOutputSink } from "./output-sink.ts";
+import { toPlainData } from "./plain-data.ts";
+import type { OutputRecord, PlotSpec, SwatchRecord, TableColumnRecord } from "./records.ts";
+
+/** How many table rows a report shows before it truncates (the note says how many there were). */
+export const MAX_TABLE_ROWS = 2000;
+
+/** One column of `showTable`: the row key, and optionally its header label, unit and decimals. */
+export interface TableColumn {
+  readonly key: string;
+  readonly label?: string;
+  readonly unit?: string;
+  readonly digits?: number;
+}
+
+/** Options of `showTable`. */
+export interface TableOptions {
+  /** Column order and headers; plain strings are keys. Default: every key, in order of first appearance. */
+  readonly columns?: ReadonlyArray<string | TableColumn>;
+  /** Decimals for every numeric column that does not set its own; default: up to 6 significant digits. */
+  readonly digits?: number;
+  /** Units by key, e.g. { Y: "cd/m²" }, shown in the header (a column's own `unit` wins). */
+  readonly units?: Readonly<Record<string, string>>;
+  readonly caption?: string;
+}
+
+/** A Plotly figure as `showFigure` accepts it: a spec, optionally with the caption the plot functions attach. */
+export type FigureInput = PlotSpec & { readonly caption?: string };
+
+/** Options of `showMarkdown` and `showHtml`. */
+export interface TrustOptions {
+  /** Render raw HTML as HTML. Only for text your own code generated from data you trust; default false (escaped). */
+  readonly trusted?: boolean;
+}
+
+/** Sends a record to the running notebook, or prints a plain-text form when called outside a notebook run. */
+function emit(record: OutputRecord): void {
+  const sink = currentOutputSink();
+  if (sink) return sink(record);
+  const text = "text" in record ? record.text : JSON.stringify(record);
+  if (record.kind === "caution") console.warn(`${record.title}: ${record.text}`);
+  else console.log(text);
+}
+
+/** Shows any value: tables for arrays of objects, figures for Plotly specs and spectra, text for the rest. */
+export function show(value: unknown): void {
+  if (typeof value === "string") return emit({ kind: "value", text: value });
+  if (isPlotSpec(value)) return showFigure(value);
+  if (isSpectrumLike(value)) return showSpectrum(value);
+  if (isSwatchList(value)) return showSwatches(value);
+  if (isRowList(value)) return showTable(value);
+  emit({ kind: "value", text: inspectValue(value) });
+}
+
+/** The text form of a value as the report shows it (Node's inspect, without colours, 4 levels deep). */
+export function inspectValue(value: unknown): string {
+  return inspect(value, { depth: 4, colors: false, maxArrayLength: 200, maxStringLength: 20_000, breakLength: 100 });
+}
+
+/** Shows an array of objects as a table, with column order, units in the headers and number formatting. */
+export function showTable(rows: readonly object[], options: TableOptions = {}): void {
+  if (!Array.isArray(rows)) throw new TypeError(`showTable: rows must be an array of objects, got ${describe(rows)}`);
+  rows.forEach((row, i) => {
+    if (row === null || typeof row !== "object") {
+      throw new TypeError(`showTable: row ${i + 1} is ${describe(row)}, not an object`);
+    }
+  });
+  const defaultDigits = checkDigits(options.digits, "showTable");
+  const columns = tableColumns(rows as readonly Record<string, unknown>[], options);
+  const shown = rows.slice(0, MAX_TABLE_ROWS) as readonly Record<string, unknown>[];
+  const numeric = columns.map((c) => shown.some((r) => typeof r[c.key] === "number") &&
+    shown.every((r) => r[c.key] === undefined || r[c.key] === null || typeof r[c.key] === "number"));
+  const formatted = shown.map((row) =>
+    columns.map((c) => formatCell(row[c.key], checkDigits(c.digits, `showTable column "${c.key}"`) ?? defaultDigits)),
+  );
+  const headers: TableColumnRecord[] = columns.map((c, i) => {
+    const unit = c.unit ?? options.units?.[c.key];
+    return unit ? { label: c.label ?? c.key, unit, numeric: numeric[i]! } : { label: c.label ?? c.key, numeric: numeric[i]! };
+  });
+  emit({ kind: "table", caption: options.caption, columns: headers, rows: formatted, totalRows: rows.length });
+}
+
+/** Shows a Plotly figure ({ data, layout?, config? }); the caption goes under it, numbered. */
+export function showFigure(figure: FigureInput, caption?: string): void {
+  if (!isPlotSpec(figure)) {
+    throw new TypeError(`showFigure: expected a Plotly figure { data: [...], layout?: {...} }, got ${describe(figure)}`);
+  }
+  const spec = toPlainData(
+    { data: figure.data, layout: figure.layout ?? {}, config: figure.config ?? {} },
+    "the figure",
+  ) as PlotSpec;
+  const text = caption ?? figure.caption;
+  emit({ kind: "figure", caption: typeof text === "string" && text !== "" ? text : undefined, spec });
+}
+
+/** Shows colour swatches: sRGB hex (drawn everywhere), optional wide-gamut CSS colour, label, out-of-gamut flag. */
+export function showSwatches(swatches: readonly SwatchRecord[], caption?: string): void {
+  if (!Array.isArray(swatches)) {
+    throw new TypeError(`showSwatches: expected an array of { label, hex }, got ${describe(swatches)}`);
+  }
+  const checked = swatches.map((s, i) => checkSwatch(s, i));
+  emit({ kind: "swatches", caption, swatches: checked });
+}
+
+/** Shows Markdown generated by code; raw HTML in it is escaped unless `{ trusted: true }`. */
+export function showMarkdown(text: string, options: TrustOptions = {}): void {
+  if (typeof text !== "string") throw new TypeError(`showMarkdown: expected a string, got ${describe(text)}`);
+  emit({ kind: "markdown", text, trusted: options.trusted === true });
+}
+
+/** Shows HTML generated by code: as escaped text, or rendered when marked `{ trusted: true }`. */
+export function showHtml(html: string, options: TrustOptions = {}): void {
+  if (typeof html !== "string") throw new TypeError(`showHtml: expected a string, got ${describe(html)}`);
+  emit({ kind: "html", html, trusted: options.trusted === true });
+}
+
+/** Puts a caution in the report where it was raised and in the summary at the top (e.g. "informative only"). */
+export function showCaution(text: string, title = "Caution"): void {
+  if (typeof text !== "string" || text.trim() === "") {
+    throw new TypeError(`showCaution: expected a non-empty string, got ${describe(text)}`);
+  }
+  emit({ kind: "caution", title: String(title), text });
+}
+
+/** A spectrum as a small line plot of value against wavelength. */
+function showSpectrum(s: SpectrumLike): void {
+  const quantity = typeof s.quantity === "string" ? s.quantity : "value";
+  const unit = typeof s.unit === "string" && s.unit !== "" ? ` (${s.unit})` : "";
+  const name = typeof s.name === "string" ? s.name : "spectrum";
+  showFigure(
+    {
+      data: [{ type: "scatter", mode: "lines", x: [...s.wavelengths], y: [...s.values], name }],
+      layout: {
+        height: 320,
+        xaxis: { title: { text: "Wavelength (nm)" } },
+        yaxis: { title: { text: `${quantity}${unit}` } },
+      },
+    },
+    `${name}: ${quantity}, ${s.wavelengths.length} samples from ${s.wavelengths[0]} to ${s.wavelengths.at(-1)} nm.`,
+  );
+}
+
+interface SpectrumLike {
+  readonly name?: unknown;
+  readonly quantity?: unknown;
+  readonly unit?: unknown;
+  readonly wavelengths: readonly number[];
+  readonly values: readonly number[];
+}
+
+function isPlotSpec(value: unknown): value is FigureInput {
+  return typeof value === "object" && value !== null && Array.isArray((value as { data?: unknown }).data) &&
+    (value as { data: unknown[] }).data.every((t) => typeof t === "object" && t !== null);
+}
+
+function isSpectrumLike(value: unknown): value is SpectrumLike {
+  if (typeof value !== "object" || value === null) return false;
+  const { wavelengths, values } = value as { wavelengths?: unknown; values?: unknown };
+  return Array.isArray(wavelengths) && Array.isArray(values) && wavelengths.length === values.length &&
+    wavelengths.length > 1 && wavelengths.every((w) => typeof w === "number") && values.every((v) => typeof v === "number");
+}
+
+function isSwatchList(value: unknown): value is SwatchRecord[] {
+  return Array.isArray(value) && value.length > 0 && value.every((s) =>
+    typeof s === "object" && s !== null && typeof (s as { hex?: unknown }).hex === "string" &&
+    typeof (s as { label?: unknown }).label === "string");
+}
+
+function isRowList(value: unknown): value is Record<string, unknown>[] {
+  return Array.isArray(value) && value.length > 0 && value.every((r) => {
+    if (typeof r !== "object" || r === null || Array.isArray(r)) return false;
+    const proto = Object.getPrototypeOf(r);
+    return proto === Object.prototype || proto === null;
+  });
+}
+
+/** The columns of a table: the requested ones (checked against the rows) or every key in order of appearance. */
+function tableColumns(rows: readonly Record<string, unknown>[], options: TableOptions): TableColumn[] {
+  const keys: string[] = [];
+  const seen = new Set<string>();
+  for (const row of rows) for (const key of Object.keys(row)) if (!seen.has(key)) (seen.add(key), keys.push(key));
+  if (options.columns === undefined) return keys.map((key) => ({ key }));
+  if (!Array.isArray(options.columns)) {
+    throw new TypeError(`showTable: columns must be an array of keys or { key, label, unit, digits }, got ${describe(options.columns)}`);
+  }
+  return options.columns.map((c) => {
+    const column = typeof c === "string" ? { key: c } : c;
+    if (typeof column !== "object" || column === null || typeof column.key !== "string") {
+      throw new TypeError(`showTable: a column must be a key or { key, label, unit, digits }, got ${describe(c)}`);
+    }
+    if (rows.length > 0 && !seen.has(column.key)) {
+      throw new RangeError(`showTable: column "${column.key}" is in none of the rows (their keys: ${keys.join(", ") || "none"})`);
+    }
+    return column;
+  });
+}
+
+function formatCell(value: unknown, digits: number | undefined): string {
+  if (value === undefined || value === null) return "";
+  if (typeof value === "number") return formatNumber(value, digits);
+  if (typeof value === "string") return value;
+  if (typeof value === "boolean" || typeof value === "bigint") return String(value);
+  if (value instanceof Date) return value.toISOString();
+  return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
+}
+
+const HEX = /^#[0-9a-fA-F]{6}$/;
+/** A CSS colour function with numbers, percentages, `none`, keywords and `/`; no quotes, semicolons or braces. */
+const CSS_COLOUR = /^[a-z-]+\(\s*[a-z0-9.%+\-\s/]*\)$/i;
+
+function checkSwatch(s: SwatchRecord, i: number): SwatchRecord {
+  const where = `showSwatches: swatch ${i + 1}`;
+  if (typeof s !== "object" || s === null) throw new TypeError(`${where} is ${describe(s)}, not { label, hex }`);
+  if (typeof s.label !== "string") throw new TypeError(`${where}: label must be a string, got ${describe(s.label)}`);
+  if (typeof s.hex !== "string" || !HEX.test(s.hex)) {
+    throw new TypeError(`${where} ("${s.label}"): hex must be an sRGB colour like #1a2b3c, got ${describe(s.hex)}`);
+  }
+  if (s.css !== undefined && (typeof s.css !== "string" || !CSS_COLOUR.test(s.css.trim()))) {
+    throw new TypeError(`${where} ("${s.label}"): css must be a CSS colour function like color(display-p3 1 0.2 0.1), got ${describe(s.css)}`);
+  }
+  const out: { -readonly [K in keyof SwatchRecord]: SwatchRecord[K] } = { label: s.label, hex: s.hex.toLowerCase() };
+  if (s.css !== undefined) out.css = s.css.trim();
+  if (s.outOfGamut === true) out.outOfGamut = true;
+  if (typeof s.note === "string" && s.note !== "") out.note = s.note;
+  return out;
+}
+
+function describe(value: unknown): string {
+  if (value === null) return "null";
+  if (Array.isArray(value)) return `an array of ${value.length}`;
+  if (typeof value === "string") return JSON.stringify(value.length > 60 ? `${value.slice(0, 60)}…` : value);
+  if (typeof value === "object") return inspect(value, { depth: 0, breakLength: Infinity }).slice(0, 80);
+  return `${typeof value} ${String(value)}`;
+}
+

@@ -1,0 +1,96 @@
+/**
+ * The messages between the runner and the cell process (over Node's IPC channel, as JSON). Plain data only.
+ */
+import type { InputValue } from "./inputs.ts";
+import type { FailureKind, OutputRecord } from "./records.ts";
+
+/** Runner → cell process: set up the run (sent once, first). */
+export interface InitMessage {
+  readonly type: "init";
+  readonly notebookPath: string;
+  readonly inputs: Readonly<Record<string, InputValue>>;
+}
+
+/** Runner → cell process: run one compiled cell. */
+export interface RunCellMessage {
+  readonly type: "run";
+  readonly cell: number;
+  /** The cell compiled to a function expression `(async function (rt) { ... })`. */
+  readonly code: string;
+  /** File name the cell's stack frames carry, so the runner can map them back to the notebook. */
+  readonly filename: string;
+  /** Absolute path of the bundle of the cell's imports, if it has any (other than "tristim"). */
+  readonly importBundle?: string;
+}
+
+/** Runner → cell process: no more cells; send the method log and end. */
+export interface FinishMessage {
+  readonly type: "finish";
+}
+
+export type ToCellProcess = InitMessage | RunCellMessage | FinishMessage;
+
+/** A thrown value as the cell process saw it, before the runner maps its stack to the notebook. */
+export interface RawError {
+  readonly failure: FailureKind;
+  readonly name?: string;
+  readonly message: string;
+  /** The `stack` text of the error, if it was an Error. */
+  readonly stack?: string;
+}
+
+/** Cell process → runner: the library is loaded and the harness is ready. */
+export interface ReadyMessage {
+  readonly type: "ready";
+}
+
+/** Cell process → runner: records shown by the running cell (sent in batches). */
+export interface OutputMessage {
+  readonly type: "output";
+  readonly cell: number;
+  readonly records: readonly OutputRecord[];
+}
+
+/** Cell process → runner: a cell finished. */
+export interface CellDoneMessage {
+  readonly type: "done";
+  readonly cell: number;
+  readonly durationMs: number;
+  readonly error?: RawError;
+  /** Absolute paths of the files the cell read. */
+  readonly reads: readonly string[];
+}
+
+/** Cell process → runner: the answer to "finish". */
+export interface FinishedMessage {
+  readonly type: "finished";
+  readonly methods: readonly { readonly topic: string; readonly statement: string }[];
+  /** An error raised after the last cell finished, by code it left running (timer, unawaited promise). */
+  readonly lateError?: RawError;
+}
+
+/** Cell process → runner: the harness itself could not start (e.g. the library threw while loading). */
+export interface StartupFailedMessage {
+  readonly type: "startup-failed";
+  readonly error: RawError;
+}
+
+export type FromCellProcess = ReadyMessage | OutputMessage | CellDoneMessage | FinishedMessage | StartupFailedMessage;
+
+/** The object a compiled cell receives as its only parameter: the hooks its rewritten code calls. */
+export interface CellRuntime {
+  /** Makes sure each shared name exists as a writable global before the cell assigns it. */
+  declare(names: readonly string[]): void;
+  /** Sets a shared binding (used for function declarations, which stay hoisted inside the cell). */
+  share(name: string, value: unknown): void;
+  /** The namespace of the cell's import number `i` (loaded before the cell runs). */
+  imported(i: number): Record<string, unknown>;
+  /** The "tristim" module namespace. */
+  readonly lib: Record<string, unknown>;
+  /** Picks a named export from a namespace, with a clear error when it does not exist. */
+  pick(namespace: Record<string, unknown>, name: string, from: string): unknown;
+  /** `import(...)` inside a cell, resolved against the notebook's folder. */
+  dynamicImport(specifier: string): Promise<unknown>;
+  /** `import.meta` inside a cell: the notebook's URL, folder and file. */
+  readonly meta: { readonly url: string; readonly dirname: string; readonly filename: string };
+}

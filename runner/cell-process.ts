@@ -1,0 +1,183 @@
+/**
+ * The runner's side of the cell process: starts it (a child Node process in the notebook's folder), sends it cells,
+ * receives their records, and stops it when a cell runs past its time limit or the run is cancelled. The CLI never
+ * waits on a cell process without a deadline.
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import path from "node:path";
+import type { InputValue } from "../cells/inputs.ts";
+import type { FromCellProcess, RawError, ToCellProcess } from "../cells/protocol.ts";
+import type { OutputRecord } from "../cells/records.ts";
+import type { RuntimeBundle } from "./runtime-bundle.ts";
+
+/** How long the cell process may take to load the library and get ready. */
+export const STARTUP_LIMIT_MS = 60_000;
+/** How long the cell process may take to answer "finish" after the last cell. */
+export const FINISH_LIMIT_MS = 10_000;
+
+/** How one cell ended, seen from the runner. */
+export type CellOutcome =
+  | { readonly kind: "done"; readonly durationMs: number; readonly error?: RawError; readonly reads: readonly string[] }
+  | { readonly kind: "time-limit"; readonly durationMs: number }
+  | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string };
+
+/** The cell process of a run, or of part of a run after a restart. */
+export class CellProcess {
+  private readonly child: ChildProcess;
+  private exited = false;
+  private exitDetail = "";
+  private stderrTail = "";
+  private listeners = new Set<(message: FromCellProcess) => void>();
+  private exitListeners = new Set<() => void>();
+
+  private constructor(
+    runtime: RuntimeBundle,
+    notebookPath: string,
+    private readonly onOutput: (cell: number, records: readonly OutputRecord[]) => void,
+  ) {
+    this.child = spawn(process.execPath, [runtime.worker], {
+      cwd: path.dirname(notebookPath),
+      stdio: ["ignore", "pipe", "pipe", "ipc"],
+      env: { ...process.env, NODE_NO_WARNINGS: "1" },
+    });
+    const keepTail = (chunk: Buffer) => {
+      this.stderrTail = (this.stderrTail + chunk.toString("utf8")).slice(-4000);
+    };
+    this.child.stderr?.on("data", keepTail);
+    this.child.stdout?.on("data", keepTail);
+    this.child.on("message", (message: FromCellProcess) => {
+      if (message.type === "output") this.onOutput(message.cell, message.records);
+      for (const listener of [...this.listeners]) listener(message);
+    });
+    this.child.on("error", (error) => {
+      this.exitDetail = `the cell process could not be started: ${error.message}`;
+      this.markExited();
+    });
+    this.child.on("exit", (code, signal) => {
+      this.exitDetail ||= signal ? `the cell process was ended by signal ${signal}` : `the cell process ended with exit code ${code}`;
+      this.markExited();
+    });
+  }
+
+  /** Starts a cell process and waits until the library is loaded and the inputs are set. */
+  static async start(
+    runtime: RuntimeBundle,
+    notebookPath: string,
+    inputs: Readonly<Record<string, InputValue>>,
+    onOutput: (cell: number, records: readonly OutputRecord[]) => void,
+    signal?: AbortSignal,
+  ): Promise<CellProcess> {
+    const cell = new CellProcess(runtime, notebookPath, onOutput);
+    cell.send({ type: "init", notebookPath, inputs });
+    const answer = await cell.wait((m) => m.type === "ready" || m.type === "startup-failed", STARTUP_LIMIT_MS, signal);
+    if (answer === "timeout") {
+      cell.kill();
+      throw new CellProcessStartError({ failure: "startup", message: `the cell process did not get ready within ${STARTUP_LIMIT_MS / 1000} s` });
+    }
+    if (answer === "exit") throw new CellProcessStartError({ failure: "startup", message: cell.describeExit() });
+    if (answer.type === "startup-failed") {
+      cell.kill();
+      throw new CellProcessStartError(answer.error);
+    }
+    return cell;
+  }
+
+  /** Runs one compiled cell with a time limit. */
+  async run(
+    message: Extract<ToCellProcess, { type: "run" }>,
+    timeLimitMs: number,
+    signal?: AbortSignal,
+  ): Promise<CellOutcome> {
+    const started = performance.now();
+    this.send(message);
+    const answer = await this.wait((m) => m.type === "done" && m.cell === message.cell, timeLimitMs, signal);
+    const durationMs = performance.now() - started;
+    if (answer === "timeout") {
+      this.kill();
+      return { kind: "time-limit", durationMs };
+    }
+    if (answer === "exit") return { kind: "crash", durationMs, detail: this.describeExit() };
+    const done = answer as Extract<FromCellProcess, { type: "done" }>;
+    return { kind: "done", durationMs: done.durationMs, error: done.error, reads: done.reads };
+  }
+
+  /** Asks for the method log and lets the process end; undefined when it does not answer in time. */
+  async finish(): Promise<Extract<FromCellProcess, { type: "finished" }> | undefined> {
+    if (this.exited) return undefined;
+    this.send({ type: "finish" });
+    const answer = await this.wait((m) => m.type === "finished", FINISH_LIMIT_MS);
+    this.kill();
+    return typeof answer === "object" ? (answer as Extract<FromCellProcess, { type: "finished" }>) : undefined;
+  }
+
+  /** Stops the process at once. */
+  kill(): void {
+    if (!this.exited) this.child.kill("SIGKILL");
+  }
+
+  get alive(): boolean {
+    return !this.exited;
+  }
+
+  private describeExit(): string {
+    const tail = this.stderrTail.trim().split("\n").slice(-6).join("\n");
+    return tail ? `${this.exitDetail}; its last output was:\n${tail}` : this.exitDetail;
+  }
+
+  private send(message: ToCellProcess): void {
+    if (!this.exited && this.child.connected) this.child.send(message);
+  }
+
+  private markExited(): void {
+    if (this.exited) return;
+    this.exited = true;
+    for (const listener of [...this.exitListeners]) listener();
+  }
+
+  /** Waits for a matching message, the process's exit, a deadline or an abort (which kills the process). */
+  private wait(
+    match: (m: FromCellProcess) => boolean,
+    limitMs: number,
+    signal?: AbortSignal,
+  ): Promise<FromCellProcess | "timeout" | "exit"> {
+    return new Promise((resolve, reject) => {
+      const cleanup = () => {
+        clearTimeout(timer);
+        this.listeners.delete(onMessage);
+        this.exitListeners.delete(onExit);
+        signal?.removeEventListener("abort", onAbort);
+      };
+      const onMessage = (m: FromCellProcess) => {
+        if (match(m)) (cleanup(), resolve(m));
+      };
+      const onExit = () => (cleanup(), resolve("exit"));
+      const onAbort = () => {
+        cleanup();
+        this.kill();
+        reject(new RunCancelled());
+      };
+      const timer = setTimeout(() => (cleanup(), resolve("timeout")), limitMs);
+      this.listeners.add(onMessage);
+      this.exitListeners.add(onExit);
+      signal?.addEventListener("abort", onAbort);
+      if (signal?.aborted) onAbort();
+      else if (this.exited) onExit();
+    });
+  }
+}
+
+/** The cell process could not start (the library threw while loading, or the process died). */
+export class CellProcessStartError extends Error {
+  override readonly name = "CellProcessStartError";
+  constructor(readonly error: RawError) {
+    super(error.message);
+  }
+}
+
+/** The run was cancelled (watch mode starts a new run when the notebook changes). */
+export class RunCancelled extends Error {
+  override readonly name = "RunCancelled";
+  constructor() {
+    super("the run was cancelled");
+  }
+}

@@ -1,0 +1,99 @@
+/**
+ * The pipeline for one notebook: parsed document → compiled cells → executed cells → RunRecord. The report stage
+ * (report/render-report.ts) then turns document + record into HTML.
+ */
+import { createHash } from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { compileCells } from "./compile-cell.ts";
+import { executeCells } from "./execute.ts";
+import { resolveInputs } from "./inputs.ts";
+import type { NotebookDocument } from "./notebook.ts";
+import type { FileRead, RunRecord } from "./run-record.ts";
+import { cacheRoot, runtimeBundle } from "./runtime-bundle.ts";
+import type { CellRun } from "./run-record.ts";
+import { DEFAULT_TIME_LIMIT_MS } from "./time-limit.ts";
+import { toolVersion } from "./tool-version.ts";
+
+/** Options of a run (all optional). */
+export interface RunOptions {
+  /** Input overrides as written on the command line (name → text). */
+  readonly inputs?: Readonly<Record<string, string>>;
+  /** Default time limit of each cell in ms. */
+  readonly timeLimitMs?: number;
+  /** Run the remaining cells after a failure. */
+  readonly keepGoing?: boolean;
+  readonly signal?: AbortSignal;
+  readonly onCell?: (run: CellRun) => void;
+}
+
+/** Runs every cell of a parsed notebook and returns the record of the run. */
+export async function runDocument(document: NotebookDocument, options: RunOptions = {}): Promise<RunRecord> {
+  const started = performance.now();
+  const startedAt = new Date().toISOString();
+  const { inputs, set } = resolveInputs(document.frontMatter.inputs, options.inputs ?? {}, path.basename(document.path));
+  const timeLimitMs = options.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS;
+  const keepGoing = options.keepGoing ?? false;
+  const runtime = await runtimeBundle();
+  fs.mkdirSync(path.join(cacheRoot(), "runs"), { recursive: true });
+  const outDir = fs.mkdtempSync(path.join(cacheRoot(), "runs", `${process.pid}-`));
+  try {
+    const compiled = await compileCells({ document, tristimModule: runtime.tristim, outDir });
+    const execution = await executeCells(document, compiled, runtime, {
+      timeLimitMs,
+      keepGoing,
+      inputs,
+      signal: options.signal,
+      onCell: options.onCell,
+    });
+    return {
+      notebook: { path: document.path, sha256: document.sha256 },
+      tool: toolVersion(),
+      node: process.version,
+      platform: `${process.platform}-${process.arch}`,
+      startedAt,
+      durationMs: performance.now() - started,
+      inputs,
+      inputsSet: set,
+      timeLimitMs,
+      keepGoing,
+      cells: execution.cells,
+      methods: execution.methods,
+      filesRead: filesRead(execution.cells),
+      events: execution.events,
+      signature: runSignature(document, inputs, timeLimitMs, keepGoing),
+    };
+  } finally {
+    fs.rmSync(outDir, { recursive: true, force: true });
+  }
+}
+
+/**
+ * What decides the outcome of running a notebook: each cell's code and run options, the inputs and the run options.
+ * Two documents with the same signature give the same records (barring changed data files), so an edit that keeps
+ * the signature (prose, captions, hide-source) can be re-rendered from the last run's records.
+ */
+export function runSignature(
+  document: NotebookDocument,
+  inputs: Readonly<Record<string, unknown>>,
+  timeLimitMs: number,
+  keepGoing: boolean,
+): string {
+  const cells = document.cells.map((c) => [c.code, c.options.noRun, c.options.mayFail, c.options.timeLimitMs ?? null]);
+  return createHash("sha256").update(JSON.stringify({ cells, inputs, timeLimitMs, keepGoing, path: document.path })).digest("hex");
+}
+
+/** The files the cells read, each with its SHA-256 now and the cells that read it. */
+function filesRead(cells: readonly CellRun[]): FileRead[] {
+  const byPath = new Map<string, number[]>();
+  for (const cell of cells) for (const file of cell.reads) byPath.set(file, [...(byPath.get(file) ?? []), cell.index]);
+  return [...byPath.entries()].map(([file, readers]) => {
+    try {
+      const stat = fs.statSync(file);
+      if (!stat.isFile()) return { path: file, cells: readers };
+      return { path: file, sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"), cells: readers };
+    } catch {
+      return { path: file, cells: readers };
+    }
+  });
+}

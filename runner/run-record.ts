@@ -1,0 +1,64 @@
+/**
+ * Stage 3's result: the record of a run. Plain serializable data; the report writer and the watch mode's prose-only
+ * re-render read only this (with the parsed notebook), never live objects.
+ */
+import type { InputValue } from "../cells/inputs.ts";
+import type { OutputRecord } from "../cells/records.ts";
+
+/** What happened to one cell. */
+export type CellStatus =
+  | "ok" // ran to the end
+  | "failed" // raised an error, ran past its time limit, or could not be compiled
+  | "not-run" // skipped because an earlier cell failed
+  | "listing"; // marked no-run: shown, never run
+
+/** One cell's run: status, output records in order, duration and the files it read. */
+export interface CellRun {
+  readonly index: number;
+  readonly status: CellStatus;
+  readonly outputs: readonly OutputRecord[];
+  /** Wall-clock time of the cell in the cell process, in ms (absent for cells that did not run). */
+  readonly durationMs?: number;
+  /** Absolute paths of files the cell read. */
+  readonly reads: readonly string[];
+  /** The failure was allowed by the cell's may-fail option. */
+  readonly failureAllowed?: boolean;
+}
+
+/** A file some cell read, with its SHA-256 at the end of the run (for the report's record of inputs). */
+export interface FileRead {
+  readonly path: string;
+  readonly sha256?: string;
+  /** 0-based indexes of the cells that read it. */
+  readonly cells: readonly number[];
+}
+
+/** One colorimetric condition from the library's method log. */
+export interface MethodRecord {
+  readonly topic: string;
+  readonly statement: string;
+}
+
+/** The record of one run of a notebook. */
+export interface RunRecord {
+  readonly notebook: { readonly path: string; readonly sha256: string };
+  readonly tool: { readonly name: string; readonly version: string };
+  readonly node: string;
+  readonly platform: string;
+  /** ISO date and time the run started. */
+  readonly startedAt: string;
+  /** Wall-clock duration of the whole run (compile, cells, collecting results), in ms. */
+  readonly durationMs: number;
+  /** Inputs as the cells saw them, and the subset set on the command line. */
+  readonly inputs: Readonly<Record<string, InputValue>>;
+  readonly inputsSet: Readonly<Record<string, InputValue>>;
+  readonly timeLimitMs: number;
+  readonly keepGoing: boolean;
+  readonly cells: readonly CellRun[];
+  readonly methods: readonly MethodRecord[];
+  readonly filesRead: readonly FileRead[];
+  /** Things the reader should know about the run itself (e.g. the cell process was restarted). */
+  readonly events: readonly string[];
+  /** Identifies what was executed (code, run options, inputs), so watch can tell a prose-only edit. */
+  readonly signature: string;
+}

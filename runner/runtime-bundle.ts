@@ -1,0 +1,130 @@
+/**
+ * The code the cell process runs: cells/worker.ts (the harness) and cells/tristim-entry.ts (the "tristim" module:
+ * lib/ plus the display functions), bundled together by esbuild with code splitting, so the harness and every cell
+ * share one instance of the library. The bundle is cached in the system's temporary folder under a key made from
+ * the sizes and modification times of lib/, cells/ and the lock file, so an unchanged library is not rebuilt.
+ */
+import { createHash } from "node:crypto";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import * as esbuild from "esbuild";
+import { BANNER } from "./compile-cell.ts";
+
+/** The folder of the tristim package (where lib/, cells/ and runner/ are). */
+export const PACKAGE_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+
+/** Paths of a built runtime. */
+export interface RuntimeBundle {
+  readonly dir: string;
+  /** The harness the cell process starts with. */
+  readonly worker: string;
+  /** The "tristim" module every cell and imported file resolves to. */
+  readonly tristim: string;
+}
+
+/** The library or the harness could not be bundled (a problem in lib/ or cells/, not in the notebook). */
+export class RuntimeBuildError extends Error {
+  override readonly name = "RuntimeBuildError";
+}
+
+/** Where tristim keeps its cached bundles and each run's temporary files. */
+export function cacheRoot(): string {
+  const uid = typeof process.getuid === "function" ? process.getuid() : "user";
+  return path.join(os.tmpdir(), `tristim-${uid}`);
+}
+
+/** Returns the runtime bundle, building it when lib/ or cells/ changed since the cached one. */
+export async function runtimeBundle(): Promise<RuntimeBundle> {
+  const key = sourceKey();
+  const dir = path.join(cacheRoot(), "runtime", key);
+  const bundle = { dir, worker: path.join(dir, "worker.mjs"), tristim: path.join(dir, "tristim.mjs") };
+  if (fs.existsSync(path.join(dir, "complete"))) return bundle;
+  const temporary = `${dir}.${process.pid}.${Math.random().toString(36).slice(2)}.tmp`;
+  try {
+    await esbuild.build({
+      entryPoints: {
+        worker: path.join(PACKAGE_ROOT, "cells", "worker.ts"),
+        tristim: path.join(PACKAGE_ROOT, "cells", "tristim-entry.ts"),
+      },
+      bundle: true,
+      splitting: true,
+      platform: "node",
+      format: "esm",
+      target: "node20",
+      outdir: temporary,
+      outExtension: { ".js": ".mjs" },
+      chunkNames: "chunk-[hash]",
+      sourcemap: "linked",
+      sourceRoot: undefined,
+      logLevel: "silent",
+      banner: { js: BANNER },
+    });
+  } catch (e) {
+    fs.rmSync(temporary, { recursive: true, force: true });
+    const errors = (e as esbuild.BuildFailure).errors ?? [];
+    const first = errors[0];
+    const where = first?.location ? `${first.location.file}:${first.location.line}:${first.location.column + 1}: ` : "";
+    throw new RuntimeBuildError(
+      `the standard library (lib/) or the cell harness (cells/) could not be bundled: ${where}${first?.text ?? String(e)}` +
+        (errors.length > 1 ? ` (and ${errors.length - 1} more)` : ""),
+    );
+  }
+  fs.writeFileSync(path.join(temporary, "complete"), key);
+  try {
+    fs.renameSync(temporary, dir);
+  } catch {
+    // Another run built the same bundle at the same time; theirs is identical.
+    fs.rmSync(temporary, { recursive: true, force: true });
+  }
+  pruneOldBundles(path.dirname(dir), key);
+  return bundle;
+}
+
+/** A key that changes whenever a file in lib/ or cells/ (or the installed packages) changes. */
+function sourceKey(): string {
+  const hash = createHash("sha256");
+  hash.update(`${process.version}\n${esbuild.version}\n${PACKAGE_ROOT}\n`);
+  for (const folder of ["lib", "cells"]) walk(path.join(PACKAGE_ROOT, folder), hash);
+  for (const file of ["package.json", "package-lock.json"]) stamp(path.join(PACKAGE_ROOT, file), hash);
+  return hash.digest("hex").slice(0, 20);
+}
+
+function walk(folder: string, hash: ReturnType<typeof createHash>): void {
+  let entries: fs.Dirent[];
+  try {
+    entries = fs.readdirSync(folder, { withFileTypes: true });
+  } catch {
+    return;
+  }
+  entries.sort((a, b) => (a.name < b.name ? -1 : 1));
+  for (const entry of entries) {
+    const full = path.join(folder, entry.name);
+    if (entry.isDirectory()) walk(full, hash);
+    else stamp(full, hash);
+  }
+}
+
+function stamp(file: string, hash: ReturnType<typeof createHash>): void {
+  try {
+    const s = fs.statSync(file);
+    hash.update(`${file}\0${s.size}\0${s.mtimeMs}\n`);
+  } catch {
+    hash.update(`${file}\0missing\n`);
+  }
+}
+
+/** Removes cached bundles older than a day (other than the current one). */
+function pruneOldBundles(folder: string, keep: string): void {
+  const dayAgo = Date.now() - 24 * 3600_000;
+  for (const name of fs.readdirSync(folder)) {
+    if (name === keep) continue;
+    const full = path.join(folder, name);
+    try {
+      if (fs.statSync(full).mtimeMs < dayAgo) fs.rmSync(full, { recursive: true, force: true });
+    } catch {
+      // already gone
+    }
+  }
+}
