@@ -1,2 +1,7 @@
 /** Barrel for lib/plot (re-exports only). */
-export {};
+export * from "./figure.ts";
+export * from "./style.ts";
+export * from "./chromaticity-diagram.ts";
+export type { LabelledChromaticity, GamutChoice, CustomGamut, ToleranceRegion, ChromaticityArrow } from "./chromaticity-overlays.ts";
+export type { ChromaticityInput } from "./chromaticity-input.ts";
+export type { DisplayGamut } from "./display-rgb.ts";
