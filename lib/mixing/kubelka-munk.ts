@@ -1,0 +1,75 @@
+/**
+ * Kubelka–Munk two-flux theory of light-scattering, absorbing layers (P. Kubelka & F. Munk, Z. techn. Physik 12,
+ * 593, 1931; P. Kubelka, "New contributions to the optics of intensely light-scattering materials. Part I",
+ * J. Opt. Soc. Am. 38, 448, 1948). K is the absorption and S the scattering coefficient (per unit thickness).
+ */
+import { requireFinite, requireFraction, requireNonNegative } from "../filters/checks.ts";
+
+/** The Kubelka–Munk function of an opaque layer's internal reflectance: K/S = (1 − R∞)² / (2R∞) (Kubelka & Munk 1931). */
+export function ksFromReflectance(reflectanceInfinite: number): number {
+  requireFraction(reflectanceInfinite, "reflectance of an opaque layer (R∞)");
+  if (reflectanceInfinite === 0) throw new Error("R∞ = 0 gives K/S = ∞; an opaque layer with no reflectance has no finite K/S");
+  return (1 - reflectanceInfinite) ** 2 / (2 * reflectanceInfinite);
+}
+
+/** Reflectance of an opaque (infinitely thick) layer from K/S: R∞ = 1 + K/S − √((K/S)² + 2K/S) (Kubelka & Munk 1931; Kubelka 1948 eq. 6). */
+export function reflectanceFromKs(ks: number): number {
+  requireNonNegative(ks, "K/S");
+  // Written as 1/(1 + K/S + √((K/S)² + 2K/S)), the same number without cancellation for large K/S.
+  return 1 / (1 + ks + Math.sqrt(ks * ks + 2 * ks));
+}
+
+/** Result of a layer of finite thickness: reflectance over its background and transmittance. */
+export interface LayerOptics {
+  readonly reflectance: number;
+  /** Reflectance of the same layer over an ideal black background (R₀). */
+  readonly reflectanceOverBlack: number;
+  readonly transmittance: number;
+}
+
+/**
+ * Reflectance and transmittance of a layer of thickness X over a background of reflectance R_g, with
+ * a = 1 + K/S, b = √(a² − 1): R₀ = sinh(bSX)/(a·sinh(bSX) + b·cosh(bSX)), T = b/(a·sinh(bSX) + b·cosh(bSX)), and
+ * R = R₀ + T²R_g/(1 − R₀R_g) (Kubelka 1948, eqs. for the hyperbolic solution). The limits S = 0 (T = e^(−KX)) and
+ * K = 0 (R₀ = SX/(1 + SX)) are handled exactly.
+ */
+export function layerOptics(k: number, s: number, thickness: number, background: number): LayerOptics {
+  requireNonNegative(k, "absorption coefficient K");
+  requireNonNegative(s, "scattering coefficient S");
+  requireNonNegative(thickness, "layer thickness X");
+  requireFraction(background, "background reflectance R_g");
+  let r0: number;
+  let t: number;
+  if (s === 0) {
+    r0 = 0;
+    t = Math.exp(-k * thickness);
+  } else if (k === 0) {
+    r0 = (s * thickness) / (1 + s * thickness);
+    t = 1 / (1 + s * thickness);
+  } else {
+    const a = 1 + k / s;
+    const b = Math.sqrt(a * a - 1);
+    const bsx = b * s * thickness;
+    if (bsx > 300) {
+      r0 = a - b;
+      t = 0;
+    } else {
+      const sh = Math.sinh(bsx);
+      const ch = Math.cosh(bsx);
+      const d = a * sh + b * ch;
+      r0 = sh / d;
+      t = b / d;
+    }
+  }
+  requireFinite(r0, "layer reflectance");
+  const reflectance = r0 + (t * t * background) / (1 - r0 * background);
+  return { reflectance, reflectanceOverBlack: r0, transmittance: t };
+}
+
+/** Reflectance of a layer thick enough to hide its background, from K and S: R∞ = a − b (Kubelka 1948). */
+export function opaqueReflectance(k: number, s: number): number {
+  requireNonNegative(k, "absorption coefficient K");
+  requireNonNegative(s, "scattering coefficient S");
+  if (s === 0) throw new Error("S = 0: a layer that does not scatter reflects nothing however thick it is; R∞ is 0 and K/S is infinite");
+  return reflectanceFromKs(k / s);
+}

@@ -1,0 +1,111 @@
+/**
+ * Model spectra of single-colour LEDs from peak wavelength and FWHM. The default shape is the one Ohno published for
+ * LED modelling (Y. Ohno, "Spectral design considerations for white LED color rendering", Opt. Eng. 44(11) 111302,
+ * 2005): S(λ) = [g(λ) + 2·g(λ)⁵]/3 with g(λ) = exp(−((λ − λ₀)/Δλ)²) (form recalled from memory). A plain Gaussian is
+ * offered too. `asymmetry` widens the long-wavelength side and narrows the short side by the same fraction, keeping
+ * the FWHM (real LEDs often tail towards long wavelengths; common practice, no source).
+ */
+import { requireFinite, requirePositive } from "../filters/checks.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+
+export type LedShape = "ohno 2005" | "gaussian";
+
+export interface LedOptions {
+  /** Peak wavelength λ₀ in nm. */
+  peak: number;
+  /** Full width at half maximum in nm; the curve's FWHM equals this exactly. */
+  fwhm: number;
+  shape?: LedShape;
+  /** −0.9 … 0.9: long side width = (1 + a)·FWHM/2, short side (1 − a)·FWHM/2 (common practice, no source). Default 0. */
+  asymmetry?: number;
+  /** Value at the peak (default 1). */
+  peakValue?: number;
+  /** Default 360–830 nm every 1 nm. */
+  grid?: WavelengthGrid;
+  name?: string;
+}
+
+/** The Ohno (2005) LED shape at normalised distance u = (λ − λ₀)/Δλ: [e^(−u²) + 2e^(−5u²)]/3 (Ohno 2005, recalled). */
+export function ohnoLedShape(u: number): number {
+  const g = Math.exp(-u * u);
+  return (g + 2 * g ** 5) / 3;
+}
+
+/** Half of the full width at half maximum of ohnoLedShape in units of Δλ: the u > 0 where the shape is 1/2 (bisection). */
+export const OHNO_HALF_WIDTH_U = (() => {
+  let lo = 0;
+  let hi = 2;
+  for (let k = 0; k < 200; k++) {
+    const mid = (lo + hi) / 2;
+    if (ohnoLedShape(mid) > 0.5) lo = mid;
+    else hi = mid;
+  }
+  return (lo + hi) / 2;
+})();
+
+/** A model LED spectrum with the given peak wavelength and FWHM (Ohno 2005 shape by default; see the file header). */
+export function ledSpectrum(options: LedOptions): Spectrum {
+  const peak = requirePositive(options?.peak, "ledSpectrum: peak wavelength (nm)");
+  const fwhm = requirePositive(options.fwhm, "ledSpectrum: FWHM (nm)");
+  const a = requireFinite(options.asymmetry ?? 0, "ledSpectrum: asymmetry");
+  if (Math.abs(a) >= 1) throw new Error(`ledSpectrum: asymmetry ${a} must lie between −1 and 1 (exclusive)`);
+  const height = requirePositive(options.peakValue ?? 1, "ledSpectrum: peak value");
+  const shape = options.shape ?? "ohno 2005";
+  if (shape !== "ohno 2005" && shape !== "gaussian") throw new Error(`ledSpectrum: shape "${String(shape)}" is not "ohno 2005" or "gaussian"`);
+  const halfU = shape === "ohno 2005" ? OHNO_HALF_WIDTH_U : Math.sqrt(Math.LN2);
+  const f = shape === "ohno 2005" ? ohnoLedShape : (u: number) => Math.exp(-u * u);
+  // Each side's Δλ is chosen so the curve is at half height (1 ± a)·FWHM/2 from the peak.
+  const deltaShort = ((1 - a) * fwhm) / 2 / halfU;
+  const deltaLong = ((1 + a) * fwhm) / 2 / halfU;
+  const w = gridWavelengths(options.grid ?? { start: 360, end: 830, step: 1 });
+  noteMethod(
+    "mixing",
+    shape === "ohno 2005"
+      ? "LED spectra were modelled with Ohno's shape [g + 2g⁵]/3, g = exp(−((λ − λ₀)/Δλ)²) (Opt. Eng. 44, 111302, 2005), scaled to the stated FWHM."
+      : "LED spectra were modelled as Gaussians with the stated peak wavelength and FWHM.",
+  );
+  return spectrum(w, w.map((l) => height * f((l - peak) / (l < peak ? deltaShort : deltaLong))), {
+    name: options.name ?? `LED ${peak} nm / ${fwhm} nm`,
+    quantity: "relative power",
+  });
+}
+
+export interface PhosphorWhiteOptions {
+  /** The blue pump LED (peak, FWHM, shape as in ledSpectrum). */
+  blue: Omit<LedOptions, "grid" | "name" | "peakValue">;
+  /** The phosphor's broad emission band: a model band (Gaussian, with optional asymmetry) or a measured spectrum. */
+  phosphor: { peak: number; fwhm: number; asymmetry?: number } | Spectrum;
+  /** Radiant power of the phosphor band over that of the blue band (both summed over the grid). */
+  phosphorToBlue: number;
+  grid?: WavelengthGrid;
+  name?: string;
+}
+
+/** Phosphor-converted white: a blue LED plus a broad phosphor band at a given ratio of radiant powers (common practice, no source). */
+export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
+  const grid = options.grid ?? { start: 360, end: 830, step: 1 };
+  const ratio = requirePositive(options.phosphorToBlue, "phosphorWhite: phosphor-to-blue power ratio");
+  const blue = ledSpectrum({ ...options.blue, grid, name: "blue pump" });
+  const w = blue.wavelengths;
+  let band: number[];
+  if ("kind" in options.phosphor) {
+    const p = options.phosphor;
+    if (p.wavelengths.length !== w.length || p.wavelengths.some((x, i) => Math.abs(x - w[i]!) > 1e-9)) {
+      throw new Error(`phosphorWhite: the phosphor spectrum "${p.name}" must be on the same grid as the model (${w[0]}–${w.at(-1)} nm); resample it first`);
+    }
+    band = [...p.values];
+  } else {
+    band = ledSpectrum({ ...options.phosphor, shape: "gaussian", grid, name: "phosphor" }).values as number[];
+  }
+  const sumBlue = blue.values.reduce((s, v) => s + v, 0);
+  const sumBand = band.reduce((s, v) => s + v, 0);
+  if (!(sumBand > 0)) throw new Error("phosphorWhite: the phosphor band has no power");
+  const k = (ratio * sumBlue) / sumBand;
+  noteMethod("mixing", "Phosphor-converted white light was modelled as a blue LED band plus a broad phosphor band at a stated ratio of radiant powers.");
+  return spectrum(w, w.map((_, i) => blue.values[i]! + k * band[i]!), {
+    name: options.name ?? `phosphor white (${options.blue.peak} nm pump, ratio ${ratio})`,
+    quantity: "relative power",
+  });
+}

@@ -1,0 +1,32 @@
+/** Additive mixing of lights: the spectrum of several sources on one surface is the sum of their spectra times their drive levels (Grassmann's laws, CIE 015:2018 §7). */
+import { requireNonNegative, requireSameGrid } from "../filters/checks.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+
+/** One light in a mixture and its drive level (a multiplier of its spectrum, e.g. 0–1 of full output). */
+export interface LightPart {
+  readonly light: Spectrum;
+  readonly level: number;
+}
+
+/** Σ levelᵢ·Sᵢ(λ): the spectrum of lights added together (additivity of radiant power; CIE 015:2018 §7). */
+export function mixLights(parts: readonly LightPart[], name?: string): Spectrum {
+  if (!Array.isArray(parts) || parts.length === 0) throw new Error("mixLights: no lights to mix");
+  parts.forEach((p, i) => {
+    if (p?.light?.kind !== "spectrum") throw new Error(`mixLights: part #${i + 1} has no light spectrum`);
+    requireNonNegative(p.level, `mixLights: the drive level of "${p.light.name}"`);
+    if (p.light.quantity === "transmittance" || p.light.quantity === "reflectance") {
+      throw new Error(`mixLights: "${p.light.name}" is a ${p.light.quantity}, not a light; lights are added, filters multiply`);
+    }
+  });
+  const lights = parts.map((p) => p.light);
+  requireSameGrid(lights, "mixLights");
+  noteMethod("mixing", "Lights were mixed additively: the mixture's spectrum is the sum of the sources' spectra times their drive levels.");
+  const first = lights[0]!;
+  const values = first.wavelengths.map((_: number, i: number): number => parts.reduce((sum, p) => sum + p.level * p.light.values[i]!, 0));
+  return spectrum(first.wavelengths, values, {
+    name: name ?? parts.map((p) => `${+p.level.toPrecision(4)}×${p.light.name}`).join(" + "),
+    quantity: first.quantity,
+    unit: first.unit,
+  });
+}
