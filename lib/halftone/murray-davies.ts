@@ -1,0 +1,41 @@
+/**
+ * Murray–Davies: the reflectance of a halftone is the area-weighted mean of the solid ink and the bare paper,
+ * R = a·R_solid + (1 − a)·R_paper (A. Murray, J. Franklin Inst. 221, 721, 1936); the tone value (dot area) follows
+ * from densities relative to paper as a = (1 − 10^(−D_t))/(1 − 10^(−D_s)) (the form ISO 12647-1 uses for tone value).
+ */
+import { requireFinite, requireFraction, requireFractionSpectrum, requireSameGrid } from "../filters/checks.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+
+/** R = a·R_s + (1 − a)·R_p for one wavelength or a filtered (e.g. densitometric) reflectance (Murray 1936). */
+export function murrayDaviesValue(coverage: number, solid: number, paper: number): number {
+  requireFraction(coverage, "dot coverage");
+  requireFraction(solid, "solid reflectance");
+  requireFraction(paper, "paper reflectance");
+  return coverage * solid + (1 - coverage) * paper;
+}
+
+/** Spectral Murray–Davies: R(λ) = a·R_solid(λ) + (1 − a)·R_paper(λ) (Murray 1936). */
+export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum, name?: string): Spectrum {
+  requireFraction(coverage, "dot coverage");
+  requireFractionSpectrum(solid, "solid reflectance");
+  requireFractionSpectrum(paper, "paper reflectance");
+  requireSameGrid([solid, paper], "murrayDavies");
+  noteMethod("halftone", "Halftone reflectance by the Murray–Davies area-weighted mean of solid and paper (Murray 1936).");
+  return spectrum(solid.wavelengths, solid.values.map((s, i) => coverage * s + (1 - coverage) * paper.values[i]!), {
+    name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} %`,
+    quantity: "reflectance",
+  });
+}
+
+/** Tone value (effective dot area) from densities relative to paper: (1 − 10^(−D_t))/(1 − 10^(−D_s)) (Murray–Davies; ISO 12647-1). */
+export function toneValueFromDensity(tintDensity: number, solidDensity: number): number {
+  requireFinite(tintDensity, "tint density");
+  requireFinite(solidDensity, "solid density");
+  if (!(solidDensity > 0)) throw new Error(`solid density ${solidDensity} must be above the paper (relative density > 0)`);
+  if (tintDensity < 0 || tintDensity > solidDensity) {
+    throw new Error(`tint density ${tintDensity} lies outside paper (0) to solid (${solidDensity}); Murray–Davies tone value needs 0 ≤ D_t ≤ D_s`);
+  }
+  noteMethod("halftone", "Tone values were computed from densities relative to paper by the Murray–Davies formula (as ISO 12647-1 defines tone value).");
+  return (1 - 10 ** -tintDensity) / (1 - 10 ** -solidDensity);
+}
