@@ -1,0 +1,232 @@
+/**
+ * The `tristim` command: `run` and `watch`. Turns every expected problem into a clear message and an exit code
+ * (exit-codes.ts); only an internal error mentions the runner's own code, and its stack only with TRISTIM_DEBUG=1.
+ */
+import fs from "node:fs";
+import path from "node:path";
+import { parseArgs } from "node:util";
+import type { ErrorRecord } from "../cells/records.ts";
+import { NotebookError, UsageError } from "./errors.ts";
+import { EXIT, type ExitCode } from "./exit-codes.ts";
+import { helpText } from "./help.ts";
+import { parseInputArgument, resolveInputs } from "./inputs.ts";
+import type { NotebookDocument } from "./notebook.ts";
+import { readNotebook } from "./parse-notebook.ts";
+import { defaultReportPath, writeReport } from "./report-file.ts";
+import { formatDuration } from "./report/format.ts";
+import { displayLocation, errorTitle } from "./report/render-output.ts";
+import { describeCells } from "./report/summary.ts";
+import type { RunRecord } from "./run-record.ts";
+import { runDocument } from "./run-notebook.ts";
+import { RuntimeBuildError } from "./runtime-bundle.ts";
+import { parseTimeLimit } from "./time-limit.ts";
+import { toolVersion } from "./tool-version.ts";
+import { DEFAULT_PORT, startWatch } from "./watch.ts";
+
+/** Where the command writes its messages (the terminal, or a test's buffers). */
+export interface Io {
+  readonly out: (text: string) => void;
+  readonly err: (text: string) => void;
+}
+
+const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
+
+/** Options common to run and watch, after checking. */
+export interface CommandOptions {
+  readonly output?: string;
+  readonly inputs: Readonly<Record<string, string>>;
+  readonly timeLimitMs?: number;
+  readonly keepGoing: boolean;
+  readonly linkAssets: boolean;
+  readonly quiet: boolean;
+  readonly port: number;
+}
+
+/** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
+export async function main(argv: readonly string[], io: Io = terminal): Promise<ExitCode> {
+  try {
+    return await dispatch(argv, io);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      io.err(`tristim: ${e.message}\nRun "tristim --help" for the commands and options.\n`);
+      return EXIT.usage;
+    }
+    if (e instanceof NotebookError) {
+      io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
+      return EXIT.notebookFailed;
+    }
+    if (e instanceof RuntimeBuildError) {
+      io.err(`tristim: ${e.message}\n`);
+      return EXIT.internal;
+    }
+    const error = e as Error;
+    io.err(`tristim: internal error: ${error?.message ?? String(e)}\n${process.env.TRISTIM_DEBUG ? `${error?.stack}\n` : "(set TRISTIM_DEBUG=1 to see where it happened)\n"}`);
+    return EXIT.internal;
+  }
+}
+
+async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
+  const [command, ...rest] = argv;
+  if (command === undefined || command === "help" || command === "--help" || command === "-h") {
+    io.out(helpText(toolVersion().version));
+    return command === undefined ? EXIT.usage : EXIT.ok;
+  }
+  if (command === "--version" || command === "-v") {
+    io.out(`${toolVersion().version}\n`);
+    return EXIT.ok;
+  }
+  if (command !== "run" && command !== "watch") {
+    throw new UsageError(`unknown command "${command}"; the commands are run, watch and help`);
+  }
+  const { options, files, help } = parseOptions(rest, command);
+  if (help) {
+    io.out(helpText(toolVersion().version));
+    return EXIT.ok;
+  }
+  if (command === "run") return runCommand(files, options, io);
+  if (files.length !== 1) throw new UsageError(`watch takes exactly one notebook, got ${files.length}`);
+  const document = readNotebook(files[0]!);
+  resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  const watcher = await startWatch(document.path, { ...options, io });
+  io.out(`Serving ${watcher.url} - watching ${shown(document.path)} (Ctrl+C to stop)\n`);
+  await new Promise<void>((resolve) => {
+    const stop = () => void watcher.close().then(resolve);
+    process.once("SIGINT", stop);
+    process.once("SIGTERM", stop);
+  });
+  return EXIT.ok;
+}
+
+/** Reads and checks the options after the command. */
+export function parseOptions(args: readonly string[], command: "run" | "watch"): { options: CommandOptions; files: string[]; help: boolean } {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: [...args],
+      allowPositionals: true,
+      strict: true,
+      options: {
+        output: { type: "string", short: "o" },
+        input: { type: "string", multiple: true },
+        "time-limit": { type: "string" },
+        "keep-going": { type: "boolean" },
+        "link-assets": { type: "boolean" },
+        quiet: { type: "boolean" },
+        port: { type: "string" },
+        help: { type: "boolean", short: "h" },
+      },
+    });
+  } catch (e) {
+    throw new UsageError((e as Error).message.replace(/\. To specify a positional argument.*$/s, "").replace(/^Unknown option/, "unknown option"));
+  }
+  const v = parsed.values;
+  if (v.help) return { options: { inputs: {}, keepGoing: false, linkAssets: false, quiet: false, port: DEFAULT_PORT }, files: [], help: true };
+  if (v.port !== undefined && command !== "watch") throw new UsageError("--port is an option of watch, not of run");
+  const inputs: Record<string, string> = {};
+  for (const argument of v.input ?? []) {
+    const [name, value] = parseInputArgument(argument);
+    if (Object.hasOwn(inputs, name)) throw new UsageError(`--input ${name} is given twice`);
+    inputs[name] = value;
+  }
+  let port = DEFAULT_PORT;
+  if (v.port !== undefined) {
+    port = Number(v.port);
+    if (!/^\d+$/.test(v.port) || port > 65535) throw new UsageError(`--port expects a port number from 0 to 65535, got "${v.port}"`);
+  }
+  if (parsed.positionals.length === 0) throw new UsageError(`${command} needs a notebook file, e.g. tristim ${command} notebooks/getting-started.md`);
+  return {
+    files: parsed.positionals,
+    help: false,
+    options: {
+      output: v.output,
+      inputs,
+      timeLimitMs: v["time-limit"] === undefined ? undefined : parseTimeLimit(v["time-limit"], "--time-limit"),
+      keepGoing: v["keep-going"] === true,
+      linkAssets: v["link-assets"] === true,
+      quiet: v.quiet === true,
+      port,
+    },
+  };
+}
+
+/** Where the report of `notebook` goes, given -o and the number of notebooks. */
+export function reportPathFor(notebook: string, output: string | undefined, several: boolean): string {
+  if (output === undefined) return defaultReportPath(notebook);
+  const isFolder = several || output.endsWith("/") || output.endsWith(path.sep) || isDirectory(output);
+  if (isFolder) return path.join(path.resolve(output), path.basename(defaultReportPath(notebook)));
+  return path.resolve(output);
+}
+
+async function runCommand(files: string[], options: CommandOptions, io: Io): Promise<ExitCode> {
+  let exit: ExitCode = EXIT.ok;
+  const documents: NotebookDocument[] = [];
+  for (const file of files) {
+    try {
+      documents.push(readNotebook(file));
+    } catch (e) {
+      if (!(e instanceof NotebookError)) throw e;
+      io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
+      exit = EXIT.notebookFailed;
+    }
+  }
+  // Check the inputs against every notebook before running any of them.
+  for (const document of documents) resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  const several = files.length > 1;
+  if (several && options.output !== undefined && fs.existsSync(options.output) && !isDirectory(options.output)) {
+    throw new UsageError(`-o ${options.output}: with several notebooks, -o must name a folder`);
+  }
+  for (const document of documents) {
+    const run = await runDocument(document, { inputs: options.inputs, timeLimitMs: options.timeLimitMs, keepGoing: options.keepGoing });
+    const target = reportPathFor(document.path, options.output, several);
+    try {
+      fs.mkdirSync(path.dirname(target), { recursive: true });
+      writeReport(document, run, target, options.linkAssets);
+    } catch (e) {
+      io.err(`${shown(document.path)}: the report could not be written to ${shown(target)}: ${(e as Error).message}\n`);
+      exit = EXIT.internal;
+      continue;
+    }
+    const failed = printOutcome(document, run, target, options, io);
+    if (failed && exit === EXIT.ok) exit = EXIT.notebookFailed;
+  }
+  return exit;
+}
+
+/** Prints one notebook's outcome; returns whether it failed. */
+export function printOutcome(document: NotebookDocument, run: RunRecord, target: string, options: Pick<CommandOptions, "quiet">, io: Io): boolean {
+  const failures = run.cells.filter((c) => c.status === "failed" && !c.failureAllowed);
+  const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
+  if (failures.length === 0) {
+    if (!options.quiet) io.out(`${shown(document.path)}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)} -> ${shown(target)}\n`);
+    return false;
+  }
+  const dir = path.dirname(document.path);
+  for (const cell of failures) {
+    const error = cell.outputs.find((o): o is ErrorRecord => o.kind === "error");
+    const where = error?.location ? displayLocation(error.location, dir) : shown(document.path);
+    const place = error?.location && error.location.file === document.path ? `${shown(document.path)}:${error.location.line}:${error.location.column}` : where;
+    io.err(`${place}: cell ${cell.index + 1} failed: ${error ? errorTitle(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`);
+  }
+  const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
+  if (notRun.length) io.err(`  ${describeCells(notRun)} not run (use --keep-going to run them anyway)\n`);
+  io.err(`  report with the error: ${shown(target)}\n`);
+  return true;
+}
+
+function isDirectory(p: string): boolean {
+  try {
+    return fs.statSync(p).isDirectory();
+  } catch {
+    return false;
+  }
+}
+
+/** A path as the user would type it: relative to the working folder when inside it. */
+export function shown(file: string): string {
+  const relative = path.relative(process.cwd(), file);
+  return relative && !relative.startsWith("..") && !path.isAbsolute(relative) ? relative : file;
+}
+
+function indent(text: string): string {
+  return text.split("\n").map((l) => `  ${l}`).join("\n");
+}

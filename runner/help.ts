@@ -1,0 +1,52 @@
+/** The text of `tristim --help` (README.md shows the same). */
+import { EXIT } from "./exit-codes.ts";
+import { DEFAULT_PORT } from "./watch.ts";
+
+/** Help for the whole command. */
+export function helpText(version: string): string {
+  return `tristim ${version} - run Markdown notebooks with TypeScript cells and write HTML lab reports
+
+Usage:
+  tristim run <notebook.md>... [options]   run notebooks, write <notebook>.html beside each
+  tristim watch <notebook.md> [options]    serve the report on 127.0.0.1, re-run on save
+  tristim help                             show this text (also --help, -h)
+  tristim --version                        print the version
+
+Options for run and watch:
+  -o, --output <path>      where to write the report: a file for one notebook, a folder for several
+                           (default: beside the notebook, same name, .html)
+  --input <name=value>     set a notebook input declared in its front matter; repeat for more inputs;
+                           the value is read as the type of the input's default
+  --time-limit <time>      time limit of each cell, e.g. 30s, 2m, 500ms (default 30s); a cell can set its
+                           own with time-limit=... on its fence line
+  --keep-going             after a cell fails, run the remaining cells anyway
+  --link-assets            link Plotly from a shared folder tristim-assets/ beside the report instead of
+                           embedding it in every report (for folders of many reports)
+  --quiet                  print only failures
+Options for watch:
+  --port <number>          port on 127.0.0.1 (default ${DEFAULT_PORT}; 0 picks a free one)
+
+Notebook format:
+  A Markdown file (.md). Optional YAML front matter between --- lines: title, author, date, and
+  inputs (name: default value). Fenced blocks in \`\`\`ts or \`\`\`typescript are cells, run top to
+  bottom; other fences are only shown. Words after ts on the fence line set cell options:
+    hide-source            leave the code out of the report, show only the output
+    show-source            show the code unfolded (it is folded by default)
+    no-run                 show the code as a listing, do not run it
+    may-fail               a failure of this cell is shown but does not stop the run
+    caption="..."          caption for the cell's first figure or table
+    time-limit=90s         this cell's time limit
+  Example:  \`\`\`ts hide-source caption="Spectral radiance of lamp 2" time-limit=2m
+
+In a cell: show(value), showTable(rows, options), showFigure(spec, caption), showSwatches(list, caption),
+showMarkdown(text), showHtml(html, { trusted }), showCaution(text), inputs.<name>, and the standard
+library, as globals or with import { ... } from "tristim".
+
+Exit codes:
+  ${EXIT.ok}  every notebook ran and its report was written
+  ${EXIT.notebookFailed}  a cell failed, or a notebook could not be read or parsed
+  ${EXIT.usage}  wrong command line (unknown option, bad value, unknown input name)
+  ${EXIT.checkFailed}  reserved for failed acceptance checks
+  ${EXIT.internal}  the runner itself failed (report not writable, internal error; TRISTIM_DEBUG=1 shows details)
+`;
+}

@@ -1,0 +1,22 @@
+/** Writes a report file: renders it, copies shared assets when asked, and writes atomically. */
+import path from "node:path";
+import type { NotebookDocument } from "./notebook.ts";
+import { renderReport, writeSharedAssets } from "./report/render-report.ts";
+import type { RunRecord } from "./run-record.ts";
+import { writeFileAtomic } from "./write-atomic.ts";
+
+/** Name of the shared assets folder written beside reports with --link-assets. */
+export const ASSETS_FOLDER = "tristim-assets";
+
+/** The default report path of a notebook: beside it, same name, .html. */
+export function defaultReportPath(notebook: string): string {
+  return path.join(path.dirname(notebook), `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}.html`);
+}
+
+/** Renders and writes the report of a run; returns the HTML written. */
+export function writeReport(document: NotebookDocument, run: RunRecord, file: string, linkAssets = false): string {
+  if (linkAssets) writeSharedAssets(path.join(path.dirname(file), ASSETS_FOLDER));
+  const html = renderReport(document, run, linkAssets ? { assetsHref: ASSETS_FOLDER } : {});
+  writeFileAtomic(file, html);
+  return html;
+}

@@ -1,0 +1,148 @@
+/**
+ * HTML for each kind of output record. One function per kind, looked up by `kind`; a record of a kind this writer
+ * does not know is shown as a short note instead of breaking the report.
+ */
+import path from "node:path";
+import type {
+  CautionRecord,
+  ConsoleRecord,
+  ErrorRecord,
+  FigureRecord,
+  HtmlRecord,
+  MarkdownRecord,
+  NoteRecord,
+  OutputRecord,
+  SwatchesRecord,
+  TableRecord,
+  ValueRecord,
+} from "../../cells/records.ts";
+import { escapeHtml, jsonForScript } from "./escape.ts";
+import { renderCellMarkdown } from "./markdown.ts";
+
+/** State shared while rendering one report: figure and table numbers, and how to show file paths. */
+export interface RenderContext {
+  figures: number;
+  tables: number;
+  /** The notebook's folder; paths in error messages are shown relative to it. */
+  readonly notebookDir: string;
+}
+
+type Renderers = { [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string };
+
+const renderers: Renderers = {
+  console: renderConsole,
+  value: renderValue,
+  table: renderTable,
+  figure: renderFigure,
+  swatches: renderSwatches,
+  markdown: renderMarkdown,
+  html: renderHtml,
+  caution: renderCaution,
+  note: renderNote,
+  error: renderError,
+};
+
+/** HTML for one output record. */
+export function renderOutput(record: OutputRecord, ctx: RenderContext): string {
+  const render = (renderers as Record<string, ((r: OutputRecord, c: RenderContext) => string) | undefined>)[record.kind];
+  if (!render) return `<p class="out-note">An output of kind “${escapeHtml(String(record.kind))}” that this version cannot show.</p>`;
+  return render(record, ctx);
+}
+
+function renderConsole(record: ConsoleRecord): string {
+  const label = record.stream === "stderr" ? `<span class="stream-label">error stream</span>` : "";
+  return `<pre class="out-console out-${record.stream}">${label}${escapeHtml(record.text.replace(/\n$/, ""))}</pre>`;
+}
+
+function renderValue(record: ValueRecord): string {
+  return `<pre class="out-value">${escapeHtml(record.text)}</pre>`;
+}
+
+function renderTable(record: TableRecord, ctx: RenderContext): string {
+  const number = ++ctx.tables;
+  const id = `table-${number}`;
+  const caption = `<figcaption><span class="label">Table ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption>`;
+  const head = record.columns
+    .map((c) => `<th scope="col"${c.numeric ? ' class="num"' : ""}>${escapeHtml(c.label)}${c.unit ? `<span class="unit">${escapeHtml(c.unit)}</span>` : ""}</th>`)
+    .join("");
+  const body = record.rows
+    .map((row) => `<tr>${row.map((cell, i) => `<td${record.columns[i]?.numeric ? ' class="num"' : ""}>${escapeHtml(cell)}</td>`).join("")}</tr>`)
+    .join("\n");
+  const more = record.totalRows > record.rows.length
+    ? `<p class="out-note">Table truncated: the first ${record.rows.length.toLocaleString("en-US")} of ${record.totalRows.toLocaleString("en-US")} rows are shown.</p>`
+    : "";
+  return `<figure class="table-figure" id="${id}">${caption}<div class="table-scroll"><table><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>${more}</figure>`;
+}
+
+function renderFigure(record: FigureRecord, ctx: RenderContext): string {
+  const number = ++ctx.figures;
+  const id = `figure-${number}`;
+  return `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
+    `<script type="application/json" id="${id}-spec">${jsonForScript(record.spec)}</script>` +
+    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`;
+}
+
+function renderSwatches(record: SwatchesRecord, ctx: RenderContext): string {
+  const number = ++ctx.figures;
+  const chips = record.swatches.map((s) => {
+    const style = `background:${s.hex};${s.css ? `background:${s.css};` : ""}`;
+    const flag = s.outOfGamut ? `<span class="gamut-flag" title="Outside the sRGB gamut: the colour shown is an approximation">outside sRGB</span>` : "";
+    return `<li class="swatch${s.outOfGamut ? " out-of-gamut" : ""}"><span class="chip" style="${escapeHtml(style)}"></span>` +
+      `<span class="swatch-label">${escapeHtml(s.label)}</span><span class="swatch-value">${escapeHtml(s.hex)}</span>` +
+      `${s.note ? `<span class="swatch-note">${escapeHtml(s.note)}</span>` : ""}${flag}</li>`;
+  }).join("");
+  return `<figure class="swatch-figure" id="figure-${number}"><ul class="swatches">${chips}</ul>` +
+    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`;
+}
+
+function renderMarkdown(record: MarkdownRecord): string {
+  return `<div class="out-markdown">${renderCellMarkdown(record.text, record.trusted)}</div>`;
+}
+
+function renderHtml(record: HtmlRecord): string {
+  if (record.trusted) return `<div class="out-html">${record.html}</div>`;
+  return `<pre class="out-value">${escapeHtml(record.html)}</pre>`;
+}
+
+function renderCaution(record: CautionRecord): string {
+  return `<aside class="caution" role="note"><p class="caution-title">${escapeHtml(record.title)}</p><p>${escapeHtml(record.text)}</p></aside>`;
+}
+
+function renderNote(record: NoteRecord): string {
+  return `<p class="out-note">${escapeHtml(record.text)}</p>`;
+}
+
+/** "notebook.md:12:5" relative to the notebook's folder. */
+export function displayLocation(location: NonNullable<ErrorRecord["location"]>, notebookDir: string): string {
+  const relative = path.relative(notebookDir, location.file);
+  const shown = relative.startsWith("..") && path.isAbsolute(location.file) ? location.file : relative;
+  return `${shown}:${location.line}:${location.column}`;
+}
+
+/** The heading of an error: "TypeError: message" or the message alone. */
+export function errorTitle(record: ErrorRecord): string {
+  return record.name && record.failure !== "exit" ? `${record.name}: ${record.message}` : record.message;
+}
+
+const FAILURE_LABEL: Record<ErrorRecord["failure"], string> = {
+  compile: "could not be compiled",
+  thrown: "raised an error",
+  uncaught: "raised an error outside its own flow",
+  "time-limit": "ran past its time limit",
+  exit: "called process.exit()",
+  crash: "stopped the cell process",
+  unserializable: "tried to show something that cannot be stored",
+  startup: "could not start",
+};
+
+function renderError(record: ErrorRecord, ctx: RenderContext): string {
+  const where = record.location ? `<p class="error-where">at ${escapeHtml(displayLocation(record.location, ctx.notebookDir))}</p>` : "";
+  const frame = record.codeFrame ? `<pre class="code-frame">${escapeHtml(record.codeFrame)}</pre>` : "";
+  const stack = record.stack && record.stack.length > 1
+    ? `<details class="stack"><summary>Call stack</summary><pre>${escapeHtml(record.stack
+      .map((f) => `at ${f.function ? `${f.function} ` : ""}${displayLocation(f, ctx.notebookDir)}`)
+      .join("\n"))}</pre></details>`
+    : "";
+  return `<div class="out-error" role="alert"><p class="error-kind">This cell ${FAILURE_LABEL[record.failure] ?? "failed"}</p>` +
+    `<p class="error-message">${escapeHtml(errorTitle(record))}</p>${where}${frame}${stack}</div>`;
+}

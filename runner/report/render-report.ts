@@ -1,0 +1,187 @@
+/**
+ * Stage 4 of the pipeline: (NotebookDocument, RunRecord) → one self-contained HTML report. Reads only plain data,
+ * so the same function serves a fresh run and watch mode's prose-only re-render from the last run's records.
+ *
+ * Layout: title block, summary (failures, cautions), contents, the notebook's prose with each cell's folded code
+ * and outputs in place, Methods, Run record. Plotly is embedded once when the report has a figure (or linked from a
+ * shared assets folder when asked).
+ */
+import fs from "node:fs";
+import type { Token } from "markdown-it";
+import path from "node:path";
+import { createRequire } from "node:module";
+import { fileURLToPath } from "node:url";
+import type { OutputRecord } from "../../cells/records.ts";
+import type { CellSource, NotebookDocument } from "../notebook.ts";
+import type { CellRun, RunRecord } from "../run-record.ts";
+import { escapeHtml } from "./escape.ts";
+import { formatDuration } from "./format.ts";
+import { highlight } from "./highlight.ts";
+import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
+import { renderMethods } from "./methods-section.ts";
+import { renderOutput, type RenderContext } from "./render-output.ts";
+import { renderRunDetails } from "./run-details.ts";
+import { describeCells, renderSummary } from "./summary.ts";
+
+/** Options of the report writer. */
+export interface ReportOptions {
+  /** Link Plotly from this folder (a URL relative to the report) instead of embedding it. */
+  readonly assetsHref?: string;
+  /** HTML added at the end of the body (watch mode's reload script); never part of a written report. */
+  readonly extraBodyHtml?: string;
+}
+
+const require = createRequire(import.meta.url);
+const here = path.dirname(fileURLToPath(import.meta.url));
+const CSS = fs.readFileSync(path.join(here, "report.css"), "utf8");
+const FIGURES_CLIENT = fs.readFileSync(path.join(here, "figures-client.js"), "utf8");
+const PLOTLY_PATH = require.resolve("plotly.js-dist-min/plotly.min.js");
+const PLOTLY_VERSION = (JSON.parse(fs.readFileSync(path.join(path.dirname(PLOTLY_PATH), "package.json"), "utf8")) as { version: string }).version;
+/** File name of the shared Plotly copy in an assets folder. */
+export const PLOTLY_ASSET = `plotly-${PLOTLY_VERSION}.min.js`;
+let plotlySource: string | undefined;
+
+/** The Plotly script embedded in reports (read once per process). */
+export function plotlyScript(): string {
+  plotlySource ??= fs.readFileSync(PLOTLY_PATH, "utf8");
+  return plotlySource;
+}
+
+/** Copies the shared assets (Plotly) into `folder` unless an identical copy is there. */
+export function writeSharedAssets(folder: string): void {
+  fs.mkdirSync(folder, { recursive: true });
+  const target = path.join(folder, PLOTLY_ASSET);
+  const source = plotlyScript();
+  try {
+    if (fs.statSync(target).size === Buffer.byteLength(source)) return;
+  } catch {
+    // not there yet
+  }
+  const temporary = `${target}.${process.pid}.tmp`;
+  fs.writeFileSync(temporary, source);
+  fs.renameSync(temporary, target);
+}
+
+interface CellView {
+  readonly cell: CellSource;
+  readonly run: CellRun | undefined;
+}
+
+/** Renders the report HTML for a document and the record of its run. */
+export function renderReport(document: NotebookDocument, run: RunRecord, options: ReportOptions = {}): string {
+  const notebookDir = path.dirname(document.path);
+  const ctx: RenderContext = { figures: 0, tables: 0, notebookDir };
+  const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
+  for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
+
+  const tokens = proseMarkdown.parse(document.body, env);
+  let title = document.frontMatter.title;
+  if (title === undefined) {
+    const h1 = tokens.findIndex((t: Token) => t.type === "heading_open" && t.tag === "h1");
+    if (h1 >= 0) {
+      title = tokens[h1 + 1]?.content ?? "";
+      tokens.splice(h1, 3);
+    }
+  }
+  title ||= path.basename(document.path).replace(/\.(md|markdown)$/i, "");
+  const used = new Set(["contents", "methods", "run-record", "summary"]);
+  const headings = labelHeadings(tokens, used);
+  const body = proseMarkdown.renderer.render(tokens, proseMarkdown.options, env);
+
+  const methods = renderMethods(run.methods, "methods");
+  const contentsEntries: Heading[] = headings.filter((h) => h.level <= 3);
+  if (methods) contentsEntries.push({ level: 2, text: "Methods", id: "methods" });
+  contentsEntries.push({ level: 2, text: "Run record", id: "run-record" });
+  const hasFigures = /class="plot-figure"/.test(body);
+  const plotly = !hasFigures ? "" : options.assetsHref !== undefined
+    ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
+    : `<script>${plotlyScript().replace(/<\/script/gi, "<\\/script")}</script>`;
+
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="generator" content="${escapeHtml(`${run.tool.name} ${run.tool.version}`)}">
+<title>${escapeHtml(title)}</title>
+<style>${CSS}</style>
+</head>
+<body>
+<main class="report">
+${renderTitleBlock(document, run, title)}
+${renderSummary({ document, run, notebookDir })}
+${renderContents(contentsEntries)}
+<article class="report-body">
+${body}
+</article>
+${methods}
+${renderRunDetails(document, run, "run-record")}
+<footer class="report-footer">Made with ${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} from ${escapeHtml(path.basename(document.path))}.</footer>
+</main>
+${plotly}
+${hasFigures ? `<script>${FIGURES_CLIENT}</script>` : ""}
+${options.extraBodyHtml ?? ""}
+</body>
+</html>
+`;
+}
+
+// Cells take the place of their fences; other fences are shown as highlighted code.
+proseMarkdown.renderer.rules.fence = (tokens, idx, _options, environment) => {
+  const env = environment as { cells?: Map<number, CellView>; render?: (v: CellView) => string };
+  const token = tokens[idx]!;
+  const view = token.map ? env.cells?.get(token.map[0]) : undefined;
+  if (view && env.render) return env.render(view);
+  const language = token.info.trim().split(/\s+/)[0] ?? "";
+  return `<pre class="code-block"><code class="hljs${language ? ` language-${escapeHtml(language)}` : ""}">${highlight(token.content, language)}</code></pre>\n`;
+};
+
+function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: string): string {
+  const fm = document.frontMatter;
+  const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
+  const meta: [string, string][] = [];
+  if (fm.author) meta.push(["Author", fm.author]);
+  meta.push(["Date", fm.date ?? run.startedAt.slice(0, 10)]);
+  meta.push(["Made with", `${run.tool.name} ${run.tool.version}`]);
+  meta.push(["Run", `${formatDuration(run.durationMs)}, ${ran === 1 ? "1 cell" : `${ran} cells`}`]);
+  return `<header class="title-block"><h1>${escapeHtml(title)}</h1><dl class="meta">${meta
+    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${escapeHtml(v)}</dd></div>`).join("")}</dl></header>`;
+}
+
+function renderContents(entries: Heading[]): string {
+  if (entries.length < 3) return "";
+  const min = Math.min(...entries.map((e) => e.level));
+  const items = entries.map((e) => `<li class="level-${e.level - min + 2}"><a href="#${e.id}">${escapeHtml(e.text)}</a></li>`).join("");
+  return `<nav class="contents" id="contents" aria-label="Contents"><h2>Contents</h2><ol${entries.length > 8 ? ' class="long"' : ""}>${items}</ol></nav>`;
+}
+
+function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string {
+  const { cell } = view;
+  const status = view.run?.status ?? "not-run";
+  const number = cell.index + 1;
+  const lines = cell.code.split("\n").length;
+  const range = lines > 1 ? `lines ${cell.firstLine}–${cell.firstLine + lines - 1}` : `line ${cell.firstLine}`;
+  const code = `<pre><code class="hljs language-ts">${highlight(cell.code, "typescript")}</code></pre>`;
+  let source = "";
+  if (status === "listing") {
+    source = `<div class="listing"><p class="listing-label">Listing, not run · cell ${number} · ${range}</p>${code}</div>`;
+  } else if (!cell.options.hideSource) {
+    source = `<details class="cell-source"${cell.options.showSource ? " open" : ""}><summary>Code <span class="cell-lines">cell ${number} · ${range}</span></summary>${code}</details>`;
+  }
+  let notRun = "";
+  if (status === "not-run") {
+    const failed = run.cells.filter((c) => c.status === "failed" && c.index < cell.index && !c.failureAllowed).map((c) => c.index + 1);
+    notRun = `<p class="not-run-label">Cell ${number} was not run${failed.length ? ` because ${describeCells(failed.slice(-1))} failed` : ""}.</p>`;
+  }
+  const outputs = withCaption(view.run?.outputs ?? [], cell.options.caption).map((o) => renderOutput(o, ctx)).join("\n");
+  return `<section class="cell cell-${status}${status === "not-run" ? " not-run" : ""}" id="cell-${number}" data-line="${cell.fenceLine}">${source}${notRun}${
+    outputs ? `<div class="cell-outputs">${outputs}</div>` : ""}</section>\n`;
+}
+
+/** Gives the fence line's caption to the cell's first figure, table or swatch row that has no caption of its own. */
+function withCaption(outputs: readonly OutputRecord[], caption: string | undefined): readonly OutputRecord[] {
+  if (!caption) return outputs;
+  const i = outputs.findIndex((o) => (o.kind === "figure" || o.kind === "table" || o.kind === "swatches") && !o.caption);
+  if (i < 0) return outputs;
+  return outputs.map((o, j) => (j === i ? { ...o, caption } as OutputRecord : o));
+}

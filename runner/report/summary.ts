@@ -1,0 +1,86 @@
+/**
+ * The summary at the top of the report: what a reader must know before reading on. Each section is a function of
+ * the document and the run record that returns HTML or nothing; add a section by adding a function to
+ * SUMMARY_SECTIONS (acceptance checks will go here).
+ */
+import type { ErrorRecord } from "../../cells/records.ts";
+import type { NotebookDocument } from "../notebook.ts";
+import type { RunRecord } from "../run-record.ts";
+import { escapeHtml } from "./escape.ts";
+import { displayLocation, errorTitle } from "./render-output.ts";
+
+/** What a summary section may look at. */
+export interface SummaryContext {
+  readonly document: NotebookDocument;
+  readonly run: RunRecord;
+  readonly notebookDir: string;
+}
+
+/** One part of the summary: HTML, or undefined when it has nothing to say. */
+export type SummarySection = (ctx: SummaryContext) => string | undefined;
+
+/** Failed cells, with their error and place, and the cells that were not run because of them. */
+export const failedCellsSection: SummarySection = ({ run, notebookDir }) => {
+  const failed = run.cells.filter((c) => c.status === "failed");
+  if (failed.length === 0) return undefined;
+  const blocking = failed.filter((c) => !c.failureAllowed);
+  const items = failed.map((c) => {
+    const error = c.outputs.find((o): o is ErrorRecord => o.kind === "error");
+    const where = error?.location ? ` <span class="where">(${escapeHtml(displayLocation(error.location, notebookDir))})</span>` : "";
+    const allowed = c.failureAllowed ? ` <span class="allowed">failure allowed by may-fail</span>` : "";
+    return `<li><a href="#cell-${c.index + 1}">Cell ${c.index + 1}</a>${where}: ${escapeHtml(error ? errorTitle(error) : "failed")}${allowed}</li>`;
+  });
+  const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
+  const notRunText = notRun.length ? `<p>Not run because of the failure: ${describeCells(notRun)}.</p>` : "";
+  const heading = blocking.length === 0
+    ? `${failed.length === 1 ? "A cell" : `${failed.length} cells`} failed as allowed`
+    : `${blocking.length === 1 ? "A cell failed" : `${blocking.length} cells failed`}: results below are incomplete`;
+  return `<div class="summary-part failures${blocking.length === 0 ? " allowed" : ""}"><h2>${heading}</h2><ul>${items.join("")}</ul>${notRunText}</div>`;
+};
+
+/** Every caution raised by a cell or the library, repeated here so no reader misses one. */
+export const cautionsSection: SummarySection = ({ run }) => {
+  const seen = new Set<string>();
+  const items: string[] = [];
+  for (const cell of run.cells) {
+    for (const o of cell.outputs) {
+      if (o.kind !== "caution" || seen.has(`${o.title}\0${o.text}`)) continue;
+      seen.add(`${o.title}\0${o.text}`);
+      items.push(`<li><strong>${escapeHtml(o.title)}.</strong> ${escapeHtml(o.text)} <a href="#cell-${cell.index + 1}">(cell ${cell.index + 1})</a></li>`);
+    }
+  }
+  if (items.length === 0) return undefined;
+  return `<div class="summary-part cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
+};
+
+/** Things that happened to the run itself (e.g. the cell process had to be restarted). */
+export const runEventsSection: SummarySection = ({ run }) => {
+  if (run.events.length === 0) return undefined;
+  return `<div class="summary-part events"><h2>About this run</h2><ul>${run.events.map((e) => `<li>${escapeHtml(e)}</li>`).join("")}</ul></div>`;
+};
+
+/** The summary sections, in the order they appear. */
+export const SUMMARY_SECTIONS: SummarySection[] = [failedCellsSection, cautionsSection, runEventsSection];
+
+/** The summary block, or a one-line all-clear when no section has anything to say. */
+export function renderSummary(ctx: SummaryContext): string {
+  const parts = SUMMARY_SECTIONS.map((section) => section(ctx)).filter((p): p is string => p !== undefined);
+  if (parts.length === 0) {
+    const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
+    return `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
+  }
+  return `<section class="summary" aria-label="Summary">${parts.join("")}</section>`;
+}
+
+/** "cells 4–7 and 9" */
+export function describeCells(numbers: number[]): string {
+  const ranges: string[] = [];
+  for (let i = 0; i < numbers.length; i++) {
+    let j = i;
+    while (j + 1 < numbers.length && numbers[j + 1] === numbers[j]! + 1) j++;
+    ranges.push(j > i ? `${numbers[i]}–${numbers[j]}` : String(numbers[i]));
+    i = j;
+  }
+  const list = ranges.length > 1 ? `${ranges.slice(0, -1).join(", ")} and ${ranges.at(-1)}` : ranges[0]!;
+  return `${numbers.length === 1 ? "cell" : "cells"} ${list}`;
+}
