@@ -10,7 +10,7 @@ import { uvPrimeFromXy } from "../colorimetry/chromaticity.ts";
 import { diagramAxisTitles, diagramPoint, diagramSpace, type DiagramSpace } from "./chromaticity-space.ts";
 import { spectralLocus, locusPointAt, type LocusPoint } from "./spectral-locus.ts";
 import { chromaticityFill, type FillOptions } from "./chromaticity-fill.ts";
-import { blackbodyChromaticity, chromaticityAtCctDuv, isotemperatureLine, temperaturesByMired } from "./planckian-locus.ts";
+import { blackbodyChromaticity, chromaticityAtCctClipped, isotemperatureLine, temperaturesByMired } from "./planckian-locus.ts";
 import { illuminantChromaticity, STANDARD_WHITE_POINTS } from "./white-points.ts";
 import { thinLabels } from "./label-placement.ts";
 import { houseAxis, houseConfig, houseLayout, INK, FIGURE_HEIGHTS, FONT_FAMILY } from "./style.ts";
@@ -212,7 +212,7 @@ function resolvePlanckian(p: ChromaticityDiagramOptions["planckian"], zoomed: bo
   const iso = o.isotemperature ?? (zoomed ? DEFAULT_ISOTEMPERATURE_ZOOMED : DEFAULT_ISOTEMPERATURE_WHOLE);
   if (iso !== false) for (const t of iso) if (!(t >= 1000 && t <= 100000)) throw new Error(`isotemperature line at ${t} K: CIE 015 CCTs are drawn here from 1000 K to 100 000 K`);
   const extent = o.isotemperatureExtent ?? 0.02;
-  if (!(extent > 0 && extent <= 0.05)) throw new Error(`isotemperature extent ${extent} must lie in (0, 0.05] (CIE 015:2018 §9.4 defines CCT only for |Duv| ≤ 0.05)`);
+  if (!(extent > 0 && extent <= 0.05)) throw new Error(`isotemperature extent ${extent} must lie in (0, 0.05] (CIE 015:2018 defines CCT only for |Duv| ≤ 0.05)`);
   if (o.duvBand !== undefined && !(o.duvBand > 0 && o.duvBand <= 0.05)) throw new Error(`Duv band ${o.duvBand} must lie in (0, 0.05]`);
   return { isotemperature: iso, isotemperatureExtent: extent, range, duvBand: o.duvBand };
 }
@@ -224,8 +224,8 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
   const cieObserver = obs.fieldDegrees === 2;
   if (cieObserver && opts.duvBand !== undefined) {
     const bandTemps = temperaturesByMired(Math.max(1000, opts.range[0]), Math.min(100000, opts.range[1]), 160);
-    const upper = bandTemps.map((t) => diagramPoint(chromaticityAtCctDuv(t, opts.duvBand!), space));
-    const lower = bandTemps.map((t) => diagramPoint(chromaticityAtCctDuv(t, -opts.duvBand!), space)).reverse();
+    const upper = bandTemps.map((t) => diagramPoint(chromaticityAtCctClipped(t, opts.duvBand!), space));
+    const lower = bandTemps.map((t) => diagramPoint(chromaticityAtCctClipped(t, -opts.duvBand!), space)).reverse();
     const ring = [...upper, ...lower, upper[0]!];
     traces.push({
       type: "scatter",
@@ -253,7 +253,7 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
   notes.push(`the Planckian locus (${opts.range[0]}–${opts.range[1]} K, c2 = 1.4388×10⁻² m·K${cieObserver ? "" : ", computed with this observer"})`);
   if (opts.isotemperature !== false && opts.isotemperature.length > 0) {
     if (!cieObserver) {
-      notes.push("no isotemperature lines, as CCT is defined with the CIE 1931 observer only (CIE 015:2018 §9.4)");
+      notes.push("no isotemperature lines, as CCT is defined with the CIE 1931 observer only (CIE 015:2018)");
     } else {
       const lx: (number | null)[] = [], ly: (number | null)[] = [];
       const ends: { at: [number, number]; t: number }[] = [];
@@ -293,7 +293,7 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
         showlegend: false,
         cliponaxis: false,
       });
-      notes.push(`isotemperature lines to Duv = ±${opts.isotemperatureExtent} (normal to the locus in the CIE 1960 UCS diagram, CIE 015:2018 §9.4)`);
+      notes.push(`isotemperature lines to Duv = ±${opts.isotemperatureExtent} (normal to the locus in the CIE 1960 UCS diagram, CIE 015:2018)`);
     }
   }
   return traces;

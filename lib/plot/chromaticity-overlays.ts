@@ -6,7 +6,7 @@ import { uvPrimeFromXy, xyFromUvPrime, type Chromaticity } from "../colorimetry/
 import { diagramPoint, diagramSpace, type DiagramSpace } from "./chromaticity-space.ts";
 import { toXy, type ChromaticityInput } from "./chromaticity-input.ts";
 import { DISPLAY_PRIMARIES, type DisplayGamut } from "./display-rgb.ts";
-import { cctDuvForHover } from "./hover-cct.ts";
+import { cctAndDuv } from "../temperature/cct.ts";
 import { roundForDisplay as r5, type PlotTrace } from "./figure.ts";
 import { FONT_FAMILY, INK, SERIES_COLOURS, SERIES_DASHES, SERIES_MARKERS } from "./style.ts";
 
@@ -83,7 +83,7 @@ export function gamutTraces(gamuts: readonly GamutChoice[], space: DiagramSpace)
   return { traces, names };
 }
 
-/** Points, one trace per group, with hover readouts of x, y, u′, v′, CCT and Duv (CCT per CIE 015:2018 §9.4). */
+/** Points, one trace per group, with hover readouts of x, y, u′, v′, CCT and Duv (CCT per CIE 015:2018). */
 export function pointTraces(points: readonly LabelledChromaticity[], space: DiagramSpace): PlotTrace[] {
   const groups = new Map<string, LabelledChromaticity[]>();
   for (const p of points) {
@@ -100,7 +100,7 @@ export function pointTraces(points: readonly LabelledChromaticity[], space: Diag
       const xy = toXy(p, `point "${p.label}"`);
       const uv = uvPrimeFromXy(xy);
       const at = diagramPoint(xy, space);
-      const t = cctDuvForHover(xy);
+      const t = cctOrNothing(xy);
       xs.push(r5(at[0]));
       ys.push(r5(at[1]));
       custom.push([
@@ -208,4 +208,13 @@ export function arrowAnnotations(arrows: readonly ChromaticityArrow[], space: Di
 /** Escapes text for Plotly's HTML-like hover and annotation strings. */
 export function escapeHover(s: string): string {
   return String(s).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+}
+
+/** CCT and Duv by lib/temperature (CIE 015:2018), or undefined where they are not defined (|Duv| > 0.05, out of range). */
+function cctOrNothing(xy: Chromaticity): { cct: number; duv: number } | undefined {
+  try {
+    return cctAndDuv(xy);
+  } catch {
+    return undefined;
+  }
 }

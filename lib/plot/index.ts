@@ -5,3 +5,5 @@ export * from "./chromaticity-diagram.ts";
 export type { LabelledChromaticity, GamutChoice, CustomGamut, ToleranceRegion, ChromaticityArrow } from "./chromaticity-overlays.ts";
 export type { ChromaticityInput } from "./chromaticity-input.ts";
 export type { DisplayGamut } from "./display-rgb.ts";
+export * from "./spectrum-plot.ts";
+export * from "./lab-plots.ts";

@@ -1,14 +1,15 @@
 /**
  * Geometry of the Planckian locus for drawing: blackbody chromaticities for either observer (Planck's law with
- * c2 = 1.4388e-2 m·K summed against the observer's 1 nm colour-matching functions, CIE 015:2018 §9.1), isotemperature
- * lines normal to the locus in the CIE 1960 UCS diagram and lines of constant Duv (CIE 015:2018 §9.4: CCT and Duv
- * are defined with the CIE 1931 observer in the (u, v) = (u′, 2/3 v′) diagram; Duv > 0 above the locus).
+ * c2 = 1.4388e-2 m·K summed against the observer's 1 nm colour-matching functions, CIE 015:2018), and
+ * isotemperature lines normal to the locus in the CIE 1960 UCS diagram (CCT and Duv are defined with the CIE 1931
+ * observer in the (u, v) = (u′, 2/3 v′) diagram, Duv > 0 above the locus; points come from lib/temperature).
  */
 import { planckExitance, C2_CIE } from "../illuminants/planckian-radiator.ts";
 import { observerByName, type Observer, type ObserverName } from "../observers/standard-observer.ts";
-import { uv1960FromXy, xyFromUv1960, type Chromaticity, type Uv1960 } from "../colorimetry/chromaticity.ts";
+import { chromaticityAtCct } from "../temperature/cct.ts";
+import type { Chromaticity } from "../colorimetry/chromaticity.ts";
 
-/** Blackbody chromaticity at T kelvin for an observer (Planck's law summed at the observer's 1 nm table, CIE 015:2018 §9.1). */
+/** Blackbody chromaticity at T kelvin for an observer (Planck's law summed at the observer's 1 nm table, CIE 015:2018). */
 export function blackbodyChromaticity(temperatureK: number, observer: ObserverName | Observer | 2 | 10 = "2°"): Chromaticity {
   if (!(temperatureK >= 500 && temperatureK <= 1e7) || !Number.isFinite(temperatureK)) {
     throw new Error(`Planckian locus: temperature ${temperatureK} K is outside the drawn range 500 K – 10 000 000 K`);
@@ -25,31 +26,34 @@ export function blackbodyChromaticity(temperatureK: number, observer: ObserverNa
   return { x: X / s, y: Y / s };
 }
 
-/** Unit normal to the Planckian locus at T in the CIE 1960 (u, v) diagram, pointing to positive Duv (towards +v). */
-export function locusNormalUv(temperatureK: number): Uv1960 {
-  const h = 1e-3; // relative step in reciprocal temperature
-  const mired = 1e6 / temperatureK;
-  const a = uv1960FromXy(blackbodyChromaticity(1e6 / (mired * (1 + h)), "2°"));
-  const b = uv1960FromXy(blackbodyChromaticity(1e6 / (mired * (1 - h)), "2°"));
-  const tu = a.u - b.u, tv = a.v - b.v;
-  const len = Math.hypot(tu, tv);
-  let n = { u: -tv / len, v: tu / len };
-  if (n.v < 0) n = { u: -n.u, v: -n.v };
-  return n;
+/**
+ * The chromaticity at CCT T and Duv (CIE 015:2018, via lib/temperature), or, where that point would leave the
+ * range of real colours (near the spectral locus at low temperatures), the last real point on the way there
+ * (found by bisection on Duv).
+ */
+export function chromaticityAtCctClipped(temperatureK: number, duv: number): Chromaticity {
+  try {
+    return chromaticityAtCct(temperatureK, duv);
+  } catch (e) {
+    if (!(e instanceof Error) || !/range of real colours/.test(e.message)) throw e;
+    let lo = 0, hi = Math.abs(duv);
+    for (let i = 0; i < 30; i++) {
+      const mid = (lo + hi) / 2;
+      try {
+        chromaticityAtCct(temperatureK, Math.sign(duv) * mid);
+        lo = mid;
+      } catch {
+        hi = mid;
+      }
+    }
+    return chromaticityAtCct(temperatureK, Math.sign(duv) * lo);
+  }
 }
 
-/** The chromaticity at CCT T and distance Duv from the locus, along the isotemperature line (CIE 015:2018 §9.4). */
-export function chromaticityAtCctDuv(temperatureK: number, duv: number): Chromaticity {
-  if (!Number.isFinite(duv) || Math.abs(duv) > 0.1) throw new Error(`Duv ${duv} must be a finite number within ±0.1`);
-  const p = uv1960FromXy(blackbodyChromaticity(temperatureK, "2°"));
-  const n = locusNormalUv(temperatureK);
-  return xyFromUv1960({ u: p.u + duv * n.u, v: p.v + duv * n.v });
-}
-
-/** The isotemperature line of T from Duv = −extent to +extent, as two xy end points (CIE 1931 observer). */
+/** The isotemperature line of T from Duv = −extent to +extent, as two xy end points (CIE 1931 observer; CIE 015:2018), shortened where it would leave the real colours. */
 export function isotemperatureLine(temperatureK: number, extent = 0.02): [Chromaticity, Chromaticity] {
-  if (!(extent > 0 && extent <= 0.1)) throw new Error(`isotemperature line: extent ${extent} must lie in (0, 0.1]`);
-  return [chromaticityAtCctDuv(temperatureK, -extent), chromaticityAtCctDuv(temperatureK, extent)];
+  if (!(extent > 0 && extent <= 0.05)) throw new Error(`isotemperature line: extent ${extent} must lie in (0, 0.05]`);
+  return [chromaticityAtCctClipped(temperatureK, -extent), chromaticityAtCctClipped(temperatureK, extent)];
 }
 
 /** Temperatures spaced evenly in reciprocal temperature (mired) from `from` to `to` kelvin, `count` of them. */

@@ -116,7 +116,7 @@ function legendAt(where: NonNullable<HouseLayoutOptions["legend"]>): Record<stri
     itemwidth: 36,
   };
   if (where === "right") return { ...box, x: 1.02, xanchor: "left", y: 1, yanchor: "top" };
-  if (where === "below") return { ...box, orientation: "h", x: 0, xanchor: "left", y: -0.09, yanchor: "top", yref: "paper", borderwidth: 0, bgcolor: "rgba(255,255,255,0)", entrywidth: 0 };
+  if (where === "below") return { ...box, orientation: "h", x: 0, xanchor: "left", y: 0, yanchor: "bottom", yref: "container", borderwidth: 0, bgcolor: "rgba(255,255,255,0)" };
   const top = where.includes("top"), right = where.includes("right");
   return { ...box, x: right ? 0.985 : 0.015, xanchor: right ? "right" : "left", y: top ? 0.985 : 0.015, yanchor: top ? "top" : "bottom" };
 }
@@ -142,7 +142,7 @@ export function houseLayout(o: HouseLayoutOptions): PlotLayout {
     plot_bgcolor: INK.paper,
     height: o.height ?? FIGURE_HEIGHTS.chart,
     autosize: true,
-    margin: { ...MARGINS },
+    margin: legend === "below" ? { ...MARGINS, b: MARGINS.b + 34 } : { ...MARGINS },
     xaxis: o.xaxis,
     yaxis: o.yaxis,
     showlegend: legend !== "none",
