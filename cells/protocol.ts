@@ -87,8 +87,11 @@ export interface CellRuntime {
   imported(i: number): Record<string, unknown>;
   /** The "tristim" module namespace. */
   readonly lib: Record<string, unknown>;
-  /** Picks a named export from a namespace, with a clear error when it does not exist. */
-  pick(namespace: Record<string, unknown>, name: string, from: string): unknown;
+  /**
+   * Binds an imported name as a shared global. When the module has no such export, the global throws a clear error
+   * when used (so a name that was only used as a type, and erased, costs nothing).
+   */
+  bindImport(local: string, namespace: Record<string, unknown>, name: string, from: string): void;
   /** `import(...)` inside a cell, resolved against the notebook's folder. */
   dynamicImport(specifier: string): Promise<unknown>;
   /** `import.meta` inside a cell: the notebook's URL, folder and file. */

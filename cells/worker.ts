@@ -170,11 +170,22 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
       return namespaces[`m${i}`]!;
     },
     lib,
-    pick(namespace, name, from) {
-      if (!(name in namespace)) {
-        throw new SyntaxError(`the module "${from}" has no export named "${name}"`);
+    bindImport(local, namespace, name, from) {
+      declareGlobal(local);
+      if (name in namespace) {
+        (globalThis as Record<string, unknown>)[local] = namespace[name];
+        return;
       }
-      return namespace[name];
+      Object.defineProperty(globalThis, local, {
+        configurable: true,
+        enumerable: true,
+        get() {
+          throw new SyntaxError(`the module "${from}" has no export named "${name}"`);
+        },
+        set(value: unknown) {
+          Object.defineProperty(globalThis, local, { value, writable: true, configurable: true, enumerable: true });
+        },
+      });
     },
     async dynamicImport(specifier) {
       if (specifier === "tristim") return lib;

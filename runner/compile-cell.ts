@@ -55,7 +55,8 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
       sourcemap: "external",
       sourcefile: path.basename(document.path),
       logLevel: "silent",
-      tsconfigRaw: { compilerOptions: { verbatimModuleSyntax: false, preserveValueImports: false } },
+      // Keep every import that is not marked `type`: a later cell may use a name this cell imported but did not use.
+      tsconfigRaw: { compilerOptions: { verbatimModuleSyntax: true } },
     });
     js = result.code;
     map = result.map;
@@ -93,7 +94,7 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
     const entry = hoisted.imports.map((imp, i) => `export * as m${i} from ${JSON.stringify(imp.specifier)};`).join("\n");
     try {
       await esbuild.build({
-        stdin: { contents: entry, resolveDir: path.dirname(document.path), sourcefile: "cell-imports.js", loader: "js" },
+        stdin: { contents: entry, resolveDir: path.dirname(document.path), sourcefile: IMPORTS_ENTRY, loader: "js" },
         bundle: true,
         platform: "node",
         format: "esm",
@@ -108,8 +109,8 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
       const message = (e as esbuild.BuildFailure).errors?.[0];
       if (!message) throw e;
       const loc = message.location;
-      if (loc && loc.file !== "cell-imports.js" && loc.file !== "<stdin>") {
-        const file = path.resolve(path.dirname(document.path), loc.file);
+      if (loc && path.basename(loc.file) !== IMPORTS_ENTRY && loc.file !== "<stdin>") {
+        const file = path.resolve(loc.file);
         return {
           index: cell.index,
           filename,
@@ -141,6 +142,9 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
 export function compileCells(context: CompileContext): Promise<(CompiledCell | undefined)[]> {
   return Promise.all(context.document.cells.map((c) => (c.options.noRun ? undefined : compileCell(c, context))));
 }
+
+/** Name of the generated entry file that re-exports a cell's imports (never shown to the user). */
+const IMPORTS_ENTRY = "__tristim_cell_imports__.js";
 
 /** Lets CommonJS packages call require() from the ESM bundle. */
 export const BANNER = 'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);';

@@ -112,7 +112,7 @@ export function hoistCell(js: string): HoistedCell {
         break;
       }
       case "ExpressionStatement":
-        if (i === body.length - 1 && !node.directive) {
+        if (i === body.length - 1) {
           const expression = node.expression as AnyNode;
           edits.push({ start: expression.start, end: expression.start, text: "return (" });
           edits.push({ start: expression.end, end: expression.end, text: ")" });
@@ -149,7 +149,7 @@ function rewriteImport(node: AnyNode, imports: CellImport[], js: string): string
     const local = (s.local as AnyNode).name as string;
     if (s.type === "ImportNamespaceSpecifier") return `${local} = ${namespace};`;
     const imported = s.type === "ImportDefaultSpecifier" ? "default" : importedName(s.imported as AnyNode);
-    return `${local} = ${R}.pick(${namespace}, ${JSON.stringify(imported)}, ${from});`;
+    return `${R}.bindImport(${JSON.stringify(local)}, ${namespace}, ${JSON.stringify(imported)}, ${from});`;
   });
   if (parts.length === 0) parts.push(`${namespace};`);
   const newlines = js.slice(node.start, node.end).split("\n").length - 1;
