@@ -1,0 +1,201 @@
+/**
+ * The report: built from run records only, escaped, self-contained, numbered, with the summary, contents, Methods
+ * and run record. Most tests render hand-made records (no cell process), one runs a real notebook end to end.
+ */
+import fs from "node:fs";
+import { createRequire } from "node:module";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import type { OutputRecord } from "../../cells/records.ts";
+import { parseNotebook } from "../../runner/parse-notebook.ts";
+import { writeReport } from "../../runner/report-file.ts";
+import { PLOTLY_ASSET, renderReport } from "../../runner/report/render-report.ts";
+import type { CellRun, RunRecord } from "../../runner/run-record.ts";
+import { writeFileAtomic } from "../../runner/write-atomic.ts";
+import { runText, tempFolder, ts } from "./helpers.ts";
+
+const require = createRequire(import.meta.url);
+const FIGURE: OutputRecord = { kind: "figure", spec: { data: [{ type: "scatter", x: [1, 2], y: [3, 4] }], layout: {} } };
+
+function record(cells: CellRun[], extra: Partial<RunRecord> = {}): RunRecord {
+  return {
+    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
+    tool: { name: "tristim", version: "0.1.0" },
+    node: "v20.0.0",
+    platform: "linux-x64",
+    startedAt: "2024-06-01T10:00:00.000Z",
+    durationMs: 1234,
+    inputs: {},
+    inputsSet: {},
+    timeLimitMs: 30_000,
+    keepGoing: false,
+    cells,
+    methods: [],
+    filesRead: [],
+    events: [],
+    signature: "x",
+    ...extra,
+  };
+}
+
+function ok(index: number, outputs: OutputRecord[]): CellRun {
+  return { index, status: "ok", outputs, durationMs: 5, reads: [] };
+}
+
+describe("the report", () => {
+  it("escapes text from cells and data: a sample named <script>alert(1)</script> appears as text", () => {
+    const evil = "<script>alert(1)</script>";
+    const doc = parseNotebook(`---\ntitle: "${evil}"\n---\n` + ts("1"), "/lab/nb.md");
+    const outputs: OutputRecord[] = [
+      { kind: "console", stream: "stdout", text: evil },
+      { kind: "value", text: evil },
+      { kind: "table", columns: [{ label: evil, unit: evil, numeric: false }], rows: [[evil]], totalRows: 1, caption: evil },
+      { kind: "swatches", swatches: [{ label: evil, hex: "#112233", note: evil }] },
+      { kind: "markdown", text: `# ${evil}\n\n<img src=x onerror=alert(1)>`, trusted: false },
+      { kind: "html", html: evil, trusted: false },
+      { kind: "caution", title: evil, text: evil },
+      { kind: "figure", spec: { data: [{ name: "</script><script>alert(1)</script>" }] }, caption: evil },
+      { kind: "error", failure: "thrown", message: evil, name: "Error" },
+    ];
+    const html = renderReport(doc, record([{ ...ok(0, outputs), status: "failed" }], { inputs: { sample: evil } }));
+    expect(html).not.toContain(evil);
+    expect(html).not.toContain("<img src=x");
+    expect(html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;");
+    // The only <script> elements are Plotly, the figure data and the figure drawing code.
+    expect(html.match(/<script\b/g)).toHaveLength(3);
+  });
+
+  it("renders trusted HTML and Markdown from code as HTML", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, [
+      { kind: "html", html: "<em class='mine'>made by code</em>", trusted: true },
+      { kind: "markdown", text: "<b class='md'>bold</b>", trusted: true },
+    ])]));
+    expect(html).toContain("<em class='mine'>made by code</em>");
+    expect(html).toContain("<b class='md'>bold</b>");
+  });
+
+  it("embeds Plotly once however many figures, and makes no network request", () => {
+    const doc = parseNotebook(ts("1") + ts("2"), "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, [FIGURE, FIGURE]), ok(1, [FIGURE])]));
+    const plotly = fs.readFileSync(path.join(path.dirname(require.resolve("plotly.js-dist-min")), "plotly.min.js"), "utf8");
+    const marker = plotly.slice(0, 200);
+    expect(html.split(marker).length - 1).toBe(1);
+    expect(html).not.toMatch(/<(script|link|img)[^>]+(src|href)="(https?:)?\/\//);
+    expect((html.match(/class="plot-figure"/g) ?? []).length).toBe(3);
+  });
+
+  it("leaves Plotly out of a report without figures, and links a shared copy when asked", () => {
+    const folder = tempFolder();
+    const doc = parseNotebook(ts("1") + ts("2"), path.join(folder, "nb.md"));
+    const plain = renderReport(doc, record([ok(0, [{ kind: "value", text: "1" }]), ok(1, [])]));
+    expect(plain.length).toBeLessThan(100_000);
+    const target = path.join(folder, "nb.html");
+    const html = writeReport(doc, record([ok(0, [FIGURE]), ok(1, [])]), target, true);
+    expect(html).toContain(`<script src="tristim-assets/${PLOTLY_ASSET}"></script>`);
+    expect(html.length).toBeLessThan(100_000);
+    expect(fs.statSync(path.join(folder, "tristim-assets", PLOTLY_ASSET)).size).toBeGreaterThan(1_000_000);
+  });
+
+  it("numbers figures and tables through the report and applies the fence-line caption", () => {
+    const doc = parseNotebook(ts("1", 'caption="Lamp spectra"') + ts("2"), "/lab/nb.md");
+    const table: OutputRecord = { kind: "table", columns: [{ label: "Y", unit: "cd/m²", numeric: true }], rows: [["1.5"]], totalRows: 3 };
+    const html = renderReport(doc, record([ok(0, [FIGURE, FIGURE]), ok(1, [table, { ...FIGURE, caption: "Own caption" }])]));
+    expect(html).toContain('<span class="label">Figure 1.</span> Lamp spectra');
+    expect(html).toContain('<span class="label">Figure 2.</span></figcaption>');
+    expect(html).toContain('<span class="label">Table 1.</span></figcaption>');
+    expect(html).toContain('<span class="label">Figure 3.</span> Own caption');
+    expect(html).toContain('Y<span class="unit">cd/m²</span>');
+    expect(html).toContain("the first 1 of 3 rows are shown");
+  });
+
+  it("reads as a lab report: title block, contents, folded code, no execution counters", () => {
+    const text = "---\ntitle: Filter lot 7\nauthor: Q. Lab\ndate: 2024-06-01\n---\n## Setup\n\n" + ts("1") + "## Results\n\n### Detail\n\n" + ts("2", "show-source") + ts("3", "hide-source") + ts("4", "no-run");
+    const doc = parseNotebook(text, "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, []), ok(1, []), ok(2, []), { index: 3, status: "listing", outputs: [], reads: [] }]));
+    expect(html).toContain("<h1>Filter lot 7</h1>");
+    expect(html).toContain("<dd>Q. Lab</dd>");
+    expect(html).toContain("<dd>2024-06-01</dd>");
+    expect(html).toContain("<dd>tristim 0.1.0</dd>");
+    expect(html).toContain("<dd>1.23 s, 3 cells</dd>");
+    expect(html).toMatch(/<nav class="contents"[^]*href="#setup"[^]*href="#results"[^]*href="#detail"[^]*href="#run-record"/);
+    expect(html).toContain('<details class="cell-source"><summary>Code <span class="cell-lines">cell 1');
+    expect(html).toContain('<details class="cell-source" open><summary>Code <span class="cell-lines">cell 2');
+    expect(html).not.toContain("cell 3 · line");
+    expect(html).toContain("Listing, not run · cell 4");
+    expect(html).not.toMatch(/In \[\d+\]|Out\[\d+\]/);
+    expect(html).toContain("@media print");
+    expect(html).toMatch(/figure, table[^{]*\{ break-inside: avoid; \}/);
+  });
+
+  it("puts a summary of failed cells and cautions at the top, and marks later cells not run", () => {
+    const doc = parseNotebook("## A\n\n" + ts("1") + ts("2") + ts("3"), "/lab/nb.md");
+    const error: OutputRecord = { kind: "error", failure: "thrown", name: "RangeError", message: "bad wavelength", location: { file: "/lab/nb.md", line: 8, column: 3 }, codeFrame: "> 8 | 2" };
+    const html = renderReport(doc, record([
+      ok(0, [{ kind: "caution", title: "Caution", text: "Informative only; the applicable standard decides." }]),
+      { index: 1, status: "failed", outputs: [error], reads: [] },
+      { index: 2, status: "not-run", outputs: [], reads: [] },
+    ]));
+    const summary = html.slice(html.indexOf('<section class="summary"'), html.indexOf('<article'));
+    expect(summary).toContain("A cell failed");
+    expect(summary).toContain('<a href="#cell-2">Cell 2</a> <span class="where">(nb.md:8:3)</span>: RangeError: bad wavelength');
+    expect(summary).toContain("Not run because of the failure: cell 3.");
+    expect(summary).toContain("Informative only; the applicable standard decides.");
+    expect(html).toContain("Cell 3 was not run because cell 2 failed.");
+    expect(html.indexOf('<section class="summary"')).toBeLessThan(html.indexOf('<article'));
+  });
+
+  it("writes a Methods section from the method log, grouped by topic in reading order, and the run record", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, [])], {
+      methods: [
+        { topic: "colour difference", statement: "CIEDE2000" },
+        { topic: "observer", statement: "CIE 1931 2° standard observer" },
+        { topic: "colour difference", statement: "CIE 1976 ΔE*ab" },
+      ],
+      inputs: { lamp: "A", n: 2 },
+      inputsSet: { n: 2 },
+      filesRead: [{ path: "/lab/data/lamp.csv", sha256: "cd".repeat(32), cells: [0] }],
+    }));
+    const methods = html.slice(html.indexOf('<section class="methods"'), html.indexOf('<section class="run-details"'));
+    expect(methods.indexOf("Observer")).toBeLessThan(methods.indexOf("Colour difference"));
+    expect(methods).toContain("<li>CIEDE2000</li><li>CIE 1976 ΔE*ab</li>");
+    const details = html.slice(html.indexOf('<section class="run-details"'));
+    expect(details).toContain(`SHA-256 ${"ab".repeat(32)}`);
+    expect(details).toContain("<code>n</code> = <code>2</code> (set on the command line)");
+    expect(details).toContain("<code>lamp</code> = <code>&quot;A&quot;</code> (default)");
+    expect(details).toContain(`data/lamp.csv</td><td><code class="hash">${"cd".repeat(32)}`);
+    expect(details).toMatch(/<td>ran<\/td><td class="num">5 ms<\/td>/);
+  });
+
+  it("renders a real run end to end, including errors with their notebook place", async () => {
+    const { document, run } = await runText("# Lamp check\n\n" + ts("showTable([{ name: '<b>x</b>', Y: 1.23456 }], { digits: 2, units: { Y: 'cd/m²' } });") + ts("null.x"));
+    const html = renderReport(document, run);
+    expect(html).toContain("<h1>Lamp check</h1>");
+    expect(html).toContain('<td>&lt;b&gt;x&lt;/b&gt;</td><td class="num">1.23</td>');
+    expect(html).toContain("TypeError: Cannot read properties of null (reading &#39;x&#39;)");
+    expect(html).toContain("at nb.md:7:6");
+  });
+});
+
+describe("atomic writing", () => {
+  it("replaces a file whole and leaves no temporary file", () => {
+    const folder = tempFolder();
+    const file = path.join(folder, "r.html");
+    writeFileAtomic(file, "old");
+    writeFileAtomic(file, "new");
+    expect(fs.readFileSync(file, "utf8")).toBe("new");
+    expect(fs.readdirSync(folder)).toEqual(["r.html"]);
+  });
+
+  it("keeps the previous report when writing fails", () => {
+    const folder = tempFolder();
+    const file = path.join(folder, "r.html");
+    fs.writeFileSync(file, "previous report");
+    fs.mkdirSync(path.join(folder, "blocker"));
+    // Renaming a file over a folder fails; the previous content of the target must survive, with no leftovers.
+    expect(() => writeFileAtomic(path.join(folder, "blocker"), "x")).toThrow();
+    expect(fs.readFileSync(file, "utf8")).toBe("previous report");
+    expect(fs.readdirSync(folder).sort()).toEqual(["blocker", "r.html"]);
+  });
+});
