@@ -1,0 +1,135 @@
+/**
+ * Taking measurements out of a CGATS.17 table: spectral fields (SPECTRAL_NMxxx, SPECTRAL_xxx or NMxxx, the
+ * wavelength in nm in the name), XYZ fields (XYZ_X, XYZ_Y, XYZ_Z), Lab fields (LAB_L, LAB_A, LAB_B) and the sample
+ * identifiers (SAMPLE_ID, SAMPLE_NAME).
+ */
+import type { Tristimulus } from "../colorimetry/chromaticity.ts";
+import type { Lab } from "../colorimetry/cielab.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
+import { parseCgats, readCgats, type CgatsFile, type CgatsTable } from "./cgats-read.ts";
+import { DataFileError, inFile } from "./data-file-error.ts";
+import { decideScale, type ValueScale } from "./value-scale.ts";
+
+const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
+
+/** The spectral fields of a table with their wavelengths (nm), in field order; they must increase. */
+export function cgatsSpectralFields(table: CgatsTable): { field: string; index: number; wavelength: number }[] {
+  const out: { field: string; index: number; wavelength: number }[] = [];
+  table.fields.forEach((field, index) => {
+    const m = SPECTRAL_FIELD.exec(field);
+    if (m) out.push({ field, index, wavelength: Number(m[1]) });
+  });
+  out.forEach((f, i) => {
+    if (i > 0 && f.wavelength <= out[i - 1]!.wavelength) {
+      throw new DataFileError(`spectral field ${f.field} (${f.wavelength} nm) does not follow ${out[i - 1]!.field} in increasing wavelength order`);
+    }
+  });
+  return out;
+}
+
+/** Each set's identifier: SAMPLE_NAME when present, else SAMPLE_ID, else "set N"; repeated identifiers are an error. */
+export function cgatsSampleIds(table: CgatsTable): string[] {
+  const nameAt = table.fields.indexOf("SAMPLE_NAME");
+  const idAt = table.fields.indexOf("SAMPLE_ID");
+  const ids = table.sets.map((set, i) => {
+    const v = nameAt >= 0 ? set[nameAt] : idAt >= 0 ? set[idAt] : undefined;
+    return v === undefined || v === "" ? `set ${i + 1}` : String(v);
+  });
+  ids.forEach((id, i) => {
+    const first = ids.indexOf(id);
+    if (first !== i) throw new DataFileError(`sample identifier "${id}" appears twice (lines ${table.setLines[first]} and ${table.setLines[i]})`, table.setLines[i]);
+  });
+  return ids;
+}
+
+function numericColumn(table: CgatsTable, field: string): number[] {
+  const at = table.fields.indexOf(field);
+  return table.sets.map((set, i) => {
+    const v = set[at];
+    if (typeof v !== "number") throw new DataFileError(`field ${field} must be a number, found ${JSON.stringify(v)}`, table.setLines[i]);
+    return v;
+  });
+}
+
+function requireFields(table: CgatsTable, wanted: readonly string[], what: string): void {
+  const missing = wanted.filter((f) => !table.fields.includes(f));
+  if (missing.length > 0) throw new DataFileError(`the table has no ${what} (missing ${missing.join(", ")}); its fields are ${table.fields.join(", ")}`);
+}
+
+/** X, Y, Z of each set from the fields XYZ_X, XYZ_Y, XYZ_Z. */
+export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimulus }[] {
+  requireFields(table, ["XYZ_X", "XYZ_Y", "XYZ_Z"], "XYZ fields");
+  const ids = cgatsSampleIds(table);
+  const [X, Y, Z] = (["XYZ_X", "XYZ_Y", "XYZ_Z"] as const).map((f) => numericColumn(table, f));
+  return ids.map((id, i) => ({ id, XYZ: { X: X![i]!, Y: Y![i]!, Z: Z![i]! } }));
+}
+
+/** L*, a*, b* of each set from the fields LAB_L, LAB_A, LAB_B. */
+export function cgatsLab(table: CgatsTable): { id: string; Lab: Lab }[] {
+  requireFields(table, ["LAB_L", "LAB_A", "LAB_B"], "Lab fields");
+  const ids = cgatsSampleIds(table);
+  const [L, A, B] = (["LAB_L", "LAB_A", "LAB_B"] as const).map((f) => numericColumn(table, f));
+  return ids.map((id, i) => ({ id, Lab: { L: L![i]!, a: A![i]!, b: B![i]! } }));
+}
+
+export interface CgatsSpectraOptions {
+  /** What the spectral fields hold; required, never assumed. */
+  quantity: SpectralQuantity;
+  /** For reflectance/transmittance: "percent", "fraction" or "auto" (default: inferred from the values and reported). */
+  scale?: ValueScale | "auto";
+  /** Which table of the file (0-based, default 0). */
+  table?: number;
+}
+
+export interface CgatsSpectraResult {
+  readonly spectra: Spectrum[];
+  readonly scale: ValueScale | "as written";
+  /** Sentences saying what was inferred rather than stated. */
+  readonly inferred: readonly string[];
+  /** The table's header keywords (e.g. DESCRIPTOR, ORIGINATOR), for provenance. */
+  readonly keywords: Readonly<Record<string, string>>;
+  readonly file: CgatsFile;
+}
+
+/** The spectra of one table of a parsed CGATS file, named by sample identifier; see CgatsSpectraOptions. */
+export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): CgatsSpectraResult {
+  if (!options || !options.quantity) throw new DataFileError('state what the spectral fields hold, e.g. { quantity: "reflectance" }; it is never assumed');
+  const which = options.table ?? 0;
+  const table = file.tables[which];
+  if (!table) throw new DataFileError(`the file has ${file.tables.length} table${file.tables.length === 1 ? "" : "s"}; table ${which} does not exist`);
+  const fields = cgatsSpectralFields(table);
+  if (fields.length === 0) throw new DataFileError(`the table has no spectral fields (SPECTRAL_NMxxx, SPECTRAL_xxx or NMxxx); its fields are ${table.fields.join(", ")}`);
+  const ids = cgatsSampleIds(table);
+  const columns = fields.map((f) => numericColumn(table, f.field));
+  const ratio = options.quantity === "reflectance" || options.quantity === "transmittance";
+  const inferred: string[] = [];
+  let scale: ValueScale | "as written" = "as written";
+  let factor = 1;
+  if (ratio || options.scale === "percent" || options.scale === "fraction") {
+    const d = decideScale(columns.flat(), options.scale, `${options.quantity} data`);
+    scale = d.scale;
+    factor = d.scale === "percent" ? 0.01 : 1;
+    if (d.inferred) inferred.push(d.statement);
+  }
+  const wavelengths = fields.map((f) => f.wavelength);
+  const spectra = ids.map((id, i) => spectrum(wavelengths, columns.map((c) => c[i]! * factor), { name: id, quantity: options.quantity }));
+  noteMethod("data files", `CGATS spectral data: ${spectra.length} samples of ${options.quantity}, ${wavelengths[0]}–${wavelengths.at(-1)} nm${scale === "percent" ? ", percent values divided by 100" : ""}.`);
+  for (const s of inferred) noteMethod("data files", s);
+  return { spectra, scale, inferred, keywords: table.keywords, file };
+}
+
+/** Parses CGATS.17 text and returns the spectra of one table (see cgatsSpectra). */
+export function parseCgatsSpectra(text: string, options: CgatsSpectraOptions): CgatsSpectraResult {
+  return cgatsSpectra(parseCgats(text), options);
+}
+
+/** Reads a CGATS.17 file and returns the spectra of one table; errors name the file and line. */
+export function readCgatsSpectra(path: string, options: CgatsSpectraOptions): CgatsSpectraResult {
+  const file = readCgats(path);
+  try {
+    return cgatsSpectra(file, options);
+  } catch (e) {
+    throw inFile(e, path);
+  }
+}

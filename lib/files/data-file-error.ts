@@ -1,0 +1,25 @@
+/** Errors from reading measurement files: they name the file (when known) and the line, so the user can find the fault. */
+
+export class DataFileError extends Error {
+  /** 1-based line number in the file, when the fault is on one line. */
+  readonly line: number | undefined;
+  /** The file path, or undefined when text was parsed directly. */
+  readonly file: string | undefined;
+
+  constructor(message: string, line?: number, file?: string) {
+    const where = [file, line !== undefined ? `line ${line}` : undefined].filter(Boolean).join(", ");
+    super(where ? `${where}: ${message}` : message);
+    this.name = "DataFileError";
+    this.line = line;
+    this.file = file;
+  }
+}
+
+/** A copy of a DataFileError (or plain error) with the file name added. */
+export function inFile(error: unknown, file: string): Error {
+  if (error instanceof DataFileError && error.file === undefined) {
+    const bare = error.line !== undefined ? error.message.replace(/^line \d+: /, "") : error.message;
+    return new DataFileError(bare, error.line, file);
+  }
+  return error instanceof Error ? error : new Error(String(error));
+}

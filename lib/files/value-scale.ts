@@ -1,0 +1,40 @@
+/**
+ * Percent or fraction: a file's reflectance or transmittance values are scaled to fractions (the library's
+ * convention). The scale is taken from the caller when stated; otherwise it is inferred from the values and the
+ * inference is reported, never applied silently.
+ */
+
+export type ValueScale = "fraction" | "percent";
+
+export interface ScaleDecision {
+  readonly scale: ValueScale;
+  /** True when the scale was inferred from the values rather than stated. */
+  readonly inferred: boolean;
+  /** A sentence for the report saying what was decided and why. */
+  readonly statement: string;
+}
+
+/** The largest value above which data are read as percent when the scale is not stated (common practice, no source). */
+export const PERCENT_THRESHOLD = 1.5;
+
+/** Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so. */
+export function decideScale(values: Iterable<number>, stated: ValueScale | "auto" | undefined, what: string): ScaleDecision {
+  if (stated === "fraction" || stated === "percent") {
+    return { scale: stated, inferred: false, statement: `${what}: values stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.` };
+  }
+  if (stated !== undefined && stated !== "auto") throw new Error(`scale "${String(stated)}" is not "fraction", "percent" or "auto"`);
+  let max = -Infinity;
+  for (const v of values) if (v > max) max = v;
+  if (max > PERCENT_THRESHOLD) {
+    return {
+      scale: "percent",
+      inferred: true,
+      statement: `${what}: values read as PERCENT, inferred from the values (the largest is ${max}); divided by 100. State scale: "percent" or "fraction" to confirm.`,
+    };
+  }
+  return {
+    scale: "fraction",
+    inferred: true,
+    statement: `${what}: values read as FRACTIONS, inferred from the values (none above ${PERCENT_THRESHOLD}; the largest is ${max}). If these are percent of a dark sample, state scale: "percent".`,
+  };
+}
