@@ -62,8 +62,8 @@ export interface ChromaticityDiagramOptions {
 }
 
 const WHOLE: Record<DiagramSpace, { x: [number, number]; y: [number, number] }> = {
-  xy: { x: [-0.045, 0.8], y: [-0.02, 0.9] },
-  "u'v'": { x: [-0.045, 0.67], y: [-0.02, 0.62] },
+  xy: { x: [-0.045, 0.8], y: [-0.045, 0.9] },
+  "u'v'": { x: [-0.045, 0.67], y: [-0.045, 0.62] },
 };
 const WHITE_REGION: Record<DiagramSpace, { x: [number, number]; y: [number, number] }> = {
   xy: { x: [0.24, 0.56], y: [0.24, 0.46] },
@@ -217,7 +217,7 @@ function resolvePlanckian(p: ChromaticityDiagramOptions["planckian"], zoomed: bo
   return { isotemperature: iso, isotemperatureExtent: extent, range, duvBand: o.duvBand };
 }
 
-function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<ReturnType<typeof resolvePlanckian>>, range: { x: readonly [number, number]; y: readonly [number, number] }, notes: string[]): PlotTrace[] {
+function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<ReturnType<typeof resolvePlanckian>>, range: { x: readonly [number, number]; y: readonly [number, number] }, zoomed: boolean, notes: string[]): PlotTrace[] {
   const traces: PlotTrace[] = [];
   const temps = temperaturesByMired(opts.range[0], opts.range[1], 240);
   const pts = temps.map((t) => diagramPoint(blackbodyChromaticity(t, obs), space));
@@ -276,9 +276,9 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
       });
       const spans: [number, number] = [range.x[1] - range.x[0], range.y[1] - range.y[0]];
       const kept = thinLabels(
-        ends.filter((e) => inRange(e.at, range)).map((e) => ({ at: e.at, priority: [2000, 3000, 4000, 6500, 10000].includes(e.t) ? 0 : 1, item: e })),
+        ends.filter((e) => inRange(e.at, range)).map((e) => ({ at: e.at, priority: [2000, 3000, 6500].includes(e.t) ? 0 : [4000, 10000].includes(e.t) ? 1 : 2, item: e })),
         spans,
-        0.05,
+        zoomed ? 0.05 : 0.09,
       );
       traces.push({
         type: "scatter",
@@ -360,7 +360,7 @@ export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): P
 
   data.push(...locusTraces(obs, space, range, options.wavelengthLabels ?? defaultWavelengthLabels()));
   const planckian = resolvePlanckian(options.planckian, range !== WHOLE[space]);
-  if (planckian) data.push(...planckianTraces(obs, space, planckian, range, notes));
+  if (planckian) data.push(...planckianTraces(obs, space, planckian, range, range !== WHOLE[space], notes));
   const wantDaylight = options.daylight ?? obs.fieldDegrees === 2;
   if (wantDaylight) {
     if (obs.fieldDegrees !== 2) throw new Error("chromaticity diagram: the CIE daylight locus is defined for the CIE 1931 2° observer (CIE 015:2018 §4.1.2); turn `daylight` off for the 10° observer");

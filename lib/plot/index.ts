@@ -7,3 +7,4 @@ export type { ChromaticityInput } from "./chromaticity-input.ts";
 export type { DisplayGamut } from "./display-rgb.ts";
 export * from "./spectrum-plot.ts";
 export * from "./lab-plots.ts";
+export * from "./swatch.ts";

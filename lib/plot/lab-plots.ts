@@ -7,6 +7,7 @@ import { lchFromLab, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { encodeRgb, hexFromEncoded, linearRgb } from "./display-rgb.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
+import { D65_WHITE_Y100 } from "./display-white.ts";
 import { plotFigure, roundForDisplay, type PlotFigure, type PlotTrace } from "./figure.ts";
 import { FIGURE_HEIGHTS, FONT_FAMILY, INK, SERIES_MARKERS, houseAxis, houseConfig, houseLayout } from "./style.ts";
 
@@ -37,15 +38,13 @@ export interface LabPlotOptions {
   height?: number;
 }
 
-/** D65 white on the Y = 100 scale from the sRGB white chromaticity (0.3127, 0.3290), IEC 61966-2-1. */
-const D65_DISPLAY_WHITE = { X: (0.3127 / 0.329) * 100, Y: 100, Z: ((1 - 0.3127 - 0.329) / 0.329) * 100 };
 
 /**
  * An approximate sRGB #rrggbb for a CIELAB colour, for marker fills only: the L*a*b* values are read as if relative
  * to the D65 display white (so no chromatic adaptation is modelled) and channels are clipped to 0–1.
  */
 export function labDisplayHex(lab: Lab): string {
-  const xyz = xyzFromLab(lab, D65_DISPLAY_WHITE);
+  const xyz = xyzFromLab(lab, D65_WHITE_Y100);
   const rgb = linearRgb({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [number, number, number];
   return hexFromEncoded(encodeRgb(rgb, "sRGB"));
 }

@@ -1,0 +1,186 @@
+/**
+ * Colour-accurate swatches for the report: each colour becomes an sRGB hex (clipped, drawn everywhere) and, when it
+ * lies outside sRGB, a wide-gamut CSS colour `color(display-p3 r g b)` or `color(rec2020 r g b)` (CSS Color Module
+ * Level 4, predefined colour spaces) so wide-gamut screens show it right. A patch outside the
+ * chosen display gamut is marked. The records are plain data matching the runner's swatch record (cells/records.ts)
+ * with extra fields (inGamut, outOfDisplayGamut, display) that a report may use.
+ */
+import { labFromXYZ, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
+import type { Tristimulus } from "../colorimetry/chromaticity.ts";
+import { tristimulus, whitePoint } from "../colorimetry/tristimulus.ts";
+import { deltaE2000 } from "../difference/delta-e-2000.ts";
+import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { DISPLAY_GAMUTS, DISPLAY_PRIMARIES, encodeRgb, hexFromEncoded, insideCube, linearRgb, rgbToXyzMatrix, type DisplayGamut } from "./display-rgb.ts";
+import { adaptToD65 } from "./bradford.ts";
+import { D65_WHITE_Y100 } from "./display-white.ts";
+
+/** One swatch: what `showSwatches` draws. */
+export interface Swatch {
+  readonly label: string;
+  /** sRGB #rrggbb, channels clipped to 0–1. */
+  readonly hex: string;
+  /**
+   * The wide-gamut CSS colour, present only when the colour lies outside sRGB: color(display-p3 …) when Display P3
+   * holds it, else color(rec2020 …) (clipped to BT.2020 when even that cannot). The best CSS colour is `css ?? hex`.
+   */
+  readonly css?: string;
+  /** True when the colour lies outside sRGB (the runner's meaning: the hex is an approximation). */
+  readonly outOfGamut: boolean;
+  readonly inGamut: { readonly sRGB: boolean; readonly displayP3: boolean; readonly bt2020: boolean };
+  /** The display gamut the swatch was made for. */
+  readonly display: DisplayGamut;
+  /** True when the colour lies outside that display's gamut: no screen of that kind can show it exactly. */
+  readonly outOfDisplayGamut: boolean;
+  readonly note?: string;
+}
+
+/**
+ * A colour as swatches accept it: tristimulus values on the Y = 100 scale with their reference white (default
+ * D65), CIELAB with its reference white (default D65), an sRGB hex, or a reflectance/transmittance spectrum
+ * (computed under D65 with the CIE 1931 observer unless `illuminant` is given in the options).
+ */
+export type SwatchColour = { readonly XYZ: Tristimulus; readonly white?: Tristimulus } | { readonly lab: Lab; readonly white?: Tristimulus } | { readonly hex: string } | Spectrum;
+
+export interface SwatchOptions {
+  /** The display the report is meant for: "sRGB" (default), "Display P3" or "BT.2020"; patches outside it are marked. */
+  display?: DisplayGamut;
+  /** Illuminant for spectra (default "D65"). Their colour is then adapted to D65 for display (Bradford). */
+  illuminant?: string;
+}
+
+/** D65 on the Y = 100 scale from the chromaticity the display standards use (x = 0.3127, y = 0.3290; IEC 61966-2-1). */
+export const D65_DISPLAY_WHITE: Tristimulus = D65_WHITE_Y100;
+
+const HEX = /^#?([0-9a-f]{6})$/i;
+
+function decodeSrgb(v: number): number {
+  return v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
+}
+
+/** XYZ (Y = 100 for white) of an sRGB hex, by IEC 61966-2-1:1999 eqs. (1)–(3) with the matrix from its primaries. */
+export function xyzFromHex(hex: string): Tristimulus {
+  const m = HEX.exec(String(hex).trim());
+  if (!m) throw new Error(`swatch: "${hex}" is not an sRGB hex colour like #1a2b3c`);
+  const n = parseInt(m[1]!, 16);
+  const [r, g, b] = [(n >> 16) & 255, (n >> 8) & 255, n & 255].map((c) => decodeSrgb(c / 255)) as [number, number, number];
+  const M = rgbToXyzMatrix(DISPLAY_PRIMARIES.sRGB);
+  return { X: 100 * (M[0] * r + M[1] * g + M[2] * b), Y: 100 * (M[3] * r + M[4] * g + M[5] * b), Z: 100 * (M[6] * r + M[7] * g + M[8] * b) };
+}
+
+function checkTristimulus(t: Tristimulus, what: string): Tristimulus {
+  if (!t || typeof t !== "object" || ![t.X, t.Y, t.Z].every((v) => typeof v === "number" && Number.isFinite(v))) {
+    throw new Error(`${what}: ${JSON.stringify(t)} must be {X, Y, Z} with finite numbers`);
+  }
+  return t;
+}
+
+/** The colour's XYZ and its reference white (both Y = 100 scale). */
+export function swatchTristimulus(colour: SwatchColour, options: SwatchOptions = {}, what = "swatch"): { XYZ: Tristimulus; white: Tristimulus } {
+  if (isSpectrum(colour)) {
+    const ill = options.illuminant ?? "D65";
+    const white = whitePoint({ illuminant: ill });
+    return { XYZ: tristimulus(colour, { illuminant: ill }), white };
+  }
+  if (colour && typeof colour === "object") {
+    if ("XYZ" in colour) return { XYZ: checkTristimulus(colour.XYZ, `${what} XYZ`), white: checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`) };
+    if ("lab" in colour) {
+      const white = checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`);
+      const lab = colour.lab;
+      if (!lab || ![lab.L, lab.a, lab.b].every((v) => typeof v === "number" && Number.isFinite(v))) throw new Error(`${what}: L*a*b* ${JSON.stringify(lab)} must be three finite numbers`);
+      return { XYZ: xyzFromLab(lab, white), white };
+    }
+    if ("hex" in colour) return { XYZ: xyzFromHex(colour.hex), white: D65_DISPLAY_WHITE };
+  }
+  throw new Error(`${what}: ${JSON.stringify(colour)?.slice(0, 80)} is not a colour; give {XYZ}, {lab}, {hex} or a reflectance spectrum`);
+}
+
+function cssNumber(v: number): string {
+  return String(Math.round(Math.min(1, Math.max(0, v)) * 10000) / 10000);
+}
+
+const GAMUT_WORDS: Record<DisplayGamut, string> = { sRGB: "sRGB", "Display P3": "Display P3", "BT.2020": "BT.2020" };
+
+/** One swatch for a colour, for the chosen display gamut. */
+export function swatch(label: string, colour: SwatchColour, options: SwatchOptions & { note?: string } = {}): Swatch {
+  if (typeof label !== "string") throw new Error(`swatch: label must be a string, got ${String(label)}`);
+  const display = options.display ?? "sRGB";
+  if (!DISPLAY_GAMUTS.includes(display)) throw new Error(`swatch "${label}": display "${display}" must be one of ${DISPLAY_GAMUTS.join(", ")}`);
+  const { XYZ, white } = swatchTristimulus(colour, options, `swatch "${label}"`);
+  if (!(white.Y > 0)) throw new Error(`swatch "${label}": the reference white has Y = ${white.Y}; it must be positive`);
+  // Relative to the display white: adapt from the colour's white to D65 (Bradford), then scale so white has Y = 1.
+  const d65 = adaptToD65(XYZ, white);
+  const rel = { X: d65.X / white.Y, Y: d65.Y / white.Y, Z: d65.Z / white.Y };
+  const lin = { sRGB: linearRgb(rel, "sRGB"), "Display P3": linearRgb(rel, "Display P3"), "BT.2020": linearRgb(rel, "BT.2020") };
+  const inGamut = { sRGB: insideCube(lin.sRGB), displayP3: insideCube(lin["Display P3"]), bt2020: insideCube(lin["BT.2020"]) };
+  const clip = (v: readonly number[]) => v.map((c) => Math.min(1, Math.max(0, c))) as [number, number, number];
+  const hex = hexFromEncoded(encodeRgb(clip(lin.sRGB), "sRGB"));
+  let css: string | undefined;
+  if (inGamut.sRGB) css = undefined;
+  else if (inGamut.displayP3) css = `color(display-p3 ${encodeRgb(clip(lin["Display P3"]), "Display P3").map(cssNumber).join(" ")})`;
+  else css = `color(rec2020 ${encodeRgb(clip(lin["BT.2020"]), "BT.2020").map(cssNumber).join(" ")})`;
+  const outOfDisplay = !(display === "sRGB" ? inGamut.sRGB : display === "Display P3" ? inGamut.displayP3 : inGamut.bt2020);
+  const remarks: string[] = [];
+  if (options.note) remarks.push(options.note);
+  if (outOfDisplay) remarks.push(`outside ${GAMUT_WORDS[display]}: shown clipped`);
+  else if (!inGamut.sRGB) remarks.push(`outside sRGB, inside ${inGamut.displayP3 ? "Display P3" : "BT.2020"}`);
+  if (!inGamut.bt2020 && display !== "BT.2020") remarks.push("outside BT.2020");
+  return {
+    label,
+    hex,
+    ...(css ? { css } : {}),
+    outOfGamut: !inGamut.sRGB,
+    inGamut,
+    display,
+    outOfDisplayGamut: outOfDisplay,
+    ...(remarks.length > 0 ? { note: remarks.join("; ") } : {}),
+  };
+}
+
+/** A labelled colour for a grid of swatches. */
+export interface SwatchEntry {
+  readonly label: string;
+  readonly colour: SwatchColour;
+  readonly note?: string;
+}
+
+/** Swatches for a set of colours (show them with `showSwatches(grid, caption)` or `show(grid)`). */
+export function swatchGrid(entries: readonly SwatchEntry[], options: SwatchOptions = {}): Swatch[] {
+  if (!Array.isArray(entries)) throw new Error("swatchGrid: expected an array of { label, colour }");
+  return entries.map((e, i) => {
+    if (!e || typeof e.label !== "string") throw new Error(`swatchGrid: entry ${i + 1} needs a label and a colour`);
+    return swatch(e.label, e.colour, { ...options, note: e.note });
+  });
+}
+
+/** A reference and a sample to compare. */
+export interface SwatchPairEntry {
+  readonly label: string;
+  readonly reference: SwatchColour;
+  readonly sample: SwatchColour;
+}
+
+function labOf(c: SwatchColour, options: SwatchOptions, what: string): { lab: Lab; white: Tristimulus } {
+  if (!isSpectrum(c) && "lab" in c) return { lab: c.lab, white: c.white ?? D65_DISPLAY_WHITE };
+  const t = swatchTristimulus(c, options, what);
+  return { lab: labFromXYZ(t.XYZ, t.white), white: t.white };
+}
+
+/**
+ * Reference/sample pairs: two swatches per pair, side by side, the sample's note giving ΔE00 (CIEDE2000,
+ * CIE 142-2001, via lib/difference) computed from CIELAB with the pair's common reference white.
+ */
+export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOptions = {}): Swatch[] {
+  if (!Array.isArray(pairs)) throw new Error("swatchPairs: expected an array of { label, reference, sample }");
+  const out: Swatch[] = [];
+  pairs.forEach((p, i) => {
+    if (!p || typeof p.label !== "string") throw new Error(`swatchPairs: pair ${i + 1} needs a label, a reference and a sample`);
+    const r = labOf(p.reference, options, `pair "${p.label}" reference`);
+    const s = labOf(p.sample, options, `pair "${p.label}" sample`);
+    const sameWhite = Math.abs(r.white.X - s.white.X) < 1e-6 * r.white.Y && Math.abs(r.white.Y - s.white.Y) < 1e-9 * r.white.Y + 1e-9 && Math.abs(r.white.Z - s.white.Z) < 1e-6 * r.white.Y;
+    if (!sameWhite) throw new Error(`swatchPairs: pair "${p.label}" has different reference whites for reference and sample; ΔE00 needs one white`);
+    const de = deltaE2000(r.lab, s.lab);
+    out.push(swatch(`${p.label} reference`, p.reference, options));
+    out.push(swatch(`${p.label} sample`, p.sample, { ...options, note: `ΔE00 = ${de.toFixed(2)}` }));
+  });
+  return out;
+}
