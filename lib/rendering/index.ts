@@ -1,2 +1,2 @@
-/** Barrel for lib/rendering (re-exports only). */
-export {};
+/** Barrel for lib/rendering (re-exports only): colour rendering and metamerism. */
+export * from "./colour-rendering-index.ts";
