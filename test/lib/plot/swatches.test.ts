@@ -1,0 +1,139 @@
+/**
+ * Swatches: sRGB hex and wide-gamut CSS colours checked against colorjs.io (an independent implementation of the
+ * CSS Color 4 conversions, from the npm registry), gamut marks, and ΔE00 of pairs against Sharma, Wu & Dalal (2005).
+ */
+import Color from "colorjs.io";
+import { describe, expect, it } from "vitest";
+import type { SwatchRecord } from "../../../cells/records.ts";
+import { swatch, swatchGrid, swatchPairs } from "../../../lib/plot/index.ts";
+import { spectrum } from "../../../lib/spectrum/spectrum.ts";
+import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "../reference-data.ts";
+
+const xyzOf = (space: string, coords: [number, number, number]) => {
+  const [X, Y, Z] = new Color(space, coords).to("xyz-d65").coords as [number, number, number];
+  return { X: X * 100, Y: Y * 100, Z: Z * 100 };
+};
+const hexOf = (rgb: number[]) => "#" + rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, "0")).join("");
+const cssNumbers = (css: string) => css.replace(/^color\([a-z0-9-]+ /, "").replace(")", "").split(" ").map(Number);
+const channelDistance = (a: string, b: string) =>
+  Math.max(...[1, 3, 5].map((i) => Math.abs(parseInt(a.slice(i, i + 2), 16) - parseInt(b.slice(i, i + 2), 16))));
+
+describe("colours inside sRGB", () => {
+  it("a CIELAB (D65) colour gets the sRGB hex colorjs.io computes, no wide-gamut CSS and no mark", () => {
+    const lab = { L: 52, a: 41.5, b: 27 };
+    const s = swatch("terracotta (invented)", { lab });
+    const ref = hexOf(new Color("lab-d65", [lab.L, lab.a, lab.b]).to("srgb").coords as number[]);
+    expect(channelDistance(s.hex, ref)).toBeLessThanOrEqual(1);
+    expect(s.css).toBeUndefined();
+    expect(s.outOfGamut).toBe(false);
+    expect(s.inGamut).toEqual({ sRGB: true, displayP3: true, bt2020: true });
+    expect(s.outOfDisplayGamut).toBe(false);
+  });
+
+  it("an sRGB hex comes back as itself (IEC 61966-2-1 decoding and encoding are inverse)", () => {
+    for (const hex of ["#8a4b2f", "#000000", "#ffffff", "#10e0a0"]) expect(swatch("h", { hex }).hex).toBe(hex);
+  });
+
+  it("CIELAB relative to D50 is adapted to D65 by Bradford, as colorjs.io does for its D50 lab space", () => {
+    const lab = { L: 60, a: 20, b: -30 };
+    // colorjs.io's "lab" is relative to D50 with x = 0.3457, y = 0.3585 and adapts to D65 with the Bradford matrix.
+    const white = { X: (0.3457 / 0.3585) * 100, Y: 100, Z: ((1 - 0.3457 - 0.3585) / 0.3585) * 100 };
+    const s = swatch("d50", { lab, white });
+    const ref = hexOf(new Color("lab", [lab.L, lab.a, lab.b]).to("srgb").coords as number[]);
+    expect(channelDistance(s.hex, ref)).toBeLessThanOrEqual(1);
+  });
+
+  it("a flat 50 % reflectance under D65 is the mid grey with sRGB value 188 (IEC 61966-2-1 encoding of 0.5)", () => {
+    const grey = spectrum([360, 400, 500, 600, 700, 830], [0.5, 0.5, 0.5, 0.5, 0.5, 0.5], { name: "grey (invented)", quantity: "reflectance" });
+    const s = swatch("grey", grey);
+    for (const i of [1, 3, 5]) expect(Math.abs(parseInt(s.hex.slice(i, i + 2), 16) - 188)).toBeLessThanOrEqual(1);
+  });
+});
+
+describe("wide-gamut colours", () => {
+  it("a colour inside Display P3 but outside sRGB is written as color(display-p3 …) with colorjs.io's numbers", () => {
+    const p3: [number, number, number] = [0.2, 0.8, 0.2];
+    const s = swatch("P3 green", { XYZ: xyzOf("p3", p3) }, { display: "Display P3" });
+    expect(s.inGamut).toEqual({ sRGB: false, displayP3: true, bt2020: true });
+    expect(s.css).toMatch(/^color\(display-p3 [0-9.]+ [0-9.]+ [0-9.]+\)$/);
+    cssNumbers(s.css!).forEach((v, i) => expect(v).toBeCloseTo(p3[i]!, 3));
+    expect(s.outOfGamut).toBe(true);
+    expect(s.outOfDisplayGamut).toBe(false);
+    // The hex is the sRGB clip colorjs.io gives for the same colour.
+    const clipped = hexOf(new Color("p3", p3).to("srgb").coords as number[]);
+    expect(channelDistance(s.hex, clipped)).toBeLessThanOrEqual(1);
+  });
+
+  it("the same colour is marked when the chosen display is sRGB", () => {
+    const s = swatch("P3 green", { XYZ: xyzOf("p3", [0.2, 0.8, 0.2]) }, { display: "sRGB" });
+    expect(s.outOfDisplayGamut).toBe(true);
+    expect(s.note).toMatch(/outside sRGB: shown clipped/);
+  });
+
+  it("a colour outside Display P3 but inside BT.2020 is written as color(rec2020 …) with the BT.2020 OETF numbers", () => {
+    // colorjs.io's "--rec2020-oetf" space encodes with ITU-R BT.2020-2 Table 4, which is what CSS `rec2020` meant when
+    // Chromium implemented it (the browser test reads it back); colorjs.io's own "rec2020" follows a later draft
+    // with a pure 2.4 gamma.
+    const oetf: [number, number, number] = [0.15, 0.9, 0.1];
+    const xyz = xyzOf("--rec2020-oetf", oetf);
+    const s = swatch("BT.2020 green", { XYZ: xyz }, { display: "Display P3" });
+    expect(s.inGamut).toEqual({ sRGB: false, displayP3: false, bt2020: true });
+    expect(s.css).toMatch(/^color\(rec2020 /);
+    cssNumbers(s.css!).forEach((v, i) => expect(v).toBeCloseTo(oetf[i]!, 3));
+    expect(s.outOfDisplayGamut).toBe(true);
+    expect(s.note).toMatch(/outside Display P3: shown clipped/);
+    expect(swatch("BT.2020 green", { XYZ: xyz }, { display: "BT.2020" }).outOfDisplayGamut).toBe(false);
+  });
+
+  it("a spectral colour (520 nm) lies outside all three gamuts and is marked for every display", () => {
+    // x̄, ȳ, z̄ at 520 nm of the CIE 1931 observer: 0.06327, 0.71000, 0.07825 (CIE 018:2019 Table 6, recalled from memory).
+    const xyz = { X: 6.327, Y: 71.0, Z: 7.825 };
+    for (const display of ["sRGB", "Display P3", "BT.2020"] as const) {
+      const s = swatch("520 nm", { XYZ: xyz }, { display });
+      expect(s.inGamut).toEqual({ sRGB: false, displayP3: false, bt2020: false });
+      expect(s.outOfDisplayGamut).toBe(true);
+      expect(s.css).toMatch(/^color\(rec2020 /);
+      cssNumbers(s.css!).forEach((v) => expect(v >= 0 && v <= 1).toBe(true));
+    }
+  });
+
+  it("swatches fit the runner's swatch record type and are plain JSON", () => {
+    const records: SwatchRecord[] = swatchGrid([
+      { label: "a", colour: { hex: "#336699" } },
+      { label: "b", colour: { XYZ: xyzOf("p3", [0.9, 0.1, 0.1]) }, note: "invented" },
+    ]);
+    expect(JSON.parse(JSON.stringify(records))).toEqual(records);
+    expect(records[1]!.note).toMatch(/^invented; outside sRGB/);
+  });
+
+  it("a colour that is not a colour is an error naming the swatch", () => {
+    expect(() => swatch("x", { hex: "red" })).toThrow(/"red" is not an sRGB hex/);
+    expect(() => swatch("y", { lab: { L: 50, a: Number.NaN, b: 0 } })).toThrow(/swatch "y"/);
+    expect(() => swatch("z", { XYZ: { X: 1, Y: 1, Z: 1 } }, { display: "Rec.709" as "sRGB" })).toThrow(/display "Rec.709"/);
+  });
+});
+
+describe.skipIf(!HAVE_REFERENCE)(`reference/sample pairs (${HAVE_REFERENCE ? "reference present" : NO_REFERENCE})`, () => {
+  it("each sample's note gives ΔE00 as Sharma, Wu & Dalal (2005) Table 1 does, for all 34 pairs", () => {
+    const t = readReferenceCsv("sharma_ciede2000.csv");
+    const [L1, a1, b1, L2, a2, b2, dE] = ["L1", "a1", "b1", "L2", "a2", "b2", "dE00"].map((c) => t.column(c));
+    const pairs = L1!.map((_, i) => ({
+      label: `pair ${i + 1}`,
+      reference: { lab: { L: L1![i]!, a: a1![i]!, b: b1![i]! } },
+      sample: { lab: { L: L2![i]!, a: a2![i]!, b: b2![i]! } },
+    }));
+    const out = swatchPairs(pairs);
+    expect(out).toHaveLength(68);
+    out.forEach((s, k) => {
+      if (k % 2 === 0) return expect(s.label).toBe(`pair ${k / 2 + 1} reference`);
+      const shown = Number(/ΔE00 = ([0-9.]+)/.exec(s.note!)![1]);
+      expect(Math.abs(shown - dE![(k - 1) / 2]!)).toBeLessThanOrEqual(0.0051);
+    });
+  });
+
+  it("a pair whose members have different reference whites is refused", () => {
+    expect(() =>
+      swatchPairs([{ label: "p", reference: { lab: { L: 50, a: 0, b: 0 } }, sample: { lab: { L: 50, a: 0, b: 0 }, white: { X: 96.42, Y: 100, Z: 82.51 } } }]),
+    ).toThrow(/different reference whites/);
+  });
+});
