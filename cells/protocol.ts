@@ -81,8 +81,8 @@ export type FromCellProcess = ReadyMessage | OutputMessage | CellDoneMessage | F
 export interface CellRuntime {
   /** Makes sure each shared name exists as a writable global before the cell assigns it. */
   declare(names: readonly string[]): void;
-  /** Sets a shared binding (used for function declarations, which stay hoisted inside the cell). */
-  share(name: string, value: unknown): void;
+  /** Makes each [name, get, set] a global accessor of the cell's own binding, for the cells after it. */
+  link(bindings: readonly (readonly [string, () => unknown, (value: unknown) => void])[]): void;
   /** The namespace of the cell's import number `i` (loaded before the cell runs). */
   imported(i: number): Record<string, unknown>;
   /** The "tristim" module namespace. */

@@ -162,9 +162,14 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
     declare(names) {
       for (const name of names) declareGlobal(name);
     },
-    share(name, value) {
-      declareGlobal(name);
-      (globalThis as Record<string, unknown>)[name] = value;
+    link(bindings) {
+      for (const [name, get, set] of bindings) {
+        const d = Object.getOwnPropertyDescriptor(globalThis, name);
+        if (d && !d.configurable) {
+          throw new TypeError(`the cell declares "${name}", a built-in global that cannot be replaced; choose another name`);
+        }
+        Object.defineProperty(globalThis, name, { get, set, configurable: true, enumerable: true });
+      }
     },
     imported(i) {
       return namespaces[`m${i}`]!;

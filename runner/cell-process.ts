@@ -30,11 +30,10 @@ export class CellProcess {
   private listeners = new Set<(message: FromCellProcess) => void>();
   private exitListeners = new Set<() => void>();
 
-  private constructor(
-    runtime: RuntimeBundle,
-    notebookPath: string,
-    private readonly onOutput: (cell: number, records: readonly OutputRecord[]) => void,
-  ) {
+  /** Receives the records of running cells (set by whoever runs the cells). */
+  onOutput: (cell: number, records: readonly OutputRecord[]) => void = () => undefined;
+
+  private constructor(runtime: RuntimeBundle, notebookPath: string) {
     this.child = spawn(process.execPath, [runtime.worker], {
       cwd: path.dirname(notebookPath),
       stdio: ["ignore", "pipe", "pipe", "ipc"],
@@ -64,10 +63,9 @@ export class CellProcess {
     runtime: RuntimeBundle,
     notebookPath: string,
     inputs: Readonly<Record<string, InputValue>>,
-    onOutput: (cell: number, records: readonly OutputRecord[]) => void,
     signal?: AbortSignal,
   ): Promise<CellProcess> {
-    const cell = new CellProcess(runtime, notebookPath, onOutput);
+    const cell = new CellProcess(runtime, notebookPath);
     cell.send({ type: "init", notebookPath, inputs });
     const answer = await cell.wait((m) => m.type === "ready" || m.type === "startup-failed", STARTUP_LIMIT_MS, signal);
     if (answer === "timeout") {

@@ -2,9 +2,10 @@
  * Turns the JavaScript of one cell (types already removed by esbuild) into a function expression that the cell
  * process can run after the cells before it:
  *
- *   - top-level `const` / `let` / `var` / `class` become assignments to shared bindings (globals of the cell
- *     process), so later cells see them and may declare the same name again;
- *   - top-level functions stay hoisted inside the cell and are also shared;
+ *   - top-level `const` / `let` / `var` / `function` / `class` stay as they are, local to the cell's function (so
+ *     code in the cell runs as fast as in a plain module), and each is linked to a global accessor of the cell
+ *     process that reads and writes that binding, so later cells see it; a later cell that declares the same name
+ *     links the global to its own binding (closures of earlier cells keep theirs, as in a REPL);
  *   - `import` declarations become reads from namespaces the runner bundled beforehand ("tristim" reads the one
  *     loaded library);
  *   - the body runs inside an async function, so top-level `await` works;
@@ -66,7 +67,7 @@ export function hoistCell(js: string): HoistedCell {
   }) as unknown as { body: AnyNode[] };
   const edits: Edit[] = [];
   const shared = new Set<string>();
-  const functions: string[] = [];
+  const linked = new Set<string>();
   const imports: CellImport[] = [];
   const R = RUNTIME_PARAMETER;
   const body = program.body;
@@ -85,32 +86,13 @@ export function hoistCell(js: string): HoistedCell {
         edits.push({ start: node.start, end: node.end, text: rewriteImport(node, imports, js) });
         for (const s of node.specifiers as AnyNode[]) shared.add((s.local as AnyNode).name as string);
         break;
-      case "VariableDeclaration": {
-        const declarations = node.declarations as AnyNode[];
-        const first = declarations[0]!;
-        const last = declarations.at(-1)!;
-        edits.push({ start: node.start, end: first.start, text: ";(" });
-        for (const d of declarations) {
-          for (const name of patternNames(d.id as AnyNode)) shared.add(name);
-          if (!d.init) edits.push({ start: d.end, end: d.end, text: " = void 0" });
-        }
-        edits.push({ start: last.end, end: last.end, text: ")" });
-        if (js[node.end - 1] !== ";") edits.push({ start: node.end, end: node.end, text: ";" });
+      case "VariableDeclaration":
+        for (const d of node.declarations as AnyNode[]) for (const name of patternNames(d.id as AnyNode)) linked.add(name);
         break;
-      }
-      case "FunctionDeclaration": {
-        const name = (node.id as AnyNode).name as string;
-        shared.add(name);
-        functions.push(name);
+      case "FunctionDeclaration":
+      case "ClassDeclaration":
+        linked.add((node.id as AnyNode).name as string);
         break;
-      }
-      case "ClassDeclaration": {
-        const name = (node.id as AnyNode).name as string;
-        shared.add(name);
-        edits.push({ start: node.start, end: node.start, text: `;${name} = ` });
-        edits.push({ start: node.end, end: node.end, text: ";" });
-        break;
-      }
       case "ExpressionStatement":
         if (i === body.length - 1) {
           const expression = node.expression as AnyNode;
@@ -126,10 +108,13 @@ export function hoistCell(js: string): HoistedCell {
     if (n.type === "MetaProperty" && (n.meta as AnyNode).name === "import") edits.push({ start: n.start, end: n.end, text: `${R}.meta` });
   });
 
-  const names = [...shared];
+  for (const name of linked) shared.delete(name);
+  const links = [...linked].map((n) => `[${JSON.stringify(n)}, () => ${n}, (v) => { ${n} = v; }]`);
   const prologue =
-    `(async function (${R}) { "use strict"; ${names.length ? `${R}.declare(${JSON.stringify(names)}); ` : ""}` +
-    functions.map((f) => `${R}.share(${JSON.stringify(f)}, ${f}); `).join("");
+    `(async function (${R}) { "use strict"; ` +
+    (shared.size ? `${R}.declare(${JSON.stringify([...shared])}); ` : "") +
+    (links.length ? `${R}.link([${links.join(", ")}]); ` : "");
+  const names = [...shared, ...linked];
   const { text, anchors } = applyEdits(js, edits, prologue.length);
   return { code: `${prologue}${text}\n})`, sharedNames: names, imports, anchors };
 }

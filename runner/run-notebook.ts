@@ -5,6 +5,7 @@
 import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
+import { CellProcess } from "./cell-process.ts";
 import { compileCells } from "./compile-cell.ts";
 import { executeCells } from "./execute.ts";
 import { resolveInputs } from "./inputs.ts";
@@ -37,6 +38,11 @@ export async function runDocument(document: NotebookDocument, options: RunOption
   const runtime = await runtimeBundle();
   fs.mkdirSync(path.join(cacheRoot(), "runs"), { recursive: true });
   const outDir = fs.mkdtempSync(path.join(cacheRoot(), "runs", `${process.pid}-`));
+  // Start the cell process (node, library) while esbuild compiles the cells.
+  const early = document.cells.some((c) => !c.options.noRun)
+    ? CellProcess.start(runtime, document.path, inputs, options.signal)
+    : undefined;
+  early?.catch(() => undefined);
   try {
     const compiled = await compileCells({ document, tristimModule: runtime.tristim, outDir });
     const execution = await executeCells(document, compiled, runtime, {
@@ -45,6 +51,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       inputs,
       signal: options.signal,
       onCell: options.onCell,
+      started: early,
     });
     return {
       notebook: { path: document.path, sha256: document.sha256 },
@@ -64,6 +71,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),
     };
   } finally {
+    void early?.then((p) => p.kill(), () => undefined);
     fs.rmSync(outDir, { recursive: true, force: true });
   }
 }
