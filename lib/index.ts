@@ -25,6 +25,10 @@ export * from "./colorimetry/cielab.ts";
 // Core colorimetry added by the colorimetry owner below this line.
 export * from "./temperature/planckian-locus.ts";
 export * from "./temperature/cct.ts";
+export * from "./difference/delta-e-76.ts";
+export * from "./difference/delta-e-94.ts";
+export * from "./difference/delta-e-2000.ts";
+export * from "./difference/delta-e-cmc.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
 export * from "./plot/index.ts";

@@ -1,0 +1,144 @@
+/**
+ * CIEDE2000 colour difference ΔE00 (CIE 142-2001; ISO/CIE 11664-6:2014), implemented as in G. Sharma, W. Wu and
+ * E. N. Dalal, "The CIEDE2000 color-difference formula: implementation notes, supplementary test data, and
+ * mathematical observations", Color Res. Appl. 30(1):21–30, 2005 (eqs. 1–22).
+ */
+import type { Lab } from "../colorimetry/cielab.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { requireFactor, requireLab } from "./check-lab.ts";
+
+export interface DeltaE2000Options {
+  /** Parametric factors (default 1 each, the reference conditions of CIE 142-2001). */
+  kL?: number;
+  kC?: number;
+  kH?: number;
+}
+
+/** Every intermediate value of the CIEDE2000 formula, as Sharma, Wu and Dalal (2005) tabulate them (angles in degrees). */
+export interface Ciede2000Terms {
+  readonly aPrime1: number;
+  readonly cPrime1: number;
+  readonly hPrime1: number;
+  readonly aPrime2: number;
+  readonly cPrime2: number;
+  readonly hPrime2: number;
+  readonly hBarPrime: number;
+  readonly G: number;
+  readonly T: number;
+  readonly SL: number;
+  readonly SC: number;
+  readonly SH: number;
+  readonly RT: number;
+  readonly deltaLPrime: number;
+  readonly deltaCPrime: number;
+  readonly deltaHPrime: number;
+  readonly deltaE: number;
+}
+
+const DEG = Math.PI / 180;
+const TWENTY_FIVE_7 = 6103515625; // 25⁷
+const TWO_PI = 2 * Math.PI;
+
+/** The CIEDE2000 formula with all its intermediate values (Sharma, Wu & Dalal 2005, eqs. 1–22). */
+export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Options = {}): Ciede2000Terms {
+  requireLab("deltaE2000", "first", first);
+  requireLab("deltaE2000", "second", second);
+  const kL = options.kL ?? 1, kC = options.kC ?? 1, kH = options.kH ?? 1;
+  requireFactor("deltaE2000", "kL", kL);
+  requireFactor("deltaE2000", "kC", kC);
+  requireFactor("deltaE2000", "kH", kH);
+  noteDe2000(kL, kC, kH);
+  return compute(first.L, first.a, first.b, second.L, second.a, second.b, kL, kC, kH, true) as Ciede2000Terms;
+}
+
+/** ΔE00 between two CIELAB colours, with optional parametric factors kL, kC, kH (CIE 142-2001; Sharma et al. 2005). */
+export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options): number {
+  const L1 = first?.L, a1 = first?.a, b1 = first?.b, L2 = second?.L, a2 = second?.a, b2 = second?.b;
+  if (!(Number.isFinite(L1) && Number.isFinite(a1) && Number.isFinite(b1))) requireLab("deltaE2000", "first", first);
+  if (!(Number.isFinite(L2) && Number.isFinite(a2) && Number.isFinite(b2))) requireLab("deltaE2000", "second", second);
+  let kL = 1, kC = 1, kH = 1;
+  if (options !== undefined) {
+    kL = options.kL ?? 1;
+    kC = options.kC ?? 1;
+    kH = options.kH ?? 1;
+    requireFactor("deltaE2000", "kL", kL);
+    requireFactor("deltaE2000", "kC", kC);
+    requireFactor("deltaE2000", "kH", kH);
+  }
+  noteDe2000(kL, kC, kH);
+  return compute(L1, a1, b1, L2, a2, b2, kL, kC, kH, false) as number;
+}
+
+function noteDe2000(kL: number, kC: number, kH: number): void {
+  if (kL === 1 && kC === 1 && kH === 1) {
+    noteMethod("colour difference", "Colour differences ΔE00 by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6), kL = kC = kH = 1.");
+  } else {
+    noteMethod("colour difference", `Colour differences ΔE00 by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6), kL = ${kL}, kC = ${kC}, kH = ${kH}.`);
+  }
+}
+
+function compute(L1: number, a1: number, b1: number, L2: number, a2: number, b2: number, kL: number, kC: number, kH: number, terms: boolean): number | Ciede2000Terms {
+  // Eqs. 2–7: a′, C′, h′.
+  const cBar = (Math.sqrt(a1 * a1 + b1 * b1) + Math.sqrt(a2 * a2 + b2 * b2)) / 2;
+  const cBar7 = cBar ** 7;
+  const G = 0.5 * (1 - Math.sqrt(cBar7 / (cBar7 + TWENTY_FIVE_7)));
+  const ap1 = (1 + G) * a1, ap2 = (1 + G) * a2;
+  const cp1 = Math.sqrt(ap1 * ap1 + b1 * b1), cp2 = Math.sqrt(ap2 * ap2 + b2 * b2);
+  let hp1 = ap1 === 0 && b1 === 0 ? 0 : Math.atan2(b1, ap1);
+  if (hp1 < 0) hp1 += TWO_PI;
+  let hp2 = ap2 === 0 && b2 === 0 ? 0 : Math.atan2(b2, ap2);
+  if (hp2 < 0) hp2 += TWO_PI;
+  // Eqs. 8–11: ΔL′, ΔC′, Δh′, ΔH′.
+  const dLp = L2 - L1;
+  const dCp = cp2 - cp1;
+  const cpProduct = cp1 * cp2;
+  let dhp = 0;
+  if (cpProduct !== 0) {
+    dhp = hp2 - hp1;
+    if (dhp > Math.PI) dhp -= TWO_PI;
+    else if (dhp < -Math.PI) dhp += TWO_PI;
+  }
+  const dHp = 2 * Math.sqrt(cpProduct) * Math.sin(dhp / 2);
+  // Eqs. 12–14: means L̄′, C̄′, h̄′.
+  const lBar = (L1 + L2) / 2;
+  const cpBar = (cp1 + cp2) / 2;
+  let hpBar = hp1 + hp2;
+  if (cpProduct !== 0) {
+    if (Math.abs(hp1 - hp2) <= Math.PI) hpBar /= 2;
+    else if (hpBar < TWO_PI) hpBar = (hpBar + TWO_PI) / 2;
+    else hpBar = (hpBar - TWO_PI) / 2;
+  }
+  // Eqs. 15–22: weighting functions and the rotation term.
+  const T = 1 - 0.17 * Math.cos(hpBar - 30 * DEG) + 0.24 * Math.cos(2 * hpBar) + 0.32 * Math.cos(3 * hpBar + 6 * DEG) - 0.2 * Math.cos(4 * hpBar - 63 * DEG);
+  const hd = (hpBar / DEG - 275) / 25;
+  const dTheta = 30 * DEG * Math.exp(-hd * hd);
+  const cpBar7 = cpBar ** 7;
+  const RC = 2 * Math.sqrt(cpBar7 / (cpBar7 + TWENTY_FIVE_7));
+  const l50 = (lBar - 50) * (lBar - 50);
+  const SL = 1 + (0.015 * l50) / Math.sqrt(20 + l50);
+  const SC = 1 + 0.045 * cpBar;
+  const SH = 1 + 0.015 * cpBar * T;
+  const RT = -Math.sin(2 * dTheta) * RC;
+  const tL = dLp / (kL * SL), tC = dCp / (kC * SC), tH = dHp / (kH * SH);
+  const deltaE = Math.sqrt(tL * tL + tC * tC + tH * tH + RT * tC * tH);
+  if (!terms) return deltaE;
+  return {
+    aPrime1: ap1,
+    cPrime1: cp1,
+    hPrime1: hp1 / DEG,
+    aPrime2: ap2,
+    cPrime2: cp2,
+    hPrime2: hp2 / DEG,
+    hBarPrime: hpBar / DEG,
+    G,
+    T,
+    SL,
+    SC,
+    SH,
+    RT,
+    deltaLPrime: dLp,
+    deltaCPrime: dCp,
+    deltaHPrime: dHp,
+    deltaE,
+  };
+}

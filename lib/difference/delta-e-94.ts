@@ -1,0 +1,43 @@
+/** CIE 1994 colour difference ΔE*94 (CIE 116-1995, Industrial colour-difference evaluation). */
+import type { Lab } from "../colorimetry/cielab.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { requireLab } from "./check-lab.ts";
+
+export interface DeltaE94Options {
+  /**
+   * "graphic arts" (default): kL = 1, K1 = 0.045, K2 = 0.015; "textiles": kL = 2, K1 = 0.048, K2 = 0.014
+   * (the weightings given with CIE 116-1995 for the two industries).
+   */
+  application?: "graphic arts" | "textiles";
+}
+
+const WEIGHTS = {
+  "graphic arts": { kL: 1, k1: 0.045, k2: 0.015 },
+  textiles: { kL: 2, k1: 0.048, k2: 0.014 },
+} as const;
+
+/**
+ * ΔE*94 = √((ΔL* ÷ kL·SL)² + (ΔC*ab ÷ SC)² + (ΔH*ab ÷ SH)²), SL = 1, SC = 1 + K1·C*, SH = 1 + K2·C*, with C* the chroma
+ * of the first colour, taken as the reference (standard) as CIE 116-1995 specifies.
+ */
+export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options = {}): number {
+  requireLab("deltaE94", "reference (first)", reference);
+  requireLab("deltaE94", "sample (second)", sample);
+  const application = options.application ?? "graphic arts";
+  const w = WEIGHTS[application];
+  if (!w) throw new Error(`deltaE94: unknown application "${String(application)}"; use "graphic arts" or "textiles"`);
+  noteMethod(
+    "colour difference",
+    `Colour differences ΔE*94 by CIE 116-1995 with the ${application} weights (kL = ${w.kL}, K1 = ${w.k1}, K2 = ${w.k2}); the first colour of each pair is the reference.`,
+  );
+  const c1 = Math.sqrt(reference.a * reference.a + reference.b * reference.b);
+  const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);
+  const dL = reference.L - sample.L;
+  const dC = c1 - c2;
+  const da = reference.a - sample.a, db = reference.b - sample.b;
+  const dH2 = Math.max(da * da + db * db - dC * dC, 0);
+  const sC = 1 + w.k1 * c1;
+  const sH = 1 + w.k2 * c1;
+  const tL = dL / w.kL;
+  return Math.sqrt(tL * tL + (dC / sC) ** 2 + dH2 / (sH * sH));
+}

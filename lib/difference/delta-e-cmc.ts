@@ -1,0 +1,41 @@
+/** CMC l:c colour difference (F. J. J. Clarke, R. McDonald, B. Rigg 1984; BS 6923:1988; ISO 105-J03:2009). */
+import type { Lab } from "../colorimetry/cielab.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { requireFactor, requireLab } from "./check-lab.ts";
+
+export interface DeltaECMCOptions {
+  /** Lightness weight l (default 2, the acceptability ratio 2:1). */
+  l?: number;
+  /** Chroma weight c (default 1). */
+  c?: number;
+}
+
+/**
+ * ΔE CMC(l:c) = √((ΔL* ÷ l·SL)² + (ΔC* ÷ c·SC)² + (ΔH* ÷ SH)²), with SL, SC, SH from the reference (first) colour
+ * (ISO 105-J03:2009 §6; Clarke, McDonald & Rigg, JSDC 100:128–132, 1984).
+ */
+export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions = {}): number {
+  requireLab("deltaECMC", "reference (first)", reference);
+  requireLab("deltaECMC", "sample (second)", sample);
+  const l = options.l ?? 2;
+  const c = options.c ?? 1;
+  requireFactor("deltaECMC", "l", l);
+  requireFactor("deltaECMC", "c", c);
+  noteMethod("colour difference", `Colour differences ΔE CMC(${l}:${c}) per ISO 105-J03 (Clarke, McDonald & Rigg 1984); the first colour of each pair is the reference.`);
+  const L1 = reference.L;
+  const c1 = Math.sqrt(reference.a * reference.a + reference.b * reference.b);
+  const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);
+  let h1 = (Math.atan2(reference.b, reference.a) * 180) / Math.PI;
+  if (h1 < 0) h1 += 360;
+  const dL = L1 - sample.L;
+  const dC = c1 - c2;
+  const da = reference.a - sample.a, db = reference.b - sample.b;
+  const dH2 = Math.max(da * da + db * db - dC * dC, 0);
+  const sL = L1 < 16 ? 0.511 : (0.040975 * L1) / (1 + 0.01765 * L1);
+  const sC = (0.0638 * c1) / (1 + 0.0131 * c1) + 0.638;
+  const c14 = c1 ** 4;
+  const f = Math.sqrt(c14 / (c14 + 1900));
+  const t = h1 >= 164 && h1 <= 345 ? 0.56 + Math.abs(0.2 * Math.cos(((h1 + 168) * Math.PI) / 180)) : 0.36 + Math.abs(0.4 * Math.cos(((h1 + 35) * Math.PI) / 180));
+  const sH = sC * (f * t + 1 - f);
+  return Math.sqrt((dL / (l * sL)) ** 2 + (dC / (c * sC)) ** 2 + dH2 / (sH * sH));
+}
