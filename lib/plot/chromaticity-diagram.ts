@@ -185,9 +185,12 @@ function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [n
     lt.push(String(locus[i]!.wavelength));
     lpos.push(textPositionFor(n));
   }
-  traces.push(
-    { type: "scatter", mode: "lines", name: "Wavelength ticks", x: tx, y: ty, line: { color: INK.text, width: 1 }, hoverinfo: "skip", showlegend: false },
-    {
+  // Empty traces are left out: Plotly draws nothing for them and they would only weigh on the report.
+  if (ticks.length > 0) {
+    traces.push({ type: "scatter", mode: "lines", name: "Wavelength ticks", x: tx, y: ty, line: { color: INK.text, width: 1 }, hoverinfo: "skip", showlegend: false });
+  }
+  if (kept.length > 0) {
+    traces.push({
       type: "scatter",
       mode: "text",
       name: "Wavelengths (nm)",
@@ -199,8 +202,8 @@ function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [n
       hoverinfo: "skip",
       showlegend: false,
       cliponaxis: false,
-    },
-  );
+    });
+  }
   return traces;
 }
 
@@ -280,7 +283,7 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
         spans,
         zoomed ? 0.05 : 0.09,
       );
-      traces.push({
+      if (kept.length > 0) traces.push({
         type: "scatter",
         mode: "text",
         name: "CCT labels",

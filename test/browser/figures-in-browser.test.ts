@@ -1,0 +1,192 @@
+/**
+ * The figures and swatches of lib/plot, checked in a real browser: the runner CLI renders a fixture notebook to a
+ * report, Chromium (Debian's, driven by playwright-core; no browser download) opens it, and the test asserts that
+ * every figure was drawn by Plotly with the traces its spec holds, that the page logged no errors, and that
+ * wide-gamut swatches carry the CSS colour an independent library (colorjs.io) computes. A screenshot goes to
+ * test/.artifacts/. Skipped, saying why, only when no Chromium is installed.
+ */
+import { execFile } from "node:child_process";
+import { existsSync, mkdirSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { promisify } from "node:util";
+import Color from "colorjs.io";
+import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { encodeRgb, linearRgb } from "../../lib/plot/display-rgb.ts";
+
+const CHROMIUM = "/usr/bin/chromium";
+const HAVE_CHROMIUM = existsSync(CHROMIUM);
+const ROOT = fileURLToPath(new URL("../../", import.meta.url));
+const ARTIFACTS = ROOT + "test/.artifacts/";
+const NOTEBOOK = ROOT + "test/browser/fixtures/figures-and-swatches.md";
+const REPORT = ARTIFACTS + "figures-and-swatches.html";
+const SCREENSHOT = ARTIFACTS + "figures-and-swatches.png";
+
+const SKIP_REASON = `no Chromium at ${CHROMIUM}: install Debian's chromium (apt-get install -y chromium, as .ci/run does) to run the browser test`;
+if (!HAVE_CHROMIUM) console.warn(`test/browser: SKIPPED – ${SKIP_REASON}`);
+
+interface DrawnFigure {
+  specTraces: number;
+  drawnTraces: number;
+  hasSvg: boolean;
+  caption: string;
+}
+
+interface DrawnSwatch {
+  label: string;
+  background: string;
+  style: string;
+  flagged: boolean;
+}
+
+/** Numbers inside a CSS color() function, e.g. "color(display-p3 0.2 0.8 0.2)" → [0.2, 0.8, 0.2]. */
+function colourNumbers(css: string): number[] {
+  const m = /^color\(([a-z0-9-]+) ([^)]*)\)$/.exec(css.trim());
+  if (!m) throw new Error(`"${css}" is not a CSS color() function`);
+  return m[2]!.trim().split(/\s+/).map(Number);
+}
+
+describe.skipIf(!HAVE_CHROMIUM)(`lib/plot figures in Chromium${HAVE_CHROMIUM ? "" : ` (skipped: ${SKIP_REASON})`}`, () => {
+  let browser: Browser;
+  let page: Page;
+  const errors: string[] = [];
+  let figures: DrawnFigure[] = [];
+  let swatches: DrawnSwatch[] = [];
+
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    // The report as a user makes it: the runner's CLI on the fixture notebook.
+    await promisify(execFile)(process.execPath, [ROOT + "runner/bin.mjs", "run", NOTEBOOK, "-o", REPORT], { cwd: ROOT, timeout: 120_000 });
+    browser = await chromium.launch({
+      executablePath: CHROMIUM,
+      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
+    });
+    page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
+    page.on("console", (m) => {
+      if (m.type() === "error") errors.push(`console: ${m.text()}`);
+    });
+    page.on("pageerror", (e) => errors.push(`page: ${e.message}`));
+    page.on("requestfailed", (r) => errors.push(`request failed: ${r.url()}`));
+    await page.goto("file://" + REPORT, { waitUntil: "load" });
+    // Plotly draws synchronously in the report's script; wait until every plot node has its SVG or a failure note.
+    await page.waitForFunction(() => Array.from(document.querySelectorAll(".plot[data-spec]")).every((n) => n.querySelector("svg.main-svg") || n.querySelector(".plot-missing")), undefined, { timeout: 30_000 });
+    figures = await page.$$eval(".plot[data-spec]", (nodes) =>
+      nodes.map((n) => {
+        const spec = JSON.parse(document.getElementById(n.getAttribute("data-spec")!)!.textContent!) as { data: unknown[] };
+        return {
+          specTraces: spec.data.length,
+          drawnTraces: n.querySelectorAll(".scatterlayer .trace").length,
+          hasSvg: n.querySelector("svg.main-svg") !== null && n.querySelector(".plot-missing") === null,
+          caption: n.closest("figure")?.querySelector("figcaption")?.textContent ?? "",
+        };
+      }),
+    );
+    swatches = await page.$$eval(".swatch", (nodes) =>
+      nodes.map((n) => {
+        const chip = n.querySelector(".chip") as HTMLElement;
+        return {
+          label: n.querySelector(".swatch-label")?.textContent ?? "",
+          background: getComputedStyle(chip).backgroundColor,
+          style: chip.getAttribute("style") ?? "",
+          flagged: n.classList.contains("out-of-gamut"),
+        };
+      }),
+    );
+    await page.screenshot({ path: SCREENSHOT, fullPage: true });
+  }, 180_000);
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("draws all six figures of the fixture, each with every trace of its spec", () => {
+    expect(figures).toHaveLength(6);
+    for (const f of figures) {
+      expect(f.hasSvg).toBe(true);
+      expect(f.specTraces).toBeGreaterThan(0);
+      expect(f.drawnTraces).toBe(f.specTraces);
+    }
+  });
+
+  it("draws the raster layers: the colour fill of the chromaticity diagrams and the spectrum band", async () => {
+    const images = await page.$$eval(".plot[data-spec]", (nodes) => nodes.map((n) => n.querySelectorAll("image").length));
+    // Figures 1–2 are chromaticity diagrams with a fill, 3–4 spectrum plots with a band, 5–6 CIELAB views without.
+    expect(images.slice(0, 4).every((k) => k >= 1)).toBe(true);
+    expect(images.slice(4)).toEqual([0, 0]);
+  });
+
+  it("logs no errors and loads nothing that fails", () => {
+    expect(errors).toEqual([]);
+  });
+
+  it("keeps the captions that call the approximate colours approximate", () => {
+    expect(figures[0]!.caption).toMatch(/approximate/);
+    expect(figures[2]!.caption).toMatch(/approximate spectral colours/);
+  });
+
+  it("writes the swatch inside sRGB as its hex colour", () => {
+    const s = swatches.find((w) => w.label === "Inside sRGB")!;
+    expect(s.background).toBe("rgb(138, 75, 47)");
+    expect(s.flagged).toBe(false);
+  });
+
+  it("gives the Display P3 swatch the display-p3 colour colorjs.io computes, and Chromium reads it back so", async () => {
+    const s = swatches.find((w) => w.label === "P3 green")!;
+    // The fixture's XYZ (Y = 100 scale) through colorjs.io's D65 XYZ → Display P3.
+    const expected = new Color("xyz-d65", [0.265, 0.641, 0.112]).to("p3").coords as number[];
+    expect(s.background).toMatch(/^color\(display-p3 /);
+    colourNumbers(s.background).forEach((v, i) => expect(Math.abs(v - expected[i]!)).toBeLessThan(2e-3));
+    expect(s.flagged).toBe(true); // outside sRGB: the runner flags that its hex is an approximation
+    // Chromium's own conversion: draw the colour on a Display P3 canvas and read the pixel.
+    const pixel = await page.evaluate((css) => {
+      const c = document.createElement("canvas");
+      c.width = c.height = 1;
+      const ctx = c.getContext("2d", { colorSpace: "display-p3" })!;
+      ctx.fillStyle = css;
+      ctx.fillRect(0, 0, 1, 1);
+      return [...ctx.getImageData(0, 0, 1, 1, { colorSpace: "display-p3" }).data];
+    }, s.background);
+    expected.forEach((v, i) => expect(Math.abs(pixel[i]! - v * 255)).toBeLessThanOrEqual(2));
+  });
+
+  it("gives the BT.2020 swatches color(rec2020 …) with the BT.2020 OETF numbers colorjs.io computes", () => {
+    const s = swatches.find((w) => w.label === "BT.2020 green")!;
+    const expected = new Color("xyz-d65", [0.17, 0.797, 0.033]).to("--rec2020-oetf").coords as number[];
+    expect(s.background).toMatch(/^color\(rec2020 /);
+    colourNumbers(s.background).forEach((v, i) => expect(Math.abs(v - Math.min(1, Math.max(0, expected[i]!)))).toBeLessThan(2e-3));
+    const spectral = swatches.find((w) => w.label === "520 nm")!;
+    expect(spectral.background).toMatch(/^color\(rec2020 /);
+  });
+
+  it("uses the rec2020 encoding Chromium uses: sRGB #008000 written as color(rec2020 …) reads back as rgb(0, 128, 0)", async () => {
+    // #008000: sRGB green channel 128/255 decoded by IEC 61966-2-1 eq. (2); D65 XYZ of the sRGB primary G
+    // (IEC 61966-2-1 matrix column: 0.3576, 0.7152, 0.1192).
+    const g = ((128 / 255 + 0.055) / 1.055) ** 2.4;
+    const rgb = encodeRgb(linearRgb({ X: 0.3576 * g, Y: 0.7152 * g, Z: 0.1192 * g }, "BT.2020"), "BT.2020");
+    const css = `color(rec2020 ${rgb.map((v) => v.toFixed(5)).join(" ")})`;
+    const pixel = await page.evaluate((c) => {
+      const canvas = document.createElement("canvas");
+      canvas.width = canvas.height = 1;
+      const ctx = canvas.getContext("2d")!;
+      ctx.fillStyle = c;
+      ctx.fillRect(0, 0, 1, 1);
+      return [...ctx.getImageData(0, 0, 1, 1).data].slice(0, 3);
+    }, css);
+    expect(Math.abs(pixel[0]! - 0)).toBeLessThanOrEqual(1);
+    expect(Math.abs(pixel[1]! - 128)).toBeLessThanOrEqual(1);
+    expect(Math.abs(pixel[2]! - 0)).toBeLessThanOrEqual(1);
+  });
+
+  it("marks the patches outside the chosen display (Display P3) in their note", async () => {
+    const notes = await page.$$eval(".swatch", (nodes) => nodes.map((n) => `${n.querySelector(".swatch-label")?.textContent}|${n.querySelector(".swatch-note")?.textContent ?? ""}`));
+    const note = (label: string) => notes.find((n) => n.startsWith(label + "|"))!.split("|")[1]!;
+    expect(note("BT.2020 green")).toMatch(/outside Display P3: shown clipped/);
+    expect(note("520 nm")).toMatch(/outside Display P3: shown clipped; outside BT.2020/);
+    expect(note("P3 green")).not.toMatch(/shown clipped/);
+    expect(note("Chip 1 sample")).toMatch(/ΔE00 = \d+\.\d\d/);
+  });
+
+  it("saved a screenshot of the whole report", () => {
+    expect(existsSync(SCREENSHOT)).toBe(true);
+  });
+});
