@@ -29,6 +29,10 @@ export * from "./difference/delta-e-76.ts";
 export * from "./difference/delta-e-94.ts";
 export * from "./difference/delta-e-2000.ts";
 export * from "./difference/delta-e-cmc.ts";
+export * from "./colorimetry/matrix3.ts";
+export * from "./rgb/transfer-functions.ts";
+export * from "./rgb/rgb-space.ts";
+export * from "./rgb/rgb-conversion.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
 export * from "./plot/index.ts";

@@ -1,0 +1,48 @@
+/** 3 × 3 matrices for linear colour transforms (RGB ↔ XYZ, cone spaces), as plain nested arrays. */
+
+export type Vector3 = readonly [number, number, number];
+export type Matrix3 = readonly [Vector3, Vector3, Vector3];
+
+/** The product m · v. */
+export function applyMatrix3(m: Matrix3, v: Vector3): [number, number, number] {
+  return [
+    m[0][0] * v[0] + m[0][1] * v[1] + m[0][2] * v[2],
+    m[1][0] * v[0] + m[1][1] * v[1] + m[1][2] * v[2],
+    m[2][0] * v[0] + m[2][1] * v[1] + m[2][2] * v[2],
+  ];
+}
+
+/** The product a · b. */
+export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
+  const row = (i: 0 | 1 | 2): Vector3 => [
+    a[i][0] * b[0][0] + a[i][1] * b[1][0] + a[i][2] * b[2][0],
+    a[i][0] * b[0][1] + a[i][1] * b[1][1] + a[i][2] * b[2][1],
+    a[i][0] * b[0][2] + a[i][1] * b[1][2] + a[i][2] * b[2][2],
+  ];
+  return [row(0), row(1), row(2)];
+}
+
+/** The inverse by cofactors; a singular (or nearly singular) matrix is an error naming `what`. */
+export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
+  const [[a, b, c], [d, e, f], [g, h, i]] = m;
+  const A = e * i - f * h, B = -(d * i - f * g), C = d * h - e * g;
+  const det = a * A + b * B + c * C;
+  const scale = Math.max(...m.flat().map(Math.abs));
+  if (!Number.isFinite(det) || Math.abs(det) <= 1e-12 * scale ** 3) {
+    throw new Error(`${what} is singular (determinant ${det}); it cannot be inverted`);
+  }
+  return [
+    [A / det, -(b * i - c * h) / det, (b * f - c * e) / det],
+    [B / det, (a * i - c * g) / det, -(a * f - c * d) / det],
+    [C / det, -(a * h - b * g) / det, (a * e - b * d) / det],
+  ];
+}
+
+/** A diagonal matrix. */
+export function diagonalMatrix3(v: Vector3): Matrix3 {
+  return [
+    [v[0], 0, 0],
+    [0, v[1], 0],
+    [0, 0, v[2]],
+  ];
+}

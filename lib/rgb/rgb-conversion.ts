@@ -1,0 +1,69 @@
+/** Conversions between CIE XYZ and the RGB values of an RGB space, and the gamut test on RGB values. */
+import type { Tristimulus } from "../colorimetry/chromaticity.ts";
+import { applyMatrix3 } from "../colorimetry/matrix3.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import type { RgbSpace } from "./rgb-space.ts";
+import { PQ_PEAK_LUMINANCE, transferFunction } from "./transfer-functions.ts";
+
+export interface Rgb {
+  readonly r: number;
+  readonly g: number;
+  readonly b: number;
+}
+
+/** The XYZ value that maps to linear RGB 1: Y = 100 (relative), except PQ spaces, which take absolute XYZ in cd/m². */
+function xyzScale(space: RgbSpace): number {
+  return space.transfer === "PQ" ? PQ_PEAK_LUMINANCE : 100;
+}
+
+function noteSpace(space: RgbSpace, encoded: boolean): void {
+  const w = space.white;
+  noteMethod(
+    "rgb encoding",
+    `${space.name} RGB (${space.source}): primaries R (${space.primaries.r.x}, ${space.primaries.r.y}), G (${space.primaries.g.x}, ${space.primaries.g.y}), B (${space.primaries.b.x}, ${space.primaries.b.y}), white (${w.x}, ${w.y}); RGB–XYZ matrices derived per SMPTE RP 177-1993${encoded ? `; ${transferFunction(space.transfer).description}` : "; linear values (no transfer function)"}.`,
+  );
+}
+
+/**
+ * RGB of a colour in an RGB space: linear RGB = M⁻¹·XYZ (SMPTE RP 177-1993), then encoded by the space's transfer
+ * function unless `encode: false`. XYZ on the Y = 100 scale (white Y = 100), except PQ spaces: absolute XYZ in cd/m².
+ * XYZ must be relative to the space's white; adapt it first (adaptXYZ) if it is not. Values may fall outside 0–1.
+ */
+export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?: boolean } = {}): Rgb {
+  if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
+    throw new Error(`rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`);
+  }
+  const s = xyzScale(space);
+  const [r, g, b] = applyMatrix3(space.fromXYZ, [xyz.X / s, xyz.Y / s, xyz.Z / s]);
+  const encode = options.encode ?? true;
+  noteSpace(space, encode);
+  if (!encode) return { r, g, b };
+  const t = transferFunction(space.transfer);
+  return { r: t.encode(r), g: t.encode(g), b: t.encode(b) };
+}
+
+/** XYZ (Y = 100 scale; cd/m² for PQ spaces) of RGB values in a space: decoded by its transfer function unless `decode: false`, then M·RGB (SMPTE RP 177-1993). */
+export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolean } = {}): Tristimulus {
+  if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
+    throw new Error(`xyzFromRgb: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
+  }
+  const decode = options.decode ?? true;
+  noteSpace(space, decode);
+  const t = transferFunction(space.transfer);
+  const lin = decode ? [t.decode(rgb.r), t.decode(rgb.g), t.decode(rgb.b)] as const : [rgb.r, rgb.g, rgb.b] as const;
+  const [X, Y, Z] = applyMatrix3(space.toXYZ, lin);
+  const s = xyzScale(space);
+  return { X: X * s, Y: Y * s, Z: Z * s };
+}
+
+/**
+ * True when every channel lies in 0–1 within the tolerance (default 1e-6, to absorb rounding in measured data);
+ * works on linear or encoded values alike, since the transfer functions keep 0 and 1 fixed and preserve order.
+ */
+export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
+  if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
+    throw new Error(`isInGamut: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
+  }
+  if (!(Number.isFinite(tolerance) && tolerance >= 0)) throw new Error(`isInGamut: tolerance ${tolerance} must be a non-negative number`);
+  return [rgb.r, rgb.g, rgb.b].every((v) => v >= -tolerance && v <= 1 + tolerance);
+}

@@ -1,0 +1,183 @@
+/**
+ * Transfer functions between linear light and encoded signal: sRGB (IEC 61966-2-1:1999), pure gamma, ITU-R BT.709
+ * camera OETF, ITU-R BT.1886 display EOTF, PQ (SMPTE ST 2084:2014; ITU-R BT.2100) and HLG (ARIB STD-B67; BT.2100).
+ * Linear values below zero (out-of-gamut colours) are encoded with the sign carried through, so that they stay
+ * visible as out of gamut instead of turning into NaN.
+ */
+
+function requireFinite(what: string, value: number): void {
+  if (typeof value !== "number" || !Number.isFinite(value)) throw new Error(`${what}: the value ${value} is not a finite number`);
+}
+
+function odd(f: (x: number) => number): (x: number) => number {
+  return (x) => (x < 0 ? -f(-x) : f(x));
+}
+
+/** sRGB encoding (IEC 61966-2-1:1999 §5.3): V = 12.92·L for L ≤ 0.0031308, else 1.055·L^(1/2.4) − 0.055. */
+export function srgbEncode(linear: number): number {
+  requireFinite("srgbEncode", linear);
+  return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
+}
+
+/** sRGB decoding (IEC 61966-2-1:1999 §5.2): L = V/12.92 for V ≤ 0.04045, else ((V + 0.055)/1.055)^2.4. */
+export function srgbDecode(signal: number): number {
+  requireFinite("srgbDecode", signal);
+  return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
+}
+
+function requireGamma(what: string, gamma: number): void {
+  if (typeof gamma !== "number" || !Number.isFinite(gamma) || gamma <= 0) throw new Error(`${what}: gamma ${gamma} must be a positive finite number`);
+}
+
+/** Pure power-law encoding V = L^(1/γ). */
+export function gammaEncode(linear: number, gamma: number): number {
+  requireFinite("gammaEncode", linear);
+  requireGamma("gammaEncode", gamma);
+  return odd((l) => l ** (1 / gamma))(linear);
+}
+
+/** Pure power-law decoding L = V^γ. */
+export function gammaDecode(signal: number, gamma: number): number {
+  requireFinite("gammaDecode", signal);
+  requireGamma("gammaDecode", gamma);
+  return odd((v) => v ** gamma)(signal);
+}
+
+/** ITU-R BT.709-6 camera OETF: V = 4.500·L for L < 0.018, else 1.099·L^0.45 − 0.099. */
+export function bt709Encode(linear: number): number {
+  requireFinite("bt709Encode", linear);
+  return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
+}
+
+/** Inverse of the ITU-R BT.709-6 OETF: L = V/4.5 for V < 0.081, else ((V + 0.099)/1.099)^(1/0.45). */
+export function bt709Decode(signal: number): number {
+  requireFinite("bt709Decode", signal);
+  return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
+}
+
+/** Screen white and black luminance for the BT.1886 EOTF, in cd/m². */
+export interface DisplayLuminance {
+  /** Lw, default 100 cd/m². */
+  whiteLuminance?: number;
+  /** Lb, default 0 (the EOTF is then a pure 2.4 power). */
+  blackLuminance?: number;
+}
+
+function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: number; lw: number } {
+  const lw = d.whiteLuminance ?? 100;
+  const lb = d.blackLuminance ?? 0;
+  if (!(Number.isFinite(lw) && Number.isFinite(lb) && lw > 0 && lb >= 0 && lb < lw)) {
+    throw new Error(`${what}: white ${lw} cd/m² and black ${lb} cd/m² must satisfy 0 ≤ Lb < Lw`);
+  }
+  const root = lw ** (1 / 2.4) - lb ** (1 / 2.4);
+  return { a: root ** 2.4, b: lb ** (1 / 2.4) / root, lw };
+}
+
+/** ITU-R BT.1886 reference EOTF: L = a·max(V + b, 0)^2.4 in cd/m², a = (Lw^(1/2.4) − Lb^(1/2.4))^2.4, b = Lb^(1/2.4)/(Lw^(1/2.4) − Lb^(1/2.4)). */
+export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
+  requireFinite("bt1886Eotf", signal);
+  const { a, b } = bt1886Constants("bt1886Eotf", display);
+  return a * Math.max(signal + b, 0) ** 2.4;
+}
+
+/** Inverse of the ITU-R BT.1886 EOTF: V = (L/a)^(1/2.4) − b, L in cd/m². */
+export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
+  requireFinite("bt1886InverseEotf", luminance);
+  const { a, b } = bt1886Constants("bt1886InverseEotf", display);
+  return odd((l) => (l / a) ** (1 / 2.4))(luminance) - b;
+}
+
+// SMPTE ST 2084:2014 constants.
+const PQ_M1 = 2610 / 16384;
+const PQ_M2 = (2523 / 4096) * 128;
+const PQ_C1 = 3424 / 4096;
+const PQ_C2 = (2413 / 4096) * 32;
+const PQ_C3 = (2392 / 4096) * 32;
+
+/** PQ peak luminance: signal 1 is 10 000 cd/m² (SMPTE ST 2084:2014). */
+export const PQ_PEAK_LUMINANCE = 10000;
+
+/** PQ inverse EOTF (SMPTE ST 2084:2014 eq. 5.2): N = ((c1 + c2·Y^m1)/(1 + c3·Y^m1))^m2 with Y = L/10 000, L in cd/m². */
+export function pqEncode(luminance: number): number {
+  requireFinite("pqEncode", luminance);
+  return odd((l) => {
+    const ym = (l / PQ_PEAK_LUMINANCE) ** PQ_M1;
+    return ((PQ_C1 + PQ_C2 * ym) / (1 + PQ_C3 * ym)) ** PQ_M2;
+  })(luminance);
+}
+
+/** PQ EOTF (SMPTE ST 2084:2014 eq. 5.1): L = 10 000·(max(N^(1/m2) − c1, 0)/(c2 − c3·N^(1/m2)))^(1/m1) cd/m². */
+export function pqDecode(signal: number): number {
+  requireFinite("pqDecode", signal);
+  return odd((n) => {
+    const np = n ** (1 / PQ_M2);
+    const den = PQ_C2 - PQ_C3 * np;
+    if (!(den > 0)) throw new Error(`pqDecode: signal ${signal} is beyond the range of the PQ curve`);
+    return PQ_PEAK_LUMINANCE * (Math.max(np - PQ_C1, 0) / den) ** (1 / PQ_M1);
+  })(signal);
+}
+
+// ITU-R BT.2100-2 Table 5 (HLG) constants.
+const HLG_A = 0.17883277;
+const HLG_B = 1 - 4 * HLG_A;
+const HLG_C = 0.5 - HLG_A * Math.log(4 * HLG_A);
+
+/** HLG OETF (ITU-R BT.2100-2 Table 5): E′ = √(3E) for E ≤ 1/12, else a·ln(12E − b) + c; E is normalised scene light 0–1. */
+export function hlgEncode(sceneLinear: number): number {
+  requireFinite("hlgEncode", sceneLinear);
+  return odd((e) => (e <= 1 / 12 ? Math.sqrt(3 * e) : HLG_A * Math.log(12 * e - HLG_B) + HLG_C))(sceneLinear);
+}
+
+/** HLG inverse OETF (ITU-R BT.2100-2 Table 5): E = E′²/3 for E′ ≤ 1/2, else (exp((E′ − c)/a) + b)/12. */
+export function hlgDecode(signal: number): number {
+  requireFinite("hlgDecode", signal);
+  return odd((v) => (v <= 0.5 ? (v * v) / 3 : (Math.exp((v - HLG_C) / HLG_A) + HLG_B) / 12))(signal);
+}
+
+/**
+ * HLG OOTF (ITU-R BT.2100-2 Table 5, Lb = 0): display light F_D = Lw·Ys^(γ − 1)·E per channel, with
+ * Ys = 0.2627R + 0.6780G + 0.0593B and system gamma γ = 1.2 + 0.42·log10(Lw/1000). Scene light in, cd/m² out.
+ */
+export function hlgDisplayLight(sceneLinear: { r: number; g: number; b: number }, peakLuminance = 1000): { r: number; g: number; b: number } {
+  for (const k of ["r", "g", "b"] as const) requireFinite(`hlgDisplayLight (${k})`, sceneLinear[k]);
+  if (!(Number.isFinite(peakLuminance) && peakLuminance > 0)) throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
+  const gamma = 1.2 + 0.42 * Math.log10(peakLuminance / 1000);
+  const ys = 0.2627 * sceneLinear.r + 0.678 * sceneLinear.g + 0.0593 * sceneLinear.b;
+  const k = ys > 0 ? peakLuminance * ys ** (gamma - 1) : 0;
+  return { r: k * sceneLinear.r, g: k * sceneLinear.g, b: k * sceneLinear.b };
+}
+
+/** The transfer functions an RGB space can name. */
+export type TransferName = "sRGB" | "linear" | "gamma 2.2" | "gamma 2.4" | "gamma 2.6" | "BT.709" | "BT.1886" | "PQ" | "HLG";
+
+/** A transfer function by name: encode (linear → signal) and decode (signal → linear), and what it is for the Methods section. */
+export interface TransferFunction {
+  readonly name: TransferName;
+  readonly description: string;
+  encode(linear: number): number;
+  decode(signal: number): number;
+}
+
+const TRANSFERS: Record<TransferName, TransferFunction> = {
+  sRGB: { name: "sRGB", description: "the sRGB transfer function of IEC 61966-2-1:1999", encode: srgbEncode, decode: srgbDecode },
+  linear: { name: "linear", description: "no transfer function (linear values)", encode: (v) => (requireFinite("linear", v), v), decode: (v) => (requireFinite("linear", v), v) },
+  "gamma 2.2": { name: "gamma 2.2", description: "a pure power law with γ = 2.2", encode: (v) => gammaEncode(v, 2.2), decode: (v) => gammaDecode(v, 2.2) },
+  "gamma 2.4": { name: "gamma 2.4", description: "a pure power law with γ = 2.4", encode: (v) => gammaEncode(v, 2.4), decode: (v) => gammaDecode(v, 2.4) },
+  "gamma 2.6": { name: "gamma 2.6", description: "a pure power law with γ = 2.6", encode: (v) => gammaEncode(v, 2.6), decode: (v) => gammaDecode(v, 2.6) },
+  "BT.709": { name: "BT.709", description: "the ITU-R BT.709-6 camera OETF and its inverse", encode: bt709Encode, decode: bt709Decode },
+  "BT.1886": {
+    name: "BT.1886",
+    description: "the ITU-R BT.1886 reference display EOTF with zero black level, i.e. a 2.4 power law, values relative to white",
+    encode: (v) => gammaEncode(v, 2.4),
+    decode: (v) => gammaDecode(v, 2.4),
+  },
+  PQ: { name: "PQ", description: "the PQ curve of SMPTE ST 2084:2014 (ITU-R BT.2100), linear 1 = 10 000 cd/m²", encode: (v) => pqEncode(v * PQ_PEAK_LUMINANCE), decode: (v) => pqDecode(v) / PQ_PEAK_LUMINANCE },
+  HLG: { name: "HLG", description: "the HLG OETF of ITU-R BT.2100-2 (scene light, linear 1 = nominal peak)", encode: hlgEncode, decode: hlgDecode },
+};
+
+/** The transfer function with this name; an unknown name is an error listing the known ones. */
+export function transferFunction(name: TransferName | string): TransferFunction {
+  const t = TRANSFERS[name as TransferName];
+  if (!t) throw new Error(`unknown transfer function "${name}"; known: ${Object.keys(TRANSFERS).join(", ")}`);
+  return t;
+}
