@@ -1,4 +1,5 @@
 import { existsSync, readFileSync } from "node:fs";
+import Color from "colorjs.io";
 import { describe, expect, it } from "vitest";
 import {
   colourRenderingIndex,
@@ -6,6 +7,8 @@ import {
   daylightSpectrum,
   illuminant,
   ledSpectrum,
+  metamerismIndex,
+  weightingTable,
   planckianSpectrum,
   renderingReference,
   spectrum,
@@ -65,5 +68,76 @@ describe("colour rendering index (CIE 13.3)", () => {
       expect(cells[0]).toBe(360 + 5 * i);
       names.forEach((n, k) => expect(CIE_TEST_COLOUR_SAMPLES_TABLE.columns[n]![i]).toBe(cells[k + 1]));
     });
+  });
+});
+
+describe("special metamerism index (CIE 015)", () => {
+  const wl = Array.from({ length: 95 }, (_, i) => 360 + 5 * i);
+  // An invented smooth reflectance (not a measurement).
+  const base = spectrum(wl, wl.map((w) => 0.35 + 0.2 * Math.sin((w - 360) / 60)), { name: "invented sample", quantity: "reflectance" });
+
+  /** A metameric black for D65 / 2°: a curve orthogonal to the three weighting functions (Wyszecki 1958). */
+  function metamericBlack(): number[] {
+    const t = weightingTable({ illuminant: "D65", interval: 5 });
+    expect(t.wavelengths).toEqual(wl);
+    const W = [Array.from(t.wx), Array.from(t.wy), Array.from(t.wz)];
+    let b = wl.map((w) => Math.sin((w - 360) / 25));
+    // Gram–Schmidt: remove the components along the weighting functions.
+    const basis: number[][] = [];
+    for (const v of W) {
+      let u = [...v];
+      for (const e of basis) {
+        const d = u.reduce((s, x, i) => s + x * e[i]!, 0);
+        u = u.map((x, i) => x - d * e[i]!);
+      }
+      const n = Math.hypot(...u);
+      basis.push(u.map((x) => x / n));
+    }
+    for (const e of basis) {
+      const d = b.reduce((s, x, i) => s + x * e[i]!, 0);
+      b = b.map((x, i) => x - d * e[i]!);
+    }
+    const max = Math.max(...b.map(Math.abs));
+    return b.map((x) => (0.12 * x) / max);
+  }
+
+  it("is zero under the reference for a metameric pair and positive under another illuminant", () => {
+    // Source: Wyszecki (1958) metameric blacks — adding a curve orthogonal to S·x̄, S·ȳ, S·z̄ leaves X, Y, Z unchanged
+    // under that illuminant; CIE 015 defines the index as the colour difference under the test illuminant.
+    const black = metamericBlack();
+    const twin = spectrum(wl, base.values.map((v, i) => v + black[i]!), { name: "invented metamer", quantity: "reflectance" });
+    for (const correction of ["multiplicative", "additive", "none"] as const) {
+      const m = metamerismIndex(base, twin, { reference: "D65", test: "A", correction });
+      expect(m.mismatchUnderReference).toBeLessThan(1e-9);
+      expect(m.index).toBeGreaterThan(0.5);
+    }
+    const onSelf = metamerismIndex(base, twin, { reference: "D65", test: "D65" });
+    expect(onSelf.index).toBeLessThan(1e-9);
+  });
+
+  it("removes a uniform scale of the second sample by the multiplicative correction", () => {
+    // Source: CIE 015 multiplicative correction X₂,t·X₁,r/X₂,r: a sample whose reflectance is k times the other has
+    // X, Y, Z k times as large under every illuminant, so the corrected difference is zero; an additive CIELAB
+    // correction does not remove it exactly, and no correction leaves the full lightness difference.
+    const darker = spectrum(wl, base.values.map((v) => 0.8 * v), { name: "invented darker", quantity: "reflectance" });
+    expect(metamerismIndex(base, darker, { test: "FL11" }).index).toBeLessThan(1e-9);
+    expect(metamerismIndex(base, darker, { test: "FL11", correction: "none" }).index).toBeGreaterThan(5);
+    const additive = metamerismIndex(base, darker, { test: "FL11", correction: "additive" }).index;
+    expect(additive).toBeGreaterThan(1e-6);
+    expect(additive).toBeLessThan(1);
+  });
+
+  it("states its colour difference like an independent library does", () => {
+    // Source: colorjs.io (npm, devDependency) ΔE76 and ΔE2000 on the same CIELAB values.
+    const black = metamericBlack();
+    const twin = spectrum(wl, base.values.map((v, i) => v + black[i]!), { name: "invented metamer", quantity: "reflectance" });
+    for (const formula of ["ΔE*ab", "ΔE00"] as const) {
+      const m = metamerismIndex(base, twin, { test: "FL2", formula });
+      const [a, b] = m.labUnderTest.map((l) => new Color("lab", [l.L, l.a, l.b]));
+      const independent = formula === "ΔE00" ? a!.deltaE2000(b!) : a!.deltaE76(b!);
+      expect(m.index).toBeCloseTo(independent, 9);
+    }
+    expect(() => metamerismIndex(base, twin, { formula: "ΔE94" as never })).toThrow(/formula "ΔE94"/);
+    expect(() => metamerismIndex(base, spectrum(wl, wl.map(() => 0), { name: "black", quantity: "reflectance" }))).toThrow(/"black" has X = 0 under the reference/);
   });
 });
