@@ -23,12 +23,6 @@ export function plotFigure(data: PlotTrace[], layout: PlotLayout, config: PlotCo
   return { data, layout, config, caption };
 }
 
-/** Checks that a number is finite, naming the value and where it came from. */
-export function requireFinite(value: unknown, what: string): number {
-  if (typeof value !== "number" || !Number.isFinite(value)) throw new Error(`${what} is ${String(value)}; a finite number is needed`);
-  return value;
-}
-
 /** Rounds a coordinate to a fixed number of decimals so a figure's JSON stays small (display only, never for results). */
 export function roundForDisplay(v: number, decimals = 5): number {
   const f = 10 ** decimals;

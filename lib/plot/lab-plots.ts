@@ -69,7 +69,7 @@ function labCustom(lab: Lab): string[] {
   return [lab.L.toFixed(2), lab.a.toFixed(2), lab.b.toFixed(2), lch.C.toFixed(2), lch.h.toFixed(1)];
 }
 
-function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; arrows: Record<string, unknown>[]; all: [number, number][] } {
+function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vectors: [[number, number], [number, number]][]; all: [number, number][] } {
   const samples = o.samples ?? [];
   const pairs = o.pairs ?? [];
   if (samples.length + pairs.length === 0) throw new Error("CIELAB plot: give samples or pairs (none were given)");
@@ -103,7 +103,7 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; arrows
     });
     gi++;
   }
-  const arrows: Record<string, unknown>[] = [];
+  const vectors: [[number, number], [number, number]][] = [];
   if (pairs.length > 0) {
     const refs = pairs.map((p, i) => coords(checkLab(p.reference, `pair ${i + 1} ("${p.label}") reference`), view));
     const smps = pairs.map((p, i) => coords(checkLab(p.sample, `pair ${i + 1} ("${p.label}") sample`), view));
@@ -143,12 +143,21 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; arrows
       const [a, b] = [refs[i]!, smps[i]!];
       vx.push(roundForDisplay(a[0], 3), roundForDisplay(b[0], 3), null);
       vy.push(roundForDisplay(a[1], 3), roundForDisplay(b[1], 3), null);
-      if (Math.hypot(b[0] - a[0], b[1] - a[1]) < 1e-9) return;
-      arrows.push({ x: b[0], y: b[1], ax: a[0], ay: a[1], xref: "x", yref: "y", axref: "x", ayref: "y", showarrow: true, arrowhead: 2, arrowsize: 1, arrowwidth: 1.2, arrowcolor: INK.text, standoff: 4, startstandoff: 0, text: "" });
+      vectors.push([a, b]);
     });
     traces.splice(traces.length - 2, 0, { type: "scatter", mode: "lines", name: "Reference → sample", x: vx, y: vy, line: { color: INK.text, width: 1.2 }, hoverinfo: "skip", showlegend: false });
   }
-  return { traces, arrows, all };
+  return { traces, vectors, all };
+}
+
+/**
+ * Arrowheads for the vectors long enough to carry one: at least 24 px at the figure's usual drawn size (plot area
+ * about `widthPx` × `heightPx`); shorter vectors keep only their line, the markers telling reference from sample.
+ */
+function arrowheads(vectors: readonly [[number, number], [number, number]][], xSpan: number, ySpan: number, widthPx: number, heightPx: number): Record<string, unknown>[] {
+  return vectors
+    .filter(([a, b]) => Math.hypot(((b[0] - a[0]) / xSpan) * widthPx, ((b[1] - a[1]) / ySpan) * heightPx) >= 24)
+    .map(([a, b]) => ({ x: b[0], y: b[1], ax: a[0], ay: a[1], xref: "x", yref: "y", axref: "x", ayref: "y", showarrow: true, arrowhead: 2, arrowsize: 1, arrowwidth: 1.2, arrowcolor: INK.text, standoff: 6, startstandoff: 7, text: "" }));
 }
 
 function niceStep(span: number): number {
@@ -161,14 +170,14 @@ function niceStep(span: number): number {
 function captionFor(o: LabPlotOptions, view: View): string {
   const parts = [view === "ab" ? "CIELAB a*, b* plane (CIE 015:2018); faint circles are lines of constant chroma C*ab" : "CIELAB lightness L* against chroma C*ab (CIE 015:2018)"];
   if ((o.samples ?? []).length > 0) parts.push("marker fills show approximate colours (L*a*b* read against a D65 display white, clipped to sRGB)");
-  if ((o.pairs ?? []).length > 0) parts.push("arrows run from each reference (open circle) to its sample (diamond); hover shows ΔE00 (CIEDE2000, CIE 142-2001)");
+  if ((o.pairs ?? []).length > 0) parts.push("lines join each reference (open circle) to its sample (diamond), with an arrowhead where there is room; hover shows ΔE00 (CIEDE2000, CIE 142-2001)");
   const auto = parts.join("; ") + ".";
   return o.caption ? `${o.caption.trim()} ${auto}` : auto;
 }
 
 /** The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows. */
 export function labPlane(options: LabPlotOptions): PlotFigure {
-  const { traces, arrows, all } = labTraces(options, "ab");
+  const { traces, vectors, all } = labTraces(options, "ab");
   if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`labPlane: extent ${options.extent} must be a positive number`);
   const extent = options.extent ?? Math.max(10, ...all.map((p) => Math.max(Math.abs(p[0]), Math.abs(p[1])))) * 1.15;
   const step = niceStep(2 * extent);
@@ -191,13 +200,13 @@ export function labPlane(options: LabPlotOptions): PlotFigure {
     legend: "below",
   });
   layout.shapes = shapes;
-  layout.annotations = [...ends, ...arrows];
+  layout.annotations = [...ends, ...arrowheads(vectors, 2 * R, 2 * R, 460, 460)];
   return plotFigure(traces, layout, houseConfig(options.title ?? "cielab-ab-plane"), captionFor(options, "ab"));
 }
 
 /** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows. */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
-  const { traces, arrows, all } = labTraces(options, "LC");
+  const { traces, vectors, all } = labTraces(options, "LC");
   if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`lightnessChromaPlot: extent ${options.extent} must be a positive number`);
   const cMax = options.extent ?? Math.max(10, ...all.map((p) => p[0])) * 1.1;
   const step = niceStep(cMax);
@@ -208,6 +217,7 @@ export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
     yaxis: houseAxis("Lightness L*", { range: [0, 100], dtick: 10 }),
     legend: "below",
   });
-  layout.annotations = arrows;
+  const cTop = Math.ceil(cMax / step) * step;
+  layout.annotations = arrowheads(vectors, cTop, 100, 620, 290);
   return plotFigure(traces, layout, houseConfig(options.title ?? "cielab-lightness-chroma"), captionFor(options, "LC"));
 }
