@@ -8,8 +8,8 @@ import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
 import { parseCgats, readCgats, type CgatsFile, type CgatsTable } from "./cgats-read.ts";
-import { DataFileError, inFile } from "./data-file-error.ts";
-import { decideScale, type ValueScale } from "./value-scale.ts";
+import { DataFileError, withFileName } from "./data-file-error.ts";
+import { decideValueScale, type ValueScale } from "./value-scale.ts";
 
 const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
 
@@ -107,7 +107,7 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
   let scale: ValueScale | "as written" = "as written";
   let factor = 1;
   if (ratio || options.scale === "percent" || options.scale === "fraction") {
-    const d = decideScale(columns.flat(), options.scale, `${options.quantity} data`);
+    const d = decideValueScale(columns.flat(), options.scale, `${options.quantity} data`);
     scale = d.scale;
     factor = d.scale === "percent" ? 0.01 : 1;
     if (d.inferred) inferred.push(d.statement);
@@ -130,6 +130,6 @@ export function readCgatsSpectra(path: string, options: CgatsSpectraOptions): Cg
   try {
     return cgatsSpectra(file, options);
   } catch (e) {
-    throw inFile(e, path);
+    throw withFileName(e, path);
   }
 }

@@ -6,7 +6,7 @@
  */
 import { readFileSync } from "node:fs";
 import { noteMethod } from "../methods/method-log.ts";
-import { DataFileError, inFile } from "./data-file-error.ts";
+import { DataFileError, withFileName } from "./data-file-error.ts";
 import { readNumber } from "./number-text.ts";
 
 export type CgatsValue = string | number;
@@ -220,6 +220,6 @@ export function readCgats(path: string): CgatsFile {
   try {
     return parseCgats(text);
   } catch (e) {
-    throw inFile(e, path);
+    throw withFileName(e, path);
   }
 }

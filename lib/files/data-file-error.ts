@@ -16,7 +16,7 @@ export class DataFileError extends Error {
 }
 
 /** A copy of a DataFileError (or plain error) with the file name added. */
-export function inFile(error: unknown, file: string): Error {
+export function withFileName(error: unknown, file: string): Error {
   if (error instanceof DataFileError && error.file === undefined) {
     const bare = error.line !== undefined ? error.message.replace(/^line \d+: /, "") : error.message;
     return new DataFileError(bare, error.line, file);

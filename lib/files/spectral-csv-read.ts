@@ -9,9 +9,9 @@ import { parse } from "csv-parse/sync";
 import { noteMethod } from "../methods/method-log.ts";
 import { gridOf } from "../spectrum/grid.ts";
 import { spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
-import { DataFileError, inFile } from "./data-file-error.ts";
+import { DataFileError, withFileName } from "./data-file-error.ts";
 import { hasDecimalComma, hasDecimalPoint, readNumber } from "./number-text.ts";
-import { decideScale, type ValueScale } from "./value-scale.ts";
+import { decideValueScale, type ValueScale } from "./value-scale.ts";
 
 export type CsvDelimiter = "," | ";" | "\t";
 
@@ -183,7 +183,7 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   let scale: ValueScale | "as written" = "as written";
   let factor = 1;
   if (ratio || options.scale === "percent" || options.scale === "fraction") {
-    const decision = decideScale(columns.flat(), options.scale, `${options.quantity} data`);
+    const decision = decideValueScale(columns.flat(), options.scale, `${options.quantity} data`);
     scale = decision.scale;
     factor = decision.scale === "percent" ? 0.01 : 1;
     if (decision.inferred) inferred.push(decision.statement);
@@ -212,6 +212,6 @@ export function readSpectraCsv(path: string, options: SpectraCsvReadOptions): Sp
   try {
     return parseSpectraCsv(text, options);
   } catch (e) {
-    throw inFile(e, path);
+    throw withFileName(e, path);
   }
 }

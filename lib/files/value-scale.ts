@@ -18,7 +18,7 @@ export interface ScaleDecision {
 export const PERCENT_THRESHOLD = 1.5;
 
 /** Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so. */
-export function decideScale(values: Iterable<number>, stated: ValueScale | "auto" | undefined, what: string): ScaleDecision {
+export function decideValueScale(values: Iterable<number>, stated: ValueScale | "auto" | undefined, what: string): ScaleDecision {
   if (stated === "fraction" || stated === "percent") {
     return { scale: stated, inferred: false, statement: `${what}: values stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.` };
   }

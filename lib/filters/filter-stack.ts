@@ -12,7 +12,7 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFractionSpectrum, requireSameGrid } from "./checks.ts";
-import { describeIndex, indexAtWavelengths, surfaceReflectance, type RefractiveIndex } from "./fresnel.ts";
+import { describeRefractiveIndex, indexAtWavelengths, surfaceReflectance, type RefractiveIndex } from "./fresnel.ts";
 import { externalFromInternal, internalTransmittance, plateReflectanceValue } from "./plate.ts";
 
 /** One filter of a stack: its internal (bulk) transmittance and refractive index. */
@@ -101,7 +101,7 @@ export function stackTransmittance(elements: readonly FilterElement[], options: 
   });
   noteMethod(
     "optics",
-    `Filter stacks were computed ${JOIN_WORDS[join]}; refractive indices ${elements.map((e) => `${e.name}: ${describeIndex(e.refractiveIndex)}`).join("; ")}.`,
+    `Filter stacks were computed ${JOIN_WORDS[join]}; refractive indices ${elements.map((e) => `${e.name}: ${describeRefractiveIndex(e.refractiveIndex)}`).join("; ")}.`,
   );
   return spectrum(wl, values, { name: options.name ?? elements.map((e) => e.name).join(" + "), quantity: "transmittance" });
 }

@@ -40,6 +40,6 @@ export function surfaceReflectanceAt(index: RefractiveIndex, wavelengths: readon
 }
 
 /** A short description of an index for names and method notes. */
-export function describeIndex(index: RefractiveIndex): string {
+export function describeRefractiveIndex(index: RefractiveIndex): string {
   return typeof index === "number" ? `n = ${index}` : `n(λ) from "${index.name}"`;
 }

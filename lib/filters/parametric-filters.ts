@@ -24,7 +24,7 @@ export interface EdgeShape {
 }
 
 /** Logistic step rising through 0.5 at x = 0 with 10–90 % width w: 1/(1 + exp(−x·2ln9/w)); a unit step when w = 0. */
-export function smoothStep(x: number, edgeWidth: number): number {
+export function logisticEdge(x: number, edgeWidth: number): number {
   if (edgeWidth === 0) return x >= 0 ? 1 : 0;
   return 1 / (1 + Math.exp((-x * 2 * Math.log(9)) / edgeWidth));
 }
@@ -42,7 +42,7 @@ function shape(options: EdgeShape): { peak: number; floor: number; edgeWidth: nu
 export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "long-pass edge wavelength (nm)");
   const s = shape(options);
-  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(w - edge, s.edgeWidth)), {
+  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(w - edge, s.edgeWidth)), {
     name: options.name ?? `long-pass ${edge} nm`,
     quantity: "transmittance",
   });
@@ -52,7 +52,7 @@ export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum 
 export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "short-pass edge wavelength (nm)");
   const s = shape(options);
-  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(edge - w, s.edgeWidth)), {
+  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(edge - w, s.edgeWidth)), {
     name: options.name ?? `short-pass ${edge} nm`,
     quantity: "transmittance",
   });
@@ -70,7 +70,7 @@ export function bandPassFilter(centre: number, width: number, options: EdgeShape
   const hi = centre + width / 2;
   return spectrum(
     s.wavelengths,
-    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * smoothStep(w - lo, s.edgeWidth) * smoothStep(hi - w, s.edgeWidth)),
+    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(w - lo, s.edgeWidth) * logisticEdge(hi - w, s.edgeWidth)),
     { name: options.name ?? `band-pass ${centre}/${width} nm`, quantity: "transmittance" },
   );
 }

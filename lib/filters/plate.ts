@@ -8,7 +8,7 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum } from "./checks.ts";
-import { describeIndex, surfaceReflectanceAt, type RefractiveIndex } from "./fresnel.ts";
+import { describeRefractiveIndex, surfaceReflectanceAt, type RefractiveIndex } from "./fresnel.ts";
 
 /** External transmittance of a plate with internal transmittance τᵢ and face reflectance ρ: (1 − ρ)²τᵢ/(1 − ρ²τᵢ²) (Hecht, Optics §4.6). */
 export function externalFromInternal(internal: number, faceReflectance: number): number {
@@ -80,7 +80,7 @@ function requireIndex(options: PlateOptions | undefined, what: string): Refracti
 function notePlate(index: RefractiveIndex): void {
   noteMethod(
     "optics",
-    `Internal and external transmittance were related by the plate relation with incoherent multiple reflections between the faces, T = (1 − ρ)²τᵢ/(1 − ρ²τᵢ²), at normal incidence (${describeIndex(index)}).`,
+    `Internal and external transmittance were related by the plate relation with incoherent multiple reflections between the faces, T = (1 − ρ)²τᵢ/(1 − ρ²τᵢ²), at normal incidence (${describeRefractiveIndex(index)}).`,
   );
 }
 

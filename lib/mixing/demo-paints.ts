@@ -3,7 +3,7 @@
  * spectra for a white and six coloured paints, so notebooks can show Kubelka–Munk mixing (for example, why red,
  * green and blue paint mixed together give a dark, muddy colour). Built from logistic edges (common practice, no source).
  */
-import { smoothStep } from "../filters/parametric-filters.ts";
+import { logisticEdge } from "../filters/parametric-filters.ts";
 import { gridWavelengths } from "../spectrum/grid.ts";
 import { spectrum } from "../spectrum/spectrum.ts";
 import { twoConstantColourant, type TwoConstantColourant } from "./paint-mixing.ts";
@@ -15,8 +15,8 @@ function paint(name: string, k: (w: number) => number, s: (w: number) => number)
   return twoConstantColourant(spectrum(W, W.map(k), { name: `${full} K` }), spectrum(W, W.map(s), { name: `${full} S` }), full);
 }
 
-const above = (edge: number, width = 30) => (w: number) => smoothStep(w - edge, width);
-const below = (edge: number, width = 30) => (w: number) => smoothStep(edge - w, width);
+const above = (edge: number, width = 30) => (w: number) => logisticEdge(w - edge, width);
+const below = (edge: number, width = 30) => (w: number) => logisticEdge(edge - w, width);
 
 /** Invented demo paints (K and S per unit amount, two-constant): white, red, green, blue, cyan, magenta, yellow. */
 export function demoPaints(): Record<"white" | "red" | "green" | "blue" | "cyan" | "magenta" | "yellow", TwoConstantColourant> {

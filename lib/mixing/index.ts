@@ -1,6 +1,6 @@
 /** Barrel for lib/mixing (re-exports only): additive mixing of lights, LED models, and subtractive mixing of dyes and paints. */
 export * from "./mix-lights.ts";
-export * from "./nnls.ts";
+export { nonNegativeLeastSquares } from "./nnls.ts";
 export * from "./drive-levels.ts";
 export * from "./spectral-peak.ts";
 export * from "./led-spectrum.ts";
