@@ -33,6 +33,7 @@ export * from "./colorimetry/matrix3.ts";
 export * from "./rgb/transfer-functions.ts";
 export * from "./rgb/rgb-space.ts";
 export * from "./rgb/rgb-conversion.ts";
+export * from "./adaptation/chromatic-adaptation.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
 export * from "./plot/index.ts";
