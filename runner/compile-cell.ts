@@ -9,6 +9,7 @@ import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
 import type { ErrorRecord } from "../cells/records.ts";
 import { codeFrame } from "./code-frame.ts";
+import { cellLines } from "./map-error.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
 import type { CellSource, NotebookDocument } from "./notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
@@ -173,6 +174,6 @@ function compileFailure(message: string, document: NotebookDocument, line: numbe
     failure: "compile",
     message,
     location: { file: document.path, line, column: column ?? 1 },
-    codeFrame: codeFrame(document.text, line, column),
+    codeFrame: codeFrame(document.text, line, column, 2, cellLines(document, line)),
   };
 }

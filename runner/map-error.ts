@@ -46,10 +46,21 @@ export function mapError(
   return record;
 }
 
+/** The first and last code line of the cell that holds `line`, if any. */
+export function cellLines(document: NotebookDocument, line: number): [number, number] | undefined {
+  for (const cell of document.cells) {
+    const last = cell.firstLine + cell.code.split("\n").length - 1;
+    if (line >= cell.firstLine && line <= last) return [cell.firstLine, last];
+  }
+  return undefined;
+}
+
 /** An error record for a failure that has no stack (time limit, crash), placed at the cell's fence line. */
 export function cellLevelError(failure: ErrorRecord["failure"], message: string, cellIndex: number, document: NotebookDocument): ErrorRecord {
-  const line = document.cells[cellIndex]?.fenceLine ?? 1;
-  return { kind: "error", failure, message, location: { file: document.path, line, column: 1 }, codeFrame: codeFrame(document.text, line) };
+  const cell = document.cells[cellIndex];
+  const line = cell?.fenceLine ?? 1;
+  const frame = cell ? codeFrame(document.text, cell.firstLine, undefined, 2, cellLines(document, cell.firstLine)) : codeFrame(document.text, line);
+  return { kind: "error", failure, message, location: { file: document.path, line, column: 1 }, codeFrame: frame };
 }
 
 function parseFrames(stack: string, document: NotebookDocument, compiled: readonly (CompiledCell | undefined)[]): StackFrameRecord[] {
@@ -108,7 +119,7 @@ function mapThroughSourceMap(file: string, line: number, column: number): StackF
 }
 
 function frameOf(file: string, line: number, column: number, document: NotebookDocument): string | undefined {
-  if (file === document.path) return codeFrame(document.text, line, column);
+  if (file === document.path) return codeFrame(document.text, line, column, 2, cellLines(document, line));
   try {
     return codeFrame(fs.readFileSync(file, "utf8"), line, column);
   } catch {

@@ -5,6 +5,7 @@
  */
 import type { ErrorRecord, OutputRecord, StackFrameRecord } from "../cells/records.ts";
 import { codeFrame } from "./code-frame.ts";
+import { cellLines } from "./map-error.ts";
 import type { NotebookDocument } from "./notebook.ts";
 import type { RunRecord } from "./run-record.ts";
 
@@ -24,7 +25,7 @@ export function moveRecordsToEdit(run: RunRecord, before: NotebookDocument, afte
     const moved: ErrorRecord = {
       ...o,
       location: { ...o.location, line },
-      codeFrame: codeFrame(after.text, line, o.location.column > 1 ? o.location.column : undefined),
+      codeFrame: codeFrame(after.text, line, o.location.column > 1 ? o.location.column : undefined, 2, cellLines(after, line)),
       ...(o.stack ? { stack: o.stack.map(moveFrame) } : {}),
     };
     return moved;
