@@ -12,7 +12,7 @@ import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 const D65 = { X: 0.3127 / 0.329, Y: 1, Z: (1 - 0.3127 - 0.329) / 0.329 };
 const D50 = { X: 0.3457 / 0.3585, Y: 1, Z: (1 - 0.3457 - 0.3585) / 0.3585 };
 const A = { X: 1.0985, Y: 1, Z: 0.35585 }; // ASTM E308 illuminant A, 2° (see ../shared/reference white points)
-const asArray = (w: { X: number; Y: number; Z: number }) => [w.X, w.Y, w.Z];
+const asArray = (w: { X: number; Y: number; Z: number }): [number, number, number] => [w.X, w.Y, w.Z];
 const TRANSFORMS: [AdaptationTransform, string][] = [
   ["bradford", "Bradford"],
   ["cat02", "CAT02"],
