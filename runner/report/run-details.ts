@@ -31,7 +31,7 @@ export function renderRunDetails(document: NotebookDocument, run: RunRecord, id:
   }
   const rows = run.cells.map((c) => {
     const cell = document.cells[c.index]!;
-    return `<tr><td class="num"><a href="#cell-${c.index + 1}">${c.index + 1}</a></td><td class="num">${cell.fenceLine}</td>` +
+    return `<tr><td class="num"><a href="#cell-${c.index + 1}">${c.index + 1}</a></td><td class="num">${cell.firstLine}</td>` +
       `<td>${STATUS_TEXT[c.status]}</td><td class="num">${c.durationMs === undefined ? "" : escapeHtml(formatDuration(c.durationMs))}</td></tr>`;
   }).join("");
   const cellTable = run.cells.length === 0 ? "" :
