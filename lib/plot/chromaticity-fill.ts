@@ -5,7 +5,6 @@
  */
 import { brightDisplayColour } from "./display-rgb.ts";
 import { xyFromDiagram, type DiagramSpace } from "./chromaticity-space.ts";
-import { insidePolygon } from "./spectral-locus.ts";
 import { pngDataUri } from "./png-image.ts";
 
 export interface FillImage {
@@ -44,10 +43,22 @@ export function chromaticityFill(
   const w = resolution;
   const h = Math.max(16, Math.round((resolution * (y1 - y0)) / (x1 - x0)));
   const dx = (x1 - x0) / w, dy = (y1 - y0) / h;
+  // Scanline fill (even–odd rule): per pixel row, the crossings of the polygon's edges, then the spans between them.
   const inside = new Uint8Array(w * h);
+  const n = locusPolygon.length;
   for (let j = 0; j < h; j++) {
     const b = y1 - (j + 0.5) * dy;
-    for (let i = 0; i < w; i++) inside[j * w + i] = insidePolygon(x0 + (i + 0.5) * dx, b, locusPolygon) ? 1 : 0;
+    const crossings: number[] = [];
+    for (let k = 0, l = n - 1; k < n; l = k++) {
+      const [xk, yk] = locusPolygon[k]!, [xl, yl] = locusPolygon[l]!;
+      if (yk > b !== yl > b) crossings.push(((xl - xk) * (b - yk)) / (yl - yk) + xk);
+    }
+    crossings.sort((p, q) => p - q);
+    for (let c = 0; c + 1 < crossings.length; c += 2) {
+      const from = Math.max(0, Math.ceil((crossings[c]! - x0) / dx - 0.5));
+      const to = Math.min(w - 1, Math.floor((crossings[c + 1]! - x0) / dx - 0.5));
+      for (let i = from; i <= to; i++) inside[j * w + i] = 1;
+    }
   }
   const rgba = new Uint8Array(w * h * 4);
   for (let j = 0; j < h; j++) {

@@ -5,7 +5,8 @@
 import { uvPrimeFromXy, xyFromUvPrime, type Chromaticity } from "../colorimetry/chromaticity.ts";
 import { diagramPoint, diagramSpace, type DiagramSpace } from "./chromaticity-space.ts";
 import { toXy, type ChromaticityInput } from "./chromaticity-input.ts";
-import { DISPLAY_PRIMARIES, type DisplayGamut } from "./display-rgb.ts";
+import type { DisplayGamut } from "./display-rgb.ts";
+import { rgbSpace, rgbSpaceNames, type RgbSpace } from "../rgb/rgb-space.ts";
 import { cctAndDuv } from "../temperature/cct.ts";
 import { roundForDisplay as r5, type PlotTrace } from "./figure.ts";
 import { FONT_FAMILY, INK, SERIES_COLOURS, SERIES_DASHES, SERIES_MARKERS } from "./style.ts";
@@ -20,8 +21,8 @@ export interface CustomGamut {
   readonly g: ChromaticityInput;
   readonly b: ChromaticityInput;
 }
-/** A gamut outline: a standard display gamut by name or custom primaries. */
-export type GamutChoice = DisplayGamut | "BT.709" | CustomGamut;
+/** A gamut outline: a standard RGB space by name (any name lib/rgb's rgbSpace knows), an RgbSpace, or custom primaries. */
+export type GamutChoice = DisplayGamut | "BT.709" | string | RgbSpace | CustomGamut;
 
 /** A circle (radius) or ellipse (semi-axes a ≥ b, major axis at `angle` degrees from the horizontal axis) in xy or u′v′. */
 export interface ToleranceRegion {
@@ -51,13 +52,21 @@ export const GAMUT_SOURCES: Readonly<Record<string, string>> = {
 /** The r, g, b primaries (xy) of a gamut choice, with its legend name. */
 export function gamutPrimaries(g: GamutChoice): { name: string; source: string; r: Chromaticity; g: Chromaticity; b: Chromaticity } {
   if (typeof g === "string") {
-    const key = g === "BT.709" ? "sRGB" : g;
-    const p = Object.hasOwn(DISPLAY_PRIMARIES, key) ? DISPLAY_PRIMARIES[key as DisplayGamut] : undefined;
-    if (!p) throw new Error(`unknown gamut "${g}"; use "sRGB", "BT.709", "Display P3", "BT.2020" or {name, r, g, b}`);
-    return { name: g, source: GAMUT_SOURCES[g]!, r: p.r, g: p.g, b: p.b };
+    let space: RgbSpace;
+    try {
+      space = rgbSpace(g);
+    } catch {
+      throw new Error(`unknown gamut "${g}"; use ${rgbSpaceNames().map((n) => `"${n}"`).join(", ")}, an RGB space, or {name, r, g, b}`);
+    }
+    return { name: space.name, source: GAMUT_SOURCES[space.name] ?? `${space.name} (${space.source})`, ...space.primaries };
   }
-  if (!g || typeof g !== "object" || typeof g.name !== "string") throw new Error(`gamut ${JSON.stringify(g)} needs a name and r, g, b primaries`);
-  return { name: g.name, source: `${g.name} (given primaries)`, r: toXy(g.r, `gamut "${g.name}" red`), g: toXy(g.g, `gamut "${g.name}" green`), b: toXy(g.b, `gamut "${g.name}" blue`) };
+  if (g && typeof g === "object" && (g as RgbSpace).kind === "rgb space") {
+    const space = g as RgbSpace;
+    return { name: space.name, source: `${space.name} (${space.source})`, ...space.primaries };
+  }
+  const c = g as CustomGamut;
+  if (!c || typeof c !== "object" || typeof c.name !== "string") throw new Error(`gamut ${JSON.stringify(g)} needs a name and r, g, b primaries`);
+  return { name: c.name, source: `${c.name} (given primaries)`, r: toXy(c.r, `gamut "${c.name}" red`), g: toXy(c.g, `gamut "${c.name}" green`), b: toXy(c.b, `gamut "${c.name}" blue`) };
 }
 
 /** Closed outline traces of the gamuts, each with its own dash so a grey print tells them apart. */

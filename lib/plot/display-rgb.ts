@@ -1,11 +1,13 @@
 /**
  * Display RGB for drawing (fills, bands, marker colours, swatches): the three display gamuts a report can target,
- * the XYZ → linear RGB matrices derived from their primaries and D65 white (SMPTE RP 177-1993 §3), and the
- * transfer functions CSS uses for them (sRGB piecewise curve, IEC 61966-2-1:1999 §5.2; Display P3 uses the same
- * curve, CSS Color 4 §10.5; rec2020 in CSS uses the BT.2020 OETF constants, ITU-R BT.2020-2 Table 4).
- * Private to lib/plot: drawing only, never used for a reported number.
+ * with primaries, white and XYZ → linear RGB matrices from lib/rgb (SMPTE RP 177-1993), and the transfer functions
+ * CSS Color 4 uses for them when a browser reads `color(display-p3 …)` / `color(rec2020 …)`: the sRGB curve
+ * (IEC 61966-2-1:1999) for sRGB and Display P3, the BT.2020 OETF (ITU-R BT.2020-2 Table 4) for rec2020, which is
+ * what Chromium implements (checked in test/browser). Drawing only: nothing here writes to the methods log.
  */
 import type { Chromaticity, Tristimulus } from "../colorimetry/chromaticity.ts";
+import { rgbSpace } from "../rgb/rgb-space.ts";
+import type { Matrix3 } from "../colorimetry/matrix3.ts";
 
 /** The display gamuts a figure or swatch can target. */
 export type DisplayGamut = "sRGB" | "Display P3" | "BT.2020";
@@ -18,54 +20,41 @@ export interface Primaries {
   readonly white: Chromaticity;
 }
 
-/**
- * Primaries and white as the standards give them (recalled from memory; checked in tests against culori):
- * sRGB: IEC 61966-2-1:1999 (= ITU-R BT.709-6 primaries); Display P3: SMPTE EG 432-1:2010 P3 primaries with D65;
- * BT.2020: ITU-R BT.2020-2 Table 3. White D65 as x = 0.3127, y = 0.3290 (the 4-decimal value these standards use).
- */
-export const DISPLAY_PRIMARIES: Readonly<Record<DisplayGamut, Primaries>> = {
-  sRGB: { r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 }, white: { x: 0.3127, y: 0.329 } },
-  "Display P3": { r: { x: 0.68, y: 0.32 }, g: { x: 0.265, y: 0.69 }, b: { x: 0.15, y: 0.06 }, white: { x: 0.3127, y: 0.329 } },
-  "BT.2020": { r: { x: 0.708, y: 0.292 }, g: { x: 0.17, y: 0.797 }, b: { x: 0.131, y: 0.046 }, white: { x: 0.3127, y: 0.329 } },
-};
-
-type Mat3 = [number, number, number, number, number, number, number, number, number];
-
-function invert3(m: Mat3): Mat3 {
-  const [a, b, c, d, e, f, g, h, i] = m;
-  const A = e * i - f * h, B = -(d * i - f * g), C = d * h - e * g;
-  const det = a * A + b * B + c * C;
-  if (Math.abs(det) < 1e-12) throw new Error("display primaries are collinear: the RGB → XYZ matrix cannot be inverted");
-  return [A / det, -(b * i - c * h) / det, (b * f - c * e) / det, B / det, (a * i - c * g) / det, -(a * f - c * d) / det, C / det, -(a * h - b * g) / det, (a * e - b * d) / det];
+function checkGamut(gamut: DisplayGamut): DisplayGamut {
+  if (!DISPLAY_GAMUTS.includes(gamut)) throw new Error(`unknown display gamut "${gamut}"; use one of ${DISPLAY_GAMUTS.join(", ")}`);
+  return gamut;
 }
 
-/** The normalised primary matrix RGB(linear, 0–1) → XYZ (Y of white = 1) from primaries and white (SMPTE RP 177-1993 §3.3). */
-export function rgbToXyzMatrix(p: Primaries): Mat3 {
-  const col = (c: Chromaticity) => [c.x / c.y, 1, (1 - c.x - c.y) / c.y] as const;
-  const [R, G, B, W] = [col(p.r), col(p.g), col(p.b), col(p.white)];
-  const P: Mat3 = [R[0], G[0], B[0], R[1], G[1], B[1], R[2], G[2], B[2]];
-  const inv = invert3(P);
-  const S = [inv[0] * W[0] + inv[1] * W[1] + inv[2] * W[2], inv[3] * W[0] + inv[4] * W[1] + inv[5] * W[2], inv[6] * W[0] + inv[7] * W[1] + inv[8] * W[2]];
-  return [P[0] * S[0]!, P[1] * S[1]!, P[2] * S[2]!, P[3] * S[0]!, P[4] * S[1]!, P[5] * S[2]!, P[6] * S[0]!, P[7] * S[1]!, P[8] * S[2]!];
+/** Primaries and white of a display gamut (IEC 61966-2-1; SMPTE EG 432-1 with D65; ITU-R BT.2020-2), via lib/rgb. */
+export function displayPrimaries(gamut: DisplayGamut): Primaries {
+  const s = rgbSpace(checkGamut(gamut));
+  return { ...s.primaries, white: s.white };
 }
 
-const XYZ_TO_RGB = new Map<DisplayGamut, Mat3>();
-/** XYZ (Y of white = 1, D65-relative) → linear RGB matrix of a display gamut. */
-export function xyzToRgbMatrix(gamut: DisplayGamut): Mat3 {
-  let m = XYZ_TO_RGB.get(gamut);
-  if (!m) {
-    const p = DISPLAY_PRIMARIES[gamut];
-    if (!p) throw new Error(`unknown display gamut "${gamut}"; use one of ${DISPLAY_GAMUTS.join(", ")}`);
-    m = invert3(rgbToXyzMatrix(p));
-    XYZ_TO_RGB.set(gamut, m);
-  }
-  return m;
-}
+// The matrices per gamut, looked up once: the fill calls linearRgb for every pixel.
+const FROM_XYZ = new Map<DisplayGamut, Matrix3>();
+const TO_XYZ = new Map<DisplayGamut, Matrix3>();
 
-/** Linear RGB (white = 1) of a D65-relative XYZ given on the Y = 1 scale. */
+/** Linear RGB (white = 1) of a D65-relative XYZ given on the Y = 1 scale (lib/rgb's RP 177 matrix). */
 export function linearRgb(xyz: Tristimulus, gamut: DisplayGamut): [number, number, number] {
-  const m = xyzToRgbMatrix(gamut);
-  return [m[0] * xyz.X + m[1] * xyz.Y + m[2] * xyz.Z, m[3] * xyz.X + m[4] * xyz.Y + m[5] * xyz.Z, m[6] * xyz.X + m[7] * xyz.Y + m[8] * xyz.Z];
+  let m = FROM_XYZ.get(gamut);
+  if (!m) FROM_XYZ.set(gamut, (m = rgbSpace(checkGamut(gamut)).fromXYZ));
+  return [
+    m[0][0] * xyz.X + m[0][1] * xyz.Y + m[0][2] * xyz.Z,
+    m[1][0] * xyz.X + m[1][1] * xyz.Y + m[1][2] * xyz.Z,
+    m[2][0] * xyz.X + m[2][1] * xyz.Y + m[2][2] * xyz.Z,
+  ];
+}
+
+/** Linear RGB (white = 1) → XYZ on the Y = 1 scale (lib/rgb's RP 177 matrix). */
+export function xyzFromLinearRgb(rgb: readonly [number, number, number], gamut: DisplayGamut): Tristimulus {
+  let m = TO_XYZ.get(gamut);
+  if (!m) TO_XYZ.set(gamut, (m = rgbSpace(checkGamut(gamut)).toXYZ));
+  return {
+    X: m[0][0] * rgb[0] + m[0][1] * rgb[1] + m[0][2] * rgb[2],
+    Y: m[1][0] * rgb[0] + m[1][1] * rgb[1] + m[1][2] * rgb[2],
+    Z: m[2][0] * rgb[0] + m[2][1] * rgb[1] + m[2][2] * rgb[2],
+  };
 }
 
 /** sRGB transfer (encoding) function, IEC 61966-2-1:1999 eq. (5); odd-extended below zero as CSS Color 4 does. */

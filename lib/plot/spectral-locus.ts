@@ -47,13 +47,3 @@ export function locusPointAt(observer: Observer, wavelength: number, space: Diag
   const xy = { x: observer.xBar[i]! / s, y: observer.yBar[i]! / s };
   return { wavelength, xy, at: diagramPoint(xy, space) };
 }
-
-/** True when a diagram point lies inside the closed polygon (even–odd rule). */
-export function insidePolygon(px: number, py: number, poly: readonly (readonly [number, number])[]): boolean {
-  let inside = false;
-  for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-    const [xi, yi] = poly[i]!, [xj, yj] = poly[j]!;
-    if (yi > py !== yj > py && px < ((xj - xi) * (py - yi)) / (yj - yi) + xi) inside = !inside;
-  }
-  return inside;
-}

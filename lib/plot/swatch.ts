@@ -10,7 +10,7 @@ import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import { tristimulus, whitePoint } from "../colorimetry/tristimulus.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
-import { DISPLAY_GAMUTS, DISPLAY_PRIMARIES, encodeRgb, hexFromEncoded, insideCube, linearRgb, rgbToXyzMatrix, type DisplayGamut } from "./display-rgb.ts";
+import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
 import { adaptToD65 } from "./bradford.ts";
 import { D65_WHITE_Y100 } from "./display-white.ts";
 
@@ -62,9 +62,9 @@ export function xyzFromHex(hex: string): Tristimulus {
   const m = HEX.exec(String(hex).trim());
   if (!m) throw new Error(`swatch: "${hex}" is not an sRGB hex colour like #1a2b3c`);
   const n = parseInt(m[1]!, 16);
-  const [r, g, b] = [(n >> 16) & 255, (n >> 8) & 255, n & 255].map((c) => decodeSrgb(c / 255)) as [number, number, number];
-  const M = rgbToXyzMatrix(DISPLAY_PRIMARIES.sRGB);
-  return { X: 100 * (M[0] * r + M[1] * g + M[2] * b), Y: 100 * (M[3] * r + M[4] * g + M[5] * b), Z: 100 * (M[6] * r + M[7] * g + M[8] * b) };
+  const rgb = [(n >> 16) & 255, (n >> 8) & 255, n & 255].map((c) => decodeSrgb(c / 255)) as [number, number, number];
+  const t = xyzFromLinearRgb(rgb, "sRGB");
+  return { X: 100 * t.X, Y: 100 * t.Y, Z: 100 * t.Z };
 }
 
 function checkTristimulus(t: Tristimulus, what: string): Tristimulus {

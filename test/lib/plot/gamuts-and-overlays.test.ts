@@ -7,6 +7,7 @@ import Color from "colorjs.io";
 import { describe, expect, it } from "vitest";
 import { chromaticityDiagram } from "../../../lib/plot/index.ts";
 import { toleranceOutline } from "../../../lib/plot/chromaticity-overlays.ts";
+import { rgbSpaceFromPrimaries } from "../../../lib/rgb/rgb-space.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "../reference-data.ts";
 
 type Trace = Record<string, unknown> & { name?: string; x: (number | null)[]; y: (number | null)[] };
@@ -72,6 +73,13 @@ describe("gamut outlines", () => {
     expect(t.y[1]).toBeCloseTo(0.6, 5);
     expect(t.x[2]).toBeCloseTo(0.15, 5);
     expect(t.y[2]).toBeCloseTo(0.06, 5);
+  });
+
+  it("an RGB space from lib/rgb (here from measured primaries) is outlined at its primaries under its own name", () => {
+    // Invented measured primaries of a display.
+    const measured = rgbSpaceFromPrimaries({ r: { x: 0.66, y: 0.325 }, g: { x: 0.29, y: 0.63 }, b: { x: 0.152, y: 0.058 } }, { x: 0.313, y: 0.33 }, { name: "Lab monitor (invented)" });
+    const t = byName(chromaticityDiagram({ gamuts: [measured], fill: false }), "Lab monitor (invented)");
+    expect([t.x[0], t.y[0], t.x[1], t.y[1], t.x[2], t.y[2]]).toEqual([0.66, 0.325, 0.29, 0.63, 0.152, 0.058]);
   });
 
   it("an unknown gamut name is an error that names it", () => {
