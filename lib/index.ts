@@ -34,6 +34,12 @@ export * from "./rgb/transfer-functions.ts";
 export * from "./rgb/rgb-space.ts";
 export * from "./rgb/rgb-conversion.ts";
 export * from "./adaptation/chromatic-adaptation.ts";
+export * from "./colorimetry/cieluv.ts";
+export * from "./colorimetry/cie-uvw.ts";
+export * from "./colorimetry/dominant-wavelength.ts";
+export * from "./photometry/luminous-efficiency.ts";
+export * from "./photometry/photometric-quantities.ts";
+export * from "./gamut/gamut-area.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.
 export * from "./plot/index.ts";

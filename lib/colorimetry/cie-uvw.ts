@@ -1,0 +1,21 @@
+/** CIE 1964 uniform colour space U*V*W*, as CIE 13.3-1995 uses it for colour rendering (CIE 13.3 §5.6; CIE 015:2004 §8 note). */
+import { noteMethod } from "../methods/method-log.ts";
+import { chromaticityXy, uv1960FromXy, type Tristimulus } from "./chromaticity.ts";
+
+export interface Uvw1964 {
+  readonly U: number;
+  readonly V: number;
+  readonly W: number;
+}
+
+/** W* = 25 Y^(1/3) − 17, U* = 13 W*(u − un), V* = 13 W*(v − vn), with CIE 1960 u, v and Y on the 0–100 scale (CIE 13.3-1995 eqs. 6–8). */
+export function uvwFromXYZ(t: Tristimulus, white: Tristimulus): Uvw1964 {
+  if (typeof t !== "object" || t === null || ![t.X, t.Y, t.Z].every(Number.isFinite) || t.Y < 0) {
+    throw new Error(`uvwFromXYZ: tristimulus values (${t?.X}, ${t?.Y}, ${t?.Z}) must be finite with Y ≥ 0`);
+  }
+  noteMethod("colour space", "CIE 1964 U*V*W* (CIE 13.3-1995), Y on the 0–100 scale.");
+  const w = 25 * Math.cbrt(t.Y) - 17;
+  const p = uv1960FromXy(chromaticityXy(t));
+  const n = uv1960FromXy(chromaticityXy(white));
+  return { W: w, U: 13 * w * (p.u - n.u), V: 13 * w * (p.v - n.v) };
+}

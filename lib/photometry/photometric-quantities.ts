@@ -1,0 +1,138 @@
+/**
+ * Photometric quantities from spectral distributions: Xv = Km Σ Xe,λ(λ) V(λ) Δλ (CIE 018:2019 eq. 2; CIE 015:2018
+ * eq. 7.5 for Y), luminous transmittance and reflectance (ISO/CIE 11664-3, CIE 015:2018 §7.1), and the
+ * scotopic-to-photopic (S/P) ratio.
+ */
+import { tristimulus, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
+import { noteMethod } from "../methods/method-log.ts";
+import { regularStep } from "../spectrum/grid.ts";
+import { sampler } from "../spectrum/sample.ts";
+import { withValues, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
+import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-efficiency.ts";
+
+/**
+ * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V share: at the spectrum's own samples when they lie every
+ * 1 or 5 nm on whole nanometres, otherwise after interpolating the spectrum to 1 nm (CIE 167:2005 interpolation).
+ */
+export function weightedSum(spd: Spectrum, vision: Vision = "photopic"): { sum: number; interval: number; range: [number, number] } {
+  const v = luminousEfficiency(vision);
+  const start = Math.max(spd.wavelengths[0]!, v.wavelengths[0]!);
+  const end = Math.min(spd.wavelengths.at(-1)!, v.wavelengths.at(-1)!);
+  if (end < start) {
+    throw new Error(`"${spd.name}" (${spd.wavelengths[0]}–${spd.wavelengths.at(-1)} nm) does not overlap ${v.name} (${v.wavelengths[0]}–${v.wavelengths.at(-1)} nm)`);
+  }
+  const step = regularStep(spd);
+  const onWholeNm = step !== undefined && (step === 1 || step === 5) && Number.isInteger(spd.wavelengths[0]!);
+  const interval = onWholeNm ? step : 1;
+  const readS = sampler(spd, { extrapolation: "refuse" });
+  const readV = sampler(v, { interpolation: "linear", extrapolation: "refuse" });
+  let sum = 0;
+  const first = Math.ceil(start / interval - 1e-9) * interval;
+  for (let w = first; w <= end + 1e-9; w += interval) sum += readS(w) * readV(w);
+  return { sum: sum * interval, interval, range: [first, end] };
+}
+
+const UNITS: Record<string, { quantity: SpectralQuantity; unit: string; spectral: string }> = {
+  "luminous flux": { quantity: "radiant flux", unit: "lm", spectral: "spectral radiant flux in W/nm" },
+  luminance: { quantity: "radiance", unit: "cd/m²", spectral: "spectral radiance in W/(sr·m²·nm)" },
+  illuminance: { quantity: "irradiance", unit: "lx", spectral: "spectral irradiance in W/(m²·nm)" },
+  "luminous intensity": { quantity: "other", unit: "cd", spectral: "spectral radiant intensity in W/(sr·nm)" },
+};
+
+function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): number {
+  const u = UNITS[what]!;
+  if (spd.quantity !== u.quantity && spd.quantity !== "other") {
+    throw new Error(`${what}: "${spd.name}" is a ${spd.quantity} spectrum; ${what} needs a ${u.spectral}`);
+  }
+  const k = vision === "scotopic" ? KM_SCOTOPIC : KM;
+  const { sum, interval, range } = weightedSum(spd, vision);
+  noteMethod(
+    "photometry",
+    `${vision === "scotopic" ? "Scotopic" : "Photopic"} ${what} = K·Σ S(λ)·${vision === "scotopic" ? "V′" : "V"}(λ)·Δλ with K = ${k} lm/W (CIE 018:2019), summed every ${interval} nm over ${range[0]}–${range[1]} nm.`,
+  );
+  return k * sum;
+}
+
+/** Luminous flux in lm from spectral radiant flux in W/nm: Φv = Km Σ Φe,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+export function luminousFlux(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  return photometric("luminous flux", spd, options.vision ?? "photopic");
+}
+
+/** Luminance in cd/m² from spectral radiance in W/(sr·m²·nm): Lv = Km Σ Le,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+export function luminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  return photometric("luminance", spd, options.vision ?? "photopic");
+}
+
+/** Illuminance in lx from spectral irradiance in W/(m²·nm): Ev = Km Σ Ee,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+export function illuminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  return photometric("illuminance", spd, options.vision ?? "photopic");
+}
+
+/** Luminous intensity in cd from spectral radiant intensity in W/(sr·nm): Iv = Km Σ Ie,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  return photometric("luminous intensity", spd, options.vision ?? "photopic");
+}
+
+/** Luminous efficacy of radiation K = Km Σ S V Δλ / Σ S Δλ in lm/W over the spectrum's own range (CIE 018:2019 §3.4). */
+export function luminousEfficacyOfRadiation(spd: Spectrum): number {
+  const { sum } = weightedSum(spd, "photopic");
+  const step = regularStep(spd);
+  const w = spd.wavelengths, v = spd.values;
+  let radiant = 0;
+  if (step !== undefined) radiant = v.reduce((a, b) => a + b, 0) * step;
+  else for (let i = 0; i + 1 < w.length; i++) radiant += ((v[i]! + v[i + 1]!) / 2) * (w[i + 1]! - w[i]!);
+  if (!(radiant > 0)) throw new Error(`luminousEfficacyOfRadiation: "${spd.name}" has no radiant power`);
+  noteMethod("photometry", `Luminous efficacy of radiation = Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range.`);
+  return (KM * sum) / radiant;
+}
+
+/** Scotopic-to-photopic ratio S/P = K′m Σ S V′ Δλ / (Km Σ S V Δλ), K′m = 1700 lm/W, Km = 683 lm/W (CIE 018:2019). */
+export function scotopicPhotopicRatio(spd: Spectrum): number {
+  const p = weightedSum(spd, "photopic");
+  const s = weightedSum(spd, "scotopic");
+  if (!(p.sum > 0)) throw new Error(`scotopicPhotopicRatio: "${spd.name}" has no photopic luminous power`);
+  noteMethod(
+    "photometry",
+    `Scotopic-to-photopic ratio S/P = ${KM_SCOTOPIC}·Σ S·V′·Δλ / (${KM}·Σ S·V·Δλ) (CIE 018:2019), V′ over ${s.range[0]}–${s.range[1]} nm, V over ${p.range[0]}–${p.range[1]} nm.`,
+  );
+  return (KM_SCOTOPIC * s.sum) / (KM * p.sum);
+}
+
+/** The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target` (cd/m², lx or lm, as the spectrum's unit implies). */
+export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
+  if (!(Number.isFinite(target) && target > 0)) throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
+  const { sum } = weightedSum(spd, "photopic");
+  if (!(sum > 0)) throw new Error(`normaliseToLuminance: "${spd.name}" has no luminous power to scale to ${target}`);
+  const k = target / (KM * sum);
+  noteMethod("normalisation", `Spectra were scaled to a photopic value of ${target} (Km = ${KM} lm/W).`);
+  return withValues(spd, spd.values.map((v) => v * k));
+}
+
+type LuminousOptions = Pick<ObjectColourOptions, "illuminant" | "interval" | "range" | "interpolation" | "extrapolation">;
+
+function luminousFactor(what: string, sample: Spectrum, quantity: "transmittance" | "reflectance", options: LuminousOptions): number {
+  if (sample.quantity !== quantity && sample.quantity !== "other") {
+    throw new Error(`${what}: "${sample.name}" is a ${sample.quantity} spectrum, not a ${quantity}`);
+  }
+  return tristimulus(sample, { ...options, observer: "2°" }).Y / 100;
+}
+
+/**
+ * Luminous transmittance τv = Σ S τ V Δλ / Σ S V Δλ as a fraction (ISO/CIE 11664-3; CIE 015:2018 §7.1: Y/100 with
+ * the 1931 observer), under illuminant D65 unless another is given. Informative only for safety decisions.
+ */
+export function luminousTransmittance(sample: Spectrum, options: LuminousOptions = {}): number {
+  const t = luminousFactor("luminousTransmittance", sample, "transmittance", options);
+  noteMethod(
+    "photometry",
+    "Luminous transmittance is the weighted mean of the spectral transmittance with S(λ)·V(λ) (Y/100 with the CIE 1931 observer). Caution: for eye protection, signal lights or other safety decisions this computation is informative only; the applicable standard, local codes and accredited testing decide.",
+  );
+  return t;
+}
+
+/** Luminous reflectance ρv = Σ S ρ V Δλ / Σ S V Δλ as a fraction (Y/100 with the CIE 1931 observer; CIE 015:2018 §7.1), D65 unless given. */
+export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
+  const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
+  noteMethod("photometry", "Luminous reflectance is the weighted mean of the spectral reflectance with S(λ)·V(λ) (Y/100 with the CIE 1931 observer).");
+  return r;
+}
