@@ -379,6 +379,16 @@ export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): P
   data.push(...gamuts.traces);
   if (gamuts.names.length > 0) notes.push(`gamut outlines: ${gamuts.names.join("; ")}`);
   data.push(...toleranceTraces(options.tolerances ?? [], space));
+  if ((options.points ?? []).length > 0) {
+    // Plotly's "closest" hover prefers a line vertex a few pixels away over a marker under the pointer, so with
+    // labelled points on the diagram the reference curves stay silent and the points answer the pointer.
+    for (const t of data) {
+      if (["Spectral locus", "Purple line", "Planckian locus", "Daylight locus"].includes(String(t.name))) {
+        delete t.hovertemplate;
+        t.hoverinfo = "skip";
+      }
+    }
+  }
   data.push(...pointTraces(options.points ?? [], space));
   const annotations = arrowAnnotations(options.arrows ?? [], space);
 

@@ -115,6 +115,31 @@ describe.skipIf(!HAVE_CHROMIUM)(`lib/plot figures in Chromium${HAVE_CHROMIUM ? "
     expect(images.slice(4)).toEqual([0, 0]);
   });
 
+  it("shows x, y, u′, v′, CCT and Duv when the pointer rests on a labelled point", async () => {
+    // Lamp 1 of the fixture sits at x = 0.4369, y = 0.4041, the Planckian point at 3000 K (CIE 015 tables, recalled
+    // from memory), so the hover box must read a CCT near 3000 K.
+    const plot = (await page.$$(".plot[data-spec]"))[0]!;
+    await plot.scrollIntoViewIfNeeded();
+    const where = await plot.evaluate((node) => {
+      // Plotly's axis objects: _offset is the axis start in px within the SVG, l2p maps a value to px from there.
+      type Axis = { l2p(v: number): number; _offset: number };
+      const fl = (node as unknown as { _fullLayout: { xaxis: Axis; yaxis: Axis } })._fullLayout;
+      const r = node.querySelector("svg.main-svg")!.getBoundingClientRect();
+      return { x: r.left + fl.xaxis._offset + fl.xaxis.l2p(0.4369), y: r.top + fl.yaxis._offset + fl.yaxis.l2p(0.4041) };
+    });
+    await page.mouse.move(where.x, where.y);
+    await page.waitForSelector(".hoverlayer .hovertext", { timeout: 5_000 });
+    const text = await plot.$eval(".hoverlayer", (n) => n.textContent ?? "");
+    expect(text).toContain("Lamp 1");
+    expect(text).toMatch(/x = 0\.4369, y = 0\.4041/);
+    expect(text).toMatch(/u′ = 0\.\d{4}, v′ = 0\.\d{4}/);
+    const cct = Number(/CCT (\d+) K/.exec(text)?.[1]);
+    expect(Math.abs(cct - 3000)).toBeLessThan(15);
+    expect(text).toMatch(/Duv [+−]0\.\d{4}/);
+    expect(text).not.toContain("%{");
+    await page.mouse.move(0, 0);
+  }, 20_000);
+
   it("logs no errors and loads nothing that fails", () => {
     expect(errors).toEqual([]);
   });
