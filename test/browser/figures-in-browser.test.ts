@@ -14,7 +14,7 @@ import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodeRgb, linearRgb } from "../../lib/plot/display-rgb.ts";
 
-const CHROMIUM = "/usr/bin/chromium";
+const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 const HAVE_CHROMIUM = existsSync(CHROMIUM);
 const ROOT = fileURLToPath(new URL("../../", import.meta.url));
 const ARTIFACTS = ROOT + "test/.artifacts/";
