@@ -15,15 +15,28 @@ export interface ObjectColourOptions {
   illuminant?: string | Spectrum;
   /** Observer; default the CIE 1931 2° observer. */
   observer?: ObserverName | Observer | 2 | 10;
-  /** Summation interval in nm: 1 or 5. Default 1 when the sample is measured at 1 nm, otherwise 5 (CIE 015:2018 §7.2). */
+  /**
+   * Summation interval in nm: 1 or 5. Default 1 when both the sample and the illuminant are tabulated at 1 nm,
+   * otherwise 5 (CIE 015:2018 §7.2).
+   */
   interval?: 1 | 5;
-  /** Wavelength range of the summation; default 360–830 nm (CIE 015:2018), cut to what the illuminant covers. */
+  /**
+   * Wavelength range of the summation, cut to what the illuminant covers. Default 360–830 nm (CIE 015:2018 §7.2),
+   * which reproduces the ASTM E308 white points (e.g. D50 2°: X = 96.422, Z = 82.521). The CIE 015:2004 Table T.3
+   * chromaticities of the 5 nm illuminants were summed over 380–780 nm: pass `range: CIE_015_TABLE_RANGE` with
+   * `interval: 5` to reproduce them (D50 2°: x = 0.34567, y = 0.35851, against y = 0.35850 over 360–830 nm).
+   */
   range?: readonly [number, number];
   /** How the sample is read between its samples (default "auto": Sprague for even data, CIE 167:2005). */
   interpolation?: Interpolation;
   /** How the sample is read beyond its measured range (default "hold": the end values, CIE 015:2018 §7.2.2). */
   extrapolation?: Extrapolation;
 }
+
+/** The default summation range: 360–830 nm (CIE 015:2018 §7.2), at 1 nm and at 5 nm. */
+export const DEFAULT_SUMMATION_RANGE: readonly [number, number] = [360, 830];
+/** 380–780 nm: the range over which the CIE 015:2004 Table T.3 white points of the 5 nm illuminants were summed. */
+export const CIE_015_TABLE_RANGE: readonly [number, number] = [380, 780];
 
 /** The weighting functions k·S(λ)·x̄(λ), k·S(λ)·ȳ(λ), k·S(λ)·z̄(λ) on a grid, k = 100/Σ S ȳ (CIE 015:2018 eq. 7.2). */
 export interface WeightingTable {
@@ -34,17 +47,26 @@ export interface WeightingTable {
   readonly illuminantName: string;
   readonly observer: Observer;
   readonly interval: number;
+  /** What the Methods section says about this table (observer, illuminant, summation). */
+  readonly notes: { readonly observer: string; readonly illuminant: string; readonly integration: string };
 }
 
-const weightCache = new Map<string, WeightingTable>();
+type TableOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range">;
+
+const namedCache = new Map<string, WeightingTable>();
+const objectCache = new WeakMap<Spectrum, Map<string, WeightingTable>>();
 
 function resolveIlluminant(ill: string | Spectrum | undefined): Spectrum {
   if (ill === undefined) return illuminantByName("D65");
   return typeof ill === "string" ? illuminantByName(ill) : ill;
 }
 
+function checkInterval(interval: number): asserts interval is 1 | 5 {
+  if (interval !== 1 && interval !== 5) throw new Error(`tristimulus: summation interval ${interval} nm is not supported; use 1 or 5 nm (CIE 015:2018 §7.2)`);
+}
+
 function resolveRange(requested: readonly [number, number] | undefined, ill: Spectrum, obs: Observer): [number, number] {
-  const [a, b] = requested ?? [360, 830];
+  const [a, b] = requested ?? DEFAULT_SUMMATION_RANGE;
   if (!(Number.isFinite(a) && Number.isFinite(b) && a < b)) throw new Error(`tristimulus: wavelength range ${a}–${b} nm is not valid`);
   const start = Math.max(a, ill.wavelengths[0]!, obs.wavelengths[0]!);
   const end = Math.min(b, ill.wavelengths.at(-1)!, obs.wavelengths.at(-1)!);
@@ -59,15 +81,8 @@ function gridFor(range: [number, number], interval: number): number[] {
   return out;
 }
 
-/** The weighting table for an illuminant and observer at 1 or 5 nm (computed once per run and kept). */
-export function weightingTable(options: Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range"> & { interval: 1 | 5 }): WeightingTable {
-  const ill = resolveIlluminant(options.illuminant);
-  const obs = observerByName(options.observer ?? "2°");
-  const range = resolveRange(options.range, ill, obs);
-  const key = typeof options.illuminant === "object" ? undefined : `${ill.name}|${obs.name}|${options.interval}|${range.join("-")}`;
-  const cached = key ? weightCache.get(key) : undefined;
-  if (cached) return cached;
-  const wavelengths = gridFor(range, options.interval);
+function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [number, number]): WeightingTable {
+  const wavelengths = gridFor(range, interval);
   const readS = sampler(ill, { extrapolation: "refuse" });
   const n = wavelengths.length;
   const wx = new Float64Array(n), wy = new Float64Array(n), wz = new Float64Array(n);
@@ -87,9 +102,44 @@ export function weightingTable(options: Pick<ObjectColourOptions, "illuminant" |
     wy[i]! *= k;
     wz[i]! *= k;
   }
-  const table: WeightingTable = { wavelengths, wx, wy, wz, illuminantName: ill.name, observer: obs, interval: options.interval };
-  if (key) weightCache.set(key, table);
+  return {
+    wavelengths,
+    wx,
+    wy,
+    wz,
+    illuminantName: ill.name,
+    observer: obs,
+    interval,
+    notes: {
+      observer: obs.name + ".",
+      illuminant: `Object colours were computed under ${ill.name}.`,
+      integration: `Tristimulus values were summed at ${interval} nm intervals over ${wavelengths[0]}–${wavelengths.at(-1)} nm, normalised to Y = 100 for the perfect reflecting diffuser (CIE 015:2018 §7).`,
+    },
+  };
+}
+
+function tableFor(illuminantOption: string | Spectrum | undefined, observerOption: TableOptions["observer"], interval: 1 | 5, rangeOption: TableOptions["range"]): WeightingTable {
+  checkInterval(interval);
+  const ill = resolveIlluminant(illuminantOption);
+  const obs = observerByName(observerOption ?? "2°");
+  const key = `${obs.name}|${interval}|${rangeOption ? rangeOption.join("-") : "default"}`;
+  let cache: Map<string, WeightingTable> | undefined;
+  if (typeof illuminantOption === "object") {
+    cache = objectCache.get(illuminantOption);
+    if (!cache) objectCache.set(illuminantOption, (cache = new Map()));
+  } else cache = namedCache;
+  const fullKey = typeof illuminantOption === "object" ? key : `${ill.name}|${key}`;
+  let table = cache.get(fullKey);
+  if (!table) {
+    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs));
+    cache.set(fullKey, table);
+  }
   return table;
+}
+
+/** The weighting table for an illuminant and observer at 1 or 5 nm (computed once per run and kept). */
+export function weightingTable(options: TableOptions & { interval: 1 | 5 }): WeightingTable {
+  return tableFor(options.illuminant, options.observer, options.interval, options.range);
 }
 
 function defaultInterval(sample: Spectrum | undefined, ill: Spectrum): 1 | 5 {
@@ -107,35 +157,56 @@ export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {})
   if (sample.quantity !== "reflectance" && sample.quantity !== "transmittance" && sample.quantity !== "other") {
     throw new Error(`tristimulus: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`);
   }
-  const ill = resolveIlluminant(options.illuminant);
-  const interval = options.interval ?? defaultInterval(sample, ill);
-  const table = weightingTable({ ...options, interval });
-  const read = sampler(sample, { interpolation: options.interpolation, extrapolation: options.extrapolation });
+  const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
+  const table = tableFor(options.illuminant, options.observer, interval, options.range);
+  const { wx, wy, wz } = table;
+  const n = wx.length;
+  const w = sample.wavelengths, v = sample.values;
   let X = 0, Y = 0, Z = 0;
-  const w = table.wavelengths;
-  for (let i = 0; i < w.length; i++) {
-    const r = read(w[i]!);
-    X += table.wx[i]! * r;
-    Y += table.wy[i]! * r;
-    Z += table.wz[i]! * r;
+  // Fast path: every summation wavelength is one of the sample's own (evenly spaced) wavelengths.
+  const step = regularStep(sample);
+  const first = table.wavelengths[0]!;
+  const offset = step === undefined ? NaN : (first - w[0]!) / step;
+  const stride = step === undefined ? NaN : interval / step;
+  const io = Math.round(offset), is = Math.round(stride);
+  if (
+    step !== undefined &&
+    Math.abs(offset - io) < 1e-9 &&
+    Math.abs(stride - is) < 1e-9 &&
+    io >= 0 &&
+    is >= 1 &&
+    io + (n - 1) * is < w.length
+  ) {
+    for (let i = 0, j = io; i < n; i++, j += is) {
+      const r = v[j]!;
+      X += wx[i]! * r;
+      Y += wy[i]! * r;
+      Z += wz[i]! * r;
+    }
+  } else {
+    const read = sampler(sample, { interpolation: options.interpolation, extrapolation: options.extrapolation });
+    const grid = table.wavelengths;
+    for (let i = 0; i < n; i++) {
+      const r = read(grid[i]!);
+      X += wx[i]! * r;
+      Y += wy[i]! * r;
+      Z += wz[i]! * r;
+    }
   }
   noteObjectColourMethod(table);
   return { X, Y, Z };
 }
 
 function noteObjectColourMethod(table: WeightingTable): void {
-  noteMethod("observer", table.observer.name + ".");
-  noteMethod("illuminant", `Object colours were computed under ${table.illuminantName}.`);
-  noteMethod(
-    "integration",
-    `Tristimulus values were summed at ${table.interval} nm intervals over ${table.wavelengths[0]}–${table.wavelengths.at(-1)} nm, normalised to Y = 100 for the perfect reflecting diffuser (CIE 015:2018 §7).`,
-  );
+  noteMethod("observer", table.notes.observer);
+  noteMethod("illuminant", table.notes.illuminant);
+  noteMethod("integration", table.notes.integration);
 }
 
 /** Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white (Y = 100). */
-export function whitePoint(options: Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range"> = {}): Tristimulus {
-  const ill = resolveIlluminant(options.illuminant);
-  const table = weightingTable({ ...options, interval: options.interval ?? defaultInterval(undefined, ill) });
+export function whitePoint(options: TableOptions = {}): Tristimulus {
+  const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
+  const table = tableFor(options.illuminant, options.observer, interval, options.range);
   let X = 0, Y = 0, Z = 0;
   for (let i = 0; i < table.wavelengths.length; i++) {
     X += table.wx[i]!;

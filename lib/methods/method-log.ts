@@ -36,20 +36,30 @@ export const METHOD_TOPICS = [
 ] as const;
 export type MethodTopic = (typeof METHOD_TOPICS)[number];
 
-const notes = new Map<string, MethodNote>();
+// Notes in first-use order, and per topic the statements already noted. Library functions call noteMethod in hot
+// loops (ΔE for a million pairs), so a repeated note must cost no more than two hash lookups and allocate nothing.
+const order: MethodNote[] = [];
+const seen = new Map<string, Set<string>>();
 
 /** Notes that a computation used a condition; repeated notes are kept once, in first-use order. */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  const key = `${topic}\u0000${statement}`;
-  if (!notes.has(key)) notes.set(key, { topic, statement });
+  let statements = seen.get(topic);
+  if (statements === undefined) {
+    statements = new Set();
+    seen.set(topic, statements);
+  }
+  if (statements.has(statement)) return;
+  statements.add(statement);
+  order.push({ topic, statement });
 }
 
 /** Every condition noted since the last reset, as plain serializable records. */
 export function methodsUsed(): MethodNote[] {
-  return [...notes.values()].map((n) => ({ ...n }));
+  return order.map((n) => ({ ...n }));
 }
 
 /** Forgets every note (the runner calls this at the start of a run). */
 export function resetMethodLog(): void {
-  notes.clear();
+  order.length = 0;
+  seen.clear();
 }
