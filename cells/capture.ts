@@ -40,8 +40,15 @@ export class CellOutput {
     }
   }
 
-  /** Adds a record other than console text, or a note in its place when it would exceed the budget. */
+  /**
+   * Adds a record other than console text, or a note in its place when it would exceed the budget. Checks and
+   * cautions are always kept: a dropped failed check or caution would mislead the reader.
+   */
   addRecord(record: OutputRecord): void {
+    if (record.kind === "check" || record.kind === "caution") {
+      this.pending.push(record);
+      return;
+    }
     const size = JSON.stringify(record).length;
     if (this.recordChars + size > MAX_RECORD_CHARS) {
       this.omitted.push(`a ${record.kind} of ${formatChars(size)}`);

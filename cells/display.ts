@@ -5,7 +5,7 @@
  */
 import { inspect } from "node:util";
 import { checkDigits, formatNumber } from "./format-number.ts";
-import { currentOutputSink } from "./output-sink.ts";
+import { emitRecord as emit } from "./emit.ts";
 import { toPlainData } from "./plain-data.ts";
 import type { OutputRecord, PlotSpec, SwatchRecord, TableColumnRecord } from "./records.ts";
 
@@ -38,15 +38,6 @@ export type FigureInput = PlotSpec & { readonly caption?: string };
 export interface TrustOptions {
   /** Render raw HTML as HTML. Only for text your own code generated from data you trust; default false (escaped). */
   readonly trusted?: boolean;
-}
-
-/** Sends a record to the running notebook, or prints a plain-text form when called outside a notebook run. */
-function emit(record: OutputRecord): void {
-  const sink = currentOutputSink();
-  if (sink) return sink(record);
-  const text = "text" in record ? record.text : JSON.stringify(record);
-  if (record.kind === "caution") console.warn(`${record.title}: ${record.text}`);
-  else console.log(text);
 }
 
 /** Shows any value: tables for arrays of objects, figures for Plotly specs and spectra, text for the rest. */

@@ -100,6 +100,38 @@ export interface CautionRecord {
   readonly text: string;
 }
 
+/**
+ * The limits of an acceptance check as the cell stated them. Every limit given must hold: min ≤ value ≤ max and
+ * target − tolerance ≤ value ≤ target + tolerance.
+ */
+export interface CheckLimits {
+  readonly min?: number;
+  readonly max?: number;
+  readonly target?: number;
+  readonly tolerance?: number;
+}
+
+/**
+ * An acceptance check stated by `check(label, value, limits)` or `checkThat(label, condition, detail)`. Shown in
+ * place and counted in the summary at the top; a failed check makes `tristim run` exit with code 3.
+ */
+export interface CheckRecord {
+  readonly kind: "check";
+  readonly label: string;
+  readonly passed: boolean;
+  /** The checked value; null when it was not a finite number; absent for a plain condition (checkThat). */
+  readonly value?: number | null;
+  /** The value as the report shows it (formatted with `digits`, or "NaN", "undefined", ...); absent for a condition. */
+  readonly valueText?: string;
+  readonly unit?: string;
+  /** Absent for a plain condition (checkThat). */
+  readonly limits?: CheckLimits;
+  /** Decimals for the value and the limits in the report; default up to 6 significant digits. */
+  readonly digits?: number;
+  /** A remark: the detail given to checkThat, or why the value could not be checked. */
+  readonly detail?: string;
+}
+
 /** A short remark added by the runner, e.g. that output was truncated. */
 export interface NoteRecord {
   readonly kind: "note";
@@ -150,6 +182,7 @@ export type OutputRecord =
   | MarkdownRecord
   | HtmlRecord
   | CautionRecord
+  | CheckRecord
   | NoteRecord
   | ErrorRecord;
 

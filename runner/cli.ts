@@ -7,7 +7,8 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import type { ErrorRecord } from "../cells/records.ts";
 import { NotebookError, UsageError } from "./errors.ts";
-import { EXIT, type ExitCode } from "./exit-codes.ts";
+import { checkResults } from "./check-results.ts";
+import { EXIT, worseExit, type ExitCode } from "./exit-codes.ts";
 import { helpText } from "./help.ts";
 import { parseInputArgument, resolveInputs } from "./inputs.ts";
 import type { NotebookDocument } from "./notebook.ts";
@@ -15,6 +16,7 @@ import { readNotebook } from "./parse-notebook.ts";
 import { defaultReportPath, writeReport } from "./report-file.ts";
 import { formatDuration } from "./report/format.ts";
 import { displayLocation, errorTitle } from "./report/render-output.ts";
+import { checkLine } from "./report/check-text.ts";
 import { describeCells } from "./report/summary.ts";
 import type { RunRecord } from "./run-record.ts";
 import { runDocument } from "./run-notebook.ts";
@@ -186,19 +188,36 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       exit = EXIT.internal;
       continue;
     }
-    const failed = printOutcome(document, run, target, options, io);
-    if (failed && exit === EXIT.ok) exit = EXIT.notebookFailed;
+    exit = worseExit(exit, printOutcome(document, run, target, options, io));
   }
   return exit;
 }
 
-/** Prints one notebook's outcome; returns whether it failed. */
-export function printOutcome(document: NotebookDocument, run: RunRecord, target: string, options: Pick<CommandOptions, "quiet">, io: Io): boolean {
+/** The exit code of one run: a failed cell (1) wins over a failed acceptance check (3). */
+export function runExitCode(run: RunRecord): ExitCode {
+  if (run.cells.some((c) => c.status === "failed" && !c.failureAllowed)) return EXIT.notebookFailed;
+  if (checkResults(run).some((c) => !c.record.passed)) return EXIT.checkFailed;
+  return EXIT.ok;
+}
+
+/** Prints one notebook's outcome (failed cells, then failed checks, on the error stream); returns its exit code. */
+export function printOutcome(document: NotebookDocument, run: RunRecord, target: string, options: Pick<CommandOptions, "quiet">, io: Io): ExitCode {
   const failures = run.cells.filter((c) => c.status === "failed" && !c.failureAllowed);
   const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
+  const checks = checkResults(run);
+  const failedChecks = checks.filter((c) => !c.record.passed);
   if (failures.length === 0) {
-    if (!options.quiet) io.out(`${shown(document.path)}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)} -> ${shown(target)}\n`);
-    return false;
+    const checkText = checks.length === 0 ? "" : failedChecks.length === 0
+      ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed`
+      : `, ${failedChecks.length} of ${checks.length === 1 ? "1 check" : `${checks.length} checks`} FAILED`;
+    const line = `${shown(document.path)}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)}${checkText} -> ${shown(target)}\n`;
+    if (failedChecks.length === 0) {
+      if (!options.quiet) io.out(line);
+      return EXIT.ok;
+    }
+    io.err(line);
+    for (const c of failedChecks) io.err(`  check failed (cell ${c.cell + 1}): ${checkLine(c.record)}\n`);
+    return EXIT.checkFailed;
   }
   const dir = path.dirname(document.path);
   for (const cell of failures) {
@@ -209,8 +228,9 @@ export function printOutcome(document: NotebookDocument, run: RunRecord, target:
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
   if (notRun.length) io.err(`  ${describeCells(notRun)} not run (use --keep-going to run them anyway)\n`);
+  for (const c of failedChecks) io.err(`  check failed (cell ${c.cell + 1}): ${checkLine(c.record)}\n`);
   io.err(`  report with the error: ${shown(target)}\n`);
-  return true;
+  return EXIT.notebookFailed;
 }
 
 function isDirectory(p: string): boolean {

@@ -9,10 +9,18 @@ export const EXIT = {
   notebookFailed: 1,
   /** The command line was wrong (unknown command or option, bad value, unknown input name). */
   usage: 2,
-  /** Reserved: every cell ran but an acceptance check failed (acceptance checks are a later addition). */
+  /** Every cell ran, but an acceptance check (check / checkThat) failed. A failed cell (1) wins over this. */
   checkFailed: 3,
   /** The runner itself failed: a report could not be written, or an internal error (set TRISTIM_DEBUG=1 for details). */
   internal: 4,
 } as const;
 
 export type ExitCode = (typeof EXIT)[keyof typeof EXIT];
+
+/** Exit codes from least to most severe: a failed cell outranks a failed check, and the runner's own failure both. */
+const SEVERITY: readonly ExitCode[] = [EXIT.ok, EXIT.checkFailed, EXIT.notebookFailed, EXIT.usage, EXIT.internal];
+
+/** The more severe of two exit codes (for several notebooks or a batch: the worst over the runs). */
+export function worseExit(a: ExitCode, b: ExitCode): ExitCode {
+  return SEVERITY.indexOf(b) > SEVERITY.indexOf(a) ? b : a;
+}

@@ -42,11 +42,21 @@ In a cell: show(value), showTable(rows, options), showFigure(spec, caption), sho
 showMarkdown(text), showHtml(html, { trusted }), showCaution(text), inputs.<name>, and the standard
 library, as globals or with import { ... } from "tristim".
 
+Acceptance checks (shown in place and summarised at the top; a failed one makes run exit with ${EXIT.checkFailed}):
+  check(label, value, { min, max, target, tolerance, unit, digits })
+                           passes when every limit given holds: min <= value <= max,
+                           |value - target| <= tolerance; NaN, Infinity or a non-number fails
+  checkThat(label, condition, detail?)
+                           passes when condition is true
+  Both return true or false.
+
 Exit codes:
   ${EXIT.ok}  every notebook ran and its report was written
   ${EXIT.notebookFailed}  a cell failed, or a notebook could not be read or parsed
   ${EXIT.usage}  wrong command line (unknown option, bad value, unknown input name)
-  ${EXIT.checkFailed}  reserved for failed acceptance checks
+  ${EXIT.checkFailed}  every cell ran, but an acceptance check failed (check / checkThat)
+  With several notebooks the most severe code is returned: ${EXIT.internal}, then ${EXIT.notebookFailed}, then ${EXIT.checkFailed}; a failed cell (${EXIT.notebookFailed})
+  wins over a failed check (${EXIT.checkFailed}).
   ${EXIT.internal}  the runner itself failed (report not writable, internal error; TRISTIM_DEBUG=1 shows details)
 `;
 }

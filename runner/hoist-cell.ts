@@ -9,7 +9,8 @@
  *   - `import` declarations become reads from namespaces the runner bundled beforehand ("tristim" reads the one
  *     loaded library);
  *   - the body runs inside an async function, so top-level `await` works;
- *   - the value of a final expression statement is returned, so the report can show it.
+ *   - the value of a final expression statement is returned, so the report can show it (except a call of `check` or
+ *     `checkThat`, whose true/false the check record already shows);
  *
  * Every edit keeps the line count, and the returned anchors map any offset in the result back to the input, so error
  * positions can be traced to the notebook through esbuild's source map.
@@ -94,7 +95,7 @@ export function hoistCell(js: string): HoistedCell {
         linked.add((node.id as AnyNode).name as string);
         break;
       case "ExpressionStatement":
-        if (i === body.length - 1) {
+        if (i === body.length - 1 && !isCheckCall(node.expression as AnyNode)) {
           const expression = node.expression as AnyNode;
           edits.push({ start: expression.start, end: expression.start, text: "return (" });
           edits.push({ start: expression.end, end: expression.end, text: ")" });
@@ -175,6 +176,17 @@ function visit(node: AnyNode, fn: (n: AnyNode) => void): void {
       visit(value as AnyNode, fn);
     }
   }
+}
+
+/** The display functions that return a value the report shows already (acceptance checks return pass/fail). */
+const SHOWN_ALREADY = new Set(["check", "checkThat"]);
+
+/** `check(...)` or `checkThat(...)` as a plain call (an `await`ed one too). */
+function isCheckCall(expression: AnyNode): boolean {
+  const call = expression.type === "AwaitExpression" ? (expression.argument as AnyNode) : expression;
+  if (call.type !== "CallExpression") return false;
+  const callee = call.callee as AnyNode;
+  return callee.type === "Identifier" && SHOWN_ALREADY.has(callee.name as string);
 }
 
 /** Applies non-overlapping edits; returns the text and the anchors of unchanged spans (offsets shifted by `base`). */

@@ -5,6 +5,7 @@
 import path from "node:path";
 import type {
   CautionRecord,
+  CheckRecord,
   ConsoleRecord,
   ErrorRecord,
   FigureRecord,
@@ -16,6 +17,8 @@ import type {
   TableRecord,
   ValueRecord,
 } from "../../cells/records.ts";
+import { checkAnchor } from "../check-results.ts";
+import { limitsText, marginText, valueText } from "./check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 
@@ -25,6 +28,9 @@ export interface RenderContext {
   tables: number;
   /** The notebook's folder; paths in error messages are shown relative to it. */
   readonly notebookDir: string;
+  /** The cell being rendered (0-based) and how many of its checks are rendered so far (for their anchors). */
+  cell: number;
+  cellChecks: number;
 }
 
 type Renderers = { [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string };
@@ -38,6 +44,7 @@ const renderers: Renderers = {
   markdown: renderMarkdown,
   html: renderHtml,
   caution: renderCaution,
+  check: (record, ctx) => renderChecks([record], ctx),
   note: renderNote,
   error: renderError,
 };
@@ -47,6 +54,40 @@ export function renderOutput(record: OutputRecord, ctx: RenderContext): string {
   const render = (renderers as Record<string, ((r: OutputRecord, c: RenderContext) => string) | undefined>)[record.kind];
   if (!render) return `<p class="out-note">An output of kind “${escapeHtml(String(record.kind))}” that this version cannot show.</p>`;
   return render(record, ctx);
+}
+
+/** HTML for a cell's outputs in order; consecutive checks share one table. */
+export function renderOutputs(records: readonly OutputRecord[], ctx: RenderContext): string {
+  const parts: string[] = [];
+  for (let i = 0; i < records.length; i++) {
+    if (records[i]!.kind !== "check") {
+      parts.push(renderOutput(records[i]!, ctx));
+      continue;
+    }
+    let j = i;
+    while (j + 1 < records.length && records[j + 1]!.kind === "check") j++;
+    parts.push(renderChecks(records.slice(i, j + 1) as CheckRecord[], ctx));
+    i = j;
+  }
+  return parts.join("\n");
+}
+
+/** A table of acceptance checks: result (word and symbol, not colour alone), label, value, limits. */
+function renderChecks(records: readonly CheckRecord[], ctx: RenderContext): string {
+  const rows = records.map((r) => {
+    const id = checkAnchor(ctx.cell, ctx.cellChecks++);
+    const margin = marginText(r);
+    const detail = r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "";
+    const result = r.passed
+      ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
+      : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> FAIL</td>`;
+    const measured = r.limits
+      ? `<td class="num check-value">${escapeHtml(valueText(r))}${margin ? `<span class="check-margin">${escapeHtml(margin)}</span>` : ""}</td><td class="check-limits">${escapeHtml(limitsText(r))}</td>`
+      : `<td class="num check-value">${escapeHtml(valueText(r))}</td><td class="check-limits">condition</td>`;
+    return `<tr class="check ${r.passed ? "check-pass" : "check-fail"}" id="${id}">${result}<td class="check-label">${escapeHtml(r.label)}${detail}</td>${measured}</tr>`;
+  }).join("");
+  return `<div class="table-scroll"><table class="checks"><thead><tr><th scope="col">Result</th><th scope="col">Acceptance check</th>` +
+    `<th scope="col" class="num">Value</th><th scope="col">Limits</th></tr></thead><tbody>${rows}</tbody></table></div>`;
 }
 
 function renderConsole(record: ConsoleRecord): string {

@@ -19,7 +19,7 @@ import { formatDuration } from "./format.ts";
 import { highlight } from "./highlight.ts";
 import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
 import { renderMethods } from "./methods-section.ts";
-import { renderOutput, type RenderContext } from "./render-output.ts";
+import { renderOutputs, type RenderContext } from "./render-output.ts";
 import { renderRunDetails } from "./run-details.ts";
 import { describeCells, renderSummary } from "./summary.ts";
 
@@ -70,7 +70,7 @@ interface CellView {
 /** Renders the report HTML for a document and the record of its run. */
 export function renderReport(document: NotebookDocument, run: RunRecord, options: ReportOptions = {}): string {
   const notebookDir = path.dirname(document.path);
-  const ctx: RenderContext = { figures: 0, tables: 0, notebookDir };
+  const ctx: RenderContext = { figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0 };
   const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
   for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
 
@@ -173,7 +173,9 @@ function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string 
     const failed = run.cells.filter((c) => c.status === "failed" && c.index < cell.index && !c.failureAllowed).map((c) => c.index + 1);
     notRun = `<p class="not-run-label">Cell ${number} was not run${failed.length ? ` because ${describeCells(failed.slice(-1))} failed` : ""}.</p>`;
   }
-  const outputs = withCaption(view.run?.outputs ?? [], cell.options.caption).map((o) => renderOutput(o, ctx)).join("\n");
+  ctx.cell = cell.index;
+  ctx.cellChecks = 0;
+  const outputs = renderOutputs(withCaption(view.run?.outputs ?? [], cell.options.caption), ctx);
   return `<section class="cell cell-${status}${status === "not-run" ? " not-run" : ""}" id="cell-${number}" data-line="${cell.fenceLine}">${source}${notRun}${
     outputs ? `<div class="cell-outputs">${outputs}</div>` : ""}</section>\n`;
 }

@@ -1,9 +1,11 @@
 /**
  * The summary at the top of the report: what a reader must know before reading on. Each section is a function of
  * the document and the run record that returns HTML or nothing; add a section by adding a function to
- * SUMMARY_SECTIONS (acceptance checks will go here).
+ * SUMMARY_SECTIONS.
  */
 import type { ErrorRecord } from "../../cells/records.ts";
+import { checkResults } from "../check-results.ts";
+import { checkLine } from "./check-text.ts";
 import type { NotebookDocument } from "../notebook.ts";
 import type { RunRecord } from "../run-record.ts";
 import { escapeHtml } from "./escape.ts";
@@ -38,6 +40,26 @@ export const failedCellsSection: SummarySection = ({ run, notebookDir }) => {
   return `<div class="summary-part failures${blocking.length === 0 ? " allowed" : ""}"><h2>${heading}</h2><ul>${items.join("")}</ul>${notRunText}</div>`;
 };
 
+/** The acceptance checks: how many passed and failed, each failed one linked to its row. */
+export const checksSection: SummarySection = ({ run }) => {
+  const checks = checkResults(run);
+  const incomplete = run.cells.some((c) => c.status === "failed" || c.status === "not-run");
+  const missing = incomplete
+    ? `<p class="checks-missing">Checks that cells would have stated after a failure, or in cells that were not run, are missing from this count.</p>`
+    : "";
+  if (checks.length === 0) return undefined;
+  const failed = checks.filter((c) => !c.record.passed);
+  const total = checks.length === 1 ? "1 acceptance check" : `${checks.length} acceptance checks`;
+  if (failed.length === 0) {
+    return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${missing}</div>`;
+  }
+  const items = failed.map((c) =>
+    `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(checkLine(c.record))}</a> <span class="where">(cell ${c.cell + 1})</span></li>`);
+  const passed = checks.length - failed.length;
+  return `<div class="summary-part checks failed" id="checks"><h2><span class="check-mark" aria-hidden="true">✗</span> ${failed.length} of ${total} failed</h2>` +
+    `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${missing}</div>`;
+};
+
 /** Every caution raised by a cell or the library, repeated here so no reader misses one. */
 export const cautionsSection: SummarySection = ({ run }) => {
   const seen = new Set<string>();
@@ -60,16 +82,17 @@ export const runEventsSection: SummarySection = ({ run }) => {
 };
 
 /** The summary sections, in the order they appear. */
-export const SUMMARY_SECTIONS: SummarySection[] = [failedCellsSection, cautionsSection, runEventsSection];
+export const SUMMARY_SECTIONS: SummarySection[] = [failedCellsSection, checksSection, cautionsSection, runEventsSection];
 
-/** The summary block, or a one-line all-clear when no section has anything to say. */
+/** The summary block: a one-line all-clear for the cells when none failed, then every section with something to say. */
 export function renderSummary(ctx: SummaryContext): string {
   const parts = SUMMARY_SECTIONS.map((section) => section(ctx)).filter((p): p is string => p !== undefined);
-  if (parts.length === 0) {
-    const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
-    return `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
-  }
-  return `<section class="summary" aria-label="Summary">${parts.join("")}</section>`;
+  const failed = ctx.run.cells.some((c) => c.status === "failed");
+  const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
+  const clear = failed ? "" :
+    `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
+  if (parts.length === 0) return clear;
+  return `<section class="summary" aria-label="Summary">${clear}${parts.join("")}</section>`;
 }
 
 /** "cells 4–7 and 9" */

@@ -1,0 +1,60 @@
+/** Words for acceptance checks, shared by the report, the summary, the index page and the terminal. */
+import { formatNumber } from "../../cells/format-number.ts";
+import type { CheckRecord } from "../../cells/records.ts";
+
+/** The limits as a spec sheet states them: "8 to 18 %", "≤ 0.004", "6500 ± 200 K" (limits as written, not rounded). */
+export function limitsText(record: CheckRecord): string {
+  const limits = record.limits;
+  if (!limits) return "condition holds";
+  const unit = record.unit ? ` ${record.unit}` : "";
+  const n = (v: number) => formatNumber(v).replace(/^-/, "−");
+  const parts: string[] = [];
+  if (limits.target !== undefined && limits.tolerance !== undefined) parts.push(`${n(limits.target)} ± ${n(limits.tolerance)}${unit}`);
+  if (limits.min !== undefined && limits.max !== undefined) parts.push(`${n(limits.min)} to ${n(limits.max)}${unit}`);
+  else if (limits.min !== undefined) parts.push(`≥ ${n(limits.min)}${unit}`);
+  else if (limits.max !== undefined) parts.push(`≤ ${n(limits.max)}${unit}`);
+  return parts.join(", and ");
+}
+
+/** The value with its unit: "12.40 %"; "condition met"/"not met" for a plain condition. */
+export function valueText(record: CheckRecord): string {
+  if (record.valueText === undefined) return record.passed ? "met" : "not met";
+  const text = record.value === null ? record.valueText : record.valueText.replace(/^-/, "−");
+  return `${text}${record.unit && record.value !== null ? ` ${record.unit}` : ""}`;
+}
+
+/**
+ * How far the value lies from what was asked: the deviation from a target ("+35 K from target"), and for a failed
+ * check how far outside the nearest limit it lies ("0.0012 above the limit"). Undefined when there is nothing to say.
+ */
+export function marginText(record: CheckRecord): string | undefined {
+  const { limits, value } = record;
+  if (!limits || typeof value !== "number") return undefined;
+  const unit = record.unit ? ` ${record.unit}` : "";
+  const fmt = (v: number) => formatNumber(Math.abs(v), record.digits);
+  // Up to 6 significant digits: a small excess must not round to 0 at the value's digits.
+  const exact = (v: number) => formatNumber(Math.abs(v));
+  const parts: string[] = [];
+  if (limits.target !== undefined) {
+    const d = value - limits.target;
+    parts.push(`${d > 0 ? "+" : d < 0 ? "−" : "±"}${fmt(d)}${unit} from target`);
+  }
+  if (!record.passed) {
+    let lower = limits.min ?? -Infinity;
+    let upper = limits.max ?? Infinity;
+    if (limits.target !== undefined && limits.tolerance !== undefined) {
+      lower = Math.max(lower, limits.target - limits.tolerance);
+      upper = Math.min(upper, limits.target + limits.tolerance);
+    }
+    if (value > upper) parts.push(`${exact(value - upper)}${unit} above the limit`);
+    else if (value < lower) parts.push(`${exact(lower - value)}${unit} below the limit`);
+  }
+  return parts.length ? parts.join("; ") : undefined;
+}
+
+/** One line for the terminal or a list: "White Δu′v′: 0.0052 (limits ≤ 0.004)". */
+export function checkLine(record: CheckRecord): string {
+  if (!record.limits) return `${record.label}: condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
+  const note = record.value === null && record.detail ? `; ${record.detail}` : "";
+  return `${record.label}: ${valueText(record)} (limits ${limitsText(record)}${note})`;
+}
