@@ -11,8 +11,7 @@ import { tristimulus, whitePoint } from "../colorimetry/tristimulus.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
-import { adaptToD65 } from "./bradford.ts";
-import { D65_WHITE_Y100 } from "./display-white.ts";
+import { adaptToD65, D65_WHITE_Y100 } from "./display-white.ts";
 
 /** One swatch: what `showSwatches` draws. */
 export interface Swatch {
