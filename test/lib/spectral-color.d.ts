@@ -16,6 +16,7 @@ declare module "spectral-color" {
     constructor(config: { shape: Shape; samples: T[] });
     sampleAt(wavelength: number): T;
     multiply(factor: SpectralDistribution<number> | number): SpectralDistribution<T>;
+    resample(shape: Shape): SpectralDistribution<T>;
   }
   export const cmfs: { CIE_1931_2DEG: SpectralDistribution<[number, number, number]> };
   export const illuminants: { D65: SpectralDistribution<number>; D50: SpectralDistribution<number>; E: SpectralDistribution<number> };
