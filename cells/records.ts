@@ -98,6 +98,8 @@ export interface CautionRecord {
   readonly kind: "caution";
   readonly title: string;
   readonly text: string;
+  /** Set when the caution came with a shown result (its `caution` field): what it belongs to, shown just before it. */
+  readonly about?: "value" | "table" | "figure" | "swatches";
 }
 
 /**

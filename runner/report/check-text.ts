@@ -2,11 +2,17 @@
 import { formatNumber } from "../../cells/format-number.ts";
 import type { CheckRecord } from "../../cells/records.ts";
 
+/** The unit as written after a number: " K", " %", but ":1" and "°" without a space (1000:1, 2°). */
+export function unitSuffix(unit: string | undefined): string {
+  if (!unit) return "";
+  return /^[:°′″]/.test(unit) && unit !== "°C" && unit !== "°F" ? unit : ` ${unit}`;
+}
+
 /** The limits as a spec sheet states them: "8 to 18 %", "≤ 0.004", "6500 ± 200 K" (limits as written, not rounded). */
 export function limitsText(record: CheckRecord): string {
   const limits = record.limits;
   if (!limits) return "condition holds";
-  const unit = record.unit ? ` ${record.unit}` : "";
+  const unit = unitSuffix(record.unit);
   const n = (v: number) => formatNumber(v).replace(/^-/, "−");
   const parts: string[] = [];
   if (limits.target !== undefined && limits.tolerance !== undefined) parts.push(`${n(limits.target)} ± ${n(limits.tolerance)}${unit}`);
@@ -20,7 +26,7 @@ export function limitsText(record: CheckRecord): string {
 export function valueText(record: CheckRecord): string {
   if (record.valueText === undefined) return record.passed ? "met" : "not met";
   const text = record.value === null ? record.valueText : record.valueText.replace(/^-/, "−");
-  return `${text}${record.unit && record.value !== null ? ` ${record.unit}` : ""}`;
+  return `${text}${record.value !== null ? unitSuffix(record.unit) : ""}`;
 }
 
 /**
@@ -30,7 +36,7 @@ export function valueText(record: CheckRecord): string {
 export function marginText(record: CheckRecord): string | undefined {
   const { limits, value } = record;
   if (!limits || typeof value !== "number") return undefined;
-  const unit = record.unit ? ` ${record.unit}` : "";
+  const unit = unitSuffix(record.unit);
   const fmt = (v: number) => formatNumber(Math.abs(v), record.digits);
   // Up to 6 significant digits: a small excess must not round to 0 at the value's digits.
   const exact = (v: number) => formatNumber(Math.abs(v));
@@ -54,7 +60,12 @@ export function marginText(record: CheckRecord): string | undefined {
 
 /** One line for the terminal or a list: "White Δu′v′: 0.0052 (limits ≤ 0.004)". */
 export function checkLine(record: CheckRecord): string {
-  if (!record.limits) return `${record.label}: condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
-  const note = record.value === null && record.detail ? `; ${record.detail}` : "";
-  return `${record.label}: ${valueText(record)} (limits ${limitsText(record)}${note})`;
+  return `${record.label}: ${checkOutcomeText(record)}`;
+}
+
+/** What a check found, without its label: "0.0052 (limits ≤ 0.004)", "NaN, not a number (limits 2.2 ± 0.1)". */
+export function checkOutcomeText(record: CheckRecord): string {
+  if (!record.limits) return `condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
+  const value = record.value === null ? `${record.valueText ?? "no value"}, not a number` : valueText(record);
+  return `${value} (limits ${limitsText(record)})`;
 }

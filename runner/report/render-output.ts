@@ -17,6 +17,7 @@ import type {
   TableRecord,
   ValueRecord,
 } from "../../cells/records.ts";
+import { cautionKey } from "../caution-results.ts";
 import { checkAnchor } from "../check-results.ts";
 import { limitsText, marginText, valueText } from "./check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
@@ -31,6 +32,9 @@ export interface RenderContext {
   /** The cell being rendered (0-based) and how many of its checks are rendered so far (for their anchors). */
   cell: number;
   cellChecks: number;
+  /** The anchor of each distinct caution's first box (by text), and the texts already shown in full. */
+  readonly cautionAnchors: ReadonlyMap<string, string>;
+  readonly cautionsShown: Set<string>;
 }
 
 type Renderers = { [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string };
@@ -145,8 +149,29 @@ function renderHtml(record: HtmlRecord): string {
   return `<pre class="out-value">${escapeHtml(record.html)}</pre>`;
 }
 
-function renderCaution(record: CautionRecord): string {
-  return `<aside class="caution" role="note"><p class="caution-title">${escapeHtml(record.title)}</p><p>${escapeHtml(record.text)}</p></aside>`;
+const CAUTION_ABOUT: Record<NonNullable<CautionRecord["about"]>, string> = {
+  value: "the result above",
+  table: "the table above",
+  figure: "the figure above",
+  swatches: "the swatches above",
+};
+
+/**
+ * A caution box. Each distinct text is shown in full once, where it first appears; later places repeat its first
+ * sentence with a link to the full text, so the caution stays beside every result it belongs to without flooding.
+ */
+function renderCaution(record: CautionRecord, ctx: RenderContext): string {
+  const key = cautionKey(record);
+  const anchor = ctx.cautionAnchors.get(key);
+  const about = record.about ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>` : "";
+  if (ctx.cautionsShown.has(key)) {
+    const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
+    const more = first.length < record.text.length ? " …" : "";
+    return `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
+      `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`;
+  }
+  ctx.cautionsShown.add(key);
+  return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
 }
 
 function renderNote(record: NoteRecord): string {

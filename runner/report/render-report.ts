@@ -14,6 +14,8 @@ import { fileURLToPath } from "node:url";
 import type { OutputRecord } from "../../cells/records.ts";
 import type { CellSource, NotebookDocument } from "../notebook.ts";
 import type { CellRun, RunRecord } from "../run-record.ts";
+import { cautionKey, cautionResults } from "../caution-results.ts";
+import { countChecks } from "../check-results.ts";
 import { escapeHtml } from "./escape.ts";
 import { formatDuration } from "./format.ts";
 import { highlight } from "./highlight.ts";
@@ -70,7 +72,11 @@ interface CellView {
 /** Renders the report HTML for a document and the record of its run. */
 export function renderReport(document: NotebookDocument, run: RunRecord, options: ReportOptions = {}): string {
   const notebookDir = path.dirname(document.path);
-  const ctx: RenderContext = { figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0 };
+  const cautions = cautionResults(run);
+  const ctx: RenderContext = {
+    figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0,
+    cautionAnchors: new Map(cautions.map((c) => [cautionKey(c.record), c.anchor])), cautionsShown: new Set(),
+  };
   const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
   for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
 
@@ -90,8 +96,10 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
 
   const methods = renderMethods(run.methods, "methods");
   const contentsEntries: Heading[] = headings.filter((h) => h.level <= 3);
-  if (methods) contentsEntries.push({ level: 2, text: "Methods", id: "methods" });
-  contentsEntries.push({ level: 2, text: "Run record", id: "run-record" });
+  // The appendices sit at the level of the notebook's top headings (h1 or h2), not indented under the last one.
+  const topLevel = Math.min(2, ...contentsEntries.map((h) => h.level));
+  if (methods) contentsEntries.push({ level: topLevel, text: "Methods", id: "methods" });
+  contentsEntries.push({ level: topLevel, text: "Run record", id: "run-record" });
   const hasFigures = /class="plot-figure"/.test(body);
   const plotly = !hasFigures ? "" : options.assetsHref !== undefined
     ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
@@ -140,12 +148,20 @@ function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: str
   const fm = document.frontMatter;
   const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
   const meta: [string, string][] = [];
-  if (fm.author) meta.push(["Author", fm.author]);
-  meta.push(["Date", fm.date ?? run.startedAt.slice(0, 10)]);
-  meta.push(["Made with", `${run.tool.name} ${run.tool.version}`]);
-  meta.push(["Run", `${formatDuration(run.durationMs)}, ${ran === 1 ? "1 cell" : `${ran} cells`}`]);
+  if (fm.author) meta.push(["Author", escapeHtml(fm.author)]);
+  meta.push(["Date", escapeHtml(fm.date ?? run.startedAt.slice(0, 10))]);
+  meta.push(["Made with", escapeHtml(`${run.tool.name} ${run.tool.version}`)]);
+  meta.push(["Run", escapeHtml(`${formatDuration(run.durationMs)}, ${ran === 1 ? "1 cell" : `${ran} cells`}`)]);
+  const counts = countChecks(run);
+  if (counts.passed + counts.failed > 0) {
+    const text = counts.failed === 0 ? `✓ all ${counts.passed} passed` : `✗ ${counts.failed} of ${counts.passed + counts.failed} failed`;
+    meta.push(["Acceptance checks", `<a href="#checks"${counts.failed ? ' class="meta-fail"' : ""}>${escapeHtml(text)}</a>`]);
+  }
+  const cautions = cautionResults(run).length;
+  const notice = cautions === 0 ? "" :
+    `<p class="title-notice" role="note"><span class="notice-mark" aria-hidden="true">!</span> This report contains ${cautions === 1 ? "a caution" : `${cautions} cautions`} about the use of its results — <a href="#cautions">read ${cautions === 1 ? "it" : "them"} first</a>.</p>`;
   return `<header class="title-block"><h1>${escapeHtml(title)}</h1><dl class="meta">${meta
-    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${escapeHtml(v)}</dd></div>`).join("")}</dl></header>`;
+    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${v}</dd></div>`).join("")}</dl>${notice}</header>`;
 }
 
 function renderContents(entries: Heading[]): string {

@@ -4,8 +4,9 @@
  * SUMMARY_SECTIONS.
  */
 import type { ErrorRecord } from "../../cells/records.ts";
+import { cautionResults } from "../caution-results.ts";
 import { checkResults } from "../check-results.ts";
-import { checkLine } from "./check-text.ts";
+import { checkOutcomeText } from "./check-text.ts";
 import type { NotebookDocument } from "../notebook.ts";
 import type { RunRecord } from "../run-record.ts";
 import { escapeHtml } from "./escape.ts";
@@ -54,25 +55,18 @@ export const checksSection: SummarySection = ({ run }) => {
     return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${missing}</div>`;
   }
   const items = failed.map((c) =>
-    `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(checkLine(c.record))}</a> <span class="where">(cell ${c.cell + 1})</span></li>`);
+    `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`);
   const passed = checks.length - failed.length;
   return `<div class="summary-part checks failed" id="checks"><h2><span class="check-mark" aria-hidden="true">✗</span> ${failed.length} of ${total} failed</h2>` +
     `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${missing}</div>`;
 };
 
-/** Every caution raised by a cell or the library, repeated here so no reader misses one. */
+/** Every distinct caution raised by a cell or carried by a result, repeated here so no reader misses one. */
 export const cautionsSection: SummarySection = ({ run }) => {
-  const seen = new Set<string>();
-  const items: string[] = [];
-  for (const cell of run.cells) {
-    for (const o of cell.outputs) {
-      if (o.kind !== "caution" || seen.has(`${o.title}\0${o.text}`)) continue;
-      seen.add(`${o.title}\0${o.text}`);
-      items.push(`<li><strong>${escapeHtml(o.title)}.</strong> ${escapeHtml(o.text)} <a href="#cell-${cell.index + 1}">(cell ${cell.index + 1})</a></li>`);
-    }
-  }
+  const items = cautionResults(run).map((c) =>
+    `<li>${c.record.title === "Caution" ? "" : `<strong>${escapeHtml(c.record.title)}.</strong> `}${escapeHtml(c.record.text)} <a href="#${c.anchor}">(cell ${c.cell + 1})</a></li>`);
   if (items.length === 0) return undefined;
-  return `<div class="summary-part cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
+  return `<div class="summary-part cautions" id="cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
 };
 
 /** Things that happened to the run itself (e.g. the cell process had to be restarted). */
