@@ -6,3 +6,4 @@ export * from "./beer-lambert.ts";
 export * from "./filter-stack.ts";
 export * from "./parametric-filters.ts";
 export * from "./sunglass-category.ts";
+export * from "./transmitted-light.ts";

@@ -5,7 +5,8 @@
  * chromaticities are brought to the reference white by the von Kries-type transform of CIE 13.3, and their
  * differences in CIE 1964 U*V*W* give the special indices Rᵢ = 100 − 4.6·ΔEᵢ; Ra is the mean of R1–R8.
  */
-import { chromaticityXy, uv1960FromXy } from "../colorimetry/chromaticity.ts";
+import { chromaticityXy, fromXyY, uv1960FromXy, xyFromUv1960, type Tristimulus } from "../colorimetry/chromaticity.ts";
+import { uvwFromXYZ } from "../colorimetry/cie-uvw.ts";
 import { CIE_TEST_COLOUR_SAMPLES_TABLE } from "../data/cie-test-colour-samples.ts";
 import { requireFinite } from "../filters/checks.ts";
 import { daylightSpectrum } from "../illuminants/daylight.ts";
@@ -52,6 +53,7 @@ export interface ColourRendering {
 }
 
 interface Sums {
+  readonly XYZ: Tristimulus;
   readonly Y: number;
   readonly u: number;
   readonly v: number;
@@ -66,7 +68,7 @@ function colourOf(weights: { x: number[]; y: number[]; z: number[] }, reflectanc
     Z += weights.z[i]! * r;
   }
   const uv = uv1960FromXy(chromaticityXy({ X, Y, Z }));
-  return { Y, u: uv.u, v: uv.v };
+  return { XYZ: { X, Y, Z }, Y, u: uv.u, v: uv.v };
 }
 
 /** Weighting k·S(λ)·x̄, ȳ, z̄ at 5 nm over 380–780 nm with k so that the source itself has Y = 100. */
@@ -86,12 +88,6 @@ function weightsFor(source: Spectrum): { x: number[]; y: number[]; z: number[] }
 /** CIE 13.3 adaptation coefficients c = (4 − u − 10v)/v and d = (1.708v + 0.404 − 1.481u)/v. */
 function cd(p: Sums): { c: number; d: number } {
   return { c: (4 - p.u - 10 * p.v) / p.v, d: (1.708 * p.v + 0.404 - 1.481 * p.u) / p.v };
-}
-
-/** CIE 1964 U*V*W* of a colour relative to a white (u₀, v₀): W* = 25Y^(1/3) − 17, U* = 13W*(u − u₀), V* = 13W*(v − v₀). */
-function uvw(Y: number, u: number, v: number, white: { u: number; v: number }): [number, number, number] {
-  const W = 25 * Math.cbrt(Y) - 17;
-  return [13 * W * (u - white.u), 13 * W * (v - white.v), W];
 }
 
 /** The reference illuminant of CIE 13.3 for a CCT: a Planckian radiator below 5000 K, CIE daylight from 5000 K. */
@@ -131,9 +127,10 @@ export function colourRenderingIndex(source: Spectrum, options: { cctMethod?: Cc
     const denom = 16.518 + 1.481 * cTerm - dTerm;
     const uAdapted = (10.872 + 0.404 * cTerm - 4 * dTerm) / denom;
     const vAdapted = 5.52 / denom;
-    const ref = uvw(ri.Y, ri.u, ri.v, r);
-    const test = uvw(ki.Y, uAdapted, vAdapted, r);
-    const deltaE = Math.hypot(ref[0] - test[0], ref[1] - test[1], ref[2] - test[2]);
+    // Both in CIE 1964 U*V*W* relative to the reference white (the adapted test white coincides with it).
+    const ref = uvwFromXYZ(ri.XYZ, r.XYZ);
+    const test = uvwFromXYZ(fromXyY({ ...xyFromUv1960({ u: uAdapted, v: vAdapted }), Y: ki.Y }), r.XYZ);
+    const deltaE = Math.hypot(ref.U - test.U, ref.V - test.V, ref.W - test.W);
     return { sample: name, R: 100 - 4.6 * deltaE, deltaE };
   });
   const ra = special.slice(0, 8).reduce((s, x) => s + x.R, 0) / 8;

@@ -1,3 +1,4 @@
+import { existsSync, readFileSync } from "node:fs";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
@@ -7,6 +8,8 @@ import {
   EYE_PROTECTION_CAUTION,
   externalFromInternal,
   externalTransmittance,
+  filterSunglassCategory,
+  transmittedLight,
   filterElement,
   filterElementFromMeasurement,
   internalFromExternal,
@@ -254,5 +257,58 @@ describe("sunglass filter category", () => {
     expect(sunglassCategory(0.05).notes.join(" ")).toMatch(/not suitable for driving/);
     expect(() => sunglassCategory(35)).toThrow(/percent/);
     expect(() => sunglassCategory(Number.NaN)).toThrow(/NaN/);
+  });
+});
+
+describe("light transmitted by a filter", () => {
+  it("keeps the source's chromaticity through a neutral filter, with τv = 10^−D", () => {
+    // Source: CIE 015:2018 §7.1 — a spectrally flat transmittance scales X, Y, Z alike, so xy is the illuminant's
+    // white and Y/100 = τv; ISO 5-1: D = 0.5 ↔ T = 10^−0.5.
+    const r = transmittedLight(neutralDensityFilter(0.5), { illuminant: "D65" });
+    expect(r.luminousTransmittance).toBeCloseTo(10 ** -0.5, 10);
+    expect(r.xy.x).toBeCloseTo(r.white.x, 10);
+    expect(r.xy.y).toBeCloseTo(r.white.y, 10);
+    expect(r.dominantWavelength).toBeNull();
+    expect(r.notes.join(" ")).toMatch(/no dominant wavelength/);
+    expect(filterSunglassCategory(neutralDensityFilter(0.5)).category).toBe(2);
+    expect(filterSunglassCategory(neutralDensityFilter(0.5)).caution).toBe(EYE_PROTECTION_CAUTION);
+  });
+
+  it("gives a narrow band-pass its centre as dominant wavelength, with high purity", () => {
+    // Source: CIE 015:2018 §9.1–9.2 — light of a narrow band lies near the spectrum locus at that wavelength, so its
+    // dominant wavelength is the band's centre and its excitation purity is close to 1. A blue-green-cut filter
+    // (magenta) is a purple: it has a complementary wavelength instead.
+    const narrow = transmittedLight(bandPassFilter(580, 4, { grid: { start: 360, end: 830, step: 0.5 } }));
+    expect(narrow.dominantWavelength!).toBeCloseTo(580, 0);
+    expect(narrow.complementary).toBe(false);
+    expect(narrow.purity).toBeGreaterThan(0.95);
+    const band = bandPassFilter(540, 80, { edgeWidth: 10 });
+    const magenta = transmittedLight(spectrum(band.wavelengths, band.values.map((v) => 0.9 - 0.85 * v), { name: "invented notch", quantity: "transmittance" }));
+    expect(magenta.complementary).toBe(true);
+    expect(magenta.dominantWavelength!).toBeGreaterThan(500);
+    expect(magenta.dominantWavelength!).toBeLessThan(570);
+    expect(() => transmittedLight(spectrum([400, 700], [0.5, 0.5], { name: "a tile", quantity: "reflectance" }))).toThrow(/not a transmittance/);
+  });
+
+  const ref = new URL("../../../../shared/reference/", import.meta.url);
+  const d65File = new URL("cie_std_illum_d65_1nm.csv", ref);
+  const vFile = new URL("cie_sle_photopic_1nm.csv", ref);
+  it.skipIf(!existsSync(d65File) || !existsSync(vFile))("matches τv summed directly from the CIE D65 and V(λ) dataset files", () => {
+    // Source: CIE D65 (DOI 10.25039/CIE.DS.hjfjmt59) and V(λ) (DOI 10.25039/CIE.DS.dktna2s3) 1 nm files in
+    // /work/shared/reference; τv = Σ S(λ)τ(λ)V(λ) / Σ S(λ)V(λ) (ISO/CIE 11664-3; ISO 12312-1's τv definition).
+    const table = (file: URL) => new Map(readFileSync(file, "utf8").trim().split("\n").slice(1).map((l) => l.split(",").map(Number) as [number, number]));
+    const S = table(d65File);
+    const V = table(vFile);
+    const filter = longPassFilter(520, { edgeWidth: 40, peak: 0.45, floor: 0.02 });
+    let num = 0;
+    let den = 0;
+    filter.wavelengths.forEach((w, i) => {
+      const s = S.get(w)! * V.get(w)!;
+      num += s * filter.values[i]!;
+      den += s;
+    });
+    const r = transmittedLight(filter);
+    expect(r.luminousTransmittance).toBeCloseTo(num / den, 6);
+    expect(filterSunglassCategory(filter).category).toBe(sunglassCategory(num / den).category);
   });
 });

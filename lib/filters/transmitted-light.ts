@@ -1,0 +1,79 @@
+/**
+ * The light a filter passes from a given source: luminous transmittance τv (ISO/CIE 11664-3; CIE 015:2018 §7.1),
+ * the chromaticity of the transmitted light (CIE 1931 xy, CIE 1976 u′v′), its dominant or complementary wavelength and
+ * excitation purity relative to the source's own white (CIE 015:2018 §9.1–9.2), and the sunglass category that τv
+ * implies (ISO 12312-1; informative only).
+ */
+import { chromaticityXy, uvPrimeFromXy, type Chromaticity, type Tristimulus, type UvPrime } from "../colorimetry/chromaticity.ts";
+import { dominantWavelength } from "../colorimetry/dominant-wavelength.ts";
+import { tristimulus, whitePoint, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
+import { luminousTransmittance } from "../photometry/photometric-quantities.ts";
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { requireFractionSpectrum } from "./checks.ts";
+import { sunglassCategory, type SunglassCategory } from "./sunglass-category.ts";
+
+export interface TransmittedLight {
+  /** τv as a fraction: the source's luminous power passed, weighted by V(λ) (CIE 1931 2° ȳ). */
+  readonly luminousTransmittance: number;
+  /** X, Y, Z of the filter under the source (Y = 100 τv for the 2° observer). */
+  readonly XYZ: Tristimulus;
+  readonly xy: Chromaticity;
+  readonly uvPrime: UvPrime;
+  /** The source's own white (the perfect transmitter under it), against which dominant wavelength is judged. */
+  readonly white: Chromaticity;
+  /** Dominant wavelength in nm (or the complementary wavelength for purples); null for a colour at the white. */
+  readonly dominantWavelength: number | null;
+  readonly complementary: boolean;
+  /** Excitation purity (CIE 015:2018 eq. 9.1); 0 for a colour at the white. */
+  readonly purity: number;
+  readonly illuminant: string;
+  readonly notes: readonly string[];
+}
+
+type LightOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval">;
+
+/** τv, xy, u′v′, dominant wavelength and purity of the light a filter transmits from a source (default D65, 2°). */
+export function transmittedLight(filter: Spectrum, options: LightOptions = {}): TransmittedLight {
+  if (filter?.kind !== "spectrum") throw new Error("transmittedLight: give the filter's transmittance spectrum");
+  if (filter.quantity !== "transmittance" && filter.quantity !== "other") {
+    throw new Error(`transmittedLight: "${filter.name}" is a ${filter.quantity} spectrum, not a transmittance`);
+  }
+  requireFractionSpectrum(filter, "transmittance");
+  const illuminant = options.illuminant ?? "D65";
+  const colourOptions = { illuminant, observer: options.observer, interval: options.interval };
+  const XYZ = tristimulus(filter, colourOptions);
+  const tv = luminousTransmittance(filter, { illuminant, interval: options.interval });
+  const notes: string[] = [];
+  if (XYZ.X + XYZ.Y + XYZ.Z <= 0) throw new Error(`transmittedLight: "${filter.name}" passes no light of the source, so it has no chromaticity`);
+  const xy = chromaticityXy(XYZ);
+  const white = chromaticityXy(whitePoint(colourOptions));
+  let dominant: number | null = null;
+  let complementary = false;
+  let purity = 0;
+  if (Math.hypot(xy.x - white.x, xy.y - white.y) < 1e-7) {
+    notes.push("The transmitted light has the source's own chromaticity (a neutral filter): it has no dominant wavelength.");
+  } else {
+    const d = dominantWavelength(xy, white, options.observer);
+    dominant = d.wavelength;
+    complementary = d.complementary;
+    purity = d.purity;
+  }
+  return {
+    luminousTransmittance: tv,
+    XYZ,
+    xy,
+    uvPrime: uvPrimeFromXy(xy),
+    white,
+    dominantWavelength: dominant,
+    complementary,
+    purity,
+    illuminant: typeof illuminant === "string" ? illuminant : illuminant.name,
+    notes,
+  };
+}
+
+/** The ISO 12312-1 category of a filter from its spectral transmittance: τv under D65 with the 2° observer, then sunglassCategory (informative only, with its caution). */
+export function filterSunglassCategory(filter: Spectrum): SunglassCategory {
+  requireFractionSpectrum(filter, "transmittance");
+  return sunglassCategory(luminousTransmittance(filter, { illuminant: "D65" }));
+}
