@@ -59,6 +59,8 @@ export interface CellDoneMessage {
   readonly error?: RawError;
   /** Absolute paths of the files the cell read. */
   readonly reads: readonly string[];
+  /** The method log so far (every condition noted since the run began), so a later crash cannot lose it. */
+  readonly methods?: readonly { readonly topic: string; readonly statement: string }[];
 }
 
 /** Cell process → runner: the answer to "finish". */

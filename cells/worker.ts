@@ -252,9 +252,20 @@ async function runCell(message: RunCellMessage): Promise<void> {
   failCurrentCell = null;
   const records = output.finish();
   if (records.length > 0) send({ type: "output", cell: message.cell, records });
-  send({ type: "done", cell: message.cell, durationMs, error, reads: [...reads] });
+  send({ type: "done", cell: message.cell, durationMs, error, reads: [...reads], methods: methodLog() });
   lastCell = currentCell;
   currentCell = null;
+}
+
+/** The library's method log as plain records (empty if the library has none or it fails). */
+function methodLog(): { topic: string; statement: string }[] {
+  const methodsUsed = lib.methodsUsed;
+  try {
+    if (typeof methodsUsed !== "function") return [];
+    return (methodsUsed() as { topic: unknown; statement: unknown }[]).map((m) => ({ topic: String(m.topic), statement: String(m.statement) }));
+  } catch {
+    return [];
+  }
 }
 
 async function start(): Promise<void> {
@@ -285,14 +296,7 @@ async function handle(message: ToCellProcess): Promise<void> {
   } else if (message.type === "run") {
     await runCell(message);
   } else if (message.type === "finish") {
-    const methodsUsed = lib.methodsUsed;
-    let methods: { topic: string; statement: string }[] = [];
-    try {
-      if (typeof methodsUsed === "function") methods = (methodsUsed() as typeof methods).map((m) => ({ topic: String(m.topic), statement: String(m.statement) }));
-    } catch {
-      methods = [];
-    }
-    process.send?.({ type: "finished", methods, lateError } satisfies FromCellProcess, () => {
+    process.send?.({ type: "finished", methods: methodLog(), lateError } satisfies FromCellProcess, () => {
       process.disconnect?.();
       realExit(0);
     });

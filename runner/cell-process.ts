@@ -17,7 +17,13 @@ export const FINISH_LIMIT_MS = 10_000;
 
 /** How one cell ended, seen from the runner. */
 export type CellOutcome =
-  | { readonly kind: "done"; readonly durationMs: number; readonly error?: RawError; readonly reads: readonly string[] }
+  | {
+      readonly kind: "done";
+      readonly durationMs: number;
+      readonly error?: RawError;
+      readonly reads: readonly string[];
+      readonly methods: readonly { readonly topic: string; readonly statement: string }[];
+    }
   | { readonly kind: "time-limit"; readonly durationMs: number }
   | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string };
 
@@ -96,7 +102,7 @@ export class CellProcess {
     }
     if (answer === "exit") return { kind: "crash", durationMs, detail: this.describeExit() };
     const done = answer as Extract<FromCellProcess, { type: "done" }>;
-    return { kind: "done", durationMs: done.durationMs, error: done.error, reads: done.reads };
+    return { kind: "done", durationMs: done.durationMs, error: done.error, reads: done.reads, methods: done.methods ?? [] };
   }
 
   /** Asks for the method log and lets the process end; undefined when it does not answer in time. */

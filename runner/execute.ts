@@ -30,6 +30,8 @@ export interface ExecuteOptions {
 export interface Execution {
   readonly cells: CellRun[];
   readonly methods: MethodRecord[];
+  /** Cells whose process was stopped before it could report its method notes (0-based). */
+  readonly methodGaps: number[];
   readonly events: string[];
 }
 
@@ -44,6 +46,15 @@ export async function executeCells(
   const runs: (CellRun | undefined)[] = document.cells.map(() => undefined);
   const events: string[] = [];
   const methods: MethodRecord[] = [];
+  const methodGaps: number[] = [];
+  const methodKeys = new Set<string>();
+  // Each cell reports the method log so far; merged in first-use order, so a later crash or restart loses nothing.
+  const noteMethods = (notes: readonly MethodRecord[]) => {
+    for (const m of notes) {
+      const key = `${m.topic}\0${m.statement}`;
+      if (!methodKeys.has(key)) (methodKeys.add(key), methods.push({ topic: m.topic, statement: m.statement }));
+    }
+  };
   const onOutput = (cell: number, records: readonly OutputRecord[]) => outputs[cell]?.push(...records);
   let process: CellProcess | undefined;
   let stopped: string | undefined;
@@ -105,12 +116,16 @@ export async function executeCells(
       const how = cell.options.timeLimitMs === undefined
         ? `the run's time limit of ${formatTimeLimit(limit)} (raise it with --time-limit, or with time-limit=… on this cell's fence line)`
         : `its time limit of ${formatTimeLimit(limit)} (set by time-limit=… on its fence line)`;
+      methodGaps.push(index);
       fail(index, cellLevelError("time-limit", `cell ${index + 1} did not finish within ${how}; it was stopped`, index, document), outcome.durationMs);
     } else if (outcome.kind === "crash") {
+      methodGaps.push(index);
       fail(index, cellLevelError("crash", `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`, index, document), outcome.durationMs);
     } else if (outcome.error) {
+      noteMethods(outcome.methods);
       fail(index, mapError(outcome.error, index, document, compiled), outcome.durationMs, outcome.reads);
     } else {
+      noteMethods(outcome.methods);
       finishCell({ index, status: "ok", outputs: outputs[index]!, durationMs: outcome.durationMs, reads: outcome.reads });
     }
   }
@@ -118,7 +133,7 @@ export async function executeCells(
   if (process?.alive) {
     const finished = await process.finish();
     if (finished) {
-      methods.push(...finished.methods);
+      noteMethods(finished.methods);
       if (finished.lateError && lastRan !== undefined) {
         // An error raised after the last cell finished, by code it left running: it belongs to that cell.
         const previous = runs[lastRan]!;
@@ -128,5 +143,5 @@ export async function executeCells(
     }
   }
   process?.kill();
-  return { cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }), methods, events };
+  return { cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }), methods, methodGaps, events };
 }

@@ -66,6 +66,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       keepGoing,
       cells: execution.cells,
       methods: execution.methods,
+      ...(execution.methodGaps.length ? { methodsMissingFrom: execution.methodGaps } : {}),
       filesRead: filesRead(execution.cells),
       events: execution.events,
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),

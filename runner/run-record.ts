@@ -56,6 +56,8 @@ export interface RunRecord {
   readonly keepGoing: boolean;
   readonly cells: readonly CellRun[];
   readonly methods: readonly MethodRecord[];
+  /** Cells (0-based) whose process was stopped before it reported its method notes: the Methods may be incomplete. */
+  readonly methodsMissingFrom?: readonly number[];
   readonly filesRead: readonly FileRead[];
   /** Things the reader should know about the run itself (e.g. the cell process was restarted). */
   readonly events: readonly string[];

@@ -1,24 +1,84 @@
 /**
  * The Methods section: the colorimetric conditions the library noted during the run (observer, illuminant,
- * wavelength range, interpolation, ...), grouped by topic in the order a reviewer reads them.
+ * wavelength range, interpolation, ...), written as a lab report's Methods: grouped under a few headings in the order
+ * a reviewer reads them, each topic a paragraph with a run-in heading. It says that no colorimetric computation was
+ * recorded only when that is true: the log was collected from every cell that ran.
  */
 import { METHOD_TOPICS } from "../../lib/methods/method-log.ts";
-import type { MethodRecord } from "../run-record.ts";
+import type { MethodRecord, RunRecord } from "../run-record.ts";
 import { escapeHtml } from "./escape.ts";
+import { describeCells } from "./summary.ts";
 
-/** The Methods section HTML, or an empty string when nothing was noted. */
-export function renderMethods(methods: readonly MethodRecord[], id: string): string {
-  if (methods.length === 0) return "";
+/** The headings of the section and the topics under each, in reading order. */
+const GROUPS: readonly { readonly heading: string; readonly topics: readonly string[] }[] = [
+  {
+    heading: "Colorimetric conditions",
+    topics: ["observer", "illuminant", "wavelength range", "interpolation", "extrapolation", "integration", "normalisation"],
+  },
+  {
+    heading: "Derived quantities",
+    topics: ["colour space", "colour temperature", "colour difference", "chromatic adaptation", "photometry", "rgb encoding", "gamut", "colour rendering"],
+  },
+  { heading: "Optical, mixing and print models", topics: ["optics", "mixing", "halftone"] },
+  { heading: "Data files", topics: ["data files"] },
+];
+
+/** Run-in headings for topics whose plain name would read oddly. */
+const TOPIC_LABEL: Record<string, string> = { "rgb encoding": "RGB encoding", "data files": "Files read and written" };
+
+/** Topics where more than one condition in one run deserves a remark (results may not be comparable). */
+const ONE_EXPECTED: Record<string, string> = {
+  observer: "More than one observer was used in this run; results computed with different observers are not comparable.",
+  illuminant: "More than one illuminant was used in this run; each result's cell shows which one it used.",
+};
+
+/** The Methods section HTML (always present, so a reader knows whether anything was recorded). */
+export function renderMethods(run: Pick<RunRecord, "methods" | "methodsMissingFrom" | "cells">, id: string): string {
+  const { methods } = run;
+  const gaps = run.methodsMissingFrom ?? [];
+  const ran = run.cells.some((c) => c.status === "ok" || c.status === "failed");
+  const gapNote = gaps.length === 0 ? "" :
+    `<p class="section-note methods-gap">The conditions used by ${describeCells(gaps.map((i) => i + 1))} could not be collected, because ` +
+    `${gaps.length === 1 ? "its process was" : "their process was"} stopped before reporting them; this list may be incomplete.</p>`;
+  if (methods.length === 0) {
+    const text = !ran
+      ? "No cells ran, so no computations were recorded."
+      : gaps.length > 0
+        ? "No colorimetric conditions were collected from the cells that finished."
+        : "No colorimetric computations were recorded during this run: no cell used a library function that depends on an observer, illuminant, formula or other condition.";
+    return `<section class="methods" id="${id}"><h2>Methods</h2><p class="section-note">${escapeHtml(text)}</p>${gapNote}</section>`;
+  }
+
+  const known = new Set(GROUPS.flatMap((g) => g.topics));
+  const byTopic = new Map<string, MethodRecord[]>();
+  for (const m of methods) byTopic.set(m.topic, [...(byTopic.get(m.topic) ?? []), m]);
   const order = (topic: string) => {
     const i = (METHOD_TOPICS as readonly string[]).indexOf(topic);
     return i < 0 ? METHOD_TOPICS.length : i;
   };
-  const topics = [...new Set(methods.map((m) => m.topic))].sort((a, b) => order(a) - order(b));
-  const groups = topics.map((topic) => {
-    const items = methods.filter((m) => m.topic === topic).map((m) => `<li>${escapeHtml(m.statement)}</li>`).join("");
-    return `<dt>${escapeHtml(topic.charAt(0).toUpperCase() + topic.slice(1))}</dt><dd><ul>${items}</ul></dd>`;
-  });
+  const others = [...byTopic.keys()].filter((t) => !known.has(t)).sort((a, b) => order(a) - order(b));
+  const groups = [...GROUPS, { heading: "Other conditions", topics: others }];
+
+  const html = groups.map((group) => {
+    const paragraphs = group.topics.filter((t) => byTopic.has(t)).map((topic) => {
+      const statements = byTopic.get(topic)!.map((m) => sentence(m.statement));
+      if (statements.length > 1 && ONE_EXPECTED[topic]) statements.push(ONE_EXPECTED[topic]!);
+      return `<p><strong class="run-in">${escapeHtml(topicLabel(topic))}.</strong> ${statements.map(escapeHtml).join(" ")}</p>`;
+    });
+    return paragraphs.length ? `<h3>${escapeHtml(group.heading)}</h3>${paragraphs.join("")}` : "";
+  }).join("");
   return `<section class="methods" id="${id}"><h2>Methods</h2>` +
-    `<p class="section-note">Conditions the computations in this report used, as recorded by the library during the run.</p>` +
-    `<dl class="method-list">${groups.join("")}</dl></section>`;
+    `<p class="section-note">The computations in this report used the following conditions, as the library recorded them while the cells ran.</p>` +
+    `${gapNote}<div class="method-text">${html}</div></section>`;
+}
+
+function topicLabel(topic: string): string {
+  return TOPIC_LABEL[topic] ?? topic.charAt(0).toUpperCase() + topic.slice(1);
+}
+
+/** A statement as a sentence: capitalised, ending with a full stop. */
+function sentence(statement: string): string {
+  const text = statement.trim();
+  const capitalised = text.charAt(0).toUpperCase() + text.slice(1);
+  return /[.!?)]$/.test(capitalised) && !/\)$/.test(capitalised) ? capitalised : `${capitalised}.`;
 }

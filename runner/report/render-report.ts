@@ -94,7 +94,7 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
   const headings = labelHeadings(tokens, used);
   const body = proseMarkdown.renderer.render(tokens, proseMarkdown.options, env);
 
-  const methods = renderMethods(run.methods, "methods");
+  const methods = renderMethods(run, "methods");
   const contentsEntries: Heading[] = headings.filter((h) => h.level <= 3);
   // The appendices sit at the level of the notebook's top headings (h1 or h2), not indented under the last one.
   const topLevel = Math.min(2, ...contentsEntries.map((h) => h.level));

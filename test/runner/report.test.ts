@@ -159,7 +159,7 @@ describe("the report", () => {
     }));
     const methods = html.slice(html.indexOf('<section class="methods"'), html.indexOf('<section class="run-details"'));
     expect(methods.indexOf("Observer")).toBeLessThan(methods.indexOf("Colour difference"));
-    expect(methods).toContain("<li>CIEDE2000</li><li>CIE 1976 ΔE*ab</li>");
+    expect(methods).toContain('<strong class="run-in">Colour difference.</strong> CIEDE2000. CIE 1976 ΔE*ab.</p>');
     const details = html.slice(html.indexOf('<section class="run-details"'));
     expect(details).toContain(`SHA-256 ${"ab".repeat(32)}`);
     expect(details).toContain("<code>n</code> = <code>2</code> (set on the command line)");
