@@ -162,6 +162,17 @@ describe("colour differences against culori and colorjs.io (general-purpose libr
 });
 
 describe("colour difference properties", () => {
+  it("the fast ΔE00 equals the step-by-step formula that reproduces Sharma's intermediate values (property)", () => {
+    fc.assert(
+      fc.property(labArb, labArb, fc.double({ min: 0.5, max: 2, noNaN: true }), (a, b, k) => {
+        expectAgree(deltaE2000(a, b), ciede2000Terms(a, b).deltaE, 1e-12);
+        expectAgree(deltaE2000(a, b, { kL: k, kC: 1 / k, kH: k }), ciede2000Terms(a, b, { kL: k, kC: 1 / k, kH: k }).deltaE, 1e-12);
+      }),
+      { numRuns: 500 },
+    );
+    expect(() => deltaE2000(null as never, { L: 1, a: 1, b: 1 })).toThrow(/first colour/);
+  });
+
   it("ΔE*ab, ΔE00 are zero for identical colours and symmetric (Sharma et al. 2005 note ΔE00 symmetry)", () => {
     fc.assert(
       fc.property(labArb, labArb, (a, b) => {
