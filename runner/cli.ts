@@ -7,6 +7,7 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import type { ErrorRecord } from "../cells/records.ts";
 import { NotebookError, UsageError } from "./errors.ts";
+import { parseEachArgument, runBatch, type EachOption } from "./batch.ts";
 import { checkResults } from "./check-results.ts";
 import { EXIT, worseExit, type ExitCode } from "./exit-codes.ts";
 import { helpText } from "./help.ts";
@@ -42,6 +43,10 @@ export interface CommandOptions {
   readonly linkAssets: boolean;
   readonly quiet: boolean;
   readonly port: number;
+  /** Make reports byte-reproducible (no date, no durations). */
+  readonly reproducible: boolean;
+  /** Run once per data file: --each name=pattern. */
+  readonly each?: EachOption;
 }
 
 /** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
@@ -115,6 +120,8 @@ export function parseOptions(args: readonly string[], command: "run" | "watch"):
         "link-assets": { type: "boolean" },
         quiet: { type: "boolean" },
         port: { type: "string" },
+        reproducible: { type: "boolean" },
+        each: { type: "string", multiple: true },
         help: { type: "boolean", short: "h" },
       },
     });
@@ -122,8 +129,12 @@ export function parseOptions(args: readonly string[], command: "run" | "watch"):
     throw new UsageError((e as Error).message.replace(/\. To specify a positional argument.*$/s, "").replace(/^Unknown option/, "unknown option"));
   }
   const v = parsed.values;
-  if (v.help) return { options: { inputs: {}, keepGoing: false, linkAssets: false, quiet: false, port: DEFAULT_PORT }, files: [], help: true };
+  if (v.help) return { options: { inputs: {}, keepGoing: false, linkAssets: false, quiet: false, port: DEFAULT_PORT, reproducible: false }, files: [], help: true };
   if (v.port !== undefined && command !== "watch") throw new UsageError("--port is an option of watch, not of run");
+  if (v.each !== undefined && command !== "run") throw new UsageError("--each is an option of run, not of watch");
+  if (v.reproducible && command !== "run") throw new UsageError("--reproducible is an option of run, not of watch");
+  if ((v.each?.length ?? 0) > 1) throw new UsageError("--each can be given once (one input takes the data files)");
+  const each = v.each?.[0] === undefined ? undefined : parseEachArgument(v.each[0]);
   const inputs: Record<string, string> = {};
   for (const argument of v.input ?? []) {
     const [name, value] = parseInputArgument(argument);
@@ -147,6 +158,8 @@ export function parseOptions(args: readonly string[], command: "run" | "watch"):
       linkAssets: v["link-assets"] === true,
       quiet: v.quiet === true,
       port,
+      reproducible: v.reproducible === true,
+      ...(each ? { each } : {}),
     },
   };
 }
@@ -160,6 +173,10 @@ export function reportPathFor(notebook: string, output: string | undefined, seve
 }
 
 async function runCommand(files: string[], options: CommandOptions, io: Io): Promise<ExitCode> {
+  if (options.each) {
+    if (files.length !== 1) throw new UsageError(`--each runs one notebook once per data file; got ${files.length} notebooks`);
+    return eachCommand(readNotebook(files[0]!), options.each, options, io);
+  }
   let exit: ExitCode = EXIT.ok;
   const documents: NotebookDocument[] = [];
   for (const file of files) {
@@ -178,7 +195,12 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     throw new UsageError(`-o ${options.output}: with several notebooks, -o must name a folder`);
   }
   for (const document of documents) {
-    const run = await runDocument(document, { inputs: options.inputs, timeLimitMs: options.timeLimitMs, keepGoing: options.keepGoing });
+    const run = await runDocument(document, {
+      inputs: options.inputs,
+      timeLimitMs: options.timeLimitMs,
+      keepGoing: options.keepGoing,
+      reproducible: options.reproducible,
+    });
     const target = reportPathFor(document.path, options.output, several);
     try {
       fs.mkdirSync(path.dirname(target), { recursive: true });
@@ -193,15 +215,35 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
   return exit;
 }
 
-/** The exit code of one run: a failed cell (1) wins over a failed acceptance check (3). */
-export function runExitCode(run: RunRecord): ExitCode {
-  if (run.cells.some((c) => c.status === "failed" && !c.failureAllowed)) return EXIT.notebookFailed;
-  if (checkResults(run).some((c) => !c.record.passed)) return EXIT.checkFailed;
-  return EXIT.ok;
+/** Runs one notebook once per data file; prints a line per run and where the index is. */
+async function eachCommand(document: NotebookDocument, each: EachOption, options: CommandOptions, io: Io): Promise<ExitCode> {
+  resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  const { exit, index, entries } = await runBatch(document, each, {
+    ...options,
+    cwd: process.cwd(),
+    onRun: (run, place) => {
+      const label = `${shown(document.path)} [${place.position}/${place.count} ${each.input}=${place.dataFile}]`;
+      if (place.report) printOutcome(document, run, place.report, options, io, label);
+      else io.err(`${label}: the report could not be written: ${place.error}\n`);
+    },
+  });
+  const ok = entries.filter((e) => e.exit === EXIT.ok).length;
+  const line = `${entries.length === 1 ? "1 run" : `${entries.length} runs`}, ${ok} passed -> ${shown(index)}\n`;
+  if (exit === EXIT.ok) {
+    if (!options.quiet) io.out(line);
+  } else io.err(line);
+  return exit;
 }
 
 /** Prints one notebook's outcome (failed cells, then failed checks, on the error stream); returns its exit code. */
-export function printOutcome(document: NotebookDocument, run: RunRecord, target: string, options: Pick<CommandOptions, "quiet">, io: Io): ExitCode {
+export function printOutcome(
+  document: NotebookDocument,
+  run: RunRecord,
+  target: string,
+  options: Pick<CommandOptions, "quiet">,
+  io: Io,
+  label = shown(document.path),
+): ExitCode {
   const failures = run.cells.filter((c) => c.status === "failed" && !c.failureAllowed);
   const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
   const checks = checkResults(run);
@@ -210,7 +252,7 @@ export function printOutcome(document: NotebookDocument, run: RunRecord, target:
     const checkText = checks.length === 0 ? "" : failedChecks.length === 0
       ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed`
       : `, ${failedChecks.length} of ${checks.length === 1 ? "1 check" : `${checks.length} checks`} FAILED`;
-    const line = `${shown(document.path)}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)}${checkText} -> ${shown(target)}\n`;
+    const line = `${label}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)}${checkText} -> ${shown(target)}\n`;
     if (failedChecks.length === 0) {
       if (!options.quiet) io.out(line);
       return EXIT.ok;
@@ -220,6 +262,7 @@ export function printOutcome(document: NotebookDocument, run: RunRecord, target:
     return EXIT.checkFailed;
   }
   const dir = path.dirname(document.path);
+  if (label !== shown(document.path)) io.err(`${label}: ${failures.length === 1 ? "a cell" : `${failures.length} cells`} failed\n`);
   for (const cell of failures) {
     const error = cell.outputs.find((o): o is ErrorRecord => o.kind === "error");
     const where = error?.location ? displayLocation(error.location, dir) : shown(document.path);

@@ -23,6 +23,8 @@ export interface CompiledCell {
   readonly filename: string;
   /** Path of the bundle of the cell's imports, if it has any besides "tristim". */
   readonly importBundle?: string;
+  /** Absolute paths of the notebook's own files bundled for the cell's imports (not npm packages), for provenance. */
+  readonly importedFiles?: readonly string[];
   readonly sharedNames: readonly string[];
   readonly positions?: CellPositions;
   readonly failure?: ErrorRecord;
@@ -90,11 +92,12 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
   };
 
   let importBundle: string | undefined;
+  let importedFiles: string[] | undefined;
   if (hoisted.imports.length > 0) {
     importBundle = path.join(context.outDir, `cell-${cell.index + 1}-imports.mjs`);
     const entry = hoisted.imports.map((imp, i) => `export * as m${i} from ${JSON.stringify(imp.specifier)};`).join("\n");
     try {
-      await esbuild.build({
+      const built = await esbuild.build({
         stdin: { contents: entry, resolveDir: path.dirname(document.path), sourcefile: IMPORTS_ENTRY, loader: "js" },
         bundle: true,
         platform: "node",
@@ -105,7 +108,11 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
         logLevel: "silent",
         banner: { js: BANNER },
         plugins: [tristimExternal(context.tristimModule)],
+        metafile: true,
       });
+      importedFiles = Object.keys(built.metafile?.inputs ?? {})
+        .filter((f) => f !== "<stdin>" && !f.includes(IMPORTS_ENTRY) && !/(^|[/\\])node_modules[/\\]/.test(f) && !f.includes(":"))
+        .map((f) => path.resolve(f));
     } catch (e) {
       const message = (e as esbuild.BuildFailure).errors?.[0];
       if (!message) throw e;
@@ -136,7 +143,10 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
       };
     }
   }
-  return { index: cell.index, code: hoisted.code, filename, importBundle, sharedNames: hoisted.sharedNames, positions };
+  return {
+    index: cell.index, code: hoisted.code, filename, importBundle, sharedNames: hoisted.sharedNames, positions,
+    ...(importedFiles?.length ? { importedFiles } : {}),
+  };
 }
 
 /** Compiles every cell to run, all at once (esbuild works on them in parallel); `no-run` cells give undefined. */

@@ -8,6 +8,9 @@ export function helpText(version: string): string {
 
 Usage:
   tristim run <notebook.md>... [options]   run notebooks, write <notebook>.html beside each
+  tristim run <notebook.md> --each <input>=<files> [options]
+                                           run one notebook once per data file, one report each
+                                           and an index page
   tristim watch <notebook.md> [options]    serve the report on 127.0.0.1, re-run on save
   tristim help                             show this text (also --help, -h)
   tristim --version                        print the version
@@ -23,6 +26,16 @@ Options for run and watch:
   --link-assets            link Plotly from a shared folder tristim-assets/ beside the report instead of
                            embedding it in every report (for folders of many reports)
   --quiet                  print only failures
+Options for run:
+  --reproducible           leave every wall-clock value (date, durations) out of the report, so that two
+                           runs of the same notebook on the same files give identical bytes (diff them)
+  --each <input>=<files>   run the notebook once per data file, binding the file's path (relative to the
+                           notebook) to the text input <input>. <files> is a folder (every visible file in
+                           it), a file, or a pattern: * and ? within a name, ** for any depth of folders,
+                           relative to the current folder; quote it, e.g. --each 'data=lots/*.csv'.
+                           Reports go to -o <folder> (default <notebook>-reports/ beside the notebook),
+                           one per data file named after it, with index.html listing every run.
+                           The exit code is the worst over the runs.
 Options for watch:
   --port <number>          port on 127.0.0.1 (default ${DEFAULT_PORT}; 0 picks a free one)
 
@@ -40,7 +53,8 @@ Notebook format:
 
 In a cell: show(value), showTable(rows, options), showFigure(spec, caption), showSwatches(list, caption),
 showMarkdown(text), showHtml(html, { trusted }), showCaution(text), inputs.<name>, and the standard
-library, as globals or with import { ... } from "tristim".
+library, as globals or with import { ... } from "tristim". A shown value, table or figure with a
+caution field (e.g. a sunglass category) gets that caution shown beside it and in the summary.
 
 Acceptance checks (shown in place and summarised at the top; a failed one makes run exit with ${EXIT.checkFailed}):
   check(label, value, { min, max, target, tolerance, unit, digits })

@@ -10,7 +10,9 @@ import { compileCells } from "./compile-cell.ts";
 import { executeCells } from "./execute.ts";
 import { resolveInputs } from "./inputs.ts";
 import type { NotebookDocument } from "./notebook.ts";
-import type { FileRead, RunRecord } from "./run-record.ts";
+import type { BatchPlace, FileRead, RunRecord } from "./run-record.ts";
+import type { CompiledCell } from "./compile-cell.ts";
+import type { OutputRecord } from "../cells/records.ts";
 import { cacheRoot, runtimeBundle } from "./runtime-bundle.ts";
 import type { CellRun } from "./run-record.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "./time-limit.ts";
@@ -26,6 +28,10 @@ export interface RunOptions {
   readonly keepGoing?: boolean;
   readonly signal?: AbortSignal;
   readonly onCell?: (run: CellRun) => void;
+  /** Make the report byte-reproducible: it leaves out the date and durations. */
+  readonly reproducible?: boolean;
+  /** This run's place in a batch over data files. */
+  readonly batch?: BatchPlace;
 }
 
 /** Runs every cell of a parsed notebook and returns the record of the run. */
@@ -53,6 +59,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       onCell: options.onCell,
       started: early,
     });
+    const cells = execution.cells.map((c) => withoutTemporaryPaths(c, outDir));
     return {
       notebook: { path: document.path, sha256: document.sha256 },
       tool: toolVersion(),
@@ -64,12 +71,14 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       inputsSet: set,
       timeLimitMs,
       keepGoing,
-      cells: execution.cells,
+      cells,
       methods: execution.methods,
       ...(execution.methodGaps.length ? { methodsMissingFrom: execution.methodGaps } : {}),
-      filesRead: filesRead(execution.cells),
+      filesRead: filesRead(cells, compiled),
       events: execution.events,
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),
+      ...(options.reproducible ? { reproducible: true } : {}),
+      ...(options.batch ? { batch: options.batch } : {}),
     };
   } finally {
     void early?.then((p) => p.kill(), () => undefined);
@@ -92,17 +101,46 @@ export function runSignature(
   return createHash("sha256").update(JSON.stringify({ cells, inputs, timeLimitMs, keepGoing, path: document.path })).digest("hex");
 }
 
-/** The files the cells read, each with its SHA-256 now and the cells that read it. */
-function filesRead(cells: readonly CellRun[]): FileRead[] {
-  const byPath = new Map<string, number[]>();
-  for (const cell of cells) for (const file of cell.reads) byPath.set(file, [...(byPath.get(file) ?? []), cell.index]);
-  return [...byPath.entries()].map(([file, readers]) => {
+/** The files the cells read or imported, each with its SHA-256 now and the cells that used it. */
+function filesRead(cells: readonly CellRun[], compiled: readonly (CompiledCell | undefined)[]): FileRead[] {
+  const byPath = new Map<string, { cells: number[]; read: boolean }>();
+  const add = (file: string, cell: number, read: boolean) => {
+    const entry = byPath.get(file) ?? { cells: [], read: false };
+    if (!entry.cells.includes(cell)) entry.cells.push(cell);
+    entry.read ||= read;
+    byPath.set(file, entry);
+  };
+  for (const cell of cells) {
+    for (const file of compiled[cell.index]?.importedFiles ?? []) if (cell.status !== "listing") add(file, cell.index, false);
+    for (const file of cell.reads) add(file, cell.index, true);
+  }
+  return [...byPath.entries()].map(([file, { cells: readers, read }]) => {
+    const imported = read ? {} : { imported: true as const };
     try {
       const stat = fs.statSync(file);
-      if (!stat.isFile()) return { path: file, cells: readers };
-      return { path: file, sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"), cells: readers };
+      if (!stat.isFile()) return { path: file, cells: readers, ...imported };
+      return { path: file, sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"), cells: readers, ...imported };
     } catch {
-      return { path: file, cells: readers };
+      return { path: file, cells: readers, ...imported };
     }
   });
+}
+
+/**
+ * A cell's records with the run's temporary folder (import bundles, removed after the run) replaced by a plain
+ * placeholder: the path means nothing after the run and would make two runs' reports differ.
+ */
+function withoutTemporaryPaths(cell: CellRun, outDir: string): CellRun {
+  if (!cell.outputs.some((o) => o.kind === "error" && JSON.stringify(o).includes(outDir))) return cell;
+  const scrub = (text: string) => text.split(outDir).join("<run folder>");
+  const outputs = cell.outputs.map((o): OutputRecord => {
+    if (o.kind !== "error") return o;
+    return {
+      ...o,
+      message: scrub(o.message),
+      ...(o.location ? { location: { ...o.location, file: scrub(o.location.file) } } : {}),
+      ...(o.stack ? { stack: o.stack.map((f) => ({ ...f, file: scrub(f.file) })) } : {}),
+    };
+  });
+  return { ...cell, outputs };
 }

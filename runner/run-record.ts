@@ -25,12 +25,25 @@ export interface CellRun {
   readonly failureAllowed?: boolean;
 }
 
-/** A file some cell read, with its SHA-256 at the end of the run (for the report's record of inputs). */
+/** A file some cell read or imported, with its SHA-256 at the end of the run (for the report's record of inputs). */
 export interface FileRead {
   readonly path: string;
   readonly sha256?: string;
-  /** 0-based indexes of the cells that read it. */
+  /** 0-based indexes of the cells that read or imported it. */
   readonly cells: readonly number[];
+  /** The file was a module bundled for a cell's import (a helper .ts/.js/.json beside the notebook), not read by fs. */
+  readonly imported?: boolean;
+}
+
+/** The place of one run in a batch (`tristim run nb.md --each name=pattern`). */
+export interface BatchPlace {
+  /** The input bound to each data file. */
+  readonly input: string;
+  /** The pattern as given on the command line. */
+  readonly pattern: string;
+  /** 1-based position of this run and the number of runs. */
+  readonly position: number;
+  readonly count: number;
 }
 
 /** One colorimetric condition from the library's method log. */
@@ -63,4 +76,8 @@ export interface RunRecord {
   readonly events: readonly string[];
   /** Identifies what was executed (code, run options, inputs), so watch can tell a prose-only edit. */
   readonly signature: string;
+  /** The report leaves out wall-clock values (date, durations) so that two runs give identical bytes. */
+  readonly reproducible?: boolean;
+  /** Set when the run is one of a batch over data files. */
+  readonly batch?: BatchPlace;
 }

@@ -81,16 +81,8 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
   for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
 
   const tokens = proseMarkdown.parse(document.body, env);
-  let title = document.frontMatter.title;
-  if (title === undefined) {
-    const h1 = tokens.findIndex((t: Token) => t.type === "heading_open" && t.tag === "h1");
-    if (h1 >= 0) {
-      title = tokens[h1 + 1]?.content ?? "";
-      tokens.splice(h1, 3);
-    }
-  }
-  title ||= path.basename(document.path).replace(/\.(md|markdown)$/i, "");
-  const used = new Set(["contents", "methods", "run-record", "summary"]);
+  const title = takeTitle(document, tokens);
+  const used = new Set(["contents", "methods", "run-record", "summary", "checks", "cautions"]);
   const headings = labelHeadings(tokens, used);
   const body = proseMarkdown.renderer.render(tokens, proseMarkdown.options, env);
 
@@ -99,7 +91,7 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
   // The appendices sit at the level of the notebook's top headings (h1 or h2), not indented under the last one.
   const topLevel = Math.min(2, ...contentsEntries.map((h) => h.level));
   if (methods) contentsEntries.push({ level: topLevel, text: "Methods", id: "methods" });
-  contentsEntries.push({ level: topLevel, text: "Run record", id: "run-record" });
+  contentsEntries.push({ level: topLevel, text: "Provenance", id: "run-record" });
   const hasFigures = /class="plot-figure"/.test(body);
   const plotly = !hasFigures ? "" : options.assetsHref !== undefined
     ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
@@ -111,7 +103,7 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <meta name="generator" content="${escapeHtml(`${run.tool.name} ${run.tool.version}`)}">
-<title>${escapeHtml(title)}</title>
+<title>${escapeHtml(run.batch ? `${title} — ${path.basename(String(run.inputs[run.batch.input]))}` : title)}</title>
 <style>${CSS}</style>
 </head>
 <body>
@@ -123,7 +115,7 @@ ${renderContents(contentsEntries)}
 ${body}
 </article>
 ${methods}
-${renderRunDetails(document, run, "run-record")}
+${renderRunDetails(document, run, "run-record", hasFigures ? { plotlyVersion: PLOTLY_VERSION } : {})}
 <footer class="report-footer">Made with ${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} from ${escapeHtml(path.basename(document.path))}.</footer>
 </main>
 ${plotly}
@@ -132,6 +124,24 @@ ${options.extraBodyHtml ?? ""}
 </body>
 </html>
 `;
+}
+
+/** The report's title: the front matter's, else the first h1 (taken out of the tokens), else the file name. */
+function takeTitle(document: NotebookDocument, tokens: Token[]): string {
+  let title = document.frontMatter.title;
+  if (title === undefined) {
+    const h1 = tokens.findIndex((t: Token) => t.type === "heading_open" && t.tag === "h1");
+    if (h1 >= 0) {
+      title = tokens[h1 + 1]?.content ?? "";
+      tokens.splice(h1, 3);
+    }
+  }
+  return title || path.basename(document.path).replace(/\.(md|markdown)$/i, "");
+}
+
+/** The title a notebook's report carries (as the report's title block shows it). */
+export function reportTitle(document: NotebookDocument): string {
+  return takeTitle(document, proseMarkdown.parse(document.body, {}));
 }
 
 // Cells take the place of their fences; other fences are shown as highlighted code.
@@ -149,9 +159,16 @@ function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: str
   const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
   const meta: [string, string][] = [];
   if (fm.author) meta.push(["Author", escapeHtml(fm.author)]);
-  meta.push(["Date", escapeHtml(fm.date ?? run.startedAt.slice(0, 10))]);
+  if (run.batch) {
+    const value = String(run.inputs[run.batch.input]);
+    meta.push(["Data file", `<code>${escapeHtml(value)}</code> <br><span class="meta-note">run ${run.batch.position} of ${run.batch.count} · <a href="index.html">all runs</a></span>`]);
+  }
+  // A reproducible report carries no wall-clock value: only the date the notebook itself states.
+  const date = fm.date ?? (run.reproducible ? undefined : run.startedAt.slice(0, 10));
+  if (date) meta.push(["Date", escapeHtml(date)]);
   meta.push(["Made with", escapeHtml(`${run.tool.name} ${run.tool.version}`)]);
-  meta.push(["Run", escapeHtml(`${formatDuration(run.durationMs)}, ${ran === 1 ? "1 cell" : `${ran} cells`}`)]);
+  const cells = ran === 1 ? "1 cell" : `${ran} cells`;
+  meta.push(["Run", escapeHtml(run.reproducible ? `${cells} (reproducible report)` : `${cells} in ${formatDuration(run.durationMs)}`)]);
   const counts = countChecks(run);
   if (counts.passed + counts.failed > 0) {
     const text = counts.failed === 0 ? `✓ all ${counts.passed} passed` : `✗ ${counts.failed} of ${counts.passed + counts.failed} failed`;

@@ -12,7 +12,7 @@ import { check, checkRecord, checkThat, conditionRecord } from "../../cells/chec
 import { installOutputSink } from "../../cells/output-sink.ts";
 import type { CheckRecord, OutputRecord } from "../../cells/records.ts";
 import { checkResults, countChecks } from "../../runner/check-results.ts";
-import { runExitCode } from "../../runner/cli.ts";
+import { runExitCode } from "../../runner/run-outcome.ts";
 import { EXIT, worseExit } from "../../runner/exit-codes.ts";
 import { parseNotebook } from "../../runner/parse-notebook.ts";
 import { limitsText, marginText } from "../../runner/report/check-text.ts";

@@ -117,7 +117,7 @@ describe("the report", () => {
     expect(html).toContain("<dd>Q. Lab</dd>");
     expect(html).toContain("<dd>2024-06-01</dd>");
     expect(html).toContain("<dd>tristim 0.1.0</dd>");
-    expect(html).toContain("<dd>1.23 s, 3 cells</dd>");
+    expect(html).toContain("<dd>3 cells in 1.23 s</dd>");
     expect(html).toMatch(/<nav class="contents"[^]*href="#setup"[^]*href="#results"[^]*href="#detail"[^]*href="#run-record"/);
     expect(html).toContain('<details class="cell-source"><summary>Code <span class="cell-lines">cell 1');
     expect(html).toContain('<details class="cell-source" open><summary>Code <span class="cell-lines">cell 2');
@@ -162,8 +162,8 @@ describe("the report", () => {
     expect(methods).toContain('<strong class="run-in">Colour difference.</strong> CIEDE2000. CIE 1976 ΔE*ab.</p>');
     const details = html.slice(html.indexOf('<section class="run-details"'));
     expect(details).toContain(`SHA-256 ${"ab".repeat(32)}`);
-    expect(details).toContain("<code>n</code> = <code>2</code> (set on the command line)");
-    expect(details).toContain("<code>lamp</code> = <code>&quot;A&quot;</code> (default)");
+    expect(details).toContain("<td><code>n</code></td><td><code>2</code></td><td>the command line (--input)</td>");
+    expect(details).toContain("<td><code>lamp</code></td><td><code>&quot;A&quot;</code></td><td>the notebook&#39;s default</td>");
     expect(details).toContain(`data/lamp.csv</td><td><code class="hash">${"cd".repeat(32)}`);
     expect(details).toMatch(/<td>ran<\/td><td class="num">5 ms<\/td>/);
   });

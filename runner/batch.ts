@@ -1,0 +1,150 @@
+/**
+ * `tristim run nb.md --each name=pattern`: runs one notebook once per data file, binding each file (as a path
+ * relative to the notebook) to the named front-matter input, writes one report per file named after it and an
+ * index page listing every run. The exit code is the worst over the runs.
+ */
+import { createHash } from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { batchEntry, type BatchEntry, type BatchRecord } from "./batch-index.ts";
+import { UsageError } from "./errors.ts";
+import { EXIT, worseExit, type ExitCode } from "./exit-codes.ts";
+import { expandFilePattern, reportNamesFor } from "./file-pattern.ts";
+import type { NotebookDocument } from "./notebook.ts";
+import { writeReport } from "./report-file.ts";
+import { renderBatchIndex } from "./report/render-index.ts";
+import { reportTitle } from "./report/render-report.ts";
+import { runDocument } from "./run-notebook.ts";
+import { runExitCode } from "./run-outcome.ts";
+import type { RunRecord } from "./run-record.ts";
+import { toolVersion } from "./tool-version.ts";
+import { writeFileAtomic } from "./write-atomic.ts";
+
+/** Where a run of the batch stands, for the terminal. */
+export interface BatchRunPlace {
+  readonly position: number;
+  readonly count: number;
+  readonly dataFile: string;
+  readonly report?: string;
+  readonly error?: string;
+}
+
+/** A batch as given on the command line. */
+export interface EachOption {
+  readonly input: string;
+  readonly pattern: string;
+}
+
+/** What the batch needs from the command's options. */
+export interface BatchOptions {
+  readonly output?: string;
+  readonly inputs: Readonly<Record<string, string>>;
+  readonly timeLimitMs?: number;
+  readonly keepGoing: boolean;
+  readonly linkAssets: boolean;
+  readonly reproducible: boolean;
+  /** The working folder the pattern is relative to. */
+  readonly cwd: string;
+  /** Called after each run (for the terminal); `report` is absent and `error` set when the report could not be written. */
+  readonly onRun?: (run: RunRecord, place: BatchRunPlace) => void;
+}
+
+/** Splits `name=pattern` as written after --each. */
+export function parseEachArgument(argument: string): EachOption {
+  const at = argument.indexOf("=");
+  const input = at < 0 ? "" : argument.slice(0, at).trim();
+  const pattern = at < 0 ? "" : argument.slice(at + 1);
+  if (!/^[A-Za-z_$][\w$]*$/.test(input) || pattern === "") {
+    throw new UsageError(`--each expects input=files, e.g. --each data=lots/*.csv, got "${argument}"`);
+  }
+  return { input, pattern };
+}
+
+/** The folder a batch writes to: -o, or `<notebook>-reports` beside the notebook. */
+export function batchFolder(notebook: string, output: string | undefined): string {
+  if (output !== undefined) return path.resolve(output);
+  return path.join(path.dirname(notebook), `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}-reports`);
+}
+
+/** The data files of a batch, checked against the notebook's inputs before anything runs. */
+export function batchFiles(document: NotebookDocument, each: EachOption, options: Pick<BatchOptions, "inputs" | "cwd">): string[] {
+  const declared = document.frontMatter.inputs;
+  if (!Object.hasOwn(declared, each.input)) {
+    const known = Object.keys(declared);
+    throw new UsageError(
+      `--each ${each.input}=...: ${path.basename(document.path)} has no input named "${each.input}" ` +
+        `(${known.length ? `its inputs: ${known.join(", ")}` : "it declares no inputs in its front matter"})`,
+    );
+  }
+  if (typeof declared[each.input] !== "string") {
+    throw new UsageError(
+      `--each ${each.input}=...: input "${each.input}" must have a text default (a file path) to take a data file; its default is ${JSON.stringify(declared[each.input])}`,
+    );
+  }
+  if (Object.hasOwn(options.inputs, each.input)) throw new UsageError(`input "${each.input}" is given by both --each and --input`);
+  return expandFilePattern(each.pattern, options.cwd, `--each ${each.input}`);
+}
+
+/** The path a cell sees for a data file: relative to the notebook's folder, with forward slashes. */
+export function pathForNotebook(file: string, notebookDir: string): string {
+  const relative = path.relative(notebookDir, file);
+  return path.isAbsolute(relative) ? file : relative.split(path.sep).join("/");
+}
+
+/** Runs the batch; writes the reports and the index; returns the worst exit code and where the index is. */
+export async function runBatch(document: NotebookDocument, each: EachOption, options: BatchOptions): Promise<{ exit: ExitCode; index: string; entries: BatchEntry[] }> {
+  const files = batchFiles(document, each, options);
+  const folder = batchFolder(document.path, options.output);
+  if (fs.existsSync(folder) && !fs.statSync(folder).isDirectory()) {
+    throw new UsageError(`-o ${options.output}: with --each, -o must name a folder (it gets one report per data file and index.html)`);
+  }
+  fs.mkdirSync(folder, { recursive: true });
+  const names = reportNamesFor(files, path.dirname(document.path));
+  const startedAt = new Date().toISOString();
+  const notebookDir = path.dirname(document.path);
+  let exit: ExitCode = EXIT.ok;
+  const entries: BatchEntry[] = [];
+  for (const [i, file] of files.entries()) {
+    const dataFile = pathForNotebook(file, notebookDir);
+    const sha256 = createHash("sha256").update(fs.readFileSync(file)).digest("hex");
+    const run = await runDocument(document, {
+      inputs: { ...options.inputs, [each.input]: dataFile },
+      timeLimitMs: options.timeLimitMs,
+      keepGoing: options.keepGoing,
+      reproducible: options.reproducible,
+      batch: { input: each.input, pattern: each.pattern, position: i + 1, count: files.length },
+    });
+    const name = names.get(file)!;
+    let report: string | undefined = name;
+    let error: string | undefined;
+    try {
+      writeReport(document, run, path.join(folder, name), options.linkAssets);
+    } catch (e) {
+      report = undefined;
+      error = (e as Error).message;
+    }
+    const code = report ? runExitCode(run) : EXIT.internal;
+    options.onRun?.(run, { position: i + 1, count: files.length, dataFile, ...(report ? { report: path.join(folder, name) } : {}), ...(error ? { error } : {}) });
+    exit = worseExit(exit, code);
+    entries.push(batchEntry(run, dataFile, sha256, report, code));
+  }
+  const tool = toolVersion();
+  const record: BatchRecord = {
+    notebook: { path: document.path, sha256: document.sha256, title: reportTitle(document) },
+    input: each.input,
+    pattern: each.pattern,
+    tool,
+    node: process.version,
+    platform: `${process.platform}-${process.arch}`,
+    startedAt,
+    reproducible: options.reproducible,
+    entries,
+  };
+  const index = path.join(folder, "index.html");
+  try {
+    writeFileAtomic(index, renderBatchIndex(record));
+  } catch {
+    exit = EXIT.internal;
+  }
+  return { exit, index, entries };
+}
