@@ -14,7 +14,7 @@ import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-eff
  * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V share: at the spectrum's own samples when they lie every
  * 1 or 5 nm on whole nanometres, otherwise after interpolating the spectrum to 1 nm (CIE 167:2005 interpolation).
  */
-export function weightedSum(spd: Spectrum, vision: Vision = "photopic"): { sum: number; interval: number; range: [number, number] } {
+export function spectralLuminousSum(spd: Spectrum, vision: Vision = "photopic"): { sum: number; interval: number; range: [number, number] } {
   const v = luminousEfficiency(vision);
   const start = Math.max(spd.wavelengths[0]!, v.wavelengths[0]!);
   const end = Math.min(spd.wavelengths.at(-1)!, v.wavelengths.at(-1)!);
@@ -45,7 +45,7 @@ function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): n
     throw new Error(`${what}: "${spd.name}" is a ${spd.quantity} spectrum; ${what} needs a ${u.spectral}`);
   }
   const k = vision === "scotopic" ? KM_SCOTOPIC : KM;
-  const { sum, interval, range } = weightedSum(spd, vision);
+  const { sum, interval, range } = spectralLuminousSum(spd, vision);
   noteMethod(
     "photometry",
     `${vision === "scotopic" ? "Scotopic" : "Photopic"} ${what} = K·Σ S(λ)·${vision === "scotopic" ? "V′" : "V"}(λ)·Δλ with K = ${k} lm/W (CIE 018:2019), summed every ${interval} nm over ${range[0]}–${range[1]} nm.`,
@@ -75,7 +75,7 @@ export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = 
 
 /** Luminous efficacy of radiation K = Km Σ S V Δλ / Σ S Δλ in lm/W over the spectrum's own range (CIE 018:2019 §3.4). */
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
-  const { sum } = weightedSum(spd, "photopic");
+  const { sum } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
   const w = spd.wavelengths, v = spd.values;
   let radiant = 0;
@@ -88,8 +88,8 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
 
 /** Scotopic-to-photopic ratio S/P = K′m Σ S V′ Δλ / (Km Σ S V Δλ), K′m = 1700 lm/W, Km = 683 lm/W (CIE 018:2019). */
 export function scotopicPhotopicRatio(spd: Spectrum): number {
-  const p = weightedSum(spd, "photopic");
-  const s = weightedSum(spd, "scotopic");
+  const p = spectralLuminousSum(spd, "photopic");
+  const s = spectralLuminousSum(spd, "scotopic");
   if (!(p.sum > 0)) throw new Error(`scotopicPhotopicRatio: "${spd.name}" has no photopic luminous power`);
   noteMethod(
     "photometry",
@@ -101,7 +101,7 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
 /** The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target` (cd/m², lx or lm, as the spectrum's unit implies). */
 export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
   if (!(Number.isFinite(target) && target > 0)) throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
-  const { sum } = weightedSum(spd, "photopic");
+  const { sum } = spectralLuminousSum(spd, "photopic");
   if (!(sum > 0)) throw new Error(`normaliseToLuminance: "${spd.name}" has no luminous power to scale to ${target}`);
   const k = target / (KM * sum);
   noteMethod("normalisation", `Spectra were scaled to a photopic value of ${target} (Km = ${KM} lm/W).`);
