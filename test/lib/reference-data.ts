@@ -5,8 +5,13 @@
 import { existsSync, readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 
-/** The reference folder beside the repository: <repo>/../shared/reference/ (resolved from test/lib/). */
-export const REFERENCE_DIR = fileURLToPath(new URL("../../../shared/reference/", import.meta.url));
+/**
+ * The reference folder beside the repository: <repo>/../shared/reference/ (resolved from test/lib/), or the folder
+ * named by TRISTIM_REFERENCE_DIR (e.g. to check that the tests skip cleanly when it is missing).
+ */
+export const REFERENCE_DIR = process.env.TRISTIM_REFERENCE_DIR
+  ? process.env.TRISTIM_REFERENCE_DIR.replace(/\/?$/, "/")
+  : fileURLToPath(new URL("../../../shared/reference/", import.meta.url));
 
 /** True when the reference folder is present (tests that read it are skipped otherwise). */
 export const HAVE_REFERENCE = existsSync(REFERENCE_DIR) && existsSync(REFERENCE_DIR + "README.md");
