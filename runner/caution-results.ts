@@ -16,16 +16,33 @@ export interface CautionResult {
 
 /** Every distinct caution text of the run, first occurrences in notebook order. */
 export function cautionResults(run: RunRecord): CautionResult[] {
+  return cautionIndex(run).results;
+}
+
+/**
+ * The distinct cautions, and for every caution text the anchor of the box that says it in full. A text already said
+ * within an earlier caution (the library's standard caution inside a notebook's longer one) is not a new caution:
+ * it points to that earlier box.
+ */
+export function cautionIndex(run: RunRecord): { results: CautionResult[]; anchors: Map<string, string> } {
   const results: CautionResult[] = [];
-  const seen = new Set<string>();
+  const anchors = new Map<string, string>();
   for (const cell of run.cells) {
     for (const o of cell.outputs) {
-      if (o.kind !== "caution" || seen.has(cautionKey(o))) continue;
-      seen.add(cautionKey(o));
-      results.push({ record: o, cell: cell.index, anchor: `caution-${results.length + 1}` });
+      if (o.kind !== "caution") continue;
+      const key = cautionKey(o);
+      if (anchors.has(key)) continue;
+      const within = results.find((r) => cautionKey(r.record).includes(key));
+      if (within) {
+        anchors.set(key, within.anchor);
+        continue;
+      }
+      const result = { record: o, cell: cell.index, anchor: `caution-${results.length + 1}` };
+      results.push(result);
+      anchors.set(key, result.anchor);
     }
   }
-  return results;
+  return { results, anchors };
 }
 
 /** What makes two cautions the same: their text (whatever their titles). */

@@ -20,8 +20,11 @@ const GROUPS: readonly { readonly heading: string; readonly topics: readonly str
     topics: ["colour space", "colour temperature", "colour difference", "chromatic adaptation", "photometry", "rgb encoding", "gamut", "colour rendering"],
   },
   { heading: "Optical, mixing and print models", topics: ["optics", "mixing", "halftone"] },
-  { heading: "Data files", topics: ["data files"] },
+  { heading: "Data handling", topics: ["data files"] },
 ];
+
+/** More statements than this under one topic are listed rather than run together. */
+const LIST_ABOVE = 3;
 
 /** Run-in headings for topics whose plain name would read oddly. */
 const TOPIC_LABEL: Record<string, string> = { "rgb encoding": "RGB encoding", "data files": "Files read and written" };
@@ -63,7 +66,10 @@ export function renderMethods(run: Pick<RunRecord, "methods" | "methodsMissingFr
     const paragraphs = group.topics.filter((t) => byTopic.has(t)).map((topic) => {
       const statements = byTopic.get(topic)!.map((m) => sentence(m.statement));
       if (statements.length > 1 && ONE_EXPECTED[topic]) statements.push(ONE_EXPECTED[topic]!);
-      return `<p><strong class="run-in">${escapeHtml(topicLabel(topic))}.</strong> ${statements.map(escapeHtml).join(" ")}</p>`;
+      const head = `<strong class="run-in">${escapeHtml(topicLabel(topic))}.</strong>`;
+      // A few conditions read as a paragraph; a longer run of them as a list, so none is lost in a wall of text.
+      if (statements.length <= LIST_ABOVE) return `<p>${head} ${statements.map(escapeHtml).join(" ")}</p>`;
+      return `<p>${head}</p><ul>${statements.map((t) => `<li>${escapeHtml(t)}</li>`).join("")}</ul>`;
     });
     return paragraphs.length ? `<h3>${escapeHtml(group.heading)}</h3>${paragraphs.join("")}` : "";
   }).join("");

@@ -32,7 +32,7 @@ export interface RenderContext {
   /** The cell being rendered (0-based) and how many of its checks are rendered so far (for their anchors). */
   cell: number;
   cellChecks: number;
-  /** The anchor of each distinct caution's first box (by text), and the texts already shown in full. */
+  /** For each caution text, the anchor of the box that says it in full; and the anchors already rendered. */
   readonly cautionAnchors: ReadonlyMap<string, string>;
   readonly cautionsShown: Set<string>;
 }
@@ -164,13 +164,13 @@ function renderCaution(record: CautionRecord, ctx: RenderContext): string {
   const key = cautionKey(record);
   const anchor = ctx.cautionAnchors.get(key);
   const about = record.about ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>` : "";
-  if (ctx.cautionsShown.has(key)) {
+  if (ctx.cautionsShown.has(anchor ?? key)) {
     const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
     const more = first.length < record.text.length ? " …" : "";
     return `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
       `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`;
   }
-  ctx.cautionsShown.add(key);
+  ctx.cautionsShown.add(anchor ?? key);
   return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
 }
 

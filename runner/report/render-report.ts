@@ -14,7 +14,7 @@ import { fileURLToPath } from "node:url";
 import type { OutputRecord } from "../../cells/records.ts";
 import type { CellSource, NotebookDocument } from "../notebook.ts";
 import type { CellRun, RunRecord } from "../run-record.ts";
-import { cautionKey, cautionResults } from "../caution-results.ts";
+import { cautionIndex, cautionResults } from "../caution-results.ts";
 import { countChecks } from "../check-results.ts";
 import { escapeHtml } from "./escape.ts";
 import { formatDuration } from "./format.ts";
@@ -72,10 +72,8 @@ interface CellView {
 /** Renders the report HTML for a document and the record of its run. */
 export function renderReport(document: NotebookDocument, run: RunRecord, options: ReportOptions = {}): string {
   const notebookDir = path.dirname(document.path);
-  const cautions = cautionResults(run);
   const ctx: RenderContext = {
-    figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0,
-    cautionAnchors: new Map(cautions.map((c) => [cautionKey(c.record), c.anchor])), cautionsShown: new Set(),
+    figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0, cautionAnchors: cautionIndex(run).anchors, cautionsShown: new Set(),
   };
   const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
   for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });

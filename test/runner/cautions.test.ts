@@ -10,6 +10,7 @@ import { show, showFigure, showTable } from "../../cells/display.ts";
 import { installOutputSink } from "../../cells/output-sink.ts";
 import type { OutputRecord } from "../../cells/records.ts";
 import { cautionResults } from "../../runner/caution-results.ts";
+import { parseNotebook } from "../../runner/parse-notebook.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { outputsOf, runText, ts } from "./helpers.ts";
 
@@ -83,6 +84,24 @@ describe("cautions in a run and its report", () => {
     expect(html).toContain('href="#caution-1"');
     expect(html).toContain("This report contains a caution");
     expect(html).toContain("applies to the table above");
+  });
+
+  it("treats a caution already said within an earlier, longer one as the same caution", () => {
+    const short = "Informative only: not a certification.";
+    const run = {
+      notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) }, tool: { name: "tristim", version: "0.1.0" }, node: "v20.0.0",
+      platform: "linux-x64", startedAt: "2024-06-01T10:00:00.000Z", durationMs: 1, inputs: {}, inputsSet: {}, timeLimitMs: 30_000,
+      keepGoing: false, methods: [], filesRead: [], events: [], signature: "x",
+      cells: [
+        { index: 0, status: "ok" as const, reads: [], outputs: [{ kind: "caution" as const, title: "Eye protection", text: `${short} Do not release eyewear on this record.` }] },
+        { index: 1, status: "ok" as const, reads: [], outputs: [{ kind: "value" as const, text: "3" }, { kind: "caution" as const, title: "Caution", text: short, about: "value" as const }] },
+      ],
+    };
+    expect(cautionResults(run)).toHaveLength(1);
+    const html = renderReport(parseNotebook(ts("1") + ts("2"), "/lab/nb.md"), run);
+    expect(html).toContain("This report contains a caution ");
+    expect(html.match(/class="caution caution-repeat"/g)).toHaveLength(1);
+    expect(html).toContain('<a href="#caution-1">(full text above)</a>');
   });
 
   it("says nothing about cautions in the title block when there are none", async () => {

@@ -24,7 +24,7 @@ describe("the Methods section", () => {
         { topic: "rgb encoding", statement: "sRGB per IEC 61966-2-1." },
       ],
     });
-    const order = ["Colorimetric conditions", "Observer.", "Derived quantities", "Colour difference.", "RGB encoding.", "Data files", "Spectral table read: 8 samples."];
+    const order = ["Colorimetric conditions", "Observer.", "Derived quantities", "Colour difference.", "RGB encoding.", "Data handling", "Spectral table read: 8 samples."];
     const at = order.map((t) => html.indexOf(t));
     expect(at.every((i) => i >= 0)).toBe(true);
     expect([...at].sort((a, b) => a - b)).toEqual(at);
