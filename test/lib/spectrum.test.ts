@@ -73,7 +73,7 @@ describe("interpolators reproduce what they should exactly", () => {
     );
   });
 
-  it("Sprague and linear agree on smooth data within the linear error bound h²·max|f″|/8, and Sprague is the closer (property)", () => {
+  it("Sprague and linear agree on smooth data within the linear error bound h²·max|f″|/8, and Sprague has the smaller worst error (property)", () => {
     fc.assert(
       fc.property(fc.double({ min: 450, max: 650, noNaN: true }), fc.double({ min: 40, max: 120, noNaN: true }), fc.double({ min: 0.1, max: 1, noNaN: true }), (mu, sigma, amp) => {
         const f = (w: number) => 0.1 + amp * Math.exp(-(((w - mu) / sigma) ** 2) / 2);
@@ -81,10 +81,14 @@ describe("interpolators reproduce what they should exactly", () => {
         const sprague = sampler(s, { interpolation: "sprague" });
         const linear = sampler(s, { interpolation: "linear" });
         const bound = (25 * amp) / (sigma * sigma) / 8; // max|f″| ≤ amp/σ² for a Gaussian
+        let worstSprague = 0, worstLinear = 0;
         for (let w = 392.5; w < 770; w += 5) {
           expect(Math.abs(sprague(w) - linear(w))).toBeLessThanOrEqual(bound + 1e-12);
-          expect(Math.abs(sprague(w) - f(w))).toBeLessThanOrEqual(Math.abs(linear(w) - f(w)) + 1e-9);
+          worstSprague = Math.max(worstSprague, Math.abs(sprague(w) - f(w)));
+          worstLinear = Math.max(worstLinear, Math.abs(linear(w) - f(w)));
         }
+        // pointwise, near an inflection both errors vanish and either may be the smaller; over the spectrum Sprague wins
+        expect(worstSprague).toBeLessThan(worstLinear);
       }),
       { numRuns: 50 },
     );
