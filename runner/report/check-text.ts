@@ -2,6 +2,15 @@
 import { formatNumber } from "../../cells/format-number.ts";
 import type { CheckRecord } from "../../cells/records.ts";
 
+const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "+": "", 0: "⁰", 1: "¹", 2: "²", 3: "³", 4: "⁴", 5: "⁵", 6: "⁶", 7: "⁷", 8: "⁸", 9: "⁹" };
+
+/** A formatted number as a report prints it: a true minus sign, and "7.1 × 10⁻¹⁵" instead of "7.1e-15". */
+export function printedNumber(text: string): string {
+  const m = /^(-?)(\d+(?:\.\d+)?)e([+-]?\d+)$/.exec(text);
+  const out = m ? `${m[1]}${m[2] === "1" ? "" : `${m[2]} × `}10${[...m[3]!].map((c) => SUPERSCRIPT[c] ?? c).join("")}` : text;
+  return out.replace(/^-/, "−");
+}
+
 /** The unit as written after a number: " K", " %", but ":1" and "°" without a space (1000:1, 2°). */
 export function unitSuffix(unit: string | undefined): string {
   if (!unit) return "";
@@ -13,7 +22,7 @@ export function limitsText(record: CheckRecord): string {
   const limits = record.limits;
   if (!limits) return "condition holds";
   const unit = unitSuffix(record.unit);
-  const n = (v: number) => formatNumber(v).replace(/^-/, "−");
+  const n = (v: number) => printedNumber(formatNumber(v));
   const parts: string[] = [];
   if (limits.target !== undefined && limits.tolerance !== undefined) parts.push(`${n(limits.target)} ± ${n(limits.tolerance)}${unit}`);
   if (limits.min !== undefined && limits.max !== undefined) parts.push(`${n(limits.min)} to ${n(limits.max)}${unit}`);
@@ -25,7 +34,7 @@ export function limitsText(record: CheckRecord): string {
 /** The value with its unit: "12.40 %"; "condition met"/"not met" for a plain condition. */
 export function valueText(record: CheckRecord): string {
   if (record.valueText === undefined) return record.passed ? "met" : "not met";
-  const text = record.value === null ? record.valueText : record.valueText.replace(/^-/, "−");
+  const text = record.value === null ? record.valueText : printedNumber(record.valueText);
   return `${text}${record.value !== null ? unitSuffix(record.unit) : ""}`;
 }
 
@@ -37,13 +46,13 @@ export function marginText(record: CheckRecord): string | undefined {
   const { limits, value } = record;
   if (!limits || typeof value !== "number") return undefined;
   const unit = unitSuffix(record.unit);
-  const fmt = (v: number) => formatNumber(Math.abs(v), record.digits);
+  const fmt = (v: number) => printedNumber(formatNumber(Math.abs(v), record.digits));
   // Up to 6 significant digits: a small excess must not round to 0 at the value's digits.
-  const exact = (v: number) => formatNumber(Math.abs(v));
+  const exact = (v: number) => printedNumber(formatNumber(Math.abs(v)));
   const parts: string[] = [];
   if (limits.target !== undefined) {
     const d = value - limits.target;
-    parts.push(`${d > 0 ? "+" : d < 0 ? "−" : "±"}${fmt(d)}${unit} from target`);
+    parts.push(d === 0 ? "on target" : `${d > 0 ? "+" : "−"}${fmt(d)}${unit} from target`);
   }
   if (!record.passed) {
     let lower = limits.min ?? -Infinity;

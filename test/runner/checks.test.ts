@@ -15,7 +15,7 @@ import { checkResults, countChecks } from "../../runner/check-results.ts";
 import { runExitCode } from "../../runner/run-outcome.ts";
 import { EXIT, worseExit } from "../../runner/exit-codes.ts";
 import { parseNotebook } from "../../runner/parse-notebook.ts";
-import { limitsText, marginText } from "../../runner/report/check-text.ts";
+import { limitsText, marginText, printedNumber } from "../../runner/report/check-text.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import type { RunRecord } from "../../runner/run-record.ts";
 import { notebookFile, outputsOf, runText, ts } from "./helpers.ts";
@@ -124,6 +124,14 @@ describe("words for checks in the report", () => {
     expect(marginText(r({ passed: false, value: 2.35, limits: { target: 2.2, tolerance: 0.1 }, digits: 2 })))
       .toBe("+0.15 from target; 0.05 above the limit");
     expect(marginText(r({ value: 1, limits: { min: 0 } }))).toBeUndefined();
+    expect(marginText(r({ value: 8, limits: { target: 8, tolerance: 0 } }))).toBe("on target");
+  });
+  it("prints powers of ten and minus signs as a report does", () => {
+    expect(printedNumber("7.10543e-15")).toBe("7.10543 × 10⁻¹⁵");
+    expect(printedNumber("1e-9")).toBe("10⁻⁹");
+    expect(printedNumber("-2.5e+21")).toBe("−2.5 × 10²¹");
+    expect(printedNumber("-0.25")).toBe("−0.25");
+    expect(limitsText(r({ limits: { max: 1e-9 }, unit: "%" }))).toBe("≤ 10⁻⁹ %");
   });
 });
 
