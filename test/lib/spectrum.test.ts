@@ -55,13 +55,13 @@ describe("interpolators pass through their samples (property)", () => {
 });
 
 describe("interpolators reproduce what they should exactly", () => {
-  it("Sprague reproduces quintic polynomials away from the ends, and all three reproduce straight lines (property)", () => {
+  it("Sprague reproduces quartic polynomials away from the ends (its 5-point derivative estimates are exact to degree 4), and all three reproduce straight lines (property)", () => {
     fc.assert(
-      fc.property(fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: 6, maxLength: 6 }), fc.double({ min: 0, max: 1, noNaN: true }), (c, t) => {
+      fc.property(fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: 5, maxLength: 5 }), fc.double({ min: 0, max: 1, noNaN: true }), (c, t) => {
         const p = (x: number) => c.reduce((s, ci, k) => s + ci * (x / 10) ** k, 0);
         const ys = Array.from({ length: 12 }, (_, i) => p(i));
         const x = 3 + 4 * t; // intervals whose six neighbours are all real samples
-        expect(spragueInterpolator(0, 1, ys)(x)).toBeCloseTo(p(x), 9);
+        expect(spragueInterpolator(0, 1, ys)(x)).toBeCloseTo(p(x), 12);
         const line = (u: number) => c[0]! + c[1]! * u;
         const ls = Array.from({ length: 12 }, (_, i) => line(i));
         const xs = ls.map((_, i) => i);
