@@ -64,7 +64,7 @@ export function renderMethods(run: Pick<RunRecord, "methods" | "methodsMissingFr
 
   const html = groups.map((group) => {
     const paragraphs = group.topics.filter((t) => byTopic.has(t)).map((topic) => {
-      const statements = byTopic.get(topic)!.map((m) => sentence(m.statement));
+      const statements = byTopic.get(topic)!.map((m) => methodSentence(m.statement));
       if (statements.length > 1 && ONE_EXPECTED[topic]) statements.push(ONE_EXPECTED[topic]!);
       const head = `<strong class="run-in">${escapeHtml(topicLabel(topic))}.</strong>`;
       // A few conditions read as a paragraph; a longer run of them as a list, so none is lost in a wall of text.
@@ -82,9 +82,12 @@ function topicLabel(topic: string): string {
   return TOPIC_LABEL[topic] ?? topic.charAt(0).toUpperCase() + topic.slice(1);
 }
 
-/** A statement as a sentence: capitalised, ending with a full stop. */
-function sentence(statement: string): string {
+/**
+ * A statement as a sentence: its text exactly as the library wrote it, with a full stop added when it has no closing
+ * punctuation. The case is never changed: a statement may start with a symbol or name whose case is its meaning
+ * ("sRGB", "u′v′", "pH"), and capitalising it would misstate it.
+ */
+export function methodSentence(statement: string): string {
   const text = statement.trim();
-  const capitalised = text.charAt(0).toUpperCase() + text.slice(1);
-  return /[.!?)]$/.test(capitalised) && !/\)$/.test(capitalised) ? capitalised : `${capitalised}.`;
+  return /[.!?]$/.test(text) ? text : `${text}.`;
 }

@@ -31,6 +31,31 @@ describe("the Methods section", () => {
     expect(html).not.toContain("No colorimetric computations");
   });
 
+  it("never changes the case of a statement: sRGB stays sRGB, a lower-case start stays lower-case", () => {
+    const html = methods({
+      methods: [
+        { topic: "rgb encoding", statement: "sRGB RGB (IEC 61966-2-1:1999): linear values" },
+        { topic: "colour space", statement: "u′v′ per CIE 015:2018 §8.1 (CIE 1976 UCS)" },
+        { topic: "optics", statement: "pH of the dye bath was not modelled." },
+      ],
+    });
+    // A full stop is added where none closes the statement; nothing else about its text changes.
+    expect(html).toContain("sRGB RGB (IEC 61966-2-1:1999): linear values.");
+    expect(html).toContain("u′v′ per CIE 015:2018 §8.1 (CIE 1976 UCS).");
+    expect(html).toContain("pH of the dye bath was not modelled.");
+    expect(html).not.toMatch(/SRGB|U′v′|PH of/);
+  });
+
+  it("shows the library's own sRGB statement with its case intact in a real run", async () => {
+    const { run } = await runText(ts('const rgb = rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"));'));
+    expect(run.cells[0]!.status).toBe("ok");
+    const statement = run.methods.find((m) => m.topic === "rgb encoding")?.statement ?? "";
+    expect(statement.startsWith("sRGB")).toBe(true);
+    const html = renderMethods(run, "methods");
+    expect(html).toContain("sRGB RGB");
+    expect(html).not.toContain("SRGB");
+  });
+
   it("remarks when more than one observer was used", () => {
     const html = methods({ methods: [{ topic: "observer", statement: "CIE 1931 2° observer." }, { topic: "observer", statement: "CIE 1964 10° observer." }] });
     expect(html).toContain("More than one observer was used in this run");
