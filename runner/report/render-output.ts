@@ -19,6 +19,7 @@ import type {
 } from "../../cells/records.ts";
 import { cautionKey } from "../caution-results.ts";
 import { checkAnchor } from "../check-results.ts";
+import { keepsOnOneLine } from "./cell-wrap.ts";
 import { limitsText, marginText, valueText } from "./check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
@@ -111,12 +112,22 @@ function renderTable(record: TableRecord, ctx: RenderContext): string {
     .map((c) => `<th scope="col"${c.numeric ? ' class="num"' : ""}>${escapeHtml(c.label)}${c.unit ? `<span class="unit">${escapeHtml(c.unit)}</span>` : ""}</th>`)
     .join("");
   const body = record.rows
-    .map((row) => `<tr>${row.map((cell, i) => `<td${record.columns[i]?.numeric ? ' class="num"' : ""}>${escapeHtml(cell)}</td>`).join("")}</tr>`)
+    .map((row) => `<tr>${row.map((cell, i) => `<td${cellClass(cell, record.columns[i]?.numeric === true)}>${escapeHtml(cell)}</td>`).join("")}</tr>`)
     .join("\n");
   const more = record.totalRows > record.rows.length
     ? `<p class="out-note">Table truncated: the first ${record.rows.length.toLocaleString("en-US")} of ${record.totalRows.toLocaleString("en-US")} rows are shown.</p>`
     : "";
-  return `<figure class="table-figure" id="${id}">${caption}<div class="table-scroll"><table><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>${more}</figure>`;
+  const wide = record.columns.length >= WIDE_TABLE_COLUMNS ? ' class="wide"' : "";
+  return `<figure class="table-figure" id="${id}">${caption}<div class="table-scroll"><table${wide}><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>${more}</figure>`;
+}
+
+/** Tables with this many columns or more are set tighter in print, so they fit the width of an A4 page. */
+const WIDE_TABLE_COLUMNS = 9;
+
+/** The class attribute of a table cell: numbers right-aligned, short codes and values kept on one line. */
+function cellClass(text: string, numeric: boolean): string {
+  if (numeric) return ' class="num"';
+  return keepsOnOneLine(text) ? ' class="one-line"' : "";
 }
 
 function renderFigure(record: FigureRecord, ctx: RenderContext): string {

@@ -109,6 +109,39 @@ describe("the report", () => {
     expect(html).toContain("the first 1 of 3 rows are shown");
   });
 
+  it("keeps IDs, codes and values with units on one line in tables, and lets prose cells wrap", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const columns = [{ label: "blank", numeric: false }, { label: "limit", numeric: false }, { label: "remark", numeric: false }, { label: "τv", unit: "%", numeric: true }];
+    const rows = [
+      ["HG-114-01", "≤ 0.004", "edge chipped at the rim, re-measured after cleaning", "26.54"],
+      ["#1a2b3c", "249.6 cd/m²", "ok", "1.2 × 10⁻⁵"],
+      [`sha-${"0".repeat(60)}`, "20.0 % to 30.0 % of the reference", "", "3"],
+    ];
+    const html = renderReport(doc, record([ok(0, [{ kind: "table", columns, rows, totalRows: 3 }])]));
+    const cells = [...html.matchAll(/<td( class="([\w-]+)")?>([^<]*)<\/td>/g)].map((m) => [m[3], m[2] ?? ""]);
+    const classOf = (text: string) => cells.find(([t]) => t === text)?.[1];
+    expect(classOf("HG-114-01")).toBe("one-line");
+    expect(classOf("#1a2b3c")).toBe("one-line");
+    expect(classOf("≤ 0.004")).toBe("one-line");
+    expect(classOf("249.6 cd/m²")).toBe("one-line");
+    expect(classOf("ok")).toBe("one-line");
+    expect(classOf("1.2 × 10⁻⁵")).toBe("num");
+    // Prose, long ranges and very long unbroken strings (hashes, paths) may wrap.
+    expect(classOf("edge chipped at the rim, re-measured after cleaning")).toBe("");
+    expect(classOf("20.0 % to 30.0 % of the reference")).toBe("");
+    expect(classOf(`sha-${"0".repeat(60)}`)).toBe("");
+    expect(html).toMatch(/td\.num, td\.one-line \{ white-space: nowrap; \}/);
+  });
+
+  it("sets tables of many columns tighter, so they fit an A4 page in print", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const narrow: OutputRecord = { kind: "table", columns: [{ label: "a", numeric: false }], rows: [["x"]], totalRows: 1 };
+    const columns = Array.from({ length: 11 }, (_, i) => ({ label: `c${i}`, numeric: true }));
+    const wide: OutputRecord = { kind: "table", columns, rows: [columns.map(() => "1.5")], totalRows: 1 };
+    const html = renderReport(doc, record([ok(0, [narrow, wide])]));
+    expect(html.match(/<table( class="wide")?><thead>/g)).toEqual(["<table><thead>", '<table class="wide"><thead>']);
+  });
+
   it("reads as a lab report: title block, contents, folded code, no execution counters", () => {
     const text = "---\ntitle: Filter lot 7\nauthor: Q. Lab\ndate: 2024-06-01\n---\n## Setup\n\n" + ts("1") + "## Results\n\n### Detail\n\n" + ts("2", "show-source") + ts("3", "hide-source") + ts("4", "no-run");
     const doc = parseNotebook(text, "/lab/nb.md");
@@ -172,7 +205,7 @@ describe("the report", () => {
     const { document, run } = await runText("# Lamp check\n\n" + ts("showTable([{ name: '<b>x</b>', Y: 1.23456 }], { digits: 2, units: { Y: 'cd/m²' } });") + ts("null.x"));
     const html = renderReport(document, run);
     expect(html).toContain("<h1>Lamp check</h1>");
-    expect(html).toContain('<td>&lt;b&gt;x&lt;/b&gt;</td><td class="num">1.23</td>');
+    expect(html).toContain('<td class="one-line">&lt;b&gt;x&lt;/b&gt;</td><td class="num">1.23</td>');
     expect(html).toContain("TypeError: Cannot read properties of null (reading &#39;x&#39;)");
     expect(html).toContain("at nb.md:7:6");
   });
