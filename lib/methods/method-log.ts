@@ -40,9 +40,15 @@ export type MethodTopic = (typeof METHOD_TOPICS)[number];
 // loops (ΔE for a million pairs), so a repeated note must cost no more than two hash lookups and allocate nothing.
 const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
+// How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
+let silentDepth = 0;
 
-/** Notes that a computation used a condition; repeated notes are kept once, in first-use order. */
+/**
+ * Notes that a computation used a condition; repeated notes are kept once, in first-use order. Inside
+ * withoutMethodNotes nothing is recorded.
+ */
 export function noteMethod(topic: MethodTopic, statement: string): void {
+  if (silentDepth > 0) return;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -51,6 +57,31 @@ export function noteMethod(topic: MethodTopic, statement: string): void {
   if (statements.has(statement)) return;
   statements.add(statement);
   order.push({ topic, statement });
+}
+
+/** False while a withoutMethodNotes call is running (a caller that remembers "already noted" must not remember then). */
+export function methodNotesActive(): boolean {
+  return silentDepth === 0;
+}
+
+/**
+ * Runs `compute` without recording any method note, and returns its result. For decorative computations the report
+ * did not ask for (a figure's hover readouts, reference curves, colour fills, display conversions of swatches), so the
+ * Methods section lists only what the notebook computed. `compute` must be synchronous; a nested call is fine.
+ */
+export function withoutMethodNotes<T>(compute: () => T): T {
+  if (typeof compute !== "function") throw new Error(`withoutMethodNotes: expected a function, got ${String(compute)}`);
+  silentDepth++;
+  let result: T;
+  try {
+    result = compute();
+  } finally {
+    silentDepth--;
+  }
+  if (result !== null && typeof result === "object" && typeof (result as { then?: unknown }).then === "function") {
+    throw new Error("withoutMethodNotes: the computation returned a promise; only synchronous computations can run without method notes");
+  }
+  return result;
 }
 
 /** Every condition noted since the last reset, as plain serializable records. */

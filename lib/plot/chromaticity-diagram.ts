@@ -15,6 +15,7 @@ import { illuminantChromaticity, STANDARD_WHITE_POINTS } from "./white-points.ts
 import { thinLabels } from "./label-placement.ts";
 import { houseAxis, houseConfig, houseLayout, INK, FIGURE_HEIGHTS, FONT_FAMILY } from "./style.ts";
 import { plotFigure, roundForDisplay as r5, type PlotFigure, type PlotTrace } from "./figure.ts";
+import { withoutMethodNotes } from "../methods/method-log.ts";
 import { gamutTraces, pointTraces, toleranceTraces, arrowAnnotations, type GamutChoice, type LabelledChromaticity, type ToleranceRegion, type ChromaticityArrow } from "./chromaticity-overlays.ts";
 
 export interface PlanckianOptions {
@@ -342,8 +343,16 @@ function whitePointTrace(names: readonly string[], obs: Observer, space: Diagram
   };
 }
 
-/** A chromaticity diagram (CIE 1931 xy or CIE 1976 u′v′) with the overlays asked for, as a Plotly figure record. */
+/**
+ * A chromaticity diagram (CIE 1931 xy or CIE 1976 u′v′) with the overlays asked for, as a Plotly figure record.
+ * Drawing notes nothing in the methods log: the loci, white-point marks, fill and hover readouts (CCT, Duv) are
+ * decorations, and the caption states what they are.
+ */
 export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): PlotFigure {
+  return withoutMethodNotes(() => drawChromaticityDiagram(options));
+}
+
+function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigure {
   const space = diagramSpace(options.diagram);
   const obs = observerByName(options.observer ?? "2°");
   const range = options.range === undefined ? WHOLE[space] : options.range === "white region" ? WHITE_REGION[space] : options.range;

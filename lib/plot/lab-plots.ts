@@ -7,6 +7,7 @@ import { lchFromLab, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { encodeRgb, hexFromEncoded, linearRgb } from "./display-rgb.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
+import { withoutMethodNotes } from "../methods/method-log.ts";
 import { D65_WHITE_Y100 } from "./display-white.ts";
 import { plotFigure, roundForDisplay, type PlotFigure, type PlotTrace } from "./figure.ts";
 import { FIGURE_HEIGHTS, FONT_FAMILY, INK, SERIES_MARKERS, houseAxis, houseConfig, houseLayout } from "./style.ts";
@@ -175,8 +176,12 @@ function captionFor(o: LabPlotOptions, view: View): string {
   return o.caption ? `${o.caption.trim()} ${auto}` : auto;
 }
 
-/** The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows. */
+/** The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows (hover ΔE00 is not noted in the methods log). */
 export function labPlane(options: LabPlotOptions): PlotFigure {
+  return withoutMethodNotes(() => drawLabPlane(options));
+}
+
+function drawLabPlane(options: LabPlotOptions): PlotFigure {
   const { traces, vectors, all } = labTraces(options, "ab");
   if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`labPlane: extent ${options.extent} must be a positive number`);
   const extent = options.extent ?? Math.max(10, ...all.map((p) => Math.max(Math.abs(p[0]), Math.abs(p[1])))) * 1.15;
@@ -204,8 +209,12 @@ export function labPlane(options: LabPlotOptions): PlotFigure {
   return plotFigure(traces, layout, houseConfig(options.title ?? "cielab-ab-plane"), captionFor(options, "ab"));
 }
 
-/** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows. */
+/** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows (hover ΔE00 is not noted in the methods log). */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
+  return withoutMethodNotes(() => drawLightnessChromaPlot(options));
+}
+
+function drawLightnessChromaPlot(options: LabPlotOptions): PlotFigure {
   const { traces, vectors, all } = labTraces(options, "LC");
   if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`lightnessChromaPlot: extent ${options.extent} must be a positive number`);
   const cMax = options.extent ?? Math.max(10, ...all.map((p) => p[0])) * 1.1;

@@ -8,6 +8,7 @@ import { plotFigure, roundForDisplay, type PlotFigure, type PlotTrace } from "./
 import { FIGURE_HEIGHTS, FONT_FAMILY, INK, MARGINS, houseAxis, houseConfig, houseLayout, seriesLook } from "./style.ts";
 import { spectrumBandImage } from "./spectrum-band.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
+import { withoutMethodNotes } from "../methods/method-log.ts";
 
 /** One curve: a spectrum with an optional legend label, fill under it, or a fixed colour. */
 export interface SpectrumSeries {
@@ -91,8 +92,12 @@ function valueAt(s: Spectrum, w: number): number | undefined {
   return s.values[i]! + t * (s.values[i + 1]! - s.values[i]!);
 }
 
-/** A plot of spectra against wavelength in the house style, with the quantity and unit on the value axis. */
+/** A plot of spectra against wavelength in the house style, with the quantity and unit on the value axis (drawing notes nothing in the methods log). */
 export function spectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[], options: SpectrumPlotOptions = {}): PlotFigure {
+  return withoutMethodNotes(() => drawSpectrumPlot(spectra, options));
+}
+
+function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[], options: SpectrumPlotOptions): PlotFigure {
   const list = (Array.isArray(spectra) ? spectra : [spectra]).map(asSeries);
   if (list.length === 0) throw new Error("spectrumPlot: no spectra given");
   const quantities = [...new Set(list.map((s) => s.spectrum.quantity))];

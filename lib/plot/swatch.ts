@@ -12,6 +12,7 @@ import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
 import { adaptToD65, D65_WHITE_Y100 } from "./display-white.ts";
+import { withoutMethodNotes } from "../methods/method-log.ts";
 
 /** One swatch: what `showSwatches` draws. */
 export interface Swatch {
@@ -107,7 +108,8 @@ export function swatch(label: string, colour: SwatchColour, options: SwatchOptio
   const { XYZ, white } = swatchTristimulus(colour, options, `swatch "${label}"`);
   if (!(white.Y > 0)) throw new Error(`swatch "${label}": the reference white has Y = ${white.Y}; it must be positive`);
   // Relative to the display white: adapt from the colour's white to D65 (Bradford), then scale so white has Y = 1.
-  const d65 = adaptToD65(XYZ, white);
+  // Drawing only: the display conversion is not a condition of the report's results, so it notes nothing.
+  const d65 = withoutMethodNotes(() => adaptToD65(XYZ, white));
   const rel = { X: d65.X / white.Y, Y: d65.Y / white.Y, Z: d65.Z / white.Y };
   const lin = { sRGB: linearRgb(rel, "sRGB"), "Display P3": linearRgb(rel, "Display P3"), "BT.2020": linearRgb(rel, "BT.2020") };
   const inGamut = { sRGB: insideCube(lin.sRGB), displayP3: insideCube(lin["Display P3"]), bt2020: insideCube(lin["BT.2020"]) };

@@ -3,7 +3,7 @@
  * CIE 167:2005 recommends; a natural cubic spline for uneven data) and extrapolation (holding the end values, the
  * CIE 015:2018 §7.2.2 practice; zero; or refusing).
  */
-import { noteMethod } from "../methods/method-log.ts";
+import { methodNotesActive, noteMethod } from "../methods/method-log.ts";
 import { regularStep } from "./grid.ts";
 import { cubicSplineInterpolator } from "./interpolate-spline.ts";
 import { linearInterpolator } from "./interpolate-linear.ts";
@@ -70,7 +70,8 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
       if (extrapolation === "refuse") {
         throw new Error(`spectrum "${s.name}" covers ${first}–${last} nm; ${wavelength} nm is outside it (extrapolation refused)`);
       }
-      if (!notedExtrapolation) {
+      // Remembered only when actually recorded: a sampler made for a figure may later serve a real computation.
+      if (!notedExtrapolation && methodNotesActive()) {
         notedExtrapolation = true;
         noteMethod(
           "extrapolation",
@@ -84,7 +85,7 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
     }
     const index = exactIndex(w, wavelength);
     if (index >= 0) return v[index]!;
-    if (!notedInterpolation) {
+    if (!notedInterpolation && methodNotesActive()) {
       notedInterpolation = true;
       noteMethod("interpolation", `Spectral data were interpolated by ${METHOD_WORDS[method]}.`);
     }

@@ -30,7 +30,7 @@ const FUNCTIONS = [
   "luminousEfficiency", "luminousFlux", "luminance", "illuminance", "luminousIntensity", "luminousEfficacyOfRadiation",
   "scotopicPhotopicRatio", "normaliseToLuminance", "luminousTransmittance", "luminousReflectance",
   // method log
-  "noteMethod", "methodsUsed", "resetMethodLog",
+  "noteMethod", "methodsUsed", "resetMethodLog", "withoutMethodNotes", "methodNotesActive",
 ];
 
 describe("public API of the colorimetry library", () => {
