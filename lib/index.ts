@@ -39,6 +39,7 @@ export * from "./colorimetry/cie-uvw.ts";
 export * from "./colorimetry/dominant-wavelength.ts";
 export * from "./photometry/luminous-efficiency.ts";
 export * from "./photometry/photometric-quantities.ts";
+export * from "./photometry/safety-caution.ts";
 export * from "./gamut/gamut-area.ts";
 
 // Figures and swatches (lib/plot), light through filters, mixing, halftone, colour rendering and measurement files.

@@ -2,11 +2,11 @@
  * Tristimulus values X, Y, Z from spectra by summation over the CIE colour-matching functions
  * (CIE 015:2018 §7.1–7.2, eqs. 7.1–7.2; the 1 nm / 5 nm practice of ASTM E308-22 §7).
  */
-import { noteMethod } from "../methods/method-log.ts";
+import { noteMethod, withoutMethodNotes } from "../methods/method-log.ts";
 import { colourMatchingAt, observerByName, type Observer, type ObserverName } from "../observers/standard-observer.ts";
 import { illuminant as illuminantByName } from "../illuminants/standard-illuminant.ts";
 import { regularStep } from "../spectrum/grid.ts";
-import { sampler, type Extrapolation, type Interpolation } from "../spectrum/sample.ts";
+import { interpolationStatement, sampler, type Extrapolation, type Interpolation } from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 
@@ -21,10 +21,11 @@ export interface ObjectColourOptions {
    */
   interval?: 1 | 5;
   /**
-   * Wavelength range of the summation, cut to what the illuminant covers. Default 360–830 nm (CIE 015:2018 §7.2),
-   * which reproduces the ASTM E308 white points (e.g. D50 2°: X = 96.422, Z = 82.521). The CIE 015:2004 Table T.3
-   * chromaticities of the 5 nm illuminants were summed over 380–780 nm: pass `range: CIE_015_TABLE_RANGE` with
-   * `interval: 5` to reproduce them (D50 2°: x = 0.34567, y = 0.35851, against y = 0.35850 over 360–830 nm).
+   * Wavelength range of the summation, cut to what the illuminant covers. Default 360–830 nm, the full tabulated
+   * range of the colour-matching functions (CIE 015:2018 §7.2), which reproduces the ASTM E308 white points (e.g. D50
+   * 2°: X = 96.422, Z = 82.521). The CIE 015:2004 Table T.3 chromaticities of the 5 nm illuminants were summed over
+   * 380–780 nm: pass `range: CIE_015_TABLE_RANGE` with `interval: 5` to reproduce them (D50 2°: x = 0.34567,
+   * y = 0.35851, against y = 0.35850 over 360–830 nm). The Methods statement names the range and which convention it is.
    */
   range?: readonly [number, number];
   /** How the sample is read between its samples (default "auto": Sprague for even data, CIE 167:2005). */
@@ -46,9 +47,13 @@ export interface WeightingTable {
   readonly wz: Float64Array;
   readonly illuminantName: string;
   readonly observer: Observer;
-  readonly interval: number;
-  /** What the Methods section says about this table (observer, illuminant, summation). */
-  readonly notes: { readonly observer: string; readonly illuminant: string; readonly integration: string };
+  readonly interval: 1 | 5;
+  /** The first and last summation wavelengths (nm). */
+  readonly range: readonly [number, number];
+  /** The perfect reflecting diffuser on this table, Σ k·S·x̄, Σ k·S·ȳ (= 100), Σ k·S·z̄: the reference white of its samples. */
+  readonly white: Tristimulus;
+  /** What the Methods section says about this table (observer, illuminant, summation, and the illuminant's interpolation if any). */
+  readonly notes: { readonly observer: string; readonly illuminant: string; readonly integration: string; readonly interpolation?: string };
 }
 
 type TableOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range">;
@@ -81,14 +86,28 @@ function gridFor(range: [number, number], interval: number): number[] {
   return out;
 }
 
-function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [number, number]): WeightingTable {
+/** Why the summation range is what it is, for the Methods statement (the choice matters in the fifth decimal of xy). */
+function rangeWords(first: number, last: number, requested: readonly [number, number] | undefined): string {
+  if (first === DEFAULT_SUMMATION_RANGE[0] && last === DEFAULT_SUMMATION_RANGE[1]) {
+    return " (the full tabulated range of the CIE colour-matching functions, CIE 015:2018 §7.2; the convention of the ASTM E308 white points)";
+  }
+  if (first === CIE_015_TABLE_RANGE[0] && last === CIE_015_TABLE_RANGE[1]) return " (the range of the CIE 015:2004 Table T.3 white points)";
+  const [a, b] = requested ?? DEFAULT_SUMMATION_RANGE;
+  return first > a || last < b ? " (the part of the requested range the illuminant covers)" : "";
+}
+
+function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [number, number], requested: readonly [number, number] | undefined): WeightingTable {
   const wavelengths = gridFor(range, interval);
-  const readS = sampler(ill, { extrapolation: "refuse" });
+  // Built once and kept: the illuminant's interpolation is stated on every use of the table (notes.interpolation),
+  // not by the sampler here, which would note it only for the computation that happened to build the table.
+  const readS = withoutMethodNotes(() => sampler(ill, { extrapolation: "refuse" }));
+  const illuminantSamples = new Set(ill.wavelengths.map((w) => Math.round(w * 1e6)));
+  const interpolated = wavelengths.some((w) => !illuminantSamples.has(Math.round(w * 1e6)));
   const n = wavelengths.length;
   const wx = new Float64Array(n), wy = new Float64Array(n), wz = new Float64Array(n);
   let sumY = 0;
   for (let i = 0; i < n; i++) {
-    const s = readS(wavelengths[i]!);
+    const s = withoutMethodNotes(() => readS(wavelengths[i]!));
     const [x, y, z] = colourMatchingAt(obs, wavelengths[i]!);
     wx[i] = s * x;
     wy[i] = s * y;
@@ -97,11 +116,16 @@ function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [numbe
   }
   if (!(sumY > 0)) throw new Error(`tristimulus: illuminant "${ill.name}" has no power where the observer sees`);
   const k = 100 / sumY;
+  let X = 0, Y = 0, Z = 0;
   for (let i = 0; i < n; i++) {
     wx[i]! *= k;
     wy[i]! *= k;
     wz[i]! *= k;
+    X += wx[i]!;
+    Y += wy[i]!;
+    Z += wz[i]!;
   }
+  const first = wavelengths[0]!, last = wavelengths.at(-1)!;
   return {
     wavelengths,
     wx,
@@ -110,12 +134,20 @@ function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [numbe
     illuminantName: ill.name,
     observer: obs,
     interval,
+    range: [first, last],
+    white: { X, Y, Z },
     notes: {
-      observer: obs.name + ".",
+      observer: observerStatement(obs),
       illuminant: `Object colours were computed under ${ill.name}.`,
-      integration: `Tristimulus values were summed at ${interval} nm intervals over ${wavelengths[0]}–${wavelengths.at(-1)} nm, normalised to Y = 100 for the perfect reflecting diffuser (CIE 015:2018 §7).`,
+      integration: `Tristimulus values of object colours were summed at ${interval} nm intervals over ${first}–${last} nm${rangeWords(first, last, requested)}, with the normalising constant chosen so that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 §7.1).`,
+      ...(interpolated ? { interpolation: interpolationStatement(ill) } : {}),
     },
   };
+}
+
+/** The Methods statement for an observer. */
+function observerStatement(obs: Observer): string {
+  return `Colorimetric values were computed for the ${obs.name}.`;
 }
 
 function tableFor(illuminantOption: string | Spectrum | undefined, observerOption: TableOptions["observer"], interval: 1 | 5, rangeOption: TableOptions["range"]): WeightingTable {
@@ -131,7 +163,7 @@ function tableFor(illuminantOption: string | Spectrum | undefined, observerOptio
   const fullKey = typeof illuminantOption === "object" ? key : `${ill.name}|${key}`;
   let table = cache.get(fullKey);
   if (!table) {
-    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs));
+    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs), rangeOption);
     cache.set(fullKey, table);
   }
   return table;
@@ -150,16 +182,75 @@ function defaultInterval(sample: Spectrum | undefined, ill: Spectrum): 1 | 5 {
 }
 
 /**
+ * The summation interval tristimulus() would choose for all these samples together under each illuminant: 1 nm only
+ * when every sample and every illuminant is tabulated at 1 nm, otherwise 5 nm (CIE 015:2018 §7.2). Use it to put
+ * samples from different grids, and their whites, on one weighting table.
+ */
+export function commonSummationInterval(samples: readonly Spectrum[], illuminants: readonly (string | Spectrum | undefined)[] = [undefined]): 1 | 5 {
+  if (!Array.isArray(samples) || samples.length === 0) throw new Error("commonSummationInterval: give at least one sample spectrum");
+  for (const ill of illuminants.length > 0 ? illuminants : [undefined]) {
+    const s = resolveIlluminant(ill);
+    for (const sample of samples) if (defaultInterval(sample, s) === 5) return 5;
+  }
+  return 1;
+}
+
+function checkObjectSample(sample: Spectrum, what: string): void {
+  if (sample?.kind !== "spectrum") throw new Error(`${what}: expected a reflectance or transmittance spectrum, got ${String(sample)}`);
+  if (sample.quantity !== "reflectance" && sample.quantity !== "transmittance" && sample.quantity !== "other") {
+    throw new Error(`${what}: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`);
+  }
+}
+
+function tableForSample(sample: Spectrum, options: ObjectColourOptions): WeightingTable {
+  const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
+  return tableFor(options.illuminant, options.observer, interval, options.range);
+}
+
+/**
  * X, Y, Z of an object colour: a reflectance or transmittance (as a fraction) under an illuminant, normalised so
- * that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 eqs. 7.1–7.2).
+ * that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 eqs. 7.1–7.2). For the sample's reference white
+ * on the same weighting table, use objectColour().
  */
 export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {}): Tristimulus {
-  if (sample.quantity !== "reflectance" && sample.quantity !== "transmittance" && sample.quantity !== "other") {
-    throw new Error(`tristimulus: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`);
-  }
-  const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
-  const table = tableFor(options.illuminant, options.observer, interval, options.range);
-  const { wx, wy, wz } = table;
+  checkObjectSample(sample, "tristimulus");
+  const table = tableForSample(sample, options);
+  const XYZ = sumOnTable(sample, table, options);
+  noteObjectColourMethod(table);
+  return XYZ;
+}
+
+/** A sample's colour and its reference white, both summed on one weighting table, with the conditions used. */
+export interface ObjectColour {
+  /** X, Y, Z of the sample (the perfect reflecting diffuser has Y = 100). */
+  readonly XYZ: Tristimulus;
+  /** The reference white for CIELAB and the like: the perfect reflecting diffuser on the same table as the sample. */
+  readonly white: Tristimulus;
+  /** The illuminant's name. */
+  readonly illuminant: string;
+  /** The observer's name. */
+  readonly observer: string;
+  /** Summation interval in nm. */
+  readonly interval: 1 | 5;
+  /** First and last summation wavelengths in nm. */
+  readonly range: readonly [number, number];
+}
+
+/**
+ * X, Y, Z of an object colour and its reference white from one weighting table (CIE 015:2018 §7.1–7.2: the white is
+ * the perfect reflecting diffuser summed on the same grid, interval and range), so CIELAB and the like never mix
+ * summation conditions. Options and defaults are those of tristimulus().
+ */
+export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}): ObjectColour {
+  checkObjectSample(sample, "objectColour");
+  const table = tableForSample(sample, options);
+  const XYZ = sumOnTable(sample, table, options);
+  noteObjectColourMethod(table);
+  return { XYZ, white: { ...table.white }, illuminant: table.illuminantName, observer: table.observer.name, interval: table.interval, range: [...table.range] as [number, number] };
+}
+
+function sumOnTable(sample: Spectrum, table: WeightingTable, options: ObjectColourOptions): Tristimulus {
+  const { wx, wy, wz, interval } = table;
   const n = wx.length;
   const w = sample.wavelengths, v = sample.values;
   let X = 0, Y = 0, Z = 0;
@@ -193,7 +284,6 @@ export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {})
       Z += wz[i]! * r;
     }
   }
-  noteObjectColourMethod(table);
   return { X, Y, Z };
 }
 
@@ -201,20 +291,20 @@ function noteObjectColourMethod(table: WeightingTable): void {
   noteMethod("observer", table.notes.observer);
   noteMethod("illuminant", table.notes.illuminant);
   noteMethod("integration", table.notes.integration);
+  if (table.notes.interpolation) noteMethod("interpolation", table.notes.interpolation);
 }
 
-/** Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white (Y = 100). */
+/**
+ * Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white (Y = 100), summed as
+ * CIE 015:2018 §7.1–7.2 describes. Its default interval is the illuminant's own (1 nm for D65 and A, 5 nm for D50),
+ * which need not be the interval tristimulus() picks for a 5 nm sample: for a sample's white, use objectColour(sample)
+ * or pass the same interval and range.
+ */
 export function whitePoint(options: TableOptions = {}): Tristimulus {
   const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
   const table = tableFor(options.illuminant, options.observer, interval, options.range);
-  let X = 0, Y = 0, Z = 0;
-  for (let i = 0; i < table.wavelengths.length; i++) {
-    X += table.wx[i]!;
-    Y += table.wy[i]!;
-    Z += table.wz[i]!;
-  }
   noteObjectColourMethod(table);
-  return { X, Y, Z };
+  return { ...table.white };
 }
 
 export interface LightOptions {
@@ -251,13 +341,14 @@ export function lightTristimulus(source: Spectrum, options: LightOptions = {}): 
     Y += s * y;
     Z += s * z;
   }
-  noteMethod("observer", obs.name + ".");
+  noteMethod("observer", observerStatement(obs));
   const absolute = options.scale === "absolute";
+  const over = `${grid[0]}–${grid.at(-1)} nm`;
   noteMethod(
     "integration",
     absolute
-      ? `Light-source tristimulus values were summed at ${interval} nm intervals with Km = ${KM_PHOTOPIC} lm/W (absolute, CIE 015:2018 eq. 7.5).`
-      : `Light-source tristimulus values were summed at ${interval} nm intervals and scaled to Y = 100 (relative).`,
+      ? `Tristimulus values of light sources were summed at ${interval} nm intervals over ${over} with Km = ${KM_PHOTOPIC} lm/W, giving absolute values (CIE 015:2018 eq. 7.5).`
+      : `Tristimulus values of light sources were summed at ${interval} nm intervals over ${over} and scaled to Y = 100 (relative values, CIE 015:2018 eq. 7.5).`,
   );
   if (absolute) {
     const k = KM_PHOTOPIC * interval;

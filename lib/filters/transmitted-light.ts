@@ -6,8 +6,9 @@
  */
 import { chromaticityXy, uvPrimeFromXy, type Chromaticity, type Tristimulus, type UvPrime } from "../colorimetry/chromaticity.ts";
 import { dominantWavelength } from "../colorimetry/dominant-wavelength.ts";
-import { tristimulus, whitePoint, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
+import { objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
 import { luminousTransmittance } from "../photometry/photometric-quantities.ts";
+import { SAFETY_DECISION_CAUTION } from "../photometry/safety-caution.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { requireFractionSpectrum } from "./checks.ts";
 import { sunglassCategory, type SunglassCategory } from "./sunglass-category.ts";
@@ -28,6 +29,8 @@ export interface TransmittedLight {
   readonly purity: number;
   readonly illuminant: string;
   readonly notes: readonly string[];
+  /** Always present: τv and the colour of transmitted light may be read for eye protection or signal lights (shown by the report). */
+  readonly caution: string;
 }
 
 type LightOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval">;
@@ -40,13 +43,15 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
   }
   requireFractionSpectrum(filter, "transmittance");
   const illuminant = options.illuminant ?? "D65";
-  const colourOptions = { illuminant, observer: options.observer, interval: options.interval };
-  const XYZ = tristimulus(filter, colourOptions);
-  const tv = luminousTransmittance(filter, { illuminant, interval: options.interval });
+  // The filter's colour and the source's own white from one weighting table (same grid, interval and range), and τv
+  // on that interval too.
+  const colour = objectColour(filter, { illuminant, observer: options.observer, interval: options.interval });
+  const XYZ = colour.XYZ;
+  const tv = luminousTransmittance(filter, { illuminant, interval: colour.interval });
   const notes: string[] = [];
   if (XYZ.X + XYZ.Y + XYZ.Z <= 0) throw new Error(`transmittedLight: "${filter.name}" passes no light of the source, so it has no chromaticity`);
   const xy = chromaticityXy(XYZ);
-  const white = chromaticityXy(whitePoint(colourOptions));
+  const white = chromaticityXy(colour.white);
   let dominant: number | null = null;
   let complementary = false;
   let purity = 0;
@@ -69,6 +74,7 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
     purity,
     illuminant: typeof illuminant === "string" ? illuminant : illuminant.name,
     notes,
+    caution: SAFETY_DECISION_CAUTION,
   };
 }
 

@@ -5,7 +5,7 @@
  * components scatter alike. The Saunderson correction (1942) turns the internal reflectance into what an
  * instrument measures.
  */
-import { tristimulus, whitePoint, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
+import { objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
 import { labFromXYZ, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import { requireFraction, requireFractionSpectrum, requireNonNegative, requirePositive, requireSameGrid } from "../filters/checks.ts";
@@ -192,14 +192,15 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
   });
 }
 
-/** A recipe's reflectance and its colour: X, Y, Z and CIELAB under an illuminant and observer (CIE 015:2018). */
+/**
+ * A recipe's reflectance and its colour: X, Y, Z and CIELAB under an illuminant and observer (CIE 015:2018), the
+ * white summed on the same weighting table as the reflectance (objectColour).
+ */
 export function recipeColour(
   recipe: readonly RecipePart[],
   options: PaintOptions & Pick<ObjectColourOptions, "illuminant" | "observer"> = {},
 ): { reflectance: Spectrum; XYZ: Tristimulus; Lab: Lab; white: Tristimulus } {
   const reflectance = mixPaint(recipe, options);
-  const colourOptions = { illuminant: options.illuminant, observer: options.observer };
-  const XYZ = tristimulus(reflectance, colourOptions);
-  const white = whitePoint(colourOptions);
+  const { XYZ, white } = objectColour(reflectance, { illuminant: options.illuminant, observer: options.observer });
   return { reflectance, XYZ, Lab: labFromXYZ(XYZ, white), white };
 }

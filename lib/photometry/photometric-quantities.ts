@@ -48,7 +48,7 @@ function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): n
   const { sum, interval, range } = spectralLuminousSum(spd, vision);
   noteMethod(
     "photometry",
-    `${vision === "scotopic" ? "Scotopic" : "Photopic"} ${what} = K·Σ S(λ)·${vision === "scotopic" ? "V′" : "V"}(λ)·Δλ with K = ${k} lm/W (CIE 018:2019), summed every ${interval} nm over ${range[0]}–${range[1]} nm.`,
+    `${vision === "scotopic" ? "Scotopic" : "Photopic"} ${what} was computed as K·Σ S(λ)·${vision === "scotopic" ? "V′" : "V"}(λ)·Δλ with K = ${k} lm/W (CIE 018:2019), summed every ${interval} nm over ${range[0]}–${range[1]} nm.`,
   );
   return k * sum;
 }
@@ -82,7 +82,7 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   if (step !== undefined) radiant = v.reduce((a, b) => a + b, 0) * step;
   else for (let i = 0; i + 1 < w.length; i++) radiant += ((v[i]! + v[i + 1]!) / 2) * (w[i + 1]! - w[i]!);
   if (!(radiant > 0)) throw new Error(`luminousEfficacyOfRadiation: "${spd.name}" has no radiant power`);
-  noteMethod("photometry", `Luminous efficacy of radiation = Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range.`);
+  noteMethod("photometry", `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range (CIE 018:2019).`);
   return (KM * sum) / radiant;
 }
 
@@ -93,7 +93,7 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
   if (!(p.sum > 0)) throw new Error(`scotopicPhotopicRatio: "${spd.name}" has no photopic luminous power`);
   noteMethod(
     "photometry",
-    `Scotopic-to-photopic ratio S/P = ${KM_SCOTOPIC}·Σ S·V′·Δλ / (${KM}·Σ S·V·Δλ) (CIE 018:2019), V′ over ${s.range[0]}–${s.range[1]} nm, V over ${p.range[0]}–${p.range[1]} nm.`,
+    `Scotopic-to-photopic ratios were computed as S/P = ${KM_SCOTOPIC}·Σ S·V′·Δλ / (${KM}·Σ S·V·Δλ) (CIE 018:2019), with V′ summed over ${s.range[0]}–${s.range[1]} nm and V over ${p.range[0]}–${p.range[1]} nm.`,
   );
   return (KM_SCOTOPIC * s.sum) / (KM * p.sum);
 }
@@ -119,13 +119,14 @@ function luminousFactor(what: string, sample: Spectrum, quantity: "transmittance
 
 /**
  * Luminous transmittance τv = Σ S τ V Δλ / Σ S V Δλ as a fraction (ISO/CIE 11664-3; CIE 015:2018 §7.1: Y/100 with
- * the 1931 observer), under illuminant D65 unless another is given. Informative only for safety decisions.
+ * the 1931 observer), under illuminant D65 unless another is given. A bare number cannot carry a caution: for a
+ * safety use, transmittedLight() and filterSunglassCategory() return τv with a `caution` field the report shows.
  */
 export function luminousTransmittance(sample: Spectrum, options: LuminousOptions = {}): number {
   const t = luminousFactor("luminousTransmittance", sample, "transmittance", options);
   noteMethod(
     "photometry",
-    "Luminous transmittance is the weighted mean of the spectral transmittance with S(λ)·V(λ) (Y/100 with the CIE 1931 observer). Caution: for eye protection, signal lights or other safety decisions this computation is informative only; the applicable standard, local codes and accredited testing decide.",
+    "Luminous transmittance τv was computed as the mean of the spectral transmittance weighted by S(λ)·V(λ), i.e. Y/100 with the CIE 1931 observer (ISO/CIE 11664-3).",
   );
   return t;
 }
@@ -133,6 +134,6 @@ export function luminousTransmittance(sample: Spectrum, options: LuminousOptions
 /** Luminous reflectance ρv = Σ S ρ V Δλ / Σ S V Δλ as a fraction (Y/100 with the CIE 1931 observer; CIE 015:2018 §7.1), D65 unless given. */
 export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
   const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
-  noteMethod("photometry", "Luminous reflectance is the weighted mean of the spectral reflectance with S(λ)·V(λ) (Y/100 with the CIE 1931 observer).");
+  noteMethod("photometry", "Luminous reflectance ρv was computed as the mean of the spectral reflectance weighted by S(λ)·V(λ), i.e. Y/100 with the CIE 1931 observer.");
   return r;
 }

@@ -7,7 +7,7 @@
  */
 import { labFromXYZ, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { tristimulus, whitePoint } from "../colorimetry/tristimulus.ts";
+import { commonSummationInterval, objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
@@ -46,6 +46,12 @@ export interface SwatchOptions {
   display?: DisplayGamut;
   /** Illuminant for spectra (default "D65"). Their colour is then adapted to D65 for display (Bradford). */
   illuminant?: string;
+  /**
+   * Summation interval and range for spectra, as for tristimulus() (defaults: 1 nm when sample and illuminant are at
+   * 1 nm, else 5 nm; 360–830 nm). The white is always summed on the same table as the sample (objectColour).
+   */
+  interval?: ObjectColourOptions["interval"];
+  range?: ObjectColourOptions["range"];
 }
 
 /** D65 on the Y = 100 scale from the chromaticity the display standards use (x = 0.3127, y = 0.3290; IEC 61966-2-1). */
@@ -77,9 +83,9 @@ function checkTristimulus(t: Tristimulus, what: string): Tristimulus {
 /** The colour's XYZ and its reference white (both Y = 100 scale). */
 export function swatchTristimulus(colour: SwatchColour, options: SwatchOptions = {}, what = "swatch"): { XYZ: Tristimulus; white: Tristimulus } {
   if (isSpectrum(colour)) {
-    const ill = options.illuminant ?? "D65";
-    const white = whitePoint({ illuminant: ill });
-    return { XYZ: tristimulus(colour, { illuminant: ill }), white };
+    // The sample and its white from one weighting table: same grid, interval and range (CIE 015:2018 §7).
+    const c = objectColour(colour, { illuminant: options.illuminant ?? "D65", interval: options.interval, range: options.range });
+    return { XYZ: c.XYZ, white: c.white };
   }
   if (colour && typeof colour === "object") {
     if ("XYZ" in colour) return { XYZ: checkTristimulus(colour.XYZ, `${what} XYZ`), white: checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`) };
@@ -175,13 +181,16 @@ export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOp
   const out: Swatch[] = [];
   pairs.forEach((p, i) => {
     if (!p || typeof p.label !== "string") throw new Error(`swatchPairs: pair ${i + 1} needs a label, a reference and a sample`);
-    const r = labOf(p.reference, options, `pair "${p.label}" reference`);
-    const s = labOf(p.sample, options, `pair "${p.label}" sample`);
+    // Two spectra on different grids (1 nm and 5 nm) are summed on one interval, so they share one white.
+    const spectra = [p.reference, p.sample].filter(isSpectrum);
+    const pairOptions = spectra.length === 2 && options.interval === undefined ? { ...options, interval: commonSummationInterval(spectra, [options.illuminant ?? "D65"]) } : options;
+    const r = labOf(p.reference, pairOptions, `pair "${p.label}" reference`);
+    const s = labOf(p.sample, pairOptions, `pair "${p.label}" sample`);
     const sameWhite = Math.abs(r.white.X - s.white.X) < 1e-6 * r.white.Y && Math.abs(r.white.Y - s.white.Y) < 1e-9 * r.white.Y + 1e-9 && Math.abs(r.white.Z - s.white.Z) < 1e-6 * r.white.Y;
     if (!sameWhite) throw new Error(`swatchPairs: pair "${p.label}" has different reference whites for reference and sample; ΔE00 needs one white`);
     const de = deltaE2000(r.lab, s.lab);
-    out.push(swatch(`${p.label} reference`, p.reference, options));
-    out.push(swatch(`${p.label} sample`, p.sample, { ...options, note: `ΔE00 = ${de.toFixed(2)}` }));
+    out.push(swatch(`${p.label} reference`, p.reference, pairOptions));
+    out.push(swatch(`${p.label} sample`, p.sample, { ...pairOptions, note: `ΔE00 = ${de.toFixed(2)}` }));
   });
   return out;
 }

@@ -6,7 +6,7 @@
  */
 import { labFromXYZ, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { tristimulus, whitePoint } from "../colorimetry/tristimulus.ts";
+import { commonSummationInterval, objectColour } from "../colorimetry/tristimulus.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { deltaE76 } from "../difference/delta-e-76.ts";
 import { noteMethod } from "../methods/method-log.ts";
@@ -26,6 +26,8 @@ export interface MetamerismOptions {
   correction?: MetamerismCorrection;
   /** Colour-difference formula of the index (default "ΔE*ab"). */
   formula?: MetamerismFormula;
+  /** Summation interval for samples and whites alike (default: 1 nm only when both samples and both illuminants are at 1 nm, else 5 nm). */
+  interval?: 1 | 5;
 }
 
 export interface MetamerismIndex {
@@ -55,14 +57,18 @@ export function metamerismIndex(sample1: Spectrum, sample2: Spectrum, options: M
   if (formula !== "ΔE*ab" && formula !== "ΔE00") throw new Error(`metamerismIndex: formula "${String(formula)}" is not "ΔE*ab" or "ΔE00"`);
   const observer = options.observer;
   const difference = (a: Lab, b: Lab) => (formula === "ΔE00" ? deltaE2000(a, b) : deltaE76(a, b));
-  const underRef = { illuminant: reference, observer };
-  const underTest = { illuminant: test, observer };
-  const whiteRef = whitePoint(underRef);
-  const whiteTest = whitePoint(underTest);
-  const r1 = tristimulus(sample1, underRef);
-  const r2 = tristimulus(sample2, underRef);
-  const t1 = tristimulus(sample1, underTest);
-  let t2: Tristimulus = tristimulus(sample2, underTest);
+  // Both samples and both whites on one interval: the whites are summed on the same tables as the samples.
+  const interval = options.interval ?? commonSummationInterval([sample1, sample2], [reference, test]);
+  const underRef = { illuminant: reference, observer, interval };
+  const underTest = { illuminant: test, observer, interval };
+  const c1Ref = objectColour(sample1, underRef);
+  const c1Test = objectColour(sample1, underTest);
+  const whiteRef = c1Ref.white;
+  const whiteTest = c1Test.white;
+  const r1 = c1Ref.XYZ;
+  const r2 = objectColour(sample2, underRef).XYZ;
+  const t1 = c1Test.XYZ;
+  let t2: Tristimulus = objectColour(sample2, underTest).XYZ;
   const labR1 = labFromXYZ(r1, whiteRef);
   const labR2 = labFromXYZ(r2, whiteRef);
   const mismatchUnderReference = difference(labR1, labR2);

@@ -45,6 +45,11 @@ const METHOD_WORDS: Record<Exclude<Interpolation, "auto">, string> = {
   spline: "natural cubic spline interpolation of unevenly spaced data",
 };
 
+/** The Methods statement for reading this spectrum between its samples (the one `sampler` notes when it interpolates). */
+export function interpolationStatement(s: Spectrum, requested: Interpolation = "auto"): string {
+  return `Spectral data were interpolated by ${METHOD_WORDS[resolveInterpolation(s, requested)]}.`;
+}
+
 /** A function giving the spectrum's value at any wavelength (nm), built once for repeated reading. */
 export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength: number) => number {
   const method = resolveInterpolation(s, options.interpolation);
@@ -87,7 +92,7 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
     if (index >= 0) return v[index]!;
     if (!notedInterpolation && methodNotesActive()) {
       notedInterpolation = true;
-      noteMethod("interpolation", `Spectral data were interpolated by ${METHOD_WORDS[method]}.`);
+      noteMethod("interpolation", `Spectral data were interpolated by ${METHOD_WORDS[method]}.`); // = interpolationStatement
     }
     return inner(Math.min(Math.max(wavelength, first), last));
   };

@@ -14,7 +14,7 @@ const FUNCTIONS = [
   "observerByName", "colourMatchingAt", "illuminant", "illuminantNames", "illuminantA", "daylightSpectrum", "daylightChromaticity",
   "planckianSpectrum", "planckExitance",
   // colorimetry
-  "tristimulus", "whitePoint", "weightingTable", "lightTristimulus", "chromaticityXy", "toXyY", "fromXyY", "uvPrimeFromXYZ",
+  "tristimulus", "whitePoint", "objectColour", "commonSummationInterval", "weightingTable", "lightTristimulus", "chromaticityXy", "toXyY", "fromXyY", "uvPrimeFromXYZ",
   "uvPrimeFromXy", "xyFromUvPrime", "uv1960FromXy", "xyFromUv1960", "labFromXYZ", "xyzFromLab", "lchFromLab", "labFromLch",
   "luvFromXYZ", "xyzFromLuv", "lchFromLuv", "luvFromLch", "saturationUv", "uvwFromXYZ", "dominantWavelength", "spectrumLocus",
   // colour temperature

@@ -18,6 +18,8 @@ import {
   normaliseToLuminance,
   scotopicPhotopicRatio,
 } from "../../lib/photometry/photometric-quantities.ts";
+import { SAFETY_DECISION_CAUTION } from "../../lib/photometry/safety-caution.ts";
+import { transmittedLight } from "../../lib/filters/transmitted-light.ts";
 import { spectrum, spectrumOnGrid } from "../../lib/spectrum/spectrum.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data.ts";
 
@@ -75,10 +77,20 @@ describe("photometric quantities", () => {
     expect(luminousReflectance(refl)).toBeCloseTo(0.5, 12);
   });
 
-  it("states a caution for safety use in the Methods section", () => {
+  it("keeps the Methods statement factual: the safety caution travels with results, not in Methods", () => {
+    // The rule (notes/rules.md): a result that could feed a safety decision shows a caution beside it; the Methods
+    // section records what was computed. transmittedLight's result carries the caution as a field the report shows.
     resetMethodLog();
-    luminousTransmittance(spectrumOnGrid(360, 5, new Array(95).fill(0.2), { quantity: "transmittance" }));
-    expect(methodsUsed().map((n) => n.statement).join(" ")).toMatch(/informative only/);
+    const filter = spectrumOnGrid(360, 5, new Array(95).fill(0.2), { quantity: "transmittance" });
+    luminousTransmittance(filter);
+    const text = methodsUsed().map((n) => n.statement).join(" ");
+    expect(text).toMatch(/Luminous transmittance τv was computed/);
+    expect(text).not.toMatch(/[Cc]aution|informative only/);
+    const light = transmittedLight(filter);
+    expect(light.luminousTransmittance).toBeCloseTo(0.2, 12);
+    expect(light.caution).toBe(SAFETY_DECISION_CAUTION);
+    expect(light.caution).toMatch(/eye protection, signal lights/);
+    expect(light.caution).toMatch(/accredited/);
   });
 
   it("refuses mismatched quantities and bad targets, naming them", () => {
