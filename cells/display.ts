@@ -8,6 +8,7 @@ import { CAUTION_KEY, emitCautionsOf } from "./cautions.ts";
 import { checkDigits, formatNumber } from "./format-number.ts";
 import { emitRecord as emit } from "./emit.ts";
 import { toPlainData } from "./plain-data.ts";
+import { swatchRecords } from "./swatch-record.ts";
 import type { OutputRecord, PlotSpec, SwatchRecord, TableColumnRecord } from "./records.ts";
 
 /** How many table rows a report shows before it truncates (the note says how many there were). */
@@ -95,13 +96,15 @@ export function showFigure(figure: FigureInput, caption?: string): void {
   emitCautionsOf(figure, "figure");
 }
 
-/** Shows colour swatches: sRGB hex (drawn everywhere), optional wide-gamut CSS colour, label, out-of-gamut flag. */
+/**
+ * Shows colour swatches: sRGB hex (drawn everywhere), optional wide-gamut CSS colour, label, gamut marks, and
+ * reference/sample pairs drawn side by side with their ΔE00 (see cells/swatch-record.ts for the accepted shapes).
+ */
 export function showSwatches(swatches: readonly SwatchRecord[], caption?: string): void {
   if (!Array.isArray(swatches)) {
     throw new TypeError(`showSwatches: expected an array of { label, hex }, got ${describe(swatches)}`);
   }
-  const checked = swatches.map((s, i) => checkSwatch(s, i));
-  emit({ kind: "swatches", caption, swatches: checked });
+  emit({ kind: "swatches", caption, swatches: swatchRecords(swatches) });
   emitCautionsOf(swatches, "swatches");
 }
 
@@ -210,27 +213,6 @@ function formatCell(value: unknown, digits: number | undefined): string {
   if (typeof value === "boolean" || typeof value === "bigint") return String(value);
   if (value instanceof Date) return value.toISOString();
   return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
-}
-
-const HEX = /^#[0-9a-fA-F]{6}$/;
-/** A CSS colour function with numbers, percentages, `none`, keywords and `/`; no quotes, semicolons or braces. */
-const CSS_COLOUR = /^[a-z-]+\(\s*[a-z0-9.%+\-\s/]*\)$/i;
-
-function checkSwatch(s: SwatchRecord, i: number): SwatchRecord {
-  const where = `showSwatches: swatch ${i + 1}`;
-  if (typeof s !== "object" || s === null) throw new TypeError(`${where} is ${describe(s)}, not { label, hex }`);
-  if (typeof s.label !== "string") throw new TypeError(`${where}: label must be a string, got ${describe(s.label)}`);
-  if (typeof s.hex !== "string" || !HEX.test(s.hex)) {
-    throw new TypeError(`${where} ("${s.label}"): hex must be an sRGB colour like #1a2b3c, got ${describe(s.hex)}`);
-  }
-  if (s.css !== undefined && (typeof s.css !== "string" || !CSS_COLOUR.test(s.css.trim()))) {
-    throw new TypeError(`${where} ("${s.label}"): css must be a CSS colour function like color(display-p3 1 0.2 0.1), got ${describe(s.css)}`);
-  }
-  const out: { -readonly [K in keyof SwatchRecord]: SwatchRecord[K] } = { label: s.label, hex: s.hex.toLowerCase() };
-  if (s.css !== undefined) out.css = s.css.trim();
-  if (s.outOfGamut === true) out.outOfGamut = true;
-  if (typeof s.note === "string" && s.note !== "") out.note = s.note;
-  return out;
 }
 
 function describe(value: unknown): string {

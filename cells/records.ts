@@ -52,13 +52,38 @@ export interface FigureRecord {
   readonly spec: PlotSpec;
 }
 
+/** Which standard RGB gamuts hold a swatch's colour (as lib/plot computes it). */
+export interface SwatchGamuts {
+  readonly sRGB: boolean;
+  readonly displayP3: boolean;
+  readonly bt2020: boolean;
+}
+
+/**
+ * A swatch's place in a reference/sample pair. The two members of a pair are consecutive in the swatch list,
+ * reference first, with the same `label`; the report always draws them side by side as one unit, the difference
+ * under both.
+ */
+export interface SwatchPairPlace {
+  /** What the pair is (the patch or sample name), the same on both members. */
+  readonly label: string;
+  readonly role: "reference" | "sample";
+  /** CIEDE2000 colour difference between reference and sample (CIE 142-2001); on the sample. */
+  readonly deltaE00?: number;
+}
+
 /**
  * One colour swatch.
  * - `hex`: the colour in sRGB as `#rrggbb` (already clipped or mapped into the sRGB gamut); every browser draws it.
  * - `css`: optional wider-gamut CSS colour, e.g. `color(display-p3 0.91 0.20 0.12)` or `oklch(0.7 0.2 30)`;
  *   a browser that understands it draws it instead of `hex`.
  * - `label`: what the swatch is (sample name, patch id).
- * - `outOfGamut`: true when the colour lies outside sRGB, so `hex` is only an approximation; the report marks it.
+ * - `outOfGamut`: true when the colour lies outside sRGB, so `hex` is only an approximation.
+ * - `display`: the display gamut the swatch was made for ("sRGB", "Display P3", "BT.2020"); absent means sRGB.
+ * - `outOfDisplayGamut`: true when the colour lies outside that display's gamut (no such screen shows it exactly);
+ *   the report marks the patch with a symbol and a word, explained under the swatches. Absent: `outOfGamut` counts.
+ * - `inGamut`: which standard gamuts hold the colour.
+ * - `pair`: the swatch's place in a reference/sample pair (see SwatchPairPlace).
  * - `note`: optional short text under the label (e.g. the measured values).
  */
 export interface SwatchRecord {
@@ -66,6 +91,10 @@ export interface SwatchRecord {
   readonly hex: string;
   readonly css?: string;
   readonly outOfGamut?: boolean;
+  readonly display?: string;
+  readonly outOfDisplayGamut?: boolean;
+  readonly inGamut?: SwatchGamuts;
+  readonly pair?: SwatchPairPlace;
   readonly note?: string;
 }
 

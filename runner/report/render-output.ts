@@ -23,6 +23,7 @@ import { keepsOnOneLine } from "./cell-wrap.ts";
 import { limitsText, marginText, valueText } from "./check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
+import { renderSwatchFigure } from "./render-swatches.ts";
 
 /** State shared while rendering one report: figure and table numbers, and how to show file paths. */
 export interface RenderContext {
@@ -139,16 +140,7 @@ function renderFigure(record: FigureRecord, ctx: RenderContext): string {
 }
 
 function renderSwatches(record: SwatchesRecord, ctx: RenderContext): string {
-  const number = ++ctx.figures;
-  const chips = record.swatches.map((s) => {
-    const style = `background:${s.hex};${s.css ? `background:${s.css};` : ""}`;
-    const flag = s.outOfGamut ? `<span class="gamut-flag" title="Outside the sRGB gamut: the colour shown is an approximation">outside sRGB</span>` : "";
-    return `<li class="swatch${s.outOfGamut ? " out-of-gamut" : ""}"><span class="chip" style="${escapeHtml(style)}"></span>` +
-      `<span class="swatch-label">${escapeHtml(s.label)}</span><span class="swatch-value">${escapeHtml(s.hex)}</span>` +
-      `${s.note ? `<span class="swatch-note">${escapeHtml(s.note)}</span>` : ""}${flag}</li>`;
-  }).join("");
-  return `<figure class="swatch-figure" id="figure-${number}"><ul class="swatches">${chips}</ul>` +
-    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`;
+  return renderSwatchFigure(record, ++ctx.figures);
 }
 
 function renderMarkdown(record: MarkdownRecord): string {

@@ -44,4 +44,58 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : " (skipped: no 
       await browser.close();
     }
   }, 60_000);
+
+  it("keeps each swatch pair side by side on one row, marks patches outside the display gamut, and keeps IDs on one line", async () => {
+    // Invented CIELAB pairs, drawn by lib/plot's swatchPairs (its current output: two swatches per pair).
+    const { document: doc, run } = await runText(
+      "# Pairs\n\n" +
+        ts(
+          "const pairs = Array.from({ length: 11 }, (_, i) => ({ label: `patch ${i + 1}`, reference: { lab: { L: 30 + 5 * i, a: 20, b: -10 } }, sample: { lab: { L: 31 + 5 * i, a: 21, b: -9 } } }));\n" +
+            "pairs.push({ label: 'laser green', reference: { lab: { L: 80, a: -120, b: 90 } }, sample: { lab: { L: 80, a: -118, b: 88 } } });\n" +
+            "showSwatches(swatchPairs(pairs), 'Invented pairs');\n" +
+            "showTable([{ blank: 'HG-114-01', limit: '249.6 cd/m²', remark: 'a remark long enough that it has to wrap in a narrow window, and may' }]);",
+        ),
+    );
+    expect(run.cells[0]!.status).toBe("ok");
+    const file = path.join(path.dirname(doc.path), "pairs.html");
+    fs.writeFileSync(file, renderReport(doc, run));
+    const browser = await chromium.launch({ executablePath: CHROMIUM, args: ["--no-sandbox", "--disable-gpu"] });
+    try {
+      const page = await browser.newPage();
+      await page.goto(pathToFileURL(file).href);
+      for (const width of [360, 620, 900, 1280]) {
+        await page.setViewportSize({ width, height: 900 });
+        const pairs = await page.$$eval(".swatch-pair", (nodes) => nodes.map((n) => {
+          const [a, b] = Array.from(n.querySelectorAll(".chip")).map((c) => c.getBoundingClientRect());
+          const under = n.querySelector(".pair-difference")!.getBoundingClientRect();
+          return { chips: n.querySelectorAll(".chip").length, sameRow: Math.abs(a!.top - b!.top) < 0.5, touching: Math.abs(a!.right - b!.left) < 0.5, below: under.top >= Math.max(a!.bottom, b!.bottom), text: n.querySelector(".pair-difference")!.textContent };
+        }));
+        expect(pairs).toHaveLength(12);
+        for (const p of pairs) {
+          expect(p).toMatchObject({ chips: 2, sameRow: true, touching: true, below: true });
+          expect(p.text).toMatch(/^ΔE00 = \d+\.\d\d$/);
+        }
+        // The line boxes of a cell's text: an ID or a value with its unit takes one, prose may take several.
+        const lines = await page.$$eval("td", (cells) => cells.map((td) => {
+          const range = document.createRange();
+          range.selectNodeContents(td);
+          return [td.textContent, new Set(Array.from(range.getClientRects()).map((r) => Math.round(r.top))).size] as const;
+        }));
+        expect(lines.find(([t]) => t === "HG-114-01")![1]).toBe(1);
+        expect(lines.find(([t]) => t === "249.6 cd/m²")![1]).toBe(1);
+        if (width === 360) expect(lines.find(([t]) => t!.startsWith("a remark"))![1]).toBeGreaterThan(1);
+      }
+      // Only the laser green sample lies outside sRGB (lib/plot's default display): its patch carries the symbol.
+      const marks = await page.$$eval(".gamut-mark", (nodes) => nodes.map((m) => {
+        const chip = m.parentElement!.getBoundingClientRect();
+        const r = m.getBoundingClientRect();
+        return { text: m.textContent, inside: r.width > 8 && r.left >= chip.left && r.right <= chip.right && r.top >= chip.top && r.bottom <= chip.bottom, label: m.closest(".swatch-pair")!.querySelector(".pair-label")!.textContent };
+      }));
+      expect(marks.length).toBeGreaterThanOrEqual(1);
+      expect(marks.every((m) => m.text === "◇" && m.inside && m.label === "laser green")).toBe(true);
+      expect(await page.locator(".swatch-legend").textContent()).toContain("outside the sRGB gamut");
+    } finally {
+      await browser.close();
+    }
+  }, 60_000);
 });

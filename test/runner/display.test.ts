@@ -1,9 +1,12 @@
 /** Display functions turn values into plain records; checked with a sink that collects them. */
+import Color from "colorjs.io";
+import { differenceCiede2000 } from "culori";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { swatch, swatchPairs } from "../../lib/plot/index.ts";
 import { show, showFigure, showHtml, showSwatches, showTable } from "../../cells/display.ts";
 import { formatNumber } from "../../cells/format-number.ts";
 import { installOutputSink } from "../../cells/output-sink.ts";
-import type { OutputRecord } from "../../cells/records.ts";
+import type { OutputRecord, SwatchesRecord } from "../../cells/records.ts";
 
 let records: OutputRecord[] = [];
 beforeEach(() => {
@@ -63,6 +66,59 @@ describe("display functions", () => {
     expect(records[0]).toEqual({ kind: "swatches", caption: undefined, swatches: [{ label: "P3 red", hex: "#ff0000", css: "color(display-p3 1 0 0)", outOfGamut: true }] });
     expect(() => showSwatches([{ label: "x", hex: "red" }])).toThrow("hex must be an sRGB colour like #1a2b3c");
     expect(() => showSwatches([{ label: "x", hex: "#000000", css: "red;background:url(x)" }])).toThrow("css must be a CSS colour function");
+  });
+
+  it("showSwatches makes lib/plot's current swatchPairs output explicit pairs, ΔE00 moved from the note into the pair", () => {
+    // Invented reference/sample Lab pairs (D65). Reference for ΔE00: culori's CIEDE2000 (npm registry).
+    const pairs = [
+      { label: "C1", reference: { L: 52, a: 41.5, b: 27 }, sample: { L: 51.2, a: 43, b: 25.9 } },
+      { label: "grey 50", reference: { L: 50, a: 0, b: 0 }, sample: { L: 50.4, a: 0.6, b: -1.1 } },
+    ];
+    showSwatches(swatchPairs(pairs.map((p) => ({ label: p.label, reference: { lab: p.reference }, sample: { lab: p.sample } }))));
+    const shown = (records[0] as SwatchesRecord).swatches;
+    expect(shown.map((s) => s.pair?.role)).toEqual(["reference", "sample", "reference", "sample"]);
+    expect(shown.map((s) => s.pair?.label)).toEqual(["C1", "C1", "grey 50", "grey 50"]);
+    const de = differenceCiede2000();
+    pairs.forEach((p, i) => {
+      const expected = de({ mode: "lab65", l: p.reference.L, a: p.reference.a, b: p.reference.b }, { mode: "lab65", l: p.sample.L, a: p.sample.a, b: p.sample.b });
+      // lib/plot writes ΔE00 with two decimals, so the pair carries it to ±0.005.
+      expect(Math.abs(shown[2 * i + 1]!.pair!.deltaE00! - expected)).toBeLessThanOrEqual(0.005);
+      expect(shown[2 * i]!.pair!.deltaE00).toBeUndefined();
+      expect(shown[2 * i + 1]!.note ?? "").not.toContain("ΔE00");
+    });
+  });
+
+  it("showSwatches keeps explicit pair fields, and names a pair whose members are not reference-then-sample", () => {
+    const ref = { label: "target", hex: "#8a4b2f", pair: { label: "T-1", role: "reference" } } as const;
+    const sam = { label: "batch", hex: "#8c4a2e", pair: { label: "T-1", role: "sample", deltaE00: 0.8 } } as const;
+    showSwatches([ref, sam, { label: "loose", hex: "#000000" }]);
+    expect((records[0] as SwatchesRecord).swatches).toEqual([
+      { label: "target", hex: "#8a4b2f", pair: { label: "T-1", role: "reference" } },
+      { label: "batch", hex: "#8c4a2e", pair: { label: "T-1", role: "sample", deltaE00: 0.8 } },
+      { label: "loose", hex: "#000000" },
+    ]);
+    expect(() => showSwatches([sam, ref])).toThrow('swatch 1 ("batch") is the sample of pair "T-1", but no swatch comes before it');
+    expect(() => showSwatches([{ label: "loose", hex: "#000000" }, sam])).toThrow('swatch 2 ("batch") is the sample of pair "T-1", but swatch 1 is not its reference');
+    expect(() => showSwatches([ref, { ...sam, pair: { ...sam.pair, label: "T-2" } }])).toThrow('is the reference of pair "T-1", but swatch 2 is not its sample');
+    expect(() => showSwatches([ref, { ...sam, pair: { ...sam.pair, deltaE00: Number.NaN } }])).toThrow("pair.deltaE00 must be a finite number ≥ 0, got number NaN");
+    expect(() => showSwatches([{ ...ref, pair: { label: "T-1", role: "target" } } as never])).toThrow('pair.role must be "reference" or "sample", got "target"');
+    expect(() => showSwatches([{ ...ref, pair: { ...ref.pair, deltaE00: 1 } } as never, sam])).toThrow("pair.deltaE00 belongs on the pair's sample");
+  });
+
+  it("showSwatches carries lib/plot's display-gamut fields into the record", () => {
+    // Display P3 pure green is outside sRGB and inside Display P3 and BT.2020 (colorjs.io's inGamut, npm registry).
+    const p3green = new Color("p3", [0, 1, 0]);
+    const [X, Y, Z] = p3green.to("xyz-d65").coords as [number, number, number];
+    expect([p3green.inGamut("srgb"), p3green.inGamut("p3"), p3green.inGamut("rec2020")]).toEqual([false, true, true]);
+    showSwatches([
+      swatch("P3 green for sRGB", { XYZ: { X: 100 * X, Y: 100 * Y, Z: 100 * Z } }),
+      swatch("P3 green for P3", { XYZ: { X: 100 * X, Y: 100 * Y, Z: 100 * Z } }, { display: "Display P3" }),
+    ]);
+    const [forSrgb, forP3] = (records[0] as SwatchesRecord).swatches;
+    expect(forSrgb).toMatchObject({ display: "sRGB", outOfDisplayGamut: true, outOfGamut: true, inGamut: { sRGB: false, displayP3: true, bt2020: true } });
+    expect(forP3).toMatchObject({ display: "Display P3", outOfDisplayGamut: false, outOfGamut: true });
+    expect(() => showSwatches([{ label: "x", hex: "#000000", outOfDisplayGamut: "yes" } as never])).toThrow("outOfDisplayGamut must be true or false");
+    expect(() => showSwatches([{ label: "x", hex: "#000000", inGamut: { sRGB: true } } as never])).toThrow("inGamut must be { sRGB, displayP3, bt2020 }");
   });
 
   it("showHtml is escaped unless marked trusted", () => {

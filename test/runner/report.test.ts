@@ -6,7 +6,7 @@ import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import type { OutputRecord } from "../../cells/records.ts";
+import type { OutputRecord, SwatchRecord } from "../../cells/records.ts";
 import { parseNotebook } from "../../runner/parse-notebook.ts";
 import { writeReport } from "../../runner/report-file.ts";
 import { PLOTLY_ASSET, renderReport } from "../../runner/report/render-report.ts";
@@ -50,7 +50,8 @@ describe("the report", () => {
       { kind: "console", stream: "stdout", text: evil },
       { kind: "value", text: evil },
       { kind: "table", columns: [{ label: evil, unit: evil, numeric: false }], rows: [[evil]], totalRows: 1, caption: evil },
-      { kind: "swatches", swatches: [{ label: evil, hex: "#112233", note: evil }] },
+      { kind: "swatches", swatches: [{ label: evil, hex: "#112233", note: evil, display: evil, outOfDisplayGamut: true }] },
+      { kind: "swatches", swatches: [{ label: evil, hex: "#112233", pair: { label: evil, role: "reference" } }, { label: evil, hex: "#112233", pair: { label: evil, role: "sample", deltaE00: 1 } }] },
       { kind: "markdown", text: `# ${evil}\n\n<img src=x onerror=alert(1)>`, trusted: false },
       { kind: "html", html: evil, trusted: false },
       { kind: "caution", title: evil, text: evil },
@@ -140,6 +141,69 @@ describe("the report", () => {
     const wide: OutputRecord = { kind: "table", columns, rows: [columns.map(() => "1.5")], totalRows: 1 };
     const html = renderReport(doc, record([ok(0, [narrow, wide])]));
     expect(html.match(/<table( class="wide")?><thead>/g)).toEqual(["<table><thead>", '<table class="wide"><thead>']);
+  });
+
+  it("draws a reference/sample pair as one unit: both patches side by side, the pair's name above, ΔE00 under both", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const pair = (name: string, de: number): SwatchRecord[] => [
+      { label: `${name} reference`, hex: "#8a4b2f", pair: { label: name, role: "reference" } },
+      { label: `${name} sample`, hex: "#8c4a2e", note: "L* 41", pair: { label: name, role: "sample", deltaE00: de } },
+    ];
+    const html = renderReport(doc, record([ok(0, [
+      { kind: "swatches", swatches: [...pair("P1", 0.8), ...pair("P2", 1.234), ...pair("P3", 2)] },
+      { kind: "swatches", swatches: [{ label: "white tile", hex: "#f4f4f2" }, ...pair("P4", 0.5)] },
+    ])]));
+    const items = [...html.matchAll(/<li class="swatch-pair">([\s\S]*?)<\/li>/g)].map((m) => m[1]!);
+    expect(items).toHaveLength(4);
+    for (const [i, item] of items.entries()) {
+      // Name, then exactly two patches (reference first), then the difference: one grid item, never split.
+      expect(item).toMatch(new RegExp(`^<p class="pair-label">P${i + 1}</p><div class="pair-members">`));
+      expect(item.match(/class="chip"/g)).toHaveLength(2);
+      expect(item.indexOf(">reference<")).toBeLessThan(item.indexOf(">sample<"));
+      expect(item).toMatch(/<\/div><p class="pair-difference">ΔE00 = \d\.\d\d<\/p>$/);
+    }
+    expect(items[1]).toContain("ΔE00 = 1.23");
+    expect(items[0]).toContain('<span class="swatch-note">L* 41</span>');
+    // A figure of pairs only gets the wider grid for pairs; a mixed one keeps single swatches beside the pair.
+    expect(html).toContain('<ul class="swatches swatch-pairs"><li class="swatch-pair">');
+    expect(html).toContain('<ul class="swatches"><li class="swatch">');
+    expect(html).toMatch(/\.swatch-pair \{[^}]*grid-column: span 2;/);
+    expect(html).toMatch(/\.swatch, \.swatch-pair,[^{]*\{ break-inside: avoid; \}/);
+  });
+
+  it("marks a patch outside its display gamut with a symbol on the patch and words, explained in a legend line", () => {
+    const doc = parseNotebook(ts("1"), "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, [
+      { kind: "swatches", swatches: [
+        { label: "inside", hex: "#8a4b2f", display: "Display P3", outOfDisplayGamut: false },
+        { label: "wide", hex: "#00ff00", css: "color(display-p3 0 1 0)", outOfGamut: true, display: "Display P3", outOfDisplayGamut: false },
+        { label: "laser", hex: "#00ff00", css: "color(rec2020 0 1 0)", outOfGamut: true, display: "Display P3", outOfDisplayGamut: true },
+        { label: "lib note", hex: "#00ff00", outOfGamut: true, display: "Display P3", outOfDisplayGamut: true, note: "outside Display P3: shown clipped" },
+      ] },
+      { kind: "swatches", swatches: [{ label: "plain", hex: "#808080" }] },
+      { kind: "swatches", swatches: [{ label: "old shape", hex: "#00ff00", css: "color(display-p3 0 1 0)", outOfGamut: true }] },
+    ])]));
+    const swatches = [...html.matchAll(/<li class="swatch[^"]*">([\s\S]*?)<\/li>/g)].map((m) => m[0]);
+    const of = (label: string) => swatches.find((s) => s.includes(`>${label}<`))!;
+    // Classes: out-of-gamut = outside sRGB (the hex is an approximation); outside-display = marked.
+    expect(of("inside")).toMatch(/^<li class="swatch">/);
+    expect(of("wide")).toMatch(/^<li class="swatch out-of-gamut">/);
+    expect(of("laser")).toMatch(/^<li class="swatch out-of-gamut outside-display">/);
+    expect(of("inside")).not.toContain("gamut-mark");
+    expect(of("wide")).not.toContain("gamut-mark");
+    expect(of("wide")).toContain('<span class="gamut-note">outside sRGB</span>');
+    expect(of("laser")).toContain('<span class="gamut-mark" title="Outside the Display P3 gamut">◇</span></span>');
+    expect(of("laser")).toContain('<span class="gamut-flag"><span aria-hidden="true">◇</span> outside Display P3</span>');
+    // The words are not repeated when the note already says them (lib/plot's current notes do).
+    expect(of("lib note")).toContain("gamut-mark");
+    expect(of("lib note")).not.toContain("gamut-flag");
+    expect(of("old shape")).toContain("gamut-mark");
+    expect(of("old shape")).toContain("outside sRGB");
+    const legends = [...html.matchAll(/<p class="swatch-legend">([\s\S]*?)<\/p>/g)].map((m) => m[1]!.replace(/<[^>]+>/g, ""));
+    expect(legends).toEqual([
+      "◇ marks a patch whose colour lies outside the Display P3 gamut: no such screen shows it exactly, so the patch is an approximation.",
+      "◇ marks a patch whose colour lies outside the sRGB gamut: no such screen shows it exactly, so the patch is an approximation.",
+    ]);
   });
 
   it("reads as a lab report: title block, contents, folded code, no execution counters", () => {
