@@ -113,7 +113,7 @@ export function adaptXYZ(
   const d = options.degree ?? 1;
   noteMethod(
     "chromatic adaptation",
-    `Chromatic adaptation by ${ADAPTATION_MATRICES[key].words}${d === 1 ? ", complete adaptation" : `, degree of adaptation D = ${d}`}.`,
+    `Colours were adapted between reference whites by ${ADAPTATION_MATRICES[key].words}${d === 1 ? " with complete adaptation" : ` with a degree of adaptation D = ${d}`}.`,
   );
   const [X, Y, Z] = applyMatrix3(m, [xyz.X, xyz.Y, xyz.Z]);
   return { X, Y, Z };

@@ -32,7 +32,7 @@ function requireWhite(white: Tristimulus, what: string): void {
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
   requireWhite(white, "labFromXYZ");
   if (![t.X, t.Y, t.Z].every(Number.isFinite)) throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
-  noteMethod("colour space", "CIELAB (CIE 1976 L*a*b*) per CIE 015:2018 §8.2.1.");
+  noteMethod("colour space", "CIELAB (CIE 1976 L*a*b*) values were computed per CIE 015:2018 §8.2.1.");
   const fx = f(t.X / white.X), fy = f(t.Y / white.Y), fz = f(t.Z / white.Z);
   return { L: 116 * fy - 16, a: 500 * (fx - fy), b: 200 * (fy - fz) };
 }

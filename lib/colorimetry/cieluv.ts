@@ -32,7 +32,7 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
 export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
   requireXYZ("luvFromXYZ", "the colour", t, false);
   requireXYZ("luvFromXYZ", "the reference white", white, true);
-  noteMethod("colour space", "CIELUV (CIE 1976 L*u*v*) per CIE 015:2018 §8.2.2.");
+  noteMethod("colour space", "CIELUV (CIE 1976 L*u*v*) values were computed per CIE 015:2018 §8.2.2.");
   const yr = t.Y / white.Y;
   const L = yr > EPSILON ? 116 * Math.cbrt(yr) - 16 : KAPPA * yr;
   const [u, v] = uvPrime(t);

@@ -80,7 +80,7 @@ export function dominantWavelength(xy: Chromaticity, white: Chromaticity, observ
   const obs = observerByName(observer);
   noteMethod(
     "colour space",
-    `Dominant and complementary wavelengths and excitation purity per CIE 015:2018 §9.1–9.2, on the spectrum locus of the ${obs.name} (1 nm, ${locus[0]!.wavelength}–${locus.at(-1)!.wavelength} nm) closed by the purple line.`,
+    `Dominant or complementary wavelengths and excitation purities were determined per CIE 015:2018 §9.1–9.2 on the spectrum locus of the ${obs.name} (1 nm, ${locus[0]!.wavelength}–${locus.at(-1)!.wavelength} nm), closed by the purple line.`,
   );
   const spectral = (ddx: number, ddy: number) => {
     let best: { t: number; wavelength: number } | undefined;

@@ -75,7 +75,7 @@ export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options)
   return fastDeltaE2000(L1, a1, b1, L2, a2, b2, kL, kC, kH);
 }
 
-const DEFAULT_NOTE = "Colour differences ΔE00 by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6), kL = kC = kH = 1.";
+const DEFAULT_NOTE = "Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = kC = kH = 1.";
 const COS_30 = Math.cos(30 * DEG), SIN_30 = Math.sin(30 * DEG);
 const COS_6 = Math.cos(6 * DEG), SIN_6 = Math.sin(6 * DEG);
 const COS_63 = Math.cos(63 * DEG), SIN_63 = Math.sin(63 * DEG);
@@ -134,7 +134,7 @@ function noteDe2000(kL: number, kC: number, kH: number): void {
   if (kL === 1 && kC === 1 && kH === 1) {
     noteMethod("colour difference", DEFAULT_NOTE);
   } else {
-    noteMethod("colour difference", `Colour differences ΔE00 by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6), kL = ${kL}, kC = ${kC}, kH = ${kH}.`);
+    noteMethod("colour difference", `Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = ${kL}, kC = ${kC}, kH = ${kH}.`);
   }
 }
 

@@ -28,7 +28,7 @@ export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options =
   if (!w) throw new Error(`deltaE94: unknown application "${String(application)}"; use "graphic arts" or "textiles"`);
   noteMethod(
     "colour difference",
-    `Colour differences ΔE*94 by CIE 116-1995 with the ${application} weights (kL = ${w.kL}, K1 = ${w.k1}, K2 = ${w.k2}); the first colour of each pair is the reference.`,
+    `Colour differences ΔE*94 were computed by CIE 116-1995 with the ${application} weights (kL = ${w.kL}, K1 = ${w.k1}, K2 = ${w.k2}); the first colour of each pair is the reference.`,
   );
   const c1 = Math.sqrt(reference.a * reference.a + reference.b * reference.b);
   const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);

@@ -21,7 +21,7 @@ export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions
   const c = options.c ?? 1;
   requireFactor("deltaECMC", "l", l);
   requireFactor("deltaECMC", "c", c);
-  noteMethod("colour difference", `Colour differences ΔE CMC(${l}:${c}) per ISO 105-J03 (Clarke, McDonald & Rigg 1984); the first colour of each pair is the reference.`);
+  noteMethod("colour difference", `Colour differences ΔE CMC(${l}:${c}) were computed per ISO 105-J03 (Clarke, McDonald & Rigg 1984); the first colour of each pair is the reference.`);
   const L1 = reference.L;
   const c1 = Math.sqrt(reference.a * reference.a + reference.b * reference.b);
   const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);

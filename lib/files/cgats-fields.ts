@@ -107,14 +107,14 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
   let scale: ValueScale | "as written" = "as written";
   let factor = 1;
   if (ratio || options.scale === "percent" || options.scale === "fraction") {
-    const d = decideValueScale(columns.flat(), options.scale, `${options.quantity} data`);
+    const d = decideValueScale(columns.flat(), options.scale, options.quantity);
     scale = d.scale;
     factor = d.scale === "percent" ? 0.01 : 1;
     if (d.inferred) inferred.push(d.statement);
   }
   const wavelengths = fields.map((f) => f.wavelength);
   const spectra = ids.map((id, i) => spectrum(wavelengths, columns.map((c) => c[i]! * factor), { name: id, quantity: options.quantity }));
-  noteMethod("data files", `CGATS spectral data: ${spectra.length} samples of ${options.quantity}, ${wavelengths[0]}–${wavelengths.at(-1)} nm${scale === "percent" ? ", percent values divided by 100" : ""}.`);
+  noteMethod("data files", `Spectral data of ${spectra.length} sample${spectra.length === 1 ? "" : "s"} of ${options.quantity} (${wavelengths[0]}–${wavelengths.at(-1)} nm) were taken from CGATS spectral fields${scale === "percent" ? "; their percent values were divided by 100" : ""}.`);
   for (const s of inferred) noteMethod("data files", s);
   return { spectra, scale, inferred, keywords: table.keywords, file };
 }

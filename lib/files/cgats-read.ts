@@ -195,7 +195,7 @@ export function parseCgats(text: string): CgatsFile {
   if (Object.keys(keywords).length > 0 || fields.length > 0) {
     throw new DataFileError("header lines after the last END_DATA are not followed by a data block", lines.length);
   }
-  noteMethod("data files", `CGATS.17 text read (identifier ${identifier}): ${tables.length} table${tables.length === 1 ? "" : "s"}, ${tables.map((t) => `${t.sets.length} sets × ${t.fields.length} fields`).join("; ")}.`);
+  noteMethod("data files", `A CGATS.17 file (identifier ${identifier}) with ${tables.length} table${tables.length === 1 ? "" : "s"} (${tables.map((t) => `${t.sets.length} set${t.sets.length === 1 ? "" : "s"} × ${t.fields.length} field${t.fields.length === 1 ? "" : "s"}`).join("; ")}) was read.`);
   return { identifier, tables, comments };
 }
 

@@ -94,7 +94,7 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
     const found = counts.find(([, n]) => n > 0);
     if (!found) throw new DataFileError("the header has a single column; a spectral table needs a wavelength column and at least one sample column (separated by comma, semicolon or tab)", header.number);
     delimiter = found[0];
-    inferred.push(`Field separator: ${DELIMITER_NAMES[delimiter]}, inferred from the header line.`);
+    inferred.push(`The field separator (${DELIMITER_NAMES[delimiter]}) was inferred from the header line.`);
   } else if (stated === "," || stated === ";" || stated === "\t") {
     delimiter = stated;
   } else {
@@ -143,10 +143,10 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
     decimal = commaLine !== undefined ? "," : ".";
     inferred.push(
       commaLine !== undefined
-        ? "Decimal mark: comma, inferred from the numbers."
+        ? "The decimal mark (comma) was inferred from the numbers."
         : pointLine !== undefined
-          ? "Decimal mark: point, inferred from the numbers."
-          : "Decimal mark: none needed (all numbers are whole).",
+          ? "The decimal mark (point) was inferred from the numbers."
+          : "No decimal mark was needed (all numbers are whole).",
     );
   } else if (statedDecimal === "." || statedDecimal === ",") {
     decimal = statedDecimal;
@@ -183,7 +183,7 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   let scale: ValueScale | "as written" = "as written";
   let factor = 1;
   if (ratio || options.scale === "percent" || options.scale === "fraction") {
-    const decision = decideValueScale(columns.flat(), options.scale, `${options.quantity} data`);
+    const decision = decideValueScale(columns.flat(), options.scale, options.quantity);
     scale = decision.scale;
     factor = decision.scale === "percent" ? 0.01 : 1;
     if (decision.inferred) inferred.push(decision.statement);
@@ -195,7 +195,7 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   const g = gridOf(spectra[0]!);
   noteMethod(
     "data files",
-    `Spectral table read: ${names.length} sample${names.length === 1 ? "" : "s"} of ${options.quantity}, ${g ? `${g.start}–${g.end} nm every ${g.step} nm` : `${wavelengths.length} wavelengths from ${wavelengths[0]} to ${wavelengths.at(-1)} nm`}${scale === "percent" ? ", percent values divided by 100" : ""}.`,
+    `A spectral table of ${names.length} sample${names.length === 1 ? "" : "s"} of ${options.quantity} (${g ? `${g.start}–${g.end} nm every ${g.step} nm` : `${wavelengths.length} wavelengths from ${wavelengths[0]} to ${wavelengths.at(-1)} nm`}) was read${scale === "percent" ? "; its percent values were divided by 100" : ""}.`,
   );
   for (const statement of inferred) noteMethod("data files", statement);
   return { spectra, wavelengthHeader: head[0]!, delimiter, decimal, scale, inferred, comments };

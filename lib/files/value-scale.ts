@@ -17,10 +17,13 @@ export interface ScaleDecision {
 /** The largest value above which data are read as percent when the scale is not stated (common practice, no source). */
 export const PERCENT_THRESHOLD = 1.5;
 
-/** Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so. */
+/**
+ * Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so.
+ * An inferred scale is worth confirming by stating `scale` (percent values of a very dark sample read as fractions).
+ */
 export function decideValueScale(values: Iterable<number>, stated: ValueScale | "auto" | undefined, what: string): ScaleDecision {
   if (stated === "fraction" || stated === "percent") {
-    return { scale: stated, inferred: false, statement: `${what}: values stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.` };
+    return { scale: stated, inferred: false, statement: `The ${what} values were stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.` };
   }
   if (stated !== undefined && stated !== "auto") throw new Error(`scale "${String(stated)}" is not "fraction", "percent" or "auto"`);
   let max = -Infinity;
@@ -29,12 +32,12 @@ export function decideValueScale(values: Iterable<number>, stated: ValueScale | 
     return {
       scale: "percent",
       inferred: true,
-      statement: `${what}: values read as PERCENT, inferred from the values (the largest is ${max}); divided by 100. State scale: "percent" or "fraction" to confirm.`,
+      statement: `The ${what} values were read as percent and divided by 100, as inferred from the values (the largest is ${max}, above ${PERCENT_THRESHOLD}).`,
     };
   }
   return {
     scale: "fraction",
     inferred: true,
-    statement: `${what}: values read as FRACTIONS, inferred from the values (none above ${PERCENT_THRESHOLD}; the largest is ${max}). If these are percent of a dark sample, state scale: "percent".`,
+    statement: `The ${what} values were read as fractions, as inferred from the values (none above ${PERCENT_THRESHOLD}; the largest is ${max}).`,
   };
 }

@@ -101,7 +101,7 @@ export function stackTransmittance(elements: readonly FilterElement[], options: 
   });
   noteMethod(
     "optics",
-    `Filter stacks were computed ${JOIN_WORDS[join]}; refractive indices ${elements.map((e) => `${e.name}: ${describeRefractiveIndex(e.refractiveIndex)}`).join("; ")}.`,
+    `Filter stacks were computed ${JOIN_WORDS[join]}, with the refractive indices ${elements.map((e) => `${describeRefractiveIndex(e.refractiveIndex)} for ${e.name}`).join(", ")}.`,
   );
   return spectrum(wl, values, { name: options.name ?? elements.map((e) => e.name).join(" + "), quantity: "transmittance" });
 }

@@ -19,7 +19,7 @@ export function transmittanceFromDensity(density: number): number {
 
 /** Optical density at each wavelength, D(λ) = −log₁₀ T(λ); a zero transmittance is an error naming its wavelength. */
 export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
-  noteMethod("optics", "Optical density D = −log₁₀ T (decadic).");
+  noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = transmittance.values.map((t, i) => {
     try {
       return opticalDensity(t);
@@ -32,7 +32,7 @@ export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
 
 /** Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ). */
 export function transmittanceFromDensitySpectrum(density: Spectrum): Spectrum {
-  noteMethod("optics", "Optical density D = −log₁₀ T (decadic).");
+  noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = density.values.map((d, i) => {
     try {
       return transmittanceFromDensity(d);

@@ -34,7 +34,7 @@ function shape(options: EdgeShape): { peak: number; floor: number; edgeWidth: nu
   const floor = requireFraction(options.floor ?? 0, "blocking transmittance (floor)");
   if (floor > peak) throw new Error(`the blocking transmittance ${floor} is above the pass-band transmittance ${peak}`);
   const edgeWidth = requireNonNegative(options.edgeWidth ?? 0, "edge width (nm)");
-  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; smoothed edges are logistic with the stated 10–90 % edge width.");
+  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.");
   return { peak, floor, edgeWidth, wavelengths: gridWavelengths(options.grid ?? PARAMETRIC_GRID) };
 }
 
@@ -79,7 +79,7 @@ export function bandPassFilter(centre: number, width: number, options: EdgeShape
 export function neutralDensityFilter(density: number, options: { grid?: WavelengthGrid; name?: string } = {}): Spectrum {
   requireNonNegative(density, "neutral density");
   const w = gridWavelengths(options.grid ?? PARAMETRIC_GRID);
-  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; smoothed edges are logistic with the stated 10–90 % edge width.");
+  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.");
   return spectrum(w, w.map(() => 10 ** -density), { name: options.name ?? `ND ${density}`, quantity: "transmittance" });
 }
 
@@ -93,7 +93,7 @@ export function dyeFilter(absorbance: Spectrum, options: { amount?: number; name
     requireFinite(a, `absorbance of "${absorbance.name}" at ${absorbance.wavelengths[i]} nm`);
     if (a < 0) throw new Error(`absorbance of "${absorbance.name}" is ${a} at ${absorbance.wavelengths[i]} nm; a dye's absorbance cannot be negative`);
   });
-  noteMethod("optics", "Dye layers follow the Beer–Lambert law: τᵢ = 10^(−A·c·d) with decadic absorbance A (IUPAC Gold Book).");
+  noteMethod("optics", "Dye layers were modelled by the Beer–Lambert law, τᵢ = 10^(−A·c·d) with decadic absorbance A (IUPAC Gold Book).");
   return spectrum(absorbance.wavelengths, absorbance.values.map((a) => 10 ** (-amount * a)), {
     name: options.name ?? `${absorbance.name} ×${amount}`,
     quantity: "transmittance",

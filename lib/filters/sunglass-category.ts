@@ -43,7 +43,7 @@ export function sunglassCategory(luminousTransmittance: number): SunglassCategor
   const tv = requireFraction(luminousTransmittance, "luminous transmittance τv");
   noteMethod(
     "optics",
-    "Sunglass-type filter categories were assigned from the luminous transmittance (CIE illuminant D65, CIE 1931 observer) by the limits of ISO 12312-1:2013 Table 1; informative only, not a certification.",
+    "Sunglass-type filter categories were assigned from the luminous transmittance (CIE illuminant D65, CIE 1931 observer) by the category limits of ISO 12312-1:2013 Table 1, as transcribed in the library from memory rather than from the standard's text.",
   );
   const row = SUNGLASS_CATEGORY_LIMITS.find((r) => tv > r.above && tv <= r.upTo);
   const notes: string[] = [];

@@ -93,7 +93,7 @@ function ccw(p: Point[]): Point[] {
 /** Area of a gamut polygon in the xy or u′v′ diagram (shoelace formula). */
 export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const p = toDiagram(verticesOf(gamut, "gamutArea"), diagram);
-  noteMethod("gamut", `Gamut areas were computed in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon area).`);
+  noteMethod("gamut", `Gamut areas were computed as polygon areas in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram.`);
   return Math.abs(signedArea(p));
 }
 
@@ -117,7 +117,7 @@ export function gamutCoverage(device: Gamut, reference: Gamut, diagram: Chromati
   if (!(ref > 0)) throw new Error("gamutCoverage: the reference gamut has no area");
   noteMethod(
     "gamut",
-    `Gamut coverage = 100 × area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} diagram (polygon clipping, Sutherland & Hodgman 1974).`,
+    `Gamut coverage was computed as 100 × area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon clipping, Sutherland & Hodgman 1974).`,
   );
   return (100 * gamutIntersectionArea(device, reference, diagram)) / ref;
 }

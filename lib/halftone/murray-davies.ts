@@ -21,7 +21,7 @@ export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum,
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "murrayDavies");
-  noteMethod("halftone", "Halftone reflectance by the Murray–Davies area-weighted mean of solid and paper (Murray 1936).");
+  noteMethod("halftone", "Halftone reflectances were computed as the Murray–Davies area-weighted mean of solid and paper (Murray 1936).");
   return spectrum(solid.wavelengths, solid.values.map((s, i) => coverage * s + (1 - coverage) * paper.values[i]!), {
     name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} %`,
     quantity: "reflectance",

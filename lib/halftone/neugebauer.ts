@@ -67,8 +67,8 @@ export function neugebauerReflectance(coverages: InkCoverages, primaries: Neugeb
   noteMethod(
     "halftone",
     n === 1
-      ? "Print reflectances by the spectral Neugebauer model with Demichel's dot-overlap areas (Neugebauer 1937; Demichel 1924)."
-      : `Print reflectances by the Yule–Nielsen modified spectral Neugebauer model, n = ${n}, with Demichel's areas (Viggiano 1990).`,
+      ? "Print reflectances were computed by the spectral Neugebauer model with Demichel's dot-overlap areas (Neugebauer 1937; Demichel 1924)."
+      : `Print reflectances were computed by the Yule–Nielsen modified spectral Neugebauer model with n = ${n} and Demichel's areas (Viggiano 1990).`,
   );
   const first = used[0]!;
   const values = first.wavelengths.map((_: number, i: number) => keys.reduce((s, k) => s + areas[k]! * primaries[k]!.values[i]! ** (1 / n), 0) ** n);

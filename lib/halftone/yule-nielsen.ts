@@ -21,7 +21,7 @@ export function yuleNielsen(coverage: number, solid: Spectrum, paper: Spectrum, 
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "yuleNielsen");
-  noteMethod("halftone", `Halftone reflectance by the Yule–Nielsen model with n = ${n} (Yule & Nielsen 1951).`);
+  noteMethod("halftone", `Halftone reflectances were computed by the Yule–Nielsen model with n = ${n} (Yule & Nielsen 1951).`);
   return spectrum(solid.wavelengths, solid.values.map((s, i) => yuleNielsenValue(coverage, s, paper.values[i]!, n)), {
     name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} % (n = ${n})`,
     quantity: "reflectance",
@@ -47,6 +47,6 @@ export function effectiveCoverage(measured: Spectrum, solid: Spectrum, paper: Sp
     den += (S - P) ** 2;
   });
   if (!(den > 0)) throw new Error(`effectiveCoverage: solid "${solid.name}" and paper "${paper.name}" have the same reflectance everywhere, so no coverage can be inferred`);
-  noteMethod("halftone", `Effective dot coverages were fitted by least squares over wavelength with the Yule–Nielsen model, n = ${n}.`);
+  noteMethod("halftone", `Effective dot coverages were fitted by least squares over wavelength with the Yule–Nielsen model and n = ${n}.`);
   return num / den;
 }

@@ -163,7 +163,7 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
     requireSameGrid(parts.map((p) => p.ks), "mixPaint");
     wavelengths = parts[0]!.ks.wavelengths;
     internal = wavelengths.map((_: number, i: number) => reflectanceFromKs(parts.reduce((s, p, j) => s + fractions[j]! * p.ks.values[i]!, 0)));
-    noteMethod("mixing", "Paint mixtures were computed by single-constant Kubelka–Munk theory: (K/S) of the mixture = Σ cⱼ(K/S)ⱼ (Duncan 1940), opaque layer R∞ (Kubelka & Munk 1931).");
+    noteMethod("mixing", "Paint mixtures were computed by single-constant Kubelka–Munk theory: (K/S) of the mixture = Σ cⱼ(K/S)ⱼ (Duncan 1940), for an opaque layer, R∞ (Kubelka & Munk 1931).");
   } else {
     const parts = recipe.map((p) => p.colourant as TwoConstantColourant);
     requireSameGrid(parts.flatMap((p) => [p.k, p.s]), "mixPaint");
@@ -182,7 +182,7 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
     });
     noteMethod(
       "mixing",
-      `Paint mixtures were computed by two-constant Kubelka–Munk theory: K = ΣcⱼKⱼ, S = ΣcⱼSⱼ (Duncan 1940), ${layer ? "a layer of finite thickness over its background (Kubelka 1948)" : "opaque layer R∞ (Kubelka & Munk 1931)"}.`,
+      `Paint mixtures were computed by two-constant Kubelka–Munk theory: K = ΣcⱼKⱼ, S = ΣcⱼSⱼ (Duncan 1940), ${layer ? "for a layer of finite thickness over its background (Kubelka 1948)" : "for an opaque layer, R∞ (Kubelka & Munk 1931)"}.`,
     );
   }
   const measured = internal.map((r) => Math.min(1, Math.max(0, toMeasured(r, surface))));

@@ -24,7 +24,7 @@ function constants(options: SurfaceCorrection): { k1: number; k2: number; includ
   if (specular !== "included" && specular !== "excluded") throw new Error(`Saunderson: specular "${String(specular)}" is not "included" or "excluded"`);
   noteMethod(
     "mixing",
-    `Surface reflection was taken into account with the Saunderson correction (J. Opt. Soc. Am. 32, 727, 1942), k₁ = ${k1}, k₂ = ${k2}, specular component ${specular}.`,
+    `Surface reflection was taken into account with the Saunderson correction (J. Opt. Soc. Am. 32, 727, 1942) with k₁ = ${k1} and k₂ = ${k2}, the specular component ${specular}.`,
   );
   return { k1, k2, included: specular === "included" };
 }

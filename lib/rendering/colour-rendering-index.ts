@@ -142,7 +142,7 @@ export function colourRenderingIndex(source: Spectrum, options: { cctMethod?: Cc
   }
   noteMethod(
     "colour rendering",
-    "Colour rendering indices per CIE 13.3-1995: test colour samples TCS01–TCS14, CIE 1931 2° observer at 5 nm over 380–780 nm, reference illuminant a Planckian radiator below 5000 K and CIE daylight at and above 5000 K at the source's CCT, von Kries-type adaptation in the CIE 13.3 form, differences in CIE 1964 U*V*W*, Rᵢ = 100 − 4.6ΔEᵢ, Ra the mean of R1–R8.",
+    "Colour rendering indices were computed per CIE 13.3-1995 with the test colour samples TCS01–TCS14 and the CIE 1931 2° observer at 5 nm over 380–780 nm; the reference illuminant was a Planckian radiator below 5000 K and CIE daylight at and above 5000 K at the source's CCT, adaptation was the von Kries-type transform of CIE 13.3, differences were taken in CIE 1964 U*V*W*, Rᵢ = 100 − 4.6ΔEᵢ, and Ra is the mean of R1–R8.",
   );
   return { ra, special, cct, duv, reference, dc, withinTolerance, notes };
 }

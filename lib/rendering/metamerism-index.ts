@@ -88,7 +88,7 @@ export function metamerismIndex(sample1: Spectrum, sample2: Spectrum, options: M
   }
   noteMethod(
     "colour rendering",
-    `Special metamerism indices for a change of illuminant (CIE 015:2018) from ${nameOf(reference)} to ${nameOf(test)}, ${formula}, with ${correction === "none" ? "no correction" : `${correction} correction`} of the residual mismatch under the reference illuminant.`,
+    `Special metamerism indices for a change of illuminant (CIE 015:2018) were computed from ${nameOf(reference)} to ${nameOf(test)} as ${formula}, with ${correction === "none" ? "no correction" : `${correction === "additive" ? "an" : "a"} ${correction} correction`} of the residual mismatch under the reference illuminant.`,
   );
   return {
     index: difference(lab1, lab2),

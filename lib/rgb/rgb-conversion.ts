@@ -20,7 +20,7 @@ function noteSpace(space: RgbSpace, encoded: boolean): void {
   const w = space.white;
   noteMethod(
     "rgb encoding",
-    `${space.name} RGB (${space.source}): primaries R (${space.primaries.r.x}, ${space.primaries.r.y}), G (${space.primaries.g.x}, ${space.primaries.g.y}), B (${space.primaries.b.x}, ${space.primaries.b.y}), white (${w.x}, ${w.y}); RGB–XYZ matrices derived per SMPTE RP 177-1993${encoded ? `; ${transferFunction(space.transfer).description}` : "; linear values (no transfer function)"}.`,
+    `Conversions between XYZ and ${space.name} RGB (${space.source}) used the primaries R (${space.primaries.r.x}, ${space.primaries.r.y}), G (${space.primaries.g.x}, ${space.primaries.g.y}), B (${space.primaries.b.x}, ${space.primaries.b.y}) and white (${w.x}, ${w.y}), with RGB–XYZ matrices derived per SMPTE RP 177-1993${encoded ? ` and ${transferFunction(space.transfer).description}` : "; the RGB values are linear (no transfer function was applied)"}.`,
   );
 }
 

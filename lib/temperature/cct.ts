@@ -27,7 +27,7 @@ export interface CctResult {
 /** |Duv| beyond which CIE 015:2018 §9.5 regards a correlated colour temperature as meaningless. */
 export const DUV_LIMIT = 0.05;
 
-const LOCUS_WORDS = "Planckian locus from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm, 360–830 nm; distances in the CIE 1960 UCS";
+const LOCUS_WORDS = "The Planckian locus was computed from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm over 360–830 nm, and distances were taken in the CIE 1960 UCS (CIE 015:2018 §9.5).";
 
 function checkXy(xy: Chromaticity, what: string): void {
   if (typeof xy !== "object" || xy === null || !Number.isFinite(xy.x) || !Number.isFinite(xy.y)) {
@@ -57,14 +57,14 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
     result = cctOhno(uv);
     noteMethod(
       "colour temperature",
-      `Correlated colour temperature and Duv by Ohno's combined triangular/parabolic method (Ohno 2014, LEUKOS 10:47–55) on a Planckian table in 1 % steps from ${OHNO_RANGE_K[0]} K to ${OHNO_RANGE_K[1]} K, refined around the nearest point to steps of about 0.0003 % (so the 1 %-table correction factor 0.99991 is not applied); ${LOCUS_WORDS}.`,
+      `Correlated colour temperatures and Duv were computed by Ohno's combined triangular/parabolic method (Ohno 2014, LEUKOS 10:47–55) on a Planckian table in 1 % steps from ${OHNO_RANGE_K[0]} K to ${OHNO_RANGE_K[1]} K, refined around the nearest point to steps of about 0.0003 % (so the 1 %-table correction factor 0.99991 was not applied). ${LOCUS_WORDS}`,
     );
   } else if (method === "robertson") {
     const cct = cctRobertson(uv);
     result = { cct, duv: duvAt(uv.u, uv.v, cct) };
     noteMethod(
       "colour temperature",
-      `Correlated colour temperature by Robertson's method (JOSA 58:1528, 1968) on his 31 isotemperature lines (0–600 MK⁻¹), recomputed from the ${LOCUS_WORDS}; Duv as the distance to the locus at that temperature.`,
+      `Correlated colour temperatures were computed by Robertson's method (JOSA 58:1528, 1968) on his 31 isotemperature lines (0–600 MK⁻¹), recomputed from the Planckian locus, and Duv as the distance to the locus at that temperature. ${LOCUS_WORDS}`,
     );
   } else {
     throw new Error(`cctAndDuv: unknown method "${String(method)}"; use "ohno" or "robertson"`);

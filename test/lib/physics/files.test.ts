@@ -46,7 +46,7 @@ describe("spectral CSV/TSV", () => {
     expect(r.spectra[0]!.values).toEqual([0.105, 0.1225, 0.15]);
     expect(r.spectra[1]!.quantity).toBe("transmittance");
     expect(r.scale).toBe("percent");
-    expect(r.inferred.join(" ")).toMatch(/comma, inferred.*point, inferred.*PERCENT, inferred from the values \(the largest is 82\)/);
+    expect(r.inferred.join(" ")).toMatch(/separator \(comma\) was inferred.*decimal mark \(point\) was inferred.*read as percent and divided by 100, as inferred from the values \(the largest is 82/);
     expect(r.comments).toEqual(["invented example, transmittance in percent"]);
   });
 
@@ -68,7 +68,7 @@ describe("spectral CSV/TSV", () => {
     const text = 'nm,"Tile 3, glossy","Tile ""B"""\n500,0.5,0.25\n510,0.55,0.3\n';
     const r = parseSpectraCsv(text, { quantity: "reflectance", scale: "fraction" });
     expect(r.spectra.map((s) => s.name)).toEqual(["Tile 3, glossy", 'Tile "B"']);
-    expect(r.inferred.some((s) => /FRACTIONS/.test(s))).toBe(false);
+    expect(r.inferred.some((s) => /read as fractions/.test(s))).toBe(false);
     const out = formatSpectraCsv(r.spectra);
     expect(out.split("\n")[0]).toBe('wavelength_nm,"Tile 3, glossy","Tile ""B"""');
   });
@@ -77,7 +77,7 @@ describe("spectral CSV/TSV", () => {
     // Source: the library's rule that a unit inferred from values is reported (issue requirement); values as written above.
     const r = parseSpectraCsv("nm,s\n500,0.5\n510,0.6\n", { quantity: "reflectance" });
     expect(r.scale).toBe("fraction");
-    expect(r.inferred.join(" ")).toMatch(/FRACTIONS, inferred/);
+    expect(r.inferred.join(" ")).toMatch(/read as fractions, as inferred from the values/);
     const p = parseSpectraCsv("nm,lamp\n500,55\n510,60\n", { quantity: "relative power" });
     expect(p.scale).toBe("as written");
     expect(p.spectra[0]!.values).toEqual([55, 60]);
@@ -166,7 +166,7 @@ describe("CGATS.17 text", () => {
     const s = cgatsSpectra(file, { quantity: "reflectance" });
     expect(s.spectra.map((x) => x.name)).toEqual(["pale blue", "warm grey"]);
     expect(s.spectra[0]!.values).toEqual([0.625, 0.551, 0.402]);
-    expect(s.inferred.join(" ")).toMatch(/PERCENT, inferred/);
+    expect(s.inferred.join(" ")).toMatch(/read as percent and divided by 100, as inferred/);
     expect(cgatsTristimulus(t)[1]).toEqual({ id: "warm grey", XYZ: { X: 30.2, Y: 31.0, Z: 27.8 } });
     expect(() => cgatsLab(t)).toThrow(/missing LAB_A, LAB_B/);
   });
