@@ -3,8 +3,8 @@
  * so the same function serves a fresh run and watch mode's prose-only re-render from the last run's records.
  *
  * Layout: title block, summary (failures, cautions), contents, the notebook's prose with each cell's folded code
- * and outputs in place, Methods, Run record. Plotly is embedded once when the report has a figure (or linked from a
- * shared assets folder when asked).
+ * and outputs in place, Methods, Provenance; then the run's plain-data record for tools (embedded-run-record.ts).
+ * Plotly is embedded once when the report has a figure (or linked from a shared assets folder when asked).
  */
 import fs from "node:fs";
 import type { Token } from "markdown-it";
@@ -16,6 +16,7 @@ import type { CellSource, NotebookDocument } from "../notebook.ts";
 import type { CellRun, RunRecord } from "../run-record.ts";
 import { cautionIndex, cautionResults } from "../caution-results.ts";
 import { countChecks } from "../check-results.ts";
+import { embeddedRunRecord, runRecordScript } from "./embedded-run-record.ts";
 import { escapeHtml } from "./escape.ts";
 import { formatDuration } from "./format.ts";
 import { highlight } from "./highlight.ts";
@@ -116,6 +117,7 @@ ${methods}
 ${renderRunDetails(document, run, "run-record", hasFigures ? { plotlyVersion: PLOTLY_VERSION } : {})}
 <footer class="report-footer">Made with ${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} from ${escapeHtml(path.basename(document.path))}.</footer>
 </main>
+${runRecordScript(embeddedRunRecord(document, run, title))}
 ${plotly}
 ${hasFigures ? `<script>${FIGURES_CLIENT}</script>` : ""}
 ${options.extraBodyHtml ?? ""}

@@ -79,7 +79,7 @@ export function renderRunDetails(document: NotebookDocument, run: RunRecord, id:
 }
 
 /** A path relative to the notebook's folder, with forward slashes (absolute when on another drive). */
-function shownPath(file: string, dir: string): string {
+export function shownPath(file: string, dir: string): string {
   const relative = path.relative(dir, file);
   if (!relative || path.isAbsolute(relative)) return file;
   return relative.split(path.sep).join("/");

@@ -12,6 +12,7 @@ import { parse } from "csv-parse/sync";
 import { converter, differenceCiede2000 } from "culori";
 import { beforeAll, describe, expect, it } from "vitest";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "../lib/reference-data.ts";
+import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { tempFolder } from "../runner/helpers.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));
@@ -77,19 +78,8 @@ function tableRows(html: string, start: string): Record<string, string>[] {
   return t.rows.map((r) => Object.fromEntries(t.headers.map((h, i) => [h, r[i] ?? ""])));
 }
 
-/** The acceptance checks of a report: outcome, label and the value as shown. */
-function reportChecks(html: string): { outcome: string; label: string; value: string }[] {
-  return [...html.matchAll(/<tr class="check check-(\w+)"[^>]*>([\s\S]*?)<\/tr>/g)].map((m) => ({
-    outcome: m[1]!,
-    label: text(/<td class="check-label">([\s\S]*?)<\/td>/.exec(m[2]!)?.[1] ?? ""),
-    value: text((/<td class="[^"]*check-value">([\s\S]*?)<\/td>/.exec(m[2]!)?.[1] ?? "").replace(/<span class="check-margin">[\s\S]*?<\/span>/, "")),
-  }));
-}
-
-/** The status of every cell section of a report ("ok", "failed", "not-run", "listing"). */
-function cellStatuses(html: string): string[] {
-  return [...html.matchAll(/<section class="cell cell-([\w-]+)/g)].map((m) => m[1]!);
-}
+/** The run record the report embeds for tools (cells, checks with their full values, cautions, Methods, inputs). */
+const runRecord = (name: string) => readEmbeddedRunRecord(report(name));
 
 /** Rows of a data file, comment lines (#) skipped, with csv-parse (an independent reader, not the library's). */
 function readDataCsv(file: string): Record<string, string>[] {
@@ -124,11 +114,11 @@ describe("the example notebooks run cleanly through the tristim command", () => 
   });
 
   it.each(["getting-started", "filter-lot-acceptance", "display-measurement-record", "teaching-demo-data"])("%s: every cell ran, none failed", (name) => {
-    const html = report(name);
-    const statuses = cellStatuses(html);
-    expect(statuses.length).toBeGreaterThan(3);
-    expect(statuses.filter((s) => s !== "ok" && s !== "listing")).toEqual([]);
-    expect(html).not.toContain('class="out-error"');
+    const record = runRecord(name);
+    expect(record.cells.length).toBeGreaterThan(3);
+    expect(record.cells.filter((c) => c.status !== "ok" && c.status !== "listing")).toEqual([]);
+    expect(record.cells.filter((c) => c.error)).toEqual([]);
+    expect(record.exitCode).toBe(0);
   });
 
   it.each([
@@ -136,9 +126,10 @@ describe("the example notebooks run cleanly through the tristim command", () => 
     ["display-measurement-record", 10],
     ["teaching-demo-data", 8],
   ] as const)("%s: states at least %i acceptance checks and every one passed", (name, atLeast) => {
-    const checks = reportChecks(report(name));
+    const { checks, counts } = runRecord(name);
     expect(checks.length).toBeGreaterThanOrEqual(atLeast);
-    expect(checks.filter((c) => c.outcome !== "pass")).toEqual([]);
+    expect(checks.filter((c) => !c.passed)).toEqual([]);
+    expect(counts.checks).toEqual({ passed: checks.length, failed: 0 });
     expect(report(name)).toContain(`All ${checks.length} acceptance checks passed`);
   });
 });
@@ -273,14 +264,16 @@ describe("display measurement record: results against outside references", () =>
   it("reports the contrast ratio and the fitted gamma of the data file", () => {
     const readings = readDataCsv(dataFile);
     const Y = (name: string) => Number(readings.find((r) => r.patch === name)!.Y);
-    const checks = reportChecks(html());
-    const value = (start: string) => Number.parseFloat(checks.find((c) => c.label.startsWith(start))!.value);
-    expect(value("Q3 contrast ratio")).toBe(Math.round(Y("white") / Y("black")));
+    const { checks } = runRecord("display-measurement-record");
+    // The embedded record carries the full value the cell checked, not the report's rounded text.
+    const value = (start: string) => checks.find((c) => c.label.startsWith(start))!.value!;
+    expect(Math.abs(value("Q3 contrast ratio") / (Y("white") / Y("black")) - 1)).toBeLessThan(1e-12);
     // Least squares of ln L on ln V through the origin, L = (Y − Yblack)/(Ywhite − Yblack), V = code/255.
     const ramp = readings.filter((r) => r.role === "ramp");
     const pairs = ramp.map((r) => [Math.log(Number(r.R) / 255), Math.log((Number(r.Y) - Y("black")) / (Y("white") - Y("black")))] as const);
     const gamma = pairs.reduce((s, [x, y]) => s + x * y, 0) / pairs.reduce((s, [x]) => s + x * x, 0);
-    expect(Math.abs(value("Q4 fitted gamma") - gamma)).toBeLessThan(6e-4);
+    // The same fit computed here from the file: with the full value (not 3 shown decimals) they agree to rounding.
+    expect(Math.abs(value("Q4 fitted gamma") - gamma)).toBeLessThan(1e-9);
   });
 });
 

@@ -11,6 +11,7 @@ import { describe, expect, it } from "vitest";
 import { parseEachArgument } from "../../runner/batch.ts";
 import { EXIT } from "../../runner/exit-codes.ts";
 import { expandFilePattern, reportNamesFor } from "../../runner/file-pattern.ts";
+import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { tempFolder, ts, writeFiles } from "./helpers.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));
@@ -75,6 +76,12 @@ describe("tristim run --each", () => {
       const html = fs.readFileSync(path.join(folder, "one", `${name}.html`), "utf8");
       expect(html).toContain(`<pre class="out-console out-stdout">lots/${name}.csv</pre>`);
       expect(html).toContain("--each (this run&#39;s data file)");
+      // The embedded run record names the data file and the check's full value (the files hold 1, 7 and 3).
+      const record = readEmbeddedRunRecord(html);
+      expect(record.batch).toEqual({ input: "data", pattern: "lots/*.csv", position: ["a", "b", "c"].indexOf(name) + 1, count: 3, dataFile: `lots/${name}.csv` });
+      expect(record.inputs.find((i) => i.name === "data")).toEqual({ name: "data", value: `lots/${name}.csv`, setBy: "--each" });
+      expect(record.checks.map((c) => [c.value, c.passed])).toEqual([[{ a: 1, b: 7, c: 3 }[name], name !== "b"]]);
+      expect(record.exitCode).toBe(name === "b" ? EXIT.checkFailed : EXIT.ok);
     }
     const index = fs.readFileSync(path.join(folder, "one", "index.html"), "utf8");
     expect(index).toContain("<h1>Lot check (invented data)</h1>");

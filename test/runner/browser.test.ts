@@ -8,6 +8,7 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { chromium } from "playwright-core";
 import { describe, expect, it } from "vitest";
+import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { runText, ts } from "./helpers.ts";
 
@@ -38,6 +39,9 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : " (skipped: no 
       expect(await code.getAttribute("open")).toBeNull();
       await code.locator("summary").click();
       expect(await code.getAttribute("open")).toBe("");
+      // The browser reads the embedded run record as the same data the runner's reader gives.
+      const embedded = await page.evaluate(() => JSON.parse(window.document.getElementById("tristim-run-record")!.textContent!) as unknown);
+      expect(embedded).toEqual(readEmbeddedRunRecord(fs.readFileSync(file, "utf8")));
       expect(requests).toEqual([]);
       expect(errors).toEqual([]);
     } finally {

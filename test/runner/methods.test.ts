@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import type { CellRun, RunRecord } from "../../runner/run-record.ts";
+import { escapeHtml } from "../../runner/report/escape.ts";
 import { renderMethods } from "../../runner/report/methods-section.ts";
 import { runText, ts } from "./helpers.ts";
 
@@ -46,13 +47,16 @@ describe("the Methods section", () => {
     expect(html).not.toMatch(/SRGB|U′v′|PH of/);
   });
 
-  it("shows the library's own sRGB statement with its case intact in a real run", async () => {
-    const { run } = await runText(ts('const rgb = rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"));'));
+  it("shows every statement of a real run verbatim, one starting with \"sRGB\" included", async () => {
+    const { run } = await runText(ts(
+      'const rgb = rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"));\n' +
+        'noteMethod("rgb encoding", "sRGB values were rounded to 8 bits for the swatch table.");',
+    ));
     expect(run.cells[0]!.status).toBe("ok");
-    const statement = run.methods.find((m) => m.topic === "rgb encoding")?.statement ?? "";
-    expect(statement.startsWith("sRGB")).toBe(true);
+    expect(run.methods.length).toBeGreaterThan(1);
     const html = renderMethods(run, "methods");
-    expect(html).toContain("sRGB RGB");
+    for (const m of run.methods) expect(html).toContain(escapeHtml(m.statement.trim()));
+    expect(html).toContain("sRGB values were rounded to 8 bits for the swatch table.");
     expect(html).not.toContain("SRGB");
   });
 

@@ -10,6 +10,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { EXIT } from "../../runner/exit-codes.ts";
+import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { runText, tempFolder, ts, writeFiles } from "./helpers.ts";
 
@@ -78,6 +79,15 @@ describe("tristim run --reproducible", () => {
     expect(html).toContain('class="plot-figure"');
     expect(html).toContain("RangeError: out of range");
     expect(html).not.toContain(new Date().toISOString().slice(0, 10));
+    // The embedded run record says the same as the command: exit code 3, and no wall-clock value.
+    const record = readEmbeddedRunRecord(html);
+    expect(record.exitCode).toBe(first.code);
+    expect(record.reproducible).toBe(true);
+    expect(record).not.toHaveProperty("startedAt");
+    expect(record.cells.map((c) => [c.status, c.durationMs])).toEqual([["ok", undefined], ["failed", undefined]]);
+    expect(record.inputs).toEqual([{ name: "limit", value: 2, setBy: "--input" }]);
+    // The error is placed at the notebook line that called into the helper (line 17: `boom()`).
+    expect(record.cells[1]!.error).toMatchObject({ name: "RangeError", message: "out of range", location: { file: "nb.md", line: 17 } });
 
     // Without the option the report carries the date and durations.
     const plain = tristim(["run", "nb.md", "--link-assets", "--input", "limit=2", "-o", "plain.html"], folder);

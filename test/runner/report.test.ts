@@ -62,8 +62,8 @@ describe("the report", () => {
     expect(html).not.toContain(evil);
     expect(html).not.toContain("<img src=x");
     expect(html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;");
-    // The only <script> elements are Plotly, the figure data and the figure drawing code.
-    expect(html.match(/<script\b/g)).toHaveLength(3);
+    // The only <script> elements are the run record, Plotly, the figure data and the figure drawing code.
+    expect(html.match(/<script\b/g)).toHaveLength(4);
   });
 
   it("renders trusted HTML and Markdown from code as HTML", () => {
