@@ -13,6 +13,8 @@ import { chromaticityFill, type FillOptions } from "./chromaticity-fill.ts";
 import { blackbodyChromaticity, chromaticityAtCctClipped, isotemperatureLine, temperaturesByMired } from "./planckian-locus.ts";
 import { illuminantChromaticity, STANDARD_WHITE_POINTS } from "./white-points.ts";
 import { thinLabels } from "./label-placement.ts";
+import { placeLineLabels, squarePlotFrame, textSize, toPx, type PxBox } from "./line-labels.ts";
+import { toXy } from "./chromaticity-input.ts";
 import { houseAxis, houseConfig, houseLayout, INK, FIGURE_HEIGHTS, FONT_FAMILY } from "./style.ts";
 import { plotFigure, roundForDisplay as r5, type PlotFigure, type PlotTrace } from "./figure.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
@@ -221,7 +223,14 @@ function resolvePlanckian(p: ChromaticityDiagramOptions["planckian"], zoomed: bo
   return { isotemperature: iso, isotemperatureExtent: extent, range, duvBand: o.duvBand };
 }
 
-function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<ReturnType<typeof resolvePlanckian>>, range: { x: readonly [number, number]; y: readonly [number, number] }, zoomed: boolean, notes: string[]): PlotTrace[] {
+/** What the isotemperature labels must keep clear of: marker and text boxes, and the other curves drawn. */
+interface LabelSurroundings {
+  readonly heightPx: number;
+  readonly reserved: readonly PxBox[];
+  readonly curves: readonly (readonly ([number, number] | null)[])[];
+}
+
+function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<ReturnType<typeof resolvePlanckian>>, range: { x: readonly [number, number]; y: readonly [number, number] }, surroundings: LabelSurroundings, notes: string[]): PlotTrace[] {
   const traces: PlotTrace[] = [];
   const temps = temperaturesByMired(opts.range[0], opts.range[1], 240);
   const pts = temps.map((t) => diagramPoint(blackbodyChromaticity(t, obs), space));
@@ -260,13 +269,13 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
       notes.push("no isotemperature lines, as CCT is defined with the CIE 1931 observer only (CIE 015:2018)");
     } else {
       const lx: (number | null)[] = [], ly: (number | null)[] = [];
-      const ends: { at: [number, number]; t: number }[] = [];
+      const segments: { start: [number, number]; end: [number, number]; t: number }[] = [];
       for (const t of opts.isotemperature) {
         const [a, b] = isotemperatureLine(t, opts.isotemperatureExtent);
         const pa = diagramPoint(a, space), pb = diagramPoint(b, space);
         lx.push(r5(pa[0]), r5(pb[0]), null);
         ly.push(r5(pa[1]), r5(pb[1]), null);
-        ends.push({ at: pa, t });
+        segments.push({ start: pa, end: pb, t });
       }
       traces.push({
         type: "scatter",
@@ -278,11 +287,12 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
         hoverinfo: "skip",
         showlegend: false,
       });
-      const spans: [number, number] = [range.x[1] - range.x[0], range.y[1] - range.y[0]];
-      const kept = thinLabels(
-        ends.filter((e) => inRange(e.at, range)).map((e) => ({ at: e.at, priority: [2000, 3000, 6500].includes(e.t) ? 0 : [4000, 10000].includes(e.t) ? 1 : 2, item: e })),
-        spans,
-        zoomed ? 0.05 : 0.09,
+      // Every line with a visible part gets its label inside the plot area, beside or beyond that part (line-labels.ts).
+      const frame = squarePlotFrame(range, surroundings.heightPx);
+      const kept = placeLineLabels(
+        segments.map((g) => ({ start: g.start, end: g.end, text: `${g.t} K`, priority: [2000, 3000, 6500].includes(g.t) ? 0 : [4000, 10000].includes(g.t) ? 1 : 2, item: g.t })),
+        frame,
+        { fontPx: ISOTEMPERATURE_LABEL_PX, reserved: surroundings.reserved, curves: [pts, ...surroundings.curves] },
       );
       if (kept.length > 0) traces.push({
         type: "scatter",
@@ -290,9 +300,9 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
         name: "CCT labels",
         x: kept.map((e) => r5(e.at[0])),
         y: kept.map((e) => r5(e.at[1])),
-        text: kept.map((e) => `${e.t} K`),
-        textposition: "bottom center",
-        textfont: { family: FONT_FAMILY, size: 9, color: INK.text },
+        text: kept.map((e) => e.text),
+        textposition: "middle center",
+        textfont: { family: FONT_FAMILY, size: ISOTEMPERATURE_LABEL_PX, color: INK.text },
         hoverinfo: "skip",
         showlegend: false,
         cliponaxis: false,
@@ -303,9 +313,33 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
   return traces;
 }
 
-function daylightTrace(space: DiagramSpace): PlotTrace {
+const ISOTEMPERATURE_LABEL_PX = 9;
+
+function daylightPoints(space: DiagramSpace): { temps: number[]; pts: [number, number][] } {
   const temps = temperaturesByMired(4000, 25000, 80);
-  const pts = temps.map((t) => diagramPoint(daylightChromaticity(t), space));
+  return { temps, pts: temps.map((t) => diagramPoint(daylightChromaticity(t), space)) };
+}
+
+/**
+ * Boxes (frame pixels) of the labelled points and white points with their text, as Plotly draws them: a marker of
+ * about 10 px, text at 11 px above right of a point (pointTraces) and at 10 px above left of a white point.
+ */
+function reservedBoxes(options: ChromaticityDiagramOptions, whiteNames: readonly string[], obs: Observer, space: DiagramSpace, frame: ReturnType<typeof squarePlotFrame>): PxBox[] {
+  const boxes: PxBox[] = [];
+  const add = (at: [number, number], label: string, fontPx: number, right: boolean) => {
+    const [cx, cy] = toPx(frame, at);
+    boxes.push({ x0: cx - 5, y0: cy - 5, x1: cx + 5, y1: cy + 5 });
+    if (!label) return;
+    const size = textSize(label, fontPx);
+    boxes.push(right ? { x0: cx + 3, y0: cy + 3, x1: cx + 3 + size.w, y1: cy + 3 + size.h } : { x0: cx - 3 - size.w, y0: cy + 3, x1: cx - 3, y1: cy + 3 + size.h });
+  };
+  for (const p of options.points ?? []) add(diagramPoint(toXy(p, `point "${p?.label}"`), space), String(p.label ?? ""), 11, true);
+  for (const n of whiteNames) add(diagramPoint(illuminantChromaticity(n, obs), space), n, 10, false);
+  return boxes;
+}
+
+function daylightTrace(space: DiagramSpace): PlotTrace {
+  const { temps, pts } = daylightPoints(space);
   return {
     type: "scatter",
     mode: "lines",
@@ -371,15 +405,22 @@ function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigur
   }
 
   data.push(...locusTraces(obs, space, range, options.wavelengthLabels ?? defaultWavelengthLabels()));
-  const planckian = resolvePlanckian(options.planckian, range !== WHOLE[space]);
-  if (planckian) data.push(...planckianTraces(obs, space, planckian, range, range !== WHOLE[space], notes));
   const wantDaylight = options.daylight ?? obs.fieldDegrees === 2;
+  if (wantDaylight && obs.fieldDegrees !== 2) throw new Error("chromaticity diagram: the CIE daylight locus is defined for the CIE 1931 2° observer (CIE 015:2018 §4.1.2); turn `daylight` off for the 10° observer");
+  const whiteNames = options.whitePoints === true ? STANDARD_WHITE_POINTS : options.whitePoints === false ? [] : options.whitePoints ?? ["D65"];
+  const planckian = resolvePlanckian(options.planckian, range !== WHOLE[space]);
+  if (planckian) {
+    const surroundings: LabelSurroundings = {
+      heightPx: height,
+      reserved: reservedBoxes(options, whiteNames, obs, space, squarePlotFrame(range, height)),
+      curves: wantDaylight ? [daylightPoints(space).pts] : [],
+    };
+    data.push(...planckianTraces(obs, space, planckian, range, surroundings, notes));
+  }
   if (wantDaylight) {
-    if (obs.fieldDegrees !== 2) throw new Error("chromaticity diagram: the CIE daylight locus is defined for the CIE 1931 2° observer (CIE 015:2018 §4.1.2); turn `daylight` off for the 10° observer");
     data.push(daylightTrace(space));
     notes.push("the CIE daylight locus (4000–25 000 K, CIE 015:2018 eq. 4.6)");
   }
-  const whiteNames = options.whitePoints === true ? STANDARD_WHITE_POINTS : options.whitePoints === false ? [] : options.whitePoints ?? ["D65"];
   if (whiteNames.length > 0) {
     data.push(whitePointTrace(whiteNames, obs, space, range));
     notes.push(`white points of ${whiteNames.join(", ")}`);
