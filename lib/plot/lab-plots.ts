@@ -5,7 +5,8 @@
  */
 import { lchFromLab, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
-import { encodeRgb, hexFromEncoded, linearRgb } from "./display-rgb.ts";
+import { encodeRgb, hexFromEncoded } from "./display-rgb.ts";
+import { mapToDisplayGamut } from "./gamut-mapping.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
 import { D65_WHITE_Y100 } from "./display-white.ts";
@@ -42,12 +43,12 @@ export interface LabPlotOptions {
 
 /**
  * An approximate sRGB #rrggbb for a CIELAB colour, for marker fills only: the L*a*b* values are read as if relative
- * to the D65 display white (so no chromatic adaptation is modelled) and channels are clipped to 0–1.
+ * to the D65 display white (so no chromatic adaptation is modelled) and a colour outside sRGB is gamut-mapped into
+ * it by CSS Color 4 §13.2 (chroma reduced at constant OKLab lightness and hue; gamut-mapping.ts).
  */
 export function labDisplayHex(lab: Lab): string {
   const xyz = xyzFromLab(lab, D65_WHITE_Y100);
-  const rgb = linearRgb({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [number, number, number];
-  return hexFromEncoded(encodeRgb(rgb, "sRGB"));
+  return hexFromEncoded(encodeRgb(mapToDisplayGamut({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").linear, "sRGB"));
 }
 
 function checkLab(lab: Lab, what: string): Lab {
@@ -170,7 +171,7 @@ function niceStep(span: number): number {
 
 function captionFor(o: LabPlotOptions, view: View): string {
   const parts = [view === "ab" ? "CIELAB a*, b* plane (CIE 015:2018); faint circles are lines of constant chroma C*ab" : "CIELAB lightness L* against chroma C*ab (CIE 015:2018)"];
-  if ((o.samples ?? []).length > 0) parts.push("marker fills show approximate colours (L*a*b* read against a D65 display white, clipped to sRGB)");
+  if ((o.samples ?? []).length > 0) parts.push("marker fills show approximate colours (L*a*b* read against a D65 display white, gamut-mapped into sRGB)");
   if ((o.pairs ?? []).length > 0) parts.push("lines join each reference (open circle) to its sample (diamond), with an arrowhead where there is room; hover shows ΔE00 (CIEDE2000, CIE 142-2001)");
   const auto = parts.join("; ") + ".";
   return o.caption ? `${o.caption.trim()} ${auto}` : auto;

@@ -1,8 +1,10 @@
 /**
- * Colour-accurate swatches for the report: each colour becomes an sRGB hex (clipped, drawn everywhere) and, when it
- * lies outside sRGB, a wide-gamut CSS colour `color(display-p3 r g b)` or `color(rec2020 r g b)` (CSS Color Module
- * Level 4, predefined colour spaces) so wide-gamut screens show it right. A patch outside the
- * chosen display gamut is marked. The records are plain data matching the runner's swatch record (cells/records.ts)
+ * Colour-accurate swatches for the report: each colour becomes an sRGB hex (drawn everywhere) and, when it lies
+ * outside sRGB, a wide-gamut CSS colour `color(display-p3 r g b)` or `color(rec2020 r g b)` (CSS Color Module
+ * Level 4, predefined colour spaces) so wide-gamut screens show it right. A colour a gamut cannot hold is mapped into
+ * it by CSS Color 4 §13.2 gamut mapping (chroma reduced at constant OKLab lightness and hue, gamut-mapping.ts), never
+ * clipped channel by channel, so a dim saturated light stays dim. A patch outside the chosen display gamut is marked
+ * and its note says the colour shown is approximate. The records are plain data matching the runner's swatch record (cells/records.ts)
  * with extra fields (inGamut, outOfDisplayGamut, display) that a report may use.
  */
 import { labFromXYZ, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
@@ -13,15 +15,16 @@ import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
 import { adaptToD65, D65_WHITE_Y100 } from "./display-white.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
+import { mapToDisplayGamut, type GamutMapping } from "./gamut-mapping.ts";
 
 /** One swatch: what `showSwatches` draws. */
 export interface Swatch {
   readonly label: string;
-  /** sRGB #rrggbb, channels clipped to 0–1. */
+  /** sRGB #rrggbb; a colour outside sRGB is gamut-mapped into it (CSS Color 4 §13.2), so the hex is approximate. */
   readonly hex: string;
   /**
    * The wide-gamut CSS colour, present only when the colour lies outside sRGB: color(display-p3 …) when Display P3
-   * holds it, else color(rec2020 …) (clipped to BT.2020 when even that cannot). The best CSS colour is `css ?? hex`.
+   * holds it, else color(rec2020 …) (gamut-mapped into BT.2020 when even that cannot). The best CSS colour is `css ?? hex`.
    */
   readonly css?: string;
   /** True when the colour lies outside sRGB (the runner's meaning: the hex is an approximation). */
@@ -105,6 +108,12 @@ function cssNumber(v: number): string {
 }
 
 const GAMUT_WORDS: Record<DisplayGamut, string> = { sRGB: "sRGB", "Display P3": "Display P3", "BT.2020": "BT.2020" };
+const MAPPING_WORDS: Record<GamutMapping, string> = {
+  inside: "shown as is",
+  "chroma reduced": "shown with reduced chroma",
+  white: "brighter than the display's white, shown as white",
+  black: "shown as black",
+};
 
 /** One swatch for a colour, for the chosen display gamut. */
 export function swatch(label: string, colour: SwatchColour, options: SwatchOptions & { note?: string } = {}): Swatch {
@@ -119,16 +128,17 @@ export function swatch(label: string, colour: SwatchColour, options: SwatchOptio
   const rel = { X: d65.X / white.Y, Y: d65.Y / white.Y, Z: d65.Z / white.Y };
   const lin = { sRGB: linearRgb(rel, "sRGB"), "Display P3": linearRgb(rel, "Display P3"), "BT.2020": linearRgb(rel, "BT.2020") };
   const inGamut = { sRGB: insideCube(lin.sRGB), displayP3: insideCube(lin["Display P3"]), bt2020: insideCube(lin["BT.2020"]) };
-  const clip = (v: readonly number[]) => v.map((c) => Math.min(1, Math.max(0, c))) as [number, number, number];
-  const hex = hexFromEncoded(encodeRgb(clip(lin.sRGB), "sRGB"));
+  // Drawing only, like the adaptation above: gamut mapping for display notes nothing.
+  const shown = (gamut: DisplayGamut) => withoutMethodNotes(() => mapToDisplayGamut(rel, gamut));
+  const hex = hexFromEncoded(encodeRgb(shown("sRGB").linear, "sRGB"));
   let css: string | undefined;
   if (inGamut.sRGB) css = undefined;
-  else if (inGamut.displayP3) css = `color(display-p3 ${encodeRgb(clip(lin["Display P3"]), "Display P3").map(cssNumber).join(" ")})`;
-  else css = `color(rec2020 ${encodeRgb(clip(lin["BT.2020"]), "BT.2020").map(cssNumber).join(" ")})`;
+  else if (inGamut.displayP3) css = `color(display-p3 ${encodeRgb(shown("Display P3").linear, "Display P3").map(cssNumber).join(" ")})`;
+  else css = `color(rec2020 ${encodeRgb(shown("BT.2020").linear, "BT.2020").map(cssNumber).join(" ")})`;
   const outOfDisplay = !(display === "sRGB" ? inGamut.sRGB : display === "Display P3" ? inGamut.displayP3 : inGamut.bt2020);
   const remarks: string[] = [];
   if (options.note) remarks.push(options.note);
-  if (outOfDisplay) remarks.push(`outside ${GAMUT_WORDS[display]}: shown clipped`);
+  if (outOfDisplay) remarks.push(`outside ${GAMUT_WORDS[display]}: ${MAPPING_WORDS[shown(display).how]} (approximate)`);
   else if (!inGamut.sRGB) remarks.push(`outside sRGB, inside ${inGamut.displayP3 ? "Display P3" : "BT.2020"}`);
   if (!inGamut.bt2020 && display !== "BT.2020") remarks.push("outside BT.2020");
   return {

@@ -1,7 +1,7 @@
 /** CIELAB views: coordinates, C*ab and hab against the CIE 015 formulas, ΔE00 against Sharma et al., marker colours against colorjs.io. */
 import Color from "colorjs.io";
 import { describe, expect, it } from "vitest";
-import { labPlane, lightnessChromaPlot } from "../../../lib/plot/index.ts";
+import { labDisplayHex, labPlane, lightnessChromaPlot } from "../../../lib/plot/index.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "../reference-data.ts";
 
 type Trace = { name: string; x: (number | null)[]; y: (number | null)[]; customdata: string[][]; marker: { color: string[] } };
@@ -30,12 +30,16 @@ describe("a*b* plane", () => {
     expect(Number(c[4])).toBeCloseTo((Math.atan2(-30, -12) * 180) / Math.PI + 360, 1);
   });
 
-  it("fills each marker with the sRGB colour colorjs.io gives for that CIELAB (D65) colour, clipped", () => {
+  it("fills each marker with the sRGB colour colorjs.io gives for that CIELAB (D65) colour, gamut-mapped by CSS Color 4", () => {
     const t = byName(fig, "Samples");
-    const rgb = new Color("lab-d65", [52, 41.5, 27]).to("srgb").coords as number[];
-    const hex = "#" + rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, "0")).join("");
-    const d = [1, 3, 5].map((i) => Math.abs(parseInt(t.marker.color[0]!.slice(i, i + 2), 16) - parseInt(hex.slice(i, i + 2), 16)));
-    expect(Math.max(...d)).toBeLessThanOrEqual(1);
+    const hexFor = (L: number, a: number, b: number) => {
+      const rgb = new Color("lab-d65", [L, a, b]).toGamut({ space: "srgb", method: "css" }).to("srgb").coords as number[];
+      return "#" + rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, "0")).join("");
+    };
+    const distance = (x: string, y: string) => Math.max(...[1, 3, 5].map((i) => Math.abs(parseInt(x.slice(i, i + 2), 16) - parseInt(y.slice(i, i + 2), 16))));
+    expect(distance(t.marker.color[0]!, hexFor(52, 41.5, 27))).toBeLessThanOrEqual(1);
+    // A colour far outside sRGB (invented): mapped as colorjs.io maps it.
+    expect(distance(labDisplayHex({ L: 40, a: 10, b: -110 }), hexFor(40, 10, -110))).toBeLessThanOrEqual(1);
   });
 
   it("needs samples or pairs, and names a bad reading", () => {
