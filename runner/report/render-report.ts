@@ -17,7 +17,7 @@ import type { CellRun, RunRecord } from "../run-record.ts";
 import { cautionIndex, cautionResults } from "../caution-results.ts";
 import { countChecks } from "../check-results.ts";
 import { embeddedRunRecord, runRecordScript } from "./embedded-run-record.ts";
-import { escapeHtml } from "./escape.ts";
+import { cssString, escapeHtml } from "./escape.ts";
 import { formatDuration } from "./format.ts";
 import { highlight } from "./highlight.ts";
 import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
@@ -104,6 +104,7 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
 <meta name="generator" content="${escapeHtml(`${run.tool.name} ${run.tool.version}`)}">
 <title>${escapeHtml(run.batch ? `${title} — ${path.basename(String(run.inputs[run.batch.input]))}` : title)}</title>
 <style>${CSS}</style>
+${pageMarginStyle(run.batch ? `${title} — ${path.basename(String(run.inputs[run.batch.input]))}` : title)}
 </head>
 <body>
 <main class="report">
@@ -124,6 +125,13 @@ ${options.extraBodyHtml ?? ""}
 </body>
 </html>
 `;
+}
+
+/** Printed pages carry the report's title at the foot on the left and "page n of N" on the right (CSS @page margin boxes). */
+function pageMarginStyle(title: string): string {
+  const box = "font-family: system-ui, sans-serif; font-size: 7.5pt; color: #5a6470;";
+  return `<style media="print">@page { @bottom-left { content: ${cssString(title)}; ${box} } ` +
+    `@bottom-right { content: "page " counter(page) " of " counter(pages); ${box} } }</style>`;
 }
 
 /** The report's title: the front matter's, else the first h1 (taken out of the tokens), else the file name. */

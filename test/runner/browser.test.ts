@@ -49,6 +49,43 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : " (skipped: no 
     }
   }, 60_000);
 
+  it("prints as a lab report: no Plotly tool bar, figures kept whole and no wider than an A4 column", async () => {
+    const { document: doc, run } = await runText(
+      "# Print\n\n" +
+        ts("showFigure({ data: [{ type: 'scatter', x: [400, 500, 600], y: [0.2, 0.9, 0.4] }], layout: { height: 420 }, config: { displayModeBar: true } }, 'Invented curve');\n" +
+          "showTable([{ blank: 'HG-114-01', 'τv': 26.54 }]);"),
+    );
+    const file = path.join(path.dirname(doc.path), "print.html");
+    fs.writeFileSync(file, renderReport(doc, run));
+    const browser = await chromium.launch({ executablePath: CHROMIUM, args: ["--no-sandbox", "--disable-gpu"] });
+    try {
+      // A wide window: the figure is drawn for the screen before the page is printed.
+      const page = await browser.newPage({ viewport: { width: 1600, height: 1000 } });
+      await page.goto(pathToFileURL(file).href);
+      await page.waitForSelector("#figure-1 .plot .main-svg", { timeout: 20_000 });
+      const onScreen = await page.$eval(".modebar-container", (m) => getComputedStyle(m).display);
+      expect(onScreen).not.toBe("none");
+      await page.emulateMedia({ media: "print" });
+      const printed = await page.evaluate(() => {
+        const figure = window.document.querySelector("#figure-1")!;
+        return {
+          modebar: getComputedStyle(window.document.querySelector(".modebar-container")!).display,
+          breakInside: [...Array.from(window.document.querySelectorAll("figure")), window.document.querySelector("table")!].map((e) => getComputedStyle(e).breakInside),
+          svgWidth: figure.querySelector(".main-svg")!.getBoundingClientRect().width,
+        };
+      });
+      expect(printed.modebar).toBe("none");
+      expect(printed.breakInside.every((b) => b === "avoid")).toBe(true);
+      // A4 is 210 mm wide; less the report's 16 mm side margins that leaves 178 mm = 672.8 CSS px at 96 px per inch.
+      expect(printed.svgWidth).toBeLessThanOrEqual((178 / 25.4) * 96);
+      // Printing works offline and gives pages (Chromium's own PDF output).
+      const pdf = await page.pdf({ format: "A4" });
+      expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    } finally {
+      await browser.close();
+    }
+  }, 60_000);
+
   it("keeps each swatch pair side by side on one row, marks patches outside the display gamut, and keeps IDs on one line", async () => {
     // Invented CIELAB pairs, drawn by lib/plot's swatchPairs (its current output: two swatches per pair).
     const { document: doc, run } = await runText(

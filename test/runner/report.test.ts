@@ -206,6 +206,20 @@ describe("the report", () => {
     ]);
   });
 
+  it("prints the title and page numbers at the foot of each page, the title escaped as a CSS string", () => {
+    const title = 'Lot "7" </style><script>alert(1)</script> \\ ΔE00';
+    const doc = parseNotebook(`---\ntitle: ${JSON.stringify(title)}\n---\n` + ts("1"), "/lab/nb.md");
+    const html = renderReport(doc, record([ok(0, [])]));
+    const style = /<style media="print">([^<]*)<\/style>/.exec(html)?.[1] ?? "";
+    expect(style).toContain('@bottom-right { content: "page " counter(page) " of " counter(pages);');
+    const content = /@bottom-left \{ content: ("[^"]*");/.exec(style)?.[1] ?? "";
+    // Decode the CSS escapes (CSS Syntax Level 3 §4.3.7: backslash, hex digits, one optional space).
+    const decoded = content.slice(1, -1).replace(/\\([0-9a-f]{1,6}) ?/g, (_, h: string) => String.fromCodePoint(parseInt(h, 16)));
+    expect(decoded).toBe(title);
+    expect(html.match(/<\/style>/g)).toHaveLength(2);
+    expect(html).not.toContain("<script>alert(1)");
+  });
+
   it("reads as a lab report: title block, contents, folded code, no execution counters", () => {
     const text = "---\ntitle: Filter lot 7\nauthor: Q. Lab\ndate: 2024-06-01\n---\n## Setup\n\n" + ts("1") + "## Results\n\n### Detail\n\n" + ts("2", "show-source") + ts("3", "hide-source") + ts("4", "no-run");
     const doc = parseNotebook(text, "/lab/nb.md");
