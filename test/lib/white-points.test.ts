@@ -13,6 +13,7 @@ import { describe, expect, it } from "vitest";
 import { chromaticityXy } from "../../lib/colorimetry/chromaticity.ts";
 import { CIE_015_TABLE_RANGE, tristimulus, whitePoint } from "../../lib/colorimetry/tristimulus.ts";
 import { spectrumOnGrid } from "../../lib/spectrum/spectrum.ts";
+import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data.ts";
 
 type Row = { source: string; observer: 2 | 10; illuminant: string; X: number; Z: number; x: number; y: number };
@@ -82,6 +83,24 @@ describe.skipIf(!HAVE_REFERENCE)("white points against the published values " + 
     const w = whitePoint({ illuminant: "D50", observer: observer(r.observer) });
     expect(Math.abs(w.X - r.X)).toBeLessThanOrEqual(0.0005);
     expect(Math.abs(w.Z - r.Z)).toBeLessThanOrEqual(0.0005);
+  });
+
+  it("D50 2°: the default gives ASTM E308's white and y = 0.35850, T.3's range its y = 0.35851, and Methods says which", () => {
+    // CIE 015:2004 Table T.3 (x, y) and ASTM E308 (X, Z), from cie_illuminant_white_points.csv.
+    const t3d50 = t3.find((q) => q.illuminant === "D50" && q.observer === 2)!;
+    const astmD50 = astm.find((q) => q.illuminant === "D50" && q.observer === 2)!;
+    resetMethodLog();
+    const byDefault = whitePoint({ illuminant: "D50" });
+    const defaultStatement = methodsUsed().find((n) => n.topic === "integration")!.statement;
+    resetMethodLog();
+    const byT3 = whitePoint({ illuminant: "D50", interval: 5, range: CIE_015_TABLE_RANGE });
+    const t3Statement = methodsUsed().find((n) => n.topic === "integration")!.statement;
+    expect(Math.abs(byDefault.X - astmD50.X)).toBeLessThanOrEqual(0.0005);
+    expect(chromaticityXy(byDefault).y.toFixed(5)).toBe("0.35850");
+    expect(chromaticityXy(byT3).y.toFixed(5)).toBe(t3d50.y.toFixed(5));
+    expect(t3d50.y.toFixed(5)).toBe("0.35851");
+    expect(defaultStatement).toMatch(/over 360–830 nm \(the full tabulated range of the CIE colour-matching functions, CIE 015:2018 §7\.2; the convention of the ASTM E308 white points\)/);
+    expect(t3Statement).toMatch(/over 380–780 nm \(the range of the CIE 015:2004 Table T\.3 white points\)/);
   });
 
   it("the README's numpy verification table: 1 nm and 5 nm sums to 7 decimals of x, y", () => {
