@@ -90,11 +90,14 @@ function details(s: SwatchRecord): string {
 
 function gamutWords(s: SwatchRecord): string {
   const note = s.note ?? "";
+  const display = displayOf(s);
+  // Beyond BT.2020 too (a spectral colour, a laser): no standard display gamut holds it.
+  const beyond = s.inGamut?.bt2020 === false && display !== "BT.2020" && !note.includes("outside BT.2020") ? "; outside BT.2020 too" : "";
   if (outsideDisplay(s)) {
-    const words = `outside ${displayOf(s)}`;
-    // lib/plot's current swatches already say it in their note ("outside sRGB: shown clipped"): not twice.
-    if (note.includes(words)) return "";
-    return `<span class="gamut-flag"><span aria-hidden="true">${GAMUT_MARK}</span> ${escapeHtml(words)}</span>`;
+    const words = `outside ${display}`;
+    // lib/plot's current swatches already say it in their note ("outside sRGB: shown …"): not twice.
+    if (note.includes(words)) return beyond ? `<span class="gamut-note">${escapeHtml(beyond.slice(2))}</span>` : "";
+    return `<span class="gamut-flag"><span aria-hidden="true">${GAMUT_MARK}</span> ${escapeHtml(words + beyond)}</span>`;
   }
   if (s.outOfGamut && !note.includes("outside sRGB")) {
     // Inside the chosen wide display gamut: exact on such a screen; only the sRGB fallback is an approximation.

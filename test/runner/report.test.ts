@@ -178,6 +178,7 @@ describe("the report", () => {
         { label: "inside", hex: "#8a4b2f", display: "Display P3", outOfDisplayGamut: false },
         { label: "wide", hex: "#00ff00", css: "color(display-p3 0 1 0)", outOfGamut: true, display: "Display P3", outOfDisplayGamut: false },
         { label: "laser", hex: "#00ff00", css: "color(rec2020 0 1 0)", outOfGamut: true, display: "Display P3", outOfDisplayGamut: true },
+        { label: "spectral", hex: "#00ff00", outOfGamut: true, display: "Display P3", outOfDisplayGamut: true, inGamut: { sRGB: false, displayP3: false, bt2020: false } },
         { label: "lib note", hex: "#00ff00", outOfGamut: true, display: "Display P3", outOfDisplayGamut: true, note: "outside Display P3: shown clipped" },
       ] },
       { kind: "swatches", swatches: [{ label: "plain", hex: "#808080" }] },
@@ -194,6 +195,7 @@ describe("the report", () => {
     expect(of("wide")).toContain('<span class="gamut-note">outside sRGB</span>');
     expect(of("laser")).toContain('<span class="gamut-mark" title="Outside the Display P3 gamut">◇</span></span>');
     expect(of("laser")).toContain('<span class="gamut-flag"><span aria-hidden="true">◇</span> outside Display P3</span>');
+    expect(of("spectral")).toContain("◇</span> outside Display P3; outside BT.2020 too</span>");
     // The words are not repeated when the note already says them (lib/plot's current notes do).
     expect(of("lib note")).toContain("gamut-mark");
     expect(of("lib note")).not.toContain("gamut-flag");
