@@ -96,9 +96,11 @@ export function hoistCell(js: string): HoistedCell {
         break;
       case "ExpressionStatement":
         if (i === body.length - 1 && !isCheckCall(node.expression as AnyNode)) {
-          const expression = node.expression as AnyNode;
-          edits.push({ start: expression.start, end: expression.start, text: "return (" });
-          edits.push({ start: expression.end, end: expression.end, text: ")" });
+          // Wrap the whole statement, not the expression node: acorn leaves enclosing parentheses outside the
+          // node, so `({ a: 1 })` must become `return (({ a: 1 }))`, not `(return ({ a: 1 }))`.
+          const end = js[node.end - 1] === ";" ? node.end - 1 : node.end;
+          edits.push({ start: node.start, end: node.start, text: "return (" });
+          edits.push({ start: end, end, text: ")" });
         }
         break;
     }

@@ -37,6 +37,14 @@ describe("bindings shared between cells", () => {
     expect(outputsOf(run, 2, "value")[0]?.text).toBe("plain text");
     expect(outputsOf(run, 3, "value")[0]?.text).toBe("[ 2, 4 ]");
   });
+
+  it("shows a parenthesised last expression, with or without a semicolon, and a sequence of parentheses", async () => {
+    const { run } = await runText(ts("const a = 1;\n({ a, b: [2] })") + ts("(a + 1);") + ts("((a) * 3)\n// a comment after"));
+    expect(run.cells.map((c) => c.status)).toEqual(["ok", "ok", "ok"]);
+    expect(outputsOf(run, 0, "value")[0]?.text).toBe("{ a: 1, b: [ 2 ] }");
+    expect(outputsOf(run, 1, "value")[0]?.text).toBe("2");
+    expect(outputsOf(run, 2, "value")[0]?.text).toBe("3");
+  });
 });
 
 describe("console output", () => {
