@@ -31,6 +31,7 @@ export type CellOutcome =
 export class CellProcess {
   private readonly child: ChildProcess;
   private exited = false;
+  private killed = false;
   private exitDetail = "";
   private stderrTail = "";
   private listeners = new Set<(message: FromCellProcess) => void>();
@@ -116,11 +117,14 @@ export class CellProcess {
 
   /** Stops the process at once. */
   kill(): void {
-    if (!this.exited) this.child.kill("SIGKILL");
+    if (this.exited) return;
+    this.killed = true;
+    this.child.kill("SIGKILL");
   }
 
+  /** False once the process has exited or been told to stop (its exit event may come a moment later). */
   get alive(): boolean {
-    return !this.exited;
+    return !this.exited && !this.killed;
   }
 
   private describeExit(): string {

@@ -229,6 +229,14 @@ describe("failures", () => {
     expect(run.events[0]).toContain("started again before cell 2");
   });
 
+  it("after a cell is stopped at its time limit, keeping going runs the next cells in a fresh cell process", async () => {
+    const { run } = await runText(ts("while (true) {}", "time-limit=300ms") + ts("console.log('after')") + ts("console.log('third')"), { keepGoing: true });
+    expect(run.cells.map((c) => c.status)).toEqual(["failed", "ok", "ok"]);
+    expect(errorOf(run, 0).failure).toBe("time-limit");
+    expect(consoleText(run, 1)).toBe("after\n");
+    expect(run.events[0]).toContain("started again before cell 2");
+  });
+
   it("runs the remaining cells after a failure when asked to keep going", async () => {
     const { run } = await runText(ts("throw new Error('first')") + ts("console.log('second')"), { keepGoing: true });
     expect(run.cells.map((c) => c.status)).toEqual(["failed", "ok"]);
