@@ -4,6 +4,7 @@
  * cell's last line is not shown twice. Available in every cell as globals and as `import { ... } from "tristim"`.
  */
 import { inspect } from "node:util";
+import { describeValue as describe } from "./describe-value.ts";
 import { CAUTION_KEY, emitCautionsOf } from "./cautions.ts";
 import { checkDigits, formatNumber } from "./format-number.ts";
 import { emitRecord as emit } from "./emit.ts";
@@ -213,13 +214,5 @@ function formatCell(value: unknown, digits: number | undefined): string {
   if (typeof value === "boolean" || typeof value === "bigint") return String(value);
   if (value instanceof Date) return value.toISOString();
   return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
-}
-
-function describe(value: unknown): string {
-  if (value === null) return "null";
-  if (Array.isArray(value)) return `an array of ${value.length}`;
-  if (typeof value === "string") return JSON.stringify(value.length > 60 ? `${value.slice(0, 60)}…` : value);
-  if (typeof value === "object") return inspect(value, { depth: 0, breakLength: Infinity }).slice(0, 80);
-  return `${typeof value} ${String(value)}`;
 }
 

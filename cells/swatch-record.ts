@@ -9,7 +9,7 @@
  *   the sample's note starting with "ΔE00 = 1.23". This is turned into the first shape: the difference moves from
  *   the note into `pair.deltaE00`, so the report draws it once, under the pair.
  */
-import { inspect } from "node:util";
+import { describeValue as describe } from "./describe-value.ts";
 import type { SwatchGamuts, SwatchPairPlace, SwatchRecord } from "./records.ts";
 
 const HEX = /^#[0-9a-fA-F]{6}$/;
@@ -120,12 +120,4 @@ function checkPairsAdjacent(records: readonly SwatchRecord[]): void {
       ? `${named} is the reference of pair "${pair.label}", but swatch ${i + 2} is not its sample; put each pair's sample right after its reference`
       : `${named} is the sample of pair "${pair.label}", but ${i === 0 ? "no swatch comes before it" : `swatch ${i} is not its reference`}; put each pair's reference right before its sample`);
   }
-}
-
-function describe(value: unknown): string {
-  if (value === null) return "null";
-  if (Array.isArray(value)) return `an array of ${value.length}`;
-  if (typeof value === "string") return JSON.stringify(value.length > 60 ? `${value.slice(0, 60)}…` : value);
-  if (typeof value === "object") return inspect(value, { depth: 0, breakLength: Infinity }).slice(0, 80);
-  return `${typeof value} ${String(value)}`;
 }

@@ -4,9 +4,8 @@
  * with one set per line (BEGIN_DATA … END_DATA); "#" starts a comment; a file may hold several such tables.
  * Declared counts (NUMBER_OF_FIELDS, NUMBER_OF_SETS) are checked; every fault is reported with its line number.
  */
-import { readFileSync } from "node:fs";
 import { noteMethod } from "../methods/method-log.ts";
-import { DataFileError, withFileName } from "./data-file-error.ts";
+import { DataFileError, parseDataFile } from "./data-file-error.ts";
 import { readNumber } from "./number-text.ts";
 
 export type CgatsValue = string | number;
@@ -211,15 +210,5 @@ function checkFieldCount(fields: string[], keywords: Record<string, string>, lin
 
 /** Reads a CGATS.17 file (path relative to the notebook's folder); errors name the file and line. */
 export function readCgats(path: string): CgatsFile {
-  let text: string;
-  try {
-    text = readFileSync(path, "utf8");
-  } catch (e) {
-    throw new DataFileError(`cannot read the file: ${(e as Error).message}`, undefined, path);
-  }
-  try {
-    return parseCgats(text);
-  } catch (e) {
-    throw withFileName(e, path);
-  }
+  return parseDataFile(path, (text) => parseCgats(text));
 }

@@ -1,4 +1,5 @@
 /** Errors from reading measurement files: they name the file (when known) and the line, so the user can find the fault. */
+import { readFileSync } from "node:fs";
 
 export class DataFileError extends Error {
   /** 1-based line number in the file, when the fault is on one line. */
@@ -22,4 +23,19 @@ export function withFileName(error: unknown, file: string): Error {
     return new DataFileError(bare, error.line, file);
   }
   return error instanceof Error ? error : new Error(String(error));
+}
+
+/** Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line). */
+export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
+  let text: string;
+  try {
+    text = readFileSync(path, "utf8");
+  } catch (e) {
+    throw new DataFileError(`cannot read the file: ${(e as Error).message}`, undefined, path);
+  }
+  try {
+    return parse(text);
+  } catch (e) {
+    throw withFileName(e, path);
+  }
 }

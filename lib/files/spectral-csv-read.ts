@@ -4,12 +4,11 @@
  * csv-parse package (RFC 4180 quoting); delimiter, decimal mark and percent/fraction are either stated or inferred,
  * and every inference is reported in the result and in the Methods log.
  */
-import { readFileSync } from "node:fs";
 import { parse } from "csv-parse/sync";
 import { noteMethod } from "../methods/method-log.ts";
 import { gridOf } from "../spectrum/grid.ts";
 import { spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
-import { DataFileError, withFileName } from "./data-file-error.ts";
+import { DataFileError, parseDataFile } from "./data-file-error.ts";
 import { hasDecimalComma, hasDecimalPoint, readNumber } from "./number-text.ts";
 import { decideValueScale, type ValueScale } from "./value-scale.ts";
 
@@ -203,15 +202,5 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
 
 /** Reads a spectral CSV/TSV file (path relative to the notebook's folder) into spectra; errors name the file and line. */
 export function readSpectraCsv(path: string, options: SpectraCsvReadOptions): SpectraCsvResult {
-  let text: string;
-  try {
-    text = readFileSync(path, "utf8");
-  } catch (e) {
-    throw new DataFileError(`cannot read the file: ${(e as Error).message}`, undefined, path);
-  }
-  try {
-    return parseSpectraCsv(text, options);
-  } catch (e) {
-    throw withFileName(e, path);
-  }
+  return parseDataFile(path, (text) => parseSpectraCsv(text, options));
 }

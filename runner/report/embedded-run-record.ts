@@ -8,7 +8,7 @@
  * Versioned: a tool checks `format` and `version`; fields are only ever added within one version.
  */
 import path from "node:path";
-import type { CautionRecord, CheckLimits, ErrorRecord, FailureKind } from "../../cells/records.ts";
+import type { CautionRecord, CheckRecord, ErrorRecord, FailureKind } from "../../cells/records.ts";
 import type { InputValue } from "../../cells/inputs.ts";
 import { cautionResults } from "../caution-results.ts";
 import { checkResults, countChecks } from "../check-results.ts";
@@ -46,21 +46,11 @@ export interface EmbeddedCell {
   readonly durationMs?: number;
 }
 
-/** One acceptance check, as the cell stated it. */
-export interface EmbeddedCheck {
+/** One acceptance check, as the cell stated it: the check record plus where its row is in the report. */
+export interface EmbeddedCheck extends Omit<CheckRecord, "kind"> {
   /** The element id of its row in the report (`check-<cell>-<n>`). */
   readonly id: string;
   readonly cell: number;
-  readonly label: string;
-  readonly passed: boolean;
-  /** The full value checked; null when it was not a finite number; absent for a plain condition (checkThat). */
-  readonly value?: number | null;
-  /** The value as the report shows it. */
-  readonly valueText?: string;
-  readonly unit?: string;
-  readonly limits?: CheckLimits;
-  readonly digits?: number;
-  readonly detail?: string;
 }
 
 /** One distinct caution (each text once), where it first appears. */
