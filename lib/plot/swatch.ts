@@ -3,9 +3,10 @@
  * outside sRGB, a wide-gamut CSS colour `color(display-p3 r g b)` or `color(rec2020 r g b)` (CSS Color Module
  * Level 4, predefined colour spaces) so wide-gamut screens show it right. A colour a gamut cannot hold is mapped into
  * it by CSS Color 4 §13.2 gamut mapping (chroma reduced at constant OKLab lightness and hue, gamut-mapping.ts), never
- * clipped channel by channel, so a dim saturated light stays dim. A patch outside the chosen display gamut is marked
- * and its note says the colour shown is approximate. The records are plain data matching the runner's swatch record (cells/records.ts)
- * with extra fields (inGamut, outOfDisplayGamut, display) that a report may use.
+ * clipped channel by channel, so a dim saturated light stays dim. The records are plain data matching the runner's
+ * swatch record (cells/records.ts `SwatchRecord`): the report draws the display-gamut mark, its words and the legend
+ * that calls such a patch an approximation from `display`, `outOfDisplayGamut` and `inGamut`, and a reference/sample
+ * pair as one unit with its ΔE00 from `pair`, so none of that is written into `note`.
  */
 import { labFromXYZ, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
@@ -34,6 +35,8 @@ export interface Swatch {
   readonly display: DisplayGamut;
   /** True when the colour lies outside that display's gamut: no screen of that kind can show it exactly. */
   readonly outOfDisplayGamut: boolean;
+  /** The swatch's place in a reference/sample pair (the runner's `SwatchPairPlace`); ΔE00 is on the sample. */
+  readonly pair?: { readonly label: string; readonly role: "reference" | "sample"; readonly deltaE00?: number };
   readonly note?: string;
 }
 
@@ -107,10 +110,13 @@ function cssNumber(v: number): string {
   return String(Math.round(Math.min(1, Math.max(0, v)) * 10000) / 10000);
 }
 
-const GAMUT_WORDS: Record<DisplayGamut, string> = { sRGB: "sRGB", "Display P3": "Display P3", "BT.2020": "BT.2020" };
-const MAPPING_WORDS: Record<GamutMapping, string> = {
-  inside: "shown as is",
-  "chroma reduced": "shown with reduced chroma",
+/**
+ * What the patch shows when the mapping did more than approximate the colour: these are true on every screen (the
+ * wide-gamut CSS colour is mapped to the same white or black). Reduced chroma is not claimed: where the patch has a
+ * wide-gamut `css`, the browser draws that and fits it to the screen its own way (Chromium clips each channel), and the
+ * report's legend already calls a marked patch an approximation.
+ */
+const MAPPING_REMARKS: Partial<Record<GamutMapping, string>> = {
   white: "brighter than the display's white, shown as white",
   black: "shown as black",
 };
@@ -136,11 +142,11 @@ export function swatch(label: string, colour: SwatchColour, options: SwatchOptio
   else if (inGamut.displayP3) css = `color(display-p3 ${encodeRgb(shown("Display P3").linear, "Display P3").map(cssNumber).join(" ")})`;
   else css = `color(rec2020 ${encodeRgb(shown("BT.2020").linear, "BT.2020").map(cssNumber).join(" ")})`;
   const outOfDisplay = !(display === "sRGB" ? inGamut.sRGB : display === "Display P3" ? inGamut.displayP3 : inGamut.bt2020);
+  // The gamut mark and its words ("outside sRGB", "outside BT.2020 too") are drawn by the report from the fields below.
   const remarks: string[] = [];
   if (options.note) remarks.push(options.note);
-  if (outOfDisplay) remarks.push(`outside ${GAMUT_WORDS[display]}: ${MAPPING_WORDS[shown(display).how]} (approximate)`);
-  else if (!inGamut.sRGB) remarks.push(`outside sRGB, inside ${inGamut.displayP3 ? "Display P3" : "BT.2020"}`);
-  if (!inGamut.bt2020 && display !== "BT.2020") remarks.push("outside BT.2020");
+  const mappingRemark = outOfDisplay ? MAPPING_REMARKS[shown(display).how] : undefined;
+  if (mappingRemark) remarks.push(mappingRemark);
   return {
     label,
     hex,
@@ -183,14 +189,15 @@ function labOf(c: SwatchColour, options: SwatchOptions, what: string): { lab: La
 }
 
 /**
- * Reference/sample pairs: two swatches per pair, side by side, the sample's note giving ΔE00 (CIEDE2000,
- * CIE 142-2001, via lib/difference) computed from CIELAB with the pair's common reference white.
+ * Reference/sample pairs: two swatches per pair ("<label> reference", "<label> sample"), each with `pair` { label,
+ * role }, the sample's carrying ΔE00 (CIEDE2000, CIE 142-2001, via lib/difference; unrounded) computed from CIELAB
+ * with the pair's common reference white. The report draws each pair as one unit, the ΔE00 under both patches.
  */
 export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOptions = {}): Swatch[] {
   if (!Array.isArray(pairs)) throw new Error("swatchPairs: expected an array of { label, reference, sample }");
   const out: Swatch[] = [];
   pairs.forEach((p, i) => {
-    if (!p || typeof p.label !== "string") throw new Error(`swatchPairs: pair ${i + 1} needs a label, a reference and a sample`);
+    if (!p || typeof p.label !== "string" || p.label.trim() === "") throw new Error(`swatchPairs: pair ${i + 1} needs a label (got ${JSON.stringify(p?.label)}), a reference and a sample`);
     // Two spectra on different grids (1 nm and 5 nm) are summed on one interval, so they share one white.
     const spectra = [p.reference, p.sample].filter(isSpectrum);
     const pairOptions = spectra.length === 2 && options.interval === undefined ? { ...options, interval: commonSummationInterval(spectra, [options.illuminant ?? "D65"]) } : options;
@@ -199,8 +206,8 @@ export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOp
     const sameWhite = Math.abs(r.white.X - s.white.X) < 1e-6 * r.white.Y && Math.abs(r.white.Y - s.white.Y) < 1e-9 * r.white.Y + 1e-9 && Math.abs(r.white.Z - s.white.Z) < 1e-6 * r.white.Y;
     if (!sameWhite) throw new Error(`swatchPairs: pair "${p.label}" has different reference whites for reference and sample; ΔE00 needs one white`);
     const de = deltaE2000(r.lab, s.lab);
-    out.push(swatch(`${p.label} reference`, p.reference, pairOptions));
-    out.push(swatch(`${p.label} sample`, p.sample, { ...pairOptions, note: `ΔE00 = ${de.toFixed(2)}` }));
+    out.push({ ...swatch(`${p.label} reference`, p.reference, pairOptions), pair: { label: p.label, role: "reference" } });
+    out.push({ ...swatch(`${p.label} sample`, p.sample, pairOptions), pair: { label: p.label, role: "sample", deltaE00: de } });
   });
   return out;
 }
