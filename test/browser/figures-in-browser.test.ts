@@ -2,7 +2,8 @@
  * The figures and swatches of lib/plot, checked in a real browser: the runner CLI renders a fixture notebook to a
  * report, Chromium (Debian's, driven by playwright-core; no browser download) opens it, and the test asserts that
  * every figure was drawn by Plotly with the traces its spec holds, that the page logged no errors, and that
- * wide-gamut swatches carry the CSS colour an independent library (colorjs.io) computes. A screenshot goes to
+ * wide-gamut swatches carry the CSS colour an independent library (colorjs.io) computes, that patches outside the chosen
+ * display gamut are marked from their fields and that a pair's ΔE00 (culori) sits under the pair. A screenshot goes to
  * test/.artifacts/. Skipped, saying why, only when no Chromium is installed.
  */
 import { execFile } from "node:child_process";
@@ -10,6 +11,7 @@ import { existsSync, mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { promisify } from "node:util";
 import Color from "colorjs.io";
+import { differenceCiede2000 } from "culori";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodeRgb, linearRgb } from "../../lib/plot/display-rgb.ts";
@@ -36,7 +38,14 @@ interface DrawnSwatch {
   label: string;
   background: string;
   style: string;
+  /** The runner's class for a colour outside sRGB (its hex is an approximation). */
   flagged: boolean;
+  /** The ◇ on the patch: outside the display gamut the swatch was made for. */
+  marked: boolean;
+  /** Texts under the patch: the swatch's own note, the gamut words beside a mark, the "outside sRGB" remark. */
+  note: string;
+  gamutFlag: string;
+  gamutNote: string;
 }
 
 /** Numbers inside a CSS color() function, e.g. "color(display-p3 0.2 0.8 0.2)" → [0.2, 0.8, 0.2]. */
@@ -89,6 +98,10 @@ describe.skipIf(!HAVE_CHROMIUM)(`lib/plot figures in Chromium${HAVE_CHROMIUM ? "
           background: getComputedStyle(chip).backgroundColor,
           style: chip.getAttribute("style") ?? "",
           flagged: n.classList.contains("out-of-gamut"),
+          marked: chip.querySelector(".gamut-mark") !== null,
+          note: n.querySelector(".swatch-note")?.textContent ?? "",
+          gamutFlag: n.querySelector(".gamut-flag")?.textContent ?? "",
+          gamutNote: n.querySelector(".gamut-note")?.textContent ?? "",
         };
       }),
     );
@@ -175,12 +188,29 @@ describe.skipIf(!HAVE_CHROMIUM)(`lib/plot figures in Chromium${HAVE_CHROMIUM ? "
   });
 
   it("gives the BT.2020 swatches color(rec2020 …) with the BT.2020 OETF numbers colorjs.io computes", () => {
+    // colorjs.io's "--rec2020-oetf" encodes with ITU-R BT.2020-2 Table 4, the encoding Chromium reads (next test).
+    const inside = new Color("xyz-d65", [0.144, 0.56, 0.047]);
+    // The fixture's premise, by colorjs.io: outside Display P3, inside BT.2020.
+    expect([inside.inGamut("p3"), inside.inGamut("rec2020")]).toEqual([false, true]);
     const s = swatches.find((w) => w.label === "BT.2020 green")!;
-    const expected = new Color("xyz-d65", [0.17, 0.797, 0.033]).to("--rec2020-oetf").coords as number[];
     expect(s.background).toMatch(/^color\(rec2020 /);
-    colourNumbers(s.background).forEach((v, i) => expect(Math.abs(v - Math.min(1, Math.max(0, expected[i]!)))).toBeLessThan(2e-3));
-    const spectral = swatches.find((w) => w.label === "520 nm")!;
-    expect(spectral.background).toMatch(/^color\(rec2020 /);
+    const expected = inside.to("--rec2020-oetf").coords as number[];
+    colourNumbers(s.background).forEach((v, i) => expect(Math.abs(v - expected[i]!)).toBeLessThan(2e-3));
+  });
+
+  it("maps colours outside BT.2020 into it as colorjs.io's CSS Color 4 gamut mapping does, not by clamping", () => {
+    // Fixture XYZ (Y = 100 scale) / 100. The green has BT.2020 G = 1.18 (linear) and 520 nm R < 0, so neither fits.
+    for (const [label, xyz] of [["Green beyond BT.2020", [0.17, 0.797, 0.033]], ["520 nm", [0.063, 0.71, 0.078]]] as const) {
+      expect(new Color("xyz-d65", [...xyz]).inGamut("rec2020")).toBe(false);
+      const mapped = new Color("xyz-d65", [...xyz]).toGamut({ space: "rec2020", method: "css" }).to("--rec2020-oetf").coords as number[];
+      const clamped = (new Color("xyz-d65", [...xyz]).to("--rec2020-oetf").coords as number[]).map((v) => Math.min(1, Math.max(0, v)));
+      const s = swatches.find((w) => w.label === label)!;
+      expect(s.background).toMatch(/^color\(rec2020 /);
+      const shown = colourNumbers(s.background);
+      shown.forEach((v, i) => expect(Math.abs(v - mapped[i]!), `${label} channel ${i}`).toBeLessThan(2e-3));
+      // The clamp differs enough that this check would catch channel clipping.
+      expect(Math.max(...shown.map((v, i) => Math.abs(v - clamped[i]!)))).toBeGreaterThan(0.1);
+    }
   });
 
   it("uses the rec2020 encoding Chromium uses: sRGB #008000 written as color(rec2020 …) reads back as rgb(0, 128, 0)", async () => {
@@ -202,13 +232,53 @@ describe.skipIf(!HAVE_CHROMIUM)(`lib/plot figures in Chromium${HAVE_CHROMIUM ? "
     expect(Math.abs(pixel[2]! - 0)).toBeLessThanOrEqual(1);
   });
 
-  it("marks the patches outside the chosen display (Display P3) in their note", async () => {
-    const notes = await page.$$eval(".swatch", (nodes) => nodes.map((n) => `${n.querySelector(".swatch-label")?.textContent}|${n.querySelector(".swatch-note")?.textContent ?? ""}`));
-    const note = (label: string) => notes.find((n) => n.startsWith(label + "|"))!.split("|")[1]!;
-    expect(note("BT.2020 green")).toMatch(/outside Display P3: shown clipped/);
-    expect(note("520 nm")).toMatch(/outside Display P3: shown clipped; outside BT.2020/);
-    expect(note("P3 green")).not.toMatch(/shown clipped/);
-    expect(note("Chip 1 sample")).toMatch(/ΔE00 = \d+\.\d\d/);
+  it("marks the patches outside the chosen display (Display P3) from their fields, in symbol and words, with a legend", async () => {
+    const drawn = (label: string) => swatches.find((w) => w.label === label)!;
+    // Which gamuts hold each fixture colour, by colorjs.io; the marks must follow them.
+    const fixture: [string, [number, number, number]][] = [
+      ["P3 green", [0.265, 0.641, 0.112]],
+      ["BT.2020 green", [0.144, 0.56, 0.047]],
+      ["Green beyond BT.2020", [0.17, 0.797, 0.033]],
+      ["520 nm", [0.063, 0.71, 0.078]],
+    ];
+    for (const [label, xyz] of fixture) {
+      const c = new Color("xyz-d65", xyz);
+      const s = drawn(label);
+      const outsideP3 = !c.inGamut("p3");
+      expect(s.marked, label).toBe(outsideP3);
+      expect(s.flagged, label).toBe(!c.inGamut("srgb"));
+      expect(s.gamutFlag, label).toBe(outsideP3 ? `◇ outside Display P3${c.inGamut("rec2020") ? "" : "; outside BT.2020 too"}` : "");
+      expect(s.gamutNote, label).toBe(outsideP3 ? "" : "outside sRGB");
+      // lib/plot writes no gamut remark of its own into the note (the words above come from the fields).
+      expect(s.note, label).toBe("");
+    }
+    expect(drawn("Inside sRGB")).toMatchObject({ marked: false, flagged: false, gamutFlag: "", gamutNote: "", note: "" });
+    const legend = await page.$$eval(".swatch-legend", (nodes) => nodes.map((n) => n.textContent ?? ""));
+    expect(legend).toHaveLength(1);
+    expect(legend[0]).toMatch(/^◇ marks a patch whose colour lies outside the Display P3 gamut: .*approximation/);
+  });
+
+  it("draws each reference/sample pair as one unit, its ΔE00 under the pair (culori's CIEDE2000), not in a note", async () => {
+    const pairs = await page.$$eval(".swatch-pair", (nodes) => nodes.map((n) => ({
+      name: n.querySelector(".pair-label")?.textContent ?? "",
+      members: Array.from(n.querySelectorAll(".pair-member .swatch-label")).map((l) => l.textContent),
+      notes: Array.from(n.querySelectorAll(".swatch-note")).map((l) => l.textContent ?? ""),
+      difference: n.querySelector(".pair-difference")?.textContent ?? "",
+    })));
+    // The fixture's invented CIELAB (D65) pairs; ΔE00 from culori (npm registry) on the same numbers.
+    const fixture = [
+      { name: "Chip 1", reference: [52, 41.5, 27], sample: [53.1, 39.8, 28.6] },
+      { name: "Chip 2", reference: [70, -30, 20], sample: [69, -27.5, 21] },
+    ];
+    const ciede2000 = differenceCiede2000();
+    expect(pairs.map((p) => p.name)).toEqual(fixture.map((f) => f.name));
+    pairs.forEach((p, i) => {
+      const [r, s] = [fixture[i]!.reference, fixture[i]!.sample].map(([l, a, b]) => ({ mode: "lab65" as const, l: l!, a: a!, b: b! }));
+      expect(p.members).toEqual(["reference", "sample"]);
+      expect(p.difference).toMatch(/^ΔE00 = \d+\.\d\d$/);
+      expect(p.difference).toBe(`ΔE00 = ${ciede2000(r!, s!).toFixed(2)}`);
+      expect(p.notes.join(" ")).not.toContain("ΔE00");
+    });
   });
 
   it("saved a screenshot of the whole report", () => {
