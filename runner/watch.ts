@@ -20,25 +20,19 @@ import type { RunRecord } from "./run-record.ts";
 import { runDocument, runSignature } from "./run-notebook.ts";
 import { RunCancelled } from "./cell-process.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "./time-limit.ts";
+import type { CommandOptions, Io } from "./cli.ts";
 
 /** The port watch listens on unless --port says otherwise. */
 export const DEFAULT_PORT = 4178;
 /** Path of the server-sent events stream that tells pages to reload. */
 export const EVENTS_PATH = "/__tristim/events";
 
-/** Options of watch mode. */
-export interface WatchOptions {
-  readonly port: number;
-  readonly output?: string;
-  readonly inputs: Readonly<Record<string, string>>;
-  readonly timeLimitMs?: number;
-  readonly keepGoing: boolean;
-  readonly linkAssets: boolean;
-  readonly quiet: boolean;
-  readonly io?: { readonly out: (t: string) => void; readonly err: (t: string) => void };
+/** Options of watch mode: the run options that apply to it, plus where to print and how long to wait. */
+export type WatchOptions = Pick<CommandOptions, "port" | "output" | "inputs" | "timeLimitMs" | "keepGoing" | "linkAssets" | "quiet"> & {
+  readonly io?: Io;
   /** Wait this long after a change before rebuilding (editors write in several steps). */
   readonly debounceMs?: number;
-}
+};
 
 /** What a finished rebuild did. */
 export interface RenderEvent {

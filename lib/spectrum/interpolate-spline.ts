@@ -1,4 +1,5 @@
 /** Natural cubic spline through irregularly spaced samples (e.g. Burden & Faires, Numerical Analysis, §3.5). */
+import { intervalIndex } from "./interpolate-linear.ts";
 
 /** Returns f(x) of the natural cubic spline through the samples (xs strictly increasing, at least 3 points). */
 export function cubicSplineInterpolator(xs: readonly number[], ys: readonly number[]): (x: number) => number {
@@ -18,13 +19,8 @@ export function cubicSplineInterpolator(xs: readonly number[], ys: readonly numb
   }
   for (let i = n - 2; i >= 1; i--) m[i] = d[i]! - c[i]! * m[i + 1]!;
   return (x: number) => {
-    let lo = 0;
-    let hi = n - 1;
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if (xs[mid]! <= x) lo = mid;
-      else hi = mid;
-    }
+    const lo = intervalIndex(xs, x);
+    const hi = lo + 1;
     const h = xs[hi]! - xs[lo]!;
     const a = (xs[hi]! - x) / h;
     const b = (x - xs[lo]!) / h;
