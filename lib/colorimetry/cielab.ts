@@ -1,4 +1,5 @@
 /** CIE 1976 L*a*b* (CIELAB) and its polar form L*C*h (CIE 015:2018 §8.2.1, eqs. 8.3–8.12). */
+import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 
@@ -48,9 +49,7 @@ export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
 
 /** C*ab = √(a*² + b*²), hab = atan2(b*, a*) in degrees (CIE 015:2018 eqs. 8.12–8.13). */
 export function lchFromLab(lab: Lab): LCh {
-  let h = (Math.atan2(lab.b, lab.a) * 180) / Math.PI;
-  if (h < 0) h += 360;
-  return { L: lab.L, C: Math.hypot(lab.a, lab.b), h };
+  return { L: lab.L, C: Math.hypot(lab.a, lab.b), h: hueAngleDegrees(lab.a, lab.b) };
 }
 
 /** a* = C cos h, b* = C sin h. */

@@ -1,4 +1,5 @@
 /** CIE 1976 L*u*v* (CIELUV) and its polar form (CIE 015:2018 §8.2.2, eqs. 8.15–8.24). */
+import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 
@@ -59,9 +60,7 @@ export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
 
 /** C*uv = √(u*² + v*²), huv = atan2(v*, u*) in degrees (CIE 015:2018 eqs. 8.22–8.23). */
 export function lchFromLuv(luv: Luv): LChUv {
-  let h = (Math.atan2(luv.v, luv.u) * 180) / Math.PI;
-  if (h < 0) h += 360;
-  return { L: luv.L, C: Math.hypot(luv.u, luv.v), h };
+  return { L: luv.L, C: Math.hypot(luv.u, luv.v), h: hueAngleDegrees(luv.u, luv.v) };
 }
 
 /** u* = C cos h, v* = C sin h. */
