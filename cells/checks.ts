@@ -45,7 +45,9 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
   requireLabel(label, "check");
   const where = `check "${label}"`;
   if (typeof limits !== "object" || limits === null || Array.isArray(limits)) {
-    throw new TypeError(`${where}: the third argument must be limits like { min, max } or { target, tolerance }, got ${describe(limits)}`);
+    throw new TypeError(
+      `${where}: the third argument must be limits like { min, max } or { target, tolerance }, got ${describe(limits)}`,
+    );
   }
   for (const key of Object.keys(limits)) {
     if (!(OPTION_KEYS as readonly string[]).includes(key)) {
@@ -62,7 +64,9 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
     bounds[key] = limit;
   }
   if ((bounds.target === undefined) !== (bounds.tolerance === undefined)) {
-    throw new RangeError(`${where}: target and tolerance go together (got ${bounds.target === undefined ? "a tolerance without a target" : "a target without a tolerance"})`);
+    throw new RangeError(
+      `${where}: target and tolerance go together (got ${bounds.target === undefined ? "a tolerance without a target" : "a target without a tolerance"})`,
+    );
   }
   if (bounds.min === undefined && bounds.max === undefined && bounds.target === undefined) {
     throw new RangeError(`${where}: give at least one limit: min, max, or target with tolerance`);
@@ -78,12 +82,24 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
   }
   const digits = checkDigits(limits.digits, where);
   const unit = limits.unit?.trim() || undefined;
-  const base = { kind: "check" as const, label, limits: bounds, ...(unit ? { unit } : {}), ...(digits !== undefined ? { digits } : {}) };
+  const base = {
+    kind: "check" as const,
+    label,
+    limits: bounds,
+    ...(unit ? { unit } : {}),
+    ...(digits !== undefined ? { digits } : {}),
+  };
 
   if (typeof value !== "number" || !Number.isFinite(value)) {
     const text = typeof value === "number" ? formatNumber(value) : describe(value);
     const what = typeof value === "number" ? "not a finite number" : "not a number";
-    return { ...base, passed: false, value: null, valueText: text, detail: `The value is ${text}, ${what}, so it cannot meet the limits.` };
+    return {
+      ...base,
+      passed: false,
+      value: null,
+      valueText: text,
+      detail: `The value is ${text}, ${what}, so it cannot meet the limits.`,
+    };
   }
   const passed = withinLimits(value, bounds);
   return { ...base, passed, value, valueText: valueText(value, digits, bounds, passed) };
@@ -93,7 +109,9 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
 export function conditionRecord(label: string, condition: boolean, detail?: string): CheckRecord {
   requireLabel(label, "checkThat");
   if (typeof condition !== "boolean") {
-    throw new TypeError(`checkThat "${label}": the condition must be true or false, got ${describe(condition)}; compare explicitly, e.g. list.length > 0`);
+    throw new TypeError(
+      `checkThat "${label}": the condition must be true or false, got ${describe(condition)}; compare explicitly, e.g. list.length > 0`,
+    );
   }
   if (detail !== undefined && typeof detail !== "string") {
     throw new TypeError(`checkThat "${label}": detail must be a string, got ${describe(detail)}`);
@@ -107,7 +125,8 @@ export function withinLimits(value: number, limits: CheckLimits): boolean {
   if (limits.max !== undefined && !(value <= limits.max)) return false;
   if (limits.target !== undefined && limits.tolerance !== undefined) {
     // Written as an interval, so that a value on a decimal limit (1.1 against 1.0 ± 0.1) passes as a reader expects.
-    if (!(value >= limits.target - limits.tolerance && value <= limits.target + limits.tolerance)) return false;
+    if (!(value >= limits.target - limits.tolerance && value <= limits.target + limits.tolerance))
+      return false;
   }
   return true;
 }
@@ -124,7 +143,9 @@ function valueText(value: number, digits: number | undefined, limits: CheckLimit
 
 function requireLabel(label: unknown, fn: string): asserts label is string {
   if (typeof label !== "string" || label.trim() === "") {
-    throw new TypeError(`${fn}: the first argument must be a label (a non-empty string), got ${describe(label)}`);
+    throw new TypeError(
+      `${fn}: the first argument must be a label (a non-empty string), got ${describe(label)}`,
+    );
   }
 }
 

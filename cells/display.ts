@@ -56,12 +56,19 @@ export function show(value: unknown): void {
 
 /** The text form of a value as the report shows it (Node's inspect, without colours, 4 levels deep). */
 export function inspectValue(value: unknown): string {
-  return inspect(value, { depth: 4, colors: false, maxArrayLength: 200, maxStringLength: 20_000, breakLength: 100 });
+  return inspect(value, {
+    depth: 4,
+    colors: false,
+    maxArrayLength: 200,
+    maxStringLength: 20_000,
+    breakLength: 100,
+  });
 }
 
 /** Shows an array of objects as a table, with column order, units in the headers and number formatting. */
 export function showTable(rows: readonly object[], options: TableOptions = {}): void {
-  if (!Array.isArray(rows)) throw new TypeError(`showTable: rows must be an array of objects, got ${describe(rows)}`);
+  if (!Array.isArray(rows))
+    throw new TypeError(`showTable: rows must be an array of objects, got ${describe(rows)}`);
   rows.forEach((row, i) => {
     if (row === null || typeof row !== "object") {
       throw new TypeError(`showTable: row ${i + 1} is ${describe(row)}, not an object`);
@@ -70,23 +77,38 @@ export function showTable(rows: readonly object[], options: TableOptions = {}): 
   const defaultDigits = checkDigits(options.digits, "showTable");
   const columns = tableColumns(rows as readonly Record<string, unknown>[], options);
   const shown = rows.slice(0, MAX_TABLE_ROWS) as readonly Record<string, unknown>[];
-  const numeric = columns.map((c) => shown.some((r) => typeof r[c.key] === "number") &&
-    shown.every((r) => r[c.key] === undefined || r[c.key] === null || typeof r[c.key] === "number"));
+  const numeric = columns.map(
+    (c) =>
+      shown.some((r) => typeof r[c.key] === "number") &&
+      shown.every((r) => r[c.key] === undefined || r[c.key] === null || typeof r[c.key] === "number"),
+  );
   const formatted = shown.map((row) =>
-    columns.map((c) => formatCell(row[c.key], checkDigits(c.digits, `showTable column "${c.key}"`) ?? defaultDigits)),
+    columns.map((c) =>
+      formatCell(row[c.key], checkDigits(c.digits, `showTable column "${c.key}"`) ?? defaultDigits),
+    ),
   );
   const headers: TableColumnRecord[] = columns.map((c, i) => {
     const unit = c.unit ?? options.units?.[c.key];
-    return unit ? { label: c.label ?? c.key, unit, numeric: numeric[i]! } : { label: c.label ?? c.key, numeric: numeric[i]! };
+    return unit
+      ? { label: c.label ?? c.key, unit, numeric: numeric[i]! }
+      : { label: c.label ?? c.key, numeric: numeric[i]! };
   });
-  emit({ kind: "table", caption: options.caption, columns: headers, rows: formatted, totalRows: rows.length });
+  emit({
+    kind: "table",
+    caption: options.caption,
+    columns: headers,
+    rows: formatted,
+    totalRows: rows.length,
+  });
   emitCautionsOf(rows, "table");
 }
 
 /** Shows a Plotly figure ({ data, layout?, config? }); the caption goes under it, numbered. */
 export function showFigure(figure: FigureInput, caption?: string): void {
   if (!isPlotSpec(figure)) {
-    throw new TypeError(`showFigure: expected a Plotly figure { data: [...], layout?: {...} }, got ${describe(figure)}`);
+    throw new TypeError(
+      `showFigure: expected a Plotly figure { data: [...], layout?: {...} }, got ${describe(figure)}`,
+    );
   }
   const spec = toPlainData(
     { data: figure.data, layout: figure.layout ?? {}, config: figure.config ?? {} },
@@ -157,51 +179,82 @@ interface SpectrumLike {
 }
 
 function isPlotSpec(value: unknown): value is FigureInput {
-  return typeof value === "object" && value !== null && Array.isArray((value as { data?: unknown }).data) &&
-    (value as { data: unknown[] }).data.every((t) => typeof t === "object" && t !== null);
+  return (
+    typeof value === "object" &&
+    value !== null &&
+    Array.isArray((value as { data?: unknown }).data) &&
+    (value as { data: unknown[] }).data.every((t) => typeof t === "object" && t !== null)
+  );
 }
 
 function isSpectrumLike(value: unknown): value is SpectrumLike {
   if (typeof value !== "object" || value === null) return false;
   const { wavelengths, values } = value as { wavelengths?: unknown; values?: unknown };
-  return Array.isArray(wavelengths) && Array.isArray(values) && wavelengths.length === values.length &&
-    wavelengths.length > 1 && wavelengths.every((w) => typeof w === "number") && values.every((v) => typeof v === "number");
+  return (
+    Array.isArray(wavelengths) &&
+    Array.isArray(values) &&
+    wavelengths.length === values.length &&
+    wavelengths.length > 1 &&
+    wavelengths.every((w) => typeof w === "number") &&
+    values.every((v) => typeof v === "number")
+  );
 }
 
 function isSwatchList(value: unknown): value is SwatchRecord[] {
-  return Array.isArray(value) && value.length > 0 && value.every((s) =>
-    typeof s === "object" && s !== null && typeof (s as { hex?: unknown }).hex === "string" &&
-    typeof (s as { label?: unknown }).label === "string");
+  return (
+    Array.isArray(value) &&
+    value.length > 0 &&
+    value.every(
+      (s) =>
+        typeof s === "object" &&
+        s !== null &&
+        typeof (s as { hex?: unknown }).hex === "string" &&
+        typeof (s as { label?: unknown }).label === "string",
+    )
+  );
 }
 
 function isRowList(value: unknown): value is Record<string, unknown>[] {
-  return Array.isArray(value) && value.length > 0 && value.every((r) => {
-    if (typeof r !== "object" || r === null || Array.isArray(r)) return false;
-    const proto = Object.getPrototypeOf(r);
-    return proto === Object.prototype || proto === null;
-  });
+  return (
+    Array.isArray(value) &&
+    value.length > 0 &&
+    value.every((r) => {
+      if (typeof r !== "object" || r === null || Array.isArray(r)) return false;
+      const proto = Object.getPrototypeOf(r);
+      return proto === Object.prototype || proto === null;
+    })
+  );
 }
 
 /** The columns of a table: the requested ones (checked against the rows) or every key in order of appearance. */
 function tableColumns(rows: readonly Record<string, unknown>[], options: TableOptions): TableColumn[] {
   const keys: string[] = [];
   const seen = new Set<string>();
-  for (const row of rows) for (const key of Object.keys(row)) if (!seen.has(key)) (seen.add(key), keys.push(key));
+  for (const row of rows)
+    for (const key of Object.keys(row)) if (!seen.has(key)) (seen.add(key), keys.push(key));
   if (options.columns === undefined) {
     // A `caution` text is shown as a caution beside the table (once), not repeated in a column on every row.
-    const cautionText = rows.every((r) => r[CAUTION_KEY] === undefined || r[CAUTION_KEY] === null || typeof r[CAUTION_KEY] === "string");
+    const cautionText = rows.every(
+      (r) => r[CAUTION_KEY] === undefined || r[CAUTION_KEY] === null || typeof r[CAUTION_KEY] === "string",
+    );
     return keys.filter((key) => !(key === CAUTION_KEY && cautionText)).map((key) => ({ key }));
   }
   if (!Array.isArray(options.columns)) {
-    throw new TypeError(`showTable: columns must be an array of keys or { key, label, unit, digits }, got ${describe(options.columns)}`);
+    throw new TypeError(
+      `showTable: columns must be an array of keys or { key, label, unit, digits }, got ${describe(options.columns)}`,
+    );
   }
   return options.columns.map((c) => {
     const column = typeof c === "string" ? { key: c } : c;
     if (typeof column !== "object" || column === null || typeof column.key !== "string") {
-      throw new TypeError(`showTable: a column must be a key or { key, label, unit, digits }, got ${describe(c)}`);
+      throw new TypeError(
+        `showTable: a column must be a key or { key, label, unit, digits }, got ${describe(c)}`,
+      );
     }
     if (rows.length > 0 && !seen.has(column.key)) {
-      throw new RangeError(`showTable: column "${column.key}" is in none of the rows (their keys: ${keys.join(", ") || "none"})`);
+      throw new RangeError(
+        `showTable: column "${column.key}" is in none of the rows (their keys: ${keys.join(", ") || "none"})`,
+      );
     }
     return column;
   });
@@ -215,4 +268,3 @@ function formatCell(value: unknown, digits: number | undefined): string {
   if (value instanceof Date) return value.toISOString();
   return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
 }
-

@@ -11,7 +11,8 @@ export function emitRecord(record: OutputRecord): void {
   if (sink) return sink(record);
   if (record.kind === "caution") return console.warn(`${record.title}: ${record.text}`);
   if (record.kind === "check") {
-    const value = record.valueText === undefined ? "" : `: ${record.valueText}${record.unit ? ` ${record.unit}` : ""}`;
+    const value =
+      record.valueText === undefined ? "" : `: ${record.valueText}${record.unit ? ` ${record.unit}` : ""}`;
     const line = `${record.passed ? "PASS" : "FAIL"} ${record.label}${value}${record.detail ? ` (${record.detail})` : ""}`;
     return record.passed ? console.log(line) : console.warn(line);
   }

@@ -4,7 +4,8 @@
  */
 
 /** A value an input can hold: what YAML front matter gives (number, string, boolean, list, mapping). */
-export type InputValue = number | string | boolean | readonly InputValue[] | { readonly [key: string]: InputValue };
+export type InputValue =
+  number | string | boolean | readonly InputValue[] | { readonly [key: string]: InputValue };
 
 const values: Record<string, InputValue> = {};
 

@@ -19,7 +19,9 @@ function copy(value: unknown, path: string, seen: Set<object>): unknown {
   if (typeof value === "number") return Number.isFinite(value) ? value : null;
   if (value === undefined) return undefined;
   if (typeof value === "bigint") {
-    throw new UnserializableError(`${path} is a BigInt (${value}n), which cannot be stored as data; convert it with Number()`);
+    throw new UnserializableError(
+      `${path} is a BigInt (${value}n), which cannot be stored as data; convert it with Number()`,
+    );
   }
   if (typeof value === "function") {
     throw new UnserializableError(`${path} is a function, which cannot be stored as data`);
@@ -34,7 +36,9 @@ function copy(value: unknown, path: string, seen: Set<object>): unknown {
     return value.toISOString();
   }
   if (ArrayBuffer.isView(value) && !(value instanceof DataView)) {
-    return Array.from(value as unknown as ArrayLike<number | bigint>, (v, i) => copy(v, `${path}[${i}]`, seen));
+    return Array.from(value as unknown as ArrayLike<number | bigint>, (v, i) =>
+      copy(v, `${path}[${i}]`, seen),
+    );
   }
   seen.add(object);
   try {
@@ -42,11 +46,17 @@ function copy(value: unknown, path: string, seen: Set<object>): unknown {
     const proto = Object.getPrototypeOf(value);
     if (proto !== Object.prototype && proto !== null) {
       const name = (proto?.constructor?.name as string | undefined) ?? "an object with a custom prototype";
-      throw new UnserializableError(`${path} is a ${name}, which cannot be stored as data; use plain objects and arrays`);
+      throw new UnserializableError(
+        `${path} is a ${name}, which cannot be stored as data; use plain objects and arrays`,
+      );
     }
     const out: Record<string, unknown> = {};
     for (const [key, v] of Object.entries(value as Record<string, unknown>)) {
-      const c = copy(v, /^[A-Za-z_$][\w$]*$/.test(key) ? `${path}.${key}` : `${path}[${JSON.stringify(key)}]`, seen);
+      const c = copy(
+        v,
+        /^[A-Za-z_$][\w$]*$/.test(key) ? `${path}.${key}` : `${path}[${JSON.stringify(key)}]`,
+        seen,
+      );
       if (c !== undefined) out[key] = c;
     }
     return out;

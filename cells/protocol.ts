@@ -77,7 +77,8 @@ export interface StartupFailedMessage {
   readonly error: RawError;
 }
 
-export type FromCellProcess = ReadyMessage | OutputMessage | CellDoneMessage | FinishedMessage | StartupFailedMessage;
+export type FromCellProcess =
+  ReadyMessage | OutputMessage | CellDoneMessage | FinishedMessage | StartupFailedMessage;
 
 /** The object a compiled cell receives as its only parameter: the hooks its rewritten code calls. */
 export interface CellRuntime {

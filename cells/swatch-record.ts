@@ -33,25 +33,35 @@ export function swatchRecords(swatches: readonly unknown[]): SwatchRecord[] {
 
 function checkSwatch(input: unknown, i: number): Mutable<SwatchRecord> {
   const where = `showSwatches: swatch ${i + 1}`;
-  if (typeof input !== "object" || input === null) throw new TypeError(`${where} is ${describe(input)}, not { label, hex }`);
+  if (typeof input !== "object" || input === null)
+    throw new TypeError(`${where} is ${describe(input)}, not { label, hex }`);
   const s = input as Record<string, unknown>;
-  if (typeof s.label !== "string") throw new TypeError(`${where}: label must be a string, got ${describe(s.label)}`);
+  if (typeof s.label !== "string")
+    throw new TypeError(`${where}: label must be a string, got ${describe(s.label)}`);
   const named = `${where} ("${s.label}")`;
   if (typeof s.hex !== "string" || !HEX.test(s.hex)) {
     throw new TypeError(`${named}: hex must be an sRGB colour like #1a2b3c, got ${describe(s.hex)}`);
   }
   if (s.css !== undefined && (typeof s.css !== "string" || !CSS_COLOUR.test(s.css.trim()))) {
-    throw new TypeError(`${named}: css must be a CSS colour function like color(display-p3 1 0.2 0.1), got ${describe(s.css)}`);
+    throw new TypeError(
+      `${named}: css must be a CSS colour function like color(display-p3 1 0.2 0.1), got ${describe(s.css)}`,
+    );
   }
   const out: Mutable<SwatchRecord> = { label: s.label, hex: s.hex.toLowerCase() };
   if (s.css !== undefined) out.css = (s.css as string).trim();
   if (s.outOfGamut === true) out.outOfGamut = true;
   if (s.display !== undefined) {
-    if (typeof s.display !== "string" || s.display.trim() === "") throw new TypeError(`${named}: display must be the name of a display gamut such as "sRGB", got ${describe(s.display)}`);
+    if (typeof s.display !== "string" || s.display.trim() === "")
+      throw new TypeError(
+        `${named}: display must be the name of a display gamut such as "sRGB", got ${describe(s.display)}`,
+      );
     out.display = s.display.trim();
   }
   if (s.outOfDisplayGamut !== undefined) {
-    if (typeof s.outOfDisplayGamut !== "boolean") throw new TypeError(`${named}: outOfDisplayGamut must be true or false, got ${describe(s.outOfDisplayGamut)}`);
+    if (typeof s.outOfDisplayGamut !== "boolean")
+      throw new TypeError(
+        `${named}: outOfDisplayGamut must be true or false, got ${describe(s.outOfDisplayGamut)}`,
+      );
     out.outOfDisplayGamut = s.outOfDisplayGamut;
   }
   if (s.inGamut !== undefined) out.inGamut = checkGamuts(s.inGamut, named);
@@ -62,23 +72,33 @@ function checkSwatch(input: unknown, i: number): Mutable<SwatchRecord> {
 
 function checkGamuts(value: unknown, named: string): SwatchGamuts {
   const g = value as Record<string, unknown> | null;
-  if (typeof g !== "object" || g === null || !["sRGB", "displayP3", "bt2020"].every((k) => typeof g[k] === "boolean")) {
-    throw new TypeError(`${named}: inGamut must be { sRGB, displayP3, bt2020 } with true or false each, got ${describe(value)}`);
+  if (
+    typeof g !== "object" ||
+    g === null ||
+    !["sRGB", "displayP3", "bt2020"].every((k) => typeof g[k] === "boolean")
+  ) {
+    throw new TypeError(
+      `${named}: inGamut must be { sRGB, displayP3, bt2020 } with true or false each, got ${describe(value)}`,
+    );
   }
   return { sRGB: g.sRGB as boolean, displayP3: g.displayP3 as boolean, bt2020: g.bt2020 as boolean };
 }
 
 function checkPair(value: unknown, named: string): SwatchPairPlace {
   const p = value as Record<string, unknown> | null;
-  if (typeof p !== "object" || p === null) throw new TypeError(`${named}: pair must be { label, role, deltaE00? }, got ${describe(value)}`);
-  if (typeof p.label !== "string" || p.label.trim() === "") throw new TypeError(`${named}: pair.label must name the pair, got ${describe(p.label)}`);
-  if (!PAIR_ROLES.includes(p.role as never)) throw new TypeError(`${named}: pair.role must be "reference" or "sample", got ${describe(p.role)}`);
+  if (typeof p !== "object" || p === null)
+    throw new TypeError(`${named}: pair must be { label, role, deltaE00? }, got ${describe(value)}`);
+  if (typeof p.label !== "string" || p.label.trim() === "")
+    throw new TypeError(`${named}: pair.label must name the pair, got ${describe(p.label)}`);
+  if (!PAIR_ROLES.includes(p.role as never))
+    throw new TypeError(`${named}: pair.role must be "reference" or "sample", got ${describe(p.role)}`);
   const place: Mutable<SwatchPairPlace> = { label: p.label, role: p.role as SwatchPairPlace["role"] };
   if (p.deltaE00 !== undefined) {
     if (typeof p.deltaE00 !== "number" || !Number.isFinite(p.deltaE00) || p.deltaE00 < 0) {
       throw new TypeError(`${named}: pair.deltaE00 must be a finite number ≥ 0, got ${describe(p.deltaE00)}`);
     }
-    if (place.role !== "sample") throw new TypeError(`${named}: pair.deltaE00 belongs on the pair's sample, not on its reference`);
+    if (place.role !== "sample")
+      throw new TypeError(`${named}: pair.deltaE00 belongs on the pair's sample, not on its reference`);
     place.deltaE00 = p.deltaE00;
   }
   return place;
@@ -116,8 +136,10 @@ function checkPairsAdjacent(records: readonly SwatchRecord[]): void {
       continue;
     }
     const named = `showSwatches: swatch ${i + 1} ("${records[i]!.label}")`;
-    throw new TypeError(pair.role === "reference"
-      ? `${named} is the reference of pair "${pair.label}", but swatch ${i + 2} is not its sample; put each pair's sample right after its reference`
-      : `${named} is the sample of pair "${pair.label}", but ${i === 0 ? "no swatch comes before it" : `swatch ${i} is not its reference`}; put each pair's reference right before its sample`);
+    throw new TypeError(
+      pair.role === "reference"
+        ? `${named} is the reference of pair "${pair.label}", but swatch ${i + 2} is not its sample; put each pair's sample right after its reference`
+        : `${named} is the sample of pair "${pair.label}", but ${i === 0 ? "no swatch comes before it" : `swatch ${i} is not its reference`}; put each pair's reference right before its sample`,
+    );
   }
 }

@@ -31,7 +31,9 @@ Error.stackTraceLimit = 40;
 class CellExit extends Error {
   override readonly name = "CellExit";
   constructor(readonly code: unknown) {
-    super(`process.exit(${code === undefined ? "" : String(code)}) was called in the cell; a cell cannot end the run (throw an Error to stop it with a message)`);
+    super(
+      `process.exit(${code === undefined ? "" : String(code)}) was called in the cell; a cell cannot end the run (throw an Error to stop it with a message)`,
+    );
   }
 }
 
@@ -49,7 +51,8 @@ let suppressReadTracking = false;
 
 // --- output: console, stdout/stderr and display records all go to the running cell -------------------------------
 function captureText(stream: "stdout" | "stderr", chunk: unknown): void {
-  const text = typeof chunk === "string" ? chunk : Buffer.isBuffer(chunk) ? chunk.toString("utf8") : String(chunk);
+  const text =
+    typeof chunk === "string" ? chunk : Buffer.isBuffer(chunk) ? chunk.toString("utf8") : String(chunk);
   output.addText(stream, text);
 }
 const captureStream = (stream: "stdout" | "stderr") =>
@@ -60,9 +63,19 @@ const captureStream = (stream: "stdout" | "stderr") =>
       done();
     },
   });
-globalThis.console = new Console({ stdout: captureStream("stdout"), stderr: captureStream("stderr"), colorMode: false });
-process.stdout.write = ((chunk: unknown) => (captureText("stdout", chunk), true)) as typeof process.stdout.write;
-process.stderr.write = ((chunk: unknown) => (captureText("stderr", chunk), true)) as typeof process.stderr.write;
+globalThis.console = new Console({
+  stdout: captureStream("stdout"),
+  stderr: captureStream("stderr"),
+  colorMode: false,
+});
+process.stdout.write = ((chunk: unknown) => (
+  captureText("stdout", chunk),
+  true
+)) as typeof process.stdout.write;
+process.stderr.write = ((chunk: unknown) => (
+  captureText("stderr", chunk),
+  true
+)) as typeof process.stderr.write;
 installOutputSink((record) => output.addRecord(record));
 
 function flush(): void {
@@ -81,13 +94,18 @@ function raiseUncaught(error: unknown, what: string): void {
   const raw = toRawError(error, "uncaught");
   const message = `${what}: ${raw.message}`;
   if (failCurrentCell) failCurrentCell({ ...raw, message });
-  else lateError ??= {
-    ...raw,
-    message: `${message} (raised after the cell had finished, by a timer, callback or promise it left running)`,
-  };
+  else
+    lateError ??= {
+      ...raw,
+      message: `${message} (raised after the cell had finished, by a timer, callback or promise it left running)`,
+    };
 }
-process.on("uncaughtException", (error) => raiseUncaught(error, "an error was thrown outside the cell's own flow (by a timer or callback)"));
-process.on("unhandledRejection", (reason) => raiseUncaught(reason, "a promise was rejected and nothing awaited or caught it"));
+process.on("uncaughtException", (error) =>
+  raiseUncaught(error, "an error was thrown outside the cell's own flow (by a timer or callback)"),
+);
+process.on("unhandledRejection", (reason) =>
+  raiseUncaught(reason, "a promise was rejected and nothing awaited or caught it"),
+);
 
 // --- files the cells read (for watch re-runs and the report's record of inputs) -----------------------------------
 function trackRead(file: unknown): void {
@@ -102,7 +120,13 @@ function trackRead(file: unknown): void {
   reads.add(absolute);
 }
 function isReadFlag(flags: unknown): boolean {
-  return flags === undefined || flags === null || flags === "r" || flags === "rs" || flags === fs.constants.O_RDONLY;
+  return (
+    flags === undefined ||
+    flags === null ||
+    flags === "r" ||
+    flags === "rs" ||
+    flags === fs.constants.O_RDONLY
+  );
 }
 {
   const f = fs as unknown as Record<string, (...args: unknown[]) => unknown>;
@@ -137,7 +161,8 @@ function isReadFlag(flags: unknown): boolean {
 // --- errors as data -------------------------------------------------------------------------------------------------
 function toRawError(error: unknown, failure: FailureKind): RawError {
   try {
-    if (error instanceof CellExit) return { failure: "exit", name: "process.exit", message: error.message, stack: error.stack };
+    if (error instanceof CellExit)
+      return { failure: "exit", name: "process.exit", message: error.message, stack: error.stack };
     if (typeof error === "object" && error !== null && "message" in error) {
       const e = error as { name?: unknown; message?: unknown; stack?: unknown };
       const name = typeof e.name === "string" ? e.name : "Error";
@@ -166,7 +191,9 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
       for (const [name, get, set] of bindings) {
         const d = Object.getOwnPropertyDescriptor(globalThis, name);
         if (d && !d.configurable) {
-          throw new TypeError(`the cell declares "${name}", a built-in global that cannot be replaced; choose another name`);
+          throw new TypeError(
+            `the cell declares "${name}", a built-in global that cannot be replaced; choose another name`,
+          );
         }
         Object.defineProperty(globalThis, name, { get, set, configurable: true, enumerable: true });
       }
@@ -188,14 +215,20 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
           throw new SyntaxError(`the module "${from}" has no export named "${name}"`);
         },
         set(value: unknown) {
-          Object.defineProperty(globalThis, local, { value, writable: true, configurable: true, enumerable: true });
+          Object.defineProperty(globalThis, local, {
+            value,
+            writable: true,
+            configurable: true,
+            enumerable: true,
+          });
         },
       });
     },
     async dynamicImport(specifier) {
       if (specifier === "tristim") return lib;
       if (isBuiltin(specifier)) return import(specifier);
-      if (/^\.{0,2}\//.test(specifier)) return import(pathToFileURL(path.resolve(notebookDir, specifier)).href);
+      if (/^\.{0,2}\//.test(specifier))
+        return import(pathToFileURL(path.resolve(notebookDir, specifier)).href);
       try {
         return await import(pathToFileURL(notebookRequire().resolve(specifier)).href);
       } catch {
@@ -215,9 +248,16 @@ function declareGlobal(name: string): void {
   const d = Object.getOwnPropertyDescriptor(g, name);
   if (d && "value" in d && d.writable) return;
   if (d && !d.configurable) {
-    throw new TypeError(`the cell declares "${name}", a built-in global that cannot be replaced; choose another name`);
+    throw new TypeError(
+      `the cell declares "${name}", a built-in global that cannot be replaced; choose another name`,
+    );
   }
-  Object.defineProperty(g, name, { value: d && "value" in d ? d.value : undefined, writable: true, configurable: true, enumerable: true });
+  Object.defineProperty(g, name, {
+    value: d && "value" in d ? d.value : undefined,
+    writable: true,
+    configurable: true,
+    enumerable: true,
+  });
 }
 
 async function runCell(message: RunCellMessage): Promise<void> {
@@ -235,18 +275,26 @@ async function runCell(message: RunCellMessage): Promise<void> {
     if (message.importBundle) {
       suppressReadTracking = true;
       try {
-        namespaces = (await Promise.race([import(pathToFileURL(message.importBundle).href), failed])) as typeof namespaces;
+        namespaces = (await Promise.race([
+          import(pathToFileURL(message.importBundle).href),
+          failed,
+        ])) as typeof namespaces;
       } finally {
         suppressReadTracking = false;
       }
     }
-    const fn = vm.runInThisContext(message.code, { filename: message.filename }) as (rt: CellRuntime) => Promise<unknown>;
+    const fn = vm.runInThisContext(message.code, { filename: message.filename }) as (
+      rt: CellRuntime,
+    ) => Promise<unknown>;
     const value = await Promise.race([fn(runtimeFor(namespaces)), failed]);
     if (value !== undefined) show(value);
     // Let rejections nobody handled surface now, so they count against this cell.
     await Promise.race([new Promise((resolve) => setImmediate(resolve)), failed]);
   } catch (e) {
-    error = (e as RawError)?.failure !== undefined && !(e instanceof Error) ? (e as RawError) : toRawError(e, "thrown");
+    error =
+      (e as RawError)?.failure !== undefined && !(e instanceof Error)
+        ? (e as RawError)
+        : toRawError(e, "thrown");
   }
   const durationMs = performance.now() - started;
   failCurrentCell = null;
@@ -262,7 +310,10 @@ function methodLog(): { topic: string; statement: string }[] {
   const methodsUsed = lib.methodsUsed;
   try {
     if (typeof methodsUsed !== "function") return [];
-    return (methodsUsed() as { topic: unknown; statement: unknown }[]).map((m) => ({ topic: String(m.topic), statement: String(m.statement) }));
+    return (methodsUsed() as { topic: unknown; statement: unknown }[]).map((m) => ({
+      topic: String(m.topic),
+      statement: String(m.statement),
+    }));
   } catch {
     return [];
   }
@@ -290,7 +341,12 @@ async function handle(message: ToCellProcess): Promise<void> {
     notebookDir = path.dirname(message.notebookPath);
     setRunInputs(message.inputs);
     for (const [name, value] of Object.entries(lib)) {
-      Object.defineProperty(globalThis, name, { value, writable: true, configurable: true, enumerable: false });
+      Object.defineProperty(globalThis, name, {
+        value,
+        writable: true,
+        configurable: true,
+        enumerable: false,
+      });
     }
     send({ type: "ready" });
   } else if (message.type === "run") {

@@ -15,7 +15,12 @@ export interface BatchEntry {
   readonly sha256: string;
   /** The report's file name, relative to the index page; absent when it could not be written. */
   readonly report?: string;
-  readonly cells: { readonly total: number; readonly ran: number; readonly failed: readonly number[]; readonly notRun: number };
+  readonly cells: {
+    readonly total: number;
+    readonly ran: number;
+    readonly failed: readonly number[];
+    readonly notRun: number;
+  };
   readonly checks: CheckCounts;
   /** Labels of the failed checks. */
   readonly failedChecks: readonly string[];
@@ -38,7 +43,13 @@ export interface BatchRecord {
 }
 
 /** The index entry of one run. */
-export function batchEntry(run: RunRecord, dataFile: string, sha256: string, report: string | undefined, exit: ExitCode): BatchEntry {
+export function batchEntry(
+  run: RunRecord,
+  dataFile: string,
+  sha256: string,
+  report: string | undefined,
+  exit: ExitCode,
+): BatchEntry {
   const checks = checkResults(run);
   const failedChecks = checks.filter((c) => !c.record.passed).map((c) => c.record.label);
   return {

@@ -63,11 +63,18 @@ export function parseEachArgument(argument: string): EachOption {
 /** The folder a batch writes to: -o, or `<notebook>-reports` beside the notebook. */
 export function batchFolder(notebook: string, output: string | undefined): string {
   if (output !== undefined) return path.resolve(output);
-  return path.join(path.dirname(notebook), `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}-reports`);
+  return path.join(
+    path.dirname(notebook),
+    `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}-reports`,
+  );
 }
 
 /** The data files of a batch, checked against the notebook's inputs before anything runs. */
-export function batchFiles(document: NotebookDocument, each: EachOption, options: Pick<BatchOptions, "inputs" | "cwd">): string[] {
+export function batchFiles(
+  document: NotebookDocument,
+  each: EachOption,
+  options: Pick<BatchOptions, "inputs" | "cwd">,
+): string[] {
   const declared = document.frontMatter.inputs;
   if (!Object.hasOwn(declared, each.input)) {
     const known = Object.keys(declared);
@@ -81,7 +88,8 @@ export function batchFiles(document: NotebookDocument, each: EachOption, options
       `--each ${each.input}=...: input "${each.input}" must have a text default (a file path) to take a data file; its default is ${JSON.stringify(declared[each.input])}`,
     );
   }
-  if (Object.hasOwn(options.inputs, each.input)) throw new UsageError(`input "${each.input}" is given by both --each and --input`);
+  if (Object.hasOwn(options.inputs, each.input))
+    throw new UsageError(`input "${each.input}" is given by both --each and --input`);
   return expandFilePattern(each.pattern, options.cwd, `--each ${each.input}`);
 }
 
@@ -92,11 +100,17 @@ export function pathForNotebook(file: string, notebookDir: string): string {
 }
 
 /** Runs the batch; writes the reports and the index; returns the worst exit code and where the index is. */
-export async function runBatch(document: NotebookDocument, each: EachOption, options: BatchOptions): Promise<{ exit: ExitCode; index: string; entries: BatchEntry[] }> {
+export async function runBatch(
+  document: NotebookDocument,
+  each: EachOption,
+  options: BatchOptions,
+): Promise<{ exit: ExitCode; index: string; entries: BatchEntry[] }> {
   const files = batchFiles(document, each, options);
   const folder = batchFolder(document.path, options.output);
   if (fs.existsSync(folder) && !fs.statSync(folder).isDirectory()) {
-    throw new UsageError(`-o ${options.output}: with --each, -o must name a folder (it gets one report per data file and index.html)`);
+    throw new UsageError(
+      `-o ${options.output}: with --each, -o must name a folder (it gets one report per data file and index.html)`,
+    );
   }
   fs.mkdirSync(folder, { recursive: true });
   const names = reportNamesFor(files, path.dirname(document.path));
@@ -124,7 +138,13 @@ export async function runBatch(document: NotebookDocument, each: EachOption, opt
       error = (e as Error).message;
     }
     const code = report ? runExitCode(run) : EXIT.internal;
-    options.onRun?.(run, { position: i + 1, count: files.length, dataFile, ...(report ? { report: path.join(folder, name) } : {}), ...(error ? { error } : {}) });
+    options.onRun?.(run, {
+      position: i + 1,
+      count: files.length,
+      dataFile,
+      ...(report ? { report: path.join(folder, name) } : {}),
+      ...(error ? { error } : {}),
+    });
     exit = worseExit(exit, code);
     entries.push(batchEntry(run, dataFile, sha256, report, code));
   }

@@ -28,7 +28,9 @@ async function loadCli() {
 async function cachedBundle() {
   const hash = createHash("sha256").update(process.version);
   const walk = (dir) => {
-    for (const entry of fs.readdirSync(dir, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
+    for (const entry of fs
+      .readdirSync(dir, { withFileTypes: true })
+      .sort((a, b) => (a.name < b.name ? -1 : 1))) {
       const full = path.join(dir, entry.name);
       if (entry.isDirectory()) walk(full);
       else {
@@ -64,7 +66,8 @@ async function cachedBundle() {
   });
   fs.renameSync(temporary, file);
   for (const old of fs.readdirSync(folder)) {
-    if (old.startsWith("cli-") && path.join(folder, old) !== file) fs.rmSync(path.join(folder, old), { force: true });
+    if (old.startsWith("cli-") && path.join(folder, old) !== file)
+      fs.rmSync(path.join(folder, old), { force: true });
   }
   return file;
 }
@@ -74,7 +77,9 @@ const keepModuleUrls = {
   name: "keep-module-urls",
   setup(build) {
     build.onLoad({ filter: /[\\/](runner|cells|lib)[\\/].*\.ts$/ }, (args) => ({
-      contents: fs.readFileSync(args.path, "utf8").replaceAll("import.meta.url", JSON.stringify(pathToFileURL(args.path).href)),
+      contents: fs
+        .readFileSync(args.path, "utf8")
+        .replaceAll("import.meta.url", JSON.stringify(pathToFileURL(args.path).href)),
       loader: "ts",
     }));
   },

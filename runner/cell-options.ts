@@ -31,7 +31,11 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
     const m = pattern.exec(rest);
     if (!m) {
       const bad = rest.slice(at).trim().split(/\s+/)[0];
-      throw new NotebookError(`cannot read the cell option "${bad}"; write options as words, e.g. hide-source caption="A caption"`, file, line);
+      throw new NotebookError(
+        `cannot read the cell option "${bad}"; write options as words, e.g. hide-source caption="A caption"`,
+        file,
+        line,
+      );
     }
     at = pattern.lastIndex;
     const name = m[1]!;
@@ -39,14 +43,19 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
     if (seen.has(name)) throw new NotebookError(`the cell option "${name}" is given twice`, file, line);
     seen.add(name);
     if ((CELL_FLAGS as readonly string[]).includes(name)) {
-      if (raw !== undefined) throw new NotebookError(`the cell option "${name}" takes no value (write just ${name})`, file, line);
+      if (raw !== undefined)
+        throw new NotebookError(`the cell option "${name}" takes no value (write just ${name})`, file, line);
       if (name === "hide-source") options.hideSource = true;
       if (name === "show-source") options.showSource = true;
       if (name === "no-run") options.noRun = true;
       if (name === "may-fail") options.mayFail = true;
     } else if ((CELL_VALUE_OPTIONS as readonly string[]).includes(name)) {
       if (raw === undefined || raw === '""') {
-        throw new NotebookError(`the cell option "${name}" needs a value, e.g. ${name === "caption" ? 'caption="Spectral radiance of lamp 2"' : "time-limit=90s"}`, file, line);
+        throw new NotebookError(
+          `the cell option "${name}" needs a value, e.g. ${name === "caption" ? 'caption="Spectral radiance of lamp 2"' : "time-limit=90s"}`,
+          file,
+          line,
+        );
       }
       const value = raw.startsWith('"') ? raw.slice(1, -1).replace(/\\(.)/g, "$1") : raw;
       if (name === "caption") options.caption = value;
@@ -66,7 +75,11 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
     }
   }
   if (options.hideSource && options.showSource) {
-    throw new NotebookError('the cell options "hide-source" and "show-source" contradict each other', file, line);
+    throw new NotebookError(
+      'the cell options "hide-source" and "show-source" contradict each other',
+      file,
+      line,
+    );
   }
   return options;
 }

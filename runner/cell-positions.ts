@@ -29,7 +29,10 @@ export function jsOffsetToCellPosition(js: string, map: string, offset: number):
   const jsLine = before.length - 1;
   const jsColumn = before.at(-1)!.length;
   try {
-    const entry = new SourceMap(JSON.parse(map)).findEntry(jsLine, jsColumn) as { originalLine?: number; originalColumn?: number };
+    const entry = new SourceMap(JSON.parse(map)).findEntry(jsLine, jsColumn) as {
+      originalLine?: number;
+      originalColumn?: number;
+    };
     if (typeof entry.originalLine === "number") {
       return { line: entry.originalLine + 1, column: (entry.originalColumn ?? 0) + 1 };
     }

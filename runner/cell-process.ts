@@ -60,7 +60,9 @@ export class CellProcess {
       this.markExited();
     });
     this.child.on("exit", (code, signal) => {
-      this.exitDetail ||= signal ? `the cell process was ended by signal ${signal}` : `the cell process ended with exit code ${code}`;
+      this.exitDetail ||= signal
+        ? `the cell process was ended by signal ${signal}`
+        : `the cell process ended with exit code ${code}`;
       this.markExited();
     });
   }
@@ -74,12 +76,20 @@ export class CellProcess {
   ): Promise<CellProcess> {
     const cell = new CellProcess(runtime, notebookPath);
     cell.send({ type: "init", notebookPath, inputs });
-    const answer = await cell.wait((m) => m.type === "ready" || m.type === "startup-failed", STARTUP_LIMIT_MS, signal);
+    const answer = await cell.wait(
+      (m) => m.type === "ready" || m.type === "startup-failed",
+      STARTUP_LIMIT_MS,
+      signal,
+    );
     if (answer === "timeout") {
       cell.kill();
-      throw new CellProcessStartError({ failure: "startup", message: `the cell process did not get ready within ${STARTUP_LIMIT_MS / 1000} s` });
+      throw new CellProcessStartError({
+        failure: "startup",
+        message: `the cell process did not get ready within ${STARTUP_LIMIT_MS / 1000} s`,
+      });
     }
-    if (answer === "exit") throw new CellProcessStartError({ failure: "startup", message: cell.describeExit() });
+    if (answer === "exit")
+      throw new CellProcessStartError({ failure: "startup", message: cell.describeExit() });
     if (answer.type === "startup-failed") {
       cell.kill();
       throw new CellProcessStartError(answer.error);
@@ -103,7 +113,13 @@ export class CellProcess {
     }
     if (answer === "exit") return { kind: "crash", durationMs, detail: this.describeExit() };
     const done = answer as Extract<FromCellProcess, { type: "done" }>;
-    return { kind: "done", durationMs: done.durationMs, error: done.error, reads: done.reads, methods: done.methods ?? [] };
+    return {
+      kind: "done",
+      durationMs: done.durationMs,
+      error: done.error,
+      reads: done.reads,
+      methods: done.methods ?? [],
+    };
   }
 
   /** Asks for the method log and lets the process end; undefined when it does not answer in time. */
@@ -112,7 +128,9 @@ export class CellProcess {
     this.send({ type: "finish" });
     const answer = await this.wait((m) => m.type === "finished", FINISH_LIMIT_MS);
     this.kill();
-    return typeof answer === "object" ? (answer as Extract<FromCellProcess, { type: "finished" }>) : undefined;
+    return typeof answer === "object"
+      ? (answer as Extract<FromCellProcess, { type: "finished" }>)
+      : undefined;
   }
 
   /** Stops the process at once. */

@@ -30,7 +30,9 @@ export function checkResults(run: RunRecord): CheckResult[] {
   const results: CheckResult[] = [];
   for (const cell of run.cells) {
     let n = 0;
-    for (const o of cell.outputs) if (o.kind === "check") results.push({ record: o, cell: cell.index, anchor: checkAnchor(cell.index, n++) });
+    for (const o of cell.outputs)
+      if (o.kind === "check")
+        results.push({ record: o, cell: cell.index, anchor: checkAnchor(cell.index, n++) });
   }
   return results;
 }

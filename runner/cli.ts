@@ -67,7 +67,9 @@ export async function main(argv: readonly string[], io: Io = terminal): Promise<
       return EXIT.internal;
     }
     const error = e as Error;
-    io.err(`tristim: internal error: ${error?.message ?? String(e)}\n${process.env.TRISTIM_DEBUG ? `${error?.stack}\n` : "(set TRISTIM_DEBUG=1 to see where it happened)\n"}`);
+    io.err(
+      `tristim: internal error: ${error?.message ?? String(e)}\n${process.env.TRISTIM_DEBUG ? `${error?.stack}\n` : "(set TRISTIM_DEBUG=1 to see where it happened)\n"}`,
+    );
     return EXIT.internal;
   }
 }
@@ -105,7 +107,10 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
 }
 
 /** Reads and checks the options after the command. */
-export function parseOptions(args: readonly string[], command: "run" | "watch"): { options: CommandOptions; files: string[]; help: boolean } {
+export function parseOptions(
+  args: readonly string[],
+  command: "run" | "watch",
+): { options: CommandOptions; files: string[]; help: boolean } {
   let parsed;
   try {
     parsed = parseArgs({
@@ -126,14 +131,34 @@ export function parseOptions(args: readonly string[], command: "run" | "watch"):
       },
     });
   } catch (e) {
-    throw new UsageError((e as Error).message.replace(/\. To specify a positional argument.*$/s, "").replace(/^Unknown option/, "unknown option"));
+    throw new UsageError(
+      (e as Error).message
+        .replace(/\. To specify a positional argument.*$/s, "")
+        .replace(/^Unknown option/, "unknown option"),
+    );
   }
   const v = parsed.values;
-  if (v.help) return { options: { inputs: {}, keepGoing: false, linkAssets: false, quiet: false, port: DEFAULT_PORT, reproducible: false }, files: [], help: true };
-  if (v.port !== undefined && command !== "watch") throw new UsageError("--port is an option of watch, not of run");
-  if (v.each !== undefined && command !== "run") throw new UsageError("--each is an option of run, not of watch");
-  if (v.reproducible && command !== "run") throw new UsageError("--reproducible is an option of run, not of watch");
-  if ((v.each?.length ?? 0) > 1) throw new UsageError("--each can be given once (one input takes the data files)");
+  if (v.help)
+    return {
+      options: {
+        inputs: {},
+        keepGoing: false,
+        linkAssets: false,
+        quiet: false,
+        port: DEFAULT_PORT,
+        reproducible: false,
+      },
+      files: [],
+      help: true,
+    };
+  if (v.port !== undefined && command !== "watch")
+    throw new UsageError("--port is an option of watch, not of run");
+  if (v.each !== undefined && command !== "run")
+    throw new UsageError("--each is an option of run, not of watch");
+  if (v.reproducible && command !== "run")
+    throw new UsageError("--reproducible is an option of run, not of watch");
+  if ((v.each?.length ?? 0) > 1)
+    throw new UsageError("--each can be given once (one input takes the data files)");
   const each = v.each?.[0] === undefined ? undefined : parseEachArgument(v.each[0]);
   const inputs: Record<string, string> = {};
   for (const argument of v.input ?? []) {
@@ -144,16 +169,21 @@ export function parseOptions(args: readonly string[], command: "run" | "watch"):
   let port = DEFAULT_PORT;
   if (v.port !== undefined) {
     port = Number(v.port);
-    if (!/^\d+$/.test(v.port) || port > 65535) throw new UsageError(`--port expects a port number from 0 to 65535, got "${v.port}"`);
+    if (!/^\d+$/.test(v.port) || port > 65535)
+      throw new UsageError(`--port expects a port number from 0 to 65535, got "${v.port}"`);
   }
-  if (parsed.positionals.length === 0) throw new UsageError(`${command} needs a notebook file, e.g. tristim ${command} notebooks/getting-started.md`);
+  if (parsed.positionals.length === 0)
+    throw new UsageError(
+      `${command} needs a notebook file, e.g. tristim ${command} notebooks/getting-started.md`,
+    );
   return {
     files: parsed.positionals,
     help: false,
     options: {
       output: v.output,
       inputs,
-      timeLimitMs: v["time-limit"] === undefined ? undefined : parseTimeLimit(v["time-limit"], "--time-limit"),
+      timeLimitMs:
+        v["time-limit"] === undefined ? undefined : parseTimeLimit(v["time-limit"], "--time-limit"),
       keepGoing: v["keep-going"] === true,
       linkAssets: v["link-assets"] === true,
       quiet: v.quiet === true,
@@ -174,7 +204,8 @@ export function reportPathFor(notebook: string, output: string | undefined, seve
 
 async function runCommand(files: string[], options: CommandOptions, io: Io): Promise<ExitCode> {
   if (options.each) {
-    if (files.length !== 1) throw new UsageError(`--each runs one notebook once per data file; got ${files.length} notebooks`);
+    if (files.length !== 1)
+      throw new UsageError(`--each runs one notebook once per data file; got ${files.length} notebooks`);
     return eachCommand(readNotebook(files[0]!), options.each, options, io);
   }
   let exit: ExitCode = EXIT.ok;
@@ -189,9 +220,15 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     }
   }
   // Check the inputs against every notebook before running any of them.
-  for (const document of documents) resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  for (const document of documents)
+    resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
   const several = files.length > 1;
-  if (several && options.output !== undefined && fs.existsSync(options.output) && !isDirectory(options.output)) {
+  if (
+    several &&
+    options.output !== undefined &&
+    fs.existsSync(options.output) &&
+    !isDirectory(options.output)
+  ) {
     throw new UsageError(`-o ${options.output}: with several notebooks, -o must name a folder`);
   }
   for (const document of documents) {
@@ -206,7 +243,9 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       fs.mkdirSync(path.dirname(target), { recursive: true });
       writeReport(document, run, target, options.linkAssets);
     } catch (e) {
-      io.err(`${shown(document.path)}: the report could not be written to ${shown(target)}: ${(e as Error).message}\n`);
+      io.err(
+        `${shown(document.path)}: the report could not be written to ${shown(target)}: ${(e as Error).message}\n`,
+      );
       exit = EXIT.internal;
       continue;
     }
@@ -216,7 +255,12 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
 }
 
 /** Runs one notebook once per data file; prints a line per run and where the index is. */
-async function eachCommand(document: NotebookDocument, each: EachOption, options: CommandOptions, io: Io): Promise<ExitCode> {
+async function eachCommand(
+  document: NotebookDocument,
+  each: EachOption,
+  options: CommandOptions,
+  io: Io,
+): Promise<ExitCode> {
   resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
   const { exit, index, entries } = await runBatch(document, each, {
     ...options,
@@ -249,9 +293,12 @@ export function printOutcome(
   const checks = checkResults(run);
   const failedChecks = checks.filter((c) => !c.record.passed);
   if (failures.length === 0) {
-    const checkText = checks.length === 0 ? "" : failedChecks.length === 0
-      ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed`
-      : `, ${failedChecks.length} of ${checks.length === 1 ? "1 check" : `${checks.length} checks`} FAILED`;
+    const checkText =
+      checks.length === 0
+        ? ""
+        : failedChecks.length === 0
+          ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed`
+          : `, ${failedChecks.length} of ${checks.length === 1 ? "1 check" : `${checks.length} checks`} FAILED`;
     const line = `${label}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)}${checkText} -> ${shown(target)}\n`;
     if (failedChecks.length === 0) {
       if (!options.quiet) io.out(line);
@@ -262,12 +309,18 @@ export function printOutcome(
     return EXIT.checkFailed;
   }
   const dir = path.dirname(document.path);
-  if (label !== shown(document.path)) io.err(`${label}: ${failures.length === 1 ? "a cell" : `${failures.length} cells`} failed\n`);
+  if (label !== shown(document.path))
+    io.err(`${label}: ${failures.length === 1 ? "a cell" : `${failures.length} cells`} failed\n`);
   for (const cell of failures) {
     const error = cell.outputs.find((o): o is ErrorRecord => o.kind === "error");
     const where = error?.location ? displayLocation(error.location, dir) : shown(document.path);
-    const place = error?.location && error.location.file === document.path ? `${shown(document.path)}:${error.location.line}:${error.location.column}` : where;
-    io.err(`${place}: cell ${cell.index + 1} failed: ${error ? errorTitle(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`);
+    const place =
+      error?.location && error.location.file === document.path
+        ? `${shown(document.path)}:${error.location.line}:${error.location.column}`
+        : where;
+    io.err(
+      `${place}: cell ${cell.index + 1} failed: ${error ? errorTitle(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
+    );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
   if (notRun.length) io.err(`  ${describeCells(notRun)} not run (use --keep-going to run them anyway)\n`);
@@ -291,5 +344,8 @@ export function shown(file: string): string {
 }
 
 function indent(text: string): string {
-  return text.split("\n").map((l) => `  ${l}`).join("\n");
+  return text
+    .split("\n")
+    .map((l) => `  ${l}`)
+    .join("\n");
 }

@@ -4,7 +4,13 @@
  * Lines `line-2 .. line+2` of `text` with line numbers and a caret under `column` (both 1-based), kept within
  * `within` (first and last line, e.g. a cell's code lines) when given.
  */
-export function codeFrame(text: string, line: number, column?: number, context = 2, within?: readonly [number, number]): string {
+export function codeFrame(
+  text: string,
+  line: number,
+  column?: number,
+  context = 2,
+  within?: readonly [number, number],
+): string {
   const lines = text.split(/\r?\n/);
   const inside = within && line >= within[0] && line <= within[1] ? within : undefined;
   const first = Math.max(1, line - context, inside?.[0] ?? 1);
@@ -16,7 +22,10 @@ export function codeFrame(text: string, line: number, column?: number, context =
     const source = (lines[n - 1] ?? "").replace(/\t/g, "  ");
     out.push(`${marker} ${String(n).padStart(width)} | ${source}`.trimEnd());
     if (n === line && column !== undefined && column >= 1) {
-      const before = (lines[n - 1] ?? "").slice(0, column - 1).replace(/\t/g, "  ").replace(/[^\s]/g, " ");
+      const before = (lines[n - 1] ?? "")
+        .slice(0, column - 1)
+        .replace(/\t/g, "  ")
+        .replace(/[^\s]/g, " ");
       out.push(`  ${" ".repeat(width)} | ${before}^`);
     }
   }

@@ -69,7 +69,12 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
     const loc = message.location;
     const line = loc ? cell.firstLine + loc.line - 1 : cell.fenceLine;
     const column = loc ? cell.columnOffset + loc.column + 1 : undefined;
-    return { index: cell.index, filename, sharedNames: [], failure: compileFailure(`syntax error: ${message.text}`, document, line, column) };
+    return {
+      index: cell.index,
+      filename,
+      sharedNames: [],
+      failure: compileFailure(`syntax error: ${message.text}`, document, line, column),
+    };
   }
 
   let hoisted: HoistedCell;
@@ -79,8 +84,16 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
     const offset = e instanceof CellRewriteError ? e.offset : ((e as { pos?: number }).pos ?? 0);
     const at = jsOffsetToCellPosition(js, map, offset);
     const line = cell.firstLine + at.line - 1;
-    const text = e instanceof CellRewriteError ? e.message : `syntax error: ${(e as Error).message.replace(/ \(\d+:\d+\)$/, "")}`;
-    return { index: cell.index, filename, sharedNames: [], failure: compileFailure(text, document, line, cell.columnOffset + at.column) };
+    const text =
+      e instanceof CellRewriteError
+        ? e.message
+        : `syntax error: ${(e as Error).message.replace(/ \(\d+:\d+\)$/, "")}`;
+    return {
+      index: cell.index,
+      filename,
+      sharedNames: [],
+      failure: compileFailure(text, document, line, cell.columnOffset + at.column),
+    };
   }
   const positions: CellPositions = {
     firstLine: cell.firstLine,
@@ -95,10 +108,17 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
   let importedFiles: string[] | undefined;
   if (hoisted.imports.length > 0) {
     importBundle = path.join(context.outDir, `cell-${cell.index + 1}-imports.mjs`);
-    const entry = hoisted.imports.map((imp, i) => `export * as m${i} from ${JSON.stringify(imp.specifier)};`).join("\n");
+    const entry = hoisted.imports
+      .map((imp, i) => `export * as m${i} from ${JSON.stringify(imp.specifier)};`)
+      .join("\n");
     try {
       const built = await esbuild.build({
-        stdin: { contents: entry, resolveDir: path.dirname(document.path), sourcefile: IMPORTS_ENTRY, loader: "js" },
+        stdin: {
+          contents: entry,
+          resolveDir: path.dirname(document.path),
+          sourcefile: IMPORTS_ENTRY,
+          loader: "js",
+        },
         bundle: true,
         platform: "node",
         format: "esm",
@@ -111,7 +131,13 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
         metafile: true,
       });
       importedFiles = Object.keys(built.metafile?.inputs ?? {})
-        .filter((f) => f !== "<stdin>" && !f.includes(IMPORTS_ENTRY) && !/(^|[/\\])node_modules[/\\]/.test(f) && !f.includes(":"))
+        .filter(
+          (f) =>
+            f !== "<stdin>" &&
+            !f.includes(IMPORTS_ENTRY) &&
+            !/(^|[/\\])node_modules[/\\]/.test(f) &&
+            !f.includes(":"),
+        )
         .map((f) => path.resolve(f));
     } catch (e) {
       const message = (e as esbuild.BuildFailure).errors?.[0];
@@ -144,28 +170,39 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
     }
   }
   return {
-    index: cell.index, code: hoisted.code, filename, importBundle, sharedNames: hoisted.sharedNames, positions,
+    index: cell.index,
+    code: hoisted.code,
+    filename,
+    importBundle,
+    sharedNames: hoisted.sharedNames,
+    positions,
     ...(importedFiles?.length ? { importedFiles } : {}),
   };
 }
 
 /** Compiles every cell to run, all at once (esbuild works on them in parallel); `no-run` cells give undefined. */
 export function compileCells(context: CompileContext): Promise<(CompiledCell | undefined)[]> {
-  return Promise.all(context.document.cells.map((c) => (c.options.noRun ? undefined : compileCell(c, context))));
+  return Promise.all(
+    context.document.cells.map((c) => (c.options.noRun ? undefined : compileCell(c, context))),
+  );
 }
 
 /** Name of the generated entry file that re-exports a cell's imports (never shown to the user). */
 const IMPORTS_ENTRY = "__tristim_cell_imports__.js";
 
 /** Lets CommonJS packages call require() from the ESM bundle. */
-export const BANNER = 'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);';
+export const BANNER =
+  'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);';
 
 /** Resolves "tristim" to the run's library module, kept external so all cells share one instance. */
 export function tristimExternal(modulePath: string): esbuild.Plugin {
   return {
     name: "tristim-external",
     setup(build) {
-      build.onResolve({ filter: /^tristim$/ }, () => ({ path: pathToFileURL(modulePath).href, external: true }));
+      build.onResolve({ filter: /^tristim$/ }, () => ({
+        path: pathToFileURL(modulePath).href,
+        external: true,
+      }));
     },
   };
 }
@@ -175,10 +212,18 @@ function importHint(text: string): string {
   if (!m) return "";
   const spec = m[1]!;
   if (spec.startsWith(".")) return ` (relative imports are resolved from the notebook's folder)`;
-  return ` (install it in the notebook's folder or a parent: npm install ${spec.split("/").slice(0, spec.startsWith("@") ? 2 : 1).join("/")})`;
+  return ` (install it in the notebook's folder or a parent: npm install ${spec
+    .split("/")
+    .slice(0, spec.startsWith("@") ? 2 : 1)
+    .join("/")})`;
 }
 
-function compileFailure(message: string, document: NotebookDocument, line: number, column: number | undefined): ErrorRecord {
+function compileFailure(
+  message: string,
+  document: NotebookDocument,
+  line: number,
+  column: number | undefined,
+): ErrorRecord {
   return {
     kind: "error",
     failure: "compile",

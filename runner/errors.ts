@@ -18,7 +18,10 @@ export class NotebookError extends Error {
 
   /** "notebooks/x.md:12:3: message" as printed on the terminal. */
   where(displayPath: string): string {
-    const place = this.line === undefined ? displayPath : `${displayPath}:${this.line}${this.column === undefined ? "" : `:${this.column}`}`;
+    const place =
+      this.line === undefined
+        ? displayPath
+        : `${displayPath}:${this.line}${this.column === undefined ? "" : `:${this.column}`}`;
     return `${place}: ${this.message}`;
   }
 }

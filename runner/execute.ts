@@ -52,7 +52,8 @@ export async function executeCells(
   const noteMethods = (notes: readonly MethodRecord[]) => {
     for (const m of notes) {
       const key = `${m.topic}\0${m.statement}`;
-      if (!methodKeys.has(key)) (methodKeys.add(key), methods.push({ topic: m.topic, statement: m.statement }));
+      if (!methodKeys.has(key))
+        (methodKeys.add(key), methods.push({ topic: m.topic, statement: m.statement }));
     }
   };
   const onOutput = (cell: number, records: readonly OutputRecord[]) => outputs[cell]?.push(...records);
@@ -67,7 +68,14 @@ export async function executeCells(
   const fail = (index: number, error: ErrorRecord, durationMs?: number, reads: readonly string[] = []) => {
     const allowed = document.cells[index]!.options.mayFail;
     outputs[index]!.push(error);
-    finishCell({ index, status: "failed", outputs: outputs[index]!, durationMs, reads, ...(allowed ? { failureAllowed: true } : {}) });
+    finishCell({
+      index,
+      status: "failed",
+      outputs: outputs[index]!,
+      durationMs,
+      reads,
+      ...(allowed ? { failureAllowed: true } : {}),
+    });
     if (!allowed && !options.keepGoing) stopped = `cell ${index + 1} failed`;
   };
 
@@ -83,7 +91,10 @@ export async function executeCells(
     }
     const unit = compiled[index];
     if (!unit?.code || unit.failure) {
-      fail(index, unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, document));
+      fail(
+        index,
+        unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, document),
+      );
       continue;
     }
     if (!process?.alive) {
@@ -98,7 +109,12 @@ export async function executeCells(
         process.onOutput = onOutput;
       } catch (e) {
         if (!(e instanceof CellProcessStartError)) throw e;
-        const error = mapError({ ...e.error, failure: "startup", message: `the cell process could not start: ${e.error.message}` }, index, document, compiled);
+        const error = mapError(
+          { ...e.error, failure: "startup", message: `the cell process could not start: ${e.error.message}` },
+          index,
+          document,
+          compiled,
+        );
         outputs[index]!.push(error);
         finishCell({ index, status: "failed", outputs: outputs[index]!, reads: [] });
         stopped = "the cell process could not start";
@@ -113,20 +129,45 @@ export async function executeCells(
     );
     lastRan = index;
     if (outcome.kind === "time-limit") {
-      const how = cell.options.timeLimitMs === undefined
-        ? `the run's time limit of ${formatTimeLimit(limit)} (raise it with --time-limit, or with time-limit=… on this cell's fence line)`
-        : `its time limit of ${formatTimeLimit(limit)} (set by time-limit=… on its fence line)`;
+      const how =
+        cell.options.timeLimitMs === undefined
+          ? `the run's time limit of ${formatTimeLimit(limit)} (raise it with --time-limit, or with time-limit=… on this cell's fence line)`
+          : `its time limit of ${formatTimeLimit(limit)} (set by time-limit=… on its fence line)`;
       methodGaps.push(index);
-      fail(index, cellLevelError("time-limit", `cell ${index + 1} did not finish within ${how}; it was stopped`, index, document), outcome.durationMs);
+      fail(
+        index,
+        cellLevelError(
+          "time-limit",
+          `cell ${index + 1} did not finish within ${how}; it was stopped`,
+          index,
+          document,
+        ),
+        outcome.durationMs,
+      );
     } else if (outcome.kind === "crash") {
       methodGaps.push(index);
-      fail(index, cellLevelError("crash", `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`, index, document), outcome.durationMs);
+      fail(
+        index,
+        cellLevelError(
+          "crash",
+          `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`,
+          index,
+          document,
+        ),
+        outcome.durationMs,
+      );
     } else if (outcome.error) {
       noteMethods(outcome.methods);
       fail(index, mapError(outcome.error, index, document, compiled), outcome.durationMs, outcome.reads);
     } else {
       noteMethods(outcome.methods);
-      finishCell({ index, status: "ok", outputs: outputs[index]!, durationMs: outcome.durationMs, reads: outcome.reads });
+      finishCell({
+        index,
+        status: "ok",
+        outputs: outputs[index]!,
+        durationMs: outcome.durationMs,
+        reads: outcome.reads,
+      });
     }
   }
 
@@ -143,5 +184,10 @@ export async function executeCells(
     }
   }
   process?.kill();
-  return { cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }), methods, methodGaps, events };
+  return {
+    cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }),
+    methods,
+    methodGaps,
+    events,
+  };
 }

@@ -18,7 +18,13 @@ export const EXIT = {
 export type ExitCode = (typeof EXIT)[keyof typeof EXIT];
 
 /** Exit codes from least to most severe: a failed cell outranks a failed check, and the runner's own failure both. */
-const SEVERITY: readonly ExitCode[] = [EXIT.ok, EXIT.checkFailed, EXIT.notebookFailed, EXIT.usage, EXIT.internal];
+const SEVERITY: readonly ExitCode[] = [
+  EXIT.ok,
+  EXIT.checkFailed,
+  EXIT.notebookFailed,
+  EXIT.usage,
+  EXIT.internal,
+];
 
 /** The more severe of two exit codes (for several notebooks or a batch: the worst over the runs). */
 export function worseExit(a: ExitCode, b: ExitCode): ExitCode {

@@ -15,20 +15,28 @@ function isWild(part: string): boolean {
 
 /** A path part with `*` and `?` as a regular expression. */
 function partRegExp(part: string): RegExp {
-  const body = part.replace(/[.+^${}()|[\]\\]/g, "\\$&").replace(/\*/g, "[^/]*").replace(/\?/g, "[^/]");
+  const body = part
+    .replace(/[.+^${}()|[\]\\]/g, "\\$&")
+    .replace(/\*/g, "[^/]*")
+    .replace(/\?/g, "[^/]");
   return new RegExp(`^${body}$`);
 }
 
 /** The files a pattern names, relative to `cwd`, sorted; throws a UsageError when there are none. */
 export function expandFilePattern(pattern: string, cwd: string, what: string): string[] {
-  if (pattern.trim() === "") throw new UsageError(`${what}: the pattern is empty; give a folder, a file or a pattern like data/*.csv`);
+  if (pattern.trim() === "")
+    throw new UsageError(`${what}: the pattern is empty; give a folder, a file or a pattern like data/*.csv`);
   const absolute = path.resolve(cwd, pattern);
   let files: string[];
   if (!isWild(pattern)) {
     const stat = statOrUndefined(absolute);
     if (!stat) throw new UsageError(`${what}: ${pattern}: no such file or folder (relative to ${cwd})`);
     files = stat.isDirectory()
-      ? fs.readdirSync(absolute).filter((n) => !n.startsWith(".")).map((n) => path.join(absolute, n)).filter(isFile)
+      ? fs
+          .readdirSync(absolute)
+          .filter((n) => !n.startsWith("."))
+          .map((n) => path.join(absolute, n))
+          .filter(isFile)
       : [absolute];
   } else {
     const parts = absolute.split(path.sep);
@@ -47,7 +55,9 @@ function walk(dir: string, parts: readonly string[]): string[] {
   if (part === "**") {
     // Zero folders, or one more folder and ** again.
     const here = walk(dir, rest);
-    const deeper = listDir(dir).filter((n) => !n.startsWith(".") && isDirectory(path.join(dir, n))).flatMap((n) => walk(path.join(dir, n), parts));
+    const deeper = listDir(dir)
+      .filter((n) => !n.startsWith(".") && isDirectory(path.join(dir, n)))
+      .flatMap((n) => walk(path.join(dir, n), parts));
     return [...here, ...deeper];
   }
   if (!isWild(part)) return walk(path.join(dir, part), rest);
@@ -85,12 +95,21 @@ function isDirectory(p: string): boolean {
  * A report file name for each data file, named after it: "lot-114.html" for lot-114.csv; the full file name
  * ("lot-114.cgats.txt.html") or the path relative to `base` when two would clash, and never "index.html".
  */
-export function reportNamesFor(files: readonly string[], base: string, reserved = "index"): Map<string, string> {
+export function reportNamesFor(
+  files: readonly string[],
+  base: string,
+  reserved = "index",
+): Map<string, string> {
   const stem = (f: string) => path.basename(f).replace(/\.[^.]*$/, "") || path.basename(f);
   const candidates: ((f: string) => string)[] = [
     stem,
     (f) => path.basename(f),
-    (f) => path.relative(base, f).split(path.sep).filter((p) => p !== "..").join("_"),
+    (f) =>
+      path
+        .relative(base, f)
+        .split(path.sep)
+        .filter((p) => p !== "..")
+        .join("_"),
   ];
   const names = new Map<string, string>();
   const taken = new Set<string>([reserved.toLowerCase()]);
@@ -98,7 +117,9 @@ export function reportNamesFor(files: readonly string[], base: string, reserved 
     let name: string | undefined;
     for (const candidate of candidates) {
       const c = candidate(file);
-      const clash = files.some((other) => other !== file && candidate(other).toLowerCase() === c.toLowerCase());
+      const clash = files.some(
+        (other) => other !== file && candidate(other).toLowerCase() === c.toLowerCase(),
+      );
       if (!clash && !taken.has(c.toLowerCase())) {
         name = c;
         break;

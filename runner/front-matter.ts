@@ -13,7 +13,11 @@ export function splitFrontMatter(text: string, file: string): { yaml: string | n
   if (lines[0]?.replace(/\r$/, "") !== "---") return { yaml: null, body: text };
   const end = lines.findIndex((l, i) => i > 0 && /^(---|\.\.\.)\s*$/.test(l.replace(/\r$/, "")));
   if (end < 0) {
-    throw new NotebookError("the front matter that starts with --- on line 1 is never closed; end it with a line holding only ---", file, 1);
+    throw new NotebookError(
+      "the front matter that starts with --- on line 1 is never closed; end it with a line holding only ---",
+      file,
+      1,
+    );
   }
   return {
     yaml: lines.slice(1, end).join("\n"),
@@ -29,11 +33,20 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
     const error = doc.errors[0]!;
     const line = error.linePos?.[0]?.line;
     const message = error.message.split("\n")[0]!.replace(/ at line \d+, column \d+:?$/, "");
-    throw new NotebookError(`invalid front matter: ${message}`, file, line === undefined ? 1 : line + 1, error.linePos?.[0]?.col);
+    throw new NotebookError(
+      `invalid front matter: ${message}`,
+      file,
+      line === undefined ? 1 : line + 1,
+      error.linePos?.[0]?.col,
+    );
   }
   const data: unknown = doc.toJS();
   if (data === null || typeof data !== "object" || Array.isArray(data)) {
-    throw new NotebookError("invalid front matter: expected keys such as title:, author:, date: and inputs:", file, 2);
+    throw new NotebookError(
+      "invalid front matter: expected keys such as title:, author:, date: and inputs:",
+      file,
+      2,
+    );
   }
   const record = data as Record<string, unknown>;
   for (const key of Object.keys(record)) {
@@ -50,22 +63,39 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
     if (v === undefined || v === null) return undefined;
     if (typeof v === "string" || typeof v === "number") return String(v);
     if (v instanceof Date) return v.toISOString().slice(0, 10);
-    throw new NotebookError(`invalid front matter: ${key} must be a single line of text`, file, lineOfKey(yamlText, key));
+    throw new NotebookError(
+      `invalid front matter: ${key} must be a single line of text`,
+      file,
+      lineOfKey(yamlText, key),
+    );
   };
-  return { title: text("title"), author: text("author"), date: text("date"), inputs: parseInputs(record.inputs, yamlText, file) };
+  return {
+    title: text("title"),
+    author: text("author"),
+    date: text("date"),
+    inputs: parseInputs(record.inputs, yamlText, file),
+  };
 }
 
 function parseInputs(value: unknown, yamlText: string, file: string): Record<string, InputValue> {
   if (value === undefined || value === null) return {};
   const line = lineOfKey(yamlText, "inputs");
   if (typeof value !== "object" || Array.isArray(value)) {
-    throw new NotebookError("invalid front matter: inputs must map each input name to its default value", file, line);
+    throw new NotebookError(
+      "invalid front matter: inputs must map each input name to its default value",
+      file,
+      line,
+    );
   }
   const out: Record<string, InputValue> = {};
   for (const [name, def] of Object.entries(value as Record<string, unknown>)) {
     const where = lineOfKey(yamlText, name) ?? line;
     if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(name)) {
-      throw new NotebookError(`invalid front matter: input name "${name}" must be a plain identifier (letters, digits, _)`, file, where);
+      throw new NotebookError(
+        `invalid front matter: input name "${name}" must be a plain identifier (letters, digits, _)`,
+        file,
+        where,
+      );
     }
     out[name] = checkInputValue(def, name, file, where);
   }
@@ -74,14 +104,21 @@ function parseInputs(value: unknown, yamlText: string, file: string): Record<str
 
 function checkInputValue(value: unknown, name: string, file: string, line: number | undefined): InputValue {
   if (typeof value === "number") {
-    if (!Number.isFinite(value)) throw new NotebookError(`invalid front matter: input "${name}" has the default ${value}; use a finite number`, file, line);
+    if (!Number.isFinite(value))
+      throw new NotebookError(
+        `invalid front matter: input "${name}" has the default ${value}; use a finite number`,
+        file,
+        line,
+      );
     return value;
   }
   if (typeof value === "string" || typeof value === "boolean") return value;
   if (value instanceof Date) return value.toISOString().slice(0, 10);
   if (Array.isArray(value)) return value.map((v) => checkInputValue(v, name, file, line));
   if (value !== null && typeof value === "object") {
-    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, checkInputValue(v, name, file, line)]));
+    return Object.fromEntries(
+      Object.entries(value).map(([k, v]) => [k, checkInputValue(v, name, file, line)]),
+    );
   }
   throw new NotebookError(
     `invalid front matter: input "${name}" needs a default value (a number, text, true/false or a list); its type is taken from it`,
@@ -92,6 +129,10 @@ function checkInputValue(value: unknown, name: string, file: string, line: numbe
 
 /** 1-based notebook line of a YAML key (the front matter starts on line 2 of the file). */
 function lineOfKey(yamlText: string, key: string): number | undefined {
-  const i = yamlText.split("\n").findIndex((l) => new RegExp(`^\\s*["']?${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}["']?\\s*:`).test(l));
+  const i = yamlText
+    .split("\n")
+    .findIndex((l) =>
+      new RegExp(`^\\s*["']?${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}["']?\\s*:`).test(l),
+    );
   return i < 0 ? undefined : i + 2;
 }

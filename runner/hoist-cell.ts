@@ -80,7 +80,10 @@ export function hoistCell(js: string): HoistedCell {
       edits.push({ start: node.start, end: (node.declaration as AnyNode).start, text: "" });
       node = node.declaration as AnyNode;
     } else if (node.type.startsWith("Export")) {
-      throw new CellRewriteError("a cell cannot export; its top-level declarations are shared with later cells already", node.start);
+      throw new CellRewriteError(
+        "a cell cannot export; its top-level declarations are shared with later cells already",
+        node.start,
+      );
     }
     switch (node.type) {
       case "ImportDeclaration":
@@ -88,7 +91,8 @@ export function hoistCell(js: string): HoistedCell {
         for (const s of node.specifiers as AnyNode[]) shared.add((s.local as AnyNode).name as string);
         break;
       case "VariableDeclaration":
-        for (const d of node.declarations as AnyNode[]) for (const name of patternNames(d.id as AnyNode)) linked.add(name);
+        for (const d of node.declarations as AnyNode[])
+          for (const name of patternNames(d.id as AnyNode)) linked.add(name);
         break;
       case "FunctionDeclaration":
       case "ClassDeclaration":
@@ -107,8 +111,10 @@ export function hoistCell(js: string): HoistedCell {
   });
 
   visit(program as unknown as AnyNode, (n) => {
-    if (n.type === "ImportExpression") edits.push({ start: n.start, end: n.start + "import".length, text: `${R}.dynamicImport` });
-    if (n.type === "MetaProperty" && (n.meta as AnyNode).name === "import") edits.push({ start: n.start, end: n.end, text: `${R}.meta` });
+    if (n.type === "ImportExpression")
+      edits.push({ start: n.start, end: n.start + "import".length, text: `${R}.dynamicImport` });
+    if (n.type === "MetaProperty" && (n.meta as AnyNode).name === "import")
+      edits.push({ start: n.start, end: n.end, text: `${R}.meta` });
   });
 
   for (const name of linked) shared.delete(name);
@@ -155,7 +161,8 @@ export function patternNames(pattern: AnyNode): string[] {
       return [pattern.name as string];
     case "ObjectPattern":
       return (pattern.properties as AnyNode[]).flatMap((p) =>
-        p.type === "RestElement" ? patternNames(p.argument as AnyNode) : patternNames(p.value as AnyNode));
+        p.type === "RestElement" ? patternNames(p.argument as AnyNode) : patternNames(p.value as AnyNode),
+      );
     case "ArrayPattern":
       return (pattern.elements as (AnyNode | null)[]).flatMap((e) => (e ? patternNames(e) : []));
     case "RestElement":
@@ -173,7 +180,8 @@ function visit(node: AnyNode, fn: (n: AnyNode) => void): void {
     if (key === "loc" || key === "range") continue;
     const value = node[key];
     if (Array.isArray(value)) {
-      for (const v of value) if (v && typeof v === "object" && typeof (v as AnyNode).type === "string") visit(v as AnyNode, fn);
+      for (const v of value)
+        if (v && typeof v === "object" && typeof (v as AnyNode).type === "string") visit(v as AnyNode, fn);
     } else if (value && typeof value === "object" && typeof (value as AnyNode).type === "string") {
       visit(value as AnyNode, fn);
     }
@@ -192,8 +200,12 @@ function isCheckCall(expression: AnyNode): boolean {
 }
 
 /** Applies non-overlapping edits; returns the text and the anchors of unchanged spans (offsets shifted by `base`). */
-function applyEdits(js: string, edits: Edit[], base: number): { text: string; anchors: [number, number, number][] } {
-  const sorted = [...edits].sort((a, b) => a.start - b.start || (a.end - a.start) - (b.end - b.start));
+function applyEdits(
+  js: string,
+  edits: Edit[],
+  base: number,
+): { text: string; anchors: [number, number, number][] } {
+  const sorted = [...edits].sort((a, b) => a.start - b.start || a.end - a.start - (b.end - b.start));
   const anchors: [number, number, number][] = [];
   let out = "";
   let at = 0;

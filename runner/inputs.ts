@@ -33,7 +33,10 @@ export function resolveInputs(
 }
 
 function convert(text: string, def: InputValue, name: string): InputValue {
-  const bad = (what: string) => new UsageError(`--input ${name}=${text}: input "${name}" takes ${what} (its default is ${JSON.stringify(def)})`);
+  const bad = (what: string) =>
+    new UsageError(
+      `--input ${name}=${text}: input "${name}" takes ${what} (its default is ${JSON.stringify(def)})`,
+    );
   if (typeof def === "number") {
     const n = text.trim() === "" ? NaN : Number(text);
     if (!Number.isFinite(n)) throw bad("a number");
@@ -49,10 +52,10 @@ function convert(text: string, def: InputValue, name: string): InputValue {
   try {
     parsed = JSON.parse(text);
   } catch {
-    throw bad(Array.isArray(def) ? "a JSON list, e.g. [1, 2, 3]" : "a JSON mapping, e.g. {\"a\": 1}");
+    throw bad(Array.isArray(def) ? "a JSON list, e.g. [1, 2, 3]" : 'a JSON mapping, e.g. {"a": 1}');
   }
   if (Array.isArray(def) !== Array.isArray(parsed) || typeof parsed !== "object" || parsed === null) {
-    throw bad(Array.isArray(def) ? "a JSON list, e.g. [1, 2, 3]" : "a JSON mapping, e.g. {\"a\": 1}");
+    throw bad(Array.isArray(def) ? "a JSON list, e.g. [1, 2, 3]" : 'a JSON mapping, e.g. {"a": 1}');
   }
   return parsed as InputValue;
 }

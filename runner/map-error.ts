@@ -27,7 +27,9 @@ export function mapError(
 ): ErrorRecord {
   const frames = raw.stack ? parseFrames(raw.stack, document, compiled) : [];
   const cell = document.cells[cellIndex]!;
-  const inCell = frames.find((f) => f.file === document.path && f.line >= cell.firstLine) ?? frames.find((f) => f.file === document.path);
+  const inCell =
+    frames.find((f) => f.file === document.path && f.line >= cell.firstLine) ??
+    frames.find((f) => f.file === document.path);
   const location = inCell ?? frames[0];
   const record: { -readonly [K in keyof ErrorRecord]: ErrorRecord[K] } = {
     kind: "error",
@@ -56,14 +58,31 @@ export function cellLines(document: NotebookDocument, line: number): [number, nu
 }
 
 /** An error record for a failure that has no stack (time limit, crash), placed at the cell's fence line. */
-export function cellLevelError(failure: ErrorRecord["failure"], message: string, cellIndex: number, document: NotebookDocument): ErrorRecord {
+export function cellLevelError(
+  failure: ErrorRecord["failure"],
+  message: string,
+  cellIndex: number,
+  document: NotebookDocument,
+): ErrorRecord {
   const cell = document.cells[cellIndex];
   const line = cell?.fenceLine ?? 1;
-  const frame = cell ? codeFrame(document.text, cell.firstLine, undefined, 2, cellLines(document, cell.firstLine)) : codeFrame(document.text, line);
-  return { kind: "error", failure, message, location: { file: document.path, line, column: 1 }, codeFrame: frame };
+  const frame = cell
+    ? codeFrame(document.text, cell.firstLine, undefined, 2, cellLines(document, cell.firstLine))
+    : codeFrame(document.text, line);
+  return {
+    kind: "error",
+    failure,
+    message,
+    location: { file: document.path, line, column: 1 },
+    codeFrame: frame,
+  };
 }
 
-function parseFrames(stack: string, document: NotebookDocument, compiled: readonly (CompiledCell | undefined)[]): StackFrameRecord[] {
+function parseFrames(
+  stack: string,
+  document: NotebookDocument,
+  compiled: readonly (CompiledCell | undefined)[],
+): StackFrameRecord[] {
   const frames: StackFrameRecord[] = [];
   for (const line of stack.split("\n")) {
     const m = FRAME.exec(line);
@@ -80,7 +99,13 @@ function parseFrames(stack: string, document: NotebookDocument, compiled: readon
       frames.push(withFunction({ file: document.path, line: at.line, column: at.column }, fn, true));
       continue;
     }
-    if (file.startsWith("node:") || file === "native" || file.startsWith("internal/") || file.startsWith("evalmachine")) continue;
+    if (
+      file.startsWith("node:") ||
+      file === "native" ||
+      file.startsWith("internal/") ||
+      file.startsWith("evalmachine")
+    )
+      continue;
     const absolute = file.startsWith("file://") ? fileURLToPath(file) : file;
     const mapped = mapThroughSourceMap(absolute, lineNo, column);
     if (mapped === "internal") continue;
@@ -90,14 +115,19 @@ function parseFrames(stack: string, document: NotebookDocument, compiled: readon
 }
 
 function withFunction(frame: StackFrameRecord, fn: string | undefined, inCell: boolean): StackFrameRecord {
-  if (!fn || fn === "<anonymous>" || (inCell && /^(Object\.)?<anonymous>$|^__tristimCell/.test(fn))) return frame;
+  if (!fn || fn === "<anonymous>" || (inCell && /^(Object\.)?<anonymous>$|^__tristimCell/.test(fn)))
+    return frame;
   return { ...frame, function: fn };
 }
 
 const maps = new Map<string, SourceMap | null>();
 
 /** Maps a frame in a bundle to its original source; "internal" for the runner's own cells/ code. */
-function mapThroughSourceMap(file: string, line: number, column: number): StackFrameRecord | "internal" | undefined {
+function mapThroughSourceMap(
+  file: string,
+  line: number,
+  column: number,
+): StackFrameRecord | "internal" | undefined {
   if (!file.endsWith(".mjs")) return undefined;
   let map = maps.get(file);
   if (map === undefined) {
@@ -109,7 +139,11 @@ function mapThroughSourceMap(file: string, line: number, column: number): StackF
     maps.set(file, map);
   }
   if (!map) return undefined;
-  const entry = map.findEntry(line - 1, column - 1) as { originalSource?: string; originalLine?: number; originalColumn?: number };
+  const entry = map.findEntry(line - 1, column - 1) as {
+    originalSource?: string;
+    originalLine?: number;
+    originalColumn?: number;
+  };
   if (!entry.originalSource || entry.originalLine === undefined) return undefined;
   const source = entry.originalSource.startsWith("file://")
     ? fileURLToPath(entry.originalSource)

@@ -33,12 +33,17 @@ export function readNotebook(file: string): NotebookDocument {
     if (code === "EISDIR") throw new NotebookError("this is a folder, not a notebook file", file);
     throw new NotebookError(`cannot read the file (${code ?? String(e)})`, file);
   }
-  if (bytes.includes(0)) throw new NotebookError("not a notebook: the file holds binary data, not Markdown text", file);
+  if (bytes.includes(0))
+    throw new NotebookError("not a notebook: the file holds binary data, not Markdown text", file);
   return parseNotebook(bytes.toString("utf8"), absolute, createHash("sha256").update(bytes).digest("hex"));
 }
 
 /** Parses notebook text (already read) into a document. */
-export function parseNotebook(text: string, file: string, sha256 = createHash("sha256").update(text).digest("hex")): NotebookDocument {
+export function parseNotebook(
+  text: string,
+  file: string,
+  sha256 = createHash("sha256").update(text).digest("hex"),
+): NotebookDocument {
   const source = text.startsWith("\uFEFF") ? text.slice(1) : text;
   const { yaml, body } = splitFrontMatter(source, file);
   const frontMatter = parseFrontMatter(yaml, file);
@@ -67,10 +72,21 @@ export function parseNotebook(text: string, file: string, sha256 = createHash("s
 }
 
 /** Throws when the fence that opens on line `start` runs to the end of its container without a closing fence. */
-function checkClosed(lines: string[], start: number, end: number, markup: string, file: string, text: string): void {
+function checkClosed(
+  lines: string[],
+  start: number,
+  end: number,
+  markup: string,
+  file: string,
+  text: string,
+): void {
   const last = end - 1;
   const closing = (lines[last] ?? "").replace(/^[\s>]*/, "").trimEnd();
-  const ok = last > start && closing.length >= markup.length && closing === closing[0]!.repeat(closing.length) && closing[0] === markup[0];
+  const ok =
+    last > start &&
+    closing.length >= markup.length &&
+    closing === closing[0]!.repeat(closing.length) &&
+    closing[0] === markup[0];
   if (!ok) {
     throw new NotebookError(
       `the code fence opened here is never closed; add a line with ${markup} after the code`,

@@ -10,11 +10,19 @@ export const ASSETS_FOLDER = "tristim-assets";
 
 /** The default report path of a notebook: beside it, same name, .html. */
 export function defaultReportPath(notebook: string): string {
-  return path.join(path.dirname(notebook), `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}.html`);
+  return path.join(
+    path.dirname(notebook),
+    `${path.basename(notebook).replace(/\.(md|markdown)$/i, "")}.html`,
+  );
 }
 
 /** Renders and writes the report of a run; returns the HTML written. */
-export function writeReport(document: NotebookDocument, run: RunRecord, file: string, linkAssets = false): string {
+export function writeReport(
+  document: NotebookDocument,
+  run: RunRecord,
+  file: string,
+  linkAssets = false,
+): string {
   if (linkAssets) writeSharedAssets(path.join(path.dirname(file), ASSETS_FOLDER));
   const html = renderReport(document, run, linkAssets ? { assetsHref: ASSETS_FOLDER } : {});
   writeFileAtomic(file, html);

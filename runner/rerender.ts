@@ -10,22 +10,34 @@ import type { NotebookDocument } from "./notebook.ts";
 import type { RunRecord } from "./run-record.ts";
 
 /** The record of `run` (made from `before`) adjusted to the edited document `after`, which has the same cells. */
-export function moveRecordsToEdit(run: RunRecord, before: NotebookDocument, after: NotebookDocument): RunRecord {
+export function moveRecordsToEdit(
+  run: RunRecord,
+  before: NotebookDocument,
+  after: NotebookDocument,
+): RunRecord {
   const shift = (line: number): number => {
     for (const cell of before.cells) {
       const last = cell.firstLine + cell.code.split("\n").length;
-      if (line >= cell.fenceLine && line <= last) return line + (after.cells[cell.index]!.firstLine - cell.firstLine);
+      if (line >= cell.fenceLine && line <= last)
+        return line + (after.cells[cell.index]!.firstLine - cell.firstLine);
     }
     return line;
   };
-  const moveFrame = (f: StackFrameRecord): StackFrameRecord => (f.file === before.path ? { ...f, line: shift(f.line) } : f);
+  const moveFrame = (f: StackFrameRecord): StackFrameRecord =>
+    f.file === before.path ? { ...f, line: shift(f.line) } : f;
   const moveOutput = (o: OutputRecord): OutputRecord => {
     if (o.kind !== "error" || !o.location || o.location.file !== before.path) return o;
     const line = shift(o.location.line);
     const moved: ErrorRecord = {
       ...o,
       location: { ...o.location, line },
-      codeFrame: codeFrame(after.text, line, o.location.column > 1 ? o.location.column : undefined, 2, cellLines(after, line)),
+      codeFrame: codeFrame(
+        after.text,
+        line,
+        o.location.column > 1 ? o.location.column : undefined,
+        2,
+        cellLines(after, line),
+      ),
       ...(o.stack ? { stack: o.stack.map(moveFrame) } : {}),
     };
     return moved;

@@ -38,7 +38,11 @@ export interface RunOptions {
 export async function runDocument(document: NotebookDocument, options: RunOptions = {}): Promise<RunRecord> {
   const started = performance.now();
   const startedAt = new Date().toISOString();
-  const { inputs, set } = resolveInputs(document.frontMatter.inputs, options.inputs ?? {}, path.basename(document.path));
+  const { inputs, set } = resolveInputs(
+    document.frontMatter.inputs,
+    options.inputs ?? {},
+    path.basename(document.path),
+  );
   const timeLimitMs = options.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS;
   const keepGoing = options.keepGoing ?? false;
   const runtime = await runtimeBundle();
@@ -81,7 +85,10 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       ...(options.batch ? { batch: options.batch } : {}),
     };
   } finally {
-    void early?.then((p) => p.kill(), () => undefined);
+    void early?.then(
+      (p) => p.kill(),
+      () => undefined,
+    );
     fs.rmSync(outDir, { recursive: true, force: true });
   }
 }
@@ -97,8 +104,15 @@ export function runSignature(
   timeLimitMs: number,
   keepGoing: boolean,
 ): string {
-  const cells = document.cells.map((c) => [c.code, c.options.noRun, c.options.mayFail, c.options.timeLimitMs ?? null]);
-  return createHash("sha256").update(JSON.stringify({ cells, inputs, timeLimitMs, keepGoing, path: document.path })).digest("hex");
+  const cells = document.cells.map((c) => [
+    c.code,
+    c.options.noRun,
+    c.options.mayFail,
+    c.options.timeLimitMs ?? null,
+  ]);
+  return createHash("sha256")
+    .update(JSON.stringify({ cells, inputs, timeLimitMs, keepGoing, path: document.path }))
+    .digest("hex");
 }
 
 /** The files the cells read or imported, each with its SHA-256 now and the cells that used it. */
@@ -111,7 +125,8 @@ function filesRead(cells: readonly CellRun[], compiled: readonly (CompiledCell |
     byPath.set(file, entry);
   };
   for (const cell of cells) {
-    for (const file of compiled[cell.index]?.importedFiles ?? []) if (cell.status !== "listing") add(file, cell.index, false);
+    for (const file of compiled[cell.index]?.importedFiles ?? [])
+      if (cell.status !== "listing") add(file, cell.index, false);
     for (const file of cell.reads) add(file, cell.index, true);
   }
   return [...byPath.entries()].map(([file, { cells: readers, read }]) => {
@@ -119,7 +134,12 @@ function filesRead(cells: readonly CellRun[], compiled: readonly (CompiledCell |
     try {
       const stat = fs.statSync(file);
       if (!stat.isFile()) return { path: file, cells: readers, ...imported };
-      return { path: file, sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"), cells: readers, ...imported };
+      return {
+        path: file,
+        sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"),
+        cells: readers,
+        ...imported,
+      };
     } catch {
       return { path: file, cells: readers, ...imported };
     }

@@ -65,7 +65,9 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
     fs.rmSync(temporary, { recursive: true, force: true });
     const errors = (e as esbuild.BuildFailure).errors ?? [];
     const first = errors[0];
-    const where = first?.location ? `${first.location.file}:${first.location.line}:${first.location.column + 1}: ` : "";
+    const where = first?.location
+      ? `${first.location.file}:${first.location.line}:${first.location.column + 1}: `
+      : "";
     throw new RuntimeBuildError(
       `the standard library (lib/) or the cell harness (cells/) could not be bundled: ${where}${first?.text ?? String(e)}` +
         (errors.length > 1 ? ` (and ${errors.length - 1} more)` : ""),

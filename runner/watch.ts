@@ -28,7 +28,10 @@ export const DEFAULT_PORT = 4178;
 export const EVENTS_PATH = "/__tristim/events";
 
 /** Options of watch mode: the run options that apply to it, plus where to print and how long to wait. */
-export type WatchOptions = Pick<CommandOptions, "port" | "output" | "inputs" | "timeLimitMs" | "keepGoing" | "linkAssets" | "quiet"> & {
+export type WatchOptions = Pick<
+  CommandOptions,
+  "port" | "output" | "inputs" | "timeLimitMs" | "keepGoing" | "linkAssets" | "quiet"
+> & {
   readonly io?: Io;
   /** Wait this long after a change before rebuilding (editors write in several steps). */
   readonly debounceMs?: number;
@@ -116,12 +119,15 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
         continue;
       }
       try {
-        const entry = { names, watcher: fs.watch(dir, (_event, name) => {
-          if (name !== null && !entry.names.has(name.toString())) return;
-          // A change to anything but the notebook itself is a change of data: the cells must run again.
-          if (name === null || path.join(dir, name.toString()) !== notebookPath) dirtyData = true;
-          schedule();
-        }) };
+        const entry = {
+          names,
+          watcher: fs.watch(dir, (_event, name) => {
+            if (name !== null && !entry.names.has(name.toString())) return;
+            // A change to anything but the notebook itself is a change of data: the cells must run again.
+            if (name === null || path.join(dir, name.toString()) !== notebookPath) dirtyData = true;
+            schedule();
+          }),
+        };
         entry.watcher.on("error", () => undefined);
         watchers.set(dir, entry);
       } catch {
@@ -140,12 +146,24 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       if (!(e instanceof NotebookError) && !(e instanceof UsageError)) throw e;
       const message = e instanceof NotebookError ? e.where(path.basename(notebookPath)) : e.message;
       io.err(`${message}\n`);
-      html = pageMessage("The notebook could not be read", message, e instanceof NotebookError ? e.codeFrame : undefined);
+      html = pageMessage(
+        "The notebook could not be read",
+        message,
+        e instanceof NotebookError ? e.codeFrame : undefined,
+      );
       broadcast("reload");
-      events.emit("render", { executed: false, error: message, ms: performance.now() - started } satisfies RenderEvent);
+      events.emit("render", {
+        executed: false,
+        error: message,
+        ms: performance.now() - started,
+      } satisfies RenderEvent);
       return;
     }
-    const { inputs } = resolveInputs(document.frontMatter.inputs, options.inputs, path.basename(notebookPath));
+    const { inputs } = resolveInputs(
+      document.frontMatter.inputs,
+      options.inputs,
+      path.basename(notebookPath),
+    );
     const signature = runSignature(document, inputs, timeLimitMs, options.keepGoing);
     let run: RunRecord;
     let executed: boolean;
@@ -185,11 +203,12 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     const ms = performance.now() - started;
     const failed = run.cells.filter((c) => c.status === "failed" && !c.failureAllowed).length;
     if (!options.quiet || failed) {
-      io.out(`${new Date().toLocaleTimeString()} ${executed ? "ran" : "re-rendered (prose only)"} in ${formatDuration(ms)}${failed ? `; ${failed} failed cell${failed > 1 ? "s" : ""}` : ""}\n`);
+      io.out(
+        `${new Date().toLocaleTimeString()} ${executed ? "ran" : "re-rendered (prose only)"} in ${formatDuration(ms)}${failed ? `; ${failed} failed cell${failed > 1 ? "s" : ""}` : ""}\n`,
+      );
     }
     events.emit("render", { executed, ms } satisfies RenderEvent);
   };
-
 
   const rebuild = () => {
     if (closed) return;
@@ -220,7 +239,9 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     const port = (server.address() as { port: number } | null)?.port;
     const host = req.headers.host ?? "";
     if (host !== `127.0.0.1:${port}` && host !== `localhost:${port}`) {
-      res.writeHead(403, { "content-type": "text/plain; charset=utf-8" }).end("Forbidden: unexpected Host header\n");
+      res
+        .writeHead(403, { "content-type": "text/plain; charset=utf-8" })
+        .end("Forbidden: unexpected Host header\n");
       return;
     }
     if (req.method !== "GET" && req.method !== "HEAD") {
@@ -229,7 +250,11 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     }
     const url = new URL(req.url ?? "/", `http://${host}`);
     if (url.pathname === EVENTS_PATH) {
-      res.writeHead(200, { "content-type": "text/event-stream", "cache-control": "no-store", connection: "keep-alive" });
+      res.writeHead(200, {
+        "content-type": "text/event-stream",
+        "cache-control": "no-store",
+        connection: "keep-alive",
+      });
       res.write("retry: 1000\n\n");
       clients.add(res);
       req.on("close", () => clients.delete(res));
@@ -245,7 +270,11 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
 
   await new Promise<void>((resolve, reject) => {
     server.once("error", (e: NodeJS.ErrnoException) => {
-      reject(e.code === "EADDRINUSE" ? new UsageError(`port ${options.port} on 127.0.0.1 is in use; choose another with --port`) : e);
+      reject(
+        e.code === "EADDRINUSE"
+          ? new UsageError(`port ${options.port} on 127.0.0.1 is in use; choose another with --port`)
+          : e,
+      );
     });
     server.listen(options.port, "127.0.0.1", () => resolve());
   });
@@ -273,7 +302,8 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
 
 /** Serves a file under `root`, refusing anything outside it (.., encoded .., symlinks out, hidden files). */
 export function serveFile(root: string, rawUrl: string, head: boolean, res: http.ServerResponse): void {
-  const refuse = (code: number, text: string): void => void res.writeHead(code, { "content-type": "text/plain; charset=utf-8" }).end(`${text}\n`);
+  const refuse = (code: number, text: string): void =>
+    void res.writeHead(code, { "content-type": "text/plain; charset=utf-8" }).end(`${text}\n`);
   let pathname: string;
   try {
     pathname = decodeURIComponent((rawUrl.split("?")[0] ?? "/").split("#")[0]!);
@@ -282,15 +312,23 @@ export function serveFile(root: string, rawUrl: string, head: boolean, res: http
   }
   if (pathname.includes("\0")) return refuse(400, "Bad request");
   const target = path.resolve(root, `.${path.sep}${pathname}`);
-  if (target !== root && !target.startsWith(root + path.sep)) return refuse(403, "Forbidden: outside the notebook's folder");
-  if (path.relative(root, target).split(path.sep).some((part) => part.startsWith("."))) return refuse(404, "Not found");
+  if (target !== root && !target.startsWith(root + path.sep))
+    return refuse(403, "Forbidden: outside the notebook's folder");
+  if (
+    path
+      .relative(root, target)
+      .split(path.sep)
+      .some((part) => part.startsWith("."))
+  )
+    return refuse(404, "Not found");
   let real: string;
   try {
     real = fs.realpathSync(target);
   } catch {
     return refuse(404, "Not found");
   }
-  if (real !== root && !real.startsWith(root + path.sep)) return refuse(403, "Forbidden: outside the notebook's folder");
+  if (real !== root && !real.startsWith(root + path.sep))
+    return refuse(403, "Forbidden: outside the notebook's folder");
   let stat: fs.Stats;
   try {
     stat = fs.statSync(real);
@@ -314,4 +352,3 @@ function pageMessage(title: string, text: string, frame?: string): string {
 h1{font-size:1.3rem}pre{background:#fbeeec;border-left:4px solid #9f2a1d;padding:.8rem;overflow-x:auto}</style></head>
 <body><h1>${escapeHtml(title)}</h1><p>${escapeHtml(text)}</p>${frame ? `<pre>${escapeHtml(frame)}</pre>` : ""}</body></html>`;
 }
-

@@ -7,7 +7,10 @@ import path from "node:path";
 
 /** Writes `text` to `file` atomically; removes the temporary file if anything fails. */
 export function writeFileAtomic(file: string, text: string): void {
-  const temporary = path.join(path.dirname(file), `.${path.basename(file)}.${process.pid}.${Date.now().toString(36)}.tmp`);
+  const temporary = path.join(
+    path.dirname(file),
+    `.${path.basename(file)}.${process.pid}.${Date.now().toString(36)}.tmp`,
+  );
   try {
     fs.writeFileSync(temporary, text);
     fs.renameSync(temporary, file);

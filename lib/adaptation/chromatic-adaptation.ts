@@ -3,7 +3,13 @@
  * destination and source whites there, and back (von Kries 1902; CIE 159:2004 for CAT02).
  */
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { applyMatrix3, diagonalMatrix3, invertMatrix3, multiplyMatrix3, type Matrix3 } from "../colorimetry/matrix3.ts";
+import {
+  applyMatrix3,
+  diagonalMatrix3,
+  invertMatrix3,
+  multiplyMatrix3,
+  type Matrix3,
+} from "../colorimetry/matrix3.ts";
 import { noteMethod } from "../methods/method-log.ts";
 
 export type AdaptationTransform = "bradford" | "cat02" | "cat16" | "von kries";
@@ -54,9 +60,17 @@ export const ADAPTATION_MATRICES: Readonly<Record<AdaptationTransform, ConeSpace
 };
 
 function resolveTransform(t: string): AdaptationTransform {
-  const key = String(t).trim().toLowerCase().replace(/[\s_-]+/g, " ");
-  const found = (Object.keys(ADAPTATION_MATRICES) as AdaptationTransform[]).find((k) => k === key || k.replace(" ", "") === key.replace(" ", ""));
-  if (!found) throw new Error(`unknown chromatic adaptation transform "${t}"; use "bradford", "cat02", "cat16" or "von kries"`);
+  const key = String(t)
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_-]+/g, " ");
+  const found = (Object.keys(ADAPTATION_MATRICES) as AdaptationTransform[]).find(
+    (k) => k === key || k.replace(" ", "") === key.replace(" ", ""),
+  );
+  if (!found)
+    throw new Error(
+      `unknown chromatic adaptation transform "${t}"; use "bradford", "cat02", "cat16" or "von kries"`,
+    );
   return found;
 }
 
@@ -85,10 +99,15 @@ export function adaptationMatrix(
   requireWhite("adaptation: the destination white", destinationWhite);
   const key = resolveTransform(transform);
   const d = options.degree ?? 1;
-  if (!(Number.isFinite(d) && d >= 0 && d <= 1)) throw new Error(`adaptation: degree of adaptation ${d} must be between 0 and 1`);
+  if (!(Number.isFinite(d) && d >= 0 && d <= 1))
+    throw new Error(`adaptation: degree of adaptation ${d} must be between 0 and 1`);
   const m = ADAPTATION_MATRICES[key].matrix;
   const s = applyMatrix3(m, [sourceWhite.X / sourceWhite.Y, 1, sourceWhite.Z / sourceWhite.Y]);
-  const t = applyMatrix3(m, [destinationWhite.X / destinationWhite.Y, 1, destinationWhite.Z / destinationWhite.Y]);
+  const t = applyMatrix3(m, [
+    destinationWhite.X / destinationWhite.Y,
+    1,
+    destinationWhite.Z / destinationWhite.Y,
+  ]);
   const gain = [0, 1, 2].map((i) => d * (t[i]! / s[i]!) + 1 - d) as [number, number, number];
   return multiplyMatrix3(invertMatrix3(m, key), multiplyMatrix3(diagonalMatrix3(gain), m));
 }

@@ -24,7 +24,8 @@ export interface Uv1960 {
 }
 
 function requireSum(sum: number, what: string): void {
-  if (!(sum > 0) || !Number.isFinite(sum)) throw new Error(`${what}: X + Y + Z = ${sum}; chromaticity needs a positive finite sum`);
+  if (!(sum > 0) || !Number.isFinite(sum))
+    throw new Error(`${what}: X + Y + Z = ${sum}; chromaticity needs a positive finite sum`);
 }
 
 /** x = X/(X+Y+Z), y = Y/(X+Y+Z) (CIE 015:2018 eq. 7.3). */

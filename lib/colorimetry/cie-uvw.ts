@@ -13,7 +13,10 @@ export function uvwFromXYZ(t: Tristimulus, white: Tristimulus): Uvw1964 {
   if (typeof t !== "object" || t === null || ![t.X, t.Y, t.Z].every(Number.isFinite) || t.Y < 0) {
     throw new Error(`uvwFromXYZ: tristimulus values (${t?.X}, ${t?.Y}, ${t?.Z}) must be finite with Y ≥ 0`);
   }
-  noteMethod("colour space", "CIE 1964 U*V*W* coordinates were computed as in CIE 13.3-1995, with Y on the 0–100 scale.");
+  noteMethod(
+    "colour space",
+    "CIE 1964 U*V*W* coordinates were computed as in CIE 13.3-1995, with Y on the 0–100 scale.",
+  );
   const w = 25 * Math.cbrt(t.Y) - 17;
   const p = uv1960FromXy(chromaticityXy(t));
   const n = uv1960FromXy(chromaticityXy(white));

@@ -26,15 +26,19 @@ function fInverse(u: number): number {
 }
 
 function requireWhite(white: Tristimulus, what: string): void {
-  if (!(white.X > 0 && white.Y > 0 && white.Z > 0)) throw new Error(`${what}: the reference white (${white.X}, ${white.Y}, ${white.Z}) must be positive`);
+  if (!(white.X > 0 && white.Y > 0 && white.Z > 0))
+    throw new Error(`${what}: the reference white (${white.X}, ${white.Y}, ${white.Z}) must be positive`);
 }
 
 /** L* = 116 f(Y/Yn) − 16, a* = 500[f(X/Xn) − f(Y/Yn)], b* = 200[f(Y/Yn) − f(Z/Zn)] (CIE 015:2018 eqs. 8.3–8.11). */
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
   requireWhite(white, "labFromXYZ");
-  if (![t.X, t.Y, t.Z].every(Number.isFinite)) throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
+  if (![t.X, t.Y, t.Z].every(Number.isFinite))
+    throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
   noteMethod("colour space", "CIELAB (CIE 1976 L*a*b*) values were computed per CIE 015:2018 §8.2.1.");
-  const fx = f(t.X / white.X), fy = f(t.Y / white.Y), fz = f(t.Z / white.Z);
+  const fx = f(t.X / white.X),
+    fy = f(t.Y / white.Y),
+    fz = f(t.Z / white.Z);
   return { L: 116 * fy - 16, a: 500 * (fx - fy), b: 200 * (fy - fz) };
 }
 

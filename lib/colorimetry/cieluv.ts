@@ -24,8 +24,14 @@ function uvPrime(t: Tristimulus): [number, number] {
 }
 
 function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolean): void {
-  if (typeof t !== "object" || t === null || ![t.X, t.Y, t.Z].every((v) => Number.isFinite(v) && (!positive || v > 0))) {
-    throw new Error(`${what}: ${name} (${t?.X}, ${t?.Y}, ${t?.Z}) must be ${positive ? "positive " : ""}finite tristimulus values`);
+  if (
+    typeof t !== "object" ||
+    t === null ||
+    ![t.X, t.Y, t.Z].every((v) => Number.isFinite(v) && (!positive || v > 0))
+  ) {
+    throw new Error(
+      `${what}: ${name} (${t?.X}, ${t?.Y}, ${t?.Z}) must be ${positive ? "positive " : ""}finite tristimulus values`,
+    );
   }
 }
 

@@ -52,11 +52,19 @@ export function spectrumLocus(observer: ObserverName | Observer | 2 | 10 = "2°"
 }
 
 /** Where the ray from `w` in direction (dx, dy) meets segment a–b: ray parameter t (> 0) and position s along a–b (0–1). */
-function raySegment(w: Chromaticity, dx: number, dy: number, a: LocusPoint, b: LocusPoint): { t: number; s: number } | undefined {
-  const ex = b.x - a.x, ey = b.y - a.y;
+function raySegment(
+  w: Chromaticity,
+  dx: number,
+  dy: number,
+  a: LocusPoint,
+  b: LocusPoint,
+): { t: number; s: number } | undefined {
+  const ex = b.x - a.x,
+    ey = b.y - a.y;
   const den = dx * ey - dy * ex;
   if (den === 0) return undefined;
-  const ax = a.x - w.x, ay = a.y - w.y;
+  const ax = a.x - w.x,
+    ay = a.y - w.y;
   const t = (ax * ey - ay * ex) / den;
   const s = (ax * dy - ay * dx) / den;
   if (t <= 0 || s < -1e-12 || s > 1 + 1e-12) return undefined;
@@ -70,12 +78,20 @@ function checkXy(what: string, c: Chromaticity): void {
 }
 
 /** Dominant or complementary wavelength and excitation purity of `xy` relative to `white` (CIE 015:2018 §9.1–9.2). */
-export function dominantWavelength(xy: Chromaticity, white: Chromaticity, observer: ObserverName | Observer | 2 | 10 = "2°"): DominantWavelength {
+export function dominantWavelength(
+  xy: Chromaticity,
+  white: Chromaticity,
+  observer: ObserverName | Observer | 2 | 10 = "2°",
+): DominantWavelength {
   checkXy("the colour", xy);
   checkXy("the white", white);
-  const dx = xy.x - white.x, dy = xy.y - white.y;
+  const dx = xy.x - white.x,
+    dy = xy.y - white.y;
   const dist = Math.hypot(dx, dy);
-  if (dist < 1e-9) throw new Error(`dominantWavelength: the colour (${xy.x}, ${xy.y}) coincides with the white, so it has no dominant wavelength`);
+  if (dist < 1e-9)
+    throw new Error(
+      `dominantWavelength: the colour (${xy.x}, ${xy.y}) coincides with the white, so it has no dominant wavelength`,
+    );
   const locus = spectrumLocus(observer);
   const obs = observerByName(observer);
   noteMethod(
@@ -86,7 +102,11 @@ export function dominantWavelength(xy: Chromaticity, white: Chromaticity, observ
     let best: { t: number; wavelength: number } | undefined;
     for (let i = 0; i + 1 < locus.length; i++) {
       const hit = raySegment(white, ddx, ddy, locus[i]!, locus[i + 1]!);
-      if (hit && (!best || hit.t < best.t)) best = { t: hit.t, wavelength: locus[i]!.wavelength + hit.s * (locus[i + 1]!.wavelength - locus[i]!.wavelength) };
+      if (hit && (!best || hit.t < best.t))
+        best = {
+          t: hit.t,
+          wavelength: locus[i]!.wavelength + hit.s * (locus[i + 1]!.wavelength - locus[i]!.wavelength),
+        };
     }
     return best;
   };
@@ -95,8 +115,12 @@ export function dominantWavelength(xy: Chromaticity, white: Chromaticity, observ
   if (forward && (!purple || forward.t <= purple.t)) {
     return { wavelength: forward.wavelength, complementary: false, purity: 1 / forward.t };
   }
-  if (!purple) throw new Error(`dominantWavelength: the white (${white.x}, ${white.y}) lies outside the spectrum locus`);
+  if (!purple)
+    throw new Error(`dominantWavelength: the white (${white.x}, ${white.y}) lies outside the spectrum locus`);
   const back = spectral(-dx, -dy);
-  if (!back) throw new Error(`dominantWavelength: no complementary wavelength for (${xy.x}, ${xy.y}) relative to (${white.x}, ${white.y})`);
+  if (!back)
+    throw new Error(
+      `dominantWavelength: no complementary wavelength for (${xy.x}, ${xy.y}) relative to (${white.x}, ${white.y})`,
+    );
   return { wavelength: back.wavelength, complementary: true, purity: 1 / purple.t };
 }

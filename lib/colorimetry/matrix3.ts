@@ -25,7 +25,9 @@ export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
 /** The inverse by cofactors; a singular (or nearly singular) matrix is an error naming `what`. */
 export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
   const [[a, b, c], [d, e, f], [g, h, i]] = m;
-  const A = e * i - f * h, B = -(d * i - f * g), C = d * h - e * g;
+  const A = e * i - f * h,
+    B = -(d * i - f * g),
+    C = d * h - e * g;
   const det = a * A + b * B + c * C;
   const scale = Math.max(...m.flat().map(Math.abs));
   if (!Number.isFinite(det) || Math.abs(det) <= 1e-12 * scale ** 3) {

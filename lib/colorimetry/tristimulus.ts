@@ -3,10 +3,20 @@
  * (CIE 015:2018 §7.1–7.2, eqs. 7.1–7.2; the 1 nm / 5 nm practice of ASTM E308-22 §7).
  */
 import { noteMethod, withoutMethodNotes } from "../methods/method-log.ts";
-import { colourMatchingAt, observerByName, type Observer, type ObserverName } from "../observers/standard-observer.ts";
+import {
+  colourMatchingAt,
+  observerByName,
+  type Observer,
+  type ObserverName,
+} from "../observers/standard-observer.ts";
 import { illuminant as illuminantByName } from "../illuminants/standard-illuminant.ts";
 import { regularStep } from "../spectrum/grid.ts";
-import { interpolationStatement, sampler, type Extrapolation, type Interpolation } from "../spectrum/sample.ts";
+import {
+  interpolationStatement,
+  sampler,
+  type Extrapolation,
+  type Interpolation,
+} from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 
@@ -53,7 +63,12 @@ export interface WeightingTable {
   /** The perfect reflecting diffuser on this table, Σ k·S·x̄, Σ k·S·ȳ (= 100), Σ k·S·z̄: the reference white of its samples. */
   readonly white: Tristimulus;
   /** What the Methods section says about this table (observer, illuminant, summation, and the illuminant's interpolation if any). */
-  readonly notes: { readonly observer: string; readonly illuminant: string; readonly integration: string; readonly interpolation?: string };
+  readonly notes: {
+    readonly observer: string;
+    readonly illuminant: string;
+    readonly integration: string;
+    readonly interpolation?: string;
+  };
 }
 
 type TableOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval" | "range">;
@@ -67,15 +82,26 @@ function resolveIlluminant(ill: string | Spectrum | undefined): Spectrum {
 }
 
 function checkInterval(interval: number): asserts interval is 1 | 5 {
-  if (interval !== 1 && interval !== 5) throw new Error(`tristimulus: summation interval ${interval} nm is not supported; use 1 or 5 nm (CIE 015:2018 §7.2)`);
+  if (interval !== 1 && interval !== 5)
+    throw new Error(
+      `tristimulus: summation interval ${interval} nm is not supported; use 1 or 5 nm (CIE 015:2018 §7.2)`,
+    );
 }
 
-function resolveRange(requested: readonly [number, number] | undefined, ill: Spectrum, obs: Observer): [number, number] {
+function resolveRange(
+  requested: readonly [number, number] | undefined,
+  ill: Spectrum,
+  obs: Observer,
+): [number, number] {
   const [a, b] = requested ?? DEFAULT_SUMMATION_RANGE;
-  if (!(Number.isFinite(a) && Number.isFinite(b) && a < b)) throw new Error(`tristimulus: wavelength range ${a}–${b} nm is not valid`);
+  if (!(Number.isFinite(a) && Number.isFinite(b) && a < b))
+    throw new Error(`tristimulus: wavelength range ${a}–${b} nm is not valid`);
   const start = Math.max(a, ill.wavelengths[0]!, obs.wavelengths[0]!);
   const end = Math.min(b, ill.wavelengths.at(-1)!, obs.wavelengths.at(-1)!);
-  if (end <= start) throw new Error(`tristimulus: illuminant "${ill.name}" (${ill.wavelengths[0]}–${ill.wavelengths.at(-1)} nm) does not cover ${a}–${b} nm`);
+  if (end <= start)
+    throw new Error(
+      `tristimulus: illuminant "${ill.name}" (${ill.wavelengths[0]}–${ill.wavelengths.at(-1)} nm) does not cover ${a}–${b} nm`,
+    );
   return [start, end];
 }
 
@@ -91,12 +117,19 @@ function rangeWords(first: number, last: number, requested: readonly [number, nu
   if (first === DEFAULT_SUMMATION_RANGE[0] && last === DEFAULT_SUMMATION_RANGE[1]) {
     return " (the full tabulated range of the CIE colour-matching functions, CIE 015:2018 §7.2; the convention of the ASTM E308 white points)";
   }
-  if (first === CIE_015_TABLE_RANGE[0] && last === CIE_015_TABLE_RANGE[1]) return " (the range of the CIE 015:2004 Table T.3 white points)";
+  if (first === CIE_015_TABLE_RANGE[0] && last === CIE_015_TABLE_RANGE[1])
+    return " (the range of the CIE 015:2004 Table T.3 white points)";
   const [a, b] = requested ?? DEFAULT_SUMMATION_RANGE;
   return first > a || last < b ? " (the part of the requested range the illuminant covers)" : "";
 }
 
-function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [number, number], requested: readonly [number, number] | undefined): WeightingTable {
+function buildTable(
+  ill: Spectrum,
+  obs: Observer,
+  interval: 1 | 5,
+  range: [number, number],
+  requested: readonly [number, number] | undefined,
+): WeightingTable {
   const wavelengths = gridFor(range, interval);
   // Built once and kept: the illuminant's interpolation is stated on every use of the table (notes.interpolation),
   // not by the sampler here, which would note it only for the computation that happened to build the table.
@@ -104,7 +137,9 @@ function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [numbe
   const illuminantSamples = new Set(ill.wavelengths.map((w) => Math.round(w * 1e6)));
   const interpolated = wavelengths.some((w) => !illuminantSamples.has(Math.round(w * 1e6)));
   const n = wavelengths.length;
-  const wx = new Float64Array(n), wy = new Float64Array(n), wz = new Float64Array(n);
+  const wx = new Float64Array(n),
+    wy = new Float64Array(n),
+    wz = new Float64Array(n);
   let sumY = 0;
   for (let i = 0; i < n; i++) {
     const s = withoutMethodNotes(() => readS(wavelengths[i]!));
@@ -114,9 +149,12 @@ function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [numbe
     wz[i] = s * z;
     sumY += s * y;
   }
-  if (!(sumY > 0)) throw new Error(`tristimulus: illuminant "${ill.name}" has no power where the observer sees`);
+  if (!(sumY > 0))
+    throw new Error(`tristimulus: illuminant "${ill.name}" has no power where the observer sees`);
   const k = 100 / sumY;
-  let X = 0, Y = 0, Z = 0;
+  let X = 0,
+    Y = 0,
+    Z = 0;
   for (let i = 0; i < n; i++) {
     wx[i]! *= k;
     wy[i]! *= k;
@@ -125,7 +163,8 @@ function buildTable(ill: Spectrum, obs: Observer, interval: 1 | 5, range: [numbe
     Y += wy[i]!;
     Z += wz[i]!;
   }
-  const first = wavelengths[0]!, last = wavelengths.at(-1)!;
+  const first = wavelengths[0]!,
+    last = wavelengths.at(-1)!;
   return {
     wavelengths,
     wx,
@@ -150,7 +189,12 @@ function observerStatement(obs: Observer): string {
   return `Colorimetric values were computed for the ${obs.name}.`;
 }
 
-function tableFor(illuminantOption: string | Spectrum | undefined, observerOption: TableOptions["observer"], interval: 1 | 5, rangeOption: TableOptions["range"]): WeightingTable {
+function tableFor(
+  illuminantOption: string | Spectrum | undefined,
+  observerOption: TableOptions["observer"],
+  interval: 1 | 5,
+  rangeOption: TableOptions["range"],
+): WeightingTable {
   checkInterval(interval);
   const ill = resolveIlluminant(illuminantOption);
   const obs = observerByName(observerOption ?? "2°");
@@ -186,8 +230,12 @@ function defaultInterval(sample: Spectrum | undefined, ill: Spectrum): 1 | 5 {
  * when every sample and every illuminant is tabulated at 1 nm, otherwise 5 nm (CIE 015:2018 §7.2). Use it to put
  * samples from different grids, and their whites, on one weighting table.
  */
-export function commonSummationInterval(samples: readonly Spectrum[], illuminants: readonly (string | Spectrum | undefined)[] = [undefined]): 1 | 5 {
-  if (!Array.isArray(samples) || samples.length === 0) throw new Error("commonSummationInterval: give at least one sample spectrum");
+export function commonSummationInterval(
+  samples: readonly Spectrum[],
+  illuminants: readonly (string | Spectrum | undefined)[] = [undefined],
+): 1 | 5 {
+  if (!Array.isArray(samples) || samples.length === 0)
+    throw new Error("commonSummationInterval: give at least one sample spectrum");
   for (const ill of illuminants.length > 0 ? illuminants : [undefined]) {
     const s = resolveIlluminant(ill);
     for (const sample of samples) if (defaultInterval(sample, s) === 5) return 5;
@@ -196,9 +244,16 @@ export function commonSummationInterval(samples: readonly Spectrum[], illuminant
 }
 
 function checkObjectSample(sample: Spectrum, what: string): void {
-  if (sample?.kind !== "spectrum") throw new Error(`${what}: expected a reflectance or transmittance spectrum, got ${String(sample)}`);
-  if (sample.quantity !== "reflectance" && sample.quantity !== "transmittance" && sample.quantity !== "other") {
-    throw new Error(`${what}: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`);
+  if (sample?.kind !== "spectrum")
+    throw new Error(`${what}: expected a reflectance or transmittance spectrum, got ${String(sample)}`);
+  if (
+    sample.quantity !== "reflectance" &&
+    sample.quantity !== "transmittance" &&
+    sample.quantity !== "other"
+  ) {
+    throw new Error(
+      `${what}: "${sample.name}" is a ${sample.quantity} spectrum; for a light source use lightTristimulus()`,
+    );
   }
 }
 
@@ -246,20 +301,31 @@ export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
   noteObjectColourMethod(table);
-  return { XYZ, white: { ...table.white }, illuminant: table.illuminantName, observer: table.observer.name, interval: table.interval, range: [...table.range] as [number, number] };
+  return {
+    XYZ,
+    white: { ...table.white },
+    illuminant: table.illuminantName,
+    observer: table.observer.name,
+    interval: table.interval,
+    range: [...table.range] as [number, number],
+  };
 }
 
 function sumOnTable(sample: Spectrum, table: WeightingTable, options: ObjectColourOptions): Tristimulus {
   const { wx, wy, wz, interval } = table;
   const n = wx.length;
-  const w = sample.wavelengths, v = sample.values;
-  let X = 0, Y = 0, Z = 0;
+  const w = sample.wavelengths,
+    v = sample.values;
+  let X = 0,
+    Y = 0,
+    Z = 0;
   // Fast path: every summation wavelength is one of the sample's own (evenly spaced) wavelengths.
   const step = regularStep(sample);
   const first = table.wavelengths[0]!;
   const offset = step === undefined ? NaN : (first - w[0]!) / step;
   const stride = step === undefined ? NaN : interval / step;
-  const io = Math.round(offset), is = Math.round(stride);
+  const io = Math.round(offset),
+    is = Math.round(stride);
   if (
     step !== undefined &&
     Math.abs(offset - io) < 1e-9 &&
@@ -275,7 +341,10 @@ function sumOnTable(sample: Spectrum, table: WeightingTable, options: ObjectColo
       Z += wz[i]! * r;
     }
   } else {
-    const read = sampler(sample, { interpolation: options.interpolation, extrapolation: options.extrapolation });
+    const read = sampler(sample, {
+      interpolation: options.interpolation,
+      extrapolation: options.extrapolation,
+    });
     const grid = table.wavelengths;
     for (let i = 0; i < n; i++) {
       const r = read(grid[i]!);
@@ -326,14 +395,22 @@ export const KM_PHOTOPIC = 683;
 export function lightTristimulus(source: Spectrum, options: LightOptions = {}): Tristimulus {
   const obs = observerByName(options.observer ?? "2°");
   const step = regularStep(source);
-  const onWholeNm = step !== undefined && (step === 1 || step === 5) && Number.isInteger(source.wavelengths[0]!);
+  const onWholeNm =
+    step !== undefined && (step === 1 || step === 5) && Number.isInteger(source.wavelengths[0]!);
   const start = Math.max(source.wavelengths[0]!, obs.wavelengths[0]!);
   const end = Math.min(source.wavelengths.at(-1)!, obs.wavelengths.at(-1)!);
-  if (end <= start) throw new Error(`lightTristimulus: "${source.name}" (${source.wavelengths[0]}–${source.wavelengths.at(-1)} nm) lies outside the observer's 360–830 nm`);
+  if (end <= start)
+    throw new Error(
+      `lightTristimulus: "${source.name}" (${source.wavelengths[0]}–${source.wavelengths.at(-1)} nm) lies outside the observer's 360–830 nm`,
+    );
   const interval = onWholeNm ? step : 1;
-  const grid = onWholeNm ? source.wavelengths.filter((w) => w >= start && w <= end) : gridFor([start, end], 1);
+  const grid = onWholeNm
+    ? source.wavelengths.filter((w) => w >= start && w <= end)
+    : gridFor([start, end], 1);
   const read = sampler(source, { extrapolation: "refuse" });
-  let X = 0, Y = 0, Z = 0;
+  let X = 0,
+    Y = 0,
+    Z = 0;
   for (const w of grid) {
     const s = read(w);
     const [x, y, z] = colourMatchingAt(obs, w);
@@ -354,7 +431,10 @@ export function lightTristimulus(source: Spectrum, options: LightOptions = {}): 
     const k = KM_PHOTOPIC * interval;
     return { X: k * X, Y: k * Y, Z: k * Z };
   }
-  if (!(Y > 0)) throw new Error(`lightTristimulus: "${source.name}" has no luminous power (Y = 0), so it cannot be scaled to Y = 100`);
+  if (!(Y > 0))
+    throw new Error(
+      `lightTristimulus: "${source.name}" has no luminous power (Y = 0), so it cannot be scaled to Y = 100`,
+    );
   const k = 100 / Y;
   return { X: k * X, Y: 100, Z: k * Z };
 }

@@ -3,8 +3,16 @@ import type { Lab } from "../colorimetry/cielab.ts";
 
 /** Throws a clear error when a CIELAB colour has a missing or non-finite coordinate. */
 export function requireLab(what: string, which: string, c: Lab): void {
-  if (typeof c !== "object" || c === null || !Number.isFinite(c.L) || !Number.isFinite(c.a) || !Number.isFinite(c.b)) {
-    throw new Error(`${what}: the ${which} colour (L* ${c?.L}, a* ${c?.a}, b* ${c?.b}) must have three finite CIELAB coordinates`);
+  if (
+    typeof c !== "object" ||
+    c === null ||
+    !Number.isFinite(c.L) ||
+    !Number.isFinite(c.a) ||
+    !Number.isFinite(c.b)
+  ) {
+    throw new Error(
+      `${what}: the ${which} colour (L* ${c?.L}, a* ${c?.a}, b* ${c?.b}) must have three finite CIELAB coordinates`,
+    );
   }
 }
 

@@ -43,7 +43,9 @@ const TWO_PI = 2 * Math.PI;
 export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Options = {}): Ciede2000Terms {
   requireLab("deltaE2000", "first", first);
   requireLab("deltaE2000", "second", second);
-  const kL = options.kL ?? 1, kC = options.kC ?? 1, kH = options.kH ?? 1;
+  const kL = options.kL ?? 1,
+    kC = options.kC ?? 1,
+    kH = options.kH ?? 1;
   requireFactor("deltaE2000", "kL", kL);
   requireFactor("deltaE2000", "kC", kC);
   requireFactor("deltaE2000", "kH", kH);
@@ -57,7 +59,12 @@ export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options)
     requireLab("deltaE2000", "first", first);
     requireLab("deltaE2000", "second", second);
   }
-  const L1 = first.L, a1 = first.a, b1 = first.b, L2 = second.L, a2 = second.a, b2 = second.b;
+  const L1 = first.L,
+    a1 = first.a,
+    b1 = first.b,
+    L2 = second.L,
+    a2 = second.a,
+    b2 = second.b;
   // One test catches NaN, ±Infinity and missing coordinates (x − x is NaN for all of them).
   if (Number.isNaN(L1 - L1 + a1 - a1 + b1 - b1 + L2 - L2 + a2 - a2 + b2 - b2)) {
     requireLab("deltaE2000", "first", first);
@@ -67,7 +74,9 @@ export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options)
     noteMethod("colour difference", DEFAULT_NOTE);
     return fastDeltaE2000(L1, a1, b1, L2, a2, b2, 1, 1, 1);
   }
-  const kL = options.kL ?? 1, kC = options.kC ?? 1, kH = options.kH ?? 1;
+  const kL = options.kL ?? 1,
+    kC = options.kC ?? 1,
+    kH = options.kH ?? 1;
   requireFactor("deltaE2000", "kL", kL);
   requireFactor("deltaE2000", "kC", kC);
   requireFactor("deltaE2000", "kH", kH);
@@ -75,22 +84,38 @@ export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options)
   return fastDeltaE2000(L1, a1, b1, L2, a2, b2, kL, kC, kH);
 }
 
-const DEFAULT_NOTE = "Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = kC = kH = 1.";
-const COS_30 = Math.cos(30 * DEG), SIN_30 = Math.sin(30 * DEG);
-const COS_6 = Math.cos(6 * DEG), SIN_6 = Math.sin(6 * DEG);
-const COS_63 = Math.cos(63 * DEG), SIN_63 = Math.sin(63 * DEG);
+const DEFAULT_NOTE =
+  "Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = kC = kH = 1.";
+const COS_30 = Math.cos(30 * DEG),
+  SIN_30 = Math.sin(30 * DEG);
+const COS_6 = Math.cos(6 * DEG),
+  SIN_6 = Math.sin(6 * DEG);
+const COS_63 = Math.cos(63 * DEG),
+  SIN_63 = Math.sin(63 * DEG);
 
 /**
  * The same formula as `compute` below, arranged for speed: powers by multiplication, and the four cosines of T from
  * one cosine and one sine of h̄′ by the multiple-angle identities. Both are checked against Sharma et al. (2005).
  */
-function fastDeltaE2000(L1: number, a1: number, b1: number, L2: number, a2: number, b2: number, kL: number, kC: number, kH: number): number {
+function fastDeltaE2000(
+  L1: number,
+  a1: number,
+  b1: number,
+  L2: number,
+  a2: number,
+  b2: number,
+  kL: number,
+  kC: number,
+  kH: number,
+): number {
   const cBar = (Math.sqrt(a1 * a1 + b1 * b1) + Math.sqrt(a2 * a2 + b2 * b2)) * 0.5;
   const cb2 = cBar * cBar;
   const cBar7 = cb2 * cb2 * cb2 * cBar;
   const g1 = 1.5 - 0.5 * Math.sqrt(cBar7 / (cBar7 + TWENTY_FIVE_7)); // 1 + G
-  const ap1 = g1 * a1, ap2 = g1 * a2;
-  const cp1 = Math.sqrt(ap1 * ap1 + b1 * b1), cp2 = Math.sqrt(ap2 * ap2 + b2 * b2);
+  const ap1 = g1 * a1,
+    ap2 = g1 * a2;
+  const cp1 = Math.sqrt(ap1 * ap1 + b1 * b1),
+    cp2 = Math.sqrt(ap2 * ap2 + b2 * b2);
   let hp1 = ap1 === 0 && b1 === 0 ? 0 : Math.atan2(b1, ap1);
   if (hp1 < 0) hp1 += TWO_PI;
   let hp2 = ap2 === 0 && b2 === 0 ? 0 : Math.atan2(b2, ap2);
@@ -109,13 +134,22 @@ function fastDeltaE2000(L1: number, a1: number, b1: number, L2: number, a2: numb
   const dLp = L2 - L1;
   const dCp = cp2 - cp1;
   const dHp = 2 * Math.sqrt(cpProduct) * Math.sin(dhp * 0.5);
-  const c1h = Math.cos(hpBar), s1h = Math.sin(hpBar);
-  const c2h = 2 * c1h * c1h - 1, s2h = 2 * s1h * c1h;
-  const c3h = c1h * c2h - s1h * s2h, s3h = s1h * c2h + c1h * s2h;
-  const c4h = 2 * c2h * c2h - 1, s4h = 2 * s2h * c2h;
-  const T = 1 - 0.17 * (c1h * COS_30 + s1h * SIN_30) + 0.24 * c2h + 0.32 * (c3h * COS_6 - s3h * SIN_6) - 0.2 * (c4h * COS_63 + s4h * SIN_63);
+  const c1h = Math.cos(hpBar),
+    s1h = Math.sin(hpBar);
+  const c2h = 2 * c1h * c1h - 1,
+    s2h = 2 * s1h * c1h;
+  const c3h = c1h * c2h - s1h * s2h,
+    s3h = s1h * c2h + c1h * s2h;
+  const c4h = 2 * c2h * c2h - 1,
+    s4h = 2 * s2h * c2h;
+  const T =
+    1 -
+    0.17 * (c1h * COS_30 + s1h * SIN_30) +
+    0.24 * c2h +
+    0.32 * (c3h * COS_6 - s3h * SIN_6) -
+    0.2 * (c4h * COS_63 + s4h * SIN_63);
   const hd = (hpBar * (180 / Math.PI) - 275) * 0.04;
-  const dTheta = (60 * DEG) * Math.exp(-hd * hd); // 2Δθ
+  const dTheta = 60 * DEG * Math.exp(-hd * hd); // 2Δθ
   const cpBar = (cp1 + cp2) * 0.5;
   const cq2 = cpBar * cpBar;
   const cpBar7 = cq2 * cq2 * cq2 * cpBar;
@@ -126,7 +160,9 @@ function fastDeltaE2000(L1: number, a1: number, b1: number, L2: number, a2: numb
   const SC = 1 + 0.045 * cpBar;
   const SH = 1 + 0.015 * cpBar * T;
   const RT = -Math.sin(dTheta) * RC;
-  const tL = dLp / (kL * SL), tC = dCp / (kC * SC), tH = dHp / (kH * SH);
+  const tL = dLp / (kL * SL),
+    tC = dCp / (kC * SC),
+    tH = dHp / (kH * SH);
   return Math.sqrt(tL * tL + tC * tC + tH * tH + RT * tC * tH);
 }
 
@@ -134,18 +170,33 @@ function noteDe2000(kL: number, kC: number, kH: number): void {
   if (kL === 1 && kC === 1 && kH === 1) {
     noteMethod("colour difference", DEFAULT_NOTE);
   } else {
-    noteMethod("colour difference", `Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = ${kL}, kC = ${kC}, kH = ${kH}.`);
+    noteMethod(
+      "colour difference",
+      `Colour differences ΔE00 were computed by the CIEDE2000 formula (CIE 142-2001; ISO/CIE 11664-6) with kL = ${kL}, kC = ${kC}, kH = ${kH}.`,
+    );
   }
 }
 
 /** The formula step by step as Sharma et al. (2005) write it, keeping every intermediate value. */
-function compute(L1: number, a1: number, b1: number, L2: number, a2: number, b2: number, kL: number, kC: number, kH: number): Ciede2000Terms {
+function compute(
+  L1: number,
+  a1: number,
+  b1: number,
+  L2: number,
+  a2: number,
+  b2: number,
+  kL: number,
+  kC: number,
+  kH: number,
+): Ciede2000Terms {
   // Eqs. 2–7: a′, C′, h′.
   const cBar = (Math.sqrt(a1 * a1 + b1 * b1) + Math.sqrt(a2 * a2 + b2 * b2)) / 2;
   const cBar7 = cBar ** 7;
   const G = 0.5 * (1 - Math.sqrt(cBar7 / (cBar7 + TWENTY_FIVE_7)));
-  const ap1 = (1 + G) * a1, ap2 = (1 + G) * a2;
-  const cp1 = Math.sqrt(ap1 * ap1 + b1 * b1), cp2 = Math.sqrt(ap2 * ap2 + b2 * b2);
+  const ap1 = (1 + G) * a1,
+    ap2 = (1 + G) * a2;
+  const cp1 = Math.sqrt(ap1 * ap1 + b1 * b1),
+    cp2 = Math.sqrt(ap2 * ap2 + b2 * b2);
   let hp1 = ap1 === 0 && b1 === 0 ? 0 : Math.atan2(b1, ap1);
   if (hp1 < 0) hp1 += TWO_PI;
   let hp2 = ap2 === 0 && b2 === 0 ? 0 : Math.atan2(b2, ap2);
@@ -171,7 +222,12 @@ function compute(L1: number, a1: number, b1: number, L2: number, a2: number, b2:
     else hpBar = (hpBar - TWO_PI) / 2;
   }
   // Eqs. 15–22: weighting functions and the rotation term.
-  const T = 1 - 0.17 * Math.cos(hpBar - 30 * DEG) + 0.24 * Math.cos(2 * hpBar) + 0.32 * Math.cos(3 * hpBar + 6 * DEG) - 0.2 * Math.cos(4 * hpBar - 63 * DEG);
+  const T =
+    1 -
+    0.17 * Math.cos(hpBar - 30 * DEG) +
+    0.24 * Math.cos(2 * hpBar) +
+    0.32 * Math.cos(3 * hpBar + 6 * DEG) -
+    0.2 * Math.cos(4 * hpBar - 63 * DEG);
   const hd = (hpBar / DEG - 275) / 25;
   const dTheta = 30 * DEG * Math.exp(-hd * hd);
   const cpBar7 = cpBar ** 7;
@@ -181,7 +237,9 @@ function compute(L1: number, a1: number, b1: number, L2: number, a2: number, b2:
   const SC = 1 + 0.045 * cpBar;
   const SH = 1 + 0.015 * cpBar * T;
   const RT = -Math.sin(2 * dTheta) * RC;
-  const tL = dLp / (kL * SL), tC = dCp / (kC * SC), tH = dHp / (kH * SH);
+  const tL = dLp / (kL * SL),
+    tC = dCp / (kC * SC),
+    tH = dHp / (kH * SH);
   const deltaE = Math.sqrt(tL * tL + tC * tC + tH * tH + RT * tC * tH);
   return {
     aPrime1: ap1,

@@ -7,7 +7,12 @@ import { requireLab } from "./check-lab.ts";
 export function deltaE76(a: Lab, b: Lab): number {
   requireLab("deltaE76", "first", a);
   requireLab("deltaE76", "second", b);
-  noteMethod("colour difference", "Colour differences ΔE*ab were computed by the CIE 1976 formula (CIE 015:2018 eq. 8.14).");
-  const dL = a.L - b.L, da = a.a - b.a, db = a.b - b.b;
+  noteMethod(
+    "colour difference",
+    "Colour differences ΔE*ab were computed by the CIE 1976 formula (CIE 015:2018 eq. 8.14).",
+  );
+  const dL = a.L - b.L,
+    da = a.a - b.a,
+    db = a.b - b.b;
   return Math.sqrt(dL * dL + da * da + db * db);
 }

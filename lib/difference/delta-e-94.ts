@@ -25,7 +25,10 @@ export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options =
   requireLab("deltaE94", "sample (second)", sample);
   const application = options.application ?? "graphic arts";
   const w = WEIGHTS[application];
-  if (!w) throw new Error(`deltaE94: unknown application "${String(application)}"; use "graphic arts" or "textiles"`);
+  if (!w)
+    throw new Error(
+      `deltaE94: unknown application "${String(application)}"; use "graphic arts" or "textiles"`,
+    );
   noteMethod(
     "colour difference",
     `Colour differences ΔE*94 were computed by CIE 116-1995 with the ${application} weights (kL = ${w.kL}, K1 = ${w.k1}, K2 = ${w.k2}); the first colour of each pair is the reference.`,
@@ -34,7 +37,8 @@ export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options =
   const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);
   const dL = reference.L - sample.L;
   const dC = c1 - c2;
-  const da = reference.a - sample.a, db = reference.b - sample.b;
+  const da = reference.a - sample.a,
+    db = reference.b - sample.b;
   const dH2 = Math.max(da * da + db * db - dC * dC, 0);
   const sC = 1 + w.k1 * c1;
   const sH = 1 + w.k2 * c1;

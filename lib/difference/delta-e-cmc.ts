@@ -21,7 +21,10 @@ export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions
   const c = options.c ?? 1;
   requireFactor("deltaECMC", "l", l);
   requireFactor("deltaECMC", "c", c);
-  noteMethod("colour difference", `Colour differences ΔE CMC(${l}:${c}) were computed per ISO 105-J03 (Clarke, McDonald & Rigg 1984); the first colour of each pair is the reference.`);
+  noteMethod(
+    "colour difference",
+    `Colour differences ΔE CMC(${l}:${c}) were computed per ISO 105-J03 (Clarke, McDonald & Rigg 1984); the first colour of each pair is the reference.`,
+  );
   const L1 = reference.L;
   const c1 = Math.sqrt(reference.a * reference.a + reference.b * reference.b);
   const c2 = Math.sqrt(sample.a * sample.a + sample.b * sample.b);
@@ -29,13 +32,17 @@ export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions
   if (h1 < 0) h1 += 360;
   const dL = L1 - sample.L;
   const dC = c1 - c2;
-  const da = reference.a - sample.a, db = reference.b - sample.b;
+  const da = reference.a - sample.a,
+    db = reference.b - sample.b;
   const dH2 = Math.max(da * da + db * db - dC * dC, 0);
   const sL = L1 < 16 ? 0.511 : (0.040975 * L1) / (1 + 0.01765 * L1);
   const sC = (0.0638 * c1) / (1 + 0.0131 * c1) + 0.638;
   const c14 = c1 ** 4;
   const f = Math.sqrt(c14 / (c14 + 1900));
-  const t = h1 >= 164 && h1 <= 345 ? 0.56 + Math.abs(0.2 * Math.cos(((h1 + 168) * Math.PI) / 180)) : 0.36 + Math.abs(0.4 * Math.cos(((h1 + 35) * Math.PI) / 180));
+  const t =
+    h1 >= 164 && h1 <= 345
+      ? 0.56 + Math.abs(0.2 * Math.cos(((h1 + 168) * Math.PI) / 180))
+      : 0.36 + Math.abs(0.4 * Math.cos(((h1 + 35) * Math.PI) / 180));
   const sH = sC * (f * t + 1 - f);
   return Math.sqrt((dL / (l * sL)) ** 2 + (dC / (c * sC)) ** 2 + dH2 / (sH * sH));
 }

@@ -14,7 +14,9 @@ import { decideValueScale, type ValueScale } from "./value-scale.ts";
 const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
 
 /** The spectral fields of a table with their wavelengths (nm), in field order; they must increase. */
-export function cgatsSpectralFields(table: CgatsTable): { field: string; index: number; wavelength: number }[] {
+export function cgatsSpectralFields(
+  table: CgatsTable,
+): { field: string; index: number; wavelength: number }[] {
   const out: { field: string; index: number; wavelength: number }[] = [];
   table.fields.forEach((field, index) => {
     const m = SPECTRAL_FIELD.exec(field);
@@ -22,7 +24,9 @@ export function cgatsSpectralFields(table: CgatsTable): { field: string; index: 
   });
   out.forEach((f, i) => {
     if (i > 0 && f.wavelength <= out[i - 1]!.wavelength) {
-      throw new DataFileError(`spectral field ${f.field} (${f.wavelength} nm) does not follow ${out[i - 1]!.field} in increasing wavelength order`);
+      throw new DataFileError(
+        `spectral field ${f.field} (${f.wavelength} nm) does not follow ${out[i - 1]!.field} in increasing wavelength order`,
+      );
     }
   });
   return out;
@@ -38,7 +42,11 @@ export function cgatsSampleIds(table: CgatsTable): string[] {
   });
   ids.forEach((id, i) => {
     const first = ids.indexOf(id);
-    if (first !== i) throw new DataFileError(`sample identifier "${id}" appears twice (lines ${table.setLines[first]} and ${table.setLines[i]})`, table.setLines[i]);
+    if (first !== i)
+      throw new DataFileError(
+        `sample identifier "${id}" appears twice (lines ${table.setLines[first]} and ${table.setLines[i]})`,
+        table.setLines[i],
+      );
   });
   return ids;
 }
@@ -47,14 +55,21 @@ function numericColumn(table: CgatsTable, field: string): number[] {
   const at = table.fields.indexOf(field);
   return table.sets.map((set, i) => {
     const v = set[at];
-    if (typeof v !== "number") throw new DataFileError(`field ${field} must be a number, found ${JSON.stringify(v)}`, table.setLines[i]);
+    if (typeof v !== "number")
+      throw new DataFileError(
+        `field ${field} must be a number, found ${JSON.stringify(v)}`,
+        table.setLines[i],
+      );
     return v;
   });
 }
 
 function requireFields(table: CgatsTable, wanted: readonly string[], what: string): void {
   const missing = wanted.filter((f) => !table.fields.includes(f));
-  if (missing.length > 0) throw new DataFileError(`the table has no ${what} (missing ${missing.join(", ")}); its fields are ${table.fields.join(", ")}`);
+  if (missing.length > 0)
+    throw new DataFileError(
+      `the table has no ${what} (missing ${missing.join(", ")}); its fields are ${table.fields.join(", ")}`,
+    );
 }
 
 /** X, Y, Z of each set from the fields XYZ_X, XYZ_Y, XYZ_Z. */
@@ -94,12 +109,21 @@ export interface CgatsSpectraResult {
 
 /** The spectra of one table of a parsed CGATS file, named by sample identifier; see CgatsSpectraOptions. */
 export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): CgatsSpectraResult {
-  if (!options || !options.quantity) throw new DataFileError('state what the spectral fields hold, e.g. { quantity: "reflectance" }; it is never assumed');
+  if (!options || !options.quantity)
+    throw new DataFileError(
+      'state what the spectral fields hold, e.g. { quantity: "reflectance" }; it is never assumed',
+    );
   const which = options.table ?? 0;
   const table = file.tables[which];
-  if (!table) throw new DataFileError(`the file has ${file.tables.length} table${file.tables.length === 1 ? "" : "s"}; table ${which} does not exist`);
+  if (!table)
+    throw new DataFileError(
+      `the file has ${file.tables.length} table${file.tables.length === 1 ? "" : "s"}; table ${which} does not exist`,
+    );
   const fields = cgatsSpectralFields(table);
-  if (fields.length === 0) throw new DataFileError(`the table has no spectral fields (SPECTRAL_NMxxx, SPECTRAL_xxx or NMxxx); its fields are ${table.fields.join(", ")}`);
+  if (fields.length === 0)
+    throw new DataFileError(
+      `the table has no spectral fields (SPECTRAL_NMxxx, SPECTRAL_xxx or NMxxx); its fields are ${table.fields.join(", ")}`,
+    );
   const ids = cgatsSampleIds(table);
   const columns = fields.map((f) => numericColumn(table, f.field));
   const ratio = options.quantity === "reflectance" || options.quantity === "transmittance";
@@ -113,8 +137,17 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
     if (d.inferred) inferred.push(d.statement);
   }
   const wavelengths = fields.map((f) => f.wavelength);
-  const spectra = ids.map((id, i) => spectrum(wavelengths, columns.map((c) => c[i]! * factor), { name: id, quantity: options.quantity }));
-  noteMethod("data files", `Spectral data of ${spectra.length} sample${spectra.length === 1 ? "" : "s"} of ${options.quantity} (${wavelengths[0]}–${wavelengths.at(-1)} nm) were taken from CGATS spectral fields${scale === "percent" ? "; their percent values were divided by 100" : ""}.`);
+  const spectra = ids.map((id, i) =>
+    spectrum(
+      wavelengths,
+      columns.map((c) => c[i]! * factor),
+      { name: id, quantity: options.quantity },
+    ),
+  );
+  noteMethod(
+    "data files",
+    `Spectral data of ${spectra.length} sample${spectra.length === 1 ? "" : "s"} of ${options.quantity} (${wavelengths[0]}–${wavelengths.at(-1)} nm) were taken from CGATS spectral fields${scale === "percent" ? "; their percent values were divided by 100" : ""}.`,
+  );
   for (const s of inferred) noteMethod("data files", s);
   return { spectra, scale, inferred, keywords: table.keywords, file };
 }

@@ -46,7 +46,11 @@ function tokenise(line: string, lineNumber: number, comments: string[]): Token[]
       break;
     } else if (c === '"') {
       const end = line.indexOf('"', i + 1);
-      if (end < 0) throw new DataFileError(`a quoted value opened at column ${i + 1} is not closed on this line`, lineNumber);
+      if (end < 0)
+        throw new DataFileError(
+          `a quoted value opened at column ${i + 1} is not closed on this line`,
+          lineNumber,
+        );
       tokens.push({ text: line.slice(i + 1, end), quoted: true });
       i = end + 1;
     } else {
@@ -71,7 +75,8 @@ const KEYWORD_NAME = /^[A-Za-z][A-Za-z0-9_.]*$/;
 
 /** Parses CGATS.17 text into its tables; a malformed file gives a DataFileError with the line number. */
 export function parseCgats(text: string): CgatsFile {
-  if (typeof text !== "string") throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
+  if (typeof text !== "string")
+    throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
   const lines = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
   const comments: string[] = [];
   const tables: CgatsTable[] = [];
@@ -86,10 +91,17 @@ export function parseCgats(text: string): CgatsFile {
   let openedAt = 0;
 
   const finishTable = (line: number) => {
-    if (fields.length === 0) throw new DataFileError("BEGIN_DATA comes before any BEGIN_DATA_FORMAT … END_DATA_FORMAT block naming the fields", line);
+    if (fields.length === 0)
+      throw new DataFileError(
+        "BEGIN_DATA comes before any BEGIN_DATA_FORMAT … END_DATA_FORMAT block naming the fields",
+        line,
+      );
     const declaredSets = keywords.NUMBER_OF_SETS;
     if (declaredSets !== undefined && Number(declaredSets) !== sets.length) {
-      throw new DataFileError(`NUMBER_OF_SETS says ${declaredSets} but the data block has ${sets.length} set${sets.length === 1 ? "" : "s"}`, keywordLines.NUMBER_OF_SETS);
+      throw new DataFileError(
+        `NUMBER_OF_SETS says ${declaredSets} but the data block has ${sets.length} set${sets.length === 1 ? "" : "s"}`,
+        keywordLines.NUMBER_OF_SETS,
+      );
     }
     tables.push({ keywords, declared, fields, sets, setLines });
     keywords = {};
@@ -107,13 +119,17 @@ export function parseCgats(text: string): CgatsFile {
     const first = tokens[0]!;
     if (identifier === undefined) {
       if (first.quoted || tokens.length > 1 || /^(BEGIN_|END_|NUMBER_OF_|KEYWORD$)/.test(first.text)) {
-        throw new DataFileError(`the first line must be the file identifier (e.g. CGATS.17), found ${JSON.stringify(lines[i]!.trim())}`, n);
+        throw new DataFileError(
+          `the first line must be the file identifier (e.g. CGATS.17), found ${JSON.stringify(lines[i]!.trim())}`,
+          n,
+        );
       }
       identifier = first.text;
       continue;
     }
     if (state === "header") {
-      if (first.quoted || !KEYWORD_NAME.test(first.text)) throw new DataFileError(`expected a keyword, found ${JSON.stringify(first.text)}`, n);
+      if (first.quoted || !KEYWORD_NAME.test(first.text))
+        throw new DataFileError(`expected a keyword, found ${JSON.stringify(first.text)}`, n);
       const word = first.text;
       if (word === "BEGIN_DATA_FORMAT") {
         state = "format";
@@ -128,18 +144,28 @@ export function parseCgats(text: string): CgatsFile {
       }
       if (word === "BEGIN_DATA") {
         if (tokens.length > 1) throw new DataFileError("BEGIN_DATA must stand alone on its line", n);
-        if (fields.length === 0) throw new DataFileError("BEGIN_DATA comes before any BEGIN_DATA_FORMAT … END_DATA_FORMAT block naming the fields", n);
+        if (fields.length === 0)
+          throw new DataFileError(
+            "BEGIN_DATA comes before any BEGIN_DATA_FORMAT … END_DATA_FORMAT block naming the fields",
+            n,
+          );
         state = "data";
         openedAt = n;
         continue;
       }
-      if (word === "END_DATA" || word === "END_DATA_FORMAT") throw new DataFileError(`${word} without a matching BEGIN`, n);
+      if (word === "END_DATA" || word === "END_DATA_FORMAT")
+        throw new DataFileError(`${word} without a matching BEGIN`, n);
       if (word === "KEYWORD") {
-        if (tokens.length !== 2) throw new DataFileError('KEYWORD takes one name, e.g. KEYWORD "MY_FIELD"', n);
+        if (tokens.length !== 2)
+          throw new DataFileError('KEYWORD takes one name, e.g. KEYWORD "MY_FIELD"', n);
         declared.push(tokens[1]!.text);
         continue;
       }
-      if (tokens.length > 2) throw new DataFileError(`keyword ${word} has ${tokens.length - 1} values; quote a value that contains spaces`, n);
+      if (tokens.length > 2)
+        throw new DataFileError(
+          `keyword ${word} has ${tokens.length - 1} values; quote a value that contains spaces`,
+          n,
+        );
       const value = tokens[1]?.text ?? "";
       if ((word === "NUMBER_OF_FIELDS" || word === "NUMBER_OF_SETS") && !/^\d+$/.test(value)) {
         throw new DataFileError(`${word} must be a whole number, found ${JSON.stringify(value)}`, n);
@@ -154,7 +180,10 @@ export function parseCgats(text: string): CgatsFile {
           state = "header";
           checkFieldCount(fields, keywords, keywordLines, n);
         } else if (state === "header") {
-          throw new DataFileError(`unexpected ${JSON.stringify(t.text)} after END_DATA_FORMAT on the same line`, n);
+          throw new DataFileError(
+            `unexpected ${JSON.stringify(t.text)} after END_DATA_FORMAT on the same line`,
+            n,
+          );
         } else {
           fields.push(t.text);
         }
@@ -169,12 +198,16 @@ export function parseCgats(text: string): CgatsFile {
       continue;
     }
     if (tokens.length !== fields.length) {
-      throw new DataFileError(`this set has ${tokens.length} value${tokens.length === 1 ? "" : "s"} but the data format names ${fields.length} fields`, n);
+      throw new DataFileError(
+        `this set has ${tokens.length} value${tokens.length === 1 ? "" : "s"} but the data format names ${fields.length} fields`,
+        n,
+      );
     }
     const row: CgatsValue[] = tokens.map((t, k) => {
       const field = fields[k]!;
       if (t.quoted) {
-        if (isNumericCgatsField(field)) throw new DataFileError(`field ${field} must be a number, found the text "${t.text}"`, n);
+        if (isNumericCgatsField(field))
+          throw new DataFileError(`field ${field} must be a number, found the text "${t.text}"`, n);
         return t.text;
       }
       const v = readNumber(t.text, ".");
@@ -188,23 +221,43 @@ export function parseCgats(text: string): CgatsFile {
     setLines.push(n);
   }
   if (identifier === undefined) throw new DataFileError("the file is empty");
-  if (state === "format") throw new DataFileError(`BEGIN_DATA_FORMAT on line ${openedAt} is never closed by END_DATA_FORMAT`, lines.length);
-  if (state === "data") throw new DataFileError(`BEGIN_DATA on line ${openedAt} is never closed by END_DATA`, lines.length);
-  if (tables.length === 0) throw new DataFileError("the file has no data block (BEGIN_DATA … END_DATA)", lines.length);
+  if (state === "format")
+    throw new DataFileError(
+      `BEGIN_DATA_FORMAT on line ${openedAt} is never closed by END_DATA_FORMAT`,
+      lines.length,
+    );
+  if (state === "data")
+    throw new DataFileError(`BEGIN_DATA on line ${openedAt} is never closed by END_DATA`, lines.length);
+  if (tables.length === 0)
+    throw new DataFileError("the file has no data block (BEGIN_DATA … END_DATA)", lines.length);
   if (Object.keys(keywords).length > 0 || fields.length > 0) {
-    throw new DataFileError("header lines after the last END_DATA are not followed by a data block", lines.length);
+    throw new DataFileError(
+      "header lines after the last END_DATA are not followed by a data block",
+      lines.length,
+    );
   }
-  noteMethod("data files", `A CGATS.17 file (identifier ${identifier}) with ${tables.length} table${tables.length === 1 ? "" : "s"} (${tables.map((t) => `${t.sets.length} set${t.sets.length === 1 ? "" : "s"} × ${t.fields.length} field${t.fields.length === 1 ? "" : "s"}`).join("; ")}) was read.`);
+  noteMethod(
+    "data files",
+    `A CGATS.17 file (identifier ${identifier}) with ${tables.length} table${tables.length === 1 ? "" : "s"} (${tables.map((t) => `${t.sets.length} set${t.sets.length === 1 ? "" : "s"} × ${t.fields.length} field${t.fields.length === 1 ? "" : "s"}`).join("; ")}) was read.`,
+  );
   return { identifier, tables, comments };
 }
 
-function checkFieldCount(fields: string[], keywords: Record<string, string>, lines: Record<string, number>, n: number): void {
+function checkFieldCount(
+  fields: string[],
+  keywords: Record<string, string>,
+  lines: Record<string, number>,
+  n: number,
+): void {
   if (fields.length === 0) throw new DataFileError("the data format block names no fields", n);
   const dup = fields.find((f, i) => fields.indexOf(f) !== i);
   if (dup) throw new DataFileError(`field ${dup} is named twice in the data format`, n);
   const declared = keywords.NUMBER_OF_FIELDS;
   if (declared !== undefined && Number(declared) !== fields.length) {
-    throw new DataFileError(`NUMBER_OF_FIELDS says ${declared} but the data format names ${fields.length} fields`, lines.NUMBER_OF_FIELDS);
+    throw new DataFileError(
+      `NUMBER_OF_FIELDS says ${declared} but the data format names ${fields.length} fields`,
+      lines.NUMBER_OF_FIELDS,
+    );
   }
 }
 

@@ -14,8 +14,20 @@ import type { ValueScale } from "./value-scale.ts";
 
 /** Header keywords the CGATS.17 text format defines (no KEYWORD declaration needed). */
 export const CGATS_STANDARD_KEYWORDS = [
-  "ORIGINATOR", "DESCRIPTOR", "CREATED", "MANUFACTURER", "PROD_DATE", "SERIAL", "MATERIAL", "INSTRUMENTATION",
-  "MEASUREMENT_SOURCE", "PRINT_CONDITIONS", "SAMPLE_BACKING", "FILTER", "POLARIZATION", "WEIGHTING_FUNCTION",
+  "ORIGINATOR",
+  "DESCRIPTOR",
+  "CREATED",
+  "MANUFACTURER",
+  "PROD_DATE",
+  "SERIAL",
+  "MATERIAL",
+  "INSTRUMENTATION",
+  "MEASUREMENT_SOURCE",
+  "PRINT_CONDITIONS",
+  "SAMPLE_BACKING",
+  "FILTER",
+  "POLARIZATION",
+  "WEIGHTING_FUNCTION",
   "COMPUTATIONAL_PARAMETER",
 ] as const;
 
@@ -39,7 +51,10 @@ export interface CgatsWriteInput {
 }
 
 function quote(value: string, what: string): string {
-  if (/["\r\n]/.test(value)) throw new Error(`formatCgats: ${what} ${JSON.stringify(value)} contains a double quote or line break, which CGATS text cannot hold`);
+  if (/["\r\n]/.test(value))
+    throw new Error(
+      `formatCgats: ${what} ${JSON.stringify(value)} contains a double quote or line break, which CGATS text cannot hold`,
+    );
   return `"${value}"`;
 }
 
@@ -56,28 +71,38 @@ export function formatCgats(input: CgatsWriteInput): string {
   if (measured.length === 0) throw new Error("formatCgats: nothing to write; give spectra, XYZ and/or Lab");
   const n = counts[0]![1];
   const odd = counts.find(([, c]) => c !== n);
-  if (odd) throw new Error(`formatCgats: ${counts.map(([k, c]) => `${c} ${k}`).join(", ")} — every list must have one entry per sample`);
+  if (odd)
+    throw new Error(
+      `formatCgats: ${counts.map(([k, c]) => `${c} ${k}`).join(", ")} — every list must have one entry per sample`,
+    );
   if (n === 0) throw new Error("formatCgats: no samples to write");
   const digits = input.digits ?? 6;
-  if (!Number.isInteger(digits) || digits < 1 || digits > 17) throw new Error(`formatCgats: digits ${digits} must be a whole number from 1 to 17`);
+  if (!Number.isInteger(digits) || digits < 1 || digits > 17)
+    throw new Error(`formatCgats: digits ${digits} must be a whole number from 1 to 17`);
   const scale = input.scale ?? "fraction";
-  if (scale !== "fraction" && scale !== "percent") throw new Error(`formatCgats: scale "${String(scale)}" is not "fraction" or "percent"`);
+  if (scale !== "fraction" && scale !== "percent")
+    throw new Error(`formatCgats: scale "${String(scale)}" is not "fraction" or "percent"`);
   const spectra = input.spectra ?? [];
   if (spectra.length > 0) requireSameGrid(spectra, "formatCgats");
   if (scale === "percent") {
     const other = spectra.find((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
-    if (other) throw new Error(`formatCgats: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`);
+    if (other)
+      throw new Error(
+        `formatCgats: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`,
+      );
   }
   const factor = scale === "percent" ? 100 : 1;
   const ids = input.sampleIds ?? Array.from({ length: n }, (_, i) => i + 1);
   const idText = ids.map((id) => {
     if (typeof id === "number") {
-      if (!Number.isFinite(id)) throw new Error(`formatCgats: sample identifier ${id} is not a finite number`);
+      if (!Number.isFinite(id))
+        throw new Error(`formatCgats: sample identifier ${id} is not a finite number`);
       return String(id);
     }
     return quote(String(id), "sample identifier");
   });
-  if (new Set(ids.map(String)).size !== ids.length) throw new Error("formatCgats: sample identifiers must be unique");
+  if (new Set(ids.map(String)).size !== ids.length)
+    throw new Error("formatCgats: sample identifiers must be unique");
 
   const fields = ["SAMPLE_ID"];
   if (input.sampleNames) fields.push("SAMPLE_NAME");
@@ -87,15 +112,29 @@ export function formatCgats(input: CgatsWriteInput): string {
   if (input.Lab) fields.push("LAB_L", "LAB_A", "LAB_B");
 
   const lines: string[] = [input.identifier ?? "CGATS.17"];
-  if (!/^\S+$/.test(lines[0]!)) throw new Error(`formatCgats: identifier ${JSON.stringify(lines[0])} must be one word`);
+  if (!/^\S+$/.test(lines[0]!))
+    throw new Error(`formatCgats: identifier ${JSON.stringify(lines[0])} must be one word`);
   const keywords = input.keywords ?? {};
   for (const [key, value] of Object.entries(keywords)) {
-    if (!/^[A-Z][A-Z0-9_]*$/.test(key)) throw new Error(`formatCgats: keyword ${JSON.stringify(key)} must be upper-case letters, digits and underscores`);
-    if (/^(NUMBER_OF_|BEGIN_|END_|KEYWORD$)/.test(key)) throw new Error(`formatCgats: keyword ${key} is written by the writer itself`);
+    if (!/^[A-Z][A-Z0-9_]*$/.test(key))
+      throw new Error(
+        `formatCgats: keyword ${JSON.stringify(key)} must be upper-case letters, digits and underscores`,
+      );
+    if (/^(NUMBER_OF_|BEGIN_|END_|KEYWORD$)/.test(key))
+      throw new Error(`formatCgats: keyword ${key} is written by the writer itself`);
     if (!(CGATS_STANDARD_KEYWORDS as readonly string[]).includes(key)) lines.push(`KEYWORD\t"${key}"`);
-    lines.push(`${key}\t${typeof value === "number" ? writeNumber(value, ".", 12) : quote(String(value), `keyword ${key}`)}`);
+    lines.push(
+      `${key}\t${typeof value === "number" ? writeNumber(value, ".", 12) : quote(String(value), `keyword ${key}`)}`,
+    );
   }
-  lines.push(`NUMBER_OF_FIELDS\t${fields.length}`, "BEGIN_DATA_FORMAT", fields.join("\t"), "END_DATA_FORMAT", `NUMBER_OF_SETS\t${n}`, "BEGIN_DATA");
+  lines.push(
+    `NUMBER_OF_FIELDS\t${fields.length}`,
+    "BEGIN_DATA_FORMAT",
+    fields.join("\t"),
+    "END_DATA_FORMAT",
+    `NUMBER_OF_SETS\t${n}`,
+    "BEGIN_DATA",
+  );
   for (let i = 0; i < n; i++) {
     const row = [idText[i]!];
     if (input.sampleNames) row.push(quote(input.sampleNames[i]!, "sample name"));
@@ -111,7 +150,10 @@ export function formatCgats(input: CgatsWriteInput): string {
     lines.push(row.join("\t"));
   }
   lines.push("END_DATA");
-  noteMethod("data files", `CGATS.17 text was written with ${digits} significant digits${spectra.length && scale === "percent" ? ", spectral values in percent" : ""}.`);
+  noteMethod(
+    "data files",
+    `CGATS.17 text was written with ${digits} significant digits${spectra.length && scale === "percent" ? ", spectral values in percent" : ""}.`,
+  );
   return lines.join("\n") + "\n";
 }
 

@@ -78,9 +78,12 @@ function countOutsideQuotes(text: string, ch: string): number {
 
 /** Parses spectral CSV/TSV text (wavelength column + one column per sample) into spectra; see SpectraCsvReadOptions. */
 export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): SpectraCsvResult {
-  if (typeof text !== "string") throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
+  if (typeof text !== "string")
+    throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
   if (!options || !options.quantity) {
-    throw new DataFileError('state what the columns hold, e.g. { quantity: "transmittance" } or { quantity: "reflectance" }; it is never assumed');
+    throw new DataFileError(
+      'state what the columns hold, e.g. { quantity: "transmittance" } or { quantity: "reflectance" }; it is never assumed',
+    );
   }
   const inferred: string[] = [];
   const { comments, header } = contentLines(text);
@@ -91,7 +94,11 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   if (stated === "auto") {
     const counts = (["\t", ";", ","] as const).map((d) => [d, countOutsideQuotes(header.text, d)] as const);
     const found = counts.find(([, n]) => n > 0);
-    if (!found) throw new DataFileError("the header has a single column; a spectral table needs a wavelength column and at least one sample column (separated by comma, semicolon or tab)", header.number);
+    if (!found)
+      throw new DataFileError(
+        "the header has a single column; a spectral table needs a wavelength column and at least one sample column (separated by comma, semicolon or tab)",
+        header.number,
+      );
     delimiter = found[0];
     inferred.push(`The field separator (${DELIMITER_NAMES[delimiter]}) was inferred from the header line.`);
   } else if (stated === "," || stated === ";" || stated === "\t") {
@@ -113,15 +120,26 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
     }) as unknown as { record: string[]; info: { lines: number } }[];
   } catch (e) {
     const err = e as { lines?: number; message: string };
-    throw new DataFileError(`not a well-formed ${DELIMITER_NAMES[delimiter]}-separated table: ${err.message}`, err.lines);
+    throw new DataFileError(
+      `not a well-formed ${DELIMITER_NAMES[delimiter]}-separated table: ${err.message}`,
+      err.lines,
+    );
   }
   if (records.length < 2) throw new DataFileError("the file has a header but no data rows", header.number);
   const head = records[0]!.record.map((h) => h.trim());
   const names = head.slice(1);
   names.forEach((n, i) => {
-    if (n === "") throw new DataFileError(`sample column ${i + 2} has an empty header; every sample needs a name`, records[0]!.info.lines);
+    if (n === "")
+      throw new DataFileError(
+        `sample column ${i + 2} has an empty header; every sample needs a name`,
+        records[0]!.info.lines,
+      );
     const first = names.indexOf(n);
-    if (first !== i) throw new DataFileError(`sample name "${n}" appears twice (columns ${first + 2} and ${i + 2})`, records[0]!.info.lines);
+    if (first !== i)
+      throw new DataFileError(
+        `sample name "${n}" appears twice (columns ${first + 2} and ${i + 2})`,
+        records[0]!.info.lines,
+      );
   });
   const rows = records.slice(1);
 
@@ -137,7 +155,10 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
       }
     }
     if (commaLine !== undefined && pointLine !== undefined) {
-      throw new DataFileError(`the numbers mix decimal commas (first on line ${commaLine}) and decimal points (first on line ${pointLine}); state decimal: "." or ","`, Math.max(commaLine, pointLine));
+      throw new DataFileError(
+        `the numbers mix decimal commas (first on line ${commaLine}) and decimal points (first on line ${pointLine}); state decimal: "." or ","`,
+        Math.max(commaLine, pointLine),
+      );
     }
     decimal = commaLine !== undefined ? "," : ".";
     inferred.push(
@@ -153,7 +174,9 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
     throw new DataFileError(`decimal ${JSON.stringify(statedDecimal)} is not ".", "," or "auto"`);
   }
   if (decimal === "," && delimiter === ",") {
-    throw new DataFileError("a decimal comma cannot be used with comma-separated fields; the file must use semicolons or tabs");
+    throw new DataFileError(
+      "a decimal comma cannot be used with comma-separated fields; the file must use semicolons or tabs",
+    );
   }
 
   const wavelengths: number[] = [];
@@ -161,18 +184,38 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   for (const r of rows) {
     const line = r.info.lines;
     const wl = readNumber(r.record[0]!, decimal);
-    if (wl === undefined) throw new DataFileError(`the first column must hold wavelengths in nm, but it holds "${r.record[0]}", which is not a number${decimal === "," ? " (decimal comma expected)" : ""}`, line);
-    if (wl < 100 || wl > 100000) throw new DataFileError(`wavelength ${wl} is not plausible in nanometres (expected 100–100000 nm)`, line);
+    if (wl === undefined)
+      throw new DataFileError(
+        `the first column must hold wavelengths in nm, but it holds "${r.record[0]}", which is not a number${decimal === "," ? " (decimal comma expected)" : ""}`,
+        line,
+      );
+    if (wl < 100 || wl > 100000)
+      throw new DataFileError(
+        `wavelength ${wl} is not plausible in nanometres (expected 100–100000 nm)`,
+        line,
+      );
     const prev = wavelengths[wavelengths.length - 1];
-    if (prev !== undefined && wl <= prev) throw new DataFileError(`wavelength ${wl} nm does not increase after ${prev} nm (rows must be sorted, without repeats)`, line);
+    if (prev !== undefined && wl <= prev)
+      throw new DataFileError(
+        `wavelength ${wl} nm does not increase after ${prev} nm (rows must be sorted, without repeats)`,
+        line,
+      );
     wavelengths.push(wl);
     for (let c = 1; c < r.record.length; c++) {
       const cell = r.record[c]!;
-      if (cell.trim() === "") throw new DataFileError(`sample "${names[c - 1]}" has no value at ${wl} nm (empty cell); missing values are not filled in`, line);
+      if (cell.trim() === "")
+        throw new DataFileError(
+          `sample "${names[c - 1]}" has no value at ${wl} nm (empty cell); missing values are not filled in`,
+          line,
+        );
       const v = readNumber(cell, decimal);
       if (v === undefined) {
-        const hint = decimal === "." && hasDecimalComma(cell) ? " (it has a decimal comma; state decimal: \",\")" : "";
-        throw new DataFileError(`sample "${names[c - 1]}" at ${wl} nm: "${cell}" is not a number${hint}`, line);
+        const hint =
+          decimal === "." && hasDecimalComma(cell) ? ' (it has a decimal comma; state decimal: ",")' : "";
+        throw new DataFileError(
+          `sample "${names[c - 1]}" at ${wl} nm: "${cell}" is not a number${hint}`,
+          line,
+        );
       }
       columns[c - 1]!.push(v);
     }
@@ -189,7 +232,11 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   }
 
   const spectra = names.map((name, c) =>
-    spectrum(wavelengths, columns[c]!.map((v) => v * factor), { name, quantity: options.quantity, unit: ratio ? "" : (options.unit ?? "") }),
+    spectrum(
+      wavelengths,
+      columns[c]!.map((v) => v * factor),
+      { name, quantity: options.quantity, unit: ratio ? "" : (options.unit ?? "") },
+    ),
   );
   const g = gridOf(spectra[0]!);
   noteMethod(

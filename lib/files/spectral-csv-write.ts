@@ -24,41 +24,69 @@ export interface SpectraCsvWriteOptions {
 
 /** One field, quoted when it holds the separator, a quote, a line break or edge spaces (RFC 4180 §2). */
 function field(text: string, delimiter: string): string {
-  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim() ? `"${text.replace(/"/g, '""')}"` : text;
+  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim()
+    ? `"${text.replace(/"/g, '""')}"`
+    : text;
 }
 
 /** The spectra (all on one grid) as CSV/TSV text with a header row; the inverse of parseSpectraCsv. */
 export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraCsvWriteOptions = {}): string {
-  if (!Array.isArray(spectra) || spectra.length === 0) throw new Error("formatSpectraCsv: no spectra to write");
+  if (!Array.isArray(spectra) || spectra.length === 0)
+    throw new Error("formatSpectraCsv: no spectra to write");
   requireSameGrid(spectra, "formatSpectraCsv");
   const delimiter = options.delimiter ?? ",";
-  if (![",", ";", "\t"].includes(delimiter)) throw new Error(`formatSpectraCsv: delimiter ${JSON.stringify(delimiter)} is not ",", ";" or "\\t"`);
+  if (![",", ";", "\t"].includes(delimiter))
+    throw new Error(`formatSpectraCsv: delimiter ${JSON.stringify(delimiter)} is not ",", ";" or "\\t"`);
   const decimal = options.decimal ?? ".";
-  if (decimal !== "." && decimal !== ",") throw new Error(`formatSpectraCsv: decimal ${JSON.stringify(decimal)} is not "." or ","`);
-  if (decimal === "," && delimiter === ",") throw new Error("formatSpectraCsv: a decimal comma needs \";\" or tab as the separator");
+  if (decimal !== "." && decimal !== ",")
+    throw new Error(`formatSpectraCsv: decimal ${JSON.stringify(decimal)} is not "." or ","`);
+  if (decimal === "," && delimiter === ",")
+    throw new Error('formatSpectraCsv: a decimal comma needs ";" or tab as the separator');
   const digits = options.digits ?? 6;
-  if (!Number.isInteger(digits) || digits < 1 || digits > 17) throw new Error(`formatSpectraCsv: digits ${digits} must be a whole number from 1 to 17`);
+  if (!Number.isInteger(digits) || digits < 1 || digits > 17)
+    throw new Error(`formatSpectraCsv: digits ${digits} must be a whole number from 1 to 17`);
   const scale = options.scale ?? "fraction";
-  if (scale !== "fraction" && scale !== "percent") throw new Error(`formatSpectraCsv: scale "${String(scale)}" is not "fraction" or "percent"`);
-  const factor = (s: Spectrum) => (scale === "percent" && (s.quantity === "reflectance" || s.quantity === "transmittance") ? 100 : 1);
+  if (scale !== "fraction" && scale !== "percent")
+    throw new Error(`formatSpectraCsv: scale "${String(scale)}" is not "fraction" or "percent"`);
+  const factor = (s: Spectrum) =>
+    scale === "percent" && (s.quantity === "reflectance" || s.quantity === "transmittance") ? 100 : 1;
   if (scale === "percent") {
     const other = spectra.find((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
-    if (other) throw new Error(`formatSpectraCsv: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`);
+    if (other)
+      throw new Error(
+        `formatSpectraCsv: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`,
+      );
   }
   const names = spectra.map((s) => s.name);
   const dup = names.find((n, i) => names.indexOf(n) !== i);
-  if (dup !== undefined) throw new Error(`formatSpectraCsv: two spectra are named "${dup}"; column names must differ`);
+  if (dup !== undefined)
+    throw new Error(`formatSpectraCsv: two spectra are named "${dup}"; column names must differ`);
   const lines: string[] = [];
-  for (const c of options.comments ?? []) for (const part of String(c).split(/\r\n|\n|\r/)) lines.push(`# ${part}`);
-  lines.push([options.wavelengthHeader ?? "wavelength_nm", ...names].map((t) => field(t, delimiter)).join(delimiter));
+  for (const c of options.comments ?? [])
+    for (const part of String(c).split(/\r\n|\n|\r/)) lines.push(`# ${part}`);
+  lines.push(
+    [options.wavelengthHeader ?? "wavelength_nm", ...names].map((t) => field(t, delimiter)).join(delimiter),
+  );
   spectra[0]!.wavelengths.forEach((w: number, i: number) => {
-    lines.push([writeNumber(w, decimal, 10), ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits))].join(delimiter));
+    lines.push(
+      [
+        writeNumber(w, decimal, 10),
+        ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits)),
+      ].join(delimiter),
+    );
   });
-  noteMethod("data files", `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`);
+  noteMethod(
+    "data files",
+    `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
+  );
   return lines.join("\n") + "\n";
 }
 
 /** Writes the spectra to a CSV/TSV file (path relative to the notebook's folder); see formatSpectraCsv. */
-export function writeSpectraCsv(path: string, spectra: readonly Spectrum[], options: SpectraCsvWriteOptions = {}): void {
+export function writeSpectraCsv(
+  path: string,
+  spectra: readonly Spectrum[],
+  options: SpectraCsvWriteOptions = {},
+): void {
   writeFileSync(path, formatSpectraCsv(spectra, options), "utf8");
 }

@@ -21,11 +21,20 @@ export const PERCENT_THRESHOLD = 1.5;
  * Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so.
  * An inferred scale is worth confirming by stating `scale` (percent values of a very dark sample read as fractions).
  */
-export function decideValueScale(values: Iterable<number>, stated: ValueScale | "auto" | undefined, what: string): ScaleDecision {
+export function decideValueScale(
+  values: Iterable<number>,
+  stated: ValueScale | "auto" | undefined,
+  what: string,
+): ScaleDecision {
   if (stated === "fraction" || stated === "percent") {
-    return { scale: stated, inferred: false, statement: `The ${what} values were stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.` };
+    return {
+      scale: stated,
+      inferred: false,
+      statement: `The ${what} values were stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.`,
+    };
   }
-  if (stated !== undefined && stated !== "auto") throw new Error(`scale "${String(stated)}" is not "fraction", "percent" or "auto"`);
+  if (stated !== undefined && stated !== "auto")
+    throw new Error(`scale "${String(stated)}" is not "fraction", "percent" or "auto"`);
   let max = -Infinity;
   for (const v of values) if (v > max) max = v;
   if (max > PERCENT_THRESHOLD) {

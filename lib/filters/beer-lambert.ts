@@ -29,7 +29,8 @@ export function pathRatio(change: PathChange): number {
   for (const key of ["thickness", "concentration"] as const) {
     const pair = change[key];
     if (pair === undefined) continue;
-    if (!Array.isArray(pair) || pair.length !== 2) throw new Error(`${key} must be a [from, to] pair, got ${JSON.stringify(pair)}`);
+    if (!Array.isArray(pair) || pair.length !== 2)
+      throw new Error(`${key} must be a [from, to] pair, got ${JSON.stringify(pair)}`);
     const from = requirePositive(pair[0], `${key} (from)`);
     const to = requireNonNegative(pair[1], `${key} (to)`);
     ratio *= to / from;
@@ -41,24 +42,37 @@ export function pathRatio(change: PathChange): number {
 }
 
 /** Internal transmittance spectrum scaled to another thickness and/or concentration (Beer–Lambert: τᵢ^ratio). */
-export function scaleInternalTransmittance(internal: Spectrum, change: PathChange | number, name?: string): Spectrum {
-  const ratio = typeof change === "number" ? requireNonNegative(change, "Beer–Lambert path ratio") : pathRatio(change);
+export function scaleInternalTransmittance(
+  internal: Spectrum,
+  change: PathChange | number,
+  name?: string,
+): Spectrum {
+  const ratio =
+    typeof change === "number" ? requireNonNegative(change, "Beer–Lambert path ratio") : pathRatio(change);
   requireFractionSpectrum(internal, "internal transmittance");
   noteMethod(
     "optics",
     "Internal transmittance was scaled to other thicknesses or concentrations by the Beer–Lambert law, τᵢ' = τᵢ^((d'c')/(dc)) (IUPAC Gold Book).",
   );
-  return spectrum(internal.wavelengths, internal.values.map((t) => t ** ratio), {
-    name: name ?? `${internal.name} ×${+ratio.toPrecision(6)} path`,
-    quantity: "transmittance",
-  });
+  return spectrum(
+    internal.wavelengths,
+    internal.values.map((t) => t ** ratio),
+    {
+      name: name ?? `${internal.name} ×${+ratio.toPrecision(6)} path`,
+      quantity: "transmittance",
+    },
+  );
 }
 
 /**
  * A measured (external) filter transmittance at another thickness/concentration: surface reflections removed with
  * the plate relation, the bulk scaled by Beer–Lambert, and the surfaces put back (Hecht §4.6; IUPAC Gold Book).
  */
-export function scaleFilterTransmittance(external: Spectrum, change: PathChange, options: PlateOptions): Spectrum {
+export function scaleFilterTransmittance(
+  external: Spectrum,
+  change: PathChange,
+  options: PlateOptions,
+): Spectrum {
   const inner = internalTransmittance(external, options);
   const scaled = scaleInternalTransmittance(inner, change);
   return externalTransmittance(scaled, { ...options, name: options.name ?? `${external.name} (rescaled)` });

@@ -7,7 +7,8 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 
 /** Throws unless `value` is a finite number. */
 export function requireFinite(value: number, what: string): number {
-  if (typeof value !== "number" || !Number.isFinite(value)) throw new Error(`${what} is ${String(value)}, not a finite number`);
+  if (typeof value !== "number" || !Number.isFinite(value))
+    throw new Error(`${what} is ${String(value)}, not a finite number`);
   return value;
 }
 
@@ -28,7 +29,10 @@ export function requirePositive(value: number, what: string): number {
 /** Throws unless `value` is a fraction in [0, 1] (transmittance, reflectance, coverage). */
 export function requireFraction(value: number, what: string): number {
   requireFinite(value, what);
-  if (value < 0 || value > 1) throw new Error(`${what} is ${value}; it must be a fraction from 0 to 1 (percent values must be divided by 100)`);
+  if (value < 0 || value > 1)
+    throw new Error(
+      `${what} is ${value}; it must be a fraction from 0 to 1 (percent values must be divided by 100)`,
+    );
   return value;
 }
 

@@ -12,7 +12,12 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFractionSpectrum, requireSameGrid } from "./checks.ts";
-import { describeRefractiveIndex, indexAtWavelengths, surfaceReflectance, type RefractiveIndex } from "./fresnel.ts";
+import {
+  describeRefractiveIndex,
+  indexAtWavelengths,
+  surfaceReflectance,
+  type RefractiveIndex,
+} from "./fresnel.ts";
 import { externalFromInternal, internalTransmittance, plateReflectanceValue } from "./plate.ts";
 
 /** One filter of a stack: its internal (bulk) transmittance and refractive index. */
@@ -24,15 +29,28 @@ export interface FilterElement {
 }
 
 /** A filter element from its internal transmittance (fractions) and refractive index (required). */
-export function filterElement(internal: Spectrum, options: { refractiveIndex: RefractiveIndex; name?: string }): FilterElement {
+export function filterElement(
+  internal: Spectrum,
+  options: { refractiveIndex: RefractiveIndex; name?: string },
+): FilterElement {
   if (!options || options.refractiveIndex === undefined) {
-    throw new Error(`filterElement "${internal.name}": give its refractiveIndex (e.g. 1.52); it is never assumed`);
+    throw new Error(
+      `filterElement "${internal.name}": give its refractiveIndex (e.g. 1.52); it is never assumed`,
+    );
   }
   requireFractionSpectrum(internal, "internal transmittance");
   indexAtWavelengths(options.refractiveIndex, internal.wavelengths).forEach((n, i) => {
-    if (!(n >= 1)) throw new Error(`filterElement "${internal.name}": refractive index ${n} at ${internal.wavelengths[i]} nm is below 1`);
+    if (!(n >= 1))
+      throw new Error(
+        `filterElement "${internal.name}": refractive index ${n} at ${internal.wavelengths[i]} nm is below 1`,
+      );
   });
-  return { kind: "filter element", name: options.name ?? internal.name, internal, refractiveIndex: options.refractiveIndex };
+  return {
+    kind: "filter element",
+    name: options.name ?? internal.name,
+    internal,
+    refractiveIndex: options.refractiveIndex,
+  };
 }
 
 /** A filter element from a measured external transmittance: the surface reflections are removed first (plate relation). */
@@ -41,14 +59,18 @@ export function filterElementFromMeasurement(
   options: { refractiveIndex: RefractiveIndex; name?: string; aboveClearPlate?: "error" | "clip" },
 ): FilterElement {
   const internal = internalTransmittance(external, options);
-  return filterElement(internal, { refractiveIndex: options.refractiveIndex, name: options.name ?? external.name });
+  return filterElement(internal, {
+    refractiveIndex: options.refractiveIndex,
+    name: options.name ?? external.name,
+  });
 }
 
 /** How the elements of a stack are joined (see the file header for the formula of each). */
 export type StackJoin = "no surface losses" | "cemented" | "air gaps" | "air gaps with interreflection";
 
 const JOIN_WORDS: Record<StackJoin, string> = {
-  "no surface losses": "as the product of the elements' internal transmittances (no surface reflection losses)",
+  "no surface losses":
+    "as the product of the elements' internal transmittances (no surface reflection losses)",
   cemented:
     "as cemented (index-matched) elements: the product of internal transmittances with reflection at the two outer faces only, including multiple reflections between them",
   "air gaps":
@@ -58,19 +80,32 @@ const JOIN_WORDS: Record<StackJoin, string> = {
 };
 
 /** Transmittance of filters in series for the chosen kind of join (formulas in the file header). */
-export function stackTransmittance(elements: readonly FilterElement[], options: { join: StackJoin; name?: string }): Spectrum {
-  if (!Array.isArray(elements) || elements.length === 0) throw new Error("stackTransmittance: the stack has no elements");
+export function stackTransmittance(
+  elements: readonly FilterElement[],
+  options: { join: StackJoin; name?: string },
+): Spectrum {
+  if (!Array.isArray(elements) || elements.length === 0)
+    throw new Error("stackTransmittance: the stack has no elements");
   const join = options?.join;
   if (!(join in JOIN_WORDS)) {
-    throw new Error(`stackTransmittance: join "${String(join)}" is not one of ${Object.keys(JOIN_WORDS).map((k) => `"${k}"`).join(", ")}`);
+    throw new Error(
+      `stackTransmittance: join "${String(join)}" is not one of ${Object.keys(JOIN_WORDS)
+        .map((k) => `"${k}"`)
+        .join(", ")}`,
+    );
   }
   elements.forEach((e, i) => {
-    if (e?.kind !== "filter element") throw new Error(`stackTransmittance: element #${i + 1} is not a filter element (use filterElement(...))`);
+    if (e?.kind !== "filter element")
+      throw new Error(
+        `stackTransmittance: element #${i + 1} is not a filter element (use filterElement(...))`,
+      );
   });
   const internals = elements.map((e) => e.internal);
   requireSameGrid(internals, "stackTransmittance");
   const wl = internals[0]!.wavelengths;
-  const rho = elements.map((e) => indexAtWavelengths(e.refractiveIndex, wl).map((n) => surfaceReflectance(n)));
+  const rho = elements.map((e) =>
+    indexAtWavelengths(e.refractiveIndex, wl).map((n) => surfaceReflectance(n)),
+  );
   const values = wl.map((_: number, i: number): number => {
     const tau = elements.map((e) => e.internal.values[i]!);
     const product = tau.reduce((p, t) => p * t, 1);
@@ -103,5 +138,8 @@ export function stackTransmittance(elements: readonly FilterElement[], options: 
     "optics",
     `Filter stacks were computed ${JOIN_WORDS[join]}, with the refractive indices ${elements.map((e) => `${describeRefractiveIndex(e.refractiveIndex)} for ${e.name}`).join(", ")}.`,
   );
-  return spectrum(wl, values, { name: options.name ?? elements.map((e) => e.name).join(" + "), quantity: "transmittance" });
+  return spectrum(wl, values, {
+    name: options.name ?? elements.map((e) => e.name).join(" + "),
+    quantity: "transmittance",
+  });
 }

@@ -15,7 +15,9 @@ export function surfaceReflectance(index: number, outsideIndex = 1): number {
   requireFinite(index, "refractive index");
   requireFinite(outsideIndex, "refractive index of the surrounding medium");
   if (index < 1 || outsideIndex < 1) {
-    throw new Error(`refractive indices ${index} and ${outsideIndex}: optical glass and plastics have n ≥ 1; check the value`);
+    throw new Error(
+      `refractive indices ${index} and ${outsideIndex}: optical glass and plastics have n ≥ 1; check the value`,
+    );
   }
   return ((index - outsideIndex) / (index + outsideIndex)) ** 2;
 }
@@ -31,7 +33,11 @@ export function indexAtWavelengths(index: RefractiveIndex, wavelengths: readonly
 }
 
 /** Surface reflectance at normal incidence at each wavelength (Fresnel; Hecht, Optics §4.6.2). */
-export function surfaceReflectanceAt(index: RefractiveIndex, wavelengths: readonly number[], outsideIndex = 1): number[] {
+export function surfaceReflectanceAt(
+  index: RefractiveIndex,
+  wavelengths: readonly number[],
+  outsideIndex = 1,
+): number[] {
   noteMethod(
     "optics",
     "Surface reflection was computed at normal incidence from the refractive index, ρ = ((n − 1)/(n + 1))² (Fresnel equations; Hecht, Optics §4.6).",

@@ -6,14 +6,18 @@ import { requireFinite, requireFraction } from "./checks.ts";
 /** D = −log₁₀ T for a transmittance fraction T > 0 (ISO 5-1 transmission density). */
 export function opticalDensity(transmittance: number): number {
   requireFraction(transmittance, "transmittance");
-  if (transmittance === 0) throw new Error("transmittance 0 has infinite optical density; give a small positive floor for blocked bands");
+  if (transmittance === 0)
+    throw new Error(
+      "transmittance 0 has infinite optical density; give a small positive floor for blocked bands",
+    );
   return -Math.log10(transmittance);
 }
 
 /** T = 10^−D (ISO 5-1 transmission density, inverted). */
 export function transmittanceFromDensity(density: number): number {
   requireFinite(density, "optical density");
-  if (density < 0) throw new Error(`optical density ${density} is negative, i.e. a transmittance above 1; check the data`);
+  if (density < 0)
+    throw new Error(`optical density ${density} is negative, i.e. a transmittance above 1; check the data`);
   return 10 ** -density;
 }
 
@@ -24,10 +28,15 @@ export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
     try {
       return opticalDensity(t);
     } catch (e) {
-      throw new Error(`"${transmittance.name}" at ${transmittance.wavelengths[i]} nm: ${(e as Error).message}`);
+      throw new Error(
+        `"${transmittance.name}" at ${transmittance.wavelengths[i]} nm: ${(e as Error).message}`,
+      );
     }
   });
-  return spectrum(transmittance.wavelengths, values, { name: transmittance.name, quantity: "optical density" });
+  return spectrum(transmittance.wavelengths, values, {
+    name: transmittance.name,
+    quantity: "optical density",
+  });
 }
 
 /** Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ). */

@@ -29,12 +29,21 @@ export function logisticEdge(x: number, edgeWidth: number): number {
   return 1 / (1 + Math.exp((-x * 2 * Math.log(9)) / edgeWidth));
 }
 
-function shape(options: EdgeShape): { peak: number; floor: number; edgeWidth: number; wavelengths: number[] } {
+function shape(options: EdgeShape): {
+  peak: number;
+  floor: number;
+  edgeWidth: number;
+  wavelengths: number[];
+} {
   const peak = requireFraction(options.peak ?? 1, "pass-band transmittance (peak)");
   const floor = requireFraction(options.floor ?? 0, "blocking transmittance (floor)");
-  if (floor > peak) throw new Error(`the blocking transmittance ${floor} is above the pass-band transmittance ${peak}`);
+  if (floor > peak)
+    throw new Error(`the blocking transmittance ${floor} is above the pass-band transmittance ${peak}`);
   const edgeWidth = requireNonNegative(options.edgeWidth ?? 0, "edge width (nm)");
-  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.");
+  noteMethod(
+    "optics",
+    "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.",
+  );
   return { peak, floor, edgeWidth, wavelengths: gridWavelengths(options.grid ?? PARAMETRIC_GRID) };
 }
 
@@ -42,20 +51,28 @@ function shape(options: EdgeShape): { peak: number; floor: number; edgeWidth: nu
 export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "long-pass edge wavelength (nm)");
   const s = shape(options);
-  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(w - edge, s.edgeWidth)), {
-    name: options.name ?? `long-pass ${edge} nm`,
-    quantity: "transmittance",
-  });
+  return spectrum(
+    s.wavelengths,
+    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(w - edge, s.edgeWidth)),
+    {
+      name: options.name ?? `long-pass ${edge} nm`,
+      quantity: "transmittance",
+    },
+  );
 }
 
 /** A short-pass filter: passes below `edge` nm (its 50 % point) and blocks above (logistic edge; common practice, no source). */
 export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "short-pass edge wavelength (nm)");
   const s = shape(options);
-  return spectrum(s.wavelengths, s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(edge - w, s.edgeWidth)), {
-    name: options.name ?? `short-pass ${edge} nm`,
-    quantity: "transmittance",
-  });
+  return spectrum(
+    s.wavelengths,
+    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(edge - w, s.edgeWidth)),
+    {
+      name: options.name ?? `short-pass ${edge} nm`,
+      quantity: "transmittance",
+    },
+  );
 }
 
 /**
@@ -70,17 +87,30 @@ export function bandPassFilter(centre: number, width: number, options: EdgeShape
   const hi = centre + width / 2;
   return spectrum(
     s.wavelengths,
-    s.wavelengths.map((w) => s.floor + (s.peak - s.floor) * logisticEdge(w - lo, s.edgeWidth) * logisticEdge(hi - w, s.edgeWidth)),
+    s.wavelengths.map(
+      (w) =>
+        s.floor + (s.peak - s.floor) * logisticEdge(w - lo, s.edgeWidth) * logisticEdge(hi - w, s.edgeWidth),
+    ),
     { name: options.name ?? `band-pass ${centre}/${width} nm`, quantity: "transmittance" },
   );
 }
 
 /** A neutral density filter: T = 10^−D at every wavelength (ISO 5-1 transmission density). */
-export function neutralDensityFilter(density: number, options: { grid?: WavelengthGrid; name?: string } = {}): Spectrum {
+export function neutralDensityFilter(
+  density: number,
+  options: { grid?: WavelengthGrid; name?: string } = {},
+): Spectrum {
   requireNonNegative(density, "neutral density");
   const w = gridWavelengths(options.grid ?? PARAMETRIC_GRID);
-  noteMethod("optics", "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.");
-  return spectrum(w, w.map(() => 10 ** -density), { name: options.name ?? `ND ${density}`, quantity: "transmittance" });
+  noteMethod(
+    "optics",
+    "Parametric (modelled, not measured) filter curves were used; their smoothed edges are logistic with the stated 10–90 % edge width.",
+  );
+  return spectrum(
+    w,
+    w.map(() => 10 ** -density),
+    { name: options.name ?? `ND ${density}`, quantity: "transmittance" },
+  );
 }
 
 /**
@@ -91,11 +121,21 @@ export function dyeFilter(absorbance: Spectrum, options: { amount?: number; name
   const amount = requireNonNegative(options.amount ?? 1, "dye amount (relative concentration × path)");
   absorbance.values.forEach((a, i) => {
     requireFinite(a, `absorbance of "${absorbance.name}" at ${absorbance.wavelengths[i]} nm`);
-    if (a < 0) throw new Error(`absorbance of "${absorbance.name}" is ${a} at ${absorbance.wavelengths[i]} nm; a dye's absorbance cannot be negative`);
+    if (a < 0)
+      throw new Error(
+        `absorbance of "${absorbance.name}" is ${a} at ${absorbance.wavelengths[i]} nm; a dye's absorbance cannot be negative`,
+      );
   });
-  noteMethod("optics", "Dye layers were modelled by the Beer–Lambert law, τᵢ = 10^(−A·c·d) with decadic absorbance A (IUPAC Gold Book).");
-  return spectrum(absorbance.wavelengths, absorbance.values.map((a) => 10 ** (-amount * a)), {
-    name: options.name ?? `${absorbance.name} ×${amount}`,
-    quantity: "transmittance",
-  });
+  noteMethod(
+    "optics",
+    "Dye layers were modelled by the Beer–Lambert law, τᵢ = 10^(−A·c·d) with decadic absorbance A (IUPAC Gold Book).",
+  );
+  return spectrum(
+    absorbance.wavelengths,
+    absorbance.values.map((a) => 10 ** (-amount * a)),
+    {
+      name: options.name ?? `${absorbance.name} ×${amount}`,
+      quantity: "transmittance",
+    },
+  );
 }

@@ -40,7 +40,11 @@ export type AboveClearPlate = "error" | "clip";
  * Internal transmittance from a measured external one: the positive root of ρ²T τᵢ² + (1 − ρ)² τᵢ − T = 0
  * (the plate relation of Hecht, Optics §4.6, solved for τᵢ).
  */
-export function internalFromExternal(external: number, faceReflectance: number, above: AboveClearPlate = "error"): number {
+export function internalFromExternal(
+  external: number,
+  faceReflectance: number,
+  above: AboveClearPlate = "error",
+): number {
   requireFraction(external, "external transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -72,7 +76,9 @@ export interface InternalOptions extends PlateOptions {
 
 function requireIndex(options: PlateOptions | undefined, what: string): RefractiveIndex {
   if (!options || options.refractiveIndex === undefined) {
-    throw new Error(`${what}: give the plate's refractiveIndex (e.g. { refractiveIndex: 1.5 }); it is never assumed`);
+    throw new Error(
+      `${what}: give the plate's refractiveIndex (e.g. { refractiveIndex: 1.5 }); it is never assumed`,
+    );
   }
   return options.refractiveIndex;
 }
@@ -90,10 +96,14 @@ export function externalTransmittance(internal: Spectrum, options: PlateOptions)
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);
   notePlate(index);
-  return spectrum(internal.wavelengths, internal.values.map((t, i) => externalFromInternal(t, rho[i]!)), {
-    name: options.name ?? internal.name,
-    quantity: "transmittance",
-  });
+  return spectrum(
+    internal.wavelengths,
+    internal.values.map((t, i) => externalFromInternal(t, rho[i]!)),
+    {
+      name: options.name ?? internal.name,
+      quantity: "transmittance",
+    },
+  );
 }
 
 /** Internal transmittance from a measured external transmittance spectrum (plate relation solved for τᵢ). */
@@ -109,7 +119,10 @@ export function internalTransmittance(external: Spectrum, options: InternalOptio
       throw new Error(`"${external.name}" at ${external.wavelengths[i]} nm: ${(e as Error).message}`);
     }
   });
-  return spectrum(external.wavelengths, values, { name: options.name ?? external.name, quantity: "transmittance" });
+  return spectrum(external.wavelengths, values, {
+    name: options.name ?? external.name,
+    quantity: "transmittance",
+  });
 }
 
 /** Reflectance spectrum of a plate from its internal transmittance (plate relation, Hecht §4.6). */
@@ -118,8 +131,12 @@ export function plateReflectance(internal: Spectrum, options: PlateOptions): Spe
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);
   notePlate(index);
-  return spectrum(internal.wavelengths, internal.values.map((t, i) => plateReflectanceValue(t, rho[i]!)), {
-    name: options.name ?? `${internal.name} (reflectance)`,
-    quantity: "reflectance",
-  });
+  return spectrum(
+    internal.wavelengths,
+    internal.values.map((t, i) => plateReflectanceValue(t, rho[i]!)),
+    {
+      name: options.name ?? `${internal.name} (reflectance)`,
+      quantity: "reflectance",
+    },
+  );
 }

@@ -30,7 +30,12 @@ export interface SunglassCategory {
 }
 
 /** ISO 12312-1:2013 Table 1 limits as fractions (recalled from memory): category k covers (above, upTo]. */
-export const SUNGLASS_CATEGORY_LIMITS: ReadonlyArray<{ category: SunglassCategoryNumber; above: number; upTo: number; description: string }> = [
+export const SUNGLASS_CATEGORY_LIMITS: ReadonlyArray<{
+  category: SunglassCategoryNumber;
+  above: number;
+  upTo: number;
+  description: string;
+}> = [
   { category: 0, above: 0.8, upTo: 1, description: "clear or very light tint" },
   { category: 1, above: 0.43, upTo: 0.8, description: "light tint" },
   { category: 2, above: 0.18, upTo: 0.43, description: "medium tint" },
@@ -47,9 +52,18 @@ export function sunglassCategory(luminousTransmittance: number): SunglassCategor
   );
   const row = SUNGLASS_CATEGORY_LIMITS.find((r) => tv > r.above && tv <= r.upTo);
   const notes: string[] = [];
-  if (row?.category === 4) notes.push("Category 4 filters are not suitable for driving or road use (ISO 12312-1, recalled from memory).");
-  if (tv < 0.75) notes.push("Filters with τv below 75 % are not suitable for twilight or night driving (ISO 12312-1, recalled from memory).");
-  if (!row) notes.push("τv is at or below 3 %, outside the categories of the ISO 12312-1 table (not a general-purpose sunglass filter).");
+  if (row?.category === 4)
+    notes.push(
+      "Category 4 filters are not suitable for driving or road use (ISO 12312-1, recalled from memory).",
+    );
+  if (tv < 0.75)
+    notes.push(
+      "Filters with τv below 75 % are not suitable for twilight or night driving (ISO 12312-1, recalled from memory).",
+    );
+  if (!row)
+    notes.push(
+      "τv is at or below 3 %, outside the categories of the ISO 12312-1 table (not a general-purpose sunglass filter).",
+    );
   return {
     category: row?.category ?? null,
     luminousTransmittance: tv,

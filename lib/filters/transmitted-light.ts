@@ -4,7 +4,13 @@
  * excitation purity relative to the source's own white (CIE 015:2018 §9.1–9.2), and the sunglass category that τv
  * implies (ISO 12312-1; informative only).
  */
-import { chromaticityXy, uvPrimeFromXy, type Chromaticity, type Tristimulus, type UvPrime } from "../colorimetry/chromaticity.ts";
+import {
+  chromaticityXy,
+  uvPrimeFromXy,
+  type Chromaticity,
+  type Tristimulus,
+  type UvPrime,
+} from "../colorimetry/chromaticity.ts";
 import { dominantWavelength } from "../colorimetry/dominant-wavelength.ts";
 import { objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
 import { luminousTransmittance } from "../photometry/photometric-quantities.ts";
@@ -37,9 +43,12 @@ type LightOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "inter
 
 /** τv, xy, u′v′, dominant wavelength and purity of the light a filter transmits from a source (default D65, 2°). */
 export function transmittedLight(filter: Spectrum, options: LightOptions = {}): TransmittedLight {
-  if (filter?.kind !== "spectrum") throw new Error("transmittedLight: give the filter's transmittance spectrum");
+  if (filter?.kind !== "spectrum")
+    throw new Error("transmittedLight: give the filter's transmittance spectrum");
   if (filter.quantity !== "transmittance" && filter.quantity !== "other") {
-    throw new Error(`transmittedLight: "${filter.name}" is a ${filter.quantity} spectrum, not a transmittance`);
+    throw new Error(
+      `transmittedLight: "${filter.name}" is a ${filter.quantity} spectrum, not a transmittance`,
+    );
   }
   requireFractionSpectrum(filter, "transmittance");
   const illuminant = options.illuminant ?? "D65";
@@ -49,14 +58,19 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
   const XYZ = colour.XYZ;
   const tv = luminousTransmittance(filter, { illuminant, interval: colour.interval });
   const notes: string[] = [];
-  if (XYZ.X + XYZ.Y + XYZ.Z <= 0) throw new Error(`transmittedLight: "${filter.name}" passes no light of the source, so it has no chromaticity`);
+  if (XYZ.X + XYZ.Y + XYZ.Z <= 0)
+    throw new Error(
+      `transmittedLight: "${filter.name}" passes no light of the source, so it has no chromaticity`,
+    );
   const xy = chromaticityXy(XYZ);
   const white = chromaticityXy(colour.white);
   let dominant: number | null = null;
   let complementary = false;
   let purity = 0;
   if (Math.hypot(xy.x - white.x, xy.y - white.y) < 1e-7) {
-    notes.push("The transmitted light has the source's own chromaticity (a neutral filter): it has no dominant wavelength.");
+    notes.push(
+      "The transmitted light has the source's own chromaticity (a neutral filter): it has no dominant wavelength.",
+    );
   } else {
     const d = dominantWavelength(xy, white, options.observer);
     dominant = d.wavelength;

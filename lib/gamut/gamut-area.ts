@@ -15,7 +15,11 @@ export type Gamut = readonly Chromaticity[] | RgbSpace;
 type Point = readonly [number, number];
 
 function verticesOf(g: Gamut, what: string): Chromaticity[] {
-  const list = Array.isArray(g) ? (g as readonly Chromaticity[]) : (g as RgbSpace).kind === "rgb space" ? [(g as RgbSpace).primaries.r, (g as RgbSpace).primaries.g, (g as RgbSpace).primaries.b] : undefined;
+  const list = Array.isArray(g)
+    ? (g as readonly Chromaticity[])
+    : (g as RgbSpace).kind === "rgb space"
+      ? [(g as RgbSpace).primaries.r, (g as RgbSpace).primaries.g, (g as RgbSpace).primaries.b]
+      : undefined;
   if (!list) throw new Error(`${what}: give a list of chromaticities or an RGB space`);
   if (list.length < 3) throw new Error(`${what}: a gamut needs at least 3 primaries, got ${list.length}`);
   list.forEach((c, i) => {
@@ -50,7 +54,9 @@ function signedArea(p: readonly Point[]): number {
 function isConvex(p: readonly Point[]): boolean {
   let sign = 0;
   for (let i = 0; i < p.length; i++) {
-    const [ax, ay] = p[i]!, [bx, by] = p[(i + 1) % p.length]!, [cx, cy] = p[(i + 2) % p.length]!;
+    const [ax, ay] = p[i]!,
+      [bx, by] = p[(i + 1) % p.length]!,
+      [cx, cy] = p[(i + 2) % p.length]!;
     const cross = (bx - ax) * (cy - by) - (by - ay) * (cx - bx);
     if (Math.abs(cross) < 1e-15) continue;
     if (sign === 0) sign = Math.sign(cross);
@@ -67,7 +73,8 @@ function clipPolygon(subject: readonly Point[], clip: readonly Point[]): Point[]
     const [bx, by] = clip[(i + 1) % clip.length]!;
     const inside = (p: Point) => (bx - ax) * (p[1] - ay) - (by - ay) * (p[0] - ax) >= 0;
     const intersect = (p: Point, q: Point): Point => {
-      const dx = q[0] - p[0], dy = q[1] - p[1];
+      const dx = q[0] - p[0],
+        dy = q[1] - p[1];
       const den = (bx - ax) * dy - (by - ay) * dx;
       const t = ((ax - p[0]) * (by - ay) - (ay - p[1]) * (bx - ax)) / -den;
       return [p[0] + t * dx, p[1] + t * dy];
@@ -93,7 +100,10 @@ function ccw(p: Point[]): Point[] {
 /** Area of a gamut polygon in the xy or u′v′ diagram (shoelace formula). */
 export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const p = toDiagram(verticesOf(gamut, "gamutArea"), diagram);
-  noteMethod("gamut", `Gamut areas were computed as polygon areas in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram.`);
+  noteMethod(
+    "gamut",
+    `Gamut areas were computed as polygon areas in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram.`,
+  );
   return Math.abs(signedArea(p));
 }
 
@@ -104,7 +114,10 @@ export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityD
   let clipped: Point[];
   if (isConvex(pb)) clipped = clipPolygon(pa, pb);
   else if (isConvex(pa)) clipped = clipPolygon(pb, pa);
-  else throw new Error("gamut intersection: neither gamut polygon is convex; list the primaries in order round the polygon");
+  else
+    throw new Error(
+      "gamut intersection: neither gamut polygon is convex; list the primaries in order round the polygon",
+    );
   return clipped.length < 3 ? 0 : Math.abs(signedArea(clipped));
 }
 

@@ -3,7 +3,12 @@
  * R = a·R_solid + (1 − a)·R_paper (A. Murray, J. Franklin Inst. 221, 721, 1936); the tone value (dot area) follows
  * from densities relative to paper as a = (1 − 10^(−D_t))/(1 − 10^(−D_s)) (the form ISO 12647-1 uses for tone value).
  */
-import { requireFinite, requireFraction, requireFractionSpectrum, requireSameGrid } from "../filters/checks.ts";
+import {
+  requireFinite,
+  requireFraction,
+  requireFractionSpectrum,
+  requireSameGrid,
+} from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
@@ -21,21 +26,34 @@ export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum,
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "murrayDavies");
-  noteMethod("halftone", "Halftone reflectances were computed as the Murray–Davies area-weighted mean of solid and paper (Murray 1936).");
-  return spectrum(solid.wavelengths, solid.values.map((s, i) => coverage * s + (1 - coverage) * paper.values[i]!), {
-    name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} %`,
-    quantity: "reflectance",
-  });
+  noteMethod(
+    "halftone",
+    "Halftone reflectances were computed as the Murray–Davies area-weighted mean of solid and paper (Murray 1936).",
+  );
+  return spectrum(
+    solid.wavelengths,
+    solid.values.map((s, i) => coverage * s + (1 - coverage) * paper.values[i]!),
+    {
+      name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} %`,
+      quantity: "reflectance",
+    },
+  );
 }
 
 /** Tone value (effective dot area) from densities relative to paper: (1 − 10^(−D_t))/(1 − 10^(−D_s)) (Murray–Davies; ISO 12647-1). */
 export function toneValueFromDensity(tintDensity: number, solidDensity: number): number {
   requireFinite(tintDensity, "tint density");
   requireFinite(solidDensity, "solid density");
-  if (!(solidDensity > 0)) throw new Error(`solid density ${solidDensity} must be above the paper (relative density > 0)`);
+  if (!(solidDensity > 0))
+    throw new Error(`solid density ${solidDensity} must be above the paper (relative density > 0)`);
   if (tintDensity < 0 || tintDensity > solidDensity) {
-    throw new Error(`tint density ${tintDensity} lies outside paper (0) to solid (${solidDensity}); Murray–Davies tone value needs 0 ≤ D_t ≤ D_s`);
+    throw new Error(
+      `tint density ${tintDensity} lies outside paper (0) to solid (${solidDensity}); Murray–Davies tone value needs 0 ≤ D_t ≤ D_s`,
+    );
   }
-  noteMethod("halftone", "Tone values were computed from densities relative to paper by the Murray–Davies formula (as ISO 12647-1 defines tone value).");
+  noteMethod(
+    "halftone",
+    "Tone values were computed from densities relative to paper by the Murray–Davies formula (as ISO 12647-1 defines tone value).",
+  );
   return (1 - 10 ** -tintDensity) / (1 - 10 ** -solidDensity);
 }

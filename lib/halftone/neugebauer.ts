@@ -5,7 +5,12 @@
  * M. E. Demichel, Procédé 26, 17–21 and 26–27, 1924); optionally in Yule–Nielsen form with an n factor
  * (Viggiano 1990, "Modeling the color of multi-colored halftones", TAGA Proc.).
  */
-import { requireFraction, requireFractionSpectrum, requirePositive, requireSameGrid } from "../filters/checks.ts";
+import {
+  requireFraction,
+  requireFractionSpectrum,
+  requirePositive,
+  requireSameGrid,
+} from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
@@ -34,13 +39,17 @@ export function demichelAreas(coverages: InkCoverages): Record<string, number> {
   const inks = INK_ORDER.filter((i) => coverages[i] !== undefined);
   if (inks.length === 0) throw new Error("demichelAreas: give at least one ink coverage (c, m, y or k)");
   for (const key of Object.keys(coverages)) {
-    if (!(INK_ORDER as readonly string[]).includes(key)) throw new Error(`demichelAreas: unknown ink "${key}"; use c, m, y and k`);
+    if (!(INK_ORDER as readonly string[]).includes(key))
+      throw new Error(`demichelAreas: unknown ink "${key}"; use c, m, y and k`);
   }
   inks.forEach((i) => requireFraction(coverages[i]!, `coverage of ${i}`));
   const areas: Record<string, number> = {};
   for (let mask = 0; mask < 1 << inks.length; mask++) {
     const present = inks.filter((_, q) => mask & (1 << q));
-    areas[primaryKey(present)] = inks.reduce((p, ink, q) => p * (mask & (1 << q) ? coverages[ink]! : 1 - coverages[ink]!), 1);
+    areas[primaryKey(present)] = inks.reduce(
+      (p, ink, q) => p * (mask & (1 << q) ? coverages[ink]! : 1 - coverages[ink]!),
+      1,
+    );
   }
   return areas;
 }
@@ -53,12 +62,18 @@ export type NeugebauerPrimaries = Readonly<Record<string, Spectrum>>;
  * Demichel areas aᵢ (Neugebauer 1937; Demichel 1924); n = 1 (default) is the classical model, n > 1 its
  * Yule–Nielsen modification (Viggiano 1990).
  */
-export function neugebauerReflectance(coverages: InkCoverages, primaries: NeugebauerPrimaries, options: { n?: number; name?: string } = {}): Spectrum {
+export function neugebauerReflectance(
+  coverages: InkCoverages,
+  primaries: NeugebauerPrimaries,
+  options: { n?: number; name?: string } = {},
+): Spectrum {
   const n = requirePositive(options.n ?? 1, "Yule–Nielsen n factor");
   const areas = demichelAreas(coverages);
   const missing = Object.keys(areas).filter((key) => !primaries[key]);
   if (missing.length > 0) {
-    throw new Error(`neugebauerReflectance: missing primaries ${missing.map((k) => `"${k}"`).join(", ")}; the printed inks need all of ${Object.keys(areas).join(", ")}`);
+    throw new Error(
+      `neugebauerReflectance: missing primaries ${missing.map((k) => `"${k}"`).join(", ")}; the printed inks need all of ${Object.keys(areas).join(", ")}`,
+    );
   }
   const used = Object.keys(areas).map((k) => primaries[k]!);
   used.forEach((s) => requireFractionSpectrum(s, "primary reflectance"));
@@ -71,7 +86,15 @@ export function neugebauerReflectance(coverages: InkCoverages, primaries: Neugeb
       : `Print reflectances were computed by the Yule–Nielsen modified spectral Neugebauer model with n = ${n} and Demichel's areas (Viggiano 1990).`,
   );
   const first = used[0]!;
-  const values = first.wavelengths.map((_: number, i: number) => keys.reduce((s, k) => s + areas[k]! * primaries[k]!.values[i]! ** (1 / n), 0) ** n);
-  const label = INK_ORDER.filter((i) => coverages[i] !== undefined).map((i) => `${i.toUpperCase()}${+(coverages[i]! * 100).toPrecision(4)}`).join(" ");
-  return spectrum(first.wavelengths, values, { name: options.name ?? `print ${label}`, quantity: "reflectance" });
+  const values = first.wavelengths.map(
+    (_: number, i: number) =>
+      keys.reduce((s, k) => s + areas[k]! * primaries[k]!.values[i]! ** (1 / n), 0) ** n,
+  );
+  const label = INK_ORDER.filter((i) => coverages[i] !== undefined)
+    .map((i) => `${i.toUpperCase()}${+(coverages[i]! * 100).toPrecision(4)}`)
+    .join(" ");
+  return spectrum(first.wavelengths, values, {
+    name: options.name ?? `print ${label}`,
+    quantity: "reflectance",
+  });
 }

@@ -3,7 +3,12 @@
  * n-factor model averages R^(1/n): R^(1/n) = a·R_s^(1/n) + (1 − a)·R_p^(1/n) (J. A. C. Yule & W. J. Nielsen,
  * TAGA Proc. 1951, 65). n = 1 is Murray–Davies.
  */
-import { requireFraction, requireFractionSpectrum, requirePositive, requireSameGrid } from "../filters/checks.ts";
+import {
+  requireFraction,
+  requireFractionSpectrum,
+  requirePositive,
+  requireSameGrid,
+} from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
@@ -17,15 +22,28 @@ export function yuleNielsenValue(coverage: number, solid: number, paper: number,
 }
 
 /** Spectral Yule–Nielsen: R(λ) = (a·R_s(λ)^(1/n) + (1 − a)·R_p(λ)^(1/n))^n (Yule & Nielsen 1951). */
-export function yuleNielsen(coverage: number, solid: Spectrum, paper: Spectrum, n: number, name?: string): Spectrum {
+export function yuleNielsen(
+  coverage: number,
+  solid: Spectrum,
+  paper: Spectrum,
+  n: number,
+  name?: string,
+): Spectrum {
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "yuleNielsen");
-  noteMethod("halftone", `Halftone reflectances were computed by the Yule–Nielsen model with n = ${n} (Yule & Nielsen 1951).`);
-  return spectrum(solid.wavelengths, solid.values.map((s, i) => yuleNielsenValue(coverage, s, paper.values[i]!, n)), {
-    name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} % (n = ${n})`,
-    quantity: "reflectance",
-  });
+  noteMethod(
+    "halftone",
+    `Halftone reflectances were computed by the Yule–Nielsen model with n = ${n} (Yule & Nielsen 1951).`,
+  );
+  return spectrum(
+    solid.wavelengths,
+    solid.values.map((s, i) => yuleNielsenValue(coverage, s, paper.values[i]!, n)),
+    {
+      name: name ?? `${solid.name} at ${+(coverage * 100).toPrecision(4)} % (n = ${n})`,
+      quantity: "reflectance",
+    },
+  );
 }
 
 /**
@@ -46,7 +64,13 @@ export function effectiveCoverage(measured: Spectrum, solid: Spectrum, paper: Sp
     num += (M - P) * (S - P);
     den += (S - P) ** 2;
   });
-  if (!(den > 0)) throw new Error(`effectiveCoverage: solid "${solid.name}" and paper "${paper.name}" have the same reflectance everywhere, so no coverage can be inferred`);
-  noteMethod("halftone", `Effective dot coverages were fitted by least squares over wavelength with the Yule–Nielsen model and n = ${n}.`);
+  if (!(den > 0))
+    throw new Error(
+      `effectiveCoverage: solid "${solid.name}" and paper "${paper.name}" have the same reflectance everywhere, so no coverage can be inferred`,
+    );
+  noteMethod(
+    "halftone",
+    `Effective dot coverages were fitted by least squares over wavelength with the Yule–Nielsen model and n = ${n}.`,
+  );
   return num / den;
 }

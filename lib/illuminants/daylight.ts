@@ -6,7 +6,9 @@ import type { Chromaticity } from "../colorimetry/chromaticity.ts";
 /** Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K (CIE 015:2018 eqs. 4.5–4.6). */
 export function daylightChromaticity(cct: number): Chromaticity {
   if (!Number.isFinite(cct) || cct < 4000 || cct > 25000) {
-    throw new Error(`daylight chromaticity: CIE 015 defines daylight from 4000 K to 25000 K; ${cct} K is outside that range`);
+    throw new Error(
+      `daylight chromaticity: CIE 015 defines daylight from 4000 K to 25000 K; ${cct} K is outside that range`,
+    );
   }
   const t = cct;
   const x =
@@ -33,10 +35,15 @@ export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false):
  * Relative spectral power of CIE daylight at a CCT (K), S(λ) = S0 + M1·S1 + M2·S2, 300–830 nm at 5 nm.
  * `roundFactors` rounds M1 and M2 to 3 decimals, as CIE 015:2018 does for the tabulated D50, D55, D75.
  */
-export function daylightSpectrum(cct: number, options: { roundFactors?: boolean; name?: string } = {}): Spectrum {
+export function daylightSpectrum(
+  cct: number,
+  options: { roundFactors?: boolean; name?: string } = {},
+): Spectrum {
   const [m1, m2] = daylightFactors(daylightChromaticity(cct), options.roundFactors ?? false);
   const t = CIE_DAYLIGHT_COMPONENTS_TABLE;
-  const s0 = t.columns.S0!, s1 = t.columns.S1!, s2 = t.columns.S2!;
+  const s0 = t.columns.S0!,
+    s1 = t.columns.S1!,
+    s2 = t.columns.S2!;
   return spectrumOnGrid(
     t.start,
     t.step,

@@ -5,7 +5,9 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 /** S_A(λ) = 100 (560/λ)^5 (exp(1.435e7/(2848·560)) − 1) / (exp(1.435e7/(2848 λ)) − 1), λ in nm (CIE 015:2018 eq. 4.1). */
 export function illuminantAValue(wavelengthNm: number): number {
   const c2 = 1.435e7;
-  return 100 * (560 / wavelengthNm) ** 5 * (Math.expm1(c2 / (2848 * 560)) / Math.expm1(c2 / (2848 * wavelengthNm)));
+  return (
+    100 * (560 / wavelengthNm) ** 5 * (Math.expm1(c2 / (2848 * 560)) / Math.expm1(c2 / (2848 * wavelengthNm)))
+  );
 }
 
 /** CIE standard illuminant A on a grid (default 300–830 nm at 1 nm, the range of the CIE table). */

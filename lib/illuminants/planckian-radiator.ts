@@ -12,19 +12,28 @@ export const C2_CIE = 1.4388e-2;
 
 /** Spectral radiant exitance M(λ, T) in W·m⁻²·m⁻¹ of a blackbody at T kelvin, wavelength in nm (Planck's law). */
 export function planckExitance(wavelengthNm: number, temperatureK: number, c2 = C2_CIE): number {
-  if (!(temperatureK > 0) || !Number.isFinite(temperatureK)) throw new Error(`Planck's law: temperature ${temperatureK} K must be a positive finite number`);
+  if (!(temperatureK > 0) || !Number.isFinite(temperatureK))
+    throw new Error(`Planck's law: temperature ${temperatureK} K must be a positive finite number`);
   if (!(wavelengthNm > 0)) throw new Error(`Planck's law: wavelength ${wavelengthNm} nm must be positive`);
   const l = wavelengthNm * 1e-9;
   return C1 / (l ** 5 * Math.expm1(c2 / (l * temperatureK)));
 }
 
 /** Relative spectral power of a Planckian radiator at T kelvin, scaled to 100 at 560 nm (CIE 015:2018 §4.1; c2 = 1.4388e-2 m·K). */
-export function planckianSpectrum(temperatureK: number, grid: WavelengthGrid = { start: 360, end: 830, step: 1 }, c2 = C2_CIE): Spectrum {
+export function planckianSpectrum(
+  temperatureK: number,
+  grid: WavelengthGrid = { start: 360, end: 830, step: 1 },
+  c2 = C2_CIE,
+): Spectrum {
   const ref = planckExitance(560, temperatureK, c2);
   const w = gridWavelengths(grid);
   noteMethod("illuminant", `Planckian radiators were computed from Planck's law with c2 = ${c2} m·K.`);
-  return spectrum(w, w.map((l) => (100 * planckExitance(l, temperatureK, c2)) / ref), {
-    name: `Planckian radiator ${temperatureK} K`,
-    quantity: "relative power",
-  });
+  return spectrum(
+    w,
+    w.map((l) => (100 * planckExitance(l, temperatureK, c2)) / ref),
+    {
+      name: `Planckian radiator ${temperatureK} K`,
+      quantity: "relative power",
+    },
+  );
 }

@@ -19,15 +19,22 @@ const BUILDERS: Record<string, () => Spectrum> = {
   A: () => illuminantA(),
   D50: () => cieDaylight(5000, "CIE illuminant D50"),
   D55: () => cieDaylight(5500, "CIE illuminant D55"),
-  D65: () => tableColumn(CIE_D65_TABLE, "D65", { name: "CIE standard illuminant D65", quantity: "relative power" }),
+  D65: () =>
+    tableColumn(CIE_D65_TABLE, "D65", { name: "CIE standard illuminant D65", quantity: "relative power" }),
   D75: () => cieDaylight(7500, "CIE illuminant D75"),
-  E: () => spectrumOnGrid(300, 1, new Array<number>(531).fill(100), { name: "CIE illuminant E (equal energy)", quantity: "relative power" }),
+  E: () =>
+    spectrumOnGrid(300, 1, new Array<number>(531).fill(100), {
+      name: "CIE illuminant E (equal energy)",
+      quantity: "relative power",
+    }),
 };
 for (const name of Object.keys(CIE_FLUORESCENT_TABLE.columns)) {
-  BUILDERS[name] = () => tableColumn(CIE_FLUORESCENT_TABLE, name, { name: `CIE illuminant ${name}`, quantity: "relative power" });
+  BUILDERS[name] = () =>
+    tableColumn(CIE_FLUORESCENT_TABLE, name, { name: `CIE illuminant ${name}`, quantity: "relative power" });
 }
 for (const name of Object.keys(CIE_LED_TABLE.columns)) {
-  BUILDERS[name] = () => tableColumn(CIE_LED_TABLE, name, { name: `CIE illuminant ${name}`, quantity: "relative power" });
+  BUILDERS[name] = () =>
+    tableColumn(CIE_LED_TABLE, name, { name: `CIE illuminant ${name}`, quantity: "relative power" });
 }
 
 const cache = new Map<string, Spectrum>();
@@ -39,7 +46,9 @@ export function illuminantNames(): string[] {
 
 /** A CIE illuminant's relative spectral power by name ("A", "D65", "FL2", "LED-B3", ...); case and spaces are ignored. */
 export function illuminant(name: string): Spectrum {
-  const key = Object.keys(BUILDERS).find((k) => k.toUpperCase() === String(name).replace(/\s+/g, "").toUpperCase());
+  const key = Object.keys(BUILDERS).find(
+    (k) => k.toUpperCase() === String(name).replace(/\s+/g, "").toUpperCase(),
+  );
   if (!key) throw new Error(`unknown illuminant "${name}"; known names: ${illuminantNames().join(", ")}`);
   let s = cache.get(key);
   if (!s) {

@@ -70,7 +70,8 @@ export function methodNotesActive(): boolean {
  * Methods section lists only what the notebook computed. `compute` must be synchronous; a nested call is fine.
  */
 export function withoutMethodNotes<T>(compute: () => T): T {
-  if (typeof compute !== "function") throw new Error(`withoutMethodNotes: expected a function, got ${String(compute)}`);
+  if (typeof compute !== "function")
+    throw new Error(`withoutMethodNotes: expected a function, got ${String(compute)}`);
   silentDepth++;
   let result: T;
   try {
@@ -78,8 +79,14 @@ export function withoutMethodNotes<T>(compute: () => T): T {
   } finally {
     silentDepth--;
   }
-  if (result !== null && typeof result === "object" && typeof (result as { then?: unknown }).then === "function") {
-    throw new Error("withoutMethodNotes: the computation returned a promise; only synchronous computations can run without method notes");
+  if (
+    result !== null &&
+    typeof result === "object" &&
+    typeof (result as { then?: unknown }).then === "function"
+  ) {
+    throw new Error(
+      "withoutMethodNotes: the computation returned a promise; only synchronous computations can run without method notes",
+    );
   }
   return result;
 }

@@ -12,19 +12,36 @@ const W = gridWavelengths({ start: 360, end: 830, step: 5 });
 
 function paint(name: string, k: (w: number) => number, s: (w: number) => number): TwoConstantColourant {
   const full = `${name} (invented demo paint)`;
-  return twoConstantColourant(spectrum(W, W.map(k), { name: `${full} K` }), spectrum(W, W.map(s), { name: `${full} S` }), full);
+  return twoConstantColourant(
+    spectrum(W, W.map(k), { name: `${full} K` }),
+    spectrum(W, W.map(s), { name: `${full} S` }),
+    full,
+  );
 }
 
-const above = (edge: number, width = 30) => (w: number) => logisticEdge(w - edge, width);
-const below = (edge: number, width = 30) => (w: number) => logisticEdge(edge - w, width);
+const above =
+  (edge: number, width = 30) =>
+  (w: number) =>
+    logisticEdge(w - edge, width);
+const below =
+  (edge: number, width = 30) =>
+  (w: number) =>
+    logisticEdge(edge - w, width);
 
 /** Invented demo paints (K and S per unit amount, two-constant): white, red, green, blue, cyan, magenta, yellow. */
-export function demoPaints(): Record<"white" | "red" | "green" | "blue" | "cyan" | "magenta" | "yellow", TwoConstantColourant> {
+export function demoPaints(): Record<
+  "white" | "red" | "green" | "blue" | "cyan" | "magenta" | "yellow",
+  TwoConstantColourant
+> {
   const strong = 6;
   const weak = 0.04;
   const pigmentS = (w: number) => 0.35 + 0.1 * below(500, 200)(w);
   return {
-    white: paint("white", (w) => 0.01 + 0.2 * below(410, 20)(w), () => 1.2),
+    white: paint(
+      "white",
+      (w) => 0.01 + 0.2 * below(410, 20)(w),
+      () => 1.2,
+    ),
     red: paint("red", (w) => weak + strong * below(595)(w), pigmentS),
     green: paint("green", (w) => weak + strong * (below(490)(w) + above(575)(w)), pigmentS),
     blue: paint("blue", (w) => weak + strong * above(505)(w), pigmentS),

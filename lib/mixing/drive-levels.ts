@@ -4,7 +4,12 @@
  * and more primaries are solved by non-negative least squares (Lawson & Hanson 1974). A target is out of reach
  * when it needs a negative level (outside the primaries' chromaticity gamut) or a level above `maxLevel`.
  */
-import { chromaticityXy, fromXyY, type ChromaticityLuminance, type Tristimulus } from "../colorimetry/chromaticity.ts";
+import {
+  chromaticityXy,
+  fromXyY,
+  type ChromaticityLuminance,
+  type Tristimulus,
+} from "../colorimetry/chromaticity.ts";
 import { lightTristimulus } from "../colorimetry/tristimulus.ts";
 import { requireFinite, requirePositive, requireSameGrid } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
@@ -44,8 +49,13 @@ export function lightXYZ(light: Spectrum, observer?: DriveOptions["observer"]): 
 }
 
 /** Drive levels of the primaries for a target x, y and luminance Y (in the units of lightXYZ of the primaries). */
-export function solveDriveLevels(primaries: readonly Spectrum[], target: ChromaticityLuminance, options: DriveOptions = {}): DriveSolution {
-  if (!Array.isArray(primaries) || primaries.length === 0) throw new Error("solveDriveLevels: no primaries given");
+export function solveDriveLevels(
+  primaries: readonly Spectrum[],
+  target: ChromaticityLuminance,
+  options: DriveOptions = {},
+): DriveSolution {
+  if (!Array.isArray(primaries) || primaries.length === 0)
+    throw new Error("solveDriveLevels: no primaries given");
   requireSameGrid(primaries, "solveDriveLevels");
   requireFinite(target?.x, "solveDriveLevels: target x");
   requireFinite(target?.y, "solveDriveLevels: target y");
@@ -53,11 +63,15 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
   if (!(target.y > 0) || target.x < 0 || target.x + target.y > 1) {
     throw new Error(`solveDriveLevels: (x, y) = (${target.x}, ${target.y}) is not a physical chromaticity`);
   }
-  const maxLevel = options.maxLevel === undefined ? Infinity : requirePositive(options.maxLevel, "solveDriveLevels: maxLevel");
+  const maxLevel =
+    options.maxLevel === undefined
+      ? Infinity
+      : requirePositive(options.maxLevel, "solveDriveLevels: maxLevel");
   const t = fromXyY(target);
   const P = primaries.map((p) => lightXYZ(p, options.observer));
   P.forEach((p, i) => {
-    if (!(p.Y > 0)) throw new Error(`solveDriveLevels: primary "${primaries[i]!.name}" has no luminance (Y = ${p.Y})`);
+    if (!(p.Y > 0))
+      throw new Error(`solveDriveLevels: primary "${primaries[i]!.name}" has no luminance (Y = ${p.Y})`);
   });
   const A = [P.map((p) => p.X), P.map((p) => p.Y), P.map((p) => p.Z)];
   const b = [t.X, t.Y, t.Z];
@@ -68,7 +82,9 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
     method = "exact (3 primaries)";
     const solved = solveAugmented(A.map((row, i) => [...row, b[i]!]));
     if (!solved) {
-      throw new Error(`solveDriveLevels: the primaries ${names.map((n) => `"${n}"`).join(", ")} are linearly dependent (their chromaticities lie on one line), so they span no gamut`);
+      throw new Error(
+        `solveDriveLevels: the primaries ${names.map((n) => `"${n}"`).join(", ")} are linearly dependent (their chromaticities lie on one line), so they span no gamut`,
+      );
     }
     levels = solved;
   } else {
@@ -78,7 +94,11 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
     const scaled = A.map((row) => row.map((v, j) => v / norms[j]!));
     levels = nonNegativeLeastSquares(scaled, b).map((v, j) => v / norms[j]!);
   }
-  if (method === "non-negative least squares" && Number.isFinite(maxLevel) && levels.some((l) => l > maxLevel * (1 + 1e-9))) {
+  if (
+    method === "non-negative least squares" &&
+    Number.isFinite(maxLevel) &&
+    levels.some((l) => l > maxLevel * (1 + 1e-9))
+  ) {
     const bounded = boundedVertexSolution(A, b, maxLevel);
     if (bounded) levels = bounded;
   }
@@ -87,7 +107,8 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
     Y: levels.reduce((s, l, j) => s + l * P[j]!.Y, 0),
     Z: levels.reduce((s, l, j) => s + l * P[j]!.Z, 0),
   };
-  const relativeError = Math.hypot(achieved.X - t.X, achieved.Y - t.Y, achieved.Z - t.Z) / Math.hypot(t.X, t.Y, t.Z);
+  const relativeError =
+    Math.hypot(achieved.X - t.X, achieved.Y - t.Y, achieved.Z - t.Z) / Math.hypot(t.X, t.Y, t.Z);
   const negative = levels.some((l) => l < -1e-9 * Math.max(...levels.map(Math.abs)));
   const tooHigh = levels.filter((l) => l > maxLevel * (1 + 1e-9));
   const matched = relativeError <= 1e-6 && !negative;
@@ -96,7 +117,8 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
   let message: string;
   if (!matched) {
     message = `Out of reach: ${where} lies outside the chromaticity gamut of ${names.join(", ")}; it would need a negative amount of at least one primary.`;
-    if (method === "non-negative least squares") message += " The levels given are the closest non-negative mixture.";
+    if (method === "non-negative least squares")
+      message += " The levels given are the closest non-negative mixture.";
   } else if (tooHigh.length > 0) {
     message = `Out of reach: ${where} is inside the gamut but needs a drive level of ${Math.max(...tooHigh).toPrecision(4)}, above the maximum ${maxLevel}; a lower luminance would be reachable.`;
   } else {
@@ -112,7 +134,8 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
     primaries: names,
     target: t,
     achieved,
-    achievedXyY: achieved.X + achieved.Y + achieved.Z > 0 ? { ...chromaticityXy(achieved), Y: achieved.Y } : null,
+    achievedXyY:
+      achieved.X + achieved.Y + achieved.Z > 0 ? { ...chromaticityXy(achieved), Y: achieved.Y } : null,
     relativeError,
     message,
     method,
@@ -125,7 +148,11 @@ export function solveDriveLevels(primaries: readonly Spectrum[], target: Chromat
  * between the bounds (linear programming, basic feasible solutions). This tries every such vertex (up to 12 primaries)
  * and returns the feasible one with the lowest total drive, or undefined when there is none.
  */
-function boundedVertexSolution(A: readonly (readonly number[])[], b: readonly number[], upper: number): number[] | undefined {
+function boundedVertexSolution(
+  A: readonly (readonly number[])[],
+  b: readonly number[],
+  upper: number,
+): number[] | undefined {
   const n = A[0]!.length;
   if (n > 12) return undefined;
   let best: number[] | undefined;

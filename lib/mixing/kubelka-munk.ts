@@ -8,7 +8,8 @@ import { requireFinite, requireFraction, requireNonNegative } from "../filters/c
 /** The Kubelka–Munk function of an opaque layer's internal reflectance: K/S = (1 − R∞)² / (2R∞) (Kubelka & Munk 1931). */
 export function ksFromReflectance(reflectanceInfinite: number): number {
   requireFraction(reflectanceInfinite, "reflectance of an opaque layer (R∞)");
-  if (reflectanceInfinite === 0) throw new Error("R∞ = 0 gives K/S = ∞; an opaque layer with no reflectance has no finite K/S");
+  if (reflectanceInfinite === 0)
+    throw new Error("R∞ = 0 gives K/S = ∞; an opaque layer with no reflectance has no finite K/S");
   return (1 - reflectanceInfinite) ** 2 / (2 * reflectanceInfinite);
 }
 
@@ -70,6 +71,9 @@ export function layerOptics(k: number, s: number, thickness: number, background:
 export function opaqueReflectance(k: number, s: number): number {
   requireNonNegative(k, "absorption coefficient K");
   requireNonNegative(s, "scattering coefficient S");
-  if (s === 0) throw new Error("S = 0: a layer that does not scatter reflects nothing however thick it is; R∞ is 0 and K/S is infinite");
+  if (s === 0)
+    throw new Error(
+      "S = 0: a layer that does not scatter reflects nothing however thick it is; R∞ is 0 and K/S is infinite",
+    );
   return reflectanceFromKs(k / s);
 }

@@ -53,7 +53,8 @@ export function ledSpectrum(options: LedOptions): Spectrum {
   if (Math.abs(a) >= 1) throw new Error(`ledSpectrum: asymmetry ${a} must lie between −1 and 1 (exclusive)`);
   const height = requirePositive(options.peakValue ?? 1, "ledSpectrum: peak value");
   const shape = options.shape ?? "ohno 2005";
-  if (shape !== "ohno 2005" && shape !== "gaussian") throw new Error(`ledSpectrum: shape "${String(shape)}" is not "ohno 2005" or "gaussian"`);
+  if (shape !== "ohno 2005" && shape !== "gaussian")
+    throw new Error(`ledSpectrum: shape "${String(shape)}" is not "ohno 2005" or "gaussian"`);
   const halfU = shape === "ohno 2005" ? OHNO_HALF_WIDTH_U : Math.sqrt(Math.LN2);
   const f = shape === "ohno 2005" ? ohnoLedShape : (u: number) => Math.exp(-u * u);
   // Each side's Δλ is chosen so the curve is at half height (1 ± a)·FWHM/2 from the peak.
@@ -66,10 +67,14 @@ export function ledSpectrum(options: LedOptions): Spectrum {
       ? "LED spectra were modelled with Ohno's shape [g + 2g⁵]/3, g = exp(−((λ − λ₀)/Δλ)²) (Opt. Eng. 44, 111302, 2005), scaled to the stated FWHM."
       : "LED spectra were modelled as Gaussians with the stated peak wavelength and FWHM.",
   );
-  return spectrum(w, w.map((l) => height * f((l - peak) / (l < peak ? deltaShort : deltaLong))), {
-    name: options.name ?? `LED ${peak} nm / ${fwhm} nm`,
-    quantity: "relative power",
-  });
+  return spectrum(
+    w,
+    w.map((l) => height * f((l - peak) / (l < peak ? deltaShort : deltaLong))),
+    {
+      name: options.name ?? `LED ${peak} nm / ${fwhm} nm`,
+      quantity: "relative power",
+    },
+  );
 }
 
 export interface PhosphorWhiteOptions {
@@ -93,7 +98,9 @@ export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
   if ("kind" in options.phosphor) {
     const p = options.phosphor;
     if (p.wavelengths.length !== w.length || p.wavelengths.some((x, i) => Math.abs(x - w[i]!) > 1e-9)) {
-      throw new Error(`phosphorWhite: the phosphor spectrum "${p.name}" must be on the same grid as the model (${w[0]}–${w.at(-1)} nm); resample it first`);
+      throw new Error(
+        `phosphorWhite: the phosphor spectrum "${p.name}" must be on the same grid as the model (${w[0]}–${w.at(-1)} nm); resample it first`,
+      );
     }
     band = [...p.values];
   } else {
@@ -103,9 +110,16 @@ export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
   const sumBand = band.reduce((s, v) => s + v, 0);
   if (!(sumBand > 0)) throw new Error("phosphorWhite: the phosphor band has no power");
   const k = (ratio * sumBlue) / sumBand;
-  noteMethod("mixing", "Phosphor-converted white light was modelled as a blue LED band plus a broad phosphor band at a stated ratio of radiant powers.");
-  return spectrum(w, w.map((_, i) => blue.values[i]! + k * band[i]!), {
-    name: options.name ?? `phosphor white (${options.blue.peak} nm pump, ratio ${ratio})`,
-    quantity: "relative power",
-  });
+  noteMethod(
+    "mixing",
+    "Phosphor-converted white light was modelled as a blue LED band plus a broad phosphor band at a stated ratio of radiant powers.",
+  );
+  return spectrum(
+    w,
+    w.map((_, i) => blue.values[i]! + k * band[i]!),
+    {
+      name: options.name ?? `phosphor white (${options.blue.peak} nm pump, ratio ${ratio})`,
+      quantity: "relative power",
+    },
+  );
 }

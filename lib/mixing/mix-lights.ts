@@ -16,14 +16,21 @@ export function mixLights(parts: readonly LightPart[], name?: string): Spectrum 
     if (p?.light?.kind !== "spectrum") throw new Error(`mixLights: part #${i + 1} has no light spectrum`);
     requireNonNegative(p.level, `mixLights: the drive level of "${p.light.name}"`);
     if (p.light.quantity === "transmittance" || p.light.quantity === "reflectance") {
-      throw new Error(`mixLights: "${p.light.name}" is a ${p.light.quantity}, not a light; lights are added, filters multiply`);
+      throw new Error(
+        `mixLights: "${p.light.name}" is a ${p.light.quantity}, not a light; lights are added, filters multiply`,
+      );
     }
   });
   const lights = parts.map((p) => p.light);
   requireSameGrid(lights, "mixLights");
-  noteMethod("mixing", "Lights were mixed additively: the mixture's spectrum is the sum of the sources' spectra times their drive levels.");
+  noteMethod(
+    "mixing",
+    "Lights were mixed additively: the mixture's spectrum is the sum of the sources' spectra times their drive levels.",
+  );
   const first = lights[0]!;
-  const values = first.wavelengths.map((_: number, i: number): number => parts.reduce((sum, p) => sum + p.level * p.light.values[i]!, 0));
+  const values = first.wavelengths.map((_: number, i: number): number =>
+    parts.reduce((sum, p) => sum + p.level * p.light.values[i]!, 0),
+  );
   return spectrum(first.wavelengths, values, {
     name: name ?? parts.map((p) => `${+p.level.toPrecision(4)}×${p.light.name}`).join(" + "),
     quantity: first.quantity,

@@ -4,7 +4,11 @@
  */
 
 /** Solves the unconstrained least-squares problem for the columns in `cols` (normal equations, Gaussian elimination with pivoting). */
-function leastSquaresOn(A: readonly (readonly number[])[], b: readonly number[], cols: readonly number[]): number[] | undefined {
+function leastSquaresOn(
+  A: readonly (readonly number[])[],
+  b: readonly number[],
+  cols: readonly number[],
+): number[] | undefined {
   const m = A.length;
   const k = cols.length;
   const N = Array.from({ length: k }, () => new Array<number>(k + 1).fill(0));
@@ -43,8 +47,10 @@ export function solveAugmented(M: number[][]): number[] | undefined {
 export function nonNegativeLeastSquares(A: readonly (readonly number[])[], b: readonly number[]): number[] {
   const m = A.length;
   const n = A[0]?.length ?? 0;
-  if (m === 0 || n === 0 || b.length !== m) throw new Error(`nonNegativeLeastSquares: a ${m}×${n} matrix and ${b.length} targets do not fit`);
-  for (const v of [...A.flat(), ...b]) if (!Number.isFinite(v)) throw new Error(`nonNegativeLeastSquares: the data contain ${v}`);
+  if (m === 0 || n === 0 || b.length !== m)
+    throw new Error(`nonNegativeLeastSquares: a ${m}×${n} matrix and ${b.length} targets do not fit`);
+  for (const v of [...A.flat(), ...b])
+    if (!Number.isFinite(v)) throw new Error(`nonNegativeLeastSquares: the data contain ${v}`);
   const x = new Array<number>(n).fill(0);
   const passive = new Set<number>();
   const tol = 1e-12 * Math.max(1, ...A.flat().map(Math.abs)) * Math.max(1, ...b.map(Math.abs));
@@ -55,7 +61,8 @@ export function nonNegativeLeastSquares(A: readonly (readonly number[])[], b: re
   for (let outer = 0; outer < 3 * n + 30; outer++) {
     const w = gradient();
     let best = -1;
-    for (let j = 0; j < n; j++) if (!passive.has(j) && w[j]! > tol && (best < 0 || w[j]! > w[best]!)) best = j;
+    for (let j = 0; j < n; j++)
+      if (!passive.has(j) && w[j]! > tol && (best < 0 || w[j]! > w[best]!)) best = j;
     if (best < 0) break;
     passive.add(best);
     for (let inner = 0; inner < 3 * n + 30; inner++) {

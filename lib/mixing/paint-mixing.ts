@@ -8,7 +8,13 @@
 import { objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
 import { labFromXYZ, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { requireFraction, requireFractionSpectrum, requireNonNegative, requirePositive, requireSameGrid } from "../filters/checks.ts";
+import {
+  requireFraction,
+  requireFractionSpectrum,
+  requireNonNegative,
+  requirePositive,
+  requireSameGrid,
+} from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { ksFromReflectance, layerOptics, reflectanceFromKs } from "./kubelka-munk.ts";
@@ -65,17 +71,25 @@ function toMeasured(r: number, surface: SurfaceTreatment): number {
 }
 
 /** A single-constant colourant from the measured reflectance of an opaque layer (masstone): K/S = (1 − Rᵢ)²/(2Rᵢ) after the Saunderson inversion. */
-export function colourantFromMasstone(masstone: Spectrum, options: { surface?: SurfaceTreatment; name?: string } = {}): SingleConstantColourant {
+export function colourantFromMasstone(
+  masstone: Spectrum,
+  options: { surface?: SurfaceTreatment; name?: string } = {},
+): SingleConstantColourant {
   requireFractionSpectrum(masstone, "masstone reflectance");
   const surface = options.surface ?? {};
   const ks = masstone.values.map((r, i) => {
     try {
       return ksFromReflectance(toInternal(r, surface));
     } catch (e) {
-      throw new Error(`colourantFromMasstone "${masstone.name}" at ${masstone.wavelengths[i]} nm: ${(e as Error).message}`);
+      throw new Error(
+        `colourantFromMasstone "${masstone.name}" at ${masstone.wavelengths[i]} nm: ${(e as Error).message}`,
+      );
     }
   });
-  return singleConstantColourant(spectrum(masstone.wavelengths, ks, { name: `${masstone.name} K/S`, quantity: "other" }), options.name ?? masstone.name);
+  return singleConstantColourant(
+    spectrum(masstone.wavelengths, ks, { name: `${masstone.name} K/S`, quantity: "other" }),
+    options.name ?? masstone.name,
+  );
 }
 
 /**
@@ -93,7 +107,8 @@ export function colourantFromTint(input: {
   name?: string;
 }): { colourant: TwoConstantColourant; white: TwoConstantColourant } {
   const c = requireFraction(input.tintFraction, "colourantFromTint: tint fraction");
-  if (c === 0 || c === 1) throw new Error(`colourantFromTint: tint fraction ${c} must lie strictly between 0 and 1`);
+  if (c === 0 || c === 1)
+    throw new Error(`colourantFromTint: tint fraction ${c} must lie strictly between 0 and 1`);
   const { masstone, tint, white } = input;
   [masstone, tint, white].forEach((s) => requireFractionSpectrum(s, "reflectance"));
   requireSameGrid([masstone, tint, white], "colourantFromTint");
@@ -106,20 +121,40 @@ export function colourantFromTint(input: {
     const m = ksFromReflectance(toInternal(masstone.values[i]!, surface));
     const t = ksFromReflectance(toInternal(tint.values[i]!, surface));
     const kw = ksFromReflectance(toInternal(white.values[i]!, surface));
-    if (Math.abs(m - t) < 1e-12) throw new Error(`colourantFromTint: masstone and tint have the same K/S at ${wl} nm, so S cannot be separated from K there`);
+    if (Math.abs(m - t) < 1e-12)
+      throw new Error(
+        `colourantFromTint: masstone and tint have the same K/S at ${wl} nm, so S cannot be separated from K there`,
+      );
     const s = ((1 - c) * (t - kw)) / (c * (m - t));
     if (!(s > 0)) {
-      throw new Error(`colourantFromTint: the data give a scattering of ${s.toPrecision(3)} at ${wl} nm (the tint is not between the white and the masstone there); check the samples and the fraction`);
+      throw new Error(
+        `colourantFromTint: the data give a scattering of ${s.toPrecision(3)} at ${wl} nm (the tint is not between the white and the masstone there); check the samples and the fraction`,
+      );
     }
     K.push(m * s);
     S.push(s);
     Kw.push(kw);
   });
   const name = input.name ?? masstone.name;
-  noteMethod("mixing", "Two-constant K and S were derived from masstone and tint-with-white drawdowns, relative to the white's scattering (S_white = 1).");
+  noteMethod(
+    "mixing",
+    "Two-constant K and S were derived from masstone and tint-with-white drawdowns, relative to the white's scattering (S_white = 1).",
+  );
   return {
-    colourant: twoConstantColourant(spectrum(w, K, { name: `${name} K` }), spectrum(w, S, { name: `${name} S` }), name),
-    white: twoConstantColourant(spectrum(w, Kw, { name: `${white.name} K` }), spectrum(w, w.map(() => 1), { name: `${white.name} S` }), white.name),
+    colourant: twoConstantColourant(
+      spectrum(w, K, { name: `${name} K` }),
+      spectrum(w, S, { name: `${name} S` }),
+      name,
+    ),
+    white: twoConstantColourant(
+      spectrum(w, Kw, { name: `${white.name} K` }),
+      spectrum(
+        w,
+        w.map(() => 1),
+        { name: `${white.name} S` },
+      ),
+      white.name,
+    ),
   };
 }
 
@@ -151,22 +186,37 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
   const total = recipe.reduce((s, p) => s + p.amount, 0);
   requirePositive(total, "mixPaint: total amount of the recipe");
   const models = new Set(recipe.map((p) => p.colourant.model));
-  if (models.size > 1) throw new Error("mixPaint: the recipe mixes single-constant and two-constant colourants; characterise them all one way");
+  if (models.size > 1)
+    throw new Error(
+      "mixPaint: the recipe mixes single-constant and two-constant colourants; characterise them all one way",
+    );
   const model = recipe[0]!.colourant.model;
   const surface = options.surface ?? {};
   const fractions = recipe.map((p) => p.amount / total);
   let internal: number[];
   let wavelengths: readonly number[];
   if (model === "single constant") {
-    if (options.layer) throw new Error("mixPaint: a finite layer needs K and S separately (two-constant colourants)");
+    if (options.layer)
+      throw new Error("mixPaint: a finite layer needs K and S separately (two-constant colourants)");
     const parts = recipe.map((p) => p.colourant as SingleConstantColourant);
-    requireSameGrid(parts.map((p) => p.ks), "mixPaint");
+    requireSameGrid(
+      parts.map((p) => p.ks),
+      "mixPaint",
+    );
     wavelengths = parts[0]!.ks.wavelengths;
-    internal = wavelengths.map((_: number, i: number) => reflectanceFromKs(parts.reduce((s, p, j) => s + fractions[j]! * p.ks.values[i]!, 0)));
-    noteMethod("mixing", "Paint mixtures were computed by single-constant Kubelka–Munk theory: (K/S) of the mixture = Σ cⱼ(K/S)ⱼ (Duncan 1940), for an opaque layer, R∞ (Kubelka & Munk 1931).");
+    internal = wavelengths.map((_: number, i: number) =>
+      reflectanceFromKs(parts.reduce((s, p, j) => s + fractions[j]! * p.ks.values[i]!, 0)),
+    );
+    noteMethod(
+      "mixing",
+      "Paint mixtures were computed by single-constant Kubelka–Munk theory: (K/S) of the mixture = Σ cⱼ(K/S)ⱼ (Duncan 1940), for an opaque layer, R∞ (Kubelka & Munk 1931).",
+    );
   } else {
     const parts = recipe.map((p) => p.colourant as TwoConstantColourant);
-    requireSameGrid(parts.flatMap((p) => [p.k, p.s]), "mixPaint");
+    requireSameGrid(
+      parts.flatMap((p) => [p.k, p.s]),
+      "mixPaint",
+    );
     wavelengths = parts[0]!.k.wavelengths;
     const layer = options.layer;
     if (layer) {
@@ -177,7 +227,10 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
       const K = parts.reduce((s, p, j) => s + fractions[j]! * p.k.values[i]!, 0);
       const S = parts.reduce((s, p, j) => s + fractions[j]! * p.s.values[i]!, 0);
       if (layer) return layerOptics(K, S, layer.thickness, layer.background).reflectance;
-      if (!(S > 0)) throw new Error(`mixPaint: the mixture does not scatter at ${wl} nm (S = 0), so an opaque layer has no reflectance there; give a layer and background`);
+      if (!(S > 0))
+        throw new Error(
+          `mixPaint: the mixture does not scatter at ${wl} nm (S = 0), so an opaque layer has no reflectance there; give a layer and background`,
+        );
       return reflectanceFromKs(K / S);
     });
     noteMethod(
@@ -201,6 +254,9 @@ export function recipeColour(
   options: PaintOptions & Pick<ObjectColourOptions, "illuminant" | "observer"> = {},
 ): { reflectance: Spectrum; XYZ: Tristimulus; Lab: Lab; white: Tristimulus } {
   const reflectance = mixPaint(recipe, options);
-  const { XYZ, white } = objectColour(reflectance, { illuminant: options.illuminant, observer: options.observer });
+  const { XYZ, white } = objectColour(reflectance, {
+    illuminant: options.illuminant,
+    observer: options.observer,
+  });
   return { reflectance, XYZ, Lab: labFromXYZ(XYZ, white), white };
 }

@@ -21,7 +21,8 @@ function constants(options: SurfaceCorrection): { k1: number; k2: number; includ
   const k2 = requireFraction(options.k2 ?? 0.6, "Saunderson k2");
   if (k2 >= 1) throw new Error("Saunderson k2 = 1 would trap all light inside the layer; it must be below 1");
   const specular = options.specular ?? "included";
-  if (specular !== "included" && specular !== "excluded") throw new Error(`Saunderson: specular "${String(specular)}" is not "included" or "excluded"`);
+  if (specular !== "included" && specular !== "excluded")
+    throw new Error(`Saunderson: specular "${String(specular)}" is not "included" or "excluded"`);
   noteMethod(
     "mixing",
     `Surface reflection was taken into account with the Saunderson correction (J. Opt. Soc. Am. 32, 727, 1942) with k₁ = ${k1} and k₂ = ${k2}, the specular component ${specular}.`,
@@ -41,6 +42,9 @@ export function saundersonInternal(measured: number, options: SurfaceCorrection 
   requireFraction(measured, "measured reflectance R_m");
   const { k1, k2, included } = constants(options);
   const rm = included ? measured - k1 : measured;
-  if (rm < 0) throw new Error(`measured reflectance ${measured} is below the surface reflection k1 = ${k1}; with specular included it cannot be`);
+  if (rm < 0)
+    throw new Error(
+      `measured reflectance ${measured} is below the surface reflection k1 = ${k1}; with specular included it cannot be`,
+    );
   return rm / ((1 - k1) * (1 - k2) + k2 * rm);
 }

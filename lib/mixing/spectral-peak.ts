@@ -21,11 +21,17 @@ export function fullWidthHalfMax(s: Spectrum): { width: number; short: number; l
   const ip = w.indexOf(peak.wavelength);
   let i = ip;
   while (i > 0 && v[i - 1]! >= half) i--;
-  if (i === 0) throw new Error(`fullWidthHalfMax: "${s.name}" does not fall to half its peak below ${peak.wavelength} nm within its range`);
+  if (i === 0)
+    throw new Error(
+      `fullWidthHalfMax: "${s.name}" does not fall to half its peak below ${peak.wavelength} nm within its range`,
+    );
   const short = w[i - 1]! + ((half - v[i - 1]!) / (v[i]! - v[i - 1]!)) * (w[i]! - w[i - 1]!);
   let j = ip;
   while (j < w.length - 1 && v[j + 1]! >= half) j++;
-  if (j === w.length - 1) throw new Error(`fullWidthHalfMax: "${s.name}" does not fall to half its peak above ${peak.wavelength} nm within its range`);
+  if (j === w.length - 1)
+    throw new Error(
+      `fullWidthHalfMax: "${s.name}" does not fall to half its peak above ${peak.wavelength} nm within its range`,
+    );
   const long = w[j]! + ((v[j]! - half) / (v[j]! - v[j + 1]!)) * (w[j + 1]! - w[j]!);
   return { width: long - short, short, long };
 }

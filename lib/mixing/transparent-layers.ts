@@ -12,12 +12,19 @@ export function layeredTransmittance(layers: readonly Spectrum[], name?: string)
   if (!Array.isArray(layers) || layers.length === 0) throw new Error("layeredTransmittance: no layers given");
   layers.forEach((l) => requireFractionSpectrum(l, "layer transmittance"));
   requireSameGrid(layers, "layeredTransmittance");
-  noteMethod("mixing", "Transparent layers were combined as the product of their internal transmittances (no reflections between layers).");
+  noteMethod(
+    "mixing",
+    "Transparent layers were combined as the product of their internal transmittances (no reflections between layers).",
+  );
   const first = layers[0]!;
-  return spectrum(first.wavelengths, first.wavelengths.map((_: number, i: number) => layers.reduce((p, l) => p * l.values[i]!, 1)), {
-    name: name ?? layers.map((l) => l.name).join(" × "),
-    quantity: "transmittance",
-  });
+  return spectrum(
+    first.wavelengths,
+    first.wavelengths.map((_: number, i: number) => layers.reduce((p, l) => p * l.values[i]!, 1)),
+    {
+      name: name ?? layers.map((l) => l.name).join(" × "),
+      quantity: "transmittance",
+    },
+  );
 }
 
 /** One dye of a solution: its decadic absorbance per unit concentration and unit path, and its concentration. */
@@ -27,21 +34,36 @@ export interface DyeAmount {
 }
 
 /** Internal transmittance of dyes mixed in one layer: 10^(−path·Σ cⱼAⱼ(λ)) (Beer–Lambert, absorbances add; IUPAC Gold Book). */
-export function dyeMixture(dyes: readonly DyeAmount[], options: { path?: number; name?: string } = {}): Spectrum {
+export function dyeMixture(
+  dyes: readonly DyeAmount[],
+  options: { path?: number; name?: string } = {},
+): Spectrum {
   if (!Array.isArray(dyes) || dyes.length === 0) throw new Error("dyeMixture: no dyes given");
   const path = requireNonNegative(options.path ?? 1, "dyeMixture: path length");
   dyes.forEach((d) => {
     requireNonNegative(d.concentration, `dyeMixture: concentration of "${d.absorbance?.name}"`);
     d.absorbance.values.forEach((a: number, i: number) => {
-      if (!(a >= 0)) throw new Error(`dyeMixture: absorbance of "${d.absorbance.name}" is ${a} at ${d.absorbance.wavelengths[i]} nm; it must be ≥ 0`);
+      if (!(a >= 0))
+        throw new Error(
+          `dyeMixture: absorbance of "${d.absorbance.name}" is ${a} at ${d.absorbance.wavelengths[i]} nm; it must be ≥ 0`,
+        );
     });
   });
-  requireSameGrid(dyes.map((d) => d.absorbance), "dyeMixture");
+  requireSameGrid(
+    dyes.map((d) => d.absorbance),
+    "dyeMixture",
+  );
   noteMethod("mixing", "Dyes in one layer were mixed by adding their absorbances (Beer–Lambert law).");
   const first = dyes[0]!.absorbance;
   return spectrum(
     first.wavelengths,
-    first.wavelengths.map((_: number, i: number) => 10 ** (-path * dyes.reduce((s, d) => s + d.concentration * d.absorbance.values[i]!, 0))),
-    { name: options.name ?? dyes.map((d) => `${d.concentration}×${d.absorbance.name}`).join(" + "), quantity: "transmittance" },
+    first.wavelengths.map(
+      (_: number, i: number) =>
+        10 ** (-path * dyes.reduce((s, d) => s + d.concentration * d.absorbance.values[i]!, 0)),
+    ),
+    {
+      name: options.name ?? dyes.map((d) => `${d.concentration}×${d.absorbance.name}`).join(" + "),
+      quantity: "transmittance",
+    },
   );
 }

@@ -33,9 +33,17 @@ function fromTable(name: string, fieldDegrees: 2 | 10, t: TabulatedData): Observ
 }
 
 /** CIE 1931 2° standard colorimetric observer, 360–830 nm at 1 nm (CIE 018:2019 Table 6). */
-export const CIE_1931_2_DEGREE: Observer = fromTable("CIE 1931 2° standard colorimetric observer", 2, CIE1931_2DEG_TABLE);
+export const CIE_1931_2_DEGREE: Observer = fromTable(
+  "CIE 1931 2° standard colorimetric observer",
+  2,
+  CIE1931_2DEG_TABLE,
+);
 /** CIE 1964 10° supplementary standard colorimetric observer, 360–830 nm at 1 nm (ISO/CIE 11664-1:2019 Table 2). */
-export const CIE_1964_10_DEGREE: Observer = fromTable("CIE 1964 10° supplementary standard colorimetric observer", 10, CIE1964_10DEG_TABLE);
+export const CIE_1964_10_DEGREE: Observer = fromTable(
+  "CIE 1964 10° supplementary standard colorimetric observer",
+  10,
+  CIE1964_10DEG_TABLE,
+);
 
 /** Names accepted wherever an observer is asked for. */
 export type ObserverName = "2°" | "10°" | "2" | "10" | "1931" | "1964" | "CIE 1931" | "CIE 1964";
@@ -43,7 +51,10 @@ export type ObserverName = "2°" | "10°" | "2" | "10" | "1931" | "1964" | "CIE 
 /** An observer by name ("2°"/"1931" or "10°"/"1964"), or the observer itself; an unknown name is an error. */
 export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"): Observer {
   if (typeof which === "object") return which;
-  const key = String(which).replace(/^CIE\s*/i, "").replace("°", "").trim();
+  const key = String(which)
+    .replace(/^CIE\s*/i, "")
+    .replace("°", "")
+    .trim();
   if (key === "2" || key === "1931") return CIE_1931_2_DEGREE;
   if (key === "10" || key === "1964") return CIE_1964_10_DEGREE;
   throw new Error(`unknown observer "${which}": use "2°" (CIE 1931) or "10°" (CIE 1964)`);

@@ -21,11 +21,17 @@ let scotopic: Spectrum | undefined;
  */
 export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
   if (vision === "photopic") {
-    photopic ??= spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, { name: "CIE photopic V(λ)", quantity: "luminous efficiency" });
+    photopic ??= spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, {
+      name: "CIE photopic V(λ)",
+      quantity: "luminous efficiency",
+    });
     return photopic;
   }
   if (vision === "scotopic") {
-    scotopic ??= tableColumn(CIE_SCOTOPIC_TABLE, "V'", { name: "CIE scotopic V′(λ)", quantity: "luminous efficiency" });
+    scotopic ??= tableColumn(CIE_SCOTOPIC_TABLE, "V'", {
+      name: "CIE scotopic V′(λ)",
+      quantity: "luminous efficiency",
+    });
     return scotopic;
   }
   throw new Error(`luminousEfficiency: unknown vision "${String(vision)}"; use "photopic" or "scotopic"`);

@@ -14,12 +14,17 @@ import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-eff
  * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V share: at the spectrum's own samples when they lie every
  * 1 or 5 nm on whole nanometres, otherwise after interpolating the spectrum to 1 nm (CIE 167:2005 interpolation).
  */
-export function spectralLuminousSum(spd: Spectrum, vision: Vision = "photopic"): { sum: number; interval: number; range: [number, number] } {
+export function spectralLuminousSum(
+  spd: Spectrum,
+  vision: Vision = "photopic",
+): { sum: number; interval: number; range: [number, number] } {
   const v = luminousEfficiency(vision);
   const start = Math.max(spd.wavelengths[0]!, v.wavelengths[0]!);
   const end = Math.min(spd.wavelengths.at(-1)!, v.wavelengths.at(-1)!);
   if (end < start) {
-    throw new Error(`"${spd.name}" (${spd.wavelengths[0]}–${spd.wavelengths.at(-1)} nm) does not overlap ${v.name} (${v.wavelengths[0]}–${v.wavelengths.at(-1)} nm)`);
+    throw new Error(
+      `"${spd.name}" (${spd.wavelengths[0]}–${spd.wavelengths.at(-1)} nm) does not overlap ${v.name} (${v.wavelengths[0]}–${v.wavelengths.at(-1)} nm)`,
+    );
   }
   const step = regularStep(spd);
   const onWholeNm = step !== undefined && (step === 1 || step === 5) && Number.isInteger(spd.wavelengths[0]!);
@@ -36,7 +41,11 @@ const UNITS: Record<string, { quantity: SpectralQuantity; unit: string; spectral
   "luminous flux": { quantity: "radiant flux", unit: "lm", spectral: "spectral radiant flux in W/nm" },
   luminance: { quantity: "radiance", unit: "cd/m²", spectral: "spectral radiance in W/(sr·m²·nm)" },
   illuminance: { quantity: "irradiance", unit: "lx", spectral: "spectral irradiance in W/(m²·nm)" },
-  "luminous intensity": { quantity: "other", unit: "cd", spectral: "spectral radiant intensity in W/(sr·nm)" },
+  "luminous intensity": {
+    quantity: "other",
+    unit: "cd",
+    spectral: "spectral radiant intensity in W/(sr·nm)",
+  },
 };
 
 function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): number {
@@ -77,12 +86,16 @@ export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = 
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   const { sum } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
-  const w = spd.wavelengths, v = spd.values;
+  const w = spd.wavelengths,
+    v = spd.values;
   let radiant = 0;
   if (step !== undefined) radiant = v.reduce((a, b) => a + b, 0) * step;
   else for (let i = 0; i + 1 < w.length; i++) radiant += ((v[i]! + v[i + 1]!) / 2) * (w[i + 1]! - w[i]!);
   if (!(radiant > 0)) throw new Error(`luminousEfficacyOfRadiation: "${spd.name}" has no radiant power`);
-  noteMethod("photometry", `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range (CIE 018:2019).`);
+  noteMethod(
+    "photometry",
+    `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range (CIE 018:2019).`,
+  );
   return (KM * sum) / radiant;
 }
 
@@ -100,17 +113,30 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
 
 /** The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target` (cd/m², lx or lm, as the spectrum's unit implies). */
 export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
-  if (!(Number.isFinite(target) && target > 0)) throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
+  if (!(Number.isFinite(target) && target > 0))
+    throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
   const { sum } = spectralLuminousSum(spd, "photopic");
-  if (!(sum > 0)) throw new Error(`normaliseToLuminance: "${spd.name}" has no luminous power to scale to ${target}`);
+  if (!(sum > 0))
+    throw new Error(`normaliseToLuminance: "${spd.name}" has no luminous power to scale to ${target}`);
   const k = target / (KM * sum);
   noteMethod("normalisation", `Spectra were scaled to a photopic value of ${target} (Km = ${KM} lm/W).`);
-  return withValues(spd, spd.values.map((v) => v * k));
+  return withValues(
+    spd,
+    spd.values.map((v) => v * k),
+  );
 }
 
-type LuminousOptions = Pick<ObjectColourOptions, "illuminant" | "interval" | "range" | "interpolation" | "extrapolation">;
+type LuminousOptions = Pick<
+  ObjectColourOptions,
+  "illuminant" | "interval" | "range" | "interpolation" | "extrapolation"
+>;
 
-function luminousFactor(what: string, sample: Spectrum, quantity: "transmittance" | "reflectance", options: LuminousOptions): number {
+function luminousFactor(
+  what: string,
+  sample: Spectrum,
+  quantity: "transmittance" | "reflectance",
+  options: LuminousOptions,
+): number {
   if (sample.quantity !== quantity && sample.quantity !== "other") {
     throw new Error(`${what}: "${sample.name}" is a ${sample.quantity} spectrum, not a ${quantity}`);
   }
@@ -134,6 +160,9 @@ export function luminousTransmittance(sample: Spectrum, options: LuminousOptions
 /** Luminous reflectance ρv = Σ S ρ V Δλ / Σ S V Δλ as a fraction (Y/100 with the CIE 1931 observer; CIE 015:2018 §7.1), D65 unless given. */
 export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
   const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
-  noteMethod("photometry", "Luminous reflectance ρv was computed as the mean of the spectral reflectance weighted by S(λ)·V(λ), i.e. Y/100 with the CIE 1931 observer.");
+  noteMethod(
+    "photometry",
+    "Luminous reflectance ρv was computed as the mean of the spectral reflectance weighted by S(λ)·V(λ), i.e. Y/100 with the CIE 1931 observer.",
+  );
   return r;
 }

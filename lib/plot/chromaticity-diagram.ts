@@ -10,7 +10,12 @@ import { uvPrimeFromXy } from "../colorimetry/chromaticity.ts";
 import { diagramAxisTitles, diagramPoint, diagramSpace, type DiagramSpace } from "./chromaticity-space.ts";
 import { spectralLocus, locusPointAt, type LocusPoint } from "./spectral-locus.ts";
 import { chromaticityFill, type FillOptions } from "./chromaticity-fill.ts";
-import { blackbodyChromaticity, chromaticityAtCctClipped, isotemperatureLine, temperaturesByMired } from "./planckian-locus.ts";
+import {
+  blackbodyChromaticity,
+  chromaticityAtCctClipped,
+  isotemperatureLine,
+  temperaturesByMired,
+} from "./planckian-locus.ts";
 import { illuminantChromaticity, STANDARD_WHITE_POINTS } from "./white-points.ts";
 import { thinLabels } from "./label-placement.ts";
 import { placeLineLabels, squarePlotFrame, textSize, toPx, type PxBox } from "./line-labels.ts";
@@ -18,7 +23,16 @@ import { toXy } from "./chromaticity-input.ts";
 import { houseAxis, houseConfig, houseLayout, INK, FIGURE_HEIGHTS, FONT_FAMILY } from "./style.ts";
 import { plotFigure, roundForDisplay as r5, type PlotFigure, type PlotTrace } from "./figure.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
-import { gamutTraces, pointTraces, toleranceTraces, arrowAnnotations, type GamutChoice, type LabelledChromaticity, type ToleranceRegion, type ChromaticityArrow } from "./chromaticity-overlays.ts";
+import {
+  gamutTraces,
+  pointTraces,
+  toleranceTraces,
+  arrowAnnotations,
+  type GamutChoice,
+  type LabelledChromaticity,
+  type ToleranceRegion,
+  type ChromaticityArrow,
+} from "./chromaticity-overlays.ts";
 
 export interface PlanckianOptions {
   /** Temperatures (K) that get an isotemperature line; default 1500, 2000, 3000, 4000, 6500, 10 000 K (more when zoomed). */
@@ -91,7 +105,10 @@ function labelPriority(w: number): number {
   return 3;
 }
 
-function inRange(p: readonly [number, number], range: { x: readonly [number, number]; y: readonly [number, number] }): boolean {
+function inRange(
+  p: readonly [number, number],
+  range: { x: readonly [number, number]; y: readonly [number, number] },
+): boolean {
   return p[0] >= range.x[0] && p[0] <= range.x[1] && p[1] >= range.y[0] && p[1] <= range.y[1];
 }
 
@@ -99,14 +116,21 @@ function checkRange(range: { x: readonly [number, number]; y: readonly [number, 
   for (const k of ["x", "y"] as const) {
     const r = range[k];
     if (!Array.isArray(r) || r.length !== 2 || !r.every(Number.isFinite) || !(r[1] > r[0])) {
-      throw new Error(`chromaticity diagram: range.${k} = ${JSON.stringify(r)} must be two increasing finite numbers`);
+      throw new Error(
+        `chromaticity diagram: range.${k} = ${JSON.stringify(r)} must be two increasing finite numbers`,
+      );
     }
   }
 }
 
 /** Outward unit normal of the locus at index i (away from the equal-energy point), in diagram coordinates. */
-function outwardNormal(locus: readonly LocusPoint[], i: number, centre: readonly [number, number]): [number, number] {
-  const a = locus[Math.max(0, i - 2)]!.at, b = locus[Math.min(locus.length - 1, i + 2)]!.at;
+function outwardNormal(
+  locus: readonly LocusPoint[],
+  i: number,
+  centre: readonly [number, number],
+): [number, number] {
+  const a = locus[Math.max(0, i - 2)]!.at,
+    b = locus[Math.min(locus.length - 1, i + 2)]!.at;
   let n: [number, number] = [-(b[1] - a[1]), b[0] - a[0]];
   const len = Math.hypot(n[0], n[1]);
   if (!(len > 1e-12)) {
@@ -126,9 +150,15 @@ function textPositionFor(n: readonly [number, number]): string {
   return vertical === "middle" && horizontal === "center" ? "top center" : `${vertical} ${horizontal}`;
 }
 
-function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [number, number]; y: readonly [number, number] }, labels: readonly number[] | false): PlotTrace[] {
+function locusTraces(
+  obs: Observer,
+  space: DiagramSpace,
+  range: { x: readonly [number, number]; y: readonly [number, number] },
+  labels: readonly number[] | false,
+): PlotTrace[] {
   const locus = spectralLocus(obs, space, 380, 780);
-  const first = locus[0]!, last = locus.at(-1)!;
+  const first = locus[0]!,
+    last = locus.at(-1)!;
   const traces: PlotTrace[] = [
     {
       type: "scatter",
@@ -166,20 +196,34 @@ function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [n
     0.038,
   );
   // Ticks: every labelled wavelength, and every 5 nm from 400 to 700 nm where the locus leaves room between ticks.
-  const tickCandidates = [...new Set([...kept.map((i) => locus[i]!.wavelength), ...Array.from({ length: 61 }, (_, k) => 400 + 5 * k)])]
+  const tickCandidates = [
+    ...new Set([
+      ...kept.map((i) => locus[i]!.wavelength),
+      ...Array.from({ length: 61 }, (_, k) => 400 + 5 * k),
+    ]),
+  ]
     .map((w) => locus.findIndex((p) => p.wavelength === w))
     .filter((i) => i >= 0 && inRange(locus[i]!.at, range))
-    .map((i) => ({ at: locus[i]!.at, priority: kept.includes(i) ? -1 : labelPriority(locus[i]!.wavelength), item: i }));
+    .map((i) => ({
+      at: locus[i]!.at,
+      priority: kept.includes(i) ? -1 : labelPriority(locus[i]!.wavelength),
+      item: i,
+    }));
   const ticks = thinLabels(tickCandidates, spans, 0.011);
-  const tickLen = 0.011 * Math.max(...spans), labelGap = 0.016 * Math.max(...spans);
-  const tx: (number | null)[] = [], ty: (number | null)[] = [];
+  const tickLen = 0.011 * Math.max(...spans),
+    labelGap = 0.016 * Math.max(...spans);
+  const tx: (number | null)[] = [],
+    ty: (number | null)[] = [];
   for (const i of ticks) {
     const p = locus[i]!.at;
     const n = outwardNormal(locus, i, centre);
     tx.push(r5(p[0]), r5(p[0] + n[0] * tickLen), null);
     ty.push(r5(p[1]), r5(p[1] + n[1] * tickLen), null);
   }
-  const lx: number[] = [], ly: number[] = [], lt: string[] = [], lpos: string[] = [];
+  const lx: number[] = [],
+    ly: number[] = [],
+    lt: string[] = [],
+    lpos: string[] = [];
   for (const i of kept) {
     const p = locus[i]!.at;
     const n = outwardNormal(locus, i, centre);
@@ -190,7 +234,16 @@ function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [n
   }
   // Empty traces are left out: Plotly draws nothing for them and they would only weigh on the report.
   if (ticks.length > 0) {
-    traces.push({ type: "scatter", mode: "lines", name: "Wavelength ticks", x: tx, y: ty, line: { color: INK.text, width: 1 }, hoverinfo: "skip", showlegend: false });
+    traces.push({
+      type: "scatter",
+      mode: "lines",
+      name: "Wavelength ticks",
+      x: tx,
+      y: ty,
+      line: { color: INK.text, width: 1 },
+      hoverinfo: "skip",
+      showlegend: false,
+    });
   }
   if (kept.length > 0) {
     traces.push({
@@ -210,16 +263,31 @@ function locusTraces(obs: Observer, space: DiagramSpace, range: { x: readonly [n
   return traces;
 }
 
-function resolvePlanckian(p: ChromaticityDiagramOptions["planckian"], zoomed: boolean): Required<Omit<PlanckianOptions, "duvBand">> & { duvBand?: number } | undefined {
+function resolvePlanckian(
+  p: ChromaticityDiagramOptions["planckian"],
+  zoomed: boolean,
+): (Required<Omit<PlanckianOptions, "duvBand">> & { duvBand?: number }) | undefined {
   if (p === false) return undefined;
   const o: PlanckianOptions = p === true || p === undefined ? {} : p;
   const range = o.range ?? [1000, 100000];
-  if (!(range[0] >= 500 && range[1] > range[0] && range[1] <= 1e7)) throw new Error(`Planckian locus: range ${range[0]}–${range[1]} K must increase within 500 K – 10 000 000 K`);
+  if (!(range[0] >= 500 && range[1] > range[0] && range[1] <= 1e7))
+    throw new Error(
+      `Planckian locus: range ${range[0]}–${range[1]} K must increase within 500 K – 10 000 000 K`,
+    );
   const iso = o.isotemperature ?? (zoomed ? DEFAULT_ISOTEMPERATURE_ZOOMED : DEFAULT_ISOTEMPERATURE_WHOLE);
-  if (iso !== false) for (const t of iso) if (!(t >= 1000 && t <= 100000)) throw new Error(`isotemperature line at ${t} K: CIE 015 CCTs are drawn here from 1000 K to 100 000 K`);
+  if (iso !== false)
+    for (const t of iso)
+      if (!(t >= 1000 && t <= 100000))
+        throw new Error(
+          `isotemperature line at ${t} K: CIE 015 CCTs are drawn here from 1000 K to 100 000 K`,
+        );
   const extent = o.isotemperatureExtent ?? 0.02;
-  if (!(extent > 0 && extent <= 0.05)) throw new Error(`isotemperature extent ${extent} must lie in (0, 0.05] (CIE 015:2018 defines CCT only for |Duv| ≤ 0.05)`);
-  if (o.duvBand !== undefined && !(o.duvBand > 0 && o.duvBand <= 0.05)) throw new Error(`Duv band ${o.duvBand} must lie in (0, 0.05]`);
+  if (!(extent > 0 && extent <= 0.05))
+    throw new Error(
+      `isotemperature extent ${extent} must lie in (0, 0.05] (CIE 015:2018 defines CCT only for |Duv| ≤ 0.05)`,
+    );
+  if (o.duvBand !== undefined && !(o.duvBand > 0 && o.duvBand <= 0.05))
+    throw new Error(`Duv band ${o.duvBand} must lie in (0, 0.05]`);
   return { isotemperature: iso, isotemperatureExtent: extent, range, duvBand: o.duvBand };
 }
 
@@ -230,15 +298,28 @@ interface LabelSurroundings {
   readonly curves: readonly (readonly ([number, number] | null)[])[];
 }
 
-function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<ReturnType<typeof resolvePlanckian>>, range: { x: readonly [number, number]; y: readonly [number, number] }, surroundings: LabelSurroundings, notes: string[]): PlotTrace[] {
+function planckianTraces(
+  obs: Observer,
+  space: DiagramSpace,
+  opts: NonNullable<ReturnType<typeof resolvePlanckian>>,
+  range: { x: readonly [number, number]; y: readonly [number, number] },
+  surroundings: LabelSurroundings,
+  notes: string[],
+): PlotTrace[] {
   const traces: PlotTrace[] = [];
   const temps = temperaturesByMired(opts.range[0], opts.range[1], 240);
   const pts = temps.map((t) => diagramPoint(blackbodyChromaticity(t, obs), space));
   const cieObserver = obs.fieldDegrees === 2;
   if (cieObserver && opts.duvBand !== undefined) {
-    const bandTemps = temperaturesByMired(Math.max(1000, opts.range[0]), Math.min(100000, opts.range[1]), 160);
+    const bandTemps = temperaturesByMired(
+      Math.max(1000, opts.range[0]),
+      Math.min(100000, opts.range[1]),
+      160,
+    );
     const upper = bandTemps.map((t) => diagramPoint(chromaticityAtCctClipped(t, opts.duvBand!), space));
-    const lower = bandTemps.map((t) => diagramPoint(chromaticityAtCctClipped(t, -opts.duvBand!), space)).reverse();
+    const lower = bandTemps
+      .map((t) => diagramPoint(chromaticityAtCctClipped(t, -opts.duvBand!), space))
+      .reverse();
     const ring = [...upper, ...lower, upper[0]!];
     traces.push({
       type: "scatter",
@@ -263,16 +344,20 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
     line: { color: INK.text, width: 1.3 },
     hovertemplate: `Planckian radiator<br>T = %{customdata} K<br>${space === "xy" ? "x" : "u′"} = %{x:.4f}, ${space === "xy" ? "y" : "v′"} = %{y:.4f}<extra></extra>`,
   });
-  notes.push(`the Planckian locus (${opts.range[0]}–${opts.range[1]} K, c2 = 1.4388×10⁻² m·K${cieObserver ? "" : ", computed with this observer"})`);
+  notes.push(
+    `the Planckian locus (${opts.range[0]}–${opts.range[1]} K, c2 = 1.4388×10⁻² m·K${cieObserver ? "" : ", computed with this observer"})`,
+  );
   if (opts.isotemperature !== false && opts.isotemperature.length > 0) {
     if (!cieObserver) {
       notes.push("no isotemperature lines, as CCT is defined with the CIE 1931 observer only (CIE 015:2018)");
     } else {
-      const lx: (number | null)[] = [], ly: (number | null)[] = [];
+      const lx: (number | null)[] = [],
+        ly: (number | null)[] = [];
       const segments: { start: [number, number]; end: [number, number]; t: number }[] = [];
       for (const t of opts.isotemperature) {
         const [a, b] = isotemperatureLine(t, opts.isotemperatureExtent);
-        const pa = diagramPoint(a, space), pb = diagramPoint(b, space);
+        const pa = diagramPoint(a, space),
+          pb = diagramPoint(b, space);
         lx.push(r5(pa[0]), r5(pb[0]), null);
         ly.push(r5(pa[1]), r5(pb[1]), null);
         segments.push({ start: pa, end: pb, t });
@@ -290,24 +375,37 @@ function planckianTraces(obs: Observer, space: DiagramSpace, opts: NonNullable<R
       // Every line with a visible part gets its label inside the plot area, beside or beyond that part (line-labels.ts).
       const frame = squarePlotFrame(range, surroundings.heightPx);
       const kept = placeLineLabels(
-        segments.map((g) => ({ start: g.start, end: g.end, text: `${g.t} K`, priority: [2000, 3000, 6500].includes(g.t) ? 0 : [4000, 10000].includes(g.t) ? 1 : 2, item: g.t })),
+        segments.map((g) => ({
+          start: g.start,
+          end: g.end,
+          text: `${g.t} K`,
+          priority: [2000, 3000, 6500].includes(g.t) ? 0 : [4000, 10000].includes(g.t) ? 1 : 2,
+          item: g.t,
+        })),
         frame,
-        { fontPx: ISOTEMPERATURE_LABEL_PX, reserved: surroundings.reserved, curves: [pts, ...surroundings.curves] },
+        {
+          fontPx: ISOTEMPERATURE_LABEL_PX,
+          reserved: surroundings.reserved,
+          curves: [pts, ...surroundings.curves],
+        },
       );
-      if (kept.length > 0) traces.push({
-        type: "scatter",
-        mode: "text",
-        name: "CCT labels",
-        x: kept.map((e) => r5(e.at[0])),
-        y: kept.map((e) => r5(e.at[1])),
-        text: kept.map((e) => e.text),
-        textposition: "middle center",
-        textfont: { family: FONT_FAMILY, size: ISOTEMPERATURE_LABEL_PX, color: INK.text },
-        hoverinfo: "skip",
-        showlegend: false,
-        cliponaxis: false,
-      });
-      notes.push(`isotemperature lines to Duv = ±${opts.isotemperatureExtent} (normal to the locus in the CIE 1960 UCS diagram, CIE 015:2018)`);
+      if (kept.length > 0)
+        traces.push({
+          type: "scatter",
+          mode: "text",
+          name: "CCT labels",
+          x: kept.map((e) => r5(e.at[0])),
+          y: kept.map((e) => r5(e.at[1])),
+          text: kept.map((e) => e.text),
+          textposition: "middle center",
+          textfont: { family: FONT_FAMILY, size: ISOTEMPERATURE_LABEL_PX, color: INK.text },
+          hoverinfo: "skip",
+          showlegend: false,
+          cliponaxis: false,
+        });
+      notes.push(
+        `isotemperature lines to Duv = ±${opts.isotemperatureExtent} (normal to the locus in the CIE 1960 UCS diagram, CIE 015:2018)`,
+      );
     }
   }
   return traces;
@@ -324,16 +422,27 @@ function daylightPoints(space: DiagramSpace): { temps: number[]; pts: [number, n
  * Boxes (frame pixels) of the labelled points and white points with their text, as Plotly draws them: a marker of
  * about 10 px, text at 11 px above right of a point (pointTraces) and at 10 px above left of a white point.
  */
-function reservedBoxes(options: ChromaticityDiagramOptions, whiteNames: readonly string[], obs: Observer, space: DiagramSpace, frame: ReturnType<typeof squarePlotFrame>): PxBox[] {
+function reservedBoxes(
+  options: ChromaticityDiagramOptions,
+  whiteNames: readonly string[],
+  obs: Observer,
+  space: DiagramSpace,
+  frame: ReturnType<typeof squarePlotFrame>,
+): PxBox[] {
   const boxes: PxBox[] = [];
   const add = (at: [number, number], label: string, fontPx: number, right: boolean) => {
     const [cx, cy] = toPx(frame, at);
     boxes.push({ x0: cx - 5, y0: cy - 5, x1: cx + 5, y1: cy + 5 });
     if (!label) return;
     const size = textSize(label, fontPx);
-    boxes.push(right ? { x0: cx + 3, y0: cy + 3, x1: cx + 3 + size.w, y1: cy + 3 + size.h } : { x0: cx - 3 - size.w, y0: cy + 3, x1: cx - 3, y1: cy + 3 + size.h });
+    boxes.push(
+      right
+        ? { x0: cx + 3, y0: cy + 3, x1: cx + 3 + size.w, y1: cy + 3 + size.h }
+        : { x0: cx - 3 - size.w, y0: cy + 3, x1: cx - 3, y1: cy + 3 + size.h },
+    );
   };
-  for (const p of options.points ?? []) add(diagramPoint(toXy(p, `point "${p?.label}"`), space), String(p.label ?? ""), 11, true);
+  for (const p of options.points ?? [])
+    add(diagramPoint(toXy(p, `point "${p?.label}"`), space), String(p.label ?? ""), 11, true);
   for (const n of whiteNames) add(diagramPoint(illuminantChromaticity(n, obs), space), n, 10, false);
   return boxes;
 }
@@ -352,11 +461,22 @@ function daylightTrace(space: DiagramSpace): PlotTrace {
   };
 }
 
-function whitePointTrace(names: readonly string[], obs: Observer, space: DiagramSpace, range: { x: readonly [number, number]; y: readonly [number, number] }): PlotTrace {
+function whitePointTrace(
+  names: readonly string[],
+  obs: Observer,
+  space: DiagramSpace,
+  range: { x: readonly [number, number]; y: readonly [number, number] },
+): PlotTrace {
   const pts = names.map((n) => ({ n, xy: illuminantChromaticity(n, obs) }));
   // Label only the white points that leave room for their name; the others are named in their hover box.
   const spans: [number, number] = [range.x[1] - range.x[0], range.y[1] - range.y[0]];
-  const labelled = new Set(thinLabels(pts.map((p, i) => ({ at: diagramPoint(p.xy, space), priority: p.n === "D65" ? 0 : 1, item: i })), spans, 0.035));
+  const labelled = new Set(
+    thinLabels(
+      pts.map((p, i) => ({ at: diagramPoint(p.xy, space), priority: p.n === "D65" ? 0 : 1, item: i })),
+      spans,
+      0.035,
+    ),
+  );
   return {
     type: "scatter",
     mode: "markers+text",
@@ -372,7 +492,8 @@ function whitePointTrace(names: readonly string[], obs: Observer, space: Diagram
       return [r5(p.xy.x), r5(p.xy.y), r5(uv.u), r5(uv.v)];
     }),
     marker: { symbol: "circle-open-dot", size: 8, color: INK.text, line: { width: 1.2 } },
-    hovertemplate: "<b>%{hovertext}</b><br>x = %{customdata[0]:.5f}, y = %{customdata[1]:.5f}<br>u′ = %{customdata[2]:.5f}, v′ = %{customdata[3]:.5f}<extra>white point</extra>",
+    hovertemplate:
+      "<b>%{hovertext}</b><br>x = %{customdata[0]:.5f}, y = %{customdata[1]:.5f}<br>u′ = %{customdata[2]:.5f}, v′ = %{customdata[3]:.5f}<extra>white point</extra>",
     cliponaxis: false,
   };
 }
@@ -389,8 +510,16 @@ export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): P
 function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigure {
   const space = diagramSpace(options.diagram);
   const obs = observerByName(options.observer ?? "2°");
-  const range = options.range === undefined ? WHOLE[space] : options.range === "white region" ? WHITE_REGION[space] : options.range;
-  if (typeof range === "string") throw new Error(`chromaticity diagram: range "${range}" is not known; give {x: [min, max], y: [min, max]} or "white region"`);
+  const range =
+    options.range === undefined
+      ? WHOLE[space]
+      : options.range === "white region"
+        ? WHITE_REGION[space]
+        : options.range;
+  if (typeof range === "string")
+    throw new Error(
+      `chromaticity diagram: range "${range}" is not known; give {x: [min, max], y: [min, max]} or "white region"`,
+    );
   checkRange(range);
   const height = options.height ?? FIGURE_HEIGHTS.square;
   const notes: string[] = [`the spectral locus (380–780 nm) and purple line of the ${obs.name}`];
@@ -401,13 +530,34 @@ function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigur
     const fillOptions = typeof options.fill === "object" ? options.fill : {};
     const polygon = spectralLocus(obs, space, 380, 780).map((p) => p.at);
     const img = chromaticityFill(polygon, space, range.x, range.y, fillOptions);
-    layoutImages.push({ source: img.source, xref: "x", yref: "y", x: img.x, y: img.y, sizex: img.sizex, sizey: img.sizey, sizing: "stretch", xanchor: "left", yanchor: "top", layer: "below", opacity: 1 });
+    layoutImages.push({
+      source: img.source,
+      xref: "x",
+      yref: "y",
+      x: img.x,
+      y: img.y,
+      sizex: img.sizex,
+      sizey: img.sizey,
+      sizing: "stretch",
+      xanchor: "left",
+      yanchor: "top",
+      layer: "below",
+      opacity: 1,
+    });
   }
 
   data.push(...locusTraces(obs, space, range, options.wavelengthLabels ?? defaultWavelengthLabels()));
   const wantDaylight = options.daylight ?? obs.fieldDegrees === 2;
-  if (wantDaylight && obs.fieldDegrees !== 2) throw new Error("chromaticity diagram: the CIE daylight locus is defined for the CIE 1931 2° observer (CIE 015:2018 §4.1.2); turn `daylight` off for the 10° observer");
-  const whiteNames = options.whitePoints === true ? STANDARD_WHITE_POINTS : options.whitePoints === false ? [] : options.whitePoints ?? ["D65"];
+  if (wantDaylight && obs.fieldDegrees !== 2)
+    throw new Error(
+      "chromaticity diagram: the CIE daylight locus is defined for the CIE 1931 2° observer (CIE 015:2018 §4.1.2); turn `daylight` off for the 10° observer",
+    );
+  const whiteNames =
+    options.whitePoints === true
+      ? STANDARD_WHITE_POINTS
+      : options.whitePoints === false
+        ? []
+        : (options.whitePoints ?? ["D65"]);
   const planckian = resolvePlanckian(options.planckian, range !== WHOLE[space]);
   if (planckian) {
     const surroundings: LabelSurroundings = {
@@ -443,24 +593,44 @@ function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigur
   const annotations = arrowAnnotations(options.arrows ?? [], space);
 
   const [xTitle, yTitle] = diagramAxisTitles(space);
-  const defaultTitle = space === "xy" ? "CIE 1931 (x, y) chromaticity diagram" : "CIE 1976 UCS (u′, v′) chromaticity diagram";
+  const defaultTitle =
+    space === "xy" ? "CIE 1931 (x, y) chromaticity diagram" : "CIE 1976 UCS (u′, v′) chromaticity diagram";
   const layout = houseLayout({
     title: options.title ?? defaultTitle,
     subtitle: obs.name,
     height,
-    xaxis: houseAxis(xTitle, { range: [...range.x], tick0: 0, dtick: space === "xy" && range === WHOLE.xy ? 0.1 : undefined, constrain: "domain" }),
-    yaxis: houseAxis(yTitle, { range: [...range.y], tick0: 0, dtick: space === "xy" && range === WHOLE.xy ? 0.1 : undefined, scaleanchor: "x", scaleratio: 1, constrain: "domain" }),
+    xaxis: houseAxis(xTitle, {
+      range: [...range.x],
+      tick0: 0,
+      dtick: space === "xy" && range === WHOLE.xy ? 0.1 : undefined,
+      constrain: "domain",
+    }),
+    yaxis: houseAxis(yTitle, {
+      range: [...range.y],
+      tick0: 0,
+      dtick: space === "xy" && range === WHOLE.xy ? 0.1 : undefined,
+      scaleanchor: "x",
+      scaleratio: 1,
+      constrain: "domain",
+    }),
     legend: "below",
   });
   layout.images = layoutImages;
   layout.annotations = annotations;
-  const fillNote = options.fill === false ? "" : " The background colours are approximate (sRGB, moved toward white where a display cannot show them) and serve for orientation only.";
+  const fillNote =
+    options.fill === false
+      ? ""
+      : " The background colours are approximate (sRGB, moved toward white where a display cannot show them) and serve for orientation only.";
   const auto = `Shown: ${notes.join("; ")}.${fillNote}`;
   const caption = options.caption ? `${options.caption.trim()} ${auto}` : auto;
   return plotFigure(data, layout, houseConfig(options.title ?? defaultTitle), caption);
 }
 
 /** The point of the spectral locus at a wavelength, in a diagram's coordinates (for annotations in cells). */
-export function spectralLocusPoint(wavelength: number, diagram: "xy" | "u'v'" = "xy", observer: ObserverName | Observer | 2 | 10 = "2°"): [number, number] {
+export function spectralLocusPoint(
+  wavelength: number,
+  diagram: "xy" | "u'v'" = "xy",
+  observer: ObserverName | Observer | 2 | 10 = "2°",
+): [number, number] {
   return locusPointAt(observerByName(observer), wavelength, diagramSpace(diagram)).at;
 }

@@ -36,13 +36,17 @@ export function chromaticityFill(
 ): FillImage {
   const resolution = options.resolution ?? 360;
   const veil = options.veil ?? 0.12;
-  if (!Number.isInteger(resolution) || resolution < 16 || resolution > 2000) throw new Error(`chromaticity fill: resolution ${resolution} px must be a whole number from 16 to 2000`);
+  if (!Number.isInteger(resolution) || resolution < 16 || resolution > 2000)
+    throw new Error(`chromaticity fill: resolution ${resolution} px must be a whole number from 16 to 2000`);
   if (!(veil >= 0 && veil <= 1)) throw new Error(`chromaticity fill: veil ${veil} must lie in 0–1`);
-  const [x0, x1] = xRange, [y0, y1] = yRange;
-  if (!(x1 > x0 && y1 > y0)) throw new Error(`chromaticity fill: axis ranges [${x0}, ${x1}] × [${y0}, ${y1}] must increase`);
+  const [x0, x1] = xRange,
+    [y0, y1] = yRange;
+  if (!(x1 > x0 && y1 > y0))
+    throw new Error(`chromaticity fill: axis ranges [${x0}, ${x1}] × [${y0}, ${y1}] must increase`);
   const w = resolution;
   const h = Math.max(16, Math.round((resolution * (y1 - y0)) / (x1 - x0)));
-  const dx = (x1 - x0) / w, dy = (y1 - y0) / h;
+  const dx = (x1 - x0) / w,
+    dy = (y1 - y0) / h;
   // Scanline fill (even–odd rule): per pixel row, the crossings of the polygon's edges, then the spans between them.
   const inside = new Uint8Array(w * h);
   const n = locusPolygon.length;
@@ -50,7 +54,8 @@ export function chromaticityFill(
     const b = y1 - (j + 0.5) * dy;
     const crossings: number[] = [];
     for (let k = 0, l = n - 1; k < n; l = k++) {
-      const [xk, yk] = locusPolygon[k]!, [xl, yl] = locusPolygon[l]!;
+      const [xk, yk] = locusPolygon[k]!,
+        [xl, yl] = locusPolygon[l]!;
       if (yk > b !== yl > b) crossings.push(((xl - xk) * (b - yk)) / (yl - yk) + xk);
     }
     crossings.sort((p, q) => p - q);
@@ -66,10 +71,12 @@ export function chromaticityFill(
     for (let i = 0; i < w; i++) {
       // Paint the pixels inside and their neighbours, so no white seam shows under the locus line.
       let near = 0;
-      for (let dj = -1; dj <= 1 && !near; dj++) for (let di = -1; di <= 1 && !near; di++) {
-        const jj = j + dj, ii = i + di;
-        if (jj >= 0 && jj < h && ii >= 0 && ii < w && inside[jj * w + ii]) near = 1;
-      }
+      for (let dj = -1; dj <= 1 && !near; dj++)
+        for (let di = -1; di <= 1 && !near; di++) {
+          const jj = j + dj,
+            ii = i + di;
+          if (jj >= 0 && jj < h && ii >= 0 && ii < w && inside[jj * w + ii]) near = 1;
+        }
       if (!near) continue;
       const xy = xyFromDiagramSafe(x0 + (i + 0.5) * dx, b, space);
       if (!xy || !(xy.y > 1e-4)) continue;
@@ -79,7 +86,15 @@ export function chromaticityFill(
       rgba[k + 3] = 255;
     }
   }
-  return { source: pngDataUri(w, h, rgba), x: x0, y: y1, sizex: x1 - x0, sizey: y1 - y0, widthPx: w, heightPx: h };
+  return {
+    source: pngDataUri(w, h, rgba),
+    x: x0,
+    y: y1,
+    sizex: x1 - x0,
+    sizey: y1 - y0,
+    widthPx: w,
+    heightPx: h,
+  };
 }
 
 function xyFromDiagramSafe(a: number, b: number, space: DiagramSpace) {

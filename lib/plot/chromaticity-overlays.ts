@@ -50,27 +50,51 @@ export const GAMUT_SOURCES: Readonly<Record<string, string>> = {
 };
 
 /** The r, g, b primaries (xy) of a gamut choice, with its legend name. */
-export function gamutPrimaries(g: GamutChoice): { name: string; source: string; r: Chromaticity; g: Chromaticity; b: Chromaticity } {
+export function gamutPrimaries(g: GamutChoice): {
+  name: string;
+  source: string;
+  r: Chromaticity;
+  g: Chromaticity;
+  b: Chromaticity;
+} {
   if (typeof g === "string") {
     let space: RgbSpace;
     try {
       space = rgbSpace(g);
     } catch {
-      throw new Error(`unknown gamut "${g}"; use ${rgbSpaceNames().map((n) => `"${n}"`).join(", ")}, an RGB space, or {name, r, g, b}`);
+      throw new Error(
+        `unknown gamut "${g}"; use ${rgbSpaceNames()
+          .map((n) => `"${n}"`)
+          .join(", ")}, an RGB space, or {name, r, g, b}`,
+      );
     }
-    return { name: space.name, source: GAMUT_SOURCES[space.name] ?? `${space.name} (${space.source})`, ...space.primaries };
+    return {
+      name: space.name,
+      source: GAMUT_SOURCES[space.name] ?? `${space.name} (${space.source})`,
+      ...space.primaries,
+    };
   }
   if (g && typeof g === "object" && (g as RgbSpace).kind === "rgb space") {
     const space = g as RgbSpace;
     return { name: space.name, source: `${space.name} (${space.source})`, ...space.primaries };
   }
   const c = g as CustomGamut;
-  if (!c || typeof c !== "object" || typeof c.name !== "string") throw new Error(`gamut ${JSON.stringify(g)} needs a name and r, g, b primaries`);
-  return { name: c.name, source: `${c.name} (given primaries)`, r: toXy(c.r, `gamut "${c.name}" red`), g: toXy(c.g, `gamut "${c.name}" green`), b: toXy(c.b, `gamut "${c.name}" blue`) };
+  if (!c || typeof c !== "object" || typeof c.name !== "string")
+    throw new Error(`gamut ${JSON.stringify(g)} needs a name and r, g, b primaries`);
+  return {
+    name: c.name,
+    source: `${c.name} (given primaries)`,
+    r: toXy(c.r, `gamut "${c.name}" red`),
+    g: toXy(c.g, `gamut "${c.name}" green`),
+    b: toXy(c.b, `gamut "${c.name}" blue`),
+  };
 }
 
 /** Closed outline traces of the gamuts, each with its own dash so a grey print tells them apart. */
-export function gamutTraces(gamuts: readonly GamutChoice[], space: DiagramSpace): { traces: PlotTrace[]; names: string[] } {
+export function gamutTraces(
+  gamuts: readonly GamutChoice[],
+  space: DiagramSpace,
+): { traces: PlotTrace[]; names: string[] } {
   const traces: PlotTrace[] = [];
   const names: string[] = [];
   gamuts.forEach((g, i) => {
@@ -84,7 +108,11 @@ export function gamutTraces(gamuts: readonly GamutChoice[], space: DiagramSpace)
       x: pts.map((q) => r5(q[0])),
       y: pts.map((q) => r5(q[1])),
       text: ["R", "G", "B", "R"],
-      line: { color: SERIES_COLOURS[(i + 5) % SERIES_COLOURS.length], width: 1.6, dash: SERIES_DASHES[i % SERIES_DASHES.length] },
+      line: {
+        color: SERIES_COLOURS[(i + 5) % SERIES_COLOURS.length],
+        width: 1.6,
+        dash: SERIES_DASHES[i % SERIES_DASHES.length],
+      },
       marker: { size: 5, symbol: "square", color: SERIES_COLOURS[(i + 5) % SERIES_COLOURS.length] },
       hovertemplate: `${escapeHover(p.name)}<br>%{text} primary: %{x:.4f}, %{y:.4f}<extra></extra>`,
     });
@@ -104,7 +132,9 @@ export function pointTraces(points: readonly LabelledChromaticity[], space: Diag
   let gi = 0;
   const traces: PlotTrace[] = [];
   for (const [group, list] of groups) {
-    const xs: number[] = [], ys: number[] = [], custom: (string | number)[][] = [];
+    const xs: number[] = [],
+      ys: number[] = [],
+      custom: (string | number)[][] = [];
     for (const p of list) {
       const xy = toXy(p, `point "${p.label}"`);
       const uv = uvPrimeFromXy(xy);
@@ -132,7 +162,12 @@ export function pointTraces(points: readonly LabelledChromaticity[], space: Diag
       textposition: "top right",
       textfont: { family: FONT_FAMILY, size: 11, color: INK.text },
       customdata: custom,
-      marker: { symbol: SERIES_MARKERS[gi % SERIES_MARKERS.length], size: 9, color: colour, line: { color: INK.text, width: 1 } },
+      marker: {
+        symbol: SERIES_MARKERS[gi % SERIES_MARKERS.length],
+        size: 9,
+        color: colour,
+        line: { color: INK.text, width: 1 },
+      },
       hovertemplate:
         "<b>%{text}</b><br>x = %{customdata[0]}, y = %{customdata[1]}<br>u′ = %{customdata[2]}, v′ = %{customdata[3]}<br>CCT %{customdata[4]}<br>Duv %{customdata[5]}<extra>" +
         escapeHover(group) +
@@ -151,9 +186,13 @@ export function toleranceOutline(t: ToleranceRegion, steps = 96): Chromaticity[]
   let a: number, b: number, angle: number;
   if (t.ellipse) {
     ({ a, b, angle } = t.ellipse);
-    if (!(a > 0 && b > 0 && Number.isFinite(angle))) throw new Error(`tolerance ellipse "${t.label ?? ""}": a = ${a}, b = ${b}, angle = ${angle}° must be positive semi-axes and a finite angle`);
+    if (!(a > 0 && b > 0 && Number.isFinite(angle)))
+      throw new Error(
+        `tolerance ellipse "${t.label ?? ""}": a = ${a}, b = ${b}, angle = ${angle}° must be positive semi-axes and a finite angle`,
+      );
   } else if (t.radius !== undefined) {
-    if (!(t.radius > 0 && t.radius < 0.2)) throw new Error(`tolerance circle "${t.label ?? ""}": radius ${t.radius} must lie in (0, 0.2)`);
+    if (!(t.radius > 0 && t.radius < 0.2))
+      throw new Error(`tolerance circle "${t.label ?? ""}": radius ${t.radius} must lie in (0, 0.2)`);
     a = b = t.radius;
     angle = 0;
   } else throw new Error(`tolerance "${t.label ?? ""}" needs a radius or an ellipse {a, b, angle}`);
@@ -161,8 +200,12 @@ export function toleranceOutline(t: ToleranceRegion, steps = 96): Chromaticity[]
   const out: Chromaticity[] = [];
   for (let k = 0; k <= steps; k++) {
     const s = (2 * Math.PI * k) / steps;
-    const ex = a * Math.cos(s), ey = b * Math.sin(s);
-    const p: [number, number] = [c[0] + ex * Math.cos(th) - ey * Math.sin(th), c[1] + ex * Math.sin(th) + ey * Math.cos(th)];
+    const ex = a * Math.cos(s),
+      ey = b * Math.sin(s);
+    const p: [number, number] = [
+      c[0] + ex * Math.cos(th) - ey * Math.sin(th),
+      c[1] + ex * Math.sin(th) + ey * Math.cos(th),
+    ];
     out.push(native === "xy" ? { x: p[0], y: p[1] } : xyFromUvPrime({ u: p[0], v: p[1] }));
   }
   return out;
@@ -172,7 +215,9 @@ export function toleranceOutline(t: ToleranceRegion, steps = 96): Chromaticity[]
 export function toleranceTraces(regions: readonly ToleranceRegion[], space: DiagramSpace): PlotTrace[] {
   return regions.map((t, i) => {
     const pts = toleranceOutline(t).map((p) => diagramPoint(p, space));
-    const what = t.ellipse ? `ellipse a = ${t.ellipse.a}, b = ${t.ellipse.b}, ${t.ellipse.angle}°` : `radius ${t.radius}`;
+    const what = t.ellipse
+      ? `ellipse a = ${t.ellipse.a}, b = ${t.ellipse.b}, ${t.ellipse.angle}°`
+      : `radius ${t.radius}`;
     const name = t.label ?? `Tolerance ${i + 1}`;
     return {
       type: "scatter",
@@ -180,14 +225,21 @@ export function toleranceTraces(regions: readonly ToleranceRegion[], space: Diag
       name: escapeHover(name),
       x: pts.map((q) => r5(q[0], 6)),
       y: pts.map((q) => r5(q[1], 6)),
-      line: { color: SERIES_COLOURS[(i + 3) % SERIES_COLOURS.length], width: 1.3, dash: SERIES_DASHES[(i + 1) % SERIES_DASHES.length] },
+      line: {
+        color: SERIES_COLOURS[(i + 3) % SERIES_COLOURS.length],
+        width: 1.3,
+        dash: SERIES_DASHES[(i + 1) % SERIES_DASHES.length],
+      },
       hovertemplate: `${escapeHover(name)}<br>${what} in ${t.space ?? "u'v'"}<extra></extra>`,
     };
   });
 }
 
 /** Arrows as layout annotations (tail at `from`, head at `to`), label at the tail. */
-export function arrowAnnotations(arrows: readonly ChromaticityArrow[], space: DiagramSpace): Record<string, unknown>[] {
+export function arrowAnnotations(
+  arrows: readonly ChromaticityArrow[],
+  space: DiagramSpace,
+): Record<string, unknown>[] {
   return arrows.map((a, i) => {
     const from = diagramPoint(toXy(a.from, `arrow ${i + 1} start`), space);
     const to = diagramPoint(toXy(a.to, `arrow ${i + 1} end`), space);

@@ -21,7 +21,8 @@ export interface Primaries {
 }
 
 function checkGamut(gamut: DisplayGamut): DisplayGamut {
-  if (!DISPLAY_GAMUTS.includes(gamut)) throw new Error(`unknown display gamut "${gamut}"; use one of ${DISPLAY_GAMUTS.join(", ")}`);
+  if (!DISPLAY_GAMUTS.includes(gamut))
+    throw new Error(`unknown display gamut "${gamut}"; use one of ${DISPLAY_GAMUTS.join(", ")}`);
   return gamut;
 }
 
@@ -66,14 +67,18 @@ export function encodeSrgb(v: number): number {
 
 /** BT.2020 OETF with α = 1.09929682680944, β = 0.018053968510807 (ITU-R BT.2020-2 Table 4; CSS Color 4 rec2020). */
 export function encodeBt2020(v: number): number {
-  const alpha = 1.09929682680944, beta = 0.018053968510807;
+  const alpha = 1.09929682680944,
+    beta = 0.018053968510807;
   const a = Math.abs(v);
   const e = a < beta ? 4.5 * a : alpha * a ** 0.45 - (alpha - 1);
   return Math.sign(v) * e;
 }
 
 /** Encodes linear RGB with the transfer function CSS uses for that gamut. */
-export function encodeRgb(rgb: readonly [number, number, number], gamut: DisplayGamut): [number, number, number] {
+export function encodeRgb(
+  rgb: readonly [number, number, number],
+  gamut: DisplayGamut,
+): [number, number, number] {
   const f = gamut === "BT.2020" ? encodeBt2020 : encodeSrgb;
   return [f(rgb[0]), f(rgb[1]), f(rgb[2])];
 }
@@ -85,7 +90,16 @@ export function insideCube(rgb: readonly number[], tolerance = 1e-4): boolean {
 
 /** #rrggbb from encoded sRGB components, clipped to 0–1. */
 export function hexFromEncoded(rgb: readonly number[]): string {
-  return "#" + rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, "0")).join("");
+  return (
+    "#" +
+    rgb
+      .map((v) =>
+        Math.round(Math.min(1, Math.max(0, v)) * 255)
+          .toString(16)
+          .padStart(2, "0"),
+      )
+      .join("")
+  );
 }
 
 /**
@@ -93,7 +107,10 @@ export function hexFromEncoded(rgb: readonly number[]): string {
  * display can show after moving out-of-gamut colours toward white until all channels are ≥ 0 (a simple desaturating
  * clip; common practice, no source). Returns encoded sRGB 0–1.
  */
-export function brightDisplayColour(xyz: Tristimulus, gamut: DisplayGamut = "sRGB"): [number, number, number] {
+export function brightDisplayColour(
+  xyz: Tristimulus,
+  gamut: DisplayGamut = "sRGB",
+): [number, number, number] {
   let rgb = linearRgb(xyz, gamut);
   const lo = Math.min(rgb[0], rgb[1], rgb[2]);
   if (lo < 0) rgb = [rgb[0] - lo, rgb[1] - lo, rgb[2] - lo];

@@ -7,11 +7,17 @@ import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import { applyMatrix3 } from "../colorimetry/matrix3.ts";
 import { adaptationMatrix } from "../adaptation/chromatic-adaptation.ts";
 
-export const D65_WHITE_Y100: Tristimulus = { X: (0.3127 / 0.329) * 100, Y: 100, Z: ((1 - 0.3127 - 0.329) / 0.329) * 100 };
+export const D65_WHITE_Y100: Tristimulus = {
+  X: (0.3127 / 0.329) * 100,
+  Y: 100,
+  Z: ((1 - 0.3127 - 0.329) / 0.329) * 100,
+};
 
 /** XYZ seen under `white` carried to the D65 display white by linear Bradford (keeps the white's Y scale). */
 export function adaptToD65(xyz: Tristimulus, white: Tristimulus): Tristimulus {
-  const same = Math.abs(white.X / white.Y - D65_WHITE_Y100.X / 100) < 1e-9 && Math.abs(white.Z / white.Y - D65_WHITE_Y100.Z / 100) < 1e-9;
+  const same =
+    Math.abs(white.X / white.Y - D65_WHITE_Y100.X / 100) < 1e-9 &&
+    Math.abs(white.Z / white.Y - D65_WHITE_Y100.Z / 100) < 1e-9;
   if (same) return xyz;
   const [X, Y, Z] = applyMatrix3(adaptationMatrix(white, D65_WHITE_Y100, "bradford"), [xyz.X, xyz.Y, xyz.Z]);
   return { X, Y, Z };

@@ -19,7 +19,12 @@ export interface PlotFigure {
 }
 
 /** A figure record from its parts (the layout must already carry the title). */
-export function plotFigure(data: PlotTrace[], layout: PlotLayout, config: PlotConfig, caption: string): PlotFigure {
+export function plotFigure(
+  data: PlotTrace[],
+  layout: PlotLayout,
+  config: PlotConfig,
+  caption: string,
+): PlotFigure {
   return { data, layout, config, caption };
 }
 

@@ -75,14 +75,17 @@ const clamp01 = (v: number) => Math.min(1, Math.max(0, v));
  * relative to the D65 display white, on the Y = 1 scale (white Y = 1).
  */
 export function mapToDisplayGamut(xyz: Tristimulus, gamut: DisplayGamut): MappedColour {
-  if (![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) throw new Error(`gamut mapping: XYZ (${xyz.X}, ${xyz.Y}, ${xyz.Z}) must be finite`);
+  if (![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite))
+    throw new Error(`gamut mapping: XYZ (${xyz.X}, ${xyz.Y}, ${xyz.Z}) must be finite`);
   const rgb = linearRgb(xyz, gamut);
-  if (rgb.every((v) => v >= -INSIDE && v <= 1 + INSIDE)) return { linear: rgb.map(clamp01) as Vec3, how: "inside" };
+  if (rgb.every((v) => v >= -INSIDE && v <= 1 + INSIDE))
+    return { linear: rgb.map(clamp01) as Vec3, how: "inside" };
   const [L, a, b] = oklabFromXyz(xyz);
   if (L >= 1) return { linear: [1, 1, 1], how: "white" };
   if (L <= 0) return { linear: [0, 0, 0], how: "black" };
   const hue = Math.atan2(b, a);
-  const cosH = Math.cos(hue), sinH = Math.sin(hue);
+  const cosH = Math.cos(hue),
+    sinH = Math.sin(hue);
   const atChroma = (c: number): Vec3 => [L, c * cosH, c * sinH];
   const clipOf = (lab: Vec3): { linear: Vec3; deltaE: number } => {
     const linear = linearRgb(xyzFromOklab(lab), gamut).map(clamp01) as Vec3;
@@ -93,7 +96,9 @@ export function mapToDisplayGamut(xyz: Tristimulus, gamut: DisplayGamut): Mapped
   const inside = (lab: Vec3) => linearRgb(xyzFromOklab(lab), gamut).every((v) => v >= 0 && v <= 1);
   let clipped = clipOf([L, a, b]);
   if (clipped.deltaE < JND) return { linear: clipped.linear, how: "chroma reduced" };
-  let min = 0, max = Math.hypot(a, b), minInside = true;
+  let min = 0,
+    max = Math.hypot(a, b),
+    minInside = true;
   while (max - min > EPSILON) {
     const chroma = (min + max) / 2;
     const current = atChroma(chroma);

@@ -11,7 +11,15 @@ import { escapeHover } from "./chromaticity-overlays.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
 import { D65_WHITE_Y100 } from "./display-white.ts";
 import { plotFigure, roundForDisplay, type PlotFigure, type PlotTrace } from "./figure.ts";
-import { FIGURE_HEIGHTS, FONT_FAMILY, INK, SERIES_MARKERS, houseAxis, houseConfig, houseLayout } from "./style.ts";
+import {
+  FIGURE_HEIGHTS,
+  FONT_FAMILY,
+  INK,
+  SERIES_MARKERS,
+  houseAxis,
+  houseConfig,
+  houseLayout,
+} from "./style.ts";
 
 /** A sample in CIELAB; `group` collects samples under one legend entry and marker shape. */
 export interface LabSample {
@@ -40,7 +48,6 @@ export interface LabPlotOptions {
   height?: number;
 }
 
-
 /**
  * An approximate sRGB #rrggbb for a CIELAB colour, for marker fills only: the L*a*b* values are read as if relative
  * to the D65 display white (so no chromatic adaptation is modelled) and a colour outside sRGB is gamut-mapped into
@@ -48,11 +55,17 @@ export interface LabPlotOptions {
  */
 export function labDisplayHex(lab: Lab): string {
   const xyz = xyzFromLab(lab, D65_WHITE_Y100);
-  return hexFromEncoded(encodeRgb(mapToDisplayGamut({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").linear, "sRGB"));
+  return hexFromEncoded(
+    encodeRgb(mapToDisplayGamut({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").linear, "sRGB"),
+  );
 }
 
 function checkLab(lab: Lab, what: string): Lab {
-  if (!lab || typeof lab !== "object" || ![lab.L, lab.a, lab.b].every((v) => typeof v === "number" && Number.isFinite(v))) {
+  if (
+    !lab ||
+    typeof lab !== "object" ||
+    ![lab.L, lab.a, lab.b].every((v) => typeof v === "number" && Number.isFinite(v))
+  ) {
     throw new Error(`${what}: L*a*b* = ${JSON.stringify(lab)} must be three finite numbers {L, a, b}`);
   }
   return lab;
@@ -64,17 +77,22 @@ function coords(lab: Lab, view: View): [number, number] {
   return view === "ab" ? [lab.a, lab.b] : [lchFromLab(lab).C, lab.L];
 }
 
-const HOVER = "<b>%{text}</b><br>L* = %{customdata[0]}<br>a* = %{customdata[1]}, b* = %{customdata[2]}<br>C*ab = %{customdata[3]}, hab = %{customdata[4]}°";
+const HOVER =
+  "<b>%{text}</b><br>L* = %{customdata[0]}<br>a* = %{customdata[1]}, b* = %{customdata[2]}<br>C*ab = %{customdata[3]}, hab = %{customdata[4]}°";
 
 function labCustom(lab: Lab): string[] {
   const lch = lchFromLab(lab);
   return [lab.L.toFixed(2), lab.a.toFixed(2), lab.b.toFixed(2), lch.C.toFixed(2), lch.h.toFixed(1)];
 }
 
-function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vectors: [[number, number], [number, number]][]; all: [number, number][] } {
+function labTraces(
+  o: LabPlotOptions,
+  view: View,
+): { traces: PlotTrace[]; vectors: [[number, number], [number, number]][]; all: [number, number][] } {
   const samples = o.samples ?? [];
   const pairs = o.pairs ?? [];
-  if (samples.length + pairs.length === 0) throw new Error("CIELAB plot: give samples or pairs (none were given)");
+  if (samples.length + pairs.length === 0)
+    throw new Error("CIELAB plot: give samples or pairs (none were given)");
   const showLabels = o.labels ?? samples.length + pairs.length <= 30;
   const traces: PlotTrace[] = [];
   const all: [number, number][] = [];
@@ -99,7 +117,12 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vector
       textposition: "top right",
       textfont: { family: FONT_FAMILY, size: 10, color: INK.text },
       customdata: list.map((s) => labCustom(s.lab)),
-      marker: { symbol: SERIES_MARKERS[gi % SERIES_MARKERS.length]!.replace(/-open$/, ""), size: 11, color: list.map((s) => labDisplayHex(s.lab)), line: { color: INK.text, width: 1 } },
+      marker: {
+        symbol: SERIES_MARKERS[gi % SERIES_MARKERS.length]!.replace(/-open$/, ""),
+        size: 11,
+        color: list.map((s) => labDisplayHex(s.lab)),
+        line: { color: INK.text, width: 1 },
+      },
       hovertemplate: HOVER + `<extra>${escapeHover(group)}</extra>`,
       cliponaxis: false,
     });
@@ -107,12 +130,19 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vector
   }
   const vectors: [[number, number], [number, number]][] = [];
   if (pairs.length > 0) {
-    const refs = pairs.map((p, i) => coords(checkLab(p.reference, `pair ${i + 1} ("${p.label}") reference`), view));
+    const refs = pairs.map((p, i) =>
+      coords(checkLab(p.reference, `pair ${i + 1} ("${p.label}") reference`), view),
+    );
     const smps = pairs.map((p, i) => coords(checkLab(p.sample, `pair ${i + 1} ("${p.label}") sample`), view));
     all.push(...refs, ...smps);
     const diff = pairs.map((p) => {
-      const r = lchFromLab(p.reference), s = lchFromLab(p.sample);
-      return [deltaE2000(p.reference, p.sample).toFixed(2), (p.sample.L - p.reference.L).toFixed(2), (s.C - r.C).toFixed(2)];
+      const r = lchFromLab(p.reference),
+        s = lchFromLab(p.sample);
+      return [
+        deltaE2000(p.reference, p.sample).toFixed(2),
+        (p.sample.L - p.reference.L).toFixed(2),
+        (s.C - r.C).toFixed(2),
+      ];
     });
     traces.push({
       type: "scatter",
@@ -135,19 +165,36 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vector
       textposition: "top right",
       textfont: { family: FONT_FAMILY, size: 10, color: INK.text },
       customdata: pairs.map((p, i) => [...labCustom(p.sample), ...diff[i]!]),
-      marker: { symbol: "diamond", size: 10, color: pairs.map((p) => labDisplayHex(p.sample)), line: { color: INK.text, width: 1 } },
-      hovertemplate: HOVER + "<br>ΔE00 = %{customdata[5]} (ΔL* %{customdata[6]}, ΔC*ab %{customdata[7]})<extra>sample</extra>",
+      marker: {
+        symbol: "diamond",
+        size: 10,
+        color: pairs.map((p) => labDisplayHex(p.sample)),
+        line: { color: INK.text, width: 1 },
+      },
+      hovertemplate:
+        HOVER +
+        "<br>ΔE00 = %{customdata[5]} (ΔL* %{customdata[6]}, ΔC*ab %{customdata[7]})<extra>sample</extra>",
       cliponaxis: false,
     });
     // The vector itself is a line (visible however short); an arrowhead annotation marks its direction.
-    const vx: (number | null)[] = [], vy: (number | null)[] = [];
+    const vx: (number | null)[] = [],
+      vy: (number | null)[] = [];
     pairs.forEach((_, i) => {
       const [a, b] = [refs[i]!, smps[i]!];
       vx.push(roundForDisplay(a[0], 3), roundForDisplay(b[0], 3), null);
       vy.push(roundForDisplay(a[1], 3), roundForDisplay(b[1], 3), null);
       vectors.push([a, b]);
     });
-    traces.splice(traces.length - 2, 0, { type: "scatter", mode: "lines", name: "Reference → sample", x: vx, y: vy, line: { color: INK.text, width: 1.2 }, hoverinfo: "skip", showlegend: false });
+    traces.splice(traces.length - 2, 0, {
+      type: "scatter",
+      mode: "lines",
+      name: "Reference → sample",
+      x: vx,
+      y: vy,
+      line: { color: INK.text, width: 1.2 },
+      hoverinfo: "skip",
+      showlegend: false,
+    });
   }
   return { traces, vectors, all };
 }
@@ -156,10 +203,35 @@ function labTraces(o: LabPlotOptions, view: View): { traces: PlotTrace[]; vector
  * Arrowheads for the vectors long enough to carry one: at least 24 px at the figure's usual drawn size (plot area
  * about `widthPx` × `heightPx`); shorter vectors keep only their line, the markers telling reference from sample.
  */
-function arrowheads(vectors: readonly [[number, number], [number, number]][], xSpan: number, ySpan: number, widthPx: number, heightPx: number): Record<string, unknown>[] {
+function arrowheads(
+  vectors: readonly [[number, number], [number, number]][],
+  xSpan: number,
+  ySpan: number,
+  widthPx: number,
+  heightPx: number,
+): Record<string, unknown>[] {
   return vectors
-    .filter(([a, b]) => Math.hypot(((b[0] - a[0]) / xSpan) * widthPx, ((b[1] - a[1]) / ySpan) * heightPx) >= 24)
-    .map(([a, b]) => ({ x: b[0], y: b[1], ax: a[0], ay: a[1], xref: "x", yref: "y", axref: "x", ayref: "y", showarrow: true, arrowhead: 2, arrowsize: 1, arrowwidth: 1.2, arrowcolor: INK.text, standoff: 6, startstandoff: 7, text: "" }));
+    .filter(
+      ([a, b]) => Math.hypot(((b[0] - a[0]) / xSpan) * widthPx, ((b[1] - a[1]) / ySpan) * heightPx) >= 24,
+    )
+    .map(([a, b]) => ({
+      x: b[0],
+      y: b[1],
+      ax: a[0],
+      ay: a[1],
+      xref: "x",
+      yref: "y",
+      axref: "x",
+      ayref: "y",
+      showarrow: true,
+      arrowhead: 2,
+      arrowsize: 1,
+      arrowwidth: 1.2,
+      arrowcolor: INK.text,
+      standoff: 6,
+      startstandoff: 7,
+      text: "",
+    }));
 }
 
 function niceStep(span: number): number {
@@ -170,9 +242,19 @@ function niceStep(span: number): number {
 }
 
 function captionFor(o: LabPlotOptions, view: View): string {
-  const parts = [view === "ab" ? "CIELAB a*, b* plane (CIE 015:2018); faint circles are lines of constant chroma C*ab" : "CIELAB lightness L* against chroma C*ab (CIE 015:2018)"];
-  if ((o.samples ?? []).length > 0) parts.push("marker fills show approximate colours (L*a*b* read against a D65 display white, gamut-mapped into sRGB)");
-  if ((o.pairs ?? []).length > 0) parts.push("lines join each reference (open circle) to its sample (diamond), with an arrowhead where there is room; hover shows ΔE00 (CIEDE2000, CIE 142-2001)");
+  const parts = [
+    view === "ab"
+      ? "CIELAB a*, b* plane (CIE 015:2018); faint circles are lines of constant chroma C*ab"
+      : "CIELAB lightness L* against chroma C*ab (CIE 015:2018)",
+  ];
+  if ((o.samples ?? []).length > 0)
+    parts.push(
+      "marker fills show approximate colours (L*a*b* read against a D65 display white, gamut-mapped into sRGB)",
+    );
+  if ((o.pairs ?? []).length > 0)
+    parts.push(
+      "lines join each reference (open circle) to its sample (diamond), with an arrowhead where there is room; hover shows ΔE00 (CIEDE2000, CIE 142-2001)",
+    );
   const auto = parts.join("; ") + ".";
   return o.caption ? `${o.caption.trim()} ${auto}` : auto;
 }
@@ -184,30 +266,71 @@ export function labPlane(options: LabPlotOptions): PlotFigure {
 
 function drawLabPlane(options: LabPlotOptions): PlotFigure {
   const { traces, vectors, all } = labTraces(options, "ab");
-  if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`labPlane: extent ${options.extent} must be a positive number`);
-  const extent = options.extent ?? Math.max(10, ...all.map((p) => Math.max(Math.abs(p[0]), Math.abs(p[1])))) * 1.15;
+  if (options.extent !== undefined && !(options.extent > 0))
+    throw new Error(`labPlane: extent ${options.extent} must be a positive number`);
+  const extent =
+    options.extent ?? Math.max(10, ...all.map((p) => Math.max(Math.abs(p[0]), Math.abs(p[1])))) * 1.15;
   const step = niceStep(2 * extent);
   const R = Math.ceil(extent / step) * step;
   const shapes: Record<string, unknown>[] = [];
   for (let c = step; c <= R * Math.SQRT2; c += step) {
-    shapes.push({ type: "circle", xref: "x", yref: "y", x0: -c, y0: -c, x1: c, y1: c, line: { color: INK.grid, width: 1 }, layer: "below" });
+    shapes.push({
+      type: "circle",
+      xref: "x",
+      yref: "y",
+      x0: -c,
+      y0: -c,
+      x1: c,
+      y1: c,
+      line: { color: INK.grid, width: 1 },
+      layer: "below",
+    });
   }
   const ends = [
     { x: R, y: 0, text: "+a* (red)", xanchor: "right", yanchor: "bottom" },
     { x: -R, y: 0, text: "−a* (green)", xanchor: "left", yanchor: "bottom" },
     { x: 0, y: R, text: "+b* (yellow)", xanchor: "left", yanchor: "top" },
     { x: 0, y: -R, text: "−b* (blue)", xanchor: "left", yanchor: "bottom" },
-  ].map((e) => ({ ...e, xref: "x", yref: "y", showarrow: false, font: { family: FONT_FAMILY, size: 10, color: "#555555" } }));
+  ].map((e) => ({
+    ...e,
+    xref: "x",
+    yref: "y",
+    showarrow: false,
+    font: { family: FONT_FAMILY, size: 10, color: "#555555" },
+  }));
   const layout = houseLayout({
     title: options.title ?? "CIELAB a*, b* plane",
     height: options.height ?? FIGURE_HEIGHTS.square,
-    xaxis: houseAxis("a*", { range: [-R, R], dtick: step, zeroline: true, zerolinecolor: INK.frame, zerolinewidth: 1, showgrid: false, constrain: "domain" }),
-    yaxis: houseAxis("b*", { range: [-R, R], dtick: step, zeroline: true, zerolinecolor: INK.frame, zerolinewidth: 1, showgrid: false, scaleanchor: "x", scaleratio: 1, constrain: "domain" }),
+    xaxis: houseAxis("a*", {
+      range: [-R, R],
+      dtick: step,
+      zeroline: true,
+      zerolinecolor: INK.frame,
+      zerolinewidth: 1,
+      showgrid: false,
+      constrain: "domain",
+    }),
+    yaxis: houseAxis("b*", {
+      range: [-R, R],
+      dtick: step,
+      zeroline: true,
+      zerolinecolor: INK.frame,
+      zerolinewidth: 1,
+      showgrid: false,
+      scaleanchor: "x",
+      scaleratio: 1,
+      constrain: "domain",
+    }),
     legend: "below",
   });
   layout.shapes = shapes;
   layout.annotations = [...ends, ...arrowheads(vectors, 2 * R, 2 * R, 460, 460)];
-  return plotFigure(traces, layout, houseConfig(options.title ?? "cielab-ab-plane"), captionFor(options, "ab"));
+  return plotFigure(
+    traces,
+    layout,
+    houseConfig(options.title ?? "cielab-ab-plane"),
+    captionFor(options, "ab"),
+  );
 }
 
 /** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows (hover ΔE00 is not noted in the methods log). */
@@ -217,7 +340,8 @@ export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
 
 function drawLightnessChromaPlot(options: LabPlotOptions): PlotFigure {
   const { traces, vectors, all } = labTraces(options, "LC");
-  if (options.extent !== undefined && !(options.extent > 0)) throw new Error(`lightnessChromaPlot: extent ${options.extent} must be a positive number`);
+  if (options.extent !== undefined && !(options.extent > 0))
+    throw new Error(`lightnessChromaPlot: extent ${options.extent} must be a positive number`);
   const cMax = options.extent ?? Math.max(10, ...all.map((p) => p[0])) * 1.1;
   const step = niceStep(cMax);
   const layout = houseLayout({
@@ -229,5 +353,10 @@ function drawLightnessChromaPlot(options: LabPlotOptions): PlotFigure {
   });
   const cTop = Math.ceil(cMax / step) * step;
   layout.annotations = arrowheads(vectors, cTop, 100, 620, 290);
-  return plotFigure(traces, layout, houseConfig(options.title ?? "cielab-lightness-chroma"), captionFor(options, "LC"));
+  return plotFigure(
+    traces,
+    layout,
+    houseConfig(options.title ?? "cielab-lightness-chroma"),
+    captionFor(options, "LC"),
+  );
 }

@@ -35,10 +35,15 @@ export interface PlotFrame {
  * 605 px, see style.ts) minus the house margins, and the height minus the top margin and the bottom margin with a
  * legend below. The narrowest column gives the largest text relative to the data, so placements hold on screen too.
  */
-export function squarePlotFrame(range: { x: readonly [number, number]; y: readonly [number, number] }, heightPx: number, legendBelow = true): PlotFrame {
+export function squarePlotFrame(
+  range: { x: readonly [number, number]; y: readonly [number, number] },
+  heightPx: number,
+  legendBelow = true,
+): PlotFrame {
   const availableW = 605 - MARGINS.l - MARGINS.r;
   const availableH = heightPx - MARGINS.t - MARGINS.b - (legendBelow ? 34 : 0);
-  const spanX = range.x[1] - range.x[0], spanY = range.y[1] - range.y[0];
+  const spanX = range.x[1] - range.x[0],
+    spanY = range.y[1] - range.y[0];
   const pxPerUnit = Math.min(availableW / spanX, availableH / spanY);
   return { x: range.x, y: range.y, pxPerUnit, width: spanX * pxPerUnit, height: spanY * pxPerUnit };
 }
@@ -65,7 +70,9 @@ export function boxAt(c: Px, size: { w: number; h: number }): PxBox {
 
 /** True when two boxes, each grown by `pad` px, overlap. */
 export function boxesOverlap(a: PxBox, b: PxBox, pad = 0): boolean {
-  return a.x0 - pad < b.x1 + pad && b.x0 - pad < a.x1 + pad && a.y0 - pad < b.y1 + pad && b.y0 - pad < a.y1 + pad;
+  return (
+    a.x0 - pad < b.x1 + pad && b.x0 - pad < a.x1 + pad && a.y0 - pad < b.y1 + pad && b.y0 - pad < a.y1 + pad
+  );
 }
 
 /**
@@ -73,8 +80,10 @@ export function boxesOverlap(a: PxBox, b: PxBox, pad = 0): boolean {
  * undefined when the segment misses the box.
  */
 export function clipSegment(p: Px, q: Px, box: PxBox): [number, number] | undefined {
-  let t0 = 0, t1 = 1;
-  const dx = q[0] - p[0], dy = q[1] - p[1];
+  let t0 = 0,
+    t1 = 1;
+  const dx = q[0] - p[0],
+    dy = q[1] - p[1];
   const checks: [number, number][] = [
     [-dx, p[0] - box.x0],
     [dx, box.x1 - p[0]],
@@ -102,7 +111,8 @@ export function clipSegment(p: Px, q: Px, box: PxBox): [number, number] | undefi
 export function polylineHitsBox(line: readonly (Px | null)[], box: PxBox, pad = 0): boolean {
   const grown = { x0: box.x0 - pad, y0: box.y0 - pad, x1: box.x1 + pad, y1: box.y1 + pad };
   for (let i = 0; i + 1 < line.length; i++) {
-    const a = line[i], b = line[i + 1];
+    const a = line[i],
+      b = line[i + 1];
     if (a && b && clipSegment(a, b, grown)) return true;
   }
   return false;
@@ -110,7 +120,8 @@ export function polylineHitsBox(line: readonly (Px | null)[], box: PxBox, pad = 
 
 /** Distance in pixels from point c to segment a–b. */
 export function distanceToSegment(c: Px, a: Px, b: Px): number {
-  const dx = b[0] - a[0], dy = b[1] - a[1];
+  const dx = b[0] - a[0],
+    dy = b[1] - a[1];
   const len2 = dx * dx + dy * dy;
   const t = len2 > 0 ? Math.max(0, Math.min(1, ((c[0] - a[0]) * dx + (c[1] - a[1]) * dy) / len2)) : 0;
   return Math.hypot(c[0] - (a[0] + t * dx), c[1] - (a[1] + t * dy));
@@ -153,7 +164,11 @@ const STEPS = 24; // positions tried along the visible part of a line
  * preferred end when it is visible, else beside the visible part, on either side, nearest that end first; inside the
  * plot area; not overlapping other labels or reserved boxes; crossing no other line or curve when any place allows.
  */
-export function placeLineLabels<T>(lines: readonly LabelledLine<T>[], frame: PlotFrame, options: LineLabelOptions): LineLabel<T>[] {
+export function placeLineLabels<T>(
+  lines: readonly LabelledLine<T>[],
+  frame: PlotFrame,
+  options: LineLabelOptions,
+): LineLabel<T>[] {
   const area: PxBox = { x0: 0, y0: 0, x1: frame.width, y1: frame.height };
   const inner: PxBox = { x0: area.x0 + PAD, y0: area.y0 + PAD, x1: area.x1 - PAD, y1: area.y1 - PAD };
   const pxLines = lines.map((l) => ({ l, p: toPx(frame, l.start) as Px, q: toPx(frame, l.end) as Px }));
@@ -178,7 +193,8 @@ export function placeLineLabels<T>(lines: readonly LabelledLine<T>[], frame: Plo
     const first = n[0] > 1e-9 || (Math.abs(n[0]) <= 1e-9 && n[1] > 0) ? 1 : -1;
     for (let k = 0; k <= STEPS; k++) {
       const c = at(visible[0] + ((visible[1] - visible[0]) * k) / STEPS);
-      for (const side of [first, -first]) centres.push([c[0] + side * n[0] * alongN, c[1] + side * n[1] * alongN]);
+      for (const side of [first, -first])
+        centres.push([c[0] + side * n[0] * alongN, c[1] + side * n[1] * alongN]);
     }
     if (visible[1] === 1) centres.push([q[0] + d[0] * alongD, q[1] + d[1] * alongD]);
     // Short lines among close neighbours (a whole diagram): any direction around either visible end.
@@ -198,11 +214,16 @@ export function placeLineLabels<T>(lines: readonly LabelledLine<T>[], frame: Plo
     };
     const fits = (box: PxBox, strict: boolean): boolean =>
       ownNearest([(box.x0 + box.x1) / 2, (box.y0 + box.y1) / 2]) &&
-      box.x0 >= inner.x0 && box.x1 <= inner.x1 && box.y0 >= inner.y0 && box.y1 <= inner.y1 &&
+      box.x0 >= inner.x0 &&
+      box.x1 <= inner.x1 &&
+      box.y0 >= inner.y0 &&
+      box.y1 <= inner.y1 &&
       !polylineHitsBox([p, q], box, PAD / 2) &&
       placed.every((o) => !boxesOverlap(o.box, box, PAD)) &&
       reserved.every((r) => !boxesOverlap(r, box, PAD)) &&
-      (!strict || (others.every((o) => !polylineHitsBox(o, box, PAD)) && curves.every((c) => !polylineHitsBox(c, box, PAD))));
+      (!strict ||
+        (others.every((o) => !polylineHitsBox(o, box, PAD)) &&
+          curves.every((c) => !polylineHitsBox(c, box, PAD))));
     let chosen: PxBox | undefined;
     for (const strict of [true, false]) {
       for (const c of centres) {
@@ -215,7 +236,12 @@ export function placeLineLabels<T>(lines: readonly LabelledLine<T>[], frame: Plo
       if (chosen) break;
     }
     if (!chosen) continue;
-    placed.push({ item: l.item, text: l.text, at: fromPx(frame, [(chosen.x0 + chosen.x1) / 2, (chosen.y0 + chosen.y1) / 2]), box: chosen });
+    placed.push({
+      item: l.item,
+      text: l.text,
+      at: fromPx(frame, [(chosen.x0 + chosen.x1) / 2, (chosen.y0 + chosen.y1) / 2]),
+      box: chosen,
+    });
   }
   return placed;
 }

@@ -34,7 +34,9 @@ function chunk(type: string, data: Uint8Array): Uint8Array {
 
 function paeth(a: number, b: number, c: number): number {
   const p = a + b - c;
-  const pa = Math.abs(p - a), pb = Math.abs(p - b), pc = Math.abs(p - c);
+  const pa = Math.abs(p - a),
+    pb = Math.abs(p - b),
+    pc = Math.abs(p - c);
   return pa <= pb && pa <= pc ? a : pb <= pc ? b : c;
 }
 
@@ -44,8 +46,10 @@ function filterRows(width: number, height: number, rgba: Uint8Array): Uint8Array
   const out = new Uint8Array(height * (stride + 1));
   const candidate = new Uint8Array(stride);
   for (let y = 0; y < height; y++) {
-    const row = y * stride, prev = (y - 1) * stride;
-    let best = -1, bestSum = Infinity;
+    const row = y * stride,
+      prev = (y - 1) * stride;
+    let best = -1,
+      bestSum = Infinity;
     const bestRow = new Uint8Array(stride);
     for (let f = 0; f < 5; f++) {
       let sum = 0;
@@ -76,7 +80,10 @@ export function encodePng(width: number, height: number, rgba: Uint8Array): Uint
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 1 || height < 1) {
     throw new Error(`PNG size ${width} × ${height} px must be whole numbers ≥ 1`);
   }
-  if (rgba.length !== width * height * 4) throw new Error(`PNG: ${rgba.length} bytes of pixels for ${width} × ${height} px (need ${width * height * 4})`);
+  if (rgba.length !== width * height * 4)
+    throw new Error(
+      `PNG: ${rgba.length} bytes of pixels for ${width} × ${height} px (need ${width * height * 4})`,
+    );
   const header = new Uint8Array(13);
   const hv = new DataView(header.buffer);
   hv.setUint32(0, width);
@@ -89,7 +96,13 @@ export function encodePng(width: number, height: number, rgba: Uint8Array): Uint
   // sRGB chunk, rendering intent 0 (perceptual): the pixels are sRGB-encoded (PNG spec §11.3.3.5).
   const srgb = new Uint8Array([0]);
   const idat = new Uint8Array(deflateSync(filterRows(width, height, rgba), { level: 9 }));
-  const parts = [new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", header), chunk("sRGB", srgb), chunk("IDAT", idat), chunk("IEND", new Uint8Array(0))];
+  const parts = [
+    new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", header),
+    chunk("sRGB", srgb),
+    chunk("IDAT", idat),
+    chunk("IEND", new Uint8Array(0)),
+  ];
   const total = parts.reduce((n, p) => n + p.length, 0);
   const png = new Uint8Array(total);
   let o = 0;

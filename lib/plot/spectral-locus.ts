@@ -23,7 +23,9 @@ export function spectralLocus(
   const obs = observerByName(observer);
   if (!(from < to)) throw new Error(`spectral locus: range ${from}–${to} nm must increase`);
   if (from < obs.wavelengths[0]! || to > obs.wavelengths.at(-1)!) {
-    throw new Error(`spectral locus: ${from}–${to} nm is outside the observer's table (${obs.wavelengths[0]}–${obs.wavelengths.at(-1)} nm)`);
+    throw new Error(
+      `spectral locus: ${from}–${to} nm is outside the observer's table (${obs.wavelengths[0]}–${obs.wavelengths.at(-1)} nm)`,
+    );
   }
   const out: LocusPoint[] = [];
   for (let i = 0; i < obs.wavelengths.length; i++) {

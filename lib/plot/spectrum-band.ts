@@ -16,14 +16,24 @@ export function spectralDisplayColour(wavelength: number): [number, number, numb
   const hi = Math.max(...rgb);
   if (!(hi > 0)) return [0, 0, 0];
   // Fade over 380–430 nm and 650–780 nm, where the eye's sensitivity falls (common practice, no source).
-  const fade = wavelength < 430 ? Math.max(0, (wavelength - 370) / 60) : wavelength > 650 ? Math.max(0, (790 - wavelength) / 140) : 1;
+  const fade =
+    wavelength < 430
+      ? Math.max(0, (wavelength - 370) / 60)
+      : wavelength > 650
+        ? Math.max(0, (790 - wavelength) / 140)
+        : 1;
   const k = (0.15 + 0.85 * fade) / hi;
-  return encodeRgb([rgb[0] * k, rgb[1] * k, rgb[2] * k], "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [number, number, number];
+  return encodeRgb([rgb[0] * k, rgb[1] * k, rgb[2] * k], "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [
+    number,
+    number,
+    number,
+  ];
 }
 
 /** A band image covering `from`–`to` nm, one pixel per `step` nm, as a PNG data URI; outside 380–780 nm it is transparent. */
 export function spectrumBandImage(from: number, to: number, step = 1): { source: string; widthPx: number } {
-  if (!(to > from) || !(step > 0)) throw new Error(`spectrum band: ${from}–${to} nm every ${step} nm is not a valid range`);
+  if (!(to > from) || !(step > 0))
+    throw new Error(`spectrum band: ${from}–${to} nm every ${step} nm is not a valid range`);
   const n = Math.max(2, Math.min(2000, Math.round((to - from) / step)));
   const rgba = new Uint8Array(n * 4);
   for (let i = 0; i < n; i++) {

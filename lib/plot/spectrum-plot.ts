@@ -5,7 +5,16 @@
  */
 import { isSpectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
 import { plotFigure, roundForDisplay, type PlotFigure, type PlotTrace } from "./figure.ts";
-import { FIGURE_HEIGHTS, FONT_FAMILY, INK, MARGINS, houseAxis, houseConfig, houseLayout, seriesLook } from "./style.ts";
+import {
+  FIGURE_HEIGHTS,
+  FONT_FAMILY,
+  INK,
+  MARGINS,
+  houseAxis,
+  houseConfig,
+  houseLayout,
+  seriesLook,
+} from "./style.ts";
 import { spectrumBandImage } from "./spectrum-band.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
@@ -74,8 +83,11 @@ const BAND_PX = 9;
 
 function asSeries(input: Spectrum | SpectrumSeries, i: number): SpectrumSeries {
   if (isSpectrum(input)) return { spectrum: input };
-  if (input && typeof input === "object" && isSpectrum((input as SpectrumSeries).spectrum)) return input as SpectrumSeries;
-  throw new Error(`spectrumPlot: item ${i + 1} is neither a spectrum nor { spectrum, label? } (got ${JSON.stringify(input)?.slice(0, 80)})`);
+  if (input && typeof input === "object" && isSpectrum((input as SpectrumSeries).spectrum))
+    return input as SpectrumSeries;
+  throw new Error(
+    `spectrumPlot: item ${i + 1} is neither a spectrum nor { spectrum, label? } (got ${JSON.stringify(input)?.slice(0, 80)})`,
+  );
 }
 
 function isFraction(q: SpectralQuantity): boolean {
@@ -93,21 +105,31 @@ function valueAt(s: Spectrum, w: number): number | undefined {
 }
 
 /** A plot of spectra against wavelength in the house style, with the quantity and unit on the value axis (drawing notes nothing in the methods log). */
-export function spectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[], options: SpectrumPlotOptions = {}): PlotFigure {
+export function spectrumPlot(
+  spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[],
+  options: SpectrumPlotOptions = {},
+): PlotFigure {
   return withoutMethodNotes(() => drawSpectrumPlot(spectra, options));
 }
 
-function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[], options: SpectrumPlotOptions): PlotFigure {
+function drawSpectrumPlot(
+  spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[],
+  options: SpectrumPlotOptions,
+): PlotFigure {
   const list = (Array.isArray(spectra) ? spectra : [spectra]).map(asSeries);
   if (list.length === 0) throw new Error("spectrumPlot: no spectra given");
   const quantities = [...new Set(list.map((s) => s.spectrum.quantity))];
   if (quantities.length > 1 && !options.quantity) {
-    throw new Error(`spectrumPlot: the spectra measure different quantities (${quantities.join(", ")}); plot them separately or name the axis with { quantity }`);
+    throw new Error(
+      `spectrumPlot: the spectra measure different quantities (${quantities.join(", ")}); plot them separately or name the axis with { quantity }`,
+    );
   }
   const quantity = quantities[0]!;
   const units = [...new Set(list.map((s) => s.spectrum.unit))];
   if (units.length > 1 && options.unit === undefined) {
-    throw new Error(`spectrumPlot: the spectra have different units (${units.map((u) => u || "none").join(", ")}); convert them or give { unit }`);
+    throw new Error(
+      `spectrumPlot: the spectra have different units (${units.map((u) => u || "none").join(", ")}); convert them or give { unit }`,
+    );
   }
   const percent = isFraction(quantity) && quantities.length === 1 && (options.percent ?? true);
   const factor = percent ? 100 : 1;
@@ -115,20 +137,46 @@ function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectru
   const axisQuantity = options.quantity ?? AXIS_WORDS[quantity];
   const yTitle = unit ? `${axisQuantity} (${unit})` : axisQuantity;
   const scale = options.scale ?? "linear";
-  if (scale !== "linear" && scale !== "log") throw new Error(`spectrumPlot: scale "${scale}" must be "linear" or "log"`);
+  if (scale !== "linear" && scale !== "log")
+    throw new Error(`spectrumPlot: scale "${scale}" must be "linear" or "log"`);
 
   const wMin = Math.min(...list.map((s) => s.spectrum.wavelengths[0]!));
   const wMax = Math.max(...list.map((s) => s.spectrum.wavelengths.at(-1)!));
   const xRange = options.wavelengthRange ?? [wMin, wMax];
-  if (!(xRange[1] > xRange[0]) || !xRange.every(Number.isFinite)) throw new Error(`spectrumPlot: wavelength range ${JSON.stringify(xRange)} must be two increasing numbers (nm)`);
+  if (!(xRange[1] > xRange[0]) || !xRange.every(Number.isFinite))
+    throw new Error(
+      `spectrumPlot: wavelength range ${JSON.stringify(xRange)} must be two increasing numbers (nm)`,
+    );
 
   const data: PlotTrace[] = [];
   (options.envelopes ?? []).forEach((e, i) => {
-    if (!isSpectrum(e.lower) || !isSpectrum(e.upper)) throw new Error(`spectrumPlot: envelope ${i + 1} needs lower and upper spectra`);
+    if (!isSpectrum(e.lower) || !isSpectrum(e.upper))
+      throw new Error(`spectrumPlot: envelope ${i + 1} needs lower and upper spectra`);
     const name = e.label ?? `Envelope ${i + 1}`;
     data.push(
-      { type: "scatter", mode: "lines", x: [...e.lower.wavelengths], y: e.lower.values.map((v) => roundForDisplay(v * factor, 6)), line: { width: 0.6, color: INK.faint }, name: escapeHover(name), legendgroup: `env${i}`, showlegend: false, hoverinfo: "skip" },
-      { type: "scatter", mode: "lines", x: [...e.upper.wavelengths], y: e.upper.values.map((v) => roundForDisplay(v * factor, 6)), line: { width: 0.6, color: INK.faint }, fill: "tonexty", fillcolor: "rgba(90,90,90,0.16)", name: escapeHover(name), legendgroup: `env${i}`, hoverinfo: "skip" },
+      {
+        type: "scatter",
+        mode: "lines",
+        x: [...e.lower.wavelengths],
+        y: e.lower.values.map((v) => roundForDisplay(v * factor, 6)),
+        line: { width: 0.6, color: INK.faint },
+        name: escapeHover(name),
+        legendgroup: `env${i}`,
+        showlegend: false,
+        hoverinfo: "skip",
+      },
+      {
+        type: "scatter",
+        mode: "lines",
+        x: [...e.upper.wavelengths],
+        y: e.upper.values.map((v) => roundForDisplay(v * factor, 6)),
+        line: { width: 0.6, color: INK.faint },
+        fill: "tonexty",
+        fillcolor: "rgba(90,90,90,0.16)",
+        name: escapeHover(name),
+        legendgroup: `env${i}`,
+        hoverinfo: "skip",
+      },
     );
   });
 
@@ -156,13 +204,37 @@ function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectru
   const shapes: Record<string, unknown>[] = [];
   const annotations: Record<string, unknown>[] = [];
   if (marks.length > 0) {
-    const mx: number[] = [], my: number[] = [], mt: string[] = [];
+    const mx: number[] = [],
+      my: number[] = [],
+      mt: string[] = [];
     for (const m of marks) {
       if (!Number.isFinite(m.wavelength) || m.wavelength < xRange[0] || m.wavelength > xRange[1]) {
-        throw new Error(`spectrumPlot: mark at ${m.wavelength} nm is outside the plotted ${xRange[0]}–${xRange[1]} nm`);
+        throw new Error(
+          `spectrumPlot: mark at ${m.wavelength} nm is outside the plotted ${xRange[0]}–${xRange[1]} nm`,
+        );
       }
-      shapes.push({ type: "line", xref: "x", yref: "paper", x0: m.wavelength, x1: m.wavelength, y0: 0, y1: 1, line: { color: INK.frame, width: 1, dash: "dot" }, layer: "below" });
-      annotations.push({ x: m.wavelength, xref: "x", y: 1, yref: "paper", yanchor: "bottom", text: escapeHover(m.label ?? `${m.wavelength} nm`), showarrow: false, font: { family: FONT_FAMILY, size: 10, color: INK.text }, textangle: 0 });
+      shapes.push({
+        type: "line",
+        xref: "x",
+        yref: "paper",
+        x0: m.wavelength,
+        x1: m.wavelength,
+        y0: 0,
+        y1: 1,
+        line: { color: INK.frame, width: 1, dash: "dot" },
+        layer: "below",
+      });
+      annotations.push({
+        x: m.wavelength,
+        xref: "x",
+        y: 1,
+        yref: "paper",
+        yanchor: "bottom",
+        text: escapeHover(m.label ?? `${m.wavelength} nm`),
+        showarrow: false,
+        font: { family: FONT_FAMILY, size: 10, color: INK.text },
+        textangle: 0,
+      });
       for (const s of list) {
         const v = valueAt(s.spectrum, m.wavelength);
         if (v === undefined) continue;
@@ -190,11 +262,24 @@ function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectru
   const plotHeightPx = height - MARGINS.t - MARGINS.b;
   if (band) {
     const img = spectrumBandImage(xRange[0], xRange[1], 1);
-    images.push({ source: img.source, xref: "paper", yref: "paper", x: 0, y: 0, sizex: 1, sizey: BAND_PX / plotHeightPx, xanchor: "left", yanchor: "top", sizing: "stretch", layer: "above" });
+    images.push({
+      source: img.source,
+      xref: "paper",
+      yref: "paper",
+      x: 0,
+      y: 0,
+      sizex: 1,
+      sizey: BAND_PX / plotHeightPx,
+      xanchor: "left",
+      yanchor: "top",
+      sizing: "stretch",
+      layer: "above",
+    });
   }
 
   const layout = houseLayout({
-    title: options.title ?? (list.length === 1 ? list[0]!.label ?? list[0]!.spectrum.name : `${axisQuantity}`),
+    title:
+      options.title ?? (list.length === 1 ? (list[0]!.label ?? list[0]!.spectrum.name) : `${axisQuantity}`),
     height,
     xaxis: houseAxis("Wavelength λ (nm)", {
       range: [...xRange],
@@ -203,8 +288,15 @@ function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectru
     }),
     yaxis: houseAxis(yTitle, {
       type: scale,
-      ...(options.valueRange ? { range: scale === "log" ? options.valueRange.map((v) => Math.log10(v)) : [...options.valueRange] } : {}),
-      ...(scale === "log" ? { dtick: 1, minor: { ticks: "inside", ticklen: 3, tickcolor: INK.frame, showgrid: false, dtick: "D2" } } : {}),
+      ...(options.valueRange
+        ? { range: scale === "log" ? options.valueRange.map((v) => Math.log10(v)) : [...options.valueRange] }
+        : {}),
+      ...(scale === "log"
+        ? {
+            dtick: 1,
+            minor: { ticks: "inside", ticklen: 3, tickcolor: INK.frame, showgrid: false, dtick: "D2" },
+          }
+        : {}),
       rangemode: scale === "linear" && !options.valueRange ? "tozero" : undefined,
       exponentformat: "power",
     }),
@@ -217,11 +309,22 @@ function drawSpectrumPlot(spectra: Spectrum | SpectrumSeries | readonly (Spectru
   if (marks.length > 0) (layout.margin as Record<string, number>).t = MARGINS.t + 14;
 
   const parts = [`${yTitle} against wavelength (nm)${scale === "log" ? " on a logarithmic value axis" : ""}`];
-  if (band) parts.push("the colour band under the wavelength axis shows approximate spectral colours (sRGB, for orientation only)");
-  if ((options.envelopes ?? []).length > 0) parts.push("shaded: the band between the lower and upper spectra");
+  if (band)
+    parts.push(
+      "the colour band under the wavelength axis shows approximate spectral colours (sRGB, for orientation only)",
+    );
+  if ((options.envelopes ?? []).length > 0)
+    parts.push("shaded: the band between the lower and upper spectra");
   const auto = parts.join("; ") + ".";
-  const caption = options.caption ? `${options.caption.trim()} ${auto[0]!.toUpperCase()}${auto.slice(1)}` : auto[0]!.toUpperCase() + auto.slice(1);
-  return plotFigure(data, layout, houseConfig(String(layout.title && (layout.title as { text: string }).text)), caption);
+  const caption = options.caption
+    ? `${options.caption.trim()} ${auto[0]!.toUpperCase()}${auto.slice(1)}`
+    : auto[0]!.toUpperCase() + auto.slice(1);
+  return plotFigure(
+    data,
+    layout,
+    houseConfig(String(layout.title && (layout.title as { text: string }).text)),
+    caption,
+  );
 }
 
 /** rgba() text of a #rrggbb colour with an alpha. */

@@ -34,7 +34,16 @@ export const SERIES_COLOURS: readonly string[] = [
 ];
 
 /** Dash patterns in series order (Plotly dash names or px lists), so black-and-white print stays legible. */
-export const SERIES_DASHES: readonly string[] = ["solid", "dash", "dot", "dashdot", "longdash", "8px,3px,2px,3px,2px,3px", "longdashdot", "2px,4px"];
+export const SERIES_DASHES: readonly string[] = [
+  "solid",
+  "dash",
+  "dot",
+  "dashdot",
+  "longdash",
+  "8px,3px,2px,3px,2px,3px",
+  "longdashdot",
+  "2px,4px",
+];
 
 /** Marker shapes in series order: filled and open shapes alternate. */
 export const SERIES_MARKERS: readonly string[] = [
@@ -103,7 +112,14 @@ export interface HouseLayoutOptions {
   xaxis: Record<string, unknown>;
   yaxis: Record<string, unknown>;
   /** Legend placement inside the frame, or outside on the right. */
-  legend?: "inside top right" | "inside top left" | "inside bottom right" | "inside bottom left" | "right" | "below" | "none";
+  legend?:
+    | "inside top right"
+    | "inside top left"
+    | "inside bottom right"
+    | "inside bottom left"
+    | "right"
+    | "below"
+    | "none";
 }
 
 function legendAt(where: NonNullable<HouseLayoutOptions["legend"]>): Record<string, unknown> {
@@ -116,9 +132,27 @@ function legendAt(where: NonNullable<HouseLayoutOptions["legend"]>): Record<stri
     itemwidth: 36,
   };
   if (where === "right") return { ...box, x: 1.02, xanchor: "left", y: 1, yanchor: "top" };
-  if (where === "below") return { ...box, orientation: "h", x: 0, xanchor: "left", y: 0, yanchor: "bottom", yref: "container", borderwidth: 0, bgcolor: "rgba(255,255,255,0)" };
-  const top = where.includes("top"), right = where.includes("right");
-  return { ...box, x: right ? 0.985 : 0.015, xanchor: right ? "right" : "left", y: top ? 0.985 : 0.015, yanchor: top ? "top" : "bottom" };
+  if (where === "below")
+    return {
+      ...box,
+      orientation: "h",
+      x: 0,
+      xanchor: "left",
+      y: 0,
+      yanchor: "bottom",
+      yref: "container",
+      borderwidth: 0,
+      bgcolor: "rgba(255,255,255,0)",
+    };
+  const top = where.includes("top"),
+    right = where.includes("right");
+  return {
+    ...box,
+    x: right ? 0.985 : 0.015,
+    xanchor: right ? "right" : "left",
+    y: top ? 0.985 : 0.015,
+    yanchor: top ? "top" : "bottom",
+  };
 }
 
 /** The base layout every tristim figure starts from. */
@@ -148,7 +182,12 @@ export function houseLayout(o: HouseLayoutOptions): PlotLayout {
     showlegend: legend !== "none",
     legend: legend === "none" ? undefined : legendAt(legend),
     hovermode: "closest",
-    hoverlabel: { bgcolor: "#ffffff", bordercolor: INK.frame, font: { family: NUMERIC_FONT_FAMILY, size: 11, color: INK.text }, align: "left" },
+    hoverlabel: {
+      bgcolor: "#ffffff",
+      bordercolor: INK.frame,
+      font: { family: NUMERIC_FONT_FAMILY, size: 11, color: INK.text },
+      align: "left",
+    },
     colorway: [...SERIES_COLOURS],
   };
 }
@@ -160,6 +199,10 @@ export function houseConfig(filename: string): PlotConfig {
     responsive: true,
     scrollZoom: false,
     modeBarButtonsToRemove: ["select2d", "lasso2d", "autoScale2d", "toggleSpikelines"],
-    toImageButtonOptions: { format: "png", filename: filename.replace(/[^A-Za-z0-9._-]+/g, "-").slice(0, 80) || "figure", scale: 3 },
+    toImageButtonOptions: {
+      format: "png",
+      filename: filename.replace(/[^A-Za-z0-9._-]+/g, "-").slice(0, 80) || "figure",
+      scale: 3,
+    },
   };
 }

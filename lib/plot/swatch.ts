@@ -10,10 +10,22 @@
  */
 import { labFromXYZ, xyzFromLab, type Lab } from "../colorimetry/cielab.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { commonSummationInterval, objectColour, type ObjectColourOptions } from "../colorimetry/tristimulus.ts";
+import {
+  commonSummationInterval,
+  objectColour,
+  type ObjectColourOptions,
+} from "../colorimetry/tristimulus.ts";
 import { deltaE2000 } from "../difference/delta-e-2000.ts";
 import { isSpectrum, type Spectrum } from "../spectrum/spectrum.ts";
-import { DISPLAY_GAMUTS, encodeRgb, hexFromEncoded, insideCube, linearRgb, xyzFromLinearRgb, type DisplayGamut } from "./display-rgb.ts";
+import {
+  DISPLAY_GAMUTS,
+  encodeRgb,
+  hexFromEncoded,
+  insideCube,
+  linearRgb,
+  xyzFromLinearRgb,
+  type DisplayGamut,
+} from "./display-rgb.ts";
 import { adaptToD65, D65_WHITE_Y100 } from "./display-white.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
 import { mapToDisplayGamut, type GamutMapping } from "./gamut-mapping.ts";
@@ -36,7 +48,11 @@ export interface Swatch {
   /** True when the colour lies outside that display's gamut: no screen of that kind can show it exactly. */
   readonly outOfDisplayGamut: boolean;
   /** The swatch's place in a reference/sample pair (the runner's `SwatchPairPlace`); ΔE00 is on the sample. */
-  readonly pair?: { readonly label: string; readonly role: "reference" | "sample"; readonly deltaE00?: number };
+  readonly pair?: {
+    readonly label: string;
+    readonly role: "reference" | "sample";
+    readonly deltaE00?: number;
+  };
   readonly note?: string;
 }
 
@@ -45,7 +61,11 @@ export interface Swatch {
  * D65), CIELAB with its reference white (default D65), an sRGB hex, or a reflectance/transmittance spectrum
  * (computed under D65 with the CIE 1931 observer unless `illuminant` is given in the options).
  */
-export type SwatchColour = { readonly XYZ: Tristimulus; readonly white?: Tristimulus } | { readonly lab: Lab; readonly white?: Tristimulus } | { readonly hex: string } | Spectrum;
+export type SwatchColour =
+  | { readonly XYZ: Tristimulus; readonly white?: Tristimulus }
+  | { readonly lab: Lab; readonly white?: Tristimulus }
+  | { readonly hex: string }
+  | Spectrum;
 
 export interface SwatchOptions {
   /** The display the report is meant for: "sRGB" (default), "Display P3" or "BT.2020"; patches outside it are marked. */
@@ -74,36 +94,59 @@ export function xyzFromHex(hex: string): Tristimulus {
   const m = HEX.exec(String(hex).trim());
   if (!m) throw new Error(`swatch: "${hex}" is not an sRGB hex colour like #1a2b3c`);
   const n = parseInt(m[1]!, 16);
-  const rgb = [(n >> 16) & 255, (n >> 8) & 255, n & 255].map((c) => decodeSrgb(c / 255)) as [number, number, number];
+  const rgb = [(n >> 16) & 255, (n >> 8) & 255, n & 255].map((c) => decodeSrgb(c / 255)) as [
+    number,
+    number,
+    number,
+  ];
   const t = xyzFromLinearRgb(rgb, "sRGB");
   return { X: 100 * t.X, Y: 100 * t.Y, Z: 100 * t.Z };
 }
 
 function checkTristimulus(t: Tristimulus, what: string): Tristimulus {
-  if (!t || typeof t !== "object" || ![t.X, t.Y, t.Z].every((v) => typeof v === "number" && Number.isFinite(v))) {
+  if (
+    !t ||
+    typeof t !== "object" ||
+    ![t.X, t.Y, t.Z].every((v) => typeof v === "number" && Number.isFinite(v))
+  ) {
     throw new Error(`${what}: ${JSON.stringify(t)} must be {X, Y, Z} with finite numbers`);
   }
   return t;
 }
 
 /** The colour's XYZ and its reference white (both Y = 100 scale). */
-export function swatchTristimulus(colour: SwatchColour, options: SwatchOptions = {}, what = "swatch"): { XYZ: Tristimulus; white: Tristimulus } {
+export function swatchTristimulus(
+  colour: SwatchColour,
+  options: SwatchOptions = {},
+  what = "swatch",
+): { XYZ: Tristimulus; white: Tristimulus } {
   if (isSpectrum(colour)) {
     // The sample and its white from one weighting table: same grid, interval and range (CIE 015:2018 §7).
-    const c = objectColour(colour, { illuminant: options.illuminant ?? "D65", interval: options.interval, range: options.range });
+    const c = objectColour(colour, {
+      illuminant: options.illuminant ?? "D65",
+      interval: options.interval,
+      range: options.range,
+    });
     return { XYZ: c.XYZ, white: c.white };
   }
   if (colour && typeof colour === "object") {
-    if ("XYZ" in colour) return { XYZ: checkTristimulus(colour.XYZ, `${what} XYZ`), white: checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`) };
+    if ("XYZ" in colour)
+      return {
+        XYZ: checkTristimulus(colour.XYZ, `${what} XYZ`),
+        white: checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`),
+      };
     if ("lab" in colour) {
       const white = checkTristimulus(colour.white ?? D65_DISPLAY_WHITE, `${what} white`);
       const lab = colour.lab;
-      if (!lab || ![lab.L, lab.a, lab.b].every((v) => typeof v === "number" && Number.isFinite(v))) throw new Error(`${what}: L*a*b* ${JSON.stringify(lab)} must be three finite numbers`);
+      if (!lab || ![lab.L, lab.a, lab.b].every((v) => typeof v === "number" && Number.isFinite(v)))
+        throw new Error(`${what}: L*a*b* ${JSON.stringify(lab)} must be three finite numbers`);
       return { XYZ: xyzFromLab(lab, white), white };
     }
     if ("hex" in colour) return { XYZ: xyzFromHex(colour.hex), white: D65_DISPLAY_WHITE };
   }
-  throw new Error(`${what}: ${JSON.stringify(colour)?.slice(0, 80)} is not a colour; give {XYZ}, {lab}, {hex} or a reflectance spectrum`);
+  throw new Error(
+    `${what}: ${JSON.stringify(colour)?.slice(0, 80)} is not a colour; give {XYZ}, {lab}, {hex} or a reflectance spectrum`,
+  );
 }
 
 function cssNumber(v: number): string {
@@ -122,26 +165,45 @@ const MAPPING_REMARKS: Partial<Record<GamutMapping, string>> = {
 };
 
 /** One swatch for a colour, for the chosen display gamut. */
-export function swatch(label: string, colour: SwatchColour, options: SwatchOptions & { note?: string } = {}): Swatch {
+export function swatch(
+  label: string,
+  colour: SwatchColour,
+  options: SwatchOptions & { note?: string } = {},
+): Swatch {
   if (typeof label !== "string") throw new Error(`swatch: label must be a string, got ${String(label)}`);
   const display = options.display ?? "sRGB";
-  if (!DISPLAY_GAMUTS.includes(display)) throw new Error(`swatch "${label}": display "${display}" must be one of ${DISPLAY_GAMUTS.join(", ")}`);
+  if (!DISPLAY_GAMUTS.includes(display))
+    throw new Error(`swatch "${label}": display "${display}" must be one of ${DISPLAY_GAMUTS.join(", ")}`);
   const { XYZ, white } = swatchTristimulus(colour, options, `swatch "${label}"`);
-  if (!(white.Y > 0)) throw new Error(`swatch "${label}": the reference white has Y = ${white.Y}; it must be positive`);
+  if (!(white.Y > 0))
+    throw new Error(`swatch "${label}": the reference white has Y = ${white.Y}; it must be positive`);
   // Relative to the display white: adapt from the colour's white to D65 (Bradford), then scale so white has Y = 1.
   // Drawing only: the display conversion is not a condition of the report's results, so it notes nothing.
   const d65 = withoutMethodNotes(() => adaptToD65(XYZ, white));
   const rel = { X: d65.X / white.Y, Y: d65.Y / white.Y, Z: d65.Z / white.Y };
-  const lin = { sRGB: linearRgb(rel, "sRGB"), "Display P3": linearRgb(rel, "Display P3"), "BT.2020": linearRgb(rel, "BT.2020") };
-  const inGamut = { sRGB: insideCube(lin.sRGB), displayP3: insideCube(lin["Display P3"]), bt2020: insideCube(lin["BT.2020"]) };
+  const lin = {
+    sRGB: linearRgb(rel, "sRGB"),
+    "Display P3": linearRgb(rel, "Display P3"),
+    "BT.2020": linearRgb(rel, "BT.2020"),
+  };
+  const inGamut = {
+    sRGB: insideCube(lin.sRGB),
+    displayP3: insideCube(lin["Display P3"]),
+    bt2020: insideCube(lin["BT.2020"]),
+  };
   // Drawing only, like the adaptation above: gamut mapping for display notes nothing.
   const shown = (gamut: DisplayGamut) => withoutMethodNotes(() => mapToDisplayGamut(rel, gamut));
   const hex = hexFromEncoded(encodeRgb(shown("sRGB").linear, "sRGB"));
   let css: string | undefined;
   if (inGamut.sRGB) css = undefined;
-  else if (inGamut.displayP3) css = `color(display-p3 ${encodeRgb(shown("Display P3").linear, "Display P3").map(cssNumber).join(" ")})`;
+  else if (inGamut.displayP3)
+    css = `color(display-p3 ${encodeRgb(shown("Display P3").linear, "Display P3").map(cssNumber).join(" ")})`;
   else css = `color(rec2020 ${encodeRgb(shown("BT.2020").linear, "BT.2020").map(cssNumber).join(" ")})`;
-  const outOfDisplay = !(display === "sRGB" ? inGamut.sRGB : display === "Display P3" ? inGamut.displayP3 : inGamut.bt2020);
+  const outOfDisplay = !(display === "sRGB"
+    ? inGamut.sRGB
+    : display === "Display P3"
+      ? inGamut.displayP3
+      : inGamut.bt2020);
   // The gamut mark and its words ("outside sRGB", "outside BT.2020 too") are drawn by the report from the fields below.
   const remarks: string[] = [];
   if (options.note) remarks.push(options.note);
@@ -170,7 +232,8 @@ export interface SwatchEntry {
 export function swatchGrid(entries: readonly SwatchEntry[], options: SwatchOptions = {}): Swatch[] {
   if (!Array.isArray(entries)) throw new Error("swatchGrid: expected an array of { label, colour }");
   return entries.map((e, i) => {
-    if (!e || typeof e.label !== "string") throw new Error(`swatchGrid: entry ${i + 1} needs a label and a colour`);
+    if (!e || typeof e.label !== "string")
+      throw new Error(`swatchGrid: entry ${i + 1} needs a label and a colour`);
     return swatch(e.label, e.colour, { ...options, note: e.note });
   });
 }
@@ -194,20 +257,39 @@ function labOf(c: SwatchColour, options: SwatchOptions, what: string): { lab: La
  * with the pair's common reference white. The report draws each pair as one unit, the ΔE00 under both patches.
  */
 export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOptions = {}): Swatch[] {
-  if (!Array.isArray(pairs)) throw new Error("swatchPairs: expected an array of { label, reference, sample }");
+  if (!Array.isArray(pairs))
+    throw new Error("swatchPairs: expected an array of { label, reference, sample }");
   const out: Swatch[] = [];
   pairs.forEach((p, i) => {
-    if (!p || typeof p.label !== "string" || p.label.trim() === "") throw new Error(`swatchPairs: pair ${i + 1} needs a label (got ${JSON.stringify(p?.label)}), a reference and a sample`);
+    if (!p || typeof p.label !== "string" || p.label.trim() === "")
+      throw new Error(
+        `swatchPairs: pair ${i + 1} needs a label (got ${JSON.stringify(p?.label)}), a reference and a sample`,
+      );
     // Two spectra on different grids (1 nm and 5 nm) are summed on one interval, so they share one white.
     const spectra = [p.reference, p.sample].filter(isSpectrum);
-    const pairOptions = spectra.length === 2 && options.interval === undefined ? { ...options, interval: commonSummationInterval(spectra, [options.illuminant ?? "D65"]) } : options;
+    const pairOptions =
+      spectra.length === 2 && options.interval === undefined
+        ? { ...options, interval: commonSummationInterval(spectra, [options.illuminant ?? "D65"]) }
+        : options;
     const r = labOf(p.reference, pairOptions, `pair "${p.label}" reference`);
     const s = labOf(p.sample, pairOptions, `pair "${p.label}" sample`);
-    const sameWhite = Math.abs(r.white.X - s.white.X) < 1e-6 * r.white.Y && Math.abs(r.white.Y - s.white.Y) < 1e-9 * r.white.Y + 1e-9 && Math.abs(r.white.Z - s.white.Z) < 1e-6 * r.white.Y;
-    if (!sameWhite) throw new Error(`swatchPairs: pair "${p.label}" has different reference whites for reference and sample; ΔE00 needs one white`);
+    const sameWhite =
+      Math.abs(r.white.X - s.white.X) < 1e-6 * r.white.Y &&
+      Math.abs(r.white.Y - s.white.Y) < 1e-9 * r.white.Y + 1e-9 &&
+      Math.abs(r.white.Z - s.white.Z) < 1e-6 * r.white.Y;
+    if (!sameWhite)
+      throw new Error(
+        `swatchPairs: pair "${p.label}" has different reference whites for reference and sample; ΔE00 needs one white`,
+      );
     const de = deltaE2000(r.lab, s.lab);
-    out.push({ ...swatch(`${p.label} reference`, p.reference, pairOptions), pair: { label: p.label, role: "reference" } });
-    out.push({ ...swatch(`${p.label} sample`, p.sample, pairOptions), pair: { label: p.label, role: "sample", deltaE00: de } });
+    out.push({
+      ...swatch(`${p.label} reference`, p.reference, pairOptions),
+      pair: { label: p.label, role: "reference" },
+    });
+    out.push({
+      ...swatch(`${p.label} sample`, p.sample, pairOptions),
+      pair: { label: p.label, role: "sample", deltaE00: de },
+    });
   });
   return out;
 }

@@ -5,7 +5,13 @@
  * chromaticities are brought to the reference white by the von Kries-type transform of CIE 13.3, and their
  * differences in CIE 1964 U*V*W* give the special indices Rᵢ = 100 − 4.6·ΔEᵢ; Ra is the mean of R1–R8.
  */
-import { chromaticityXy, fromXyY, uv1960FromXy, xyFromUv1960, type Tristimulus } from "../colorimetry/chromaticity.ts";
+import {
+  chromaticityXy,
+  fromXyY,
+  uv1960FromXy,
+  xyFromUv1960,
+  type Tristimulus,
+} from "../colorimetry/chromaticity.ts";
 import { uvwFromXYZ } from "../colorimetry/cie-uvw.ts";
 import { CIE_TEST_COLOUR_SAMPLES_TABLE } from "../data/cie-test-colour-samples.ts";
 import { requireFinite } from "../filters/checks.ts";
@@ -59,8 +65,13 @@ interface Sums {
   readonly v: number;
 }
 
-function colourOf(weights: { x: number[]; y: number[]; z: number[] }, reflectance: readonly number[] | undefined): Sums {
-  let X = 0, Y = 0, Z = 0;
+function colourOf(
+  weights: { x: number[]; y: number[]; z: number[] },
+  reflectance: readonly number[] | undefined,
+): Sums {
+  let X = 0,
+    Y = 0,
+    Z = 0;
   for (let i = 0; i < WAVELENGTHS.length; i++) {
     const r = reflectance ? reflectance[i]! : 1;
     X += weights.x[i]! * r;
@@ -76,13 +87,19 @@ function weightsFor(source: Spectrum): { x: number[]; y: number[]; z: number[] }
   const read = sampler(source, { extrapolation: "refuse" });
   const s = WAVELENGTHS.map((w) => read(w));
   s.forEach((v, i) => {
-    if (v < 0) throw new Error(`colourRenderingIndex: "${source.name}" is negative (${v}) at ${WAVELENGTHS[i]} nm`);
+    if (v < 0)
+      throw new Error(`colourRenderingIndex: "${source.name}" is negative (${v}) at ${WAVELENGTHS[i]} nm`);
   });
   const cmf = WAVELENGTHS.map((w) => colourMatchingAt(CIE_1931_2_DEGREE, w));
   const sumY = s.reduce((acc, v, i) => acc + v * cmf[i]![1], 0);
-  if (!(sumY > 0)) throw new Error(`colourRenderingIndex: "${source.name}" has no luminous power in 380–780 nm`);
+  if (!(sumY > 0))
+    throw new Error(`colourRenderingIndex: "${source.name}" has no luminous power in 380–780 nm`);
   const k = 100 / sumY;
-  return { x: s.map((v, i) => k * v * cmf[i]![0]), y: s.map((v, i) => k * v * cmf[i]![1]), z: s.map((v, i) => k * v * cmf[i]![2]) };
+  return {
+    x: s.map((v, i) => k * v * cmf[i]![0]),
+    y: s.map((v, i) => k * v * cmf[i]![1]),
+    z: s.map((v, i) => k * v * cmf[i]![2]),
+  };
 }
 
 /** CIE 13.3 adaptation coefficients c = (4 − u − 10v)/v and d = (1.708v + 0.404 − 1.481u)/v. */
@@ -94,22 +111,33 @@ function cd(p: Sums): { c: number; d: number } {
 export function renderingReference(cct: number): Spectrum {
   requireFinite(cct, "colour rendering reference CCT");
   if (cct < CRI_DAYLIGHT_FROM_K) return planckianSpectrum(cct, { start: 380, end: 780, step: 5 });
-  if (cct > 25000) throw new Error(`colourRenderingIndex: CCT ${Math.round(cct)} K is above 25000 K, where CIE daylight (the reference) is not defined`);
+  if (cct > 25000)
+    throw new Error(
+      `colourRenderingIndex: CCT ${Math.round(cct)} K is above 25000 K, where CIE daylight (the reference) is not defined`,
+    );
   return daylightSpectrum(cct);
 }
 
 /** Ra and R1–R14 of a light source by CIE 13.3-1995 (see the file header for the steps). */
-export function colourRenderingIndex(source: Spectrum, options: { cctMethod?: CctMethod } = {}): ColourRendering {
+export function colourRenderingIndex(
+  source: Spectrum,
+  options: { cctMethod?: CctMethod } = {},
+): ColourRendering {
   if (source?.kind !== "spectrum") throw new Error("colourRenderingIndex: give the light source's spectrum");
   if (source.quantity === "reflectance" || source.quantity === "transmittance") {
     throw new Error(`colourRenderingIndex: "${source.name}" is a ${source.quantity}, not a light source`);
   }
   if (source.wavelengths[0]! > 380 + 1e-9 || source.wavelengths.at(-1)! < 780 - 1e-9) {
-    throw new Error(`colourRenderingIndex: "${source.name}" covers ${source.wavelengths[0]}–${source.wavelengths.at(-1)} nm; CIE 13.3 needs 380–780 nm`);
+    throw new Error(
+      `colourRenderingIndex: "${source.name}" covers ${source.wavelengths[0]}–${source.wavelengths.at(-1)} nm; CIE 13.3 needs 380–780 nm`,
+    );
   }
   const testW = weightsFor(source);
   const k = colourOf(testW, undefined);
-  const { cct, duv } = cctAndDuv(chromaticityXy({ X: testW.x.reduce((a, b) => a + b, 0), Y: 100, Z: testW.z.reduce((a, b) => a + b, 0) }), { method: options.cctMethod });
+  const { cct, duv } = cctAndDuv(
+    chromaticityXy({ X: testW.x.reduce((a, b) => a + b, 0), Y: 100, Z: testW.z.reduce((a, b) => a + b, 0) }),
+    { method: options.cctMethod },
+  );
   const refSpectrum = renderingReference(cct);
   const refW = weightsFor(refSpectrum);
   const r = colourOf(refW, undefined);
@@ -118,7 +146,10 @@ export function colourRenderingIndex(source: Spectrum, options: { cctMethod?: Cc
   const cr = cd(r);
   const special: SpecialIndex[] = SAMPLE_NAMES.map((name) => {
     const column = CIE_TEST_COLOUR_SAMPLES_TABLE.columns[name]!;
-    const reflectance = WAVELENGTHS.map((w) => column[Math.round((w - CIE_TEST_COLOUR_SAMPLES_TABLE.start) / CIE_TEST_COLOUR_SAMPLES_TABLE.step)]!);
+    const reflectance = WAVELENGTHS.map(
+      (w) =>
+        column[Math.round((w - CIE_TEST_COLOUR_SAMPLES_TABLE.start) / CIE_TEST_COLOUR_SAMPLES_TABLE.step)]!,
+    );
     const ri = colourOf(refW, reflectance);
     const ki = colourOf(testW, reflectance);
     const cki = cd(ki);
@@ -134,11 +165,16 @@ export function colourRenderingIndex(source: Spectrum, options: { cctMethod?: Cc
     return { sample: name, R: 100 - 4.6 * deltaE, deltaE };
   });
   const ra = special.slice(0, 8).reduce((s, x) => s + x.R, 0) / 8;
-  const reference = cct < CRI_DAYLIGHT_FROM_K ? `Planckian radiator ${Math.round(cct)} K` : `CIE daylight ${Math.round(cct)} K`;
+  const reference =
+    cct < CRI_DAYLIGHT_FROM_K
+      ? `Planckian radiator ${Math.round(cct)} K`
+      : `CIE daylight ${Math.round(cct)} K`;
   const withinTolerance = dc < CRI_DC_LIMIT;
   const notes: string[] = [];
   if (!withinTolerance) {
-    notes.push(`The source's chromaticity is ${dc.toFixed(4)} from the reference in CIE 1960 uv, beyond the ${CRI_DC_LIMIT} that CIE 13.3 allows; the indices are not meaningful for this source.`);
+    notes.push(
+      `The source's chromaticity is ${dc.toFixed(4)} from the reference in CIE 1960 uv, beyond the ${CRI_DC_LIMIT} that CIE 13.3 allows; the indices are not meaningful for this source.`,
+    );
   }
   noteMethod(
     "colour rendering",

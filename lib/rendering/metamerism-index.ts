@@ -48,13 +48,21 @@ function nameOf(ill: string | Spectrum): string {
 }
 
 /** Special metamerism index of a pair for a change from the reference to the test illuminant (CIE 015:2018, special metamerism index). */
-export function metamerismIndex(sample1: Spectrum, sample2: Spectrum, options: MetamerismOptions = {}): MetamerismIndex {
+export function metamerismIndex(
+  sample1: Spectrum,
+  sample2: Spectrum,
+  options: MetamerismOptions = {},
+): MetamerismIndex {
   const reference = options.reference ?? "D65";
   const test = options.test ?? "A";
   const correction = options.correction ?? "multiplicative";
   const formula = options.formula ?? "ΔE*ab";
-  if (!["multiplicative", "additive", "none"].includes(correction)) throw new Error(`metamerismIndex: correction "${String(correction)}" is not "multiplicative", "additive" or "none"`);
-  if (formula !== "ΔE*ab" && formula !== "ΔE00") throw new Error(`metamerismIndex: formula "${String(formula)}" is not "ΔE*ab" or "ΔE00"`);
+  if (!["multiplicative", "additive", "none"].includes(correction))
+    throw new Error(
+      `metamerismIndex: correction "${String(correction)}" is not "multiplicative", "additive" or "none"`,
+    );
+  if (formula !== "ΔE*ab" && formula !== "ΔE00")
+    throw new Error(`metamerismIndex: formula "${String(formula)}" is not "ΔE*ab" or "ΔE00"`);
   const observer = options.observer;
   const difference = (a: Lab, b: Lab) => (formula === "ΔE00" ? deltaE2000(a, b) : deltaE76(a, b));
   // Both samples and both whites on one interval: the whites are summed on the same tables as the samples.
@@ -76,7 +84,10 @@ export function metamerismIndex(sample1: Spectrum, sample2: Spectrum, options: M
   let lab2: Lab;
   if (correction === "multiplicative") {
     for (const [k, v] of Object.entries(r2)) {
-      if (!(v > 0)) throw new Error(`metamerismIndex: sample "${sample2.name}" has ${k} = ${v} under the reference illuminant; a multiplicative correction needs positive values`);
+      if (!(v > 0))
+        throw new Error(
+          `metamerismIndex: sample "${sample2.name}" has ${k} = ${v} under the reference illuminant; a multiplicative correction needs positive values`,
+        );
     }
     t2 = { X: (t2.X * r1.X) / r2.X, Y: (t2.Y * r1.Y) / r2.Y, Z: (t2.Z * r1.Z) / r2.Z };
     lab2 = labFromXYZ(t2, whiteTest);

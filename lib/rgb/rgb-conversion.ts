@@ -31,7 +31,9 @@ function noteSpace(space: RgbSpace, encoded: boolean): void {
  */
 export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?: boolean } = {}): Rgb {
   if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
-    throw new Error(`rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`);
+    throw new Error(
+      `rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`,
+    );
   }
   const s = xyzScale(space);
   const [r, g, b] = applyMatrix3(space.fromXYZ, [xyz.X / s, xyz.Y / s, xyz.Z / s]);
@@ -50,7 +52,9 @@ export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolea
   const decode = options.decode ?? true;
   noteSpace(space, decode);
   const t = transferFunction(space.transfer);
-  const lin = decode ? [t.decode(rgb.r), t.decode(rgb.g), t.decode(rgb.b)] as const : [rgb.r, rgb.g, rgb.b] as const;
+  const lin = decode
+    ? ([t.decode(rgb.r), t.decode(rgb.g), t.decode(rgb.b)] as const)
+    : ([rgb.r, rgb.g, rgb.b] as const);
   const [X, Y, Z] = applyMatrix3(space.toXYZ, lin);
   const s = xyzScale(space);
   return { X: X * s, Y: Y * s, Z: Z * s };
@@ -64,6 +68,7 @@ export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
   if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
     throw new Error(`isInGamut: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
   }
-  if (!(Number.isFinite(tolerance) && tolerance >= 0)) throw new Error(`isInGamut: tolerance ${tolerance} must be a non-negative number`);
+  if (!(Number.isFinite(tolerance) && tolerance >= 0))
+    throw new Error(`isInGamut: tolerance ${tolerance} must be a non-negative number`);
   return [rgb.r, rgb.g, rgb.b].every((v) => v >= -tolerance && v <= 1 + tolerance);
 }

@@ -3,7 +3,13 @@
  * derived from them by the method of SMPTE RP 177-1993 (normalised primary matrix).
  */
 import type { Chromaticity } from "../colorimetry/chromaticity.ts";
-import { applyMatrix3, diagonalMatrix3, invertMatrix3, multiplyMatrix3, type Matrix3 } from "../colorimetry/matrix3.ts";
+import {
+  applyMatrix3,
+  diagonalMatrix3,
+  invertMatrix3,
+  multiplyMatrix3,
+  type Matrix3,
+} from "../colorimetry/matrix3.ts";
 import { transferFunction, type TransferName } from "./transfer-functions.ts";
 
 export interface RgbPrimaries {
@@ -28,8 +34,18 @@ export interface RgbSpace {
 }
 
 function requireChromaticity(what: string, c: Chromaticity): void {
-  if (typeof c !== "object" || c === null || !Number.isFinite(c.x) || !Number.isFinite(c.y) || c.x < 0 || c.y <= 0 || c.x + c.y > 1) {
-    throw new Error(`${what}: chromaticity (${c?.x}, ${c?.y}) is not valid (need finite x ≥ 0, y > 0, x + y ≤ 1)`);
+  if (
+    typeof c !== "object" ||
+    c === null ||
+    !Number.isFinite(c.x) ||
+    !Number.isFinite(c.y) ||
+    c.x < 0 ||
+    c.y <= 0 ||
+    c.x + c.y > 1
+  ) {
+    throw new Error(
+      `${what}: chromaticity (${c?.x}, ${c?.y}) is not valid (need finite x ≥ 0, y > 0, x + y ≤ 1)`,
+    );
   }
 }
 
@@ -47,7 +63,10 @@ export function normalisedPrimaryMatrix(primaries: RgbPrimaries, white: Chromati
     [r[2], g[2], b[2]],
   ];
   const W = [white.x / white.y, 1, (1 - white.x - white.y) / white.y] as const;
-  const C = applyMatrix3(invertMatrix3(P, "the matrix of the three primaries (are two of them the same, or all on one line?)"), W);
+  const C = applyMatrix3(
+    invertMatrix3(P, "the matrix of the three primaries (are two of them the same, or all on one line?)"),
+    W,
+  );
   return multiplyMatrix3(P, diagonalMatrix3(C));
 }
 
@@ -73,17 +92,62 @@ export function rgbSpaceFromPrimaries(
 }
 
 const D65: Chromaticity = { x: 0.3127, y: 0.329 };
-const BT709_PRIMARIES: RgbPrimaries = { r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } };
-const BT2020_PRIMARIES: RgbPrimaries = { r: { x: 0.708, y: 0.292 }, g: { x: 0.17, y: 0.797 }, b: { x: 0.131, y: 0.046 } };
-const P3_PRIMARIES: RgbPrimaries = { r: { x: 0.68, y: 0.32 }, g: { x: 0.265, y: 0.69 }, b: { x: 0.15, y: 0.06 } };
+const BT709_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.64, y: 0.33 },
+  g: { x: 0.3, y: 0.6 },
+  b: { x: 0.15, y: 0.06 },
+};
+const BT2020_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.708, y: 0.292 },
+  g: { x: 0.17, y: 0.797 },
+  b: { x: 0.131, y: 0.046 },
+};
+const P3_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.68, y: 0.32 },
+  g: { x: 0.265, y: 0.69 },
+  b: { x: 0.15, y: 0.06 },
+};
 
-const DEFINITIONS: Record<string, { primaries: RgbPrimaries; white: Chromaticity; transfer: TransferName; source: string }> = {
-  sRGB: { primaries: BT709_PRIMARIES, white: D65, transfer: "sRGB", source: "IEC 61966-2-1:1999 (ITU-R BT.709 primaries, D65 white)" },
-  "Display P3": { primaries: P3_PRIMARIES, white: D65, transfer: "sRGB", source: "SMPTE EG 432-1:2010 P3 primaries with D65 white and the sRGB transfer function" },
-  "BT.709": { primaries: BT709_PRIMARIES, white: D65, transfer: "BT.1886", source: "ITU-R BT.709-6 primaries and D65 white; display transfer ITU-R BT.1886" },
-  "BT.2020": { primaries: BT2020_PRIMARIES, white: D65, transfer: "BT.1886", source: "ITU-R BT.2020-2 primaries and D65 white; display transfer ITU-R BT.1886" },
-  "BT.2100 PQ": { primaries: BT2020_PRIMARIES, white: D65, transfer: "PQ", source: "ITU-R BT.2100-2 (BT.2020 primaries, D65, PQ of SMPTE ST 2084)" },
-  "BT.2100 HLG": { primaries: BT2020_PRIMARIES, white: D65, transfer: "HLG", source: "ITU-R BT.2100-2 (BT.2020 primaries, D65, HLG)" },
+const DEFINITIONS: Record<
+  string,
+  { primaries: RgbPrimaries; white: Chromaticity; transfer: TransferName; source: string }
+> = {
+  sRGB: {
+    primaries: BT709_PRIMARIES,
+    white: D65,
+    transfer: "sRGB",
+    source: "IEC 61966-2-1:1999 (ITU-R BT.709 primaries, D65 white)",
+  },
+  "Display P3": {
+    primaries: P3_PRIMARIES,
+    white: D65,
+    transfer: "sRGB",
+    source: "SMPTE EG 432-1:2010 P3 primaries with D65 white and the sRGB transfer function",
+  },
+  "BT.709": {
+    primaries: BT709_PRIMARIES,
+    white: D65,
+    transfer: "BT.1886",
+    source: "ITU-R BT.709-6 primaries and D65 white; display transfer ITU-R BT.1886",
+  },
+  "BT.2020": {
+    primaries: BT2020_PRIMARIES,
+    white: D65,
+    transfer: "BT.1886",
+    source: "ITU-R BT.2020-2 primaries and D65 white; display transfer ITU-R BT.1886",
+  },
+  "BT.2100 PQ": {
+    primaries: BT2020_PRIMARIES,
+    white: D65,
+    transfer: "PQ",
+    source: "ITU-R BT.2100-2 (BT.2020 primaries, D65, PQ of SMPTE ST 2084)",
+  },
+  "BT.2100 HLG": {
+    primaries: BT2020_PRIMARIES,
+    white: D65,
+    transfer: "HLG",
+    source: "ITU-R BT.2100-2 (BT.2020 primaries, D65, HLG)",
+  },
 };
 
 const cache = new Map<string, RgbSpace>();
@@ -98,13 +162,28 @@ export function rgbSpaceNames(): string[] {
  * spaces ignored), with matrices derived from its primaries and white per SMPTE RP 177-1993.
  */
 export function rgbSpace(name: string): RgbSpace {
-  const norm = (s: string) => String(s).replace(/[\s_-]+/g, "").toUpperCase();
-  const key = Object.keys(DEFINITIONS).find((k) => norm(k) === norm(name) || (norm(name) === "REC709" && k === "BT.709") || (norm(name) === "REC2020" && k === "BT.2020"));
-  if (!key) throw new Error(`unknown RGB space "${name}"; known: ${rgbSpaceNames().join(", ")}, or build one with rgbSpaceFromPrimaries()`);
+  const norm = (s: string) =>
+    String(s)
+      .replace(/[\s_-]+/g, "")
+      .toUpperCase();
+  const key = Object.keys(DEFINITIONS).find(
+    (k) =>
+      norm(k) === norm(name) ||
+      (norm(name) === "REC709" && k === "BT.709") ||
+      (norm(name) === "REC2020" && k === "BT.2020"),
+  );
+  if (!key)
+    throw new Error(
+      `unknown RGB space "${name}"; known: ${rgbSpaceNames().join(", ")}, or build one with rgbSpaceFromPrimaries()`,
+    );
   let space = cache.get(key);
   if (!space) {
     const d = DEFINITIONS[key]!;
-    space = rgbSpaceFromPrimaries(d.primaries, d.white, { name: key, transfer: d.transfer, source: d.source });
+    space = rgbSpaceFromPrimaries(d.primaries, d.white, {
+      name: key,
+      transfer: d.transfer,
+      source: d.source,
+    });
     cache.set(key, space);
   }
   return space;

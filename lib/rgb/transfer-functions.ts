@@ -6,7 +6,8 @@
  */
 
 function requireFinite(what: string, value: number): void {
-  if (typeof value !== "number" || !Number.isFinite(value)) throw new Error(`${what}: the value ${value} is not a finite number`);
+  if (typeof value !== "number" || !Number.isFinite(value))
+    throw new Error(`${what}: the value ${value} is not a finite number`);
 }
 
 function odd(f: (x: number) => number): (x: number) => number {
@@ -26,7 +27,8 @@ export function srgbDecode(signal: number): number {
 }
 
 function requireGamma(what: string, gamma: number): void {
-  if (typeof gamma !== "number" || !Number.isFinite(gamma) || gamma <= 0) throw new Error(`${what}: gamma ${gamma} must be a positive finite number`);
+  if (typeof gamma !== "number" || !Number.isFinite(gamma) || gamma <= 0)
+    throw new Error(`${what}: gamma ${gamma} must be a positive finite number`);
 }
 
 /** Pure power-law encoding V = L^(1/γ). */
@@ -138,9 +140,13 @@ export function hlgDecode(signal: number): number {
  * HLG OOTF (ITU-R BT.2100-2 Table 5, Lb = 0): display light F_D = Lw·Ys^(γ − 1)·E per channel, with
  * Ys = 0.2627R + 0.6780G + 0.0593B and system gamma γ = 1.2 + 0.42·log10(Lw/1000). Scene light in, cd/m² out.
  */
-export function hlgDisplayLight(sceneLinear: { r: number; g: number; b: number }, peakLuminance = 1000): { r: number; g: number; b: number } {
+export function hlgDisplayLight(
+  sceneLinear: { r: number; g: number; b: number },
+  peakLuminance = 1000,
+): { r: number; g: number; b: number } {
   for (const k of ["r", "g", "b"] as const) requireFinite(`hlgDisplayLight (${k})`, sceneLinear[k]);
-  if (!(Number.isFinite(peakLuminance) && peakLuminance > 0)) throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
+  if (!(Number.isFinite(peakLuminance) && peakLuminance > 0))
+    throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
   const gamma = 1.2 + 0.42 * Math.log10(peakLuminance / 1000);
   const ys = 0.2627 * sceneLinear.r + 0.678 * sceneLinear.g + 0.0593 * sceneLinear.b;
   const k = ys > 0 ? peakLuminance * ys ** (gamma - 1) : 0;
@@ -148,7 +154,8 @@ export function hlgDisplayLight(sceneLinear: { r: number; g: number; b: number }
 }
 
 /** The transfer functions an RGB space can name. */
-export type TransferName = "sRGB" | "linear" | "gamma 2.2" | "gamma 2.4" | "gamma 2.6" | "BT.709" | "BT.1886" | "PQ" | "HLG";
+export type TransferName =
+  "sRGB" | "linear" | "gamma 2.2" | "gamma 2.4" | "gamma 2.6" | "BT.709" | "BT.1886" | "PQ" | "HLG";
 
 /** A transfer function by name: encode (linear → signal) and decode (signal → linear), and what it is for the Methods section. */
 export interface TransferFunction {
@@ -159,20 +166,61 @@ export interface TransferFunction {
 }
 
 const TRANSFERS: Record<TransferName, TransferFunction> = {
-  sRGB: { name: "sRGB", description: "the sRGB transfer function of IEC 61966-2-1:1999", encode: srgbEncode, decode: srgbDecode },
-  linear: { name: "linear", description: "no transfer function (linear values)", encode: (v) => (requireFinite("linear", v), v), decode: (v) => (requireFinite("linear", v), v) },
-  "gamma 2.2": { name: "gamma 2.2", description: "a pure power law with γ = 2.2", encode: (v) => gammaEncode(v, 2.2), decode: (v) => gammaDecode(v, 2.2) },
-  "gamma 2.4": { name: "gamma 2.4", description: "a pure power law with γ = 2.4", encode: (v) => gammaEncode(v, 2.4), decode: (v) => gammaDecode(v, 2.4) },
-  "gamma 2.6": { name: "gamma 2.6", description: "a pure power law with γ = 2.6", encode: (v) => gammaEncode(v, 2.6), decode: (v) => gammaDecode(v, 2.6) },
-  "BT.709": { name: "BT.709", description: "the ITU-R BT.709-6 camera OETF and its inverse", encode: bt709Encode, decode: bt709Decode },
-  "BT.1886": {
-    name: "BT.1886",
-    description: "the ITU-R BT.1886 reference display EOTF with zero black level, i.e. a 2.4 power law, values relative to white",
+  sRGB: {
+    name: "sRGB",
+    description: "the sRGB transfer function of IEC 61966-2-1:1999",
+    encode: srgbEncode,
+    decode: srgbDecode,
+  },
+  linear: {
+    name: "linear",
+    description: "no transfer function (linear values)",
+    encode: (v) => (requireFinite("linear", v), v),
+    decode: (v) => (requireFinite("linear", v), v),
+  },
+  "gamma 2.2": {
+    name: "gamma 2.2",
+    description: "a pure power law with γ = 2.2",
+    encode: (v) => gammaEncode(v, 2.2),
+    decode: (v) => gammaDecode(v, 2.2),
+  },
+  "gamma 2.4": {
+    name: "gamma 2.4",
+    description: "a pure power law with γ = 2.4",
     encode: (v) => gammaEncode(v, 2.4),
     decode: (v) => gammaDecode(v, 2.4),
   },
-  PQ: { name: "PQ", description: "the PQ curve of SMPTE ST 2084:2014 (ITU-R BT.2100), linear 1 = 10 000 cd/m²", encode: (v) => pqEncode(v * PQ_PEAK_LUMINANCE), decode: (v) => pqDecode(v) / PQ_PEAK_LUMINANCE },
-  HLG: { name: "HLG", description: "the HLG OETF of ITU-R BT.2100-2 (scene light, linear 1 = nominal peak)", encode: hlgEncode, decode: hlgDecode },
+  "gamma 2.6": {
+    name: "gamma 2.6",
+    description: "a pure power law with γ = 2.6",
+    encode: (v) => gammaEncode(v, 2.6),
+    decode: (v) => gammaDecode(v, 2.6),
+  },
+  "BT.709": {
+    name: "BT.709",
+    description: "the ITU-R BT.709-6 camera OETF and its inverse",
+    encode: bt709Encode,
+    decode: bt709Decode,
+  },
+  "BT.1886": {
+    name: "BT.1886",
+    description:
+      "the ITU-R BT.1886 reference display EOTF with zero black level, i.e. a 2.4 power law, values relative to white",
+    encode: (v) => gammaEncode(v, 2.4),
+    decode: (v) => gammaDecode(v, 2.4),
+  },
+  PQ: {
+    name: "PQ",
+    description: "the PQ curve of SMPTE ST 2084:2014 (ITU-R BT.2100), linear 1 = 10 000 cd/m²",
+    encode: (v) => pqEncode(v * PQ_PEAK_LUMINANCE),
+    decode: (v) => pqDecode(v) / PQ_PEAK_LUMINANCE,
+  },
+  HLG: {
+    name: "HLG",
+    description: "the HLG OETF of ITU-R BT.2100-2 (scene light, linear 1 = nominal peak)",
+    encode: hlgEncode,
+    decode: hlgDecode,
+  },
 };
 
 /** The transfer function with this name; an unknown name is an error listing the known ones. */

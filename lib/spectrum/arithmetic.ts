@@ -11,7 +11,9 @@ function requireSameWavelengths(what: string, a: Spectrum, b: Spectrum): void {
   if (!sameWavelengths(a, b)) {
     const describe = (s: Spectrum) => {
       const g = gridOf(s);
-      return g ? `${g.start}–${g.end} nm every ${g.step} nm` : `${s.wavelengths.length} uneven samples from ${s.wavelengths[0]} to ${s.wavelengths.at(-1)} nm`;
+      return g
+        ? `${g.start}–${g.end} nm every ${g.step} nm`
+        : `${s.wavelengths.length} uneven samples from ${s.wavelengths[0]} to ${s.wavelengths.at(-1)} nm`;
     };
     throw new Error(
       `${what}: "${a.name}" (${describe(a)}) and "${b.name}" (${describe(b)}) are sampled at different wavelengths; align them first with alignSpectra(a, b) or resample(...)`,
@@ -19,12 +21,23 @@ function requireSameWavelengths(what: string, a: Spectrum, b: Spectrum): void {
   }
 }
 
-function combine(what: string, a: Spectrum, b: Spectrum, f: (x: number, y: number) => number, label: SpectrumLabel, quantity: SpectralQuantity): Spectrum {
+function combine(
+  what: string,
+  a: Spectrum,
+  b: Spectrum,
+  f: (x: number, y: number) => number,
+  label: SpectrumLabel,
+  quantity: SpectralQuantity,
+): Spectrum {
   requireSameWavelengths(what, a, b);
   return spectrum(
     a.wavelengths,
     a.values.map((x, i) => f(x, b.values[i]!)),
-    { name: label.name ?? `${a.name} ${what} ${b.name}`, quantity: label.quantity ?? quantity, unit: label.unit ?? a.unit },
+    {
+      name: label.name ?? `${a.name} ${what} ${b.name}`,
+      quantity: label.quantity ?? quantity,
+      unit: label.unit ?? a.unit,
+    },
   );
 }
 
@@ -43,22 +56,33 @@ export function addSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}):
 export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
   requireSameWavelengths("÷", a, b);
   b.values.forEach((y, i) => {
-    if (y === 0) throw new Error(`÷: "${b.name}" is zero at ${b.wavelengths[i]} nm, so the ratio is undefined there`);
+    if (y === 0)
+      throw new Error(`÷: "${b.name}" is zero at ${b.wavelengths[i]} nm, so the ratio is undefined there`);
   });
   return combine("÷", a, b, (x, y) => x / y, label, "other");
 }
 
 /** The spectrum with every value multiplied by a factor. */
 export function scaleSpectrum(s: Spectrum, factor: number, label: SpectrumLabel = {}): Spectrum {
-  if (!Number.isFinite(factor)) throw new Error(`scaleSpectrum: the factor for "${s.name}" is ${factor}, not a finite number`);
-  return spectrum(s.wavelengths, s.values.map((v) => v * factor), { name: label.name ?? s.name, quantity: label.quantity ?? s.quantity, unit: label.unit ?? s.unit });
+  if (!Number.isFinite(factor))
+    throw new Error(`scaleSpectrum: the factor for "${s.name}" is ${factor}, not a finite number`);
+  return spectrum(
+    s.wavelengths,
+    s.values.map((v) => v * factor),
+    { name: label.name ?? s.name, quantity: label.quantity ?? s.quantity, unit: label.unit ?? s.unit },
+  );
 }
 
 /**
  * Both spectra resampled onto one grid: by default the wavelengths they share (the overlap) at the finer of their
  * steps (1 nm when either is uneven), so that they can be combined.
  */
-export function alignSpectra(a: Spectrum, b: Spectrum, grid?: WavelengthGrid, options: SamplingOptions = {}): [Spectrum, Spectrum] {
+export function alignSpectra(
+  a: Spectrum,
+  b: Spectrum,
+  grid?: WavelengthGrid,
+  options: SamplingOptions = {},
+): [Spectrum, Spectrum] {
   const target = grid ?? overlapGrid(a, b);
   gridWavelengths(target);
   return [resample(a, target, options), resample(b, target, options)];
@@ -69,7 +93,9 @@ export function overlapGrid(a: Spectrum, b: Spectrum): WavelengthGrid {
   const start = Math.max(a.wavelengths[0]!, b.wavelengths[0]!);
   const end = Math.min(a.wavelengths.at(-1)!, b.wavelengths.at(-1)!);
   if (end < start) {
-    throw new Error(`"${a.name}" (${a.wavelengths[0]}–${a.wavelengths.at(-1)} nm) and "${b.name}" (${b.wavelengths[0]}–${b.wavelengths.at(-1)} nm) share no wavelengths`);
+    throw new Error(
+      `"${a.name}" (${a.wavelengths[0]}–${a.wavelengths.at(-1)} nm) and "${b.name}" (${b.wavelengths[0]}–${b.wavelengths.at(-1)} nm) share no wavelengths`,
+    );
   }
   const ga = gridOf(a);
   const gb = gridOf(b);

@@ -12,7 +12,9 @@ export interface WavelengthGrid {
 export function gridWavelengths(grid: WavelengthGrid): number[] {
   const { start, end, step } = grid;
   if (![start, end, step].every(Number.isFinite) || step <= 0 || end < start) {
-    throw new Error(`wavelength grid ${start}–${end} nm every ${step} nm is not valid (need start ≤ end and step > 0)`);
+    throw new Error(
+      `wavelength grid ${start}–${end} nm every ${step} nm is not valid (need start ≤ end and step > 0)`,
+    );
   }
   const n = Math.round((end - start) / step);
   if (Math.abs(start + n * step - end) > 1e-6 * step) {
@@ -40,6 +42,7 @@ export function gridOf(s: Spectrum): WavelengthGrid | undefined {
 /** True when two spectra are sampled at exactly the same wavelengths. */
 export function sameWavelengths(a: Spectrum, b: Spectrum): boolean {
   if (a.wavelengths.length !== b.wavelengths.length) return false;
-  for (let i = 0; i < a.wavelengths.length; i++) if (Math.abs(a.wavelengths[i]! - b.wavelengths[i]!) > 1e-9) return false;
+  for (let i = 0; i < a.wavelengths.length; i++)
+    if (Math.abs(a.wavelengths[i]! - b.wavelengths[i]!) > 1e-9) return false;
   return true;
 }

@@ -24,6 +24,6 @@ export function cubicSplineInterpolator(xs: readonly number[], ys: readonly numb
     const h = xs[hi]! - xs[lo]!;
     const a = (xs[hi]! - x) / h;
     const b = (x - xs[lo]!) / h;
-    return a * ys[lo]! + b * ys[hi]! + ((a * a * a - a) * m[lo]! + (b * b * b - b) * m[hi]!) * (h * h) / 6;
+    return a * ys[lo]! + b * ys[hi]! + (((a * a * a - a) * m[lo]! + (b * b * b - b) * m[hi]!) * (h * h)) / 6;
   };
 }

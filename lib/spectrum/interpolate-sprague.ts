@@ -12,14 +12,25 @@ const BOUNDARY = [
 export function spraguePad(ys: readonly number[]): number[] {
   const n = ys.length;
   if (n < 6) throw new Error(`Sprague interpolation needs at least 6 evenly spaced samples, got ${n}`);
-  const dot = (c: readonly number[], v: readonly number[]) => c.reduce((sum, ci, i) => sum + ci * v[i]!, 0) / 209;
+  const dot = (c: readonly number[], v: readonly number[]) =>
+    c.reduce((sum, ci, i) => sum + ci * v[i]!, 0) / 209;
   const head = ys.slice(0, 6);
   const tail = ys.slice(n - 6).reverse();
-  return [dot(BOUNDARY[0], head), dot(BOUNDARY[1], head), ...ys, dot(BOUNDARY[1], tail), dot(BOUNDARY[0], tail)];
+  return [
+    dot(BOUNDARY[0], head),
+    dot(BOUNDARY[1], head),
+    ...ys,
+    dot(BOUNDARY[1], tail),
+    dot(BOUNDARY[0], tail),
+  ];
 }
 
 /** Returns f(x) by Sprague interpolation of samples starting at `start` every `step` (x inside the sampled range). */
-export function spragueInterpolator(start: number, step: number, ys: readonly number[]): (x: number) => number {
+export function spragueInterpolator(
+  start: number,
+  step: number,
+  ys: readonly number[],
+): (x: number) => number {
   const r = spraguePad(ys);
   const last = ys.length - 1;
   return (x: number) => {
@@ -29,7 +40,12 @@ export function spragueInterpolator(start: number, step: number, ys: readonly nu
     if (i < 0) i = 0;
     const t = u - i;
     // r[k + 2] is sample k; the six points around the interval [i, i + 1] are samples i − 2 … i + 3.
-    const m2 = r[i]!, m1 = r[i + 1]!, p0 = r[i + 2]!, p1 = r[i + 3]!, p2 = r[i + 4]!, p3 = r[i + 5]!;
+    const m2 = r[i]!,
+      m1 = r[i + 1]!,
+      p0 = r[i + 2]!,
+      p1 = r[i + 3]!,
+      p2 = r[i + 4]!,
+      p3 = r[i + 5]!;
     const a1 = (2 * m2 - 16 * m1 + 16 * p1 - 2 * p2) / 24;
     const a2 = (-m2 + 16 * m1 - 30 * p0 + 16 * p1 - p2) / 24;
     const a3 = (-9 * m2 + 39 * m1 - 70 * p0 + 66 * p1 - 33 * p2 + 7 * p3) / 24;

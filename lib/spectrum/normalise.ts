@@ -6,19 +6,42 @@ import { spectrum, withValues, type Spectrum } from "./spectrum.ts";
 export function normaliseToPeak(s: Spectrum, peak = 1): Spectrum {
   const max = Math.max(...s.values);
   if (!(max > 0)) throw new Error(`normaliseToPeak: "${s.name}" has no positive value to scale to ${peak}`);
-  return withValues(s, s.values.map((v) => (v / max) * peak));
+  return withValues(
+    s,
+    s.values.map((v) => (v / max) * peak),
+  );
 }
 
 /** The spectrum scaled so that its value at `wavelength` equals `value` (e.g. 100 at 560 nm, the CIE 015 convention for illuminants). */
-export function normaliseAt(s: Spectrum, wavelength: number, value = 100, options: SamplingOptions = {}): Spectrum {
+export function normaliseAt(
+  s: Spectrum,
+  wavelength: number,
+  value = 100,
+  options: SamplingOptions = {},
+): Spectrum {
   const at = sampler(s, { ...options, extrapolation: "refuse" })(wavelength);
-  if (at === 0) throw new Error(`normaliseAt: "${s.name}" is zero at ${wavelength} nm, so it cannot be scaled to ${value} there`);
-  return withValues(s, s.values.map((v) => (v / at) * value));
+  if (at === 0)
+    throw new Error(
+      `normaliseAt: "${s.name}" is zero at ${wavelength} nm, so it cannot be scaled to ${value} there`,
+    );
+  return withValues(
+    s,
+    s.values.map((v) => (v / at) * value),
+  );
 }
 
 /** The samples of the spectrum between `from` and `to` nm inclusive. */
 export function trimSpectrum(s: Spectrum, from: number, to: number): Spectrum {
-  const keep = s.wavelengths.map((w, i) => [w, i] as const).filter(([w]) => w >= from - 1e-9 && w <= to + 1e-9);
-  if (keep.length === 0) throw new Error(`trimSpectrum: "${s.name}" (${s.wavelengths[0]}–${s.wavelengths.at(-1)} nm) has no samples in ${from}–${to} nm`);
-  return spectrum(keep.map(([w]) => w), keep.map(([, i]) => s.values[i]!), { name: s.name, quantity: s.quantity, unit: s.unit });
+  const keep = s.wavelengths
+    .map((w, i) => [w, i] as const)
+    .filter(([w]) => w >= from - 1e-9 && w <= to + 1e-9);
+  if (keep.length === 0)
+    throw new Error(
+      `trimSpectrum: "${s.name}" (${s.wavelengths[0]}–${s.wavelengths.at(-1)} nm) has no samples in ${from}–${to} nm`,
+    );
+  return spectrum(
+    keep.map(([w]) => w),
+    keep.map(([, i]) => s.values[i]!),
+    { name: s.name, quantity: s.quantity, unit: s.unit },
+  );
 }

@@ -9,7 +9,11 @@ export function resample(s: Spectrum, grid: WavelengthGrid, options: SamplingOpt
 }
 
 /** The spectrum read at the given wavelengths (strictly increasing). */
-export function resampleAt(s: Spectrum, wavelengths: readonly number[], options: SamplingOptions = {}): Spectrum {
+export function resampleAt(
+  s: Spectrum,
+  wavelengths: readonly number[],
+  options: SamplingOptions = {},
+): Spectrum {
   const read = sampler(s, options);
   return spectrum(wavelengths, wavelengths.map(read), { name: s.name, quantity: s.quantity, unit: s.unit });
 }

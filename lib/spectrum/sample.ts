@@ -21,12 +21,19 @@ export interface SamplingOptions {
 }
 
 /** The interpolation "auto" resolves to for this spectrum. */
-export function resolveInterpolation(s: Spectrum, requested: Interpolation = "auto"): Exclude<Interpolation, "auto"> {
+export function resolveInterpolation(
+  s: Spectrum,
+  requested: Interpolation = "auto",
+): Exclude<Interpolation, "auto"> {
   const n = s.wavelengths.length;
   const step = regularStep(s);
   if (requested === "sprague") {
-    if (step === undefined) throw new Error(`spectrum "${s.name}": Sprague interpolation needs evenly spaced wavelengths; use "spline" for uneven data`);
-    if (n < 6) throw new Error(`spectrum "${s.name}": Sprague interpolation needs at least 6 samples, it has ${n}`);
+    if (step === undefined)
+      throw new Error(
+        `spectrum "${s.name}": Sprague interpolation needs evenly spaced wavelengths; use "spline" for uneven data`,
+      );
+    if (n < 6)
+      throw new Error(`spectrum "${s.name}": Sprague interpolation needs at least 6 samples, it has ${n}`);
     return "sprague";
   }
   if (requested === "spline") {
@@ -69,11 +76,14 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
   let notedInterpolation = false;
   let notedExtrapolation = false;
   return (wavelength: number) => {
-    if (!Number.isFinite(wavelength)) throw new Error(`spectrum "${s.name}": cannot read a value at wavelength ${wavelength}`);
+    if (!Number.isFinite(wavelength))
+      throw new Error(`spectrum "${s.name}": cannot read a value at wavelength ${wavelength}`);
     const tol = 1e-9;
     if (wavelength < first - tol || wavelength > last + tol) {
       if (extrapolation === "refuse") {
-        throw new Error(`spectrum "${s.name}" covers ${first}–${last} nm; ${wavelength} nm is outside it (extrapolation refused)`);
+        throw new Error(
+          `spectrum "${s.name}" covers ${first}–${last} nm; ${wavelength} nm is outside it (extrapolation refused)`,
+        );
       }
       // Remembered only when actually recorded: a sampler made for a figure may later serve a real computation.
       if (!notedExtrapolation && methodNotesActive()) {

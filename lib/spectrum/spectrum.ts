@@ -35,7 +35,11 @@ export interface SpectrumLabel {
 }
 
 /** Builds a spectrum from wavelengths (nm) and values, checking that both are finite and the wavelengths increase. */
-export function spectrum(wavelengths: readonly number[], values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+export function spectrum(
+  wavelengths: readonly number[],
+  values: readonly number[],
+  label: SpectrumLabel = {},
+): Spectrum {
   const name = label.name ?? "spectrum";
   if (wavelengths.length !== values.length) {
     throw new Error(`spectrum "${name}": ${wavelengths.length} wavelengths but ${values.length} values`);
@@ -43,15 +47,18 @@ export function spectrum(wavelengths: readonly number[], values: readonly number
   if (wavelengths.length === 0) throw new Error(`spectrum "${name}": no samples (an empty spectrum)`);
   for (let i = 0; i < wavelengths.length; i++) {
     const wl = wavelengths[i]!;
-    if (!Number.isFinite(wl)) throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl}, not a finite number`);
-    if (wl <= 0) throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl} nm; wavelengths must be positive`);
+    if (!Number.isFinite(wl))
+      throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl}, not a finite number`);
+    if (wl <= 0)
+      throw new Error(`spectrum "${name}": wavelength #${i + 1} is ${wl} nm; wavelengths must be positive`);
     if (i > 0 && wl <= wavelengths[i - 1]!) {
       throw new Error(
         `spectrum "${name}": wavelength #${i + 1} (${wl} nm) does not increase after ${wavelengths[i - 1]} nm; sort the samples and remove duplicates`,
       );
     }
     const v = values[i]!;
-    if (!Number.isFinite(v)) throw new Error(`spectrum "${name}": the value at ${wl} nm is ${v}, not a finite number`);
+    if (!Number.isFinite(v))
+      throw new Error(`spectrum "${name}": the value at ${wl} nm is ${v}, not a finite number`);
   }
   return {
     kind: "spectrum",
@@ -64,9 +71,16 @@ export function spectrum(wavelengths: readonly number[], values: readonly number
 }
 
 /** Builds a spectrum on a regular grid: the first wavelength, the step (nm), and one value per step. */
-export function spectrumOnGrid(start: number, step: number, values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+export function spectrumOnGrid(
+  start: number,
+  step: number,
+  values: readonly number[],
+  label: SpectrumLabel = {},
+): Spectrum {
   if (!Number.isFinite(start) || !Number.isFinite(step) || step <= 0) {
-    throw new Error(`spectrum "${label.name ?? "spectrum"}": grid start ${start} nm, step ${step} nm is not a valid grid`);
+    throw new Error(
+      `spectrum "${label.name ?? "spectrum"}": grid start ${start} nm, step ${step} nm is not a valid grid`,
+    );
   }
   return spectrum(
     values.map((_, i) => roundWavelength(start + i * step)),
@@ -76,7 +90,10 @@ export function spectrumOnGrid(start: number, step: number, values: readonly num
 }
 
 /** Builds a spectrum from [wavelength, value] pairs. */
-export function spectrumFromPairs(pairs: ReadonlyArray<readonly [number, number]>, label: SpectrumLabel = {}): Spectrum {
+export function spectrumFromPairs(
+  pairs: ReadonlyArray<readonly [number, number]>,
+  label: SpectrumLabel = {},
+): Spectrum {
   return spectrum(
     pairs.map((p) => p[0]),
     pairs.map((p) => p[1]),

@@ -29,7 +29,8 @@ function coarseTable(): Row[] {
   if (!table) {
     table = [];
     // One step beyond each end of the range, so that a CCT at the very limits still has a row on either side.
-    for (let t = OHNO_RANGE_K[0] / STEP_RATIO; t < OHNO_RANGE_K[1] * STEP_RATIO * STEP_RATIO; t *= STEP_RATIO) table.push(row(t));
+    for (let t = OHNO_RANGE_K[0] / STEP_RATIO; t < OHNO_RANGE_K[1] * STEP_RATIO * STEP_RATIO; t *= STEP_RATIO)
+      table.push(row(t));
   }
   return table;
 }
@@ -53,19 +54,24 @@ function bracket(uv: Uv1960): { rows: [Row, Row, Row]; d: [number, number, numbe
   for (let pass = 0; pass < REFINEMENTS; pass++) {
     const ratio = (hi / lo) ** (1 / (POINTS_PER_PASS - 1));
     const fine: Row[] = [];
-    for (let k = 0; k < POINTS_PER_PASS; k++) fine.push(row(k === POINTS_PER_PASS - 1 ? hi : lo * ratio ** k));
+    for (let k = 0; k < POINTS_PER_PASS; k++)
+      fine.push(row(k === POINTS_PER_PASS - 1 ? hi : lo * ratio ** k));
     const found = nearest(fine, uv.u, uv.v);
     const j = Math.min(Math.max(found.index, 1), POINTS_PER_PASS - 2);
     rows = [fine[j - 1]!, fine[j]!, fine[j + 1]!];
     d = [found.d[j - 1]!, found.d[j]!, found.d[j + 1]!];
-    lo = rows[0].t;
-    hi = rows[2].t;
+    lo = rows[0]!.t;
+    hi = rows[2]!.t;
   }
   return { rows: rows as [Row, Row, Row], d: d as [number, number, number] };
 }
 
 /** Ohno (2014) triangular solution from the rows either side of the nearest one (eqs. for x, Tx and Duv). */
-function triangular(uv: Uv1960, rows: [Row, Row, Row], d: [number, number, number]): { cct: number; duv: number } {
+function triangular(
+  uv: Uv1960,
+  rows: [Row, Row, Row],
+  d: [number, number, number],
+): { cct: number; duv: number } {
   const [a, , c] = rows;
   const l = Math.hypot(c.u - a.u, c.v - a.v);
   const x = (d[0] ** 2 - d[2] ** 2 + l * l) / (2 * l);
@@ -79,9 +85,14 @@ function triangular(uv: Uv1960, rows: [Row, Row, Row], d: [number, number, numbe
  * Ohno (2014) parabolic solution: d(T) = aT² + bT + c through the three rows, Tx = −b/2a, |Duv| = d(Tx). Written
  * about the middle row's temperature, which is the same parabola with less rounding error.
  */
-function parabolic(uv: Uv1960, rows: [Row, Row, Row], d: [number, number, number]): { cct: number; duv: number } {
+function parabolic(
+  uv: Uv1960,
+  rows: [Row, Row, Row],
+  d: [number, number, number],
+): { cct: number; duv: number } {
   const t0 = rows[1].t;
-  const x1 = rows[0].t - t0, x3 = rows[2].t - t0;
+  const x1 = rows[0].t - t0,
+    x3 = rows[2].t - t0;
   const [d1, d2, d3] = d;
   // Parabola through (x1, d1), (0, d2), (x3, d3).
   const a = ((d1 - d2) / x1 - (d3 - d2) / x3) / (x1 - x3);

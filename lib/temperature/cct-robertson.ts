@@ -9,8 +9,8 @@ import { planckianLocusAtReciprocal } from "./planckian-locus.ts";
 
 /** The reciprocal temperatures (MK⁻¹, "mireds") of Robertson's isotemperature lines (Robertson 1968, Table 1). */
 export const ROBERTSON_MIREDS: readonly number[] = [
-  0, 10, 20, 30, 40, 50, 60, 70, 80, 90, 100, 125, 150, 175, 200, 225, 250, 275, 300, 325, 350, 375, 400, 425, 450,
-  475, 500, 525, 550, 575, 600,
+  0, 10, 20, 30, 40, 50, 60, 70, 80, 90, 100, 125, 150, 175, 200, 225, 250, 275, 300, 325, 350, 375, 400, 425,
+  450, 475, 500, 525, 550, 575, 600,
 ];
 
 /** One isotemperature line: the locus point (u, v) and the line's direction as the locus tangent it is normal to. */
@@ -45,7 +45,9 @@ export function cctRobertson(uv: Uv1960): number {
   // Signed distance of the point from each isotemperature line, positive on the low-temperature side.
   let previous = (uv.u - table[0]!.u) * table[0]!.tu + (uv.v - table[0]!.v) * table[0]!.tv;
   if (previous < 0) {
-    throw new Error(`CCT (Robertson 1968): u = ${uv.u.toFixed(5)}, v = ${uv.v.toFixed(5)} lies beyond the isotemperature line of infinite temperature`);
+    throw new Error(
+      `CCT (Robertson 1968): u = ${uv.u.toFixed(5)}, v = ${uv.v.toFixed(5)} lies beyond the isotemperature line of infinite temperature`,
+    );
   }
   for (let i = 1; i < table.length; i++) {
     const line = table[i]!;
@@ -53,7 +55,10 @@ export function cctRobertson(uv: Uv1960): number {
     if (di <= 0) {
       const m0 = table[i - 1]!.mired;
       const mired = m0 + ((line.mired - m0) * previous) / (previous - di);
-      if (mired <= 0) throw new Error(`CCT (Robertson 1968): u = ${uv.u.toFixed(5)}, v = ${uv.v.toFixed(5)} lies at infinite temperature`);
+      if (mired <= 0)
+        throw new Error(
+          `CCT (Robertson 1968): u = ${uv.u.toFixed(5)}, v = ${uv.v.toFixed(5)} lies at infinite temperature`,
+        );
       return 1e6 / mired;
     }
     previous = di;

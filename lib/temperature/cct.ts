@@ -2,7 +2,12 @@
  * Correlated colour temperature (CCT) and distance from the Planckian locus (Duv) in the CIE 1960 UCS
  * (CIE 015:2018 §9.5), and the inverse: the chromaticity at a given CCT and Duv.
  */
-import { chromaticityXy, uv1960FromXy, xyFromUv1960, type Chromaticity } from "../colorimetry/chromaticity.ts";
+import {
+  chromaticityXy,
+  uv1960FromXy,
+  xyFromUv1960,
+  type Chromaticity,
+} from "../colorimetry/chromaticity.ts";
 import { lightTristimulus } from "../colorimetry/tristimulus.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
@@ -27,14 +32,17 @@ export interface CctResult {
 /** |Duv| beyond which CIE 015:2018 §9.5 regards a correlated colour temperature as meaningless. */
 export const DUV_LIMIT = 0.05;
 
-const LOCUS_WORDS = "The Planckian locus was computed from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm over 360–830 nm, and distances were taken in the CIE 1960 UCS (CIE 015:2018 §9.5).";
+const LOCUS_WORDS =
+  "The Planckian locus was computed from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm over 360–830 nm, and distances were taken in the CIE 1960 UCS (CIE 015:2018 §9.5).";
 
 function checkXy(xy: Chromaticity, what: string): void {
   if (typeof xy !== "object" || xy === null || !Number.isFinite(xy.x) || !Number.isFinite(xy.y)) {
     throw new Error(`${what}: chromaticity (${xy?.x}, ${xy?.y}) must be two finite numbers`);
   }
   if (xy.x <= 0 || xy.y <= 0 || xy.x + xy.y >= 1) {
-    throw new Error(`${what}: chromaticity (${xy.x}, ${xy.y}) is not a physical chromaticity (need x > 0, y > 0, x + y < 1)`);
+    throw new Error(
+      `${what}: chromaticity (${xy.x}, ${xy.y}) is not a physical chromaticity (need x > 0, y > 0, x + y < 1)`,
+    );
   }
 }
 
@@ -97,7 +105,9 @@ export function chromaticityAtCct(cct: number, duv = 0): Chromaticity {
   const p = planckianNormal(cct);
   const xy = xyFromUv1960({ u: p.u + duv * p.nu, v: p.v + duv * p.nv });
   if (!(xy.x > 0 && xy.y > 0 && xy.x + xy.y < 1)) {
-    throw new Error(`chromaticityAtCct: ${cct} K with Duv ${duv} lies outside the range of real colours (x = ${xy.x.toFixed(4)}, y = ${xy.y.toFixed(4)})`);
+    throw new Error(
+      `chromaticityAtCct: ${cct} K with Duv ${duv} lies outside the range of real colours (x = ${xy.x.toFixed(4)}, y = ${xy.y.toFixed(4)})`,
+    );
   }
   return xy;
 }

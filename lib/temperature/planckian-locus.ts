@@ -19,7 +19,9 @@ for (let i = 0; i < n; i++) {
   lambdaM[i] = l;
   lambdaPow4[i] = (obs.wavelengths[i]! / 560) ** -4;
 }
-const xb = Float64Array.from(obs.xBar), yb = Float64Array.from(obs.yBar), zb = Float64Array.from(obs.zBar);
+const xb = Float64Array.from(obs.xBar),
+  yb = Float64Array.from(obs.yBar),
+  zb = Float64Array.from(obs.zBar);
 
 /** A point of the locus in CIE 1960 uv and its rate of change with reciprocal temperature s = 1/T (per K⁻¹). */
 export interface LocusPoint {
@@ -34,7 +36,12 @@ export interface LocusPoint {
  * Planck's law is written as λ⁻⁴·g(x), g(x) = x/(eˣ − 1), x = c2·s/λ, which is finite at s = 0.
  */
 export function planckianLocusAtReciprocal(s: number, c2 = C2_CIE): LocusPoint {
-  let X = 0, Y = 0, Z = 0, dX = 0, dY = 0, dZ = 0;
+  let X = 0,
+    Y = 0,
+    Z = 0,
+    dX = 0,
+    dY = 0,
+    dZ = 0;
   for (let i = 0; i < n; i++) {
     const a = c2 / lambdaM[i]!;
     const x = a * s;
@@ -72,7 +79,9 @@ export function planckianLocusAtReciprocal(s: number, c2 = C2_CIE): LocusPoint {
 
 function checkTemperature(what: string, t: number): void {
   if (typeof t !== "number" || !Number.isFinite(t) || t < PLANCKIAN_MIN_K) {
-    throw new Error(`${what}: temperature ${t} K is not valid; give a finite temperature of at least ${PLANCKIAN_MIN_K} K`);
+    throw new Error(
+      `${what}: temperature ${t} K is not valid; give a finite temperature of at least ${PLANCKIAN_MIN_K} K`,
+    );
   }
 }
 
@@ -96,7 +105,8 @@ export function planckianNormal(temperatureK: number): { u: number; v: number; n
   checkTemperature("planckianNormal", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   // Tangent along increasing T is −(du/ds, dv/ds); the normal (tv, −tu) has a positive v component since u falls with T.
-  const tu = -p.duds, tv = -p.dvds;
+  const tu = -p.duds,
+    tv = -p.dvds;
   const len = Math.hypot(tu, tv);
   return { u: p.u, v: p.v, nu: tv / len, nv: -tu / len };
 }

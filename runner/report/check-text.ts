@@ -2,12 +2,27 @@
 import { formatNumber } from "../../cells/format-number.ts";
 import type { CheckRecord } from "../../cells/records.ts";
 
-const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "+": "", 0: "⁰", 1: "¹", 2: "²", 3: "³", 4: "⁴", 5: "⁵", 6: "⁶", 7: "⁷", 8: "⁸", 9: "⁹" };
+const SUPERSCRIPT: Record<string, string> = {
+  "-": "⁻",
+  "+": "",
+  0: "⁰",
+  1: "¹",
+  2: "²",
+  3: "³",
+  4: "⁴",
+  5: "⁵",
+  6: "⁶",
+  7: "⁷",
+  8: "⁸",
+  9: "⁹",
+};
 
 /** A formatted number as a report prints it: a true minus sign, and "7.1 × 10⁻¹⁵" instead of "7.1e-15". */
 export function printedNumber(text: string): string {
   const m = /^(-?)(\d+(?:\.\d+)?)e([+-]?\d+)$/.exec(text);
-  const out = m ? `${m[1]}${m[2] === "1" ? "" : `${m[2]} × `}10${[...m[3]!].map((c) => SUPERSCRIPT[c] ?? c).join("")}` : text;
+  const out = m
+    ? `${m[1]}${m[2] === "1" ? "" : `${m[2]} × `}10${[...m[3]!].map((c) => SUPERSCRIPT[c] ?? c).join("")}`
+    : text;
   return out.replace(/^-/, "−");
 }
 
@@ -24,8 +39,10 @@ export function limitsText(record: CheckRecord): string {
   const unit = unitSuffix(record.unit);
   const n = (v: number) => printedNumber(formatNumber(v));
   const parts: string[] = [];
-  if (limits.target !== undefined && limits.tolerance !== undefined) parts.push(`${n(limits.target)} ± ${n(limits.tolerance)}${unit}`);
-  if (limits.min !== undefined && limits.max !== undefined) parts.push(`${n(limits.min)} to ${n(limits.max)}${unit}`);
+  if (limits.target !== undefined && limits.tolerance !== undefined)
+    parts.push(`${n(limits.target)} ± ${n(limits.tolerance)}${unit}`);
+  if (limits.min !== undefined && limits.max !== undefined)
+    parts.push(`${n(limits.min)} to ${n(limits.max)}${unit}`);
   else if (limits.min !== undefined) parts.push(`≥ ${n(limits.min)}${unit}`);
   else if (limits.max !== undefined) parts.push(`≤ ${n(limits.max)}${unit}`);
   return parts.join(", and ");
@@ -74,7 +91,8 @@ export function checkLine(record: CheckRecord): string {
 
 /** What a check found, without its label: "0.0052 (limits ≤ 0.004)", "NaN, not a number (limits 2.2 ± 0.1)". */
 export function checkOutcomeText(record: CheckRecord): string {
-  if (!record.limits) return `condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
+  if (!record.limits)
+    return `condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
   const value = record.value === null ? `${record.valueText ?? "no value"}, not a number` : valueText(record);
   return `${value} (limits ${limitsText(record)})`;
 }

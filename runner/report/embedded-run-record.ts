@@ -38,7 +38,12 @@ export interface EmbeddedCell {
   readonly status: CellStatus;
   /** The failure was allowed by the cell's may-fail option. */
   readonly failureAllowed?: boolean;
-  readonly error?: { readonly failure: FailureKind; readonly name?: string; readonly message: string; readonly location?: EmbeddedLocation };
+  readonly error?: {
+    readonly failure: FailureKind;
+    readonly name?: string;
+    readonly message: string;
+    readonly location?: EmbeddedLocation;
+  };
   /** How many acceptance checks the cell stated, and how many of them failed. */
   readonly checks: number;
   readonly checksFailed: number;
@@ -85,20 +90,39 @@ export interface EmbeddedRunRecord {
   };
   readonly timeLimitMs: number;
   readonly keepGoing: boolean;
-  readonly inputs: readonly { readonly name: string; readonly value: InputValue; readonly setBy: "default" | "--input" | "--each" }[];
+  readonly inputs: readonly {
+    readonly name: string;
+    readonly value: InputValue;
+    readonly setBy: "default" | "--input" | "--each";
+  }[];
   readonly cells: readonly EmbeddedCell[];
   readonly checks: readonly EmbeddedCheck[];
   readonly cautions: readonly EmbeddedCaution[];
   readonly methods: readonly { readonly topic: string; readonly statement: string }[];
   /** Cells whose process stopped before reporting its method notes: the Methods may be incomplete. */
   readonly methodsMissingFrom: readonly number[];
-  readonly filesRead: readonly { readonly path: string; readonly sha256: string | null; readonly cells: readonly number[]; readonly imported?: boolean }[];
+  readonly filesRead: readonly {
+    readonly path: string;
+    readonly sha256: string | null;
+    readonly cells: readonly number[];
+    readonly imported?: boolean;
+  }[];
   readonly events: readonly string[];
-  readonly batch?: { readonly input: string; readonly pattern: string; readonly position: number; readonly count: number; readonly dataFile: string };
+  readonly batch?: {
+    readonly input: string;
+    readonly pattern: string;
+    readonly position: number;
+    readonly count: number;
+    readonly dataFile: string;
+  };
 }
 
 /** The plain-data record of a run, as embedded in its report. */
-export function embeddedRunRecord(document: NotebookDocument, run: RunRecord, title: string): EmbeddedRunRecord {
+export function embeddedRunRecord(
+  document: NotebookDocument,
+  run: RunRecord,
+  title: string,
+): EmbeddedRunRecord {
   const dir = path.dirname(document.path);
   const timed = !run.reproducible;
   const checks = checkResults(run);
@@ -123,7 +147,8 @@ export function embeddedRunRecord(document: NotebookDocument, run: RunRecord, ti
     inputs: Object.entries(run.inputs).map(([name, value]) => ({
       name,
       value,
-      setBy: run.batch?.input === name ? "--each" : Object.hasOwn(run.inputsSet, name) ? "--input" : "default",
+      setBy:
+        run.batch?.input === name ? "--each" : Object.hasOwn(run.inputsSet, name) ? "--input" : "default",
     })),
     cells: run.cells.map((c) => {
       const own = checks.filter((k) => k.cell === c.index);
@@ -176,7 +201,15 @@ function embeddedError(error: ErrorRecord, dir: string): NonNullable<EmbeddedCel
     failure: error.failure,
     ...(error.name ? { name: error.name } : {}),
     message: error.message,
-    ...(error.location ? { location: { file: shownPath(error.location.file, dir), line: error.location.line, column: error.location.column } } : {}),
+    ...(error.location
+      ? {
+          location: {
+            file: shownPath(error.location.file, dir),
+            line: error.location.line,
+            column: error.location.column,
+          },
+        }
+      : {}),
   };
 }
 
@@ -187,9 +220,17 @@ export function runRecordScript(record: EmbeddedRunRecord): string {
 
 /** Reads the embedded run record back from a report's HTML (for tests and tools); throws when there is none. */
 export function readEmbeddedRunRecord(html: string): EmbeddedRunRecord {
-  const m = new RegExp(`<script type="application/json" id="${RUN_RECORD_ELEMENT_ID}">([^<]*)</script>`).exec(html);
-  if (!m) throw new Error(`no <script id="${RUN_RECORD_ELEMENT_ID}"> element in this HTML; is it a tristim report?`);
+  const m = new RegExp(`<script type="application/json" id="${RUN_RECORD_ELEMENT_ID}">([^<]*)</script>`).exec(
+    html,
+  );
+  if (!m)
+    throw new Error(
+      `no <script id="${RUN_RECORD_ELEMENT_ID}"> element in this HTML; is it a tristim report?`,
+    );
   const record = JSON.parse(m[1]!) as EmbeddedRunRecord;
-  if (record.format !== RUN_RECORD_FORMAT) throw new Error(`the embedded record has format ${JSON.stringify(record.format)}, not "${RUN_RECORD_FORMAT}"`);
+  if (record.format !== RUN_RECORD_FORMAT)
+    throw new Error(
+      `the embedded record has format ${JSON.stringify(record.format)}, not "${RUN_RECORD_FORMAT}"`,
+    );
   return record;
 }

@@ -1,6 +1,12 @@
 /** HTML escaping for every piece of text that comes from a notebook, a cell or data. */
 
-const ENTITIES: Record<string, string> = { "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" };
+const ENTITIES: Record<string, string> = {
+  "&": "&amp;",
+  "<": "&lt;",
+  ">": "&gt;",
+  '"': "&quot;",
+  "'": "&#39;",
+};
 
 /** Escapes text for HTML element content and attribute values. */
 export function escapeHtml(text: string): string {
@@ -9,8 +15,12 @@ export function escapeHtml(text: string): string {
 
 /** JSON that is safe inside a <script type="application/json"> element (no "</script>", no "<!--"). */
 export function jsonForScript(value: unknown): string {
-  return JSON.stringify(value).replace(/</g, "\\u003c").replace(/>/g, "\\u003e").replace(/&/g, "\\u0026")
-    .replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
+  return JSON.stringify(value)
+    .replace(/</g, "\\u003c")
+    .replace(/>/g, "\\u003e")
+    .replace(/&/g, "\\u0026")
+    .replace(/\u2028/g, "\\u2028")
+    .replace(/\u2029/g, "\\u2029");
 }
 
 /**
@@ -19,7 +29,8 @@ export function jsonForScript(value: unknown): string {
  * <style> element.
  */
 export function cssString(text: string): string {
-  const body = Array.from(text.replace(/[\r\n\t]+/g, " ")).map((c) =>
-    /^[A-Za-z0-9 .,:;()\-_!?+=%#@/]$/.test(c) ? c : `\\${c.codePointAt(0)!.toString(16)} `).join("");
+  const body = Array.from(text.replace(/[\r\n\t]+/g, " "))
+    .map((c) => (/^[A-Za-z0-9 .,:;()\-_!?+=%#@/]$/.test(c) ? c : `\\${c.codePointAt(0)!.toString(16)} `))
+    .join("");
   return `"${body}"`;
 }

@@ -27,6 +27,7 @@ hljs.registerAliases(["yml"], { languageName: "yaml" });
 /** Highlighted HTML for code in a language (escaped plain text for languages it does not know). */
 export function highlight(code: string, language: string): string {
   const lang = language.toLowerCase();
-  if (lang && hljs.getLanguage(lang)) return hljs.highlight(code, { language: lang, ignoreIllegals: true }).value;
+  if (lang && hljs.getLanguage(lang))
+    return hljs.highlight(code, { language: lang, ignoreIllegals: true }).value;
   return escapeHtml(code);
 }

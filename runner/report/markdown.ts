@@ -17,7 +17,8 @@ export interface Heading {
 function create(html: boolean) {
   const md = new MarkdownIt({ html, linkify: false, typographer: false });
   md.options.highlight = (code, language) => highlight(code, language.split(/\s+/)[0] ?? "");
-  md.validateLink = (url) => !/^\s*(javascript|vbscript|data):/i.test(url) || /^\s*data:image\/(png|jpe?g|gif|webp);/i.test(url);
+  md.validateLink = (url) =>
+    !/^\s*(javascript|vbscript|data):/i.test(url) || /^\s*data:image\/(png|jpe?g|gif|webp);/i.test(url);
   return md;
 }
 
@@ -28,8 +29,13 @@ export const trustedMarkdown = create(true);
 
 /** A URL fragment id from heading text, unique within `used`. */
 export function slug(text: string, used: Set<string>): string {
-  const base = text.toLowerCase().normalize("NFKD").replace(/[\u0300-\u036f]/g, "").replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-|-$/g, "") || "section";
+  const base =
+    text
+      .toLowerCase()
+      .normalize("NFKD")
+      .replace(/[\u0300-\u036f]/g, "")
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "") || "section";
   let id = base;
   for (let n = 2; used.has(id); n++) id = `${base}-${n}`;
   used.add(id);
@@ -42,7 +48,11 @@ export function labelHeadings(tokens: Token[], used: Set<string>): Heading[] {
   tokens.forEach((token, i) => {
     if (token.type !== "heading_open") return;
     const inline = tokens[i + 1];
-    const text = inline?.children?.filter((c) => c.type === "text" || c.type === "code_inline").map((c) => c.content).join("") ?? "";
+    const text =
+      inline?.children
+        ?.filter((c) => c.type === "text" || c.type === "code_inline")
+        .map((c) => c.content)
+        .join("") ?? "";
     const id = slug(text, used);
     token.attrSet("id", id);
     headings.push({ level: Number(token.tag.slice(1)), text, id });

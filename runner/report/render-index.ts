@@ -33,52 +33,89 @@ export function renderBatchIndex(batch: BatchRecord): string {
 
   const parts: string[] = [];
   if (passed.length === n) {
-    parts.push(`<div class="summary-part checks passed"><h2><span class="check-mark" aria-hidden="true">✓</span> All ${runs(n)} ran without error and passed every acceptance check</h2></div>`);
+    parts.push(
+      `<div class="summary-part checks passed"><h2><span class="check-mark" aria-hidden="true">✓</span> All ${runs(n)} ran without error and passed every acceptance check</h2></div>`,
+    );
   } else {
     const lines: string[] = [];
-    if (cellFailed.length) lines.push(`<li><span class="check-word">FAIL</span> ${runs(cellFailed.length)} with a failed cell: ${linkList(cellFailed)}</li>`);
-    if (checkFailed.length) lines.push(`<li><span class="check-word">FAIL</span> ${runs(checkFailed.length)} with failed acceptance checks: ${linkList(checkFailed)}</li>`);
-    if (unwritten.length) lines.push(`<li><span class="check-word">FAIL</span> ${runs(unwritten.length)} whose report could not be written: ${unwritten.map((e) => escapeHtml(e.dataFile)).join(", ")}</li>`);
-    parts.push(`<div class="summary-part checks failed"><h2><span class="check-mark" aria-hidden="true">✗</span> ${n - passed.length} of ${runs(n)} did not pass</h2><ul>${lines.join("")}</ul>` +
-      `<p>${passed.length === 0 ? "No run passed." : `${runs(passed.length)} ran without error and passed every check.`}</p></div>`);
+    if (cellFailed.length)
+      lines.push(
+        `<li><span class="check-word">FAIL</span> ${runs(cellFailed.length)} with a failed cell: ${linkList(cellFailed)}</li>`,
+      );
+    if (checkFailed.length)
+      lines.push(
+        `<li><span class="check-word">FAIL</span> ${runs(checkFailed.length)} with failed acceptance checks: ${linkList(checkFailed)}</li>`,
+      );
+    if (unwritten.length)
+      lines.push(
+        `<li><span class="check-word">FAIL</span> ${runs(unwritten.length)} whose report could not be written: ${unwritten.map((e) => escapeHtml(e.dataFile)).join(", ")}</li>`,
+      );
+    parts.push(
+      `<div class="summary-part checks failed"><h2><span class="check-mark" aria-hidden="true">✗</span> ${n - passed.length} of ${runs(n)} did not pass</h2><ul>${lines.join("")}</ul>` +
+        `<p>${passed.length === 0 ? "No run passed." : `${runs(passed.length)} ran without error and passed every check.`}</p></div>`,
+    );
   }
   if (withCautions > 0) {
-    parts.push(`<div class="summary-part cautions"><h2>${withCautions === n ? "Every report contains" : `${runs(withCautions)} of ${n} contain`} cautions about the use of the results</h2><p>Read them at the top of each report before using its results.</p></div>`);
+    parts.push(
+      `<div class="summary-part cautions"><h2>${withCautions === n ? "Every report contains" : `${runs(withCautions)} of ${n} contain`} cautions about the use of the results</h2><p>Read them at the top of each report before using its results.</p></div>`,
+    );
   }
 
-  const rows = batch.entries.map((e, i) => {
-    const result = e.exit === EXIT.ok
-      ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
-      : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> ${e.exit === EXIT.checkFailed ? "FAIL" : e.exit === EXIT.notebookFailed ? "ERROR" : "NOT WRITTEN"}</td>`;
-    const file = e.report
-      ? `<a href="${escapeHtml(encodeURIComponent(e.report))}">${escapeHtml(e.dataFile)}</a>`
-      : escapeHtml(e.dataFile);
-    const cells = e.cells.failed.length
-      ? `${describeCells(e.cells.failed.map((c) => c + 1))} failed${e.cells.notRun ? `; ${e.cells.notRun} not run` : ""}`
-      : `${e.cells.ran === 1 ? "1 cell" : `${e.cells.ran} cells`} ran`;
-    const totalChecks = e.checks.passed + e.checks.failed;
-    const shownLabels = e.failedChecks.slice(0, 3).map(escapeHtml).join("; ");
-    const more = e.failedChecks.length > 3 ? `; and ${e.failedChecks.length - 3} more` : "";
-    const checks = totalChecks === 0 ? `<span class="muted">none</span>` : e.checks.failed === 0
-      ? `${totalChecks} passed`
-      : `<strong>${e.checks.failed} of ${totalChecks} failed</strong><span class="check-detail">${shownLabels}${more}</span>`;
-    const cautions = e.cautions === 0 ? `<span class="muted">none</span>` : `${e.cautions}`;
-    return `<tr class="check ${e.exit === EXIT.ok ? "check-pass" : "check-fail"}" id="run-${i + 1}">${result}<td class="num">${i + 1}</td>` +
-      `<td class="index-file">${file}</td><td>${cells}</td><td>${checks}</td><td class="num">${cautions}</td></tr>`;
-  }).join("");
+  const rows = batch.entries
+    .map((e, i) => {
+      const result =
+        e.exit === EXIT.ok
+          ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
+          : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> ${e.exit === EXIT.checkFailed ? "FAIL" : e.exit === EXIT.notebookFailed ? "ERROR" : "NOT WRITTEN"}</td>`;
+      const file = e.report
+        ? `<a href="${escapeHtml(encodeURIComponent(e.report))}">${escapeHtml(e.dataFile)}</a>`
+        : escapeHtml(e.dataFile);
+      const cells = e.cells.failed.length
+        ? `${describeCells(e.cells.failed.map((c) => c + 1))} failed${e.cells.notRun ? `; ${e.cells.notRun} not run` : ""}`
+        : `${e.cells.ran === 1 ? "1 cell" : `${e.cells.ran} cells`} ran`;
+      const totalChecks = e.checks.passed + e.checks.failed;
+      const shownLabels = e.failedChecks.slice(0, 3).map(escapeHtml).join("; ");
+      const more = e.failedChecks.length > 3 ? `; and ${e.failedChecks.length - 3} more` : "";
+      const checks =
+        totalChecks === 0
+          ? `<span class="muted">none</span>`
+          : e.checks.failed === 0
+            ? `${totalChecks} passed`
+            : `<strong>${e.checks.failed} of ${totalChecks} failed</strong><span class="check-detail">${shownLabels}${more}</span>`;
+      const cautions = e.cautions === 0 ? `<span class="muted">none</span>` : `${e.cautions}`;
+      return (
+        `<tr class="check ${e.exit === EXIT.ok ? "check-pass" : "check-fail"}" id="run-${i + 1}">${result}<td class="num">${i + 1}</td>` +
+        `<td class="index-file">${file}</td><td>${cells}</td><td>${checks}</td><td class="num">${cautions}</td></tr>`
+      );
+    })
+    .join("");
 
-  const files = batch.entries.map((e) =>
-    `<tr><td class="file-path">${escapeHtml(e.dataFile)}</td><td><code class="hash">${escapeHtml(e.sha256)}</code></td></tr>`).join("");
+  const files = batch.entries
+    .map(
+      (e) =>
+        `<tr><td class="file-path">${escapeHtml(e.dataFile)}</td><td><code class="hash">${escapeHtml(e.sha256)}</code></td></tr>`,
+    )
+    .join("");
   const facts: [string, string][] = [
-    ["Notebook", `${escapeHtml(path.basename(batch.notebook.path))}<br><code class="hash">SHA-256 ${escapeHtml(batch.notebook.sha256)}</code>`],
-    ["Batch", `<code>--each ${escapeHtml(batch.input)}=${escapeHtml(batch.pattern)}</code>: each matching file was bound to the input <code>${escapeHtml(batch.input)}</code> for one run`],
-    ["Software", `${escapeHtml(batch.tool.name)} ${escapeHtml(batch.tool.version)}<br>Node.js ${escapeHtml(batch.node)} (${escapeHtml(batch.platform)})`],
+    [
+      "Notebook",
+      `${escapeHtml(path.basename(batch.notebook.path))}<br><code class="hash">SHA-256 ${escapeHtml(batch.notebook.sha256)}</code>`,
+    ],
+    [
+      "Batch",
+      `<code>--each ${escapeHtml(batch.input)}=${escapeHtml(batch.pattern)}</code>: each matching file was bound to the input <code>${escapeHtml(batch.input)}</code> for one run`,
+    ],
+    [
+      "Software",
+      `${escapeHtml(batch.tool.name)} ${escapeHtml(batch.tool.version)}<br>Node.js ${escapeHtml(batch.node)} (${escapeHtml(batch.platform)})`,
+    ],
     batch.reproducible
       ? ["Date", "left out: reproducible index (<code>--reproducible</code>)"]
       : ["Batch started", escapeHtml(batch.startedAt.replace("T", " ").replace(/\.\d+Z$/, " UTC"))],
   ];
 
-  return `<!doctype html>
+  return (
+    `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -106,9 +143,16 @@ export function renderBatchIndex(batch: BatchRecord): string {
 </main>
 </body>
 </html>
-`;
+`
+  );
 }
 
 function linkList(entries: readonly BatchEntry[]): string {
-  return entries.map((e) => (e.report ? `<a href="${escapeHtml(encodeURIComponent(e.report))}">${escapeHtml(e.dataFile)}</a>` : escapeHtml(e.dataFile))).join(", ");
+  return entries
+    .map((e) =>
+      e.report
+        ? `<a href="${escapeHtml(encodeURIComponent(e.report))}">${escapeHtml(e.dataFile)}</a>`
+        : escapeHtml(e.dataFile),
+    )
+    .join(", ");
 }

@@ -39,7 +39,9 @@ export interface RenderContext {
   readonly cautionsShown: Set<string>;
 }
 
-type Renderers = { [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string };
+type Renderers = {
+  [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string;
+};
 
 const renderers: Renderers = {
   console: renderConsole,
@@ -57,8 +59,11 @@ const renderers: Renderers = {
 
 /** HTML for one output record. */
 export function renderOutput(record: OutputRecord, ctx: RenderContext): string {
-  const render = (renderers as Record<string, ((r: OutputRecord, c: RenderContext) => string) | undefined>)[record.kind];
-  if (!render) return `<p class="out-note">An output of kind “${escapeHtml(String(record.kind))}” that this version cannot show.</p>`;
+  const render = (renderers as Record<string, ((r: OutputRecord, c: RenderContext) => string) | undefined>)[
+    record.kind
+  ];
+  if (!render)
+    return `<p class="out-note">An output of kind “${escapeHtml(String(record.kind))}” that this version cannot show.</p>`;
   return render(record, ctx);
 }
 
@@ -80,20 +85,24 @@ export function renderOutputs(records: readonly OutputRecord[], ctx: RenderConte
 
 /** A table of acceptance checks: result (word and symbol, not colour alone), label, value, limits. */
 function renderChecks(records: readonly CheckRecord[], ctx: RenderContext): string {
-  const rows = records.map((r) => {
-    const id = checkAnchor(ctx.cell, ctx.cellChecks++);
-    const margin = marginText(r);
-    const detail = r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "";
-    const result = r.passed
-      ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
-      : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> FAIL</td>`;
-    const measured = r.limits
-      ? `<td class="num check-value">${escapeHtml(valueText(r))}${margin ? `<span class="check-margin">${escapeHtml(margin)}</span>` : ""}</td><td class="check-limits">${escapeHtml(limitsText(r))}</td>`
-      : `<td class="num check-value">${escapeHtml(valueText(r))}</td><td class="check-limits">condition</td>`;
-    return `<tr class="check ${r.passed ? "check-pass" : "check-fail"}" id="${id}">${result}<td class="check-label">${escapeHtml(r.label)}${detail}</td>${measured}</tr>`;
-  }).join("");
-  return `<div class="table-scroll"><table class="checks"><thead><tr><th scope="col">Result</th><th scope="col">Acceptance check</th>` +
-    `<th scope="col" class="num">Value</th><th scope="col">Limits</th></tr></thead><tbody>${rows}</tbody></table></div>`;
+  const rows = records
+    .map((r) => {
+      const id = checkAnchor(ctx.cell, ctx.cellChecks++);
+      const margin = marginText(r);
+      const detail = r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "";
+      const result = r.passed
+        ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
+        : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> FAIL</td>`;
+      const measured = r.limits
+        ? `<td class="num check-value">${escapeHtml(valueText(r))}${margin ? `<span class="check-margin">${escapeHtml(margin)}</span>` : ""}</td><td class="check-limits">${escapeHtml(limitsText(r))}</td>`
+        : `<td class="num check-value">${escapeHtml(valueText(r))}</td><td class="check-limits">condition</td>`;
+      return `<tr class="check ${r.passed ? "check-pass" : "check-fail"}" id="${id}">${result}<td class="check-label">${escapeHtml(r.label)}${detail}</td>${measured}</tr>`;
+    })
+    .join("");
+  return (
+    `<div class="table-scroll"><table class="checks"><thead><tr><th scope="col">Result</th><th scope="col">Acceptance check</th>` +
+    `<th scope="col" class="num">Value</th><th scope="col">Limits</th></tr></thead><tbody>${rows}</tbody></table></div>`
+  );
 }
 
 function renderConsole(record: ConsoleRecord): string {
@@ -110,14 +119,21 @@ function renderTable(record: TableRecord, ctx: RenderContext): string {
   const id = `table-${number}`;
   const caption = `<figcaption><span class="label">Table ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption>`;
   const head = record.columns
-    .map((c) => `<th scope="col"${c.numeric ? ' class="num"' : ""}>${escapeHtml(c.label)}${c.unit ? `<span class="unit">${escapeHtml(c.unit)}</span>` : ""}</th>`)
+    .map(
+      (c) =>
+        `<th scope="col"${c.numeric ? ' class="num"' : ""}>${escapeHtml(c.label)}${c.unit ? `<span class="unit">${escapeHtml(c.unit)}</span>` : ""}</th>`,
+    )
     .join("");
   const body = record.rows
-    .map((row) => `<tr>${row.map((cell, i) => `<td${cellClass(cell, record.columns[i]?.numeric === true)}>${escapeHtml(cell)}</td>`).join("")}</tr>`)
+    .map(
+      (row) =>
+        `<tr>${row.map((cell, i) => `<td${cellClass(cell, record.columns[i]?.numeric === true)}>${escapeHtml(cell)}</td>`).join("")}</tr>`,
+    )
     .join("\n");
-  const more = record.totalRows > record.rows.length
-    ? `<p class="out-note">Table truncated: the first ${record.rows.length.toLocaleString("en-US")} of ${record.totalRows.toLocaleString("en-US")} rows are shown.</p>`
-    : "";
+  const more =
+    record.totalRows > record.rows.length
+      ? `<p class="out-note">Table truncated: the first ${record.rows.length.toLocaleString("en-US")} of ${record.totalRows.toLocaleString("en-US")} rows are shown.</p>`
+      : "";
   const wide = record.columns.length >= WIDE_TABLE_COLUMNS ? ' class="wide"' : "";
   return `<figure class="table-figure" id="${id}">${caption}<div class="table-scroll"><table${wide}><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>${more}</figure>`;
 }
@@ -134,9 +150,11 @@ function cellClass(text: string, numeric: boolean): string {
 function renderFigure(record: FigureRecord, ctx: RenderContext): string {
   const number = ++ctx.figures;
   const id = `figure-${number}`;
-  return `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
+  return (
+    `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
     `<script type="application/json" id="${id}-spec">${jsonForScript(record.spec)}</script>` +
-    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`;
+    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`
+  );
 }
 
 function renderSwatches(record: SwatchesRecord, ctx: RenderContext): string {
@@ -166,12 +184,16 @@ const CAUTION_ABOUT: Record<NonNullable<CautionRecord["about"]>, string> = {
 function renderCaution(record: CautionRecord, ctx: RenderContext): string {
   const key = cautionKey(record);
   const anchor = ctx.cautionAnchors.get(key);
-  const about = record.about ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>` : "";
+  const about = record.about
+    ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>`
+    : "";
   if (ctx.cautionsShown.has(anchor ?? key)) {
     const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
     const more = first.length < record.text.length ? " …" : "";
-    return `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
-      `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`;
+    return (
+      `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
+      `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
+    );
   }
   ctx.cautionsShown.add(anchor ?? key);
   return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
@@ -205,13 +227,20 @@ const FAILURE_LABEL: Record<ErrorRecord["failure"], string> = {
 };
 
 function renderError(record: ErrorRecord, ctx: RenderContext): string {
-  const where = record.location ? `<p class="error-where">at ${escapeHtml(displayLocation(record.location, ctx.notebookDir))}</p>` : "";
-  const frame = record.codeFrame ? `<pre class="code-frame">${escapeHtml(record.codeFrame)}</pre>` : "";
-  const stack = record.stack && record.stack.length > 1
-    ? `<details class="stack"><summary>Call stack</summary><pre>${escapeHtml(record.stack
-      .map((f) => `at ${f.function ? `${f.function} ` : ""}${displayLocation(f, ctx.notebookDir)}`)
-      .join("\n"))}</pre></details>`
+  const where = record.location
+    ? `<p class="error-where">at ${escapeHtml(displayLocation(record.location, ctx.notebookDir))}</p>`
     : "";
-  return `<div class="out-error" role="alert"><p class="error-kind">This cell ${FAILURE_LABEL[record.failure] ?? "failed"}</p>` +
-    `<p class="error-message">${escapeHtml(errorTitle(record))}</p>${where}${frame}${stack}</div>`;
+  const frame = record.codeFrame ? `<pre class="code-frame">${escapeHtml(record.codeFrame)}</pre>` : "";
+  const stack =
+    record.stack && record.stack.length > 1
+      ? `<details class="stack"><summary>Call stack</summary><pre>${escapeHtml(
+          record.stack
+            .map((f) => `at ${f.function ? `${f.function} ` : ""}${displayLocation(f, ctx.notebookDir)}`)
+            .join("\n"),
+        )}</pre></details>`
+      : "";
+  return (
+    `<div class="out-error" role="alert"><p class="error-kind">This cell ${FAILURE_LABEL[record.failure] ?? "failed"}</p>` +
+    `<p class="error-message">${escapeHtml(errorTitle(record))}</p>${where}${frame}${stack}</div>`
+  );
 }

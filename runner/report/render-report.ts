@@ -39,7 +39,11 @@ const here = path.dirname(fileURLToPath(import.meta.url));
 const CSS = fs.readFileSync(path.join(here, "report.css"), "utf8");
 const FIGURES_CLIENT = fs.readFileSync(path.join(here, "figures-client.js"), "utf8");
 const PLOTLY_PATH = require.resolve("plotly.js-dist-min/plotly.min.js");
-const PLOTLY_VERSION = (JSON.parse(fs.readFileSync(path.join(path.dirname(PLOTLY_PATH), "package.json"), "utf8")) as { version: string }).version;
+const PLOTLY_VERSION = (
+  JSON.parse(fs.readFileSync(path.join(path.dirname(PLOTLY_PATH), "package.json"), "utf8")) as {
+    version: string;
+  }
+).version;
 /** File name of the shared Plotly copy in an assets folder. */
 export const PLOTLY_ASSET = `plotly-${PLOTLY_VERSION}.min.js`;
 let plotlySource: string | undefined;
@@ -71,10 +75,20 @@ interface CellView {
 }
 
 /** Renders the report HTML for a document and the record of its run. */
-export function renderReport(document: NotebookDocument, run: RunRecord, options: ReportOptions = {}): string {
+export function renderReport(
+  document: NotebookDocument,
+  run: RunRecord,
+  options: ReportOptions = {},
+): string {
   const notebookDir = path.dirname(document.path);
   const ctx: RenderContext = {
-    figures: 0, tables: 0, notebookDir, cell: 0, cellChecks: 0, cautionAnchors: cautionIndex(run).anchors, cautionsShown: new Set(),
+    figures: 0,
+    tables: 0,
+    notebookDir,
+    cell: 0,
+    cellChecks: 0,
+    cautionAnchors: cautionIndex(run).anchors,
+    cautionsShown: new Set(),
   };
   const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
   for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
@@ -92,9 +106,11 @@ export function renderReport(document: NotebookDocument, run: RunRecord, options
   if (methods) contentsEntries.push({ level: topLevel, text: "Methods", id: "methods" });
   contentsEntries.push({ level: topLevel, text: "Provenance", id: "run-record" });
   const hasFigures = /class="plot-figure"/.test(body);
-  const plotly = !hasFigures ? "" : options.assetsHref !== undefined
-    ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
-    : `<script>${plotlyScript().replace(/<\/script/gi, "<\\/script")}</script>`;
+  const plotly = !hasFigures
+    ? ""
+    : options.assetsHref !== undefined
+      ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
+      : `<script>${plotlyScript().replace(/<\/script/gi, "<\\/script")}</script>`;
 
   return `<!doctype html>
 <html lang="en">
@@ -130,8 +146,10 @@ ${options.extraBodyHtml ?? ""}
 /** Printed pages carry the report's title at the foot on the left and "page n of N" on the right (CSS @page margin boxes). */
 function pageMarginStyle(title: string): string {
   const box = "font-family: system-ui, sans-serif; font-size: 7.5pt; color: #5a6470;";
-  return `<style media="print">@page { @bottom-left { content: ${cssString(title)}; ${box} } ` +
-    `@bottom-right { content: "page " counter(page) " of " counter(pages); ${box} } }</style>`;
+  return (
+    `<style media="print">@page { @bottom-left { content: ${cssString(title)}; ${box} } ` +
+    `@bottom-right { content: "page " counter(page) " of " counter(pages); ${box} } }</style>`
+  );
 }
 
 /** The report's title: the front matter's, else the first h1 (taken out of the tokens), else the file name. */
@@ -169,30 +187,49 @@ function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: str
   if (fm.author) meta.push(["Author", escapeHtml(fm.author)]);
   if (run.batch) {
     const value = String(run.inputs[run.batch.input]);
-    meta.push(["Data file", `<code>${escapeHtml(value)}</code> <br><span class="meta-note">run ${run.batch.position} of ${run.batch.count} · <a href="index.html">all runs</a></span>`]);
+    meta.push([
+      "Data file",
+      `<code>${escapeHtml(value)}</code> <br><span class="meta-note">run ${run.batch.position} of ${run.batch.count} · <a href="index.html">all runs</a></span>`,
+    ]);
   }
   // A reproducible report carries no wall-clock value: only the date the notebook itself states.
   const date = fm.date ?? (run.reproducible ? undefined : run.startedAt.slice(0, 10));
   if (date) meta.push(["Date", escapeHtml(date)]);
   meta.push(["Made with", escapeHtml(`${run.tool.name} ${run.tool.version}`)]);
   const cells = ran === 1 ? "1 cell" : `${ran} cells`;
-  meta.push(["Run", escapeHtml(run.reproducible ? `${cells} (reproducible report)` : `${cells} in ${formatDuration(run.durationMs)}`)]);
+  meta.push([
+    "Run",
+    escapeHtml(
+      run.reproducible ? `${cells} (reproducible report)` : `${cells} in ${formatDuration(run.durationMs)}`,
+    ),
+  ]);
   const counts = countChecks(run);
   if (counts.passed + counts.failed > 0) {
-    const text = counts.failed === 0 ? `✓ all ${counts.passed} passed` : `✗ ${counts.failed} of ${counts.passed + counts.failed} failed`;
-    meta.push(["Acceptance checks", `<a href="#checks"${counts.failed ? ' class="meta-fail"' : ""}>${escapeHtml(text)}</a>`]);
+    const text =
+      counts.failed === 0
+        ? `✓ all ${counts.passed} passed`
+        : `✗ ${counts.failed} of ${counts.passed + counts.failed} failed`;
+    meta.push([
+      "Acceptance checks",
+      `<a href="#checks"${counts.failed ? ' class="meta-fail"' : ""}>${escapeHtml(text)}</a>`,
+    ]);
   }
   const cautions = cautionResults(run).length;
-  const notice = cautions === 0 ? "" :
-    `<p class="title-notice" role="note"><span class="notice-mark" aria-hidden="true">!</span> This report contains ${cautions === 1 ? "a caution" : `${cautions} cautions`} about the use of its results — <a href="#cautions">read ${cautions === 1 ? "it" : "them"} first</a>.</p>`;
+  const notice =
+    cautions === 0
+      ? ""
+      : `<p class="title-notice" role="note"><span class="notice-mark" aria-hidden="true">!</span> This report contains ${cautions === 1 ? "a caution" : `${cautions} cautions`} about the use of its results — <a href="#cautions">read ${cautions === 1 ? "it" : "them"} first</a>.</p>`;
   return `<header class="title-block"><h1>${escapeHtml(title)}</h1><dl class="meta">${meta
-    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${v}</dd></div>`).join("")}</dl>${notice}</header>`;
+    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${v}</dd></div>`)
+    .join("")}</dl>${notice}</header>`;
 }
 
 function renderContents(entries: Heading[]): string {
   if (entries.length < 3) return "";
   const min = Math.min(...entries.map((e) => e.level));
-  const items = entries.map((e) => `<li class="level-${e.level - min + 2}"><a href="#${e.id}">${escapeHtml(e.text)}</a></li>`).join("");
+  const items = entries
+    .map((e) => `<li class="level-${e.level - min + 2}"><a href="#${e.id}">${escapeHtml(e.text)}</a></li>`)
+    .join("");
   return `<nav class="contents" id="contents" aria-label="Contents"><h2>Contents</h2><ol${entries.length > 8 ? ' class="long"' : ""}>${items}</ol></nav>`;
 }
 
@@ -201,7 +238,8 @@ function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string 
   const status = view.run?.status ?? "not-run";
   const number = cell.index + 1;
   const lines = cell.code.split("\n").length;
-  const range = lines > 1 ? `lines ${cell.firstLine}–${cell.firstLine + lines - 1}` : `line ${cell.firstLine}`;
+  const range =
+    lines > 1 ? `lines ${cell.firstLine}–${cell.firstLine + lines - 1}` : `line ${cell.firstLine}`;
   const code = `<pre><code class="hljs language-ts">${highlight(cell.code, "typescript")}</code></pre>`;
   let source = "";
   if (status === "listing") {
@@ -211,20 +249,25 @@ function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string 
   }
   let notRun = "";
   if (status === "not-run") {
-    const failed = run.cells.filter((c) => c.status === "failed" && c.index < cell.index && !c.failureAllowed).map((c) => c.index + 1);
+    const failed = run.cells
+      .filter((c) => c.status === "failed" && c.index < cell.index && !c.failureAllowed)
+      .map((c) => c.index + 1);
     notRun = `<p class="not-run-label">Cell ${number} was not run${failed.length ? ` because ${describeCells(failed.slice(-1))} failed` : ""}.</p>`;
   }
   ctx.cell = cell.index;
   ctx.cellChecks = 0;
   const outputs = renderOutputs(withCaption(view.run?.outputs ?? [], cell.options.caption), ctx);
   return `<section class="cell cell-${status}${status === "not-run" ? " not-run" : ""}" id="cell-${number}" data-line="${cell.fenceLine}">${source}${notRun}${
-    outputs ? `<div class="cell-outputs">${outputs}</div>` : ""}</section>\n`;
+    outputs ? `<div class="cell-outputs">${outputs}</div>` : ""
+  }</section>\n`;
 }
 
 /** Gives the fence line's caption to the cell's first figure, table or swatch row that has no caption of its own. */
 function withCaption(outputs: readonly OutputRecord[], caption: string | undefined): readonly OutputRecord[] {
   if (!caption) return outputs;
-  const i = outputs.findIndex((o) => (o.kind === "figure" || o.kind === "table" || o.kind === "swatches") && !o.caption);
+  const i = outputs.findIndex(
+    (o) => (o.kind === "figure" || o.kind === "table" || o.kind === "swatches") && !o.caption,
+  );
   if (i < 0) return outputs;
-  return outputs.map((o, j) => (j === i ? { ...o, caption } as OutputRecord : o));
+  return outputs.map((o, j) => (j === i ? ({ ...o, caption } as OutputRecord) : o));
 }

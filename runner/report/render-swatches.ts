@@ -11,7 +11,8 @@ import { escapeHtml } from "./escape.ts";
 export const GAMUT_MARK = "◇";
 
 /** One item of the grid: a single swatch, or a reference and its sample. */
-type SwatchItem = { readonly single: SwatchRecord } | { readonly reference: SwatchRecord; readonly sample: SwatchRecord };
+type SwatchItem =
+  { readonly single: SwatchRecord } | { readonly reference: SwatchRecord; readonly sample: SwatchRecord };
 
 /** The gamut a swatch was made for (sRGB when the record does not say). */
 function displayOf(s: SwatchRecord): string {
@@ -43,9 +44,13 @@ export function swatchItems(swatches: readonly SwatchRecord[]): SwatchItem[] {
 export function renderSwatchFigure(record: SwatchesRecord, number: number): string {
   const items = swatchItems(record.swatches);
   const pairsOnly = items.length > 0 && items.every((item) => !("single" in item));
-  const html = items.map((item) => ("single" in item ? renderSingle(item.single) : renderPair(item.reference, item.sample))).join("");
-  return `<figure class="swatch-figure" id="figure-${number}"><ul class="swatches${pairsOnly ? " swatch-pairs" : ""}">${html}</ul>` +
-    `${renderLegend(record.swatches)}<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`;
+  const html = items
+    .map((item) => ("single" in item ? renderSingle(item.single) : renderPair(item.reference, item.sample)))
+    .join("");
+  return (
+    `<figure class="swatch-figure" id="figure-${number}"><ul class="swatches${pairsOnly ? " swatch-pairs" : ""}">${html}</ul>` +
+    `${renderLegend(record.swatches)}<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`
+  );
 }
 
 /** Classes of a patch: `out-of-gamut` outside sRGB (its hex is an approximation), `outside-display` marked. */
@@ -54,8 +59,10 @@ function gamutClasses(s: SwatchRecord): string {
 }
 
 function renderSingle(s: SwatchRecord): string {
-  return `<li class="swatch${gamutClasses(s)}">${chip(s)}` +
-    `<span class="swatch-label">${escapeHtml(s.label)}</span>${details(s)}</li>`;
+  return (
+    `<li class="swatch${gamutClasses(s)}">${chip(s)}` +
+    `<span class="swatch-label">${escapeHtml(s.label)}</span>${details(s)}</li>`
+  );
 }
 
 function renderPair(reference: SwatchRecord, sample: SwatchRecord): string {
@@ -64,7 +71,8 @@ function renderPair(reference: SwatchRecord, sample: SwatchRecord): string {
     `<div class="swatch pair-member${gamutClasses(s)}">${chip(s)}` +
     `<span class="swatch-label">${escapeHtml(memberLabel(s, name))}</span>${details(s)}</div>`;
   const difference = sample.pair!.deltaE00;
-  const under = difference === undefined ? "" : `<p class="pair-difference">ΔE00 = ${difference.toFixed(2)}</p>`;
+  const under =
+    difference === undefined ? "" : `<p class="pair-difference">ΔE00 = ${difference.toFixed(2)}</p>`;
   return `<li class="swatch-pair"><p class="pair-label">${escapeHtml(name)}</p><div class="pair-members">${member(reference)}${member(sample)}</div>${under}</li>`;
 }
 
@@ -92,11 +100,15 @@ function gamutWords(s: SwatchRecord): string {
   const note = s.note ?? "";
   const display = displayOf(s);
   // Beyond BT.2020 too (a spectral colour, a laser): no standard display gamut holds it.
-  const beyond = s.inGamut?.bt2020 === false && display !== "BT.2020" && !note.includes("outside BT.2020") ? "; outside BT.2020 too" : "";
+  const beyond =
+    s.inGamut?.bt2020 === false && display !== "BT.2020" && !note.includes("outside BT.2020")
+      ? "; outside BT.2020 too"
+      : "";
   if (outsideDisplay(s)) {
     const words = `outside ${display}`;
     // lib/plot's current swatches already say it in their note ("outside sRGB: shown …"): not twice.
-    if (note.includes(words)) return beyond ? `<span class="gamut-note">${escapeHtml(beyond.slice(2))}</span>` : "";
+    if (note.includes(words))
+      return beyond ? `<span class="gamut-note">${escapeHtml(beyond.slice(2))}</span>` : "";
     return `<span class="gamut-flag"><span aria-hidden="true">${GAMUT_MARK}</span> ${escapeHtml(words + beyond)}</span>`;
   }
   if (s.outOfGamut && !note.includes("outside sRGB")) {
@@ -111,7 +123,12 @@ function renderLegend(swatches: readonly SwatchRecord[]): string {
   const marked = swatches.filter(outsideDisplay);
   if (marked.length === 0) return "";
   const displays = [...new Set(marked.map(displayOf))];
-  const gamut = displays.length === 1 ? `the ${displays[0]} gamut` : `the display gamut it was made for (${displays.join(", ")})`;
-  return `<p class="swatch-legend"><span class="gamut-mark-key">${GAMUT_MARK}</span> marks a patch whose colour lies outside ${escapeHtml(gamut)}: ` +
-    `no such screen shows it exactly, so the patch is an approximation.</p>`;
+  const gamut =
+    displays.length === 1
+      ? `the ${displays[0]} gamut`
+      : `the display gamut it was made for (${displays.join(", ")})`;
+  return (
+    `<p class="swatch-legend"><span class="gamut-mark-key">${GAMUT_MARK}</span> marks a patch whose colour lies outside ${escapeHtml(gamut)}: ` +
+    `no such screen shows it exactly, so the patch is an approximation.</p>`
+  );
 }

@@ -29,15 +29,18 @@ export const failedCellsSection: SummarySection = ({ run, notebookDir }) => {
   const blocking = failed.filter((c) => !c.failureAllowed);
   const items = failed.map((c) => {
     const error = c.outputs.find((o): o is ErrorRecord => o.kind === "error");
-    const where = error?.location ? ` <span class="where">(${escapeHtml(displayLocation(error.location, notebookDir))})</span>` : "";
+    const where = error?.location
+      ? ` <span class="where">(${escapeHtml(displayLocation(error.location, notebookDir))})</span>`
+      : "";
     const allowed = c.failureAllowed ? ` <span class="allowed">failure allowed by may-fail</span>` : "";
     return `<li><a href="#cell-${c.index + 1}">Cell ${c.index + 1}</a>${where}: ${escapeHtml(error ? errorTitle(error) : "failed")}${allowed}</li>`;
   });
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
   const notRunText = notRun.length ? `<p>Not run because of the failure: ${describeCells(notRun)}.</p>` : "";
-  const heading = blocking.length === 0
-    ? `${failed.length === 1 ? "A cell" : `${failed.length} cells`} failed as allowed`
-    : `${blocking.length === 1 ? "A cell failed" : `${blocking.length} cells failed`}: results below are incomplete`;
+  const heading =
+    blocking.length === 0
+      ? `${failed.length === 1 ? "A cell" : `${failed.length} cells`} failed as allowed`
+      : `${blocking.length === 1 ? "A cell failed" : `${blocking.length} cells failed`}: results below are incomplete`;
   return `<div class="summary-part failures${blocking.length === 0 ? " allowed" : ""}"><h2>${heading}</h2><ul>${items.join("")}</ul>${notRunText}</div>`;
 };
 
@@ -54,17 +57,23 @@ export const checksSection: SummarySection = ({ run }) => {
   if (failed.length === 0) {
     return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${missing}</div>`;
   }
-  const items = failed.map((c) =>
-    `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`);
+  const items = failed.map(
+    (c) =>
+      `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`,
+  );
   const passed = checks.length - failed.length;
-  return `<div class="summary-part checks failed" id="checks"><h2><span class="check-mark" aria-hidden="true">✗</span> ${failed.length} of ${total} failed</h2>` +
-    `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${missing}</div>`;
+  return (
+    `<div class="summary-part checks failed" id="checks"><h2><span class="check-mark" aria-hidden="true">✗</span> ${failed.length} of ${total} failed</h2>` +
+    `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${missing}</div>`
+  );
 };
 
 /** Every distinct caution raised by a cell or carried by a result, repeated here so no reader misses one. */
 export const cautionsSection: SummarySection = ({ run }) => {
-  const items = cautionResults(run).map((c) =>
-    `<li>${c.record.title === "Caution" ? "" : `<strong>${escapeHtml(c.record.title)}.</strong> `}${escapeHtml(c.record.text)} <a href="#${c.anchor}">(cell ${c.cell + 1})</a></li>`);
+  const items = cautionResults(run).map(
+    (c) =>
+      `<li>${c.record.title === "Caution" ? "" : `<strong>${escapeHtml(c.record.title)}.</strong> `}${escapeHtml(c.record.text)} <a href="#${c.anchor}">(cell ${c.cell + 1})</a></li>`,
+  );
   if (items.length === 0) return undefined;
   return `<div class="summary-part cautions" id="cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
 };
@@ -76,15 +85,21 @@ export const runEventsSection: SummarySection = ({ run }) => {
 };
 
 /** The summary sections, in the order they appear. */
-export const SUMMARY_SECTIONS: SummarySection[] = [failedCellsSection, checksSection, cautionsSection, runEventsSection];
+export const SUMMARY_SECTIONS: SummarySection[] = [
+  failedCellsSection,
+  checksSection,
+  cautionsSection,
+  runEventsSection,
+];
 
 /** The summary block: a one-line all-clear for the cells when none failed, then every section with something to say. */
 export function renderSummary(ctx: SummaryContext): string {
   const parts = SUMMARY_SECTIONS.map((section) => section(ctx)).filter((p): p is string => p !== undefined);
   const failed = ctx.run.cells.some((c) => c.status === "failed");
   const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
-  const clear = failed ? "" :
-    `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
+  const clear = failed
+    ? ""
+    : `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
   if (parts.length === 0) return clear;
   return `<section class="summary" aria-label="Summary">${clear}${parts.join("")}</section>`;
 }

@@ -41,7 +41,13 @@ function timeMs(repeats: number, f: () => number): { ms: number; check: number }
   return { ms: median(samples), check };
 }
 
-function compare(name: string, ours: number, reference: number, referenceName: string, referenceNote?: string): BenchResult[] {
+function compare(
+  name: string,
+  ours: number,
+  reference: number,
+  referenceName: string,
+  referenceNote?: string,
+): BenchResult[] {
   const ratio = ours / reference;
   return [
     { name: `${name}: tristim`, value: ours, unit: "ms" },
@@ -52,7 +58,10 @@ function compare(name: string, ours: number, reference: number, referenceName: s
       unit: "",
       target: "≤ 1",
       met: ratio <= 1,
-      note: ratio < 1 ? `tristim ${(1 / ratio).toFixed(ratio < 0.1 ? 0 : 2)}× as fast` : `tristim ${ratio.toFixed(2)}× as slow`,
+      note:
+        ratio < 1
+          ? `tristim ${(1 / ratio).toFixed(ratio < 0.1 ? 0 : 2)}× as fast`
+          : `tristim ${ratio.toFixed(2)}× as slow`,
     },
   ];
 }
@@ -64,10 +73,18 @@ const bench: Bench = {
     // Invented smooth reflectances: a base level plus two broad bands, 95 samples at 5 nm.
     const wl = Array.from({ length: 95 }, (_, i) => 360 + 5 * i);
     const reflectances = Array.from({ length: SPECTRA }, () => {
-      const base = 0.05 + 0.3 * rnd(), a1 = 0.5 * rnd(), m1 = 400 + 300 * rnd(), a2 = 0.3 * rnd(), m2 = 450 + 300 * rnd();
-      return wl.map((w) => Math.min(1, base + a1 * Math.exp(-(((w - m1) / 40) ** 2)) + a2 * Math.exp(-(((w - m2) / 70) ** 2))));
+      const base = 0.05 + 0.3 * rnd(),
+        a1 = 0.5 * rnd(),
+        m1 = 400 + 300 * rnd(),
+        a2 = 0.3 * rnd(),
+        m2 = 450 + 300 * rnd();
+      return wl.map((w) =>
+        Math.min(1, base + a1 * Math.exp(-(((w - m1) / 40) ** 2)) + a2 * Math.exp(-(((w - m2) / 70) ** 2))),
+      );
     });
-    const ourSpectra = reflectances.map((r, k) => spectrumOnGrid(360, 5, r, { name: `invented ${k}`, quantity: "reflectance" }));
+    const ourSpectra = reflectances.map((r, k) =>
+      spectrumOnGrid(360, 5, r, { name: `invented ${k}`, quantity: "reflectance" }),
+    );
     const shape = new Shape(360, 830, 5);
     const theirSpectra = reflectances.map((r) => new SpectralDistribution({ shape, samples: r }));
 
@@ -83,10 +100,15 @@ const bench: Bench = {
     for (const sp of subset) theirSum += spdToXyz(sp.multiply(illuminants.D65))[1]! * 100;
     const theirsMs = ((performance.now() - t0) * SPECTRA) / REFERENCE_SPECTRA;
     let ourSubsetSum = 0;
-    for (const sp of ourSpectra.slice(0, REFERENCE_SPECTRA)) ourSubsetSum += tristimulus(sp, { illuminant: "D65", interval: 5 }).Y;
+    for (const sp of ourSpectra.slice(0, REFERENCE_SPECTRA))
+      ourSubsetSum += tristimulus(sp, { illuminant: "D65", interval: 5 }).Y;
     const agreement = Math.abs(ourSubsetSum - theirSum) / REFERENCE_SPECTRA;
 
-    const labs: Lab[] = Array.from({ length: 2 * PAIRS }, () => ({ L: 100 * rnd(), a: 200 * rnd() - 100, b: 200 * rnd() - 100 }));
+    const labs: Lab[] = Array.from({ length: 2 * PAIRS }, () => ({
+      L: 100 * rnd(),
+      a: 200 * rnd() - 100,
+      b: 200 * rnd() - 100,
+    }));
     const culoriLabs = labs.map((c) => ({ mode: "lab65" as const, l: c.L, a: c.a, b: c.b }));
     const culoriDe = differenceCiede2000();
     const de = timeMs(3, () => {
@@ -107,11 +129,23 @@ const bench: Bench = {
         ours.ms,
         theirsMs,
         "spectral-color",
-        REFERENCE_SPECTRA < SPECTRA ? `measured on ${REFERENCE_SPECTRA.toLocaleString("en")} spectra, scaled ×${SPECTRA / REFERENCE_SPECTRA}` : undefined,
+        REFERENCE_SPECTRA < SPECTRA
+          ? `measured on ${REFERENCE_SPECTRA.toLocaleString("en")} spectra, scaled ×${SPECTRA / REFERENCE_SPECTRA}`
+          : undefined,
       ),
-      { name: "  mean |ΔY| between the two", value: agreement, unit: "", note: `Y = 100 scale: ${agreement.toExponential(1)}` },
+      {
+        name: "  mean |ΔY| between the two",
+        value: agreement,
+        unit: "",
+        note: `Y = 100 scale: ${agreement.toExponential(1)}`,
+      },
       ...compare(`ΔE00, ${PAIRS.toLocaleString("en")} pairs`, de.ms, deRef.ms, "culori"),
-      { name: "  mean |ΔE00 difference| between the two", value: deAgreement, unit: "", note: deAgreement.toExponential(1) },
+      {
+        name: "  mean |ΔE00 difference| between the two",
+        value: deAgreement,
+        unit: "",
+        note: deAgreement.toExponential(1),
+      },
     ];
   },
 };

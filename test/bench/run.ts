@@ -9,13 +9,16 @@ import type { Bench, BenchResult } from "./bench.ts";
 
 const folder = path.dirname(fileURLToPath(import.meta.url));
 const filters = process.argv.slice(2);
-const modules = fs.readdirSync(folder)
+const modules = fs
+  .readdirSync(folder)
   .filter((f) => f.endsWith(".bench.ts"))
   .filter((f) => filters.length === 0 || filters.some((w) => f.includes(w)))
   .sort();
 
 if (modules.length === 0) {
-  console.error(`no benchmark modules${filters.length ? ` matching ${filters.join(", ")}` : ""} in ${folder}`);
+  console.error(
+    `no benchmark modules${filters.length ? ` matching ${filters.join(", ")}` : ""} in ${folder}`,
+  );
   process.exit(2);
 }
 

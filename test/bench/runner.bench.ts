@@ -73,10 +73,19 @@ const bench: Bench = {
     fs.writeFileSync(
       notebook,
       "---\ntitle: Runner benchmark (invented workload)\n---\n\n" +
-        cells.map((c, i) => `## Step ${i + 1}\n\nSome prose about step ${i + 1}.\n\n\`\`\`ts\n${c}\n\`\`\`\n`).join("\n"),
+        cells
+          .map((c, i) => `## Step ${i + 1}\n\nSome prose about step ${i + 1}.\n\n\`\`\`ts\n${c}\n\`\`\`\n`)
+          .join("\n"),
     );
     fs.writeFileSync(path.join(folder, "plain.ts"), `${cells.join("\n")}\nexport {};\n`);
-    await esbuild.build({ entryPoints: [path.join(folder, "plain.ts")], bundle: true, platform: "node", format: "esm", outfile: path.join(folder, "plain.mjs"), logLevel: "silent" });
+    await esbuild.build({
+      entryPoints: [path.join(folder, "plain.ts")],
+      bundle: true,
+      platform: "node",
+      format: "esm",
+      outfile: path.join(folder, "plain.mjs"),
+      logLevel: "silent",
+    });
 
     // Warm-up: the first runs fill tsx's and tristim's caches, as on any machine after the first use.
     timeCommand([BIN, "run", notebook, "--quiet"], folder);
@@ -104,13 +113,32 @@ const bench: Bench = {
 
     // Prose-only re-render: read and parse the edited notebook, see that the cells are unchanged, move the records,
     // render and write the report atomically. Give the report a figure so the embedded Plotly is part of the cost.
-    const withFigure = { ...run, cells: run.cells.map((c, i) => (i === 1 ? { ...c, outputs: [...c.outputs, { kind: "figure" as const, spec: { data: [{ x: [1, 2], y: [2, 1] }] } }] } : c)) };
+    const withFigure = {
+      ...run,
+      cells: run.cells.map((c, i) =>
+        i === 1
+          ? {
+              ...c,
+              outputs: [
+                ...c.outputs,
+                { kind: "figure" as const, spec: { data: [{ x: [1, 2], y: [2, 1] }] } },
+              ],
+            }
+          : c,
+      ),
+    };
     const rerender: number[] = [];
     for (let i = 0; i < 10; i++) {
-      fs.writeFileSync(notebook, fs.readFileSync(notebook, "utf8").replace(/Some prose about step 1\.[^\n]*/, `Some prose about step 1. Edit ${i}.`));
+      fs.writeFileSync(
+        notebook,
+        fs
+          .readFileSync(notebook, "utf8")
+          .replace(/Some prose about step 1\.[^\n]*/, `Some prose about step 1. Edit ${i}.`),
+      );
       const started = performance.now();
       const edited = readNotebook(notebook);
-      if (runSignature(edited, run.inputs, run.timeLimitMs, run.keepGoing) !== run.signature) throw new Error("the prose edit changed the signature");
+      if (runSignature(edited, run.inputs, run.timeLimitMs, run.keepGoing) !== run.signature)
+        throw new Error("the prose edit changed the signature");
       writeReport(edited, moveRecordsToEdit(withFigure, document, edited), path.join(folder, "bench.html"));
       rerender.push(performance.now() - started);
     }
@@ -121,9 +149,25 @@ const bench: Bench = {
       { name: "plain bundled script (node)", value: plainMs, unit: "ms" },
       { name: "tristim run (20 cells, report)", value: runnerMs, unit: "ms" },
       { name: "ratio runner / plain script", value: ratio, unit: "×", target: "≤ 1.5", met: ratio <= 1.5 },
-      { name: "runner in-process (no node/tsx start)", value: inProcessMs, unit: "ms", note: "run + render, warm process" },
-      { name: "fixed overhead of the command", value: runnerMs - plainMs, unit: "ms", note: "node start, loading the runner, esbuild, cell process, report" },
-      { name: "prose-only re-render", value: median(rerender), unit: "ms", target: "< 100", met: median(rerender) < 100 },
+      {
+        name: "runner in-process (no node/tsx start)",
+        value: inProcessMs,
+        unit: "ms",
+        note: "run + render, warm process",
+      },
+      {
+        name: "fixed overhead of the command",
+        value: runnerMs - plainMs,
+        unit: "ms",
+        note: "node start, loading the runner, esbuild, cell process, report",
+      },
+      {
+        name: "prose-only re-render",
+        value: median(rerender),
+        unit: "ms",
+        target: "< 100",
+        met: median(rerender) < 100,
+      },
     ];
   },
 };

@@ -6,7 +6,11 @@ import { adapt as colorjsAdapt } from "colorjs.io/src/CATs.js";
 import { converter } from "culori";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { adaptationMatrix, adaptXYZ, type AdaptationTransform } from "../../lib/adaptation/chromatic-adaptation.ts";
+import {
+  adaptationMatrix,
+  adaptXYZ,
+  type AdaptationTransform,
+} from "../../lib/adaptation/chromatic-adaptation.ts";
 import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 
 const D65 = { X: 0.3127 / 0.329, Y: 1, Z: (1 - 0.3127 - 0.329) / 0.329 };
@@ -20,13 +24,20 @@ const TRANSFORMS: [AdaptationTransform, string][] = [
 ];
 
 describe("chromatic adaptation", () => {
-  it.each(TRANSFORMS)("%s: the matrix equals colorjs.io's for D65 → D50, D50 → D65 and D65 → A", (ours, theirs) => {
-    for (const [from, to] of [[D65, D50], [D50, D65], [D65, A]] as const) {
-      const m = adaptationMatrix(from, to, ours);
-      const c = colorjsAdapt(asArray(from), asArray(to), theirs);
-      for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) expect(m[i]![j]!).toBeCloseTo(c[i]![j]!, 12);
-    }
-  });
+  it.each(TRANSFORMS)(
+    "%s: the matrix equals colorjs.io's for D65 → D50, D50 → D65 and D65 → A",
+    (ours, theirs) => {
+      for (const [from, to] of [
+        [D65, D50],
+        [D50, D65],
+        [D65, A],
+      ] as const) {
+        const m = adaptationMatrix(from, to, ours);
+        const c = colorjsAdapt(asArray(from), asArray(to), theirs);
+        for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) expect(m[i]![j]!).toBeCloseTo(c[i]![j]!, 12);
+      }
+    },
+  );
 
   it("von Kries: equals colorjs.io's 'von Kries' (whose HPE matrix is normalised to D65, which cancels out)", () => {
     const m = adaptationMatrix(D65, A, "von kries");
@@ -37,13 +48,18 @@ describe("chromatic adaptation", () => {
   it("Bradford D65 → D50 equals culori's xyz65 → xyz50 conversion", () => {
     const toD50 = converter("xyz50");
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (x, y, z) => {
-        const ours = adaptXYZ({ X: x, Y: y, Z: z }, D65, D50);
-        const theirs = toD50({ mode: "xyz65", x, y, z });
-        expect(ours.X).toBeCloseTo(theirs.x, 6);
-        expect(ours.Y).toBeCloseTo(theirs.y, 6);
-        expect(ours.Z).toBeCloseTo(theirs.z, 6);
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (x, y, z) => {
+          const ours = adaptXYZ({ X: x, Y: y, Z: z }, D65, D50);
+          const theirs = toD50({ mode: "xyz65", x, y, z });
+          expect(ours.X).toBeCloseTo(theirs.x, 6);
+          expect(ours.Y).toBeCloseTo(theirs.y, 6);
+          expect(ours.Z).toBeCloseTo(theirs.z, 6);
+        },
+      ),
       { numRuns: 100 },
     );
   });
@@ -60,7 +76,11 @@ describe("chromatic adaptation", () => {
   it("there and back is the identity (property, every transform, any degree of adaptation)", () => {
     fc.assert(
       fc.property(
-        fc.record({ X: fc.double({ min: 0, max: 120, noNaN: true }), Y: fc.double({ min: 0, max: 120, noNaN: true }), Z: fc.double({ min: 0, max: 120, noNaN: true }) }),
+        fc.record({
+          X: fc.double({ min: 0, max: 120, noNaN: true }),
+          Y: fc.double({ min: 0, max: 120, noNaN: true }),
+          Z: fc.double({ min: 0, max: 120, noNaN: true }),
+        }),
         fc.constantFrom<AdaptationTransform>("bradford", "cat02", "cat16", "von kries"),
         (xyz, t) => {
           const back = adaptXYZ(adaptXYZ(xyz, D65, A, t), A, D65, t);
@@ -91,7 +111,9 @@ describe("chromatic adaptation", () => {
 
   it("refuses bad input, naming the value", () => {
     expect(() => adaptXYZ({ X: NaN, Y: 1, Z: 1 }, D65, D50)).toThrow(/NaN/);
-    expect(() => adaptXYZ({ X: 1, Y: 1, Z: 1 }, { X: 0, Y: 1, Z: 1 }, D50)).toThrow(/source white \(0, 1, 1\)/);
+    expect(() => adaptXYZ({ X: 1, Y: 1, Z: 1 }, { X: 0, Y: 1, Z: 1 }, D50)).toThrow(
+      /source white \(0, 1, 1\)/,
+    );
     expect(() => adaptXYZ({ X: 1, Y: 1, Z: 1 }, D65, { X: 1, Y: Infinity, Z: 1 })).toThrow(/Infinity/);
     expect(() => adaptXYZ({ X: 1, Y: 1, Z: 1 }, D65, D50, "xyz scaling" as never)).toThrow(/xyz scaling/);
     expect(() => adaptXYZ({ X: 1, Y: 1, Z: 1 }, D65, D50, "cat02", { degree: 1.5 })).toThrow(/1.5/);

@@ -6,15 +6,39 @@ import Color from "colorjs.io";
 import { converter } from "culori";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { chromaticityXy, fromXyY, toXyY, uv1960FromXy, uvPrimeFromXy, uvPrimeFromXYZ, xyFromUv1960, xyFromUvPrime } from "../../lib/colorimetry/chromaticity.ts";
+import {
+  chromaticityXy,
+  fromXyY,
+  toXyY,
+  uv1960FromXy,
+  uvPrimeFromXy,
+  uvPrimeFromXYZ,
+  xyFromUv1960,
+  xyFromUvPrime,
+} from "../../lib/colorimetry/chromaticity.ts";
 import { labFromLch, labFromXYZ, lchFromLab, xyzFromLab } from "../../lib/colorimetry/cielab.ts";
-import { lchFromLuv, luvFromLch, luvFromXYZ, saturationUv, xyzFromLuv } from "../../lib/colorimetry/cieluv.ts";
+import {
+  lchFromLuv,
+  luvFromLch,
+  luvFromXYZ,
+  saturationUv,
+  xyzFromLuv,
+} from "../../lib/colorimetry/cieluv.ts";
 import { uvwFromXYZ } from "../../lib/colorimetry/cie-uvw.ts";
 
 const D65 = { X: (0.3127 / 0.329) * 100, Y: 100, Z: ((1 - 0.3127 - 0.329) / 0.329) * 100 }; // colorjs.io's D65 white
-const xyzArb = fc.record({ X: fc.double({ min: 0, max: 110, noNaN: true }), Y: fc.double({ min: 0, max: 110, noNaN: true }), Z: fc.double({ min: 0, max: 120, noNaN: true }) });
-const positiveXyz = fc.record({ X: fc.double({ min: 0.01, max: 110, noNaN: true }), Y: fc.double({ min: 0.01, max: 110, noNaN: true }), Z: fc.double({ min: 0.01, max: 120, noNaN: true }) });
-const close = (a: number, b: number, tol = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(tol * Math.max(1, Math.abs(b)));
+const xyzArb = fc.record({
+  X: fc.double({ min: 0, max: 110, noNaN: true }),
+  Y: fc.double({ min: 0, max: 110, noNaN: true }),
+  Z: fc.double({ min: 0, max: 120, noNaN: true }),
+});
+const positiveXyz = fc.record({
+  X: fc.double({ min: 0.01, max: 110, noNaN: true }),
+  Y: fc.double({ min: 0.01, max: 110, noNaN: true }),
+  Z: fc.double({ min: 0.01, max: 120, noNaN: true }),
+});
+const close = (a: number, b: number, tol = 1e-9) =>
+  expect(Math.abs(a - b)).toBeLessThanOrEqual(tol * Math.max(1, Math.abs(b)));
 
 describe("CIELAB and LCh", () => {
   it("the reference white is L* = 100, a* = b* = 0 and black is L* = 0 (CIE 015:2018 §8.2.1)", () => {
@@ -24,7 +48,11 @@ describe("CIELAB and LCh", () => {
     close(w.b, 0);
     expect(labFromXYZ({ X: 0, Y: 0, Z: 0 }, D65).L).toBe(0);
     // L* = 50 at Y/Yn = ((50 + 16)/116)³ = 0.18420 (CIE 015:2018 eq. 8.3)
-    close(labFromXYZ({ X: 18.42 * 0.95047, Y: 18.42, Z: 18.42 * 1.08883 }, { X: 95.047, Y: 100, Z: 108.883 }).L, 50, 1e-4);
+    close(
+      labFromXYZ({ X: 18.42 * 0.95047, Y: 18.42, Z: 18.42 * 1.08883 }, { X: 95.047, Y: 100, Z: 108.883 }).L,
+      50,
+      1e-4,
+    );
   });
 
   it("agrees with colorjs.io lab-d65 and culori lab65", () => {
@@ -32,7 +60,8 @@ describe("CIELAB and LCh", () => {
     fc.assert(
       fc.property(xyzArb, (xyz) => {
         const ours = labFromXYZ(xyz, D65);
-        const [L, a, b] = new Color("xyz-d65", [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]).to("lab-d65").coords as number[];
+        const [L, a, b] = new Color("xyz-d65", [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]).to("lab-d65")
+          .coords as number[];
         close(ours.L, L!, 1e-9);
         close(ours.a, a!, 1e-9);
         close(ours.b, b!, 1e-9);
@@ -75,7 +104,8 @@ describe("CIELUV", () => {
     fc.assert(
       fc.property(positiveXyz, (xyz) => {
         const ours = luvFromXYZ(xyz, D65);
-        const [L, u, v] = new Color("xyz-d65", [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]).to("luv").coords as number[];
+        const [L, u, v] = new Color("xyz-d65", [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]).to("luv")
+          .coords as number[];
         close(ours.L, L!, 1e-9);
         close(ours.u, u!, 1e-8);
         close(ours.v, v!, 1e-8);
@@ -146,7 +176,8 @@ describe("CIE 1964 U*V*W*", () => {
   it("U*, V* scale with 13·W* times the 1960 uv offset (definition, CIE 13.3-1995 eqs. 6–8)", () => {
     const c = { X: 20, Y: 30, Z: 10 };
     const w = uvwFromXYZ(c, D65);
-    const p = uv1960FromXy(chromaticityXy(c)), n = uv1960FromXy(chromaticityXy(D65));
+    const p = uv1960FromXy(chromaticityXy(c)),
+      n = uv1960FromXy(chromaticityXy(D65));
     close(w.U, 13 * (25 * Math.cbrt(30) - 17) * (p.u - n.u), 1e-12);
     close(w.V, 13 * (25 * Math.cbrt(30) - 17) * (p.v - n.v), 1e-12);
     expect(() => uvwFromXYZ({ X: 1, Y: NaN, Z: 1 }, D65)).toThrow(/NaN/);

@@ -12,51 +12,62 @@ import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data
 const D65 = { x: 0.3127, y: 0.329 };
 const E = { x: 1 / 3, y: 1 / 3 };
 
-describe.skipIf(!HAVE_REFERENCE)("dominant wavelength against the CIE colour-matching tables " + (HAVE_REFERENCE ? "" : NO_REFERENCE), () => {
-  const table = HAVE_REFERENCE ? readReferenceCsv("cie_1931_2deg_xyz_1nm.csv") : undefined;
-  const locusXy = (nm: number) => {
-    const i = table!.column("wavelength_nm").indexOf(nm);
-    const [x, y, z] = [table!.column("x_bar")[i]!, table!.column("y_bar")[i]!, table!.column("z_bar")[i]!];
-    return { x: x / (x + y + z), y: y / (x + y + z) };
-  };
+describe.skipIf(!HAVE_REFERENCE)(
+  "dominant wavelength against the CIE colour-matching tables " + (HAVE_REFERENCE ? "" : NO_REFERENCE),
+  () => {
+    const table = HAVE_REFERENCE ? readReferenceCsv("cie_1931_2deg_xyz_1nm.csv") : undefined;
+    const locusXy = (nm: number) => {
+      const i = table!.column("wavelength_nm").indexOf(nm);
+      const [x, y, z] = [table!.column("x_bar")[i]!, table!.column("y_bar")[i]!, table!.column("z_bar")[i]!];
+      return { x: x / (x + y + z), y: y / (x + y + z) };
+    };
 
-  it.each([420, 450, 470, 490, 500, 520, 540, 560, 580, 600, 620, 650, 680])("a spectral colour at %i nm (CIE 1931 table) has that dominant wavelength and purity 1", (nm) => {
-    const r = dominantWavelength(locusXy(nm), D65);
-    expect(r.complementary).toBe(false);
-    expect(Math.abs(r.wavelength - nm)).toBeLessThan(1e-6);
-    expect(r.purity).toBeCloseTo(1, 9);
-  });
-
-  it("purity is the fraction of the way from white to the locus (CIE 015:2018 eq. 9.1), for any fraction (property)", () => {
-    fc.assert(
-      fc.property(fc.integer({ min: 430, max: 690 }), fc.double({ min: 0.02, max: 1, noNaN: true }), (nm, f) => {
-        const p = locusXy(nm);
-        const r = dominantWavelength({ x: E.x + f * (p.x - E.x), y: E.y + f * (p.y - E.y) }, E);
-        expect(r.wavelength).toBeCloseTo(nm, 6);
-        expect(r.purity).toBeCloseTo(f, 9);
-      }),
-      { numRuns: 100 },
+    it.each([420, 450, 470, 490, 500, 520, 540, 560, 580, 600, 620, 650, 680])(
+      "a spectral colour at %i nm (CIE 1931 table) has that dominant wavelength and purity 1",
+      (nm) => {
+        const r = dominantWavelength(locusXy(nm), D65);
+        expect(r.complementary).toBe(false);
+        expect(Math.abs(r.wavelength - nm)).toBeLessThan(1e-6);
+        expect(r.purity).toBeCloseTo(1, 9);
+      },
     );
-  });
 
-  it("purples get a complementary wavelength: white lies between the colour and the locus point at λc", () => {
-    // the purple line joins the two ends of the locus (360 nm and where the 1931 locus stops turning, ≈ 699 nm)
-    const locus = spectrumLocus("2°");
-    const red = locusXy(locus.at(-1)!.wavelength), violet = locusXy(locus[0]!.wavelength);
-    const purple = { x: (red.x + violet.x) / 2, y: (red.y + violet.y) / 2 };
-    const sample = { x: D65.x + 0.6 * (purple.x - D65.x), y: D65.y + 0.6 * (purple.y - D65.y) };
-    const r = dominantWavelength(sample, D65);
-    expect(r.complementary).toBe(true);
-    expect(r.wavelength).toBeGreaterThan(490);
-    expect(r.wavelength).toBeLessThan(570);
-    const c = locusXy(Math.round(r.wavelength));
-    // collinear within the 1 nm rounding of λc: the cross product of (c − white) and (sample − white) is small
-    const cross = (c.x - D65.x) * (sample.y - D65.y) - (c.y - D65.y) * (sample.x - D65.x);
-    expect(Math.abs(cross)).toBeLessThan(2e-3);
-    expect((c.x - D65.x) * (sample.x - D65.x) + (c.y - D65.y) * (sample.y - D65.y)).toBeLessThan(0); // opposite sides of white
-    expect(r.purity).toBeCloseTo(0.6, 9); // 60 % of the way to the purple line
-  });
-});
+    it("purity is the fraction of the way from white to the locus (CIE 015:2018 eq. 9.1), for any fraction (property)", () => {
+      fc.assert(
+        fc.property(
+          fc.integer({ min: 430, max: 690 }),
+          fc.double({ min: 0.02, max: 1, noNaN: true }),
+          (nm, f) => {
+            const p = locusXy(nm);
+            const r = dominantWavelength({ x: E.x + f * (p.x - E.x), y: E.y + f * (p.y - E.y) }, E);
+            expect(r.wavelength).toBeCloseTo(nm, 6);
+            expect(r.purity).toBeCloseTo(f, 9);
+          },
+        ),
+        { numRuns: 100 },
+      );
+    });
+
+    it("purples get a complementary wavelength: white lies between the colour and the locus point at λc", () => {
+      // the purple line joins the two ends of the locus (360 nm and where the 1931 locus stops turning, ≈ 699 nm)
+      const locus = spectrumLocus("2°");
+      const red = locusXy(locus.at(-1)!.wavelength),
+        violet = locusXy(locus[0]!.wavelength);
+      const purple = { x: (red.x + violet.x) / 2, y: (red.y + violet.y) / 2 };
+      const sample = { x: D65.x + 0.6 * (purple.x - D65.x), y: D65.y + 0.6 * (purple.y - D65.y) };
+      const r = dominantWavelength(sample, D65);
+      expect(r.complementary).toBe(true);
+      expect(r.wavelength).toBeGreaterThan(490);
+      expect(r.wavelength).toBeLessThan(570);
+      const c = locusXy(Math.round(r.wavelength));
+      // collinear within the 1 nm rounding of λc: the cross product of (c − white) and (sample − white) is small
+      const cross = (c.x - D65.x) * (sample.y - D65.y) - (c.y - D65.y) * (sample.x - D65.x);
+      expect(Math.abs(cross)).toBeLessThan(2e-3);
+      expect((c.x - D65.x) * (sample.x - D65.x) + (c.y - D65.y) * (sample.y - D65.y)).toBeLessThan(0); // opposite sides of white
+      expect(r.purity).toBeCloseTo(0.6, 9); // 60 % of the way to the purple line
+    });
+  },
+);
 
 describe("spectrum locus and dominant wavelength: general", () => {
   it("the locus stops where it stops turning: about 700 nm for both observers", () => {

@@ -6,7 +6,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { uvPrimeFromXy } from "../../lib/colorimetry/chromaticity.ts";
-import { gamutArea, gamutAreaRatio, gamutCoverage, gamutIntersectionArea } from "../../lib/gamut/gamut-area.ts";
+import {
+  gamutArea,
+  gamutAreaRatio,
+  gamutCoverage,
+  gamutIntersectionArea,
+} from "../../lib/gamut/gamut-area.ts";
 import { rgbSpace } from "../../lib/rgb/rgb-space.ts";
 
 describe("gamut area and coverage", () => {
@@ -26,13 +31,27 @@ describe("gamut area and coverage", () => {
   });
 
   it("u′v′ areas use the transformed primaries", () => {
-    const tri = [rgbSpace("sRGB").primaries.r, rgbSpace("sRGB").primaries.g, rgbSpace("sRGB").primaries.b].map(uvPrimeFromXy);
-    const hand = Math.abs((tri[0]!.u * (tri[1]!.v - tri[2]!.v) + tri[1]!.u * (tri[2]!.v - tri[0]!.v) + tri[2]!.u * (tri[0]!.v - tri[1]!.v)) / 2);
+    const tri = [
+      rgbSpace("sRGB").primaries.r,
+      rgbSpace("sRGB").primaries.g,
+      rgbSpace("sRGB").primaries.b,
+    ].map(uvPrimeFromXy);
+    const hand = Math.abs(
+      (tri[0]!.u * (tri[1]!.v - tri[2]!.v) +
+        tri[1]!.u * (tri[2]!.v - tri[0]!.v) +
+        tri[2]!.u * (tri[0]!.v - tri[1]!.v)) /
+        2,
+    );
     expect(gamutArea(rgbSpace("sRGB"), "u′v′")).toBeCloseTo(hand, 14);
   });
 
   it("partial overlap of two squares offset by half a side: coverage 50 % (hand computation)", () => {
-    const a = [{ x: 0.1, y: 0.1 }, { x: 0.3, y: 0.1 }, { x: 0.3, y: 0.3 }, { x: 0.1, y: 0.3 }];
+    const a = [
+      { x: 0.1, y: 0.1 },
+      { x: 0.3, y: 0.1 },
+      { x: 0.3, y: 0.3 },
+      { x: 0.1, y: 0.3 },
+    ];
     const b = a.map((p) => ({ x: p.x + 0.1, y: p.y }));
     expect(gamutIntersectionArea(a, b)).toBeCloseTo(0.02, 12);
     expect(gamutCoverage(a, b)).toBeCloseTo(50, 9);
@@ -41,22 +60,31 @@ describe("gamut area and coverage", () => {
   });
 
   it("intersection area agrees with counting grid points inside both triangles (independent estimate, property)", () => {
-    const pt = fc.record({ x: fc.double({ min: 0.05, max: 0.7, noNaN: true }), y: fc.double({ min: 0.05, max: 0.8, noNaN: true }) });
+    const pt = fc.record({
+      x: fc.double({ min: 0.05, max: 0.7, noNaN: true }),
+      y: fc.double({ min: 0.05, max: 0.8, noNaN: true }),
+    });
     const inside = (p: { x: number; y: number }, t: { x: number; y: number }[]) => {
-      const s = (a: { x: number; y: number }, b: { x: number; y: number }) => (b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x);
+      const s = (a: { x: number; y: number }, b: { x: number; y: number }) =>
+        (b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x);
       const d = [s(t[0]!, t[1]!), s(t[1]!, t[2]!), s(t[2]!, t[0]!)];
       return d.every((v) => v >= 0) || d.every((v) => v <= 0);
     };
     fc.assert(
       fc.property(fc.tuple(pt, pt, pt), fc.tuple(pt, pt, pt), (t1, t2) => {
-        const area = (t: { x: number; y: number }[]) => Math.abs((t[0]!.x * (t[1]!.y - t[2]!.y) + t[1]!.x * (t[2]!.y - t[0]!.y) + t[2]!.x * (t[0]!.y - t[1]!.y)) / 2);
+        const area = (t: { x: number; y: number }[]) =>
+          Math.abs(
+            (t[0]!.x * (t[1]!.y - t[2]!.y) + t[1]!.x * (t[2]!.y - t[0]!.y) + t[2]!.x * (t[0]!.y - t[1]!.y)) /
+              2,
+          );
         if (area(t1) < 1e-3 || area(t2) < 1e-3) return;
         const n = 300;
         let count = 0;
-        for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
-          const p = { x: 0.05 + (0.65 * (i + 0.5)) / n, y: 0.05 + (0.75 * (j + 0.5)) / n };
-          if (inside(p, t1) && inside(p, t2)) count++;
-        }
+        for (let i = 0; i < n; i++)
+          for (let j = 0; j < n; j++) {
+            const p = { x: 0.05 + (0.65 * (i + 0.5)) / n, y: 0.05 + (0.75 * (j + 0.5)) / n };
+            if (inside(p, t1) && inside(p, t2)) count++;
+          }
         const estimate = (count * 0.65 * 0.75) / (n * n);
         expect(Math.abs(gamutIntersectionArea(t1, t2) - estimate)).toBeLessThan(0.004);
       }),
@@ -65,11 +93,37 @@ describe("gamut area and coverage", () => {
   });
 
   it("refuses degenerate or non-convex input, naming it", () => {
-    expect(() => gamutArea([{ x: 0.1, y: 0.1 }, { x: 0.2, y: 0.2 }])).toThrow(/at least 3/);
-    expect(() => gamutArea([{ x: 0.1, y: 0.1 }, { x: NaN, y: 0.2 }, { x: 0.3, y: 0.1 }])).toThrow(/NaN/);
-    const star = [{ x: 0.3, y: 0.1 }, { x: 0.35, y: 0.3 }, { x: 0.5, y: 0.35 }, { x: 0.35, y: 0.4 }, { x: 0.3, y: 0.6 }, { x: 0.25, y: 0.4 }, { x: 0.1, y: 0.35 }, { x: 0.25, y: 0.3 }];
+    expect(() =>
+      gamutArea([
+        { x: 0.1, y: 0.1 },
+        { x: 0.2, y: 0.2 },
+      ]),
+    ).toThrow(/at least 3/);
+    expect(() =>
+      gamutArea([
+        { x: 0.1, y: 0.1 },
+        { x: NaN, y: 0.2 },
+        { x: 0.3, y: 0.1 },
+      ]),
+    ).toThrow(/NaN/);
+    const star = [
+      { x: 0.3, y: 0.1 },
+      { x: 0.35, y: 0.3 },
+      { x: 0.5, y: 0.35 },
+      { x: 0.35, y: 0.4 },
+      { x: 0.3, y: 0.6 },
+      { x: 0.25, y: 0.4 },
+      { x: 0.1, y: 0.35 },
+      { x: 0.25, y: 0.3 },
+    ];
     expect(() => gamutCoverage(star, star)).toThrow(/convex/);
     expect(() => gamutArea(rgbSpace("sRGB"), "Lab" as never)).toThrow(/Lab/);
-    expect(() => gamutCoverage(rgbSpace("sRGB"), [{ x: 0.1, y: 0.1 }, { x: 0.2, y: 0.2 }, { x: 0.3, y: 0.3 }])).toThrow(/no area/);
+    expect(() =>
+      gamutCoverage(rgbSpace("sRGB"), [
+        { x: 0.1, y: 0.1 },
+        { x: 0.2, y: 0.2 },
+        { x: 0.3, y: 0.3 },
+      ]),
+    ).toThrow(/no area/);
   });
 });

@@ -30,7 +30,10 @@ function exercise(): Map<string, MethodNote[]> {
   const trans = on5((w) => 0.1 + 0.8 / (1 + Math.exp(-(w - 500) / 15)), "transmittance", "yellow glass");
   const lamp = on5((w) => 50 + 0.1 * (w - 380), "relative power", "lamp");
   const radiance = on5((w) => 0.01 * Math.exp(-(((w - 555) / 60) ** 2)), "radiance", "panel");
-  const uneven = t.spectrum([380, 400, 450, 520, 600, 700, 780], [0.1, 0.2, 0.3, 0.5, 0.6, 0.6, 0.6], { quantity: "reflectance", name: "uneven (invented)" });
+  const uneven = t.spectrum([380, 400, 450, 520, 600, 700, 780], [0.1, 0.2, 0.3, 0.5, 0.6, 0.6, 0.6], {
+    quantity: "reflectance",
+    name: "uneven (invented)",
+  });
 
   run("colorimetry/tristimulus.ts", () => {
     t.objectColour(refl);
@@ -47,14 +50,17 @@ function exercise(): Map<string, MethodNote[]> {
   run("colorimetry/cielab.ts", () => t.labFromXYZ({ X: 40, Y: 40, Z: 40 }, t.whitePoint()));
   run("colorimetry/cieluv.ts", () => t.luvFromXYZ({ X: 40, Y: 40, Z: 40 }, t.whitePoint()));
   run("colorimetry/cie-uvw.ts", () => t.uvwFromXYZ({ X: 40, Y: 40, Z: 40 }, t.whitePoint()));
-  run("colorimetry/dominant-wavelength.ts", () => t.dominantWavelength({ x: 0.5, y: 0.4 }, { x: 0.3127, y: 0.329 }));
+  run("colorimetry/dominant-wavelength.ts", () =>
+    t.dominantWavelength({ x: 0.5, y: 0.4 }, { x: 0.3127, y: 0.329 }),
+  );
   run("temperature/cct.ts", () => {
     t.cctAndDuv({ x: 0.4476, y: 0.4074 });
     t.cctAndDuv({ x: 0.4476, y: 0.4074 }, { method: "robertson" });
   });
   run("illuminants/planckian-radiator.ts", () => t.planckianSpectrum(3000));
   run("difference", () => {
-    const a = { L: 50, a: 2.6772, b: -79.7751 }, b = { L: 50, a: 0, b: -82.7485 };
+    const a = { L: 50, a: 2.6772, b: -79.7751 },
+      b = { L: 50, a: 0, b: -82.7485 };
     t.deltaE76(a, b);
     t.deltaE94(a, b);
     t.deltaE2000(a, b);
@@ -67,7 +73,9 @@ function exercise(): Map<string, MethodNote[]> {
   });
   run("adaptation/chromatic-adaptation.ts", () => {
     t.adaptXYZ({ X: 40, Y: 40, Z: 30 }, t.whitePoint({ illuminant: "A" }), t.whitePoint());
-    t.adaptXYZ({ X: 40, Y: 40, Z: 30 }, t.whitePoint({ illuminant: "A" }), t.whitePoint(), "cat16", { degree: 0.8 });
+    t.adaptXYZ({ X: 40, Y: 40, Z: 30 }, t.whitePoint({ illuminant: "A" }), t.whitePoint(), "cat16", {
+      degree: 0.8,
+    });
   });
   run("gamut/gamut-area.ts", () => {
     t.gamutArea(t.rgbSpace("sRGB"), "xy");
@@ -84,7 +92,10 @@ function exercise(): Map<string, MethodNote[]> {
   });
   run("rendering", () => {
     t.colourRenderingIndex(t.illuminant("FL2"));
-    t.metamerismIndex(refl, on5((w) => 0.21 + 0.59 / (1 + Math.exp(-(w - 561) / 21)), "reflectance", "other tile"));
+    t.metamerismIndex(
+      refl,
+      on5((w) => 0.21 + 0.59 / (1 + Math.exp(-(w - 561) / 21)), "reflectance", "other tile"),
+    );
     t.metamerismIndex(refl, refl, { correction: "additive", formula: "ΔE00" });
   });
   run("filters", () => {
@@ -95,9 +106,23 @@ function exercise(): Map<string, MethodNote[]> {
     t.transmittanceFromDensitySpectrum(t.opticalDensitySpectrum(trans));
     t.longPassFilter(500);
     t.neutralDensityFilter(0.3);
-    t.dyeFilter(on5((w) => Math.exp(-(((w - 600) / 40) ** 2)), "other", "absorbance"), { amount: 0.5 });
-    for (const join of ["no surface losses", "cemented", "air gaps", "air gaps with interreflection"] as const) {
-      t.stackTransmittance([t.filterElement(trans, { refractiveIndex: 1.5, name: "A" }), t.filterElement(trans, { refractiveIndex: 1.52, name: "B" })], { join });
+    t.dyeFilter(
+      on5((w) => Math.exp(-(((w - 600) / 40) ** 2)), "other", "absorbance"),
+      { amount: 0.5 },
+    );
+    for (const join of [
+      "no surface losses",
+      "cemented",
+      "air gaps",
+      "air gaps with interreflection",
+    ] as const) {
+      t.stackTransmittance(
+        [
+          t.filterElement(trans, { refractiveIndex: 1.5, name: "A" }),
+          t.filterElement(trans, { refractiveIndex: 1.52, name: "B" }),
+        ],
+        { join },
+      );
     }
     t.sunglassCategory(0.25);
   });
@@ -105,23 +130,38 @@ function exercise(): Map<string, MethodNote[]> {
     t.ledSpectrum({ peak: 450, fwhm: 20 });
     t.ledSpectrum({ peak: 630, fwhm: 18, shape: "gaussian" });
     t.phosphorWhite({ blue: { peak: 450, fwhm: 20 }, phosphor: { peak: 560, fwhm: 110 }, phosphorToBlue: 3 });
-    t.mixLights([{ light: lamp, level: 0.5 }, { light: lamp, level: 0.2 }]);
+    t.mixLights([
+      { light: lamp, level: 0.5 },
+      { light: lamp, level: 0.2 },
+    ]);
     t.layeredTransmittance([trans, trans]);
-    t.dyeMixture([{ absorbance: on5((w) => Math.exp(-(((w - 600) / 40) ** 2)), "other", "dye"), concentration: 1 }]);
+    t.dyeMixture([
+      { absorbance: on5((w) => Math.exp(-(((w - 600) / 40) ** 2)), "other", "dye"), concentration: 1 },
+    ]);
     t.solveDriveLevels(
-      [t.ledSpectrum({ peak: 630, fwhm: 18 }), t.ledSpectrum({ peak: 530, fwhm: 30 }), t.ledSpectrum({ peak: 455, fwhm: 20 })],
+      [
+        t.ledSpectrum({ peak: 630, fwhm: 18 }),
+        t.ledSpectrum({ peak: 530, fwhm: 30 }),
+        t.ledSpectrum({ peak: 455, fwhm: 20 }),
+      ],
       { x: 0.3127, y: 0.329, Y: 1 },
     );
     const white = on5(() => 0.85, "reflectance", "white");
     const mass = on5((w) => 0.05 + 0.4 / (1 + Math.exp(-(w - 600) / 15)), "reflectance", "masstone");
     const tint = on5((w) => 0.3 + 0.5 / (1 + Math.exp(-(w - 600) / 15)), "reflectance", "tint");
     const { colourant, white: w2 } = t.colourantFromTint({ masstone: mass, tint, white, tintFraction: 0.1 });
-    t.mixPaint([{ colourant, amount: 1 }, { colourant: w2, amount: 3 }]);
+    t.mixPaint([
+      { colourant, amount: 1 },
+      { colourant: w2, amount: 3 },
+    ]);
     t.mixPaint([{ colourant, amount: 1 }], { layer: { thickness: 0.5, background: 0.8 } });
-    t.mixPaint([{ colourant: t.singleConstantColourant(on5(() => 0.3, "other", "K/S")), amount: 1 }], { surface: "none" });
+    t.mixPaint([{ colourant: t.singleConstantColourant(on5(() => 0.3, "other", "K/S")), amount: 1 }], {
+      surface: "none",
+    });
   });
   run("halftone", () => {
-    const paper = on5(() => 0.9, "reflectance", "paper"), cyan = on5((w) => (w < 550 ? 0.6 : 0.1), "reflectance", "cyan");
+    const paper = on5(() => 0.9, "reflectance", "paper"),
+      cyan = on5((w) => (w < 550 ? 0.6 : 0.1), "reflectance", "cyan");
     t.murrayDavies(0.4, cyan, paper);
     t.toneValueFromDensity(0.5, 1.4);
     t.yuleNielsen(0.4, cyan, paper, 1.7);
@@ -146,7 +186,26 @@ const all = [...notes.values()].flat();
 describe("Methods statements are full sentences", () => {
   it("the exercise produced statements under every topic the library uses", () => {
     const topics = new Set(all.map((n) => n.topic));
-    for (const topic of ["observer", "illuminant", "interpolation", "extrapolation", "integration", "colour space", "colour temperature", "colour difference", "chromatic adaptation", "photometry", "normalisation", "rgb encoding", "gamut", "optics", "mixing", "halftone", "colour rendering", "data files"]) {
+    for (const topic of [
+      "observer",
+      "illuminant",
+      "interpolation",
+      "extrapolation",
+      "integration",
+      "colour space",
+      "colour temperature",
+      "colour difference",
+      "chromatic adaptation",
+      "photometry",
+      "normalisation",
+      "rgb encoding",
+      "gamut",
+      "optics",
+      "mixing",
+      "halftone",
+      "colour rendering",
+      "data files",
+    ]) {
       expect(topics, topic).toContain(topic);
     }
     expect(new Set(all.map((n) => n.statement)).size).toBeGreaterThan(60);
@@ -157,7 +216,9 @@ describe("Methods statements are full sentences", () => {
     expect(statement).toMatch(/[.]$/); // ends as a sentence
     expect(statement).toMatch(/\b(was|were|is|are|follow|used)\b/); // has a finite verb, so it is not a bare noun phrase
     expect(statement).not.toMatch(/[Cc]aution|informative only/); // cautions go with results, not into Methods
-    expect(statement).not.toMatch(/\b[A-Z]{5,}\b(?<!CIELAB|CIELUV|CIEDE|SMPTE|LEUKOS|ASTM|CGATS|IUPAC|DELIMITER)/); // no shouting
+    expect(statement).not.toMatch(
+      /\b[A-Z]{5,}\b(?<!CIELAB|CIELUV|CIEDE|SMPTE|LEUKOS|ASTM|CGATS|IUPAC|DELIMITER)/,
+    ); // no shouting
   });
 
   it("every file of lib/ that calls noteMethod was reached by the exercise", () => {
@@ -167,13 +228,19 @@ describe("Methods statements are full sentences", () => {
       for (const name of readdirSync(dir)) {
         const p = dir + name;
         if (statSync(p).isDirectory()) walk(p + "/");
-        else if (p.endsWith(".ts") && !p.includes("/methods/") && /\bnoteMethod\(/.test(readFileSync(p, "utf8"))) files.push(p.slice(libDir.length));
+        else if (
+          p.endsWith(".ts") &&
+          !p.includes("/methods/") &&
+          /\bnoteMethod\(/.test(readFileSync(p, "utf8"))
+        )
+          files.push(p.slice(libDir.length));
       }
     };
     walk(libDir);
     // Each such file has a distinctive phrase of its statements; the exercise must have produced it.
     const phrase: Record<string, RegExp> = {
-      "colorimetry/tristimulus.ts": /Tristimulus values of object colours|Tristimulus values of light sources/,
+      "colorimetry/tristimulus.ts":
+        /Tristimulus values of object colours|Tristimulus values of light sources/,
       "spectrum/sample.ts": /interpolated by|beyond the measured range/,
       "colorimetry/cielab.ts": /CIELAB/,
       "colorimetry/cieluv.ts": /CIELUV/,

@@ -10,7 +10,12 @@
 import { describe, expect, it } from "vitest";
 import { chromaticityXy } from "../../lib/colorimetry/chromaticity.ts";
 import { labFromXYZ } from "../../lib/colorimetry/cielab.ts";
-import { commonSummationInterval, objectColour, tristimulus, whitePoint } from "../../lib/colorimetry/tristimulus.ts";
+import {
+  commonSummationInterval,
+  objectColour,
+  tristimulus,
+  whitePoint,
+} from "../../lib/colorimetry/tristimulus.ts";
 import { transmittedLight } from "../../lib/filters/transmitted-light.ts";
 import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 import { recipeColour, singleConstantColourant } from "../../lib/mixing/index.ts";
@@ -19,8 +24,15 @@ import { metamerismIndex } from "../../lib/rendering/metamerism-index.ts";
 import { spectrumOnGrid, type Spectrum } from "../../lib/spectrum/spectrum.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data.ts";
 
-const flat = (value: number, step: 1 | 5, quantity: "reflectance" | "transmittance" = "reflectance"): Spectrum =>
-  spectrumOnGrid(380, step, new Array(400 / step + 1).fill(value), { quantity, name: `flat ${value} at ${step} nm (invented)` });
+const flat = (
+  value: number,
+  step: 1 | 5,
+  quantity: "reflectance" | "transmittance" = "reflectance",
+): Spectrum =>
+  spectrumOnGrid(380, step, new Array(400 / step + 1).fill(value), {
+    quantity,
+    name: `flat ${value} at ${step} nm (invented)`,
+  });
 const neutralL = (f: number) => 116 * Math.cbrt(f) - 16; // CIE 015:2018 eq. 8.3 for Y/Yn > (6/29)³
 
 describe("objectColour: the sample and its white from one table", () => {
@@ -55,11 +67,16 @@ describe("objectColour: the sample and its white from one table", () => {
     objectColour(flat(0.5, 5));
     const integration = methodsUsed().filter((n) => n.topic === "integration");
     expect(integration).toHaveLength(1);
-    expect(integration[0]!.statement).toMatch(/^Tristimulus values of object colours were summed at 5 nm intervals over 360–830 nm/);
+    expect(integration[0]!.statement).toMatch(
+      /^Tristimulus values of object colours were summed at 5 nm intervals over 360–830 nm/,
+    );
   });
 
   it("refuses a light source (a relative power spectrum), naming it", () => {
-    const lamp = spectrumOnGrid(380, 5, new Array(81).fill(1), { quantity: "relative power", name: "lamp (invented)" });
+    const lamp = spectrumOnGrid(380, 5, new Array(81).fill(1), {
+      quantity: "relative power",
+      name: "lamp (invented)",
+    });
     expect(() => objectColour(lamp)).toThrow(/"lamp \(invented\)" is a relative power spectrum/);
   });
 
@@ -71,28 +88,33 @@ describe("objectColour: the sample and its white from one table", () => {
   });
 });
 
-describe.skipIf(!HAVE_REFERENCE)(`the white on the sample's table, against the CIE files ${HAVE_REFERENCE ? "" : NO_REFERENCE}`, () => {
-  it("D65 at 5 nm over 360–830 nm: the white objectColour returns equals Σ S·x̄, Σ S·ȳ, Σ S·z̄ of the CIE 1 nm tables taken every 5 nm", () => {
-    // CIE D65 (CIE S 014-2/E:2006) and CIE 1931 2° colour-matching functions (CIE 018:2019), read from the CIE files.
-    const d65 = readReferenceCsv("cie_std_illum_d65_1nm.csv");
-    const cmf = readReferenceCsv("cie_1931_2deg_xyz_1nm.csv");
-    const sAt = new Map(d65.column(d65.header[0]!).map((w, i) => [w, d65.column(d65.header[1]!)[i]!]));
-    const wl = cmf.column(cmf.header[0]!);
-    const [xb, yb, zb] = [1, 2, 3].map((k) => cmf.column(cmf.header[k]!));
-    let X = 0, Y = 0, Z = 0;
-    wl.forEach((w, i) => {
-      if (w % 5 !== 0 || w < 360 || w > 830) return;
-      const s = sAt.get(w)!;
-      X += s * xb[i]!;
-      Y += s * yb[i]!;
-      Z += s * zb[i]!;
+describe.skipIf(!HAVE_REFERENCE)(
+  `the white on the sample's table, against the CIE files ${HAVE_REFERENCE ? "" : NO_REFERENCE}`,
+  () => {
+    it("D65 at 5 nm over 360–830 nm: the white objectColour returns equals Σ S·x̄, Σ S·ȳ, Σ S·z̄ of the CIE 1 nm tables taken every 5 nm", () => {
+      // CIE D65 (CIE S 014-2/E:2006) and CIE 1931 2° colour-matching functions (CIE 018:2019), read from the CIE files.
+      const d65 = readReferenceCsv("cie_std_illum_d65_1nm.csv");
+      const cmf = readReferenceCsv("cie_1931_2deg_xyz_1nm.csv");
+      const sAt = new Map(d65.column(d65.header[0]!).map((w, i) => [w, d65.column(d65.header[1]!)[i]!]));
+      const wl = cmf.column(cmf.header[0]!);
+      const [xb, yb, zb] = [1, 2, 3].map((k) => cmf.column(cmf.header[k]!)) as [number[], number[], number[]];
+      let X = 0,
+        Y = 0,
+        Z = 0;
+      wl.forEach((w, i) => {
+        if (w % 5 !== 0 || w < 360 || w > 830) return;
+        const s = sAt.get(w)!;
+        X += s * xb[i]!;
+        Y += s * yb[i]!;
+        Z += s * zb[i]!;
+      });
+      const c = objectColour(flat(0.5, 5), { illuminant: "D65" });
+      expect(c.white.X).toBeCloseTo((100 * X) / Y, 9);
+      expect(c.white.Y).toBeCloseTo(100, 12);
+      expect(c.white.Z).toBeCloseTo((100 * Z) / Y, 9);
     });
-    const c = objectColour(flat(0.5, 5), { illuminant: "D65" });
-    expect(c.white.X).toBeCloseTo((100 * X) / Y, 9);
-    expect(c.white.Y).toBeCloseTo(100, 12);
-    expect(c.white.Z).toBeCloseTo((100 * Z) / Y, 9);
-  });
-});
+  },
+);
 
 describe("everywhere the library pairs a sample with a white, both come from one table", () => {
   it("a swatch of a flat 5 nm grey is exactly neutral and Methods shows one summation condition", () => {
@@ -131,9 +153,15 @@ describe("everywhere the library pairs a sample with a white, both come from one
 
   it("recipeColour: a neutral single-constant colourant gives a neutral colour against the white it returns", () => {
     // K/S constant over wavelength gives a constant R∞ (Kubelka & Munk 1931), so the mixture is spectrally flat.
-    const grey = singleConstantColourant(spectrumOnGrid(380, 5, new Array(81).fill(0.2), { name: "grey K/S (invented)" }), "grey (invented)");
+    const grey = singleConstantColourant(
+      spectrumOnGrid(380, 5, new Array(81).fill(0.2), { name: "grey K/S (invented)" }),
+      "grey (invented)",
+    );
     const c = recipeColour([{ colourant: grey, amount: 1 }], { illuminant: "D50" });
     expect(Math.abs(c.Lab.a) + Math.abs(c.Lab.b)).toBeLessThan(1e-9);
-    expect(chromaticityXy(c.white).x).toBeCloseTo(chromaticityXy(whitePoint({ illuminant: "D50", interval: 5 })).x, 12);
+    expect(chromaticityXy(c.white).x).toBeCloseTo(
+      chromaticityXy(whitePoint({ illuminant: "D50", interval: 5 })).x,
+      12,
+    );
   });
 });

@@ -23,8 +23,11 @@ import { transmittedLight } from "../../lib/filters/transmitted-light.ts";
 import { spectrum, spectrumOnGrid } from "../../lib/spectrum/spectrum.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data.ts";
 
-const line = (nm: number, watts: number, quantity: "radiant flux" | "radiance" | "irradiance" | "other" = "radiant flux") =>
-  spectrum([nm - 1, nm, nm + 1], [0, watts, 0], { quantity, name: `${nm} nm line` });
+const line = (
+  nm: number,
+  watts: number,
+  quantity: "radiant flux" | "radiance" | "irradiance" | "other" = "radiant flux",
+) => spectrum([nm - 1, nm, nm + 1], [0, watts, 0], { quantity, name: `${nm} nm line` });
 
 describe("photometric quantities", () => {
   it("1 W at 555 nm is 683 lm; the constants are Km = 683 lm/W and K′m = 1700 lm/W (CIE 018:2019)", () => {
@@ -38,14 +41,18 @@ describe("photometric quantities", () => {
     expect(luminousFlux(line(507, 1), { vision: "scotopic" })).toBeCloseTo(1700, 9);
   });
 
-  it.skipIf(!HAVE_REFERENCE)("V(λ) is the CIE photopic table, identical to ȳ(λ) (cie_sle_photopic_1nm.csv) " + (HAVE_REFERENCE ? "" : NO_REFERENCE), () => {
-    const t = readReferenceCsv("cie_sle_photopic_1nm.csv");
-    const v = luminousEfficiency("photopic");
-    expect(v.wavelengths).toEqual(t.column("wavelength_nm"));
-    expect(v.values).toEqual(t.column("V"));
-    const s = readReferenceCsv("cie_sle_scotopic_1nm.csv");
-    expect(luminousEfficiency("scotopic").values).toEqual(s.column("V_prime"));
-  });
+  it.skipIf(!HAVE_REFERENCE)(
+    "V(λ) is the CIE photopic table, identical to ȳ(λ) (cie_sle_photopic_1nm.csv) " +
+      (HAVE_REFERENCE ? "" : NO_REFERENCE),
+    () => {
+      const t = readReferenceCsv("cie_sle_photopic_1nm.csv");
+      const v = luminousEfficiency("photopic");
+      expect(v.wavelengths).toEqual(t.column("wavelength_nm"));
+      expect(v.values).toEqual(t.column("V"));
+      const s = readReferenceCsv("cie_sle_scotopic_1nm.csv");
+      expect(luminousEfficiency("scotopic").values).toEqual(s.column("V_prime"));
+    },
+  );
 
   it("S/P ratio of equal energy equals 1700·ΣV′/(683·ΣV) from the table sums in ../shared/reference/README.md (97.0713166 and 106.856917)", () => {
     const e = spectrumOnGrid(360, 1, new Array(471).fill(1), { quantity: "relative power" });
@@ -70,9 +77,21 @@ describe("photometric quantities", () => {
   it("luminous transmittance is Y/100 under D65 by default, A when asked; a neutral filter keeps its value", () => {
     const neutral = spectrumOnGrid(360, 5, new Array(95).fill(0.37), { quantity: "transmittance" });
     expect(luminousTransmittance(neutral)).toBeCloseTo(0.37, 12);
-    const yellow = spectrumOnGrid(380, 10, [0.05, 0.05, 0.06, 0.08, 0.1, 0.2, 0.4, 0.6, 0.75, 0.8, 0.85, 0.87, 0.88, 0.88, 0.89, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9], { quantity: "transmittance", name: "invented yellow filter" });
+    const yellow = spectrumOnGrid(
+      380,
+      10,
+      [
+        0.05, 0.05, 0.06, 0.08, 0.1, 0.2, 0.4, 0.6, 0.75, 0.8, 0.85, 0.87, 0.88, 0.88, 0.89, 0.9, 0.9, 0.9,
+        0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9, 0.9,
+        0.9, 0.9, 0.9,
+      ],
+      { quantity: "transmittance", name: "invented yellow filter" },
+    );
     expect(luminousTransmittance(yellow)).toBeCloseTo(tristimulus(yellow, { illuminant: "D65" }).Y / 100, 12);
-    expect(luminousTransmittance(yellow, { illuminant: "A" })).toBeCloseTo(tristimulus(yellow, { illuminant: "A" }).Y / 100, 12);
+    expect(luminousTransmittance(yellow, { illuminant: "A" })).toBeCloseTo(
+      tristimulus(yellow, { illuminant: "A" }).Y / 100,
+      12,
+    );
     const refl = spectrumOnGrid(360, 5, new Array(95).fill(0.5), { quantity: "reflectance" });
     expect(luminousReflectance(refl)).toBeCloseTo(0.5, 12);
   });
@@ -83,7 +102,9 @@ describe("photometric quantities", () => {
     resetMethodLog();
     const filter = spectrumOnGrid(360, 5, new Array(95).fill(0.2), { quantity: "transmittance" });
     luminousTransmittance(filter);
-    const text = methodsUsed().map((n) => n.statement).join(" ");
+    const text = methodsUsed()
+      .map((n) => n.statement)
+      .join(" ");
     expect(text).toMatch(/Luminous transmittance τv was computed/);
     expect(text).not.toMatch(/[Cc]aution|informative only/);
     const light = transmittedLight(filter);
@@ -95,9 +116,15 @@ describe("photometric quantities", () => {
 
   it("refuses mismatched quantities and bad targets, naming them", () => {
     expect(() => illuminance(line(555, 1, "radiance"))).toThrow(/radiance spectrum/);
-    expect(() => luminousTransmittance(spectrumOnGrid(380, 5, [0.1, 0.2, 0.3, 0.4, 0.5, 0.6], { quantity: "reflectance" }))).toThrow(/reflectance spectrum/);
+    expect(() =>
+      luminousTransmittance(
+        spectrumOnGrid(380, 5, [0.1, 0.2, 0.3, 0.4, 0.5, 0.6], { quantity: "reflectance" }),
+      ),
+    ).toThrow(/reflectance spectrum/);
     expect(() => normaliseToLuminance(line(555, 1, "radiance"), NaN)).toThrow(/NaN/);
-    expect(() => luminousFlux(spectrum([900, 950], [1, 1], { quantity: "radiant flux", name: "infrared" }))).toThrow(/infrared/);
+    expect(() =>
+      luminousFlux(spectrum([900, 950], [1, 1], { quantity: "radiant flux", name: "infrared" })),
+    ).toThrow(/infrared/);
     expect(() => luminousEfficiency("mesopic" as never)).toThrow(/mesopic/);
   });
 });

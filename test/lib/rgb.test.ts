@@ -32,7 +32,9 @@ import {
 
 const round4 = (m: Matrix3) => m.map((row) => row.map((v) => Math.round(v * 1e4) / 1e4));
 function expectMatrixClose(ours: Matrix3, theirs: readonly (readonly number[])[], tol: number): void {
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) expect(Math.abs(ours[i]![j]! - theirs[i]![j]!), `[${i}][${j}]`).toBeLessThanOrEqual(tol);
+  for (let i = 0; i < 3; i++)
+    for (let j = 0; j < 3; j++)
+      expect(Math.abs(ours[i]![j]! - theirs[i]![j]!), `[${i}][${j}]`).toBeLessThanOrEqual(tol);
 }
 
 describe("RGB spaces", () => {
@@ -59,16 +61,20 @@ describe("RGB spaces", () => {
   });
 
   it("luminance rows equal the luma coefficients of ITU-R BT.709-6 (0.2126, 0.7152, 0.0722) and BT.2020-2 (0.2627, 0.6780, 0.0593)", () => {
-    expect(rgbSpace("BT.709").toXYZ[1].map((v) => Math.round(v * 1e4) / 1e4)).toEqual([0.2126, 0.7152, 0.0722]);
-    expect(rgbSpace("BT.2020").toXYZ[1].map((v) => Math.round(v * 1e4) / 1e4)).toEqual([0.2627, 0.678, 0.0593]);
+    expect(rgbSpace("BT.709").toXYZ[1].map((v) => Math.round(v * 1e4) / 1e4)).toEqual([
+      0.2126, 0.7152, 0.0722,
+    ]);
+    expect(rgbSpace("BT.2020").toXYZ[1].map((v) => Math.round(v * 1e4) / 1e4)).toEqual([
+      0.2627, 0.678, 0.0593,
+    ]);
   });
 
   it("matrices equal colorjs.io's for sRGB, Display P3 and BT.2020 (colorjs.io spaces srgb-linear, p3-linear, rec2020-linear)", () => {
-    expectMatrixClose(rgbSpace("sRGB").toXYZ, SRGB_M.toXYZ, 1e-9);
-    expectMatrixClose(rgbSpace("Display P3").toXYZ, P3_M.toXYZ, 1e-9);
-    expectMatrixClose(rgbSpace("BT.2020").toXYZ, REC2020_M.toXYZ, 1e-9);
+    expectMatrixClose(rgbSpace("sRGB").toXYZ, SRGB_M.toXYZ!, 1e-9);
+    expectMatrixClose(rgbSpace("Display P3").toXYZ, P3_M.toXYZ!, 1e-9);
+    expectMatrixClose(rgbSpace("BT.2020").toXYZ, REC2020_M.toXYZ!, 1e-9);
     // colorjs.io takes its BT.2020 inverse from ITU-R BT.2124-0 Annex 2, printed to 15 digits
-    expectMatrixClose(rgbSpace("BT.2020").fromXYZ, REC2020_M.fromXYZ, 1e-9);
+    expectMatrixClose(rgbSpace("BT.2020").fromXYZ, REC2020_M.fromXYZ!, 1e-9);
   });
 
   it("white (1, 1, 1) maps to the white chromaticity with Y = 100, and each primary to its chromaticity", () => {
@@ -84,8 +90,14 @@ describe("RGB spaces", () => {
   });
 
   it("agrees with culori's sRGB, Display P3 and BT.2020 conversions from XYZ (D65)", () => {
-    const xyzArb = fc.record({ X: fc.double({ min: 1, max: 95, noNaN: true }), Y: fc.double({ min: 1, max: 100, noNaN: true }), Z: fc.double({ min: 1, max: 108, noNaN: true }) });
-    const toRgb = converter("rgb"), toP3 = converter("p3"), toRec2020 = converter("rec2020");
+    const xyzArb = fc.record({
+      X: fc.double({ min: 1, max: 95, noNaN: true }),
+      Y: fc.double({ min: 1, max: 100, noNaN: true }),
+      Z: fc.double({ min: 1, max: 108, noNaN: true }),
+    });
+    const toRgb = converter("rgb"),
+      toP3 = converter("p3"),
+      toRec2020 = converter("rec2020");
     fc.assert(
       fc.property(xyzArb, (xyz) => {
         const c = { mode: "xyz65" as const, x: xyz.X / 100, y: xyz.Y / 100, z: xyz.Z / 100 };
@@ -108,20 +120,29 @@ describe("RGB spaces", () => {
   });
 
   it("round trip XYZ → RGB → XYZ in every space, encoded and linear (property)", () => {
-    const xyzArb = fc.record({ X: fc.double({ min: 0.5, max: 120, noNaN: true }), Y: fc.double({ min: 0.5, max: 120, noNaN: true }), Z: fc.double({ min: 0.5, max: 120, noNaN: true }) });
+    const xyzArb = fc.record({
+      X: fc.double({ min: 0.5, max: 120, noNaN: true }),
+      Y: fc.double({ min: 0.5, max: 120, noNaN: true }),
+      Z: fc.double({ min: 0.5, max: 120, noNaN: true }),
+    });
     fc.assert(
       fc.property(xyzArb, fc.constantFrom(...rgbSpaceNames()), fc.boolean(), (xyz, name, encode) => {
         const s = rgbSpace(name);
         const back = xyzFromRgb(rgbFromXYZ(xyz, s, { encode }), s, { decode: encode });
         // PQ loses a few digits near black; 1e-7 relative is far below any measurement
-        for (const k of ["X", "Y", "Z"] as const) expect(Math.abs(back[k] - xyz[k])).toBeLessThanOrEqual(1e-7 * Math.max(1, xyz[k]));
+        for (const k of ["X", "Y", "Z"] as const)
+          expect(Math.abs(back[k] - xyz[k])).toBeLessThanOrEqual(1e-7 * Math.max(1, xyz[k]));
       }),
       { numRuns: 300 },
     );
   });
 
   it("a space from measured primaries reproduces the standard one when given the standard primaries", () => {
-    const s = rgbSpaceFromPrimaries({ r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } }, { x: 0.3127, y: 0.329 }, { name: "test display", transfer: "gamma 2.2" });
+    const s = rgbSpaceFromPrimaries(
+      { r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } },
+      { x: 0.3127, y: 0.329 },
+      { name: "test display", transfer: "gamma 2.2" },
+    );
     expectMatrixClose(s.toXYZ, rgbSpace("sRGB").toXYZ, 1e-15);
     expect(s.transfer).toBe("gamma 2.2");
   });
@@ -141,7 +162,10 @@ describe("RGB spaces", () => {
   it("notes the space, matrices and encoding for the Methods section", () => {
     resetMethodLog();
     rgbFromXYZ({ X: 20, Y: 20, Z: 20 }, rgbSpace("Display P3"));
-    const text = methodsUsed().filter((n) => n.topic === "rgb encoding").map((n) => n.statement).join("\n");
+    const text = methodsUsed()
+      .filter((n) => n.topic === "rgb encoding")
+      .map((n) => n.statement)
+      .join("\n");
     expect(text).toMatch(/Display P3/);
     expect(text).toMatch(/SMPTE RP 177/);
     expect(text).toMatch(/IEC 61966-2-1/);
@@ -152,9 +176,25 @@ describe("RGB spaces", () => {
     expect(() => rgbFromXYZ({ X: NaN, Y: 1, Z: 1 }, rgbSpace("sRGB"))).toThrow(/NaN/);
     expect(() => xyzFromRgb({ r: 0, g: Infinity, b: 0 }, rgbSpace("sRGB"))).toThrow(/Infinity/);
     expect(() => isInGamut({ r: 0, g: NaN, b: 0 })).toThrow(/NaN/);
-    expect(() => rgbSpaceFromPrimaries({ r: { x: 0.3, y: 0.3 }, g: { x: 0.4, y: 0.4 }, b: { x: 0.5, y: 0.5 } }, { x: 0.3127, y: 0.329 })).toThrow(/singular/);
-    expect(() => rgbSpaceFromPrimaries({ r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: -0.06 } }, { x: 0.3127, y: 0.329 })).toThrow(/-0.06/);
-    expect(() => rgbSpaceFromPrimaries({ r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } }, { x: 0.3127, y: 0.329 }, { transfer: "gamma 9" as never })).toThrow(/gamma 9/);
+    expect(() =>
+      rgbSpaceFromPrimaries(
+        { r: { x: 0.3, y: 0.3 }, g: { x: 0.4, y: 0.4 }, b: { x: 0.5, y: 0.5 } },
+        { x: 0.3127, y: 0.329 },
+      ),
+    ).toThrow(/singular/);
+    expect(() =>
+      rgbSpaceFromPrimaries(
+        { r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: -0.06 } },
+        { x: 0.3127, y: 0.329 },
+      ),
+    ).toThrow(/-0.06/);
+    expect(() =>
+      rgbSpaceFromPrimaries(
+        { r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } },
+        { x: 0.3127, y: 0.329 },
+        { transfer: "gamma 9" as never },
+      ),
+    ).toThrow(/gamma 9/);
     expect(() => transferFunction("log")).toThrow(/log/);
   });
 });
@@ -166,25 +206,31 @@ describe("transfer functions", () => {
     expect(srgbDecode(0.04045)).toBeCloseTo(0.0031308, 7);
     expect(srgbEncode(1)).toBeCloseTo(1, 12);
     expect(srgbEncode(0)).toBe(0);
-    fc.assert(fc.property(fc.double({ min: -2, max: 2, noNaN: true }), (v) => {
-      expect(srgbDecode(srgbEncode(v))).toBeCloseTo(v, 12);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: -2, max: 2, noNaN: true }), (v) => {
+        expect(srgbDecode(srgbEncode(v))).toBeCloseTo(v, 12);
+      }),
+    );
   });
 
   it("sRGB agrees with culori's curve (culori rgb ↔ lrgb)", () => {
     const toLrgb = converter("lrgb");
-    fc.assert(fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
-      expect(srgbDecode(v)).toBeCloseTo(toLrgb({ mode: "rgb", r: v, g: v, b: v }).r, 12);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
+        expect(srgbDecode(v)).toBeCloseTo(toLrgb({ mode: "rgb", r: v, g: v, b: v }).r, 12);
+      }),
+    );
   });
 
   it("BT.709 OETF: 4.5·L below 0.018, 1.099·L^0.45 − 0.099 above, continuous (ITU-R BT.709-6 item 1.2)", () => {
     expect(bt709Encode(0.018)).toBeCloseTo(0.081, 3);
     expect(bt709Encode(0.01)).toBeCloseTo(0.045, 12);
     expect(bt709Encode(1)).toBeCloseTo(1, 12);
-    fc.assert(fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
-      expect(bt709Decode(bt709Encode(v))).toBeCloseTo(v, 12);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
+        expect(bt709Decode(bt709Encode(v))).toBeCloseTo(v, 12);
+      }),
+    );
   });
 
   it("BT.1886: V = 0 gives the black level and V = 1 the white level (ITU-R BT.1886 Annex 1)", () => {
@@ -192,9 +238,11 @@ describe("transfer functions", () => {
     expect(bt1886Eotf(0, d)).toBeCloseTo(0.1, 12);
     expect(bt1886Eotf(1, d)).toBeCloseTo(120, 10);
     expect(bt1886Eotf(0.5)).toBeCloseTo(100 * 0.5 ** 2.4, 10); // Lb = 0: a pure 2.4 power law
-    fc.assert(fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
-      expect(bt1886InverseEotf(bt1886Eotf(v, d), d)).toBeCloseTo(v, 10);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
+        expect(bt1886InverseEotf(bt1886Eotf(v, d), d)).toBeCloseTo(v, 10);
+      }),
+    );
     expect(() => bt1886Eotf(0.5, { whiteLuminance: 100, blackLuminance: 200 })).toThrow(/200/);
   });
 
@@ -216,9 +264,11 @@ describe("transfer functions", () => {
   });
 
   it("PQ round trip over 0–10 000 cd/m² (property) and agreement with colorjs.io's rec2100-pq curve", async () => {
-    fc.assert(fc.property(fc.double({ min: 0, max: 10000, noNaN: true }), (l) => {
-      expect(pqDecode(pqEncode(l))).toBeCloseTo(l, 7);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 10000, noNaN: true }), (l) => {
+        expect(pqDecode(pqEncode(l))).toBeCloseTo(l, 7);
+      }),
+    );
     const { default: Color } = await import("colorjs.io");
     for (const l of [0.5, 10, 100, 203, 1000, 4000]) {
       // colorjs.io's rec2100-pq places media white (linear 1) at 203 cd/m²
@@ -234,9 +284,11 @@ describe("transfer functions", () => {
     const e = hlgDecode(0.75);
     const display = hlgDisplayLight({ r: e, g: e, b: e }, 1000);
     expect(Math.round(display.g)).toBe(203);
-    fc.assert(fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
-      expect(hlgDecode(hlgEncode(v))).toBeCloseTo(v, 12);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (v) => {
+        expect(hlgDecode(hlgEncode(v))).toBeCloseTo(v, 12);
+      }),
+    );
   });
 
   it("transfer functions refuse non-finite values, naming them", () => {

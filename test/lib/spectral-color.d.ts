@@ -19,7 +19,11 @@ declare module "spectral-color" {
     resample(shape: Shape): SpectralDistribution<T>;
   }
   export const cmfs: { CIE_1931_2DEG: SpectralDistribution<[number, number, number]> };
-  export const illuminants: { D65: SpectralDistribution<number>; D50: SpectralDistribution<number>; E: SpectralDistribution<number> };
+  export const illuminants: {
+    D65: SpectralDistribution<number>;
+    D50: SpectralDistribution<number>;
+    E: SpectralDistribution<number>;
+  };
   export function spragueInterpolator(x: number, samples: readonly number[]): number;
   export function spdToXyz(
     spec: SpectralDistribution<number>,

@@ -13,7 +13,11 @@ import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 import { spectrum } from "../../lib/spectrum/spectrum.ts";
 import { cctAndDuv, cctFromSpectrum, chromaticityAtCct } from "../../lib/temperature/cct.ts";
 import { robertsonLines } from "../../lib/temperature/cct-robertson.ts";
-import { planckianChromaticity, planckianLocusAtReciprocal, planckianUv } from "../../lib/temperature/planckian-locus.ts";
+import {
+  planckianChromaticity,
+  planckianLocusAtReciprocal,
+  planckianUv,
+} from "../../lib/temperature/planckian-locus.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "./reference-data.ts";
 
 /** CCT by the definition of CIE 015:2018 §9.5: the temperature of the nearest locus point in CIE 1960 uv (golden-section search). */
@@ -23,15 +27,18 @@ function cctByDefinition(xy: { x: number; y: number }): number {
     const p = planckianLocusAtReciprocal(s);
     return Math.hypot(u - p.u, v - p.v);
   };
-  let best = 0, bestD = Infinity;
+  let best = 0,
+    bestD = Infinity;
   for (let i = 1; i <= 4000; i++) {
     const s = i * 2.5e-7; // 1/T from 2.5e-7 to 1e-3 K⁻¹
     const d = dist(s);
     if (d < bestD) [best, bestD] = [s, d];
   }
-  let a = best - 2.5e-7, b = best + 2.5e-7;
+  let a = best - 2.5e-7,
+    b = best + 2.5e-7;
   for (let k = 0; k < 80; k++) {
-    const m1 = a + (b - a) * 0.381966, m2 = a + (b - a) * 0.618034;
+    const m1 = a + (b - a) * 0.381966,
+      m2 = a + (b - a) * 0.618034;
     if (dist(m1) < dist(m2)) b = m2;
     else a = m1;
   }
@@ -42,16 +49,36 @@ describe("Planckian locus", () => {
   it("reproduces Robertson's isotemperature table (Robertson 1968, JOSA 58:1528, Table 1; recalled from memory)", () => {
     // mired, u, v, slope t — 31 rows as printed by Robertson (1968) and reprinted in Wyszecki & Stiles (1982) Table 1(3.11).
     const printed = [
-      [0, 0.18006, 0.26352, -0.24341], [10, 0.18066, 0.26589, -0.25479], [20, 0.18133, 0.26846, -0.26876],
-      [30, 0.18208, 0.27119, -0.28539], [40, 0.18293, 0.27407, -0.3047], [50, 0.18388, 0.27709, -0.32675],
-      [60, 0.18494, 0.28021, -0.35156], [70, 0.18611, 0.28342, -0.37915], [80, 0.1874, 0.28668, -0.40955],
-      [90, 0.1888, 0.28997, -0.44278], [100, 0.19032, 0.29326, -0.47888], [125, 0.19462, 0.30141, -0.58204],
-      [150, 0.19962, 0.30921, -0.70471], [175, 0.20525, 0.31647, -0.84901], [200, 0.21142, 0.32312, -1.0182],
-      [225, 0.21807, 0.32909, -1.2168], [250, 0.22511, 0.33439, -1.4512], [275, 0.23247, 0.33904, -1.7298],
-      [300, 0.2401, 0.34308, -2.0637], [325, 0.24792, 0.34655, -2.4681], [350, 0.25591, 0.34951, -2.9641],
-      [375, 0.264, 0.352, -3.5814], [400, 0.27218, 0.35407, -4.3633], [425, 0.28039, 0.35577, -5.3762],
-      [450, 0.28863, 0.35714, -6.7262], [475, 0.29685, 0.35823, -8.5955], [500, 0.30505, 0.35907, -11.324],
-      [525, 0.3132, 0.35968, -15.628], [550, 0.32129, 0.36011, -23.325], [575, 0.32931, 0.36038, -40.77],
+      [0, 0.18006, 0.26352, -0.24341],
+      [10, 0.18066, 0.26589, -0.25479],
+      [20, 0.18133, 0.26846, -0.26876],
+      [30, 0.18208, 0.27119, -0.28539],
+      [40, 0.18293, 0.27407, -0.3047],
+      [50, 0.18388, 0.27709, -0.32675],
+      [60, 0.18494, 0.28021, -0.35156],
+      [70, 0.18611, 0.28342, -0.37915],
+      [80, 0.1874, 0.28668, -0.40955],
+      [90, 0.1888, 0.28997, -0.44278],
+      [100, 0.19032, 0.29326, -0.47888],
+      [125, 0.19462, 0.30141, -0.58204],
+      [150, 0.19962, 0.30921, -0.70471],
+      [175, 0.20525, 0.31647, -0.84901],
+      [200, 0.21142, 0.32312, -1.0182],
+      [225, 0.21807, 0.32909, -1.2168],
+      [250, 0.22511, 0.33439, -1.4512],
+      [275, 0.23247, 0.33904, -1.7298],
+      [300, 0.2401, 0.34308, -2.0637],
+      [325, 0.24792, 0.34655, -2.4681],
+      [350, 0.25591, 0.34951, -2.9641],
+      [375, 0.264, 0.352, -3.5814],
+      [400, 0.27218, 0.35407, -4.3633],
+      [425, 0.28039, 0.35577, -5.3762],
+      [450, 0.28863, 0.35714, -6.7262],
+      [475, 0.29685, 0.35823, -8.5955],
+      [500, 0.30505, 0.35907, -11.324],
+      [525, 0.3132, 0.35968, -15.628],
+      [550, 0.32129, 0.36011, -23.325],
+      [575, 0.32931, 0.36038, -40.77],
       [600, 0.33724, 0.36051, -116.45],
     ];
     const lines = robertsonLines();
@@ -74,14 +101,22 @@ describe("Planckian locus", () => {
     expect(Math.abs(p.y - a.y)).toBeLessThan(2e-7);
   });
 
-  it.skipIf(!HAVE_REFERENCE)("matches the chromaticity of the CIE illuminant A table at 1 nm (CIE dataset 10.25039/CIE.DS.8jsxjrsn) " + (HAVE_REFERENCE ? "" : NO_REFERENCE), () => {
-    const csv = readReferenceCsv("cie_std_illum_a_1nm.csv");
-    const a = chromaticityXy(lightTristimulus(spectrum(csv.column("wavelength_nm"), csv.column("A"), { quantity: "relative power" })));
-    const p = planckianChromaticity((2848 * 1.4388) / 1.435);
-    // the table has 6 significant figures (README: largest relative deviation from the formula 4.8e-6)
-    expect(Math.abs(p.x - a.x)).toBeLessThan(2e-6);
-    expect(Math.abs(p.y - a.y)).toBeLessThan(2e-6);
-  });
+  it.skipIf(!HAVE_REFERENCE)(
+    "matches the chromaticity of the CIE illuminant A table at 1 nm (CIE dataset 10.25039/CIE.DS.8jsxjrsn) " +
+      (HAVE_REFERENCE ? "" : NO_REFERENCE),
+    () => {
+      const csv = readReferenceCsv("cie_std_illum_a_1nm.csv");
+      const a = chromaticityXy(
+        lightTristimulus(
+          spectrum(csv.column("wavelength_nm"), csv.column("A"), { quantity: "relative power" }),
+        ),
+      );
+      const p = planckianChromaticity((2848 * 1.4388) / 1.435);
+      // the table has 6 significant figures (README: largest relative deviation from the formula 4.8e-6)
+      expect(Math.abs(p.x - a.x)).toBeLessThan(2e-6);
+      expect(Math.abs(p.y - a.y)).toBeLessThan(2e-6);
+    },
+  );
 
   it("agrees with a Planckian spectrum summed by the colorimetry code", () => {
     for (const t of [1500, 3000, 6500, 15000]) {
@@ -93,7 +128,8 @@ describe("Planckian locus", () => {
   });
 
   it("refuses temperatures that are not finite or below 100 K, naming the value", () => {
-    for (const bad of [NaN, Infinity, -5, 0, 50]) expect(() => planckianChromaticity(bad)).toThrow(String(bad));
+    for (const bad of [NaN, Infinity, -5, 0, 50])
+      expect(() => planckianChromaticity(bad)).toThrow(String(bad));
     expect(() => planckianUv(NaN)).toThrow(/NaN/);
   });
 });
@@ -119,23 +155,40 @@ describe("CCT and Duv", () => {
   // CIE 015:2004 Table T.8.1 (colorimetric data of the fluorescent illuminants; also CIE 015:2018 Table 10.4):
   // x, y to 4 decimals and CCT in K as tabulated (recalled from memory). The table gives CCTs to 10 K.
   const FL_TABLE: [string, number, number, number][] = [
-    ["FL1", 0.3131, 0.3371, 6430], ["FL2", 0.3721, 0.3751, 4230], ["FL3", 0.4091, 0.3941, 3450],
-    ["FL4", 0.4402, 0.4031, 2940], ["FL5", 0.3138, 0.3452, 6350], ["FL6", 0.3779, 0.3882, 4150],
-    ["FL7", 0.3129, 0.3292, 6500], ["FL8", 0.3458, 0.3586, 5000], ["FL9", 0.3741, 0.3727, 4150],
-    ["FL10", 0.3458, 0.3588, 5000], ["FL11", 0.3805, 0.3769, 4000], ["FL12", 0.437, 0.4042, 3000],
+    ["FL1", 0.3131, 0.3371, 6430],
+    ["FL2", 0.3721, 0.3751, 4230],
+    ["FL3", 0.4091, 0.3941, 3450],
+    ["FL4", 0.4402, 0.4031, 2940],
+    ["FL5", 0.3138, 0.3452, 6350],
+    ["FL6", 0.3779, 0.3882, 4150],
+    ["FL7", 0.3129, 0.3292, 6500],
+    ["FL8", 0.3458, 0.3586, 5000],
+    ["FL9", 0.3741, 0.3727, 4150],
+    ["FL10", 0.3458, 0.3588, 5000],
+    ["FL11", 0.3805, 0.3769, 4000],
+    ["FL12", 0.437, 0.4042, 3000],
   ];
-  it.each(FL_TABLE)("%s: chromaticity and CCT as tabulated in CIE 015 (recalled from memory)", (name, x, y, cct) => {
-    const xy = chromaticityXy(lightTristimulus(illuminant(name)));
-    expect(Math.abs(xy.x - x)).toBeLessThanOrEqual(0.00006);
-    expect(Math.abs(xy.y - y)).toBeLessThanOrEqual(0.00006);
-    const r = cctFromSpectrum(illuminant(name));
-    expect(Math.abs(r.cct - cct)).toBeLessThanOrEqual(10);
-    const rob = cctFromSpectrum(illuminant(name), { method: "robertson" });
-    expect(Math.abs(rob.cct - cct)).toBeLessThanOrEqual(10);
-  });
+  it.each(FL_TABLE)(
+    "%s: chromaticity and CCT as tabulated in CIE 015 (recalled from memory)",
+    (name, x, y, cct) => {
+      const xy = chromaticityXy(lightTristimulus(illuminant(name)));
+      expect(Math.abs(xy.x - x)).toBeLessThanOrEqual(0.00006);
+      expect(Math.abs(xy.y - y)).toBeLessThanOrEqual(0.00006);
+      const r = cctFromSpectrum(illuminant(name));
+      expect(Math.abs(r.cct - cct)).toBeLessThanOrEqual(10);
+      const rob = cctFromSpectrum(illuminant(name), { method: "robertson" });
+      expect(Math.abs(rob.cct - cct)).toBeLessThanOrEqual(10);
+    },
+  );
 
   it("Ohno's result equals the nearest locus point by direct search (the definition, CIE 015:2018 §9.5)", () => {
-    for (const xy of [{ x: 0.3127, y: 0.329 }, { x: 0.44757, y: 0.40745 }, { x: 0.38, y: 0.36 }, { x: 0.29, y: 0.31 }, { x: 0.5, y: 0.41 }]) {
+    for (const xy of [
+      { x: 0.3127, y: 0.329 },
+      { x: 0.44757, y: 0.40745 },
+      { x: 0.38, y: 0.36 },
+      { x: 0.29, y: 0.31 },
+      { x: 0.5, y: 0.41 },
+    ]) {
       const r = cctAndDuv(xy);
       const t = cctByDefinition(xy);
       expect(Math.abs(r.cct - t) / t).toBeLessThan(2e-7);
@@ -147,17 +200,21 @@ describe("CCT and Duv", () => {
 
   it("round trip: chromaticityAtCct then cctAndDuv gives back T and Duv (property, 1000–50000 K, |Duv| ≤ 0.03)", () => {
     fc.assert(
-      fc.property(fc.double({ min: 1000, max: 50000, noNaN: true }), fc.double({ min: -0.03, max: 0.03, noNaN: true }), (t, duv) => {
-        let xy;
-        try {
-          xy = chromaticityAtCct(t, duv);
-        } catch {
-          return; // the offset point falls outside the spectrum locus at low T (physical limit)
-        }
-        const r = cctAndDuv(xy);
-        expect(Math.abs(r.cct - t) / t).toBeLessThan(5e-7);
-        expect(Math.abs(r.duv - duv)).toBeLessThan(1e-9);
-      }),
+      fc.property(
+        fc.double({ min: 1000, max: 50000, noNaN: true }),
+        fc.double({ min: -0.03, max: 0.03, noNaN: true }),
+        (t, duv) => {
+          let xy;
+          try {
+            xy = chromaticityAtCct(t, duv);
+          } catch {
+            return; // the offset point falls outside the spectrum locus at low T (physical limit)
+          }
+          const r = cctAndDuv(xy);
+          expect(Math.abs(r.cct - t) / t).toBeLessThan(5e-7);
+          expect(Math.abs(r.duv - duv)).toBeLessThan(1e-9);
+        },
+      ),
       { numRuns: 60 },
     );
   });

@@ -62,9 +62,15 @@ interface ReportTable {
 /** Every numbered table of a report: caption, header labels (without units) and cell texts. */
 function reportTables(html: string): ReportTable[] {
   const tables: ReportTable[] = [];
-  for (const m of html.matchAll(/<figure class="table-figure"[^>]*><figcaption>([\s\S]*?)<\/figcaption>[\s\S]*?<thead>([\s\S]*?)<\/thead><tbody>([\s\S]*?)<\/tbody>/g)) {
-    const headers = [...m[2]!.matchAll(/<th[^>]*>([\s\S]*?)<\/th>/g)].map((h) => text(h[1]!.replace(/<span class="unit">[\s\S]*?<\/span>/, "")));
-    const rows = [...m[3]!.matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((r) => [...r[1]!.matchAll(/<td[^>]*>([\s\S]*?)<\/td>/g)].map((c) => text(c[1]!)));
+  for (const m of html.matchAll(
+    /<figure class="table-figure"[^>]*><figcaption>([\s\S]*?)<\/figcaption>[\s\S]*?<thead>([\s\S]*?)<\/thead><tbody>([\s\S]*?)<\/tbody>/g,
+  )) {
+    const headers = [...m[2]!.matchAll(/<th[^>]*>([\s\S]*?)<\/th>/g)].map((h) =>
+      text(h[1]!.replace(/<span class="unit">[\s\S]*?<\/span>/, "")),
+    );
+    const rows = [...m[3]!.matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((r) =>
+      [...r[1]!.matchAll(/<td[^>]*>([\s\S]*?)<\/td>/g)].map((c) => text(c[1]!)),
+    );
     tables.push({ caption: text(m[1]!).replace(/^Table \d+\.\s*/, ""), headers, rows });
   }
   return tables;
@@ -98,10 +104,31 @@ beforeAll(async () => {
   // The teaching notebook writes its CSV files into the folder its input names: a temporary one here. It runs twice
   // (two separate processes, same seed) so that the files can be compared byte for byte.
   [main, teachingA] = await Promise.all([
-    tristim(["run", "getting-started.md", "filter-lot-acceptance.md", "display-measurement-record.md", "-o", out]),
-    tristim(["run", "teaching-demo-data.md", "-o", path.join(out, "teaching-demo-data.html"), "--input", `exportFolder=${exportA}`]),
+    tristim([
+      "run",
+      "getting-started.md",
+      "filter-lot-acceptance.md",
+      "display-measurement-record.md",
+      "-o",
+      out,
+    ]),
+    tristim([
+      "run",
+      "teaching-demo-data.md",
+      "-o",
+      path.join(out, "teaching-demo-data.html"),
+      "--input",
+      `exportFolder=${exportA}`,
+    ]),
   ]);
-  teachingB = await tristim(["run", "teaching-demo-data.md", "-o", path.join(out, "teaching-b.html"), "--input", `exportFolder=${exportB}`]);
+  teachingB = await tristim([
+    "run",
+    "teaching-demo-data.md",
+    "-o",
+    path.join(out, "teaching-b.html"),
+    "--input",
+    `exportFolder=${exportB}`,
+  ]);
 }, 300_000);
 
 describe("the example notebooks run cleanly through the tristim command", () => {
@@ -113,13 +140,16 @@ describe("the example notebooks run cleanly through the tristim command", () => 
     expect(teachingB.code).toBe(0);
   });
 
-  it.each(["getting-started", "filter-lot-acceptance", "display-measurement-record", "teaching-demo-data"])("%s: every cell ran, none failed", (name) => {
-    const record = runRecord(name);
-    expect(record.cells.length).toBeGreaterThan(3);
-    expect(record.cells.filter((c) => c.status !== "ok" && c.status !== "listing")).toEqual([]);
-    expect(record.cells.filter((c) => c.error)).toEqual([]);
-    expect(record.exitCode).toBe(0);
-  });
+  it.each(["getting-started", "filter-lot-acceptance", "display-measurement-record", "teaching-demo-data"])(
+    "%s: every cell ran, none failed",
+    (name) => {
+      const record = runRecord(name);
+      expect(record.cells.length).toBeGreaterThan(3);
+      expect(record.cells.filter((c) => c.status !== "ok" && c.status !== "listing")).toEqual([]);
+      expect(record.cells.filter((c) => c.error)).toEqual([]);
+      expect(record.exitCode).toBe(0);
+    },
+  );
 
   it.each([
     ["filter-lot-acceptance", 8],
@@ -165,7 +195,10 @@ describe("filter lot acceptance: results against independent computations", () =
           const i = Math.min(grid.length - 2, Math.floor((w - grid[0]!) / 5));
           return tau[i]! + ((tau[i + 1]! - tau[i]!) * (w - grid[i]!)) / 5;
         };
-        let X = 0, Y = 0, Z = 0, norm = 0;
+        let X = 0,
+          Y = 0,
+          Z = 0,
+          norm = 0;
         wl.forEach((w, i) => {
           if (w < 380 || w > 780) return;
           const e = s.get(w)!;
@@ -249,7 +282,12 @@ describe("display measurement record: results against outside references", () =>
     const patches = readings.filter((r) => r.role === "patch");
     expect(shown.map((r) => r.patch)).toEqual(patches.map((p) => p.patch));
     for (const p of patches) {
-      const reference = toLab({ mode: "rgb", r: Number(p.R) / 255, g: Number(p.G) / 255, b: Number(p.B) / 255 });
+      const reference = toLab({
+        mode: "rgb",
+        r: Number(p.R) / 255,
+        g: Number(p.G) / 255,
+        b: Number(p.B) / 255,
+      });
       const measured = toLab({
         mode: "xyz65",
         x: (Number(p.X) / Number(white.X)) * w65.x,
@@ -270,7 +308,13 @@ describe("display measurement record: results against outside references", () =>
     expect(Math.abs(value("Q3 contrast ratio") / (Y("white") / Y("black")) - 1)).toBeLessThan(1e-12);
     // Least squares of ln L on ln V through the origin, L = (Y − Yblack)/(Ywhite − Yblack), V = code/255.
     const ramp = readings.filter((r) => r.role === "ramp");
-    const pairs = ramp.map((r) => [Math.log(Number(r.R) / 255), Math.log((Number(r.Y) - Y("black")) / (Y("white") - Y("black")))] as const);
+    const pairs = ramp.map(
+      (r) =>
+        [
+          Math.log(Number(r.R) / 255),
+          Math.log((Number(r.Y) - Y("black")) / (Y("white") - Y("black"))),
+        ] as const,
+    );
     const gamma = pairs.reduce((s, [x, y]) => s + x * y, 0) / pairs.reduce((s, [x]) => s + x * x, 0);
     // The same fit computed here from the file: with the full value (not 3 shown decimals) they agree to rounding.
     expect(Math.abs(value("Q4 fitted gamma") - gamma)).toBeLessThan(1e-9);
@@ -286,9 +330,15 @@ describe("teaching demo data: the exported files", () => {
       expect(content.split("\n")[0]).toMatch(/^# INVENTED DEMO DATA/);
       expect(content).toContain("seed 20261201");
       const rows = readDataCsv(path.join(exportA, file));
-      expect(rows.map((r) => Number(r.wavelength_nm))).toEqual(Array.from({ length: 81 }, (_, i) => 380 + 5 * i));
+      expect(rows.map((r) => Number(r.wavelength_nm))).toEqual(
+        Array.from({ length: 81 }, (_, i) => 380 + 5 * i),
+      );
       expect(Object.keys(rows[0]!).length).toBe(columns + 1);
-      const values = rows.flatMap((r) => Object.entries(r).filter(([k]) => k !== "wavelength_nm").map(([, v]) => Number(v)));
+      const values = rows.flatMap((r) =>
+        Object.entries(r)
+          .filter(([k]) => k !== "wavelength_nm")
+          .map(([, v]) => Number(v)),
+      );
       expect(values.every((v) => Number.isFinite(v) && v >= 0)).toBe(true);
       if (file !== "demo-leds.csv") expect(Math.max(...values)).toBeLessThanOrEqual(1);
     }
@@ -296,7 +346,9 @@ describe("teaching demo data: the exported files", () => {
 
   it("writes byte-identical files in two separate runs with the same seed", () => {
     for (const file of Object.keys(files)) {
-      expect(fs.readFileSync(path.join(exportB, file)).equals(fs.readFileSync(path.join(exportA, file)))).toBe(true);
+      expect(
+        fs.readFileSync(path.join(exportB, file)).equals(fs.readFileSync(path.join(exportA, file))),
+      ).toBe(true);
     }
   });
 
@@ -305,10 +357,16 @@ describe("teaching demo data: the exported files", () => {
       // The LED spectra from the exported file and the drive levels from the report (3 decimals), summed at 5 nm
       // with the CIE 1931 CMFs from the reference folder; target CIE 015:2004 Table T.3 D65 (0.31272, 0.32903).
       const cmf = readReferenceCsv("cie_1931_2deg_xyz_1nm.csv");
-      const at = new Map(cmf.column("wavelength_nm").map((w, i) => [w, [cmf.column("x_bar")[i]!, cmf.column("y_bar")[i]!, cmf.column("z_bar")[i]!]]));
+      const at = new Map(
+        cmf
+          .column("wavelength_nm")
+          .map((w, i) => [w, [cmf.column("x_bar")[i]!, cmf.column("y_bar")[i]!, cmf.column("z_bar")[i]!]]),
+      );
       const leds = readDataCsv(path.join(exportA, "demo-leds.csv"));
       const levels = tableRows(report("teaching-demo-data"), "Drive levels that mix the three LEDs");
-      let X = 0, Y = 0, Z = 0;
+      let X = 0,
+        Y = 0,
+        Z = 0;
       for (const { led, "drive level": level } of levels) {
         for (const r of leds) {
           const [x, y, z] = at.get(Number(r.wavelength_nm))!;

@@ -24,31 +24,54 @@ function tristim(args: string[], cwd?: string): { code: number | null; out: stri
 describe("file patterns", () => {
   const folder = tempFolder();
   writeFiles(folder, {
-    "lots/a.csv": "1", "lots/b.csv": "2", "lots/notes.txt": "x", "lots/.hidden.csv": "h",
-    "lots/old/c.csv": "3", "lots/old/deeper/d.csv": "4",
+    "lots/a.csv": "1",
+    "lots/b.csv": "2",
+    "lots/notes.txt": "x",
+    "lots/.hidden.csv": "h",
+    "lots/old/c.csv": "3",
+    "lots/old/deeper/d.csv": "4",
   });
   const rel = (files: string[]) => files.map((f) => path.relative(folder, f).split(path.sep).join("/"));
 
   it("expands a folder, a wildcard, ? and ** (sorted; hidden files left out)", () => {
-    expect(rel(expandFilePattern("lots", folder, "--each data"))).toEqual(["lots/a.csv", "lots/b.csv", "lots/notes.txt"]);
+    expect(rel(expandFilePattern("lots", folder, "--each data"))).toEqual([
+      "lots/a.csv",
+      "lots/b.csv",
+      "lots/notes.txt",
+    ]);
     expect(rel(expandFilePattern("lots/*.csv", folder, "--each data"))).toEqual(["lots/a.csv", "lots/b.csv"]);
     expect(rel(expandFilePattern("lots/?.csv", folder, "--each data"))).toEqual(["lots/a.csv", "lots/b.csv"]);
     expect(rel(expandFilePattern("lots/**/*.csv", folder, "--each data"))).toEqual([
-      "lots/a.csv", "lots/b.csv", "lots/old/c.csv", "lots/old/deeper/d.csv",
+      "lots/a.csv",
+      "lots/b.csv",
+      "lots/old/c.csv",
+      "lots/old/deeper/d.csv",
     ]);
     expect(rel(expandFilePattern("lots/.*.csv", folder, "--each data"))).toEqual(["lots/.hidden.csv"]);
     expect(rel(expandFilePattern("lots/a.csv", folder, "--each data"))).toEqual(["lots/a.csv"]);
   });
 
   it("says clearly when nothing matches", () => {
-    expect(() => expandFilePattern("lots/*.cgats", folder, "--each data")).toThrow("--each data: no files match lots/*.cgats");
+    expect(() => expandFilePattern("lots/*.cgats", folder, "--each data")).toThrow(
+      "--each data: no files match lots/*.cgats",
+    );
     expect(() => expandFilePattern("nope", folder, "--each data")).toThrow("nope: no such file or folder");
   });
 
   it("names reports after the data files, avoiding clashes and index.html", () => {
     const base = "/d";
-    const names = reportNamesFor(["/d/x/lot-1.csv", "/d/x/lot-2.csv", "/d/x/index.csv", "/d/x/p.csv", "/d/x/p.txt", "/d/y/lot-1.csv"], base);
-    expect([...names.values()]).toEqual(["x_lot-1.csv.html", "lot-2.html", "index.csv.html", "p.csv.html", "p.txt.html", "y_lot-1.csv.html"]);
+    const names = reportNamesFor(
+      ["/d/x/lot-1.csv", "/d/x/lot-2.csv", "/d/x/index.csv", "/d/x/p.csv", "/d/x/p.txt", "/d/y/lot-1.csv"],
+      base,
+    );
+    expect([...names.values()]).toEqual([
+      "x_lot-1.csv.html",
+      "lot-2.html",
+      "index.csv.html",
+      "p.csv.html",
+      "p.txt.html",
+      "y_lot-1.csv.html",
+    ]);
   });
 
   it("reads --each as input=files", () => {
@@ -59,8 +82,11 @@ describe("file patterns", () => {
 });
 
 describe("tristim run --each", () => {
-  const NOTEBOOK = "---\ntitle: Lot check (invented data)\ninputs:\n  data: lots/a.csv\n  limit: 5\n---\n# Lot check\n\n" +
-    ts("import fs from 'node:fs';\nconst v = Number(fs.readFileSync(inputs.data, 'utf8'));\ncheck('value', v, { max: inputs.limit });\nconsole.log(inputs.data);");
+  const NOTEBOOK =
+    "---\ntitle: Lot check (invented data)\ninputs:\n  data: lots/a.csv\n  limit: 5\n---\n# Lot check\n\n" +
+    ts(
+      "import fs from 'node:fs';\nconst v = Number(fs.readFileSync(inputs.data, 'utf8'));\ncheck('value', v, { max: inputs.limit });\nconsole.log(inputs.data);",
+    );
 
   it("writes one report per data file and an index, exits with the worst code, and is reproducible", () => {
     const folder = tempFolder();
@@ -70,7 +96,13 @@ describe("tristim run --each", () => {
     expect(first.code).toBe(EXIT.checkFailed);
     expect(first.err).toContain("nb.md [2/3 data=lots/b.csv]");
     expect(first.err).toContain("check failed (cell 1): value: 7 (limits ≤ 5)");
-    expect(fs.readdirSync(path.join(folder, "one")).sort()).toEqual(["a.html", "b.html", "c.html", "index.html", "tristim-assets"]);
+    expect(fs.readdirSync(path.join(folder, "one")).sort()).toEqual([
+      "a.html",
+      "b.html",
+      "c.html",
+      "index.html",
+      "tristim-assets",
+    ]);
     // Each report ran with its own file bound to the input.
     for (const name of ["a", "b", "c"]) {
       const html = fs.readFileSync(path.join(folder, "one", `${name}.html`), "utf8");
@@ -78,9 +110,21 @@ describe("tristim run --each", () => {
       expect(html).toContain("--each (this run&#39;s data file)");
       // The embedded run record names the data file and the check's full value (the files hold 1, 7 and 3).
       const record = readEmbeddedRunRecord(html);
-      expect(record.batch).toEqual({ input: "data", pattern: "lots/*.csv", position: ["a", "b", "c"].indexOf(name) + 1, count: 3, dataFile: `lots/${name}.csv` });
-      expect(record.inputs.find((i) => i.name === "data")).toEqual({ name: "data", value: `lots/${name}.csv`, setBy: "--each" });
-      expect(record.checks.map((c) => [c.value, c.passed])).toEqual([[{ a: 1, b: 7, c: 3 }[name], name !== "b"]]);
+      expect(record.batch).toEqual({
+        input: "data",
+        pattern: "lots/*.csv",
+        position: ["a", "b", "c"].indexOf(name) + 1,
+        count: 3,
+        dataFile: `lots/${name}.csv`,
+      });
+      expect(record.inputs.find((i) => i.name === "data")).toEqual({
+        name: "data",
+        value: `lots/${name}.csv`,
+        setBy: "--each",
+      });
+      expect(record.checks.map((c) => [c.value, c.passed])).toEqual([
+        [{ a: 1, b: 7, c: 3 }[name], name !== "b"],
+      ]);
       expect(record.exitCode).toBe(name === "b" ? EXIT.checkFailed : EXIT.ok);
     }
     const index = fs.readFileSync(path.join(folder, "one", "index.html"), "utf8");
@@ -88,7 +132,9 @@ describe("tristim run --each", () => {
     expect(index).toContain('<a href="a.html">lots/a.csv</a>');
     expect(index).toContain('<a href="b.html">lots/b.csv</a>');
     expect(index).toContain("1 of 3 runs did not pass");
-    expect(index).toMatch(/<tr class="check check-fail" id="run-2">.*FAIL.*lots\/b\.csv.*1 of 1 failed.*value/);
+    expect(index).toMatch(
+      /<tr class="check check-fail" id="run-2">.*FAIL.*lots\/b\.csv.*1 of 1 failed.*value/,
+    );
     expect(index).not.toMatch(/<script\b/);
 
     // Same command again into another folder: byte-identical (diff -r).
@@ -108,7 +154,10 @@ describe("tristim run --each", () => {
     expect(checks.err).toContain("value: NaN, not a number");
     writeFiles(folder, {
       "lots/b.csv": "7",
-      "nb2.md": NOTEBOOK.replace("console.log(inputs.data);", "if (v > 6) throw new Error('reading out of range');"),
+      "nb2.md": NOTEBOOK.replace(
+        "console.log(inputs.data);",
+        "if (v > 6) throw new Error('reading out of range');",
+      ),
     });
     const mixed = tristim(["run", "nb2.md", "--each", "data=lots/*.csv", "--link-assets", "--quiet"], folder);
     expect(mixed.code).toBe(EXIT.notebookFailed);

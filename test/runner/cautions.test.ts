@@ -14,7 +14,8 @@ import { parseNotebook } from "../../runner/parse-notebook.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { outputsOf, runText, ts } from "./helpers.ts";
 
-const TEXT = "Informative only: this is not a certification. The applicable standard, local codes and accredited testing decide.";
+const TEXT =
+  "Informative only: this is not a certification. The applicable standard, local codes and accredited testing decide.";
 
 describe("finding cautions in shown values", () => {
   it("finds each distinct caution in nested plain objects and arrays, once", () => {
@@ -42,10 +43,18 @@ describe("display functions add the caution a result carries", () => {
 
   it("after a value, a table and a figure, each distinct text once; the table leaves out the caution column", () => {
     show({ category: 3, caution: TEXT });
-    showTable([{ filter: "A", tv: 0.12, caution: TEXT }, { filter: "B", tv: 0.3, caution: TEXT }]);
+    showTable([
+      { filter: "A", tv: 0.12, caution: TEXT },
+      { filter: "B", tv: 0.3, caution: TEXT },
+    ]);
     showFigure({ data: [{ type: "scatter", x: [1], y: [2] }], caution: "Figure caution." } as never);
     expect(records.map((r) => `${r.kind}${r.kind === "caution" ? `:${r.about}` : ""}`)).toEqual([
-      "value", "caution:value", "table", "caution:table", "figure", "caution:figure",
+      "value",
+      "caution:value",
+      "table",
+      "caution:table",
+      "figure",
+      "caution:figure",
     ]);
     const table = records[2] as Extract<OutputRecord, { kind: "table" }>;
     expect(table.columns.map((c) => c.label)).toEqual(["filter", "tv"]);
@@ -53,7 +62,10 @@ describe("display functions add the caution a result carries", () => {
 
   it("keeps a caution column the author asked for", () => {
     showTable([{ filter: "A", caution: TEXT }], { columns: ["filter", "caution"] });
-    expect((records[0] as Extract<OutputRecord, { kind: "table" }>).columns.map((c) => c.label)).toEqual(["filter", "caution"]);
+    expect((records[0] as Extract<OutputRecord, { kind: "table" }>).columns.map((c) => c.label)).toEqual([
+      "filter",
+      "caution",
+    ]);
     expect(records[1]).toMatchObject({ kind: "caution", text: TEXT });
   });
 });
@@ -89,12 +101,42 @@ describe("cautions in a run and its report", () => {
   it("treats a caution already said within an earlier, longer one as the same caution", () => {
     const short = "Informative only: not a certification.";
     const run = {
-      notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) }, tool: { name: "tristim", version: "0.1.0" }, node: "v20.0.0",
-      platform: "linux-x64", startedAt: "2024-06-01T10:00:00.000Z", durationMs: 1, inputs: {}, inputsSet: {}, timeLimitMs: 30_000,
-      keepGoing: false, methods: [], filesRead: [], events: [], signature: "x",
+      notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
+      tool: { name: "tristim", version: "0.1.0" },
+      node: "v20.0.0",
+      platform: "linux-x64",
+      startedAt: "2024-06-01T10:00:00.000Z",
+      durationMs: 1,
+      inputs: {},
+      inputsSet: {},
+      timeLimitMs: 30_000,
+      keepGoing: false,
+      methods: [],
+      filesRead: [],
+      events: [],
+      signature: "x",
       cells: [
-        { index: 0, status: "ok" as const, reads: [], outputs: [{ kind: "caution" as const, title: "Eye protection", text: `${short} Do not release eyewear on this record.` }] },
-        { index: 1, status: "ok" as const, reads: [], outputs: [{ kind: "value" as const, text: "3" }, { kind: "caution" as const, title: "Caution", text: short, about: "value" as const }] },
+        {
+          index: 0,
+          status: "ok" as const,
+          reads: [],
+          outputs: [
+            {
+              kind: "caution" as const,
+              title: "Eye protection",
+              text: `${short} Do not release eyewear on this record.`,
+            },
+          ],
+        },
+        {
+          index: 1,
+          status: "ok" as const,
+          reads: [],
+          outputs: [
+            { kind: "value" as const, text: "3" },
+            { kind: "caution" as const, title: "Caution", text: short, about: "value" as const },
+          ],
+        },
       ],
     };
     expect(cautionResults(run)).toHaveLength(1);

@@ -46,7 +46,11 @@ describe("check(): the pass rule", () => {
     // |1.1 − 1.0| is 0.10000000000000009 in doubles; the interval form keeps the limit a reader sees.
     expect(checkRecord("x", 1.1, { target: 1, tolerance: 0.1 }).passed).toBe(true);
     expect(checkRecord("x", 0.9, { target: 1, tolerance: 0.1 }).passed).toBe(true);
-    expect(checkRecord("CCT", 6535, { target: 6500, tolerance: 200, unit: "K" })).toMatchObject({ passed: true, value: 6535, unit: "K" });
+    expect(checkRecord("CCT", 6535, { target: 6500, tolerance: 200, unit: "K" })).toMatchObject({
+      passed: true,
+      value: 6535,
+      unit: "K",
+    });
   });
 
   it("needs every limit given to hold when both forms are given", () => {
@@ -63,7 +67,10 @@ describe("check(): the pass rule", () => {
     const missing = checkRecord("Y", undefined as unknown as number, { min: 0 });
     expect(missing).toMatchObject({ passed: false, valueText: "undefined" });
     expect(missing.detail).toContain("not a number");
-    expect(checkRecord("Y", "12.3" as unknown as number, { min: 0 })).toMatchObject({ passed: false, valueText: '"12.3"' });
+    expect(checkRecord("Y", "12.3" as unknown as number, { min: 0 })).toMatchObject({
+      passed: false,
+      valueText: '"12.3"',
+    });
   });
 
   it("refuses limits that cannot be meant, naming the offending one", () => {
@@ -72,7 +79,9 @@ describe("check(): the pass rule", () => {
     expect(() => checkRecord("x", 1, { maximum: 2 } as never)).toThrow('unknown limit "maximum"');
     expect(() => checkRecord("x", 1, { target: 1 })).toThrow("a target without a tolerance");
     expect(() => checkRecord("x", 1, { tolerance: 1 })).toThrow("a tolerance without a target");
-    expect(() => checkRecord("x", 1, { target: 1, tolerance: -0.1 })).toThrow("tolerance must not be negative, got -0.1");
+    expect(() => checkRecord("x", 1, { target: 1, tolerance: -0.1 })).toThrow(
+      "tolerance must not be negative, got -0.1",
+    );
     expect(() => checkRecord("x", 1, { min: 2, max: 1 })).toThrow("min 2 is greater than max 1");
     expect(() => checkRecord("x", 1, { max: Number.NaN })).toThrow("max must be a finite number, got NaN");
     expect(() => checkRecord("x", 1, undefined as never)).toThrow("the third argument must be limits");
@@ -82,16 +91,31 @@ describe("check(): the pass rule", () => {
 
   it("shows the full value when the rounded one would seem to contradict the outcome", () => {
     // 2.004 rounds to "2.00", which would look like it meets ≤ 2; the record shows 2.004 instead.
-    expect(checkRecord("ΔE00", 2.004, { max: 2, digits: 2 })).toMatchObject({ passed: false, valueText: "2.004" });
-    expect(checkRecord("ΔE00", 1.234, { max: 2, digits: 2 })).toMatchObject({ passed: true, valueText: "1.23" });
+    expect(checkRecord("ΔE00", 2.004, { max: 2, digits: 2 })).toMatchObject({
+      passed: false,
+      valueText: "2.004",
+    });
+    expect(checkRecord("ΔE00", 1.234, { max: 2, digits: 2 })).toMatchObject({
+      passed: true,
+      valueText: "1.23",
+    });
   });
 
   it("checkThat takes a true/false condition and an optional detail", () => {
-    expect(conditionRecord("all patches read", true)).toEqual({ kind: "check", label: "all patches read", passed: true });
-    expect(conditionRecord("monotonic ramp", false, "step 7 is darker than step 6")).toEqual({
-      kind: "check", label: "monotonic ramp", passed: false, detail: "step 7 is darker than step 6",
+    expect(conditionRecord("all patches read", true)).toEqual({
+      kind: "check",
+      label: "all patches read",
+      passed: true,
     });
-    expect(() => conditionRecord("x", 1 as unknown as boolean)).toThrow("the condition must be true or false, got 1");
+    expect(conditionRecord("monotonic ramp", false, "step 7 is darker than step 6")).toEqual({
+      kind: "check",
+      label: "monotonic ramp",
+      passed: false,
+      detail: "step 7 is darker than step 6",
+    });
+    expect(() => conditionRecord("x", 1 as unknown as boolean)).toThrow(
+      "the condition must be true or false, got 1",
+    );
   });
 });
 
@@ -111,7 +135,14 @@ describe("check() and checkThat() as display functions", () => {
 });
 
 describe("words for checks in the report", () => {
-  const r = (partial: Partial<CheckRecord>): CheckRecord => ({ kind: "check", label: "x", passed: true, value: 1, valueText: "1", ...partial });
+  const r = (partial: Partial<CheckRecord>): CheckRecord => ({
+    kind: "check",
+    label: "x",
+    passed: true,
+    value: 1,
+    valueText: "1",
+    ...partial,
+  });
   it("states limits as a spec sheet does", () => {
     expect(limitsText(r({ limits: { min: 8, max: 18 }, unit: "%" }))).toBe("8 to 18 %");
     expect(limitsText(r({ limits: { max: 0.004 } }))).toBe("≤ 0.004");
@@ -119,10 +150,15 @@ describe("words for checks in the report", () => {
     expect(limitsText(r({ limits: { target: 6500, tolerance: 200 }, unit: "K" }))).toBe("6500 ± 200 K");
   });
   it("says how far a value lies from its target and outside a failed limit", () => {
-    expect(marginText(r({ value: 6535, limits: { target: 6500, tolerance: 200 }, unit: "K" }))).toBe("+35 K from target");
-    expect(marginText(r({ passed: false, value: 0.0052, limits: { max: 0.004 } }))).toBe("0.0012 above the limit");
-    expect(marginText(r({ passed: false, value: 2.35, limits: { target: 2.2, tolerance: 0.1 }, digits: 2 })))
-      .toBe("+0.15 from target; 0.05 above the limit");
+    expect(marginText(r({ value: 6535, limits: { target: 6500, tolerance: 200 }, unit: "K" }))).toBe(
+      "+35 K from target",
+    );
+    expect(marginText(r({ passed: false, value: 0.0052, limits: { max: 0.004 } }))).toBe(
+      "0.0012 above the limit",
+    );
+    expect(
+      marginText(r({ passed: false, value: 2.35, limits: { target: 2.2, tolerance: 0.1 }, digits: 2 })),
+    ).toBe("+0.15 from target; 0.05 above the limit");
     expect(marginText(r({ value: 1, limits: { min: 0 } }))).toBeUndefined();
     expect(marginText(r({ value: 8, limits: { target: 8, tolerance: 0 } }))).toBe("on target");
   });
@@ -148,23 +184,32 @@ describe("checks in a run", () => {
   it("are kept in order, the last-line check is not shown again as true/false, and the summary lists the failed", async () => {
     const { document, run } = await runText(
       "# Lot 7\n\n" +
-        ts('check("τv", 0.125, { min: 0.08, max: 0.18, unit: "", digits: 3 });\ncheck("ΔE00 patch 3", 2.6, { max: 2, digits: 2 })') +
+        ts(
+          'check("τv", 0.125, { min: 0.08, max: 0.18, unit: "", digits: 3 });\ncheck("ΔE00 patch 3", 2.6, { max: 2, digits: 2 })',
+        ) +
         ts('const n = 12;\ncheckThat("all 12 filters measured", n === 12)') +
-        ts("check(\"<b>evil</b>\", Number.NaN, { max: 1 })"),
+        ts('check("<b>evil</b>", Number.NaN, { max: 1 })'),
     );
     expect(run.cells.map((c) => c.status)).toEqual(["ok", "ok", "ok"]);
     expect(outputsOf(run, 0, "check").map((c) => c.passed)).toEqual([true, false]);
     expect(outputsOf(run, 0, "value")).toEqual([]);
     expect(outputsOf(run, 1, "value")).toEqual([]);
     expect(countChecks(run)).toEqual({ passed: 2, failed: 2 });
-    expect(checkResults(run).map((c) => c.anchor)).toEqual(["check-1-1", "check-1-2", "check-2-1", "check-3-1"]);
+    expect(checkResults(run).map((c) => c.anchor)).toEqual([
+      "check-1-1",
+      "check-1-2",
+      "check-2-1",
+      "check-3-1",
+    ]);
     expect(runExitCode(run)).toBe(EXIT.checkFailed);
 
     const html = renderReport(document, run);
     expect(html).toContain("2 of 4 acceptance checks failed");
     expect(html).toContain('href="#check-1-2"');
     expect(html).toContain('id="check-1-2"');
-    expect(html).toMatch(/<tr class="check check-fail" id="check-1-2">.*FAIL.*ΔE00 patch 3.*2\.60.*0\.6 above the limit.*≤ 2/);
+    expect(html).toMatch(
+      /<tr class="check check-fail" id="check-1-2">.*FAIL.*ΔE00 patch 3.*2\.60.*0\.6 above the limit.*≤ 2/,
+    );
     expect(html).toMatch(/<tr class="check check-pass" id="check-1-1">.*pass.*τv.*0\.125.*0\.08 to 0\.18/);
     expect(html).toContain("&lt;b&gt;evil&lt;/b&gt;");
     expect(html).not.toContain("<b>evil</b>");
@@ -172,13 +217,17 @@ describe("checks in a run", () => {
   });
 
   it("a failed cell's exit code wins over a failed check", async () => {
-    const { run } = await runText(ts('check("a", 5, { max: 1 });') + ts("throw new Error('instrument file missing')"));
+    const { run } = await runText(
+      ts('check("a", 5, { max: 1 });') + ts("throw new Error('instrument file missing')"),
+    );
     expect(countChecks(run).failed).toBe(1);
     expect(runExitCode(run)).toBe(EXIT.notebookFailed);
   });
 
   it("keeps every check even past the cap on a cell's outputs", async () => {
-    const { run } = await runText(ts("for (let i = 0; i < 1500; i++) console.log(i), show(i);\ncheck('late', 3, { max: 1 });"));
+    const { run } = await runText(
+      ts("for (let i = 0; i < 1500; i++) console.log(i), show(i);\ncheck('late', 3, { max: 1 });"),
+    );
     expect(countChecks(run)).toEqual({ passed: 0, failed: 1 });
   });
 });
@@ -190,26 +239,45 @@ describe("tristim run with checks", () => {
     expect(ok.code).toBe(EXIT.ok);
     expect(ok.out).toContain("1 check passed");
 
-    const failing = notebookFile(ts('check("white Δu′v′", 0.0052, { max: 0.004 });\ncheckThat("ramp monotonic", true)'));
+    const failing = notebookFile(
+      ts('check("white Δu′v′", 0.0052, { max: 0.004 });\ncheckThat("ramp monotonic", true)'),
+    );
     const bad = tristim(["run", failing]);
     expect(bad.code).toBe(EXIT.checkFailed);
     expect(bad.err).toContain("1 of 2 checks FAILED");
     expect(bad.err).toContain("check failed (cell 1): white Δu′v′: 0.0052 (limits ≤ 0.004)");
-    expect(fs.readFileSync(failing.replace(/\.md$/, ".html"), "utf8")).toContain("1 of 2 acceptance checks failed");
+    expect(fs.readFileSync(failing.replace(/\.md$/, ".html"), "utf8")).toContain(
+      "1 of 2 acceptance checks failed",
+    );
 
-    const both = notebookFile(ts('check("white Δu′v′", 0.0052, { max: 0.004 })') + ts("throw new Error('boom')"));
+    const both = notebookFile(
+      ts('check("white Δu′v′", 0.0052, { max: 0.004 })') + ts("throw new Error('boom')"),
+    );
     expect(tristim(["run", both]).code).toBe(EXIT.notebookFailed);
     // Several notebooks: the worst code over them.
-    expect(tristim(["run", passing, failing, "-o", path.join(path.dirname(passing), "out")]).code).toBe(EXIT.checkFailed);
+    expect(tristim(["run", passing, failing, "-o", path.join(path.dirname(passing), "out")]).code).toBe(
+      EXIT.checkFailed,
+    );
   }, 120_000);
 });
 
 /** A run record for renderer-only tests. */
 export function fakeRun(outputs: OutputRecord[]): RunRecord {
   return {
-    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) }, tool: { name: "tristim", version: "0.1.0" }, node: "v20.0.0",
-    platform: "linux-x64", startedAt: "2024-06-01T10:00:00.000Z", durationMs: 1, inputs: {}, inputsSet: {}, timeLimitMs: 30_000,
-    keepGoing: false, cells: [{ index: 0, status: "ok", outputs, durationMs: 1, reads: [] }], methods: [], filesRead: [], events: [],
+    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
+    tool: { name: "tristim", version: "0.1.0" },
+    node: "v20.0.0",
+    platform: "linux-x64",
+    startedAt: "2024-06-01T10:00:00.000Z",
+    durationMs: 1,
+    inputs: {},
+    inputsSet: {},
+    timeLimitMs: 30_000,
+    keepGoing: false,
+    cells: [{ index: 0, status: "ok", outputs, durationMs: 1, reads: [] }],
+    methods: [],
+    filesRead: [],
+    events: [],
     signature: "x",
   };
 }
@@ -217,7 +285,10 @@ export function fakeRun(outputs: OutputRecord[]): RunRecord {
 describe("the summary", () => {
   it("says all passed in words, not colour alone", () => {
     const doc = parseNotebook(ts("1"), "/lab/nb.md");
-    const html = renderReport(doc, fakeRun([checkRecord("a", 1, { max: 2 }), checkRecord("b", 1, { max: 2 })]));
+    const html = renderReport(
+      doc,
+      fakeRun([checkRecord("a", 1, { max: 2 }), checkRecord("b", 1, { max: 2 })]),
+    );
     expect(html).toContain("All 2 acceptance checks passed");
     expect(html).not.toContain("FAIL");
   });

@@ -27,7 +27,21 @@ describe("tristim command line", () => {
   it("prints help with the commands, options, cell options and exit codes", () => {
     const { code, out } = tristim(["--help"]);
     expect(code).toBe(EXIT.ok);
-    for (const word of ["tristim run", "tristim watch", "--output", "--input", "--time-limit", "--keep-going", "--link-assets", "--port", "hide-source", "no-run", "caption=", "time-limit=", "Exit codes"]) {
+    for (const word of [
+      "tristim run",
+      "tristim watch",
+      "--output",
+      "--input",
+      "--time-limit",
+      "--keep-going",
+      "--link-assets",
+      "--port",
+      "hide-source",
+      "no-run",
+      "caption=",
+      "time-limit=",
+      "Exit codes",
+    ]) {
       expect(out).toContain(word);
     }
     const bare = tristim([]);
@@ -62,7 +76,9 @@ describe("tristim command line", () => {
   });
 
   it("runs a notebook with inputs from the command line and writes the report where -o says", () => {
-    const file = notebookFile("---\ninputs:\n  lamp: A\n  n: 1\n---\n" + ts("console.log(`lamp=${inputs.lamp} n=${inputs.n + 1}`)"));
+    const file = notebookFile(
+      "---\ninputs:\n  lamp: A\n  n: 1\n---\n" + ts("console.log(`lamp=${inputs.lamp} n=${inputs.n + 1}`)"),
+    );
     const target = path.join(path.dirname(file), "out", "report.html");
     const { code, out } = tristim(["run", file, "-o", target, "--input", "lamp=F11", "--input", "n=41"]);
     expect(code).toBe(EXIT.ok);
@@ -75,7 +91,13 @@ describe("tristim command line", () => {
 
   it("exits with 1 when a cell fails, names notebook file:line:column, and still writes the report", () => {
     const folder = tempFolder();
-    writeFiles(folder, { "a.md": "# A\n\n" + ts("const x = 1;\nthrow new RangeError('wavelength 2000 nm is outside 360-830 nm');") + ts("1"), "b.md": ts("1") });
+    writeFiles(folder, {
+      "a.md":
+        "# A\n\n" +
+        ts("const x = 1;\nthrow new RangeError('wavelength 2000 nm is outside 360-830 nm');") +
+        ts("1"),
+      "b.md": ts("1"),
+    });
     const { code, err, out } = tristim(["run", "a.md", "b.md", "-o", "reports"], folder);
     expect(code).toBe(EXIT.notebookFailed);
     expect(err).toContain("a.md:5:7: cell 1 failed: RangeError: wavelength 2000 nm is outside 360-830 nm");

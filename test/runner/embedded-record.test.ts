@@ -15,11 +15,13 @@ const ABC_SHA256 = "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f200
 
 const NOTEBOOK =
   "---\ntitle: Embedded record (invented data)\ninputs:\n  limit: 0.2\n  lamp: A\n---\n# Embedded record\n\n" +
-  ts("import fs from 'node:fs';\nconst text = fs.readFileSync('data/abc.txt', 'utf8');\nconst w = whitePoint();\n" +
-    "check('sum', 0.1 + 0.2, { max: inputs.limit, digits: 2, unit: 'cd/m²' });\n" +
-    "check('Y of the white', w.Y, { target: 100, tolerance: 0.01 });\n" +
-    "checkThat('file says abc', text === 'abc', 'read from data/abc.txt');\n" +
-    "show({ category: 3, caution: 'Informative only: the applicable standard decides.' });") +
+  ts(
+    "import fs from 'node:fs';\nconst text = fs.readFileSync('data/abc.txt', 'utf8');\nconst w = whitePoint();\n" +
+      "check('sum', 0.1 + 0.2, { max: inputs.limit, digits: 2, unit: 'cd/m²' });\n" +
+      "check('Y of the white', w.Y, { target: 100, tolerance: 0.01 });\n" +
+      "checkThat('file says abc', text === 'abc', 'read from data/abc.txt');\n" +
+      "show({ category: 3, caution: 'Informative only: the applicable standard decides.' });",
+  ) +
   ts("throw new RangeError('lamp out of range');", "may-fail") +
   ts("1 + 1", "no-run");
 
@@ -27,27 +29,79 @@ describe("the run record embedded in the report", () => {
   it("holds the cells, checks with their full values and limits, cautions, Methods, inputs and files of a real run", async () => {
     const { document, run } = await runText(NOTEBOOK, { inputs: { lamp: "D65" } }, { "data/abc.txt": "abc" });
     const record = readEmbeddedRunRecord(renderReport(document, run));
-    expect(record).toMatchObject({ format: "tristim-run-record", version: RUN_RECORD_VERSION, title: "Embedded record (invented data)" });
+    expect(record).toMatchObject({
+      format: "tristim-run-record",
+      version: RUN_RECORD_VERSION,
+      title: "Embedded record (invented data)",
+    });
     expect(record.notebook.file).toBe("nb.md");
     expect(record.reproducible).toBe(false);
     expect(typeof record.startedAt).toBe("string");
-    expect(record.cells.map((c) => [c.cell, c.status])).toEqual([[1, "ok"], [2, "failed"], [3, "listing"]]);
+    expect(record.cells.map((c) => [c.cell, c.status])).toEqual([
+      [1, "ok"],
+      [2, "failed"],
+      [3, "listing"],
+    ]);
     expect(record.cells[0]).toMatchObject({ checks: 3, checksFailed: 1 });
     // Cell 2 is the fence on line 18; its code is line 19, and V8 places the error at `new` (column 7).
-    expect(record.cells[1]).toMatchObject({ firstLine: 19, failureAllowed: true, error: { failure: "thrown", name: "RangeError", message: "lamp out of range", location: { file: "nb.md", line: 19, column: 7 } } });
+    expect(record.cells[1]).toMatchObject({
+      firstLine: 19,
+      failureAllowed: true,
+      error: {
+        failure: "thrown",
+        name: "RangeError",
+        message: "lamp out of range",
+        location: { file: "nb.md", line: 19, column: 7 },
+      },
+    });
     // The full value, not the report's rounded "0.30": 0.1 + 0.2 is 0.30000000000000004 in IEEE 754 doubles.
-    expect(record.checks[0]).toEqual({ id: "check-1-1", cell: 1, label: "sum", passed: false, value: 0.30000000000000004, valueText: "0.30", unit: "cd/m²", limits: { max: 0.2 }, digits: 2 });
+    expect(record.checks[0]).toEqual({
+      id: "check-1-1",
+      cell: 1,
+      label: "sum",
+      passed: false,
+      value: 0.30000000000000004,
+      valueText: "0.30",
+      unit: "cd/m²",
+      limits: { max: 0.2 },
+      digits: 2,
+    });
     // The white's Y is 100 by the normalisation of CIE 015:2018 §7.1 (k = 100 / Σ S ȳ).
-    expect(record.checks[1]).toMatchObject({ label: "Y of the white", passed: true, limits: { target: 100, tolerance: 0.01 } });
+    expect(record.checks[1]).toMatchObject({
+      label: "Y of the white",
+      passed: true,
+      limits: { target: 100, tolerance: 0.01 },
+    });
     expect(Math.abs(record.checks[1]!.value! - 100)).toBeLessThan(1e-9);
-    expect(record.checks[2]).toEqual({ id: "check-1-3", cell: 1, label: "file says abc", passed: true, detail: "read from data/abc.txt" });
-    expect(record.counts).toEqual({ cells: { ok: 1, failed: 1, "not-run": 0, listing: 1 }, checks: { passed: 2, failed: 1 }, cautions: 1 });
+    expect(record.checks[2]).toEqual({
+      id: "check-1-3",
+      cell: 1,
+      label: "file says abc",
+      passed: true,
+      detail: "read from data/abc.txt",
+    });
+    expect(record.counts).toEqual({
+      cells: { ok: 1, failed: 1, "not-run": 0, listing: 1 },
+      checks: { passed: 2, failed: 1 },
+      cautions: 1,
+    });
     // A failed check and only an allowed cell failure: tristim run exits with 3.
     expect(record.exitCode).toBe(3);
-    expect(record.cautions).toEqual([{ id: "caution-1", cell: 1, title: "Caution", text: "Informative only: the applicable standard decides.", about: "value" }]);
+    expect(record.cautions).toEqual([
+      {
+        id: "caution-1",
+        cell: 1,
+        title: "Caution",
+        text: "Informative only: the applicable standard decides.",
+        about: "value",
+      },
+    ]);
     expect(record.methods).toEqual(run.methods.map((m) => ({ topic: m.topic, statement: m.statement })));
     expect(record.methods.some((m) => m.topic === "observer")).toBe(true);
-    expect(record.inputs).toEqual([{ name: "limit", value: 0.2, setBy: "default" }, { name: "lamp", value: "D65", setBy: "--input" }]);
+    expect(record.inputs).toEqual([
+      { name: "limit", value: 0.2, setBy: "default" },
+      { name: "lamp", value: "D65", setBy: "--input" },
+    ]);
     expect(record.filesRead).toEqual([{ path: "data/abc.txt", sha256: ABC_SHA256, cells: [1] }]);
     expect(JSON.stringify(record)).not.toContain("/tmp");
   });
@@ -76,7 +130,9 @@ describe("the run record embedded in the report", () => {
   });
 
   it("is absent from a page that is not a report, with a clear error", () => {
-    expect(() => readEmbeddedRunRecord("<html><body>hello</body></html>")).toThrow('no <script id="tristim-run-record"> element');
+    expect(() => readEmbeddedRunRecord("<html><body>hello</body></html>")).toThrow(
+      'no <script id="tristim-run-record"> element',
+    );
   });
 });
 
@@ -93,10 +149,18 @@ function runRecord(check: { label: string }, text: string): RunRecord {
     inputsSet: {},
     timeLimitMs: 30_000,
     keepGoing: false,
-    cells: [{
-      index: 0, status: "ok", reads: [], durationMs: 1,
-      outputs: [{ kind: "check", label: check.label, passed: true, value: 1, valueText: "1", limits: { min: 0 } }, { kind: "caution", title: "Caution", text }],
-    }],
+    cells: [
+      {
+        index: 0,
+        status: "ok",
+        reads: [],
+        durationMs: 1,
+        outputs: [
+          { kind: "check", label: check.label, passed: true, value: 1, valueText: "1", limits: { min: 0 } },
+          { kind: "caution", title: "Caution", text },
+        ],
+      },
+    ],
     methods: [],
     filesRead: [],
     events: [],

@@ -7,7 +7,18 @@ import * as display from "../../cells/display.ts";
 import * as entry from "../../cells/tristim-entry.ts";
 import * as lib from "../../lib/index.ts";
 
-const DISPLAY_NAMES = ["show", "showTable", "showFigure", "showSwatches", "showMarkdown", "showHtml", "showCaution", "check", "checkThat", "inputs"];
+const DISPLAY_NAMES = [
+  "show",
+  "showTable",
+  "showFigure",
+  "showSwatches",
+  "showMarkdown",
+  "showHtml",
+  "showCaution",
+  "check",
+  "checkThat",
+  "inputs",
+];
 
 describe('the "tristim" module', () => {
   it("exports every library name and every display function", () => {

@@ -9,7 +9,9 @@ import { consoleText, errorOf, outputsOf, runText, ts } from "./helpers.ts";
 describe("bindings shared between cells", () => {
   it("lets later cells use and redeclare top-level const, let, function and class", async () => {
     const { run } = await runText(
-      ts("const data = [1, 2, 3];\nlet total = 0;\nfunction add(n: number) { total += n; return total; }\nclass Box { constructor(public v: number) {} }") +
+      ts(
+        "const data = [1, 2, 3];\nlet total = 0;\nfunction add(n: number) { total += n; return total; }\nclass Box { constructor(public v: number) {} }",
+      ) +
         ts("add(10);\nconst data = 'replaced';\nconsole.log(typeof data, data, total, new Box(4).v);") +
         ts("let total = 99;\nconst { a, b: [c] } = { a: 1, b: [2] };\nconsole.log(total, a + c, data);"),
     );
@@ -19,19 +21,24 @@ describe("bindings shared between cells", () => {
   });
 
   it("keeps a function's closure over a shared binding live across cells", async () => {
-    const { run } = await runText(ts("let count = 0;\nconst bump = () => ++count;") + ts("bump(); bump();\ncount"));
+    const { run } = await runText(
+      ts("let count = 0;\nconst bump = () => ++count;") + ts("bump(); bump();\ncount"),
+    );
     expect(outputsOf(run, 1, "value")[0]?.text).toBe("2");
   });
 
   it("supports top-level await in any cell", async () => {
     const { run } = await runText(
-      ts("const v = await new Promise<number>((r) => setTimeout(() => r(41), 20));") + ts("const w = await Promise.resolve(v + 1);\nw"),
+      ts("const v = await new Promise<number>((r) => setTimeout(() => r(41), 20));") +
+        ts("const w = await Promise.resolve(v + 1);\nw"),
     );
     expect(outputsOf(run, 1, "value")[0]?.text).toBe("42");
   });
 
   it("shows the last expression's value unless it is undefined", async () => {
-    const { run } = await runText(ts("const x = { a: 1 };\nx") + ts("undefined") + ts("'plain text'") + ts("[1, 2].map((n) => n * 2)"));
+    const { run } = await runText(
+      ts("const x = { a: 1 };\nx") + ts("undefined") + ts("'plain text'") + ts("[1, 2].map((n) => n * 2)"),
+    );
     expect(outputsOf(run, 0, "value")[0]?.text).toBe("{ a: 1 }");
     expect(run.cells[1]!.outputs).toEqual([]);
     expect(outputsOf(run, 2, "value")[0]?.text).toBe("plain text");
@@ -39,7 +46,9 @@ describe("bindings shared between cells", () => {
   });
 
   it("shows a parenthesised last expression, with or without a semicolon, and a sequence of parentheses", async () => {
-    const { run } = await runText(ts("const a = 1;\n({ a, b: [2] })") + ts("(a + 1);") + ts("((a) * 3)\n// a comment after"));
+    const { run } = await runText(
+      ts("const a = 1;\n({ a, b: [2] })") + ts("(a + 1);") + ts("((a) * 3)\n// a comment after"),
+    );
     expect(run.cells.map((c) => c.status)).toEqual(["ok", "ok", "ok"]);
     expect(outputsOf(run, 0, "value")[0]?.text).toBe("{ a: 1, b: [ 2 ] }");
     expect(outputsOf(run, 1, "value")[0]?.text).toBe("2");
@@ -50,8 +59,9 @@ describe("bindings shared between cells", () => {
 describe("console output", () => {
   it("captures console.log/info/warn/error and direct writes per cell, in order, with their stream", async () => {
     const { run } = await runText(
-      ts("console.log('one');\nconsole.warn('two');\nconsole.info('three', 3);\nconsole.error('four');\nprocess.stdout.write('five\\n');") +
-        ts("console.log('next cell');"),
+      ts(
+        "console.log('one');\nconsole.warn('two');\nconsole.info('three', 3);\nconsole.error('four');\nprocess.stdout.write('five\\n');",
+      ) + ts("console.log('next cell');"),
     );
     expect(outputsOf(run, 0, "console")).toEqual([
       { kind: "console", stream: "stdout", text: "one\n" },
@@ -64,7 +74,11 @@ describe("console output", () => {
   });
 
   it("truncates huge output and says how much there was", async () => {
-    const { run } = await runText(ts("const line = 'x'.repeat(999) + '\\n';\nfor (let i = 0; i < 2000; i++) console.log(line.slice(0, -1));"));
+    const { run } = await runText(
+      ts(
+        "const line = 'x'.repeat(999) + '\\n';\nfor (let i = 0; i < 2000; i++) console.log(line.slice(0, -1));",
+      ),
+    );
     const text = consoleText(run, 0);
     expect(text.length).toBe(400_000);
     const note = outputsOf(run, 0, "note")[0]?.text ?? "";
@@ -94,10 +108,17 @@ describe("imports", () => {
 
   it('gives "tristim" imports, globals and files that import "tristim" the same library instance', async () => {
     const { run } = await runText(
-      ts("import { noteMethod, methodsUsed as used } from 'tristim';\nnoteMethod('observer', 'noted through the import');") +
-        ts("noteMethod('illuminant', 'noted through the global');\nimport { noteFromFile } from './note.ts';\nnoteFromFile();\nconsole.log(used().length, methodsUsed().length, typeof show, typeof showTable);"),
+      ts(
+        "import { noteMethod, methodsUsed as used } from 'tristim';\nnoteMethod('observer', 'noted through the import');",
+      ) +
+        ts(
+          "noteMethod('illuminant', 'noted through the global');\nimport { noteFromFile } from './note.ts';\nnoteFromFile();\nconsole.log(used().length, methodsUsed().length, typeof show, typeof showTable);",
+        ),
       {},
-      { "note.ts": "import { noteMethod } from 'tristim';\nexport function noteFromFile() { noteMethod('other', 'noted in a file'); }\n" },
+      {
+        "note.ts":
+          "import { noteMethod } from 'tristim';\nexport function noteFromFile() { noteMethod('other', 'noted in a file'); }\n",
+      },
     );
     expect(consoleText(run, 1)).toBe("3 3 function function\n");
     expect(run.methods).toEqual([
@@ -108,7 +129,9 @@ describe("imports", () => {
   });
 
   it("reports an import that cannot be resolved at the import's line, with a hint", async () => {
-    const { document, run } = await runText("# T\n\n" + ts("const a = 1;\nimport { x } from 'no-such-package-anywhere';"));
+    const { document, run } = await runText(
+      "# T\n\n" + ts("const a = 1;\nimport { x } from 'no-such-package-anywhere';"),
+    );
     const error = errorOf(run, 0);
     expect(error.failure).toBe("compile");
     expect(error.message).toContain('Could not resolve "no-such-package-anywhere"');
@@ -117,25 +140,34 @@ describe("imports", () => {
   });
 
   it("reports a missing named export of tristim clearly where it is used (a name used only as a type is fine)", async () => {
-    const { run } = await runText(ts("import { noSuchThing, NotAValue } from 'tristim';\nlet t: NotAValue | undefined;") + ts("noSuchThing()"));
+    const { run } = await runText(
+      ts("import { noSuchThing, NotAValue } from 'tristim';\nlet t: NotAValue | undefined;") +
+        ts("noSuchThing()"),
+    );
     expect(run.cells[0]!.status).toBe("ok");
     expect(errorOf(run, 1).message).toBe('the module "tristim" has no export named "noSuchThing"');
   });
 
   it("resolves relative paths in cells against the notebook's folder", async () => {
     const { run, document } = await runText(
-      ts("import fs from 'node:fs';\nconsole.log(fs.readFileSync('data/values.csv', 'utf8').trim(), process.cwd());"),
+      ts(
+        "import fs from 'node:fs';\nconsole.log(fs.readFileSync('data/values.csv', 'utf8').trim(), process.cwd());",
+      ),
       {},
       { "data/values.csv": "a,b\n1,2\n" },
     );
     expect(consoleText(run, 0)).toBe(`a,b\n1,2 ${path.dirname(document.path)}\n`);
-    expect(run.filesRead.map((f) => path.relative(path.dirname(document.path), f.path))).toEqual([path.join("data", "values.csv")]);
+    expect(run.filesRead.map((f) => path.relative(path.dirname(document.path), f.path))).toEqual([
+      path.join("data", "values.csv"),
+    ]);
     expect(run.filesRead[0]!.cells).toEqual([0]);
   });
 });
 
 describe("inputs", () => {
-  const text = "---\ninputs:\n  lamp: A\n  count: 2\n  strict: false\n---\n" + ts("console.log(inputs.lamp, inputs.count + 1, inputs.strict)");
+  const text =
+    "---\ninputs:\n  lamp: A\n  count: 2\n  strict: false\n---\n" +
+    ts("console.log(inputs.lamp, inputs.count + 1, inputs.strict)");
 
   it("gives cells the defaults from the front matter", async () => {
     const { run } = await runText(text);
@@ -149,7 +181,9 @@ describe("inputs", () => {
   });
 
   it("rejects an unknown input name and a value of the wrong type", async () => {
-    await expect(runText(text, { inputs: { lmap: "x" } })).rejects.toThrow(/no input named "lmap".*lamp, count, strict/);
+    await expect(runText(text, { inputs: { lmap: "x" } })).rejects.toThrow(
+      /no input named "lmap".*lamp, count, strict/,
+    );
     await expect(runText(text, { inputs: { count: "ten" } })).rejects.toThrow(/takes a number/);
     await expect(runText(text, { inputs: { strict: "yes" } })).rejects.toThrow(/takes true or false/);
   });
@@ -158,7 +192,11 @@ describe("inputs", () => {
 describe("failures", () => {
   it("stops at the first failing cell, marks later cells not run, and maps the error to the notebook line", async () => {
     const { document, run } = await runText(
-      "# Title\n\n" + ts("const ok = 1;") + "\n" + ts("const a = 1;\nconst b = a.toFixed(1);\n(b as any).nope.deeper;") + ts("console.log('never');"),
+      "# Title\n\n" +
+        ts("const ok = 1;") +
+        "\n" +
+        ts("const a = 1;\nconst b = a.toFixed(1);\n(b as any).nope.deeper;") +
+        ts("console.log('never');"),
     );
     expect(run.cells.map((c) => c.status)).toEqual(["ok", "failed", "not-run"]);
     const error = errorOf(run, 1);
@@ -179,7 +217,9 @@ describe("failures", () => {
 
   it("maps errors thrown inside functions of earlier cells and of imported files", async () => {
     const { document, run } = await runText(
-      ts("function check(v: number) {\n  if (v < 0) throw new RangeError(`negative: ${v}`);\n  return v;\n}") + ts("import { boom } from './lib.ts';\ncheck(-2);") ,
+      ts(
+        "function check(v: number) {\n  if (v < 0) throw new RangeError(`negative: ${v}`);\n  return v;\n}",
+      ) + ts("import { boom } from './lib.ts';\ncheck(-2);"),
       {},
       { "lib.ts": "export function boom() { throw new Error('x'); }\n" },
     );
@@ -197,10 +237,16 @@ describe("failures", () => {
   });
 
   it("attributes an unawaited rejection and a throwing timer to the cell that ran", async () => {
-    const { run } = await runText(ts("Promise.reject(new Error('nobody waited'));\n1;") + ts("1"), { keepGoing: true });
+    const { run } = await runText(ts("Promise.reject(new Error('nobody waited'));\n1;") + ts("1"), {
+      keepGoing: true,
+    });
     expect(errorOf(run, 0).message).toContain("nobody waited");
     expect(errorOf(run, 0).failure).toBe("uncaught");
-    const timer = await runText(ts("setTimeout(() => { throw new Error('from a timer'); }, 5);\nawait new Promise((r) => setTimeout(r, 50));"));
+    const timer = await runText(
+      ts(
+        "setTimeout(() => { throw new Error('from a timer'); }, 5);\nawait new Promise((r) => setTimeout(r, 50));",
+      ),
+    );
     expect(errorOf(timer.run, 0).message).toContain("from a timer");
   });
 
@@ -214,7 +260,9 @@ describe("failures", () => {
   });
 
   it("catches process.exit() in a cell and keeps the cell process alive", async () => {
-    const { run } = await runText(ts("const kept = 5;") + ts("process.exit(3);") + ts("kept"), { keepGoing: true });
+    const { run } = await runText(ts("const kept = 5;") + ts("process.exit(3);") + ts("kept"), {
+      keepGoing: true,
+    });
     expect(errorOf(run, 1).failure).toBe("exit");
     expect(errorOf(run, 1).message).toContain("process.exit(3) was called");
     expect(outputsOf(run, 2, "value")[0]?.text).toBe("5");
@@ -222,7 +270,9 @@ describe("failures", () => {
   });
 
   it("reports a crash of the cell process and, when keeping going, restarts it and says so", async () => {
-    const { run } = await runText(ts("process.kill(process.pid, 'SIGKILL');") + ts("console.log('after')"), { keepGoing: true });
+    const { run } = await runText(ts("process.kill(process.pid, 'SIGKILL');") + ts("console.log('after')"), {
+      keepGoing: true,
+    });
     expect(errorOf(run, 0).failure).toBe("crash");
     expect(errorOf(run, 0).message).toContain("SIGKILL");
     expect(consoleText(run, 1)).toBe("after\n");
@@ -230,7 +280,10 @@ describe("failures", () => {
   });
 
   it("after a cell is stopped at its time limit, keeping going runs the next cells in a fresh cell process", async () => {
-    const { run } = await runText(ts("while (true) {}", "time-limit=300ms") + ts("console.log('after')") + ts("console.log('third')"), { keepGoing: true });
+    const { run } = await runText(
+      ts("while (true) {}", "time-limit=300ms") + ts("console.log('after')") + ts("console.log('third')"),
+      { keepGoing: true },
+    );
     expect(run.cells.map((c) => c.status)).toEqual(["failed", "ok", "ok"]);
     expect(errorOf(run, 0).failure).toBe("time-limit");
     expect(consoleText(run, 1)).toBe("after\n");
@@ -238,12 +291,16 @@ describe("failures", () => {
   });
 
   it("runs the remaining cells after a failure when asked to keep going", async () => {
-    const { run } = await runText(ts("throw new Error('first')") + ts("console.log('second')"), { keepGoing: true });
+    const { run } = await runText(ts("throw new Error('first')") + ts("console.log('second')"), {
+      keepGoing: true,
+    });
     expect(run.cells.map((c) => c.status)).toEqual(["failed", "ok"]);
   });
 
   it("lets a may-fail cell fail without stopping the run", async () => {
-    const { run } = await runText(ts("throw new Error('expected')", "may-fail") + ts("console.log('went on')"));
+    const { run } = await runText(
+      ts("throw new Error('expected')", "may-fail") + ts("console.log('went on')"),
+    );
     expect(run.cells[0]).toMatchObject({ status: "failed", failureAllowed: true });
     expect(consoleText(run, 1)).toBe("went on\n");
   });
@@ -257,7 +314,9 @@ describe("failures", () => {
     const { run } = await runText(ts("showFigure({ data: [{ x: [1n, 2n], y: [1, 2] }] });"));
     expect(errorOf(run, 0).failure).toBe("unserializable");
     expect(errorOf(run, 0).message).toContain("the figure.data[0].x[0] is a BigInt");
-    const circular = await runText(ts("const layout: any = {}; layout.self = layout;\nshowFigure({ data: [], layout });"));
+    const circular = await runText(
+      ts("const layout: any = {}; layout.self = layout;\nshowFigure({ data: [], layout });"),
+    );
     expect(errorOf(circular.run, 0).message).toContain("the figure.layout.self refers back to itself");
   });
 });

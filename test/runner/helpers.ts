@@ -45,18 +45,25 @@ export async function runText(
 }
 
 /** The records of one cell of a kind. */
-export function outputsOf<K extends OutputRecord["kind"]>(run: RunRecord, cell: number, kind: K): Extract<OutputRecord, { kind: K }>[] {
+export function outputsOf<K extends OutputRecord["kind"]>(
+  run: RunRecord,
+  cell: number,
+  kind: K,
+): Extract<OutputRecord, { kind: K }>[] {
   return run.cells[cell]!.outputs.filter((o): o is Extract<OutputRecord, { kind: K }> => o.kind === kind);
 }
 
 /** All console text of a cell, joined. */
 export function consoleText(run: RunRecord, cell: number): string {
-  return outputsOf(run, cell, "console").map((o) => o.text).join("");
+  return outputsOf(run, cell, "console")
+    .map((o) => o.text)
+    .join("");
 }
 
 /** The error record of a cell (throws when there is none, so a test fails clearly). */
 export function errorOf(run: RunRecord, cell: number) {
   const error = outputsOf(run, cell, "error")[0];
-  if (!error) throw new Error(`cell ${cell + 1} has no error record; its status is ${run.cells[cell]?.status}`);
+  if (!error)
+    throw new Error(`cell ${cell + 1} has no error record; its status is ${run.cells[cell]?.status}`);
   return error;
 }

@@ -25,7 +25,15 @@ describe("the Methods section", () => {
         { topic: "rgb encoding", statement: "sRGB per IEC 61966-2-1." },
       ],
     });
-    const order = ["Colorimetric conditions", "Observer.", "Derived quantities", "Colour difference.", "RGB encoding.", "Data handling", "Spectral table read: 8 samples."];
+    const order = [
+      "Colorimetric conditions",
+      "Observer.",
+      "Derived quantities",
+      "Colour difference.",
+      "RGB encoding.",
+      "Data handling",
+      "Spectral table read: 8 samples.",
+    ];
     const at = order.map((t) => html.indexOf(t));
     expect(at.every((i) => i >= 0)).toBe(true);
     expect([...at].sort((a, b) => a - b)).toEqual(at);
@@ -47,11 +55,13 @@ describe("the Methods section", () => {
     expect(html).not.toMatch(/SRGB|U′v′|PH of/);
   });
 
-  it("shows every statement of a real run verbatim, one starting with \"sRGB\" included", async () => {
-    const { run } = await runText(ts(
-      'const rgb = rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"));\n' +
-        'noteMethod("rgb encoding", "sRGB values were rounded to 8 bits for the swatch table.");',
-    ));
+  it('shows every statement of a real run verbatim, one starting with "sRGB" included', async () => {
+    const { run } = await runText(
+      ts(
+        'const rgb = rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"));\n' +
+          'noteMethod("rgb encoding", "sRGB values were rounded to 8 bits for the swatch table.");',
+      ),
+    );
     expect(run.cells[0]!.status).toBe("ok");
     expect(run.methods.length).toBeGreaterThan(1);
     const html = renderMethods(run, "methods");
@@ -61,7 +71,12 @@ describe("the Methods section", () => {
   });
 
   it("remarks when more than one observer was used", () => {
-    const html = methods({ methods: [{ topic: "observer", statement: "CIE 1931 2° observer." }, { topic: "observer", statement: "CIE 1964 10° observer." }] });
+    const html = methods({
+      methods: [
+        { topic: "observer", statement: "CIE 1931 2° observer." },
+        { topic: "observer", statement: "CIE 1964 10° observer." },
+      ],
+    });
     expect(html).toContain("More than one observer was used in this run");
   });
 
@@ -69,7 +84,9 @@ describe("the Methods section", () => {
     expect(methods({})).toContain("No colorimetric computations were recorded");
     expect(methods({ methodsMissingFrom: [1] })).not.toContain("No colorimetric computations were recorded");
     expect(methods({ methodsMissingFrom: [1] })).toContain("cell 2 could not be collected");
-    expect(methods({ cells: [{ index: 0, status: "listing", outputs: [], reads: [] }] })).toContain("No cells ran");
+    expect(methods({ cells: [{ index: 0, status: "listing", outputs: [], reads: [] }] })).toContain(
+      "No cells ran",
+    );
   });
 
   it("keeps the notes of earlier cells when a later cell's process is stopped, and says the list may be incomplete", async () => {

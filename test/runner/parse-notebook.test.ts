@@ -31,7 +31,8 @@ describe("parsing a notebook", () => {
   });
 
   it("finds ts and typescript fences as cells, with notebook line numbers; other fences are not cells", () => {
-    const text = "# T\n\n" + ts("const a = 1;") + "\n```js\nnot a cell\n```\n\n```typescript\nconst b = 2;\nb\n```\n";
+    const text =
+      "# T\n\n" + ts("const a = 1;") + "\n```js\nnot a cell\n```\n\n```typescript\nconst b = 2;\nb\n```\n";
     const doc = parseNotebook(text, "/x/nb.md");
     expect(doc.cells.map((c) => c.code)).toEqual(["const a = 1;", "const b = 2;\nb"]);
     expect(doc.cells[0]!.fenceLine).toBe(3);
@@ -40,7 +41,10 @@ describe("parsing a notebook", () => {
   });
 
   it("reads cell options: flags, a quoted caption and a time limit", () => {
-    const doc = parseNotebook(ts("1", 'hide-source caption="Radiance of lamp \\"B\\"" time-limit=2m may-fail'), "/x/nb.md");
+    const doc = parseNotebook(
+      ts("1", 'hide-source caption="Radiance of lamp \\"B\\"" time-limit=2m may-fail'),
+      "/x/nb.md",
+    );
     expect(doc.cells[0]!.options).toEqual({
       hideSource: true,
       showSource: false,
@@ -49,7 +53,10 @@ describe("parsing a notebook", () => {
       caption: 'Radiance of lamp "B"',
       timeLimitMs: 120_000,
     });
-    expect(parseNotebook(ts("1", "no-run show-source"), "/x/nb.md").cells[0]!.options).toMatchObject({ noRun: true, showSource: true });
+    expect(parseNotebook(ts("1", "no-run show-source"), "/x/nb.md").cells[0]!.options).toMatchObject({
+      noRun: true,
+      showSource: true,
+    });
   });
 
   it("rejects an unknown cell option, naming it and its line", () => {

@@ -26,19 +26,31 @@ describe("the provenance appendix", () => {
   it("lists files read and imported with their SHA-256, relative to the notebook, and where each input came from", async () => {
     const { document, run } = await runText(
       "---\ninputs:\n  lamp: A\n  n: 1\n---\n# Lamp\n\n" +
-        ts("import fs from 'node:fs';\nimport { scale } from './lib/helper.ts';\nconst t = fs.readFileSync('data/abc.txt', 'utf8');\nscale(inputs.n)"),
+        ts(
+          "import fs from 'node:fs';\nimport { scale } from './lib/helper.ts';\nconst t = fs.readFileSync('data/abc.txt', 'utf8');\nscale(inputs.n)",
+        ),
       { inputs: { n: "3" } },
       { "data/abc.txt": "abc", "lib/helper.ts": "export const scale = (n: number): number => 2 * n;\n" },
     );
     expect(run.cells[0]!.status).toBe("ok");
     const html = renderReport(document, run);
     const appendix = html.slice(html.indexOf('<section class="run-details"'));
-    expect(appendix).toContain(`<td class="file-path">data/abc.txt</td><td><code class="hash">${ABC_SHA256}</code>`);
+    expect(appendix).toContain(
+      `<td class="file-path">data/abc.txt</td><td><code class="hash">${ABC_SHA256}</code>`,
+    );
     const helper = fs.readFileSync(path.join(path.dirname(document.path), "lib/helper.ts"));
-    expect(appendix).toContain(`lib/helper.ts <span class="file-how">imported</span></td><td><code class="hash">${createHash("sha256").update(helper).digest("hex")}`);
-    expect(appendix).toContain(`SHA-256 ${createHash("sha256").update(fs.readFileSync(document.path)).digest("hex")}`);
-    expect(appendix).toContain("<td><code>n</code></td><td><code>3</code></td><td>the command line (--input)</td>");
-    expect(appendix).toContain("<td><code>lamp</code></td><td><code>&quot;A&quot;</code></td><td>the notebook&#39;s default</td>");
+    expect(appendix).toContain(
+      `lib/helper.ts <span class="file-how">imported</span></td><td><code class="hash">${createHash("sha256").update(helper).digest("hex")}`,
+    );
+    expect(appendix).toContain(
+      `SHA-256 ${createHash("sha256").update(fs.readFileSync(document.path)).digest("hex")}`,
+    );
+    expect(appendix).toContain(
+      "<td><code>n</code></td><td><code>3</code></td><td>the command line (--input)</td>",
+    );
+    expect(appendix).toContain(
+      "<td><code>lamp</code></td><td><code>&quot;A&quot;</code></td><td>the notebook&#39;s default</td>",
+    );
     expect(appendix).toContain(`Node.js ${process.version}`);
     expect(appendix).toContain("Run started");
     expect(appendix).toMatch(/<th class="num">Duration<\/th>/);
@@ -59,14 +71,23 @@ describe("tristim run --reproducible", () => {
   it("gives byte-identical reports for two runs (compared with diff), with figures, checks, cautions, reads and an error", () => {
     const folder = tempFolder();
     writeFiles(folder, {
-      "nb.md": "---\ntitle: Same bytes\ninputs:\n  limit: 1\n---\n# Same bytes\n\n" +
-        ts("import fs from 'node:fs';\nconst v = Number(fs.readFileSync('data/v.txt', 'utf8'));\ncheck('v', v, { max: inputs.limit });\nshow({ category: 1, caution: 'Informative only.' });\nshowFigure({ data: [{ type: 'scatter', x: [1, 2], y: [v, 2 * v] }] }, 'v');") +
+      "nb.md":
+        "---\ntitle: Same bytes\ninputs:\n  limit: 1\n---\n# Same bytes\n\n" +
+        ts(
+          "import fs from 'node:fs';\nconst v = Number(fs.readFileSync('data/v.txt', 'utf8'));\ncheck('v', v, { max: inputs.limit });\nshow({ category: 1, caution: 'Informative only.' });\nshowFigure({ data: [{ type: 'scatter', x: [1, 2], y: [v, 2 * v] }] }, 'v');",
+        ) +
         ts("import { boom } from './helper.ts';\nboom()", "may-fail"),
       "data/v.txt": "2.5",
       "helper.ts": "export function boom(): never {\n  throw new RangeError('out of range');\n}\n",
     });
-    const first = tristim(["run", "nb.md", "--reproducible", "--link-assets", "--input", "limit=2", "-o", "first.html"], folder);
-    const second = tristim(["run", "nb.md", "--reproducible", "--link-assets", "--input", "limit=2", "-o", "second.html"], folder);
+    const first = tristim(
+      ["run", "nb.md", "--reproducible", "--link-assets", "--input", "limit=2", "-o", "first.html"],
+      folder,
+    );
+    const second = tristim(
+      ["run", "nb.md", "--reproducible", "--link-assets", "--input", "limit=2", "-o", "second.html"],
+      folder,
+    );
     expect(first.code).toBe(EXIT.checkFailed);
     expect(second.code).toBe(EXIT.checkFailed);
     const diff = spawnSync("diff", ["first.html", "second.html"], { cwd: folder, encoding: "utf8" });
@@ -84,13 +105,23 @@ describe("tristim run --reproducible", () => {
     expect(record.exitCode).toBe(first.code);
     expect(record.reproducible).toBe(true);
     expect(record).not.toHaveProperty("startedAt");
-    expect(record.cells.map((c) => [c.status, c.durationMs])).toEqual([["ok", undefined], ["failed", undefined]]);
+    expect(record.cells.map((c) => [c.status, c.durationMs])).toEqual([
+      ["ok", undefined],
+      ["failed", undefined],
+    ]);
     expect(record.inputs).toEqual([{ name: "limit", value: 2, setBy: "--input" }]);
     // The error is placed at the notebook line that called into the helper (line 17: `boom()`).
-    expect(record.cells[1]!.error).toMatchObject({ name: "RangeError", message: "out of range", location: { file: "nb.md", line: 17 } });
+    expect(record.cells[1]!.error).toMatchObject({
+      name: "RangeError",
+      message: "out of range",
+      location: { file: "nb.md", line: 17 },
+    });
 
     // Without the option the report carries the date and durations.
-    const plain = tristim(["run", "nb.md", "--link-assets", "--input", "limit=2", "-o", "plain.html"], folder);
+    const plain = tristim(
+      ["run", "nb.md", "--link-assets", "--input", "limit=2", "-o", "plain.html"],
+      folder,
+    );
     expect(plain.code).toBe(EXIT.checkFailed);
     expect(fs.readFileSync(path.join(folder, "plain.html"), "utf8")).toContain("Run started");
   }, 120_000);

@@ -20,7 +20,11 @@ function nextRender(w: Watcher): Promise<RenderEvent> {
 }
 
 /** A raw GET (no URL normalisation, so "/../" reaches the server as written). */
-function get(port: number, rawPath: string, host = `127.0.0.1:${port}`): Promise<{ status: number; body: string }> {
+function get(
+  port: number,
+  rawPath: string,
+  host = `127.0.0.1:${port}`,
+): Promise<{ status: number; body: string }> {
   return new Promise((resolve, reject) => {
     const req = http.request({ host: "127.0.0.1", port, path: rawPath, headers: { host } }, (res) => {
       let body = "";
@@ -33,18 +37,30 @@ function get(port: number, rawPath: string, host = `127.0.0.1:${port}`): Promise
   });
 }
 
-async function watchFolder(files: Record<string, string>): Promise<{ folder: string; notebook: string; w: Watcher; first: RenderEvent }> {
+async function watchFolder(
+  files: Record<string, string>,
+): Promise<{ folder: string; notebook: string; w: Watcher; first: RenderEvent }> {
   const folder = tempFolder();
   writeFiles(folder, files);
   const notebook = path.join(folder, "nb.md");
-  const w = await startWatch(notebook, { port: 0, inputs: {}, keepGoing: false, linkAssets: false, quiet: true, debounceMs: 30 });
+  const w = await startWatch(notebook, {
+    port: 0,
+    inputs: {},
+    keepGoing: false,
+    linkAssets: false,
+    quiet: true,
+    debounceMs: 30,
+  });
   watcher = w;
   const first = await nextRender(w);
   return { folder, notebook, w, first };
 }
 
-const NOTEBOOK = "# Watched\n\nFirst prose.\n\n" +
-  ts("import fs from 'node:fs';\nfs.appendFileSync('runs.log', 'run\\n');\nconst level = fs.readFileSync('level.txt', 'utf8').trim();\nconsole.log('level ' + level);");
+const NOTEBOOK =
+  "# Watched\n\nFirst prose.\n\n" +
+  ts(
+    "import fs from 'node:fs';\nfs.appendFileSync('runs.log', 'run\\n');\nconst level = fs.readFileSync('level.txt', 'utf8').trim();\nconsole.log('level ' + level);",
+  );
 
 describe("tristim watch", () => {
   it("serves the report on 127.0.0.1 and writes it beside the notebook", async () => {
@@ -61,7 +77,12 @@ describe("tristim watch", () => {
   });
 
   it("refuses paths outside the notebook's folder, hidden files, and foreign Host headers", async () => {
-    const { w, folder } = await watchFolder({ "nb.md": NOTEBOOK, "level.txt": "1", "img/dot.svg": "<svg/>", ".secret": "x" });
+    const { w, folder } = await watchFolder({
+      "nb.md": NOTEBOOK,
+      "level.txt": "1",
+      "img/dot.svg": "<svg/>",
+      ".secret": "x",
+    });
     fs.writeFileSync(path.join(path.dirname(folder), "outside-secret.txt"), "secret");
     expect((await get(w.port, "/img/dot.svg")).status).toBe(200);
     expect((await get(w.port, "/../outside-secret.txt")).status).toBe(403);
@@ -76,7 +97,13 @@ describe("tristim watch", () => {
   it("re-renders a prose-only edit from the last records without running any cell", async () => {
     const { w, folder, notebook } = await watchFolder({ "nb.md": NOTEBOOK, "level.txt": "1" });
     const rendered = nextRender(w);
-    fs.writeFileSync(notebook, NOTEBOOK.replace("First prose.", "Edited prose, and a longer paragraph above the cell.\n\nAnother one."));
+    fs.writeFileSync(
+      notebook,
+      NOTEBOOK.replace(
+        "First prose.",
+        "Edited prose, and a longer paragraph above the cell.\n\nAnother one.",
+      ),
+    );
     const event = await rendered;
     expect(event.executed).toBe(false);
     expect(fs.readFileSync(path.join(folder, "runs.log"), "utf8")).toBe("run\n");
@@ -88,10 +115,15 @@ describe("tristim watch", () => {
   it("runs again when a cell's code changes or a file a cell read changes, and tells pages to reload", async () => {
     const { w, folder, notebook } = await watchFolder({ "nb.md": NOTEBOOK, "level.txt": "1" });
     const events: string[] = [];
-    const stream = http.get({ host: "127.0.0.1", port: w.port, path: EVENTS_PATH, headers: { host: `127.0.0.1:${w.port}` } }, (res) => {
-      res.setEncoding("utf8");
-      res.on("data", (chunk: string) => events.push(...[...chunk.matchAll(/^event: (\w+)$/gm)].map((m) => m[1]!)));
-    });
+    const stream = http.get(
+      { host: "127.0.0.1", port: w.port, path: EVENTS_PATH, headers: { host: `127.0.0.1:${w.port}` } },
+      (res) => {
+        res.setEncoding("utf8");
+        res.on("data", (chunk: string) =>
+          events.push(...[...chunk.matchAll(/^event: (\w+)$/gm)].map((m) => m[1]!)),
+        );
+      },
+    );
     await new Promise((r) => setTimeout(r, 100));
     let rendered = nextRender(w);
     fs.writeFileSync(path.join(folder, "level.txt"), "2");

@@ -35,7 +35,13 @@ function expectLineError(f: () => unknown, line: number, pattern: RegExp): void 
 }
 
 // Invented example tables (not measurements).
-const commaCsv = ["# invented example, transmittance in percent", "wavelength_nm,Filter A,Filter B", "400,10.5,80", "410,12.25,81.5", "420,15,82"].join("\n");
+const commaCsv = [
+  "# invented example, transmittance in percent",
+  "wavelength_nm,Filter A,Filter B",
+  "400,10.5,80",
+  "410,12.25,81.5",
+  "420,15,82",
+].join("\n");
 
 describe("spectral CSV/TSV", () => {
   it("reads a comma table with comments, and reports the inferred separator, decimal mark and percent", () => {
@@ -46,7 +52,9 @@ describe("spectral CSV/TSV", () => {
     expect(r.spectra[0]!.values).toEqual([0.105, 0.1225, 0.15]);
     expect(r.spectra[1]!.quantity).toBe("transmittance");
     expect(r.scale).toBe("percent");
-    expect(r.inferred.join(" ")).toMatch(/separator \(comma\) was inferred.*decimal mark \(point\) was inferred.*read as percent and divided by 100, as inferred from the values \(the largest is 82/);
+    expect(r.inferred.join(" ")).toMatch(
+      /separator \(comma\) was inferred.*decimal mark \(point\) was inferred.*read as percent and divided by 100, as inferred from the values \(the largest is 82/,
+    );
     expect(r.comments).toEqual(["invented example, transmittance in percent"]);
   });
 
@@ -55,7 +63,10 @@ describe("spectral CSV/TSV", () => {
     const semi = commaCsv.replace(/,/g, ";").replace(/(\d)\.(\d)/g, "$1,$2");
     const tabs = commaCsv.replace(/,/g, "\t");
     const ref = parseSpectraCsv(commaCsv, { quantity: "transmittance" }).spectra;
-    for (const [text, d, dec] of [[semi, ";", ","], [tabs, "\t", "."]] as const) {
+    for (const [text, d, dec] of [
+      [semi, ";", ","],
+      [tabs, "\t", "."],
+    ] as const) {
       const r = parseSpectraCsv(text, { quantity: "transmittance" });
       expect(r.delimiter).toBe(d);
       expect(r.decimal).toBe(dec);
@@ -85,50 +96,123 @@ describe("spectral CSV/TSV", () => {
 
   it("gives errors with line numbers for malformed tables", () => {
     // Source: issue requirement — a malformed file gives an error with its line number (lines counted from 1, comments included).
-    expectLineError(() => parseSpectraCsv("# c\nnm,a\n400,0.5\n410,abc\n", { quantity: "reflectance" }), 4, /sample "a" at 410 nm: "abc" is not a number/);
-    expectLineError(() => parseSpectraCsv("nm,a,b\n400,0.5,0.5\n410,0.5\n", { quantity: "reflectance" }), 3, /Record Length/);
-    expectLineError(() => parseSpectraCsv("nm,a\n400,0.5\n400,0.6\n", { quantity: "reflectance" }), 3, /does not increase after 400 nm/);
-    expectLineError(() => parseSpectraCsv("nm;a\n400;0,5\n410;0.6\n", { quantity: "reflectance" }), 3, /mix decimal commas \(first on line 2\) and decimal points \(first on line 3\)/);
-    expectLineError(() => parseSpectraCsv("nm;a\n400;0,5\n410;\n", { quantity: "reflectance" }), 3, /no value at 410 nm/);
-    expectLineError(() => parseSpectraCsv("nm,a,a\n400,0.5,0.5\n", { quantity: "reflectance" }), 1, /"a" appears twice/);
-    expectLineError(() => parseSpectraCsv("patch,X\nred,98.6\n", { quantity: "reflectance" }), 2, /first column must hold wavelengths.*"red"/);
-    expectLineError(() => parseSpectraCsv("nm,a\n0.4,0.5\n", { quantity: "reflectance" }), 2, /not plausible in nanometres/);
-    expectLineError(() => parseSpectraCsv('nm,a\n400,"0.5\n', { quantity: "reflectance" }), 2, /Quote Not Closed/);
+    expectLineError(
+      () => parseSpectraCsv("# c\nnm,a\n400,0.5\n410,abc\n", { quantity: "reflectance" }),
+      4,
+      /sample "a" at 410 nm: "abc" is not a number/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm,a,b\n400,0.5,0.5\n410,0.5\n", { quantity: "reflectance" }),
+      3,
+      /Record Length/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm,a\n400,0.5\n400,0.6\n", { quantity: "reflectance" }),
+      3,
+      /does not increase after 400 nm/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm;a\n400;0,5\n410;0.6\n", { quantity: "reflectance" }),
+      3,
+      /mix decimal commas \(first on line 2\) and decimal points \(first on line 3\)/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm;a\n400;0,5\n410;\n", { quantity: "reflectance" }),
+      3,
+      /no value at 410 nm/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm,a,a\n400,0.5,0.5\n", { quantity: "reflectance" }),
+      1,
+      /"a" appears twice/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("patch,X\nred,98.6\n", { quantity: "reflectance" }),
+      2,
+      /first column must hold wavelengths.*"red"/,
+    );
+    expectLineError(
+      () => parseSpectraCsv("nm,a\n0.4,0.5\n", { quantity: "reflectance" }),
+      2,
+      /not plausible in nanometres/,
+    );
+    expectLineError(
+      () => parseSpectraCsv('nm,a\n400,"0.5\n', { quantity: "reflectance" }),
+      2,
+      /Quote Not Closed/,
+    );
     expect(() => parseSpectraCsv(commaCsv, {} as never)).toThrow(/state what the columns hold/);
-    expect(() => parseSpectraCsv("nm,a\n400,0.5\n", { quantity: "reflectance", delimiter: ",", decimal: "," })).toThrow(/decimal comma cannot be used with comma-separated/);
-    expect(() => parseSpectraCsv("just one column\n400\n", { quantity: "reflectance" })).toThrow(/single column/);
+    expect(() =>
+      parseSpectraCsv("nm,a\n400,0.5\n", { quantity: "reflectance", delimiter: ",", decimal: "," }),
+    ).toThrow(/decimal comma cannot be used with comma-separated/);
+    expect(() => parseSpectraCsv("just one column\n400\n", { quantity: "reflectance" })).toThrow(
+      /single column/,
+    );
   });
 
   it("round-trips through the writer for every separator and decimal mark", () => {
     // Source: RFC 4180 layout; with 17 significant digits every double is written exactly (IEEE 754 round trip).
-    const layouts: Array<[CsvDelimiter, "." | ","]> = [[",", "."], [";", ","], [";", "."], ["\t", ","], ["\t", "."]];
+    const layouts: Array<[CsvDelimiter, "." | ","]> = [
+      [",", "."],
+      [";", ","],
+      [";", "."],
+      ["\t", ","],
+      ["\t", "."],
+    ];
     fc.assert(
-      fc.property(fc.array(fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 4, maxLength: 4 }), { minLength: 1, maxLength: 4 }), fc.constantFrom(...layouts), (cols, [delimiter, decimal]) => {
-        const spectra = cols.map((v, i) => spectrum([400, 450.5, 500, 700], v, { name: `s${i}`, quantity: "reflectance" }));
-        const text = formatSpectraCsv(spectra, { delimiter, decimal, digits: 17 });
-        const back = parseSpectraCsv(text, { quantity: "reflectance", scale: "fraction", delimiter, decimal });
-        back.spectra.forEach((s, i) => {
-          expect(s.wavelengths).toEqual(spectra[i]!.wavelengths);
-          s.values.forEach((v, k) => expect(v).toBe(spectra[i]!.values[k]));
-        });
-      }),
+      fc.property(
+        fc.array(fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 4, maxLength: 4 }), {
+          minLength: 1,
+          maxLength: 4,
+        }),
+        fc.constantFrom(...layouts),
+        (cols, [delimiter, decimal]) => {
+          const spectra = cols.map((v, i) =>
+            spectrum([400, 450.5, 500, 700], v, { name: `s${i}`, quantity: "reflectance" }),
+          );
+          const text = formatSpectraCsv(spectra, { delimiter, decimal, digits: 17 });
+          const back = parseSpectraCsv(text, {
+            quantity: "reflectance",
+            scale: "fraction",
+            delimiter,
+            decimal,
+          });
+          back.spectra.forEach((s, i) => {
+            expect(s.wavelengths).toEqual(spectra[i]!.wavelengths);
+            s.values.forEach((v, k) => expect(v).toBe(spectra[i]!.values[k]));
+          });
+        },
+      ),
     );
-    expect(() => formatSpectraCsv([spectrum([1, 2], [1, 2], { name: "lamp", quantity: "relative power" })], { scale: "percent" })).toThrow(/only reflectance and transmittance/);
-    expect(() => formatSpectraCsv([spectrum([400], [0.1], { name: "x" })], { decimal: "," })).toThrow(/decimal comma needs/);
+    expect(() =>
+      formatSpectraCsv([spectrum([1, 2], [1, 2], { name: "lamp", quantity: "relative power" })], {
+        scale: "percent",
+      }),
+    ).toThrow(/only reflectance and transmittance/);
+    expect(() => formatSpectraCsv([spectrum([400], [0.1], { name: "x" })], { decimal: "," })).toThrow(
+      /decimal comma needs/,
+    );
   });
 
   it("reads and writes files by path, naming the file in errors", () => {
     // Source: issue requirement — file readers take a path; errors carry the file and line.
     const dir = mkdtempSync(join(tmpdir(), "tristim-files-"));
     const good = join(dir, "good.csv");
-    writeSpectraCsv(good, [spectrum([400, 500], [0.1, 0.2], { name: "x", quantity: "reflectance" })], { scale: "percent", comments: ["invented"] });
+    writeSpectraCsv(good, [spectrum([400, 500], [0.1, 0.2], { name: "x", quantity: "reflectance" })], {
+      scale: "percent",
+      comments: ["invented"],
+    });
     const r = readSpectraCsv(good, { quantity: "reflectance", scale: "percent" });
     expect(r.spectra[0]!.values[1]).toBeCloseTo(0.2, 15);
     expect(r.comments).toEqual(["invented"]);
     const bad = join(dir, "bad.csv");
     writeFileSync(bad, "nm,a\n400,0.1\n500,x\n");
-    expect(() => readSpectraCsv(bad, { quantity: "reflectance" })).toThrow(new RegExp(`${bad.replace(/[.*+?^${}()|[\]\\/]/g, "\\$&")}, line 3: sample "a"`));
-    expect(() => readSpectraCsv(join(dir, "missing.csv"), { quantity: "reflectance" })).toThrow(/missing\.csv: cannot read the file/);
+    expect(() => readSpectraCsv(bad, { quantity: "reflectance" })).toThrow(
+      new RegExp(`${bad.replace(/[.*+?^${}()|[\]\\/]/g, "\\$&")}, line 3: sample "a"`),
+    );
+    expect(() => readSpectraCsv(join(dir, "missing.csv"), { quantity: "reflectance" })).toThrow(
+      /missing\.csv: cannot read the file/,
+    );
   });
 });
 
@@ -174,41 +258,91 @@ describe("CGATS.17 text", () => {
   it("round-trips spectra, XYZ and Lab through the writer", () => {
     // Source: CGATS.17 layout; 17 significant digits write every double exactly (IEEE 754 round trip).
     fc.assert(
-      fc.property(fc.array(fc.tuple(fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 3, maxLength: 3 }), fc.double({ min: 0, max: 100, noNaN: true })), { minLength: 1, maxLength: 5 }), (rows) => {
-        const spectra = rows.map(([v], i) => spectrum([380, 385.5, 390], v, { name: `p${i}`, quantity: "reflectance" }));
-        const XYZ = rows.map(([, y]) => ({ X: y * 0.95, Y: y, Z: y * 1.09 }));
-        const Lab = rows.map(([, y]) => ({ L: y, a: 0 - y / 7 + 0, b: y / 3 })); // + 0 turns −0 into 0, which text cannot tell apart
-        const text = formatCgats({ spectra, XYZ, Lab, sampleIds: spectra.map((s) => s.name), keywords: { ORIGINATOR: "tristim test", CREATED: "2026-12-01", LOT: "invented 7" }, digits: 17 });
-        const file = parseCgats(text);
-        const back = cgatsSpectra(file, { quantity: "reflectance", scale: "fraction" }).spectra;
-        back.forEach((s, i) => {
-          expect(s.name).toBe(`p${i}`);
-          expect(s.wavelengths).toEqual([380, 385.5, 390]);
-          s.values.forEach((v, k) => expect(v).toBe(spectra[i]!.values[k]));
-        });
-        expect(cgatsTristimulus(file.tables[0]!).map((r) => r.XYZ)).toEqual(XYZ);
-        expect(cgatsLab(file.tables[0]!).map((r) => r.Lab)).toEqual(Lab);
-        expect(file.tables[0]!.declared).toEqual(["LOT"]);
-      }),
+      fc.property(
+        fc.array(
+          fc.tuple(
+            fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 3, maxLength: 3 }),
+            fc.double({ min: 0, max: 100, noNaN: true }),
+          ),
+          { minLength: 1, maxLength: 5 },
+        ),
+        (rows) => {
+          const spectra = rows.map(([v], i) =>
+            spectrum([380, 385.5, 390], v, { name: `p${i}`, quantity: "reflectance" }),
+          );
+          const XYZ = rows.map(([, y]) => ({ X: y * 0.95, Y: y, Z: y * 1.09 }));
+          const Lab = rows.map(([, y]) => ({ L: y, a: 0 - y / 7 + 0, b: y / 3 })); // + 0 turns −0 into 0, which text cannot tell apart
+          const text = formatCgats({
+            spectra,
+            XYZ,
+            Lab,
+            sampleIds: spectra.map((s) => s.name),
+            keywords: { ORIGINATOR: "tristim test", CREATED: "2026-12-01", LOT: "invented 7" },
+            digits: 17,
+          });
+          const file = parseCgats(text);
+          const back = cgatsSpectra(file, { quantity: "reflectance", scale: "fraction" }).spectra;
+          back.forEach((s, i) => {
+            expect(s.name).toBe(`p${i}`);
+            expect(s.wavelengths).toEqual([380, 385.5, 390]);
+            s.values.forEach((v, k) => expect(v).toBe(spectra[i]!.values[k]));
+          });
+          expect(cgatsTristimulus(file.tables[0]!).map((r) => r.XYZ)).toEqual(XYZ);
+          expect(cgatsLab(file.tables[0]!).map((r) => r.Lab)).toEqual(Lab);
+          expect(file.tables[0]!.declared).toEqual(["LOT"]);
+        },
+      ),
       { numRuns: 50 },
     );
-    expect(() => formatCgats({ XYZ: [{ X: 1, Y: 1, Z: 1 }], sampleIds: ["a", "b"] })).toThrow(/one entry per sample/);
-    expect(() => formatCgats({ XYZ: [{ X: 1, Y: 1, Z: 1 }], keywords: { DESCRIPTOR: 'say "hi"' } })).toThrow(/double quote/);
+    expect(() => formatCgats({ XYZ: [{ X: 1, Y: 1, Z: 1 }], sampleIds: ["a", "b"] })).toThrow(
+      /one entry per sample/,
+    );
+    expect(() => formatCgats({ XYZ: [{ X: 1, Y: 1, Z: 1 }], keywords: { DESCRIPTOR: 'say "hi"' } })).toThrow(
+      /double quote/,
+    );
   });
 
   it("gives errors with line numbers for malformed files", () => {
     // Source: issue requirement — a malformed file gives an error with its line number; the CGATS.17 structure rules.
     const lines = cgatsText.split("\n");
-    const edit = (i: number, text: string | null) => lines.flatMap((l, k) => (k === i ? (text === null ? [] : [text]) : [l])).join("\n");
-    expectLineError(() => parseCgats(edit(5, "NUMBER_OF_FIELDS 8")), 6, /NUMBER_OF_FIELDS says 8 but the data format names 9/);
-    expectLineError(() => parseCgats(edit(10, "NUMBER_OF_SETS 3")), 11, /NUMBER_OF_SETS says 3 but the data block has 2/);
-    expectLineError(() => parseCgats(edit(13, '2 "warm grey" 30.0 31.5 33.9 30.2 31.0 27.8')), 14, /has 8 values but the data format names 9/);
-    expectLineError(() => parseCgats(edit(13, '2 "warm grey" 30,0 31.5 33.9 30.2 31.0 27.8 62.5')), 14, /SPECTRAL_NM400 must be a number.*decimal point/);
-    expectLineError(() => parseCgats(edit(13, '2 "warm grey" "n/a" 31.5 33.9 30.2 31.0 27.8 62.5')), 14, /SPECTRAL_NM400 must be a number, found the text/);
+    const edit = (i: number, text: string | null) =>
+      lines.flatMap((l, k) => (k === i ? (text === null ? [] : [text]) : [l])).join("\n");
+    expectLineError(
+      () => parseCgats(edit(5, "NUMBER_OF_FIELDS 8")),
+      6,
+      /NUMBER_OF_FIELDS says 8 but the data format names 9/,
+    );
+    expectLineError(
+      () => parseCgats(edit(10, "NUMBER_OF_SETS 3")),
+      11,
+      /NUMBER_OF_SETS says 3 but the data block has 2/,
+    );
+    expectLineError(
+      () => parseCgats(edit(13, '2 "warm grey" 30.0 31.5 33.9 30.2 31.0 27.8')),
+      14,
+      /has 8 values but the data format names 9/,
+    );
+    expectLineError(
+      () => parseCgats(edit(13, '2 "warm grey" 30,0 31.5 33.9 30.2 31.0 27.8 62.5')),
+      14,
+      /SPECTRAL_NM400 must be a number.*decimal point/,
+    );
+    expectLineError(
+      () => parseCgats(edit(13, '2 "warm grey" "n/a" 31.5 33.9 30.2 31.0 27.8 62.5')),
+      14,
+      /SPECTRAL_NM400 must be a number, found the text/,
+    );
     expectLineError(() => parseCgats(edit(14, null)), 14, /BEGIN_DATA on line 12 is never closed/);
     expectLineError(() => parseCgats(edit(2, 'DESCRIPTOR "unclosed')), 3, /not closed/);
     expectLineError(() => parseCgats(edit(0, 'ORIGINATOR "x"')), 1, /first line must be the file identifier/);
-    expectLineError(() => cgatsSpectra(parseCgats(edit(13, '1 "pale blue" 30.0 31.5 33.9 30.2 31.0 27.8 62.5')), { quantity: "reflectance" }), 14, /"pale blue" appears twice \(lines 13 and 14\)/);
+    expectLineError(
+      () =>
+        cgatsSpectra(parseCgats(edit(13, '1 "pale blue" 30.0 31.5 33.9 30.2 31.0 27.8 62.5')), {
+          quantity: "reflectance",
+        }),
+      14,
+      /"pale blue" appears twice \(lines 13 and 14\)/,
+    );
     expect(() => parseCgatsSpectra(cgatsText, {} as never)).toThrow(/state what the spectral fields hold/);
   });
 

@@ -66,16 +66,22 @@ describe("Fresnel reflection and the plate relation", () => {
   it("recovers internal transmittance from external transmittance (round trip)", () => {
     // Source: the plate relation T = (1 − ρ)²τ/(1 − ρ²τ²) (Hecht §4.6) solved exactly for τ; the round trip must be exact.
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 1.3, max: 2.2, noNaN: true }), (tau, n) => {
-        const rho = surfaceReflectance(n);
-        expect(internalFromExternal(externalFromInternal(tau, rho), rho)).toBeCloseTo(tau, 10);
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 1.3, max: 2.2, noNaN: true }),
+        (tau, n) => {
+          const rho = surfaceReflectance(n);
+          expect(internalFromExternal(externalFromInternal(tau, rho), rho)).toBeCloseTo(tau, 10);
+        },
+      ),
     );
   });
 
   it("works on spectra, with a dispersion curve for n", () => {
     // Source: plate relation (Hecht §4.6), applied wavelength by wavelength with each wavelength's own index.
-    const n = spectrum([400, 500, 600, 700], [1.53, 1.52, 1.515, 1.512], { name: "crown glass n(λ), invented" });
+    const n = spectrum([400, 500, 600, 700], [1.53, 1.52, 1.515, 1.512], {
+      name: "crown glass n(λ), invented",
+    });
     const ext = externalTransmittance(flat(0.5), { refractiveIndex: n });
     grid3.forEach((w, i) => {
       const rho = surfaceReflectance(valueAt(n, w));
@@ -88,10 +94,18 @@ describe("Fresnel reflection and the plate relation", () => {
   it("rejects bad input with clear errors", () => {
     expect(() => surfaceReflectance(Number.NaN)).toThrow(/refractive index is NaN/);
     expect(() => externalTransmittance(flat(0.5), {} as never)).toThrow(/refractiveIndex/);
-    expect(() => externalTransmittance(spectrum(grid3, [50, 60, 70], { name: "percent data" }), { refractiveIndex: 1.5 })).toThrow(/percent/);
+    expect(() =>
+      externalTransmittance(spectrum(grid3, [50, 60, 70], { name: "percent data" }), {
+        refractiveIndex: 1.5,
+      }),
+    ).toThrow(/percent/);
     // A measured 95 % is more than any plate of n = 1.5 can pass (2n/(n²+1) = 92.3 %, Hecht §4.6).
-    expect(() => internalTransmittance(flat(0.95, "too clear"), { refractiveIndex: 1.5 })).toThrow(/at 450 nm.*above 0\.92308/);
-    expect(internalTransmittance(flat(0.95), { refractiveIndex: 1.5, aboveClearPlate: "clip" }).values).toEqual([1, 1, 1]);
+    expect(() => internalTransmittance(flat(0.95, "too clear"), { refractiveIndex: 1.5 })).toThrow(
+      /at 450 nm.*above 0\.92308/,
+    );
+    expect(
+      internalTransmittance(flat(0.95), { refractiveIndex: 1.5, aboveClearPlate: "clip" }).values,
+    ).toEqual([1, 1, 1]);
   });
 });
 
@@ -102,7 +116,9 @@ describe("optical density and Beer–Lambert scaling", () => {
     expect(transmittanceFromDensity(2)).toBeCloseTo(0.01, 14);
     expect(neutralDensityFilter(0.3).values[0]).toBeCloseTo(0.501187, 6);
     expect(() => opticalDensity(0)).toThrow(/infinite/);
-    expect(() => opticalDensitySpectrum(spectrum(grid3, [0.5, 0, 0.5], { name: "blocked" }))).toThrow(/"blocked" at 550 nm/);
+    expect(() => opticalDensitySpectrum(spectrum(grid3, [0.5, 0, 0.5], { name: "blocked" }))).toThrow(
+      /"blocked" at 550 nm/,
+    );
   });
 
   it("doubles the absorbance when the thickness doubles", () => {
@@ -122,7 +138,10 @@ describe("optical density and Beer–Lambert scaling", () => {
         fc.double({ min: 0, max: 5, noNaN: true }),
         fc.double({ min: 0, max: 5, noNaN: true }),
         (tau, a, b) => {
-          expect(scaleInternalValue(scaleInternalValue(tau, a), b)).toBeCloseTo(scaleInternalValue(tau, a * b), 12);
+          expect(scaleInternalValue(scaleInternalValue(tau, a), b)).toBeCloseTo(
+            scaleInternalValue(tau, a * b),
+            12,
+          );
         },
       ),
     );
@@ -155,7 +174,9 @@ describe("filter stacks", () => {
     // T = ((1 − ρ)/(1 + ρ))^N.
     const rho = surfaceReflectance(1.5);
     for (const N of [1, 2, 3, 5]) {
-      const plates = Array.from({ length: N }, (_, k) => filterElement(flat(1, `clear ${k}`), { refractiveIndex: 1.5 }));
+      const plates = Array.from({ length: N }, (_, k) =>
+        filterElement(flat(1, `clear ${k}`), { refractiveIndex: 1.5 }),
+      );
       const withIr = stackTransmittance(plates, { join: "air gaps with interreflection" });
       expect(withIr.values[0]).toBeCloseTo((1 - rho) / (1 + (2 * N - 1) * rho), 12);
       const lost = stackTransmittance(plates, { join: "air gaps" });
@@ -175,7 +196,9 @@ describe("filter stacks", () => {
     // Source: products commute; for "cemented" the outer faces are the same glass (Beer–Lambert + plate relation).
     fc.assert(
       fc.property(fc.array(fractionTriple, { minLength: 1, maxLength: 5 }), (taus) => {
-        const els = taus.map((t, k) => filterElement(spectrum(grid3, t, { name: `f${k}` }), { refractiveIndex: 1.52 }));
+        const els = taus.map((t, k) =>
+          filterElement(spectrum(grid3, t, { name: `f${k}` }), { refractiveIndex: 1.52 }),
+        );
         const reversed = [...els].reverse();
         const rotated = [...els.slice(1), els[0]!];
         for (const join of ["no surface losses", "cemented", "air gaps"] as StackJoin[]) {
@@ -192,25 +215,44 @@ describe("filter stacks", () => {
     // Source: reciprocity of incoherent layered media (Stokes 1862 relations; Kubelka 1954 part II): T is the same
     // from either side. A permutation that moves an absorber between two reflectors changes T.
     fc.assert(
-      fc.property(fc.array(fractionTriple, { minLength: 2, maxLength: 5 }), fc.array(fc.double({ min: 1.3, max: 2.4, noNaN: true }), { minLength: 5, maxLength: 5 }), (taus, ns) => {
-        const els = taus.map((t, k) => filterElement(spectrum(grid3, t, { name: `f${k}` }), { refractiveIndex: ns[k]! }));
-        const a = stackTransmittance(els, { join: "air gaps with interreflection" }).values;
-        stackTransmittance([...els].reverse(), { join: "air gaps with interreflection" }).values.forEach((v, i) => expect(v).toBeCloseTo(a[i]!, 12));
-      }),
+      fc.property(
+        fc.array(fractionTriple, { minLength: 2, maxLength: 5 }),
+        fc.array(fc.double({ min: 1.3, max: 2.4, noNaN: true }), { minLength: 5, maxLength: 5 }),
+        (taus, ns) => {
+          const els = taus.map((t, k) =>
+            filterElement(spectrum(grid3, t, { name: `f${k}` }), { refractiveIndex: ns[k]! }),
+          );
+          const a = stackTransmittance(els, { join: "air gaps with interreflection" }).values;
+          stackTransmittance([...els].reverse(), { join: "air gaps with interreflection" }).values.forEach(
+            (v, i) => expect(v).toBeCloseTo(a[i]!, 12),
+          );
+        },
+      ),
     );
     const clearHigh = filterElement(flat(1, "clear n=2.4"), { refractiveIndex: 2.4 });
     const absorber = filterElement(flat(0.3, "absorber"), { refractiveIndex: 1.0001 });
-    const apart = stackTransmittance([clearHigh, absorber, clearHigh], { join: "air gaps with interreflection" }).values[0]!;
-    const together = stackTransmittance([clearHigh, clearHigh, absorber], { join: "air gaps with interreflection" }).values[0]!;
+    const apart = stackTransmittance([clearHigh, absorber, clearHigh], {
+      join: "air gaps with interreflection",
+    }).values[0]!;
+    const together = stackTransmittance([clearHigh, clearHigh, absorber], {
+      join: "air gaps with interreflection",
+    }).values[0]!;
     expect(Math.abs(apart - together)).toBeGreaterThan(1e-3);
   });
 
   it("builds elements from measured transmittance and refuses mismatched grids", () => {
     // Source: plate relation (Hecht §4.6): one measured plate alone, re-stacked with "air gaps", gives its measurement back.
-    const measured = spectrum(grid3, [0.1, 0.4, 0.85], { name: "invented green glass", quantity: "transmittance" });
+    const measured = spectrum(grid3, [0.1, 0.4, 0.85], {
+      name: "invented green glass",
+      quantity: "transmittance",
+    });
     const el = filterElementFromMeasurement(measured, { refractiveIndex: 1.52 });
-    stackTransmittance([el], { join: "air gaps" }).values.forEach((v, i) => expect(v).toBeCloseTo(measured.values[i]!, 12));
-    const other = filterElement(spectrum([450, 560, 650], [1, 1, 1], { name: "other grid" }), { refractiveIndex: 1.5 });
+    stackTransmittance([el], { join: "air gaps" }).values.forEach((v, i) =>
+      expect(v).toBeCloseTo(measured.values[i]!, 12),
+    );
+    const other = filterElement(spectrum([450, 560, 650], [1, 1, 1], { name: "other grid" }), {
+      refractiveIndex: 1.5,
+    });
     expect(() => stackTransmittance([el, other], { join: "air gaps" })).toThrow(/different wavelengths/);
     expect(() => stackTransmittance([], { join: "air gaps" })).toThrow(/no elements/);
     expect(() => stackTransmittance([el], { join: "glued" as StackJoin })).toThrow(/join "glued"/);
@@ -246,7 +288,18 @@ describe("sunglass filter category", () => {
     // Source: ISO 12312-1:2013 Table 1 (recalled from memory): cat 0 > 80–100 %, 1 > 43–80 %, 2 > 18–43 %,
     // 3 > 8–18 %, 4 > 3–8 %; each range excludes its lower limit.
     const cases: Array<[number, number | null]> = [
-      [1, 0], [0.8001, 0], [0.8, 1], [0.4301, 1], [0.43, 2], [0.1801, 2], [0.18, 3], [0.0801, 3], [0.08, 4], [0.0301, 4], [0.03, null], [0.01, null],
+      [1, 0],
+      [0.8001, 0],
+      [0.8, 1],
+      [0.4301, 1],
+      [0.43, 2],
+      [0.1801, 2],
+      [0.18, 3],
+      [0.0801, 3],
+      [0.08, 4],
+      [0.0301, 4],
+      [0.03, null],
+      [0.01, null],
     ];
     for (const [tv, cat] of cases) {
       const r = sunglassCategory(tv);
@@ -283,32 +336,50 @@ describe("light transmitted by a filter", () => {
     expect(narrow.complementary).toBe(false);
     expect(narrow.purity).toBeGreaterThan(0.95);
     const band = bandPassFilter(540, 80, { edgeWidth: 10 });
-    const magenta = transmittedLight(spectrum(band.wavelengths, band.values.map((v) => 0.9 - 0.85 * v), { name: "invented notch", quantity: "transmittance" }));
+    const magenta = transmittedLight(
+      spectrum(
+        band.wavelengths,
+        band.values.map((v) => 0.9 - 0.85 * v),
+        { name: "invented notch", quantity: "transmittance" },
+      ),
+    );
     expect(magenta.complementary).toBe(true);
     expect(magenta.dominantWavelength!).toBeGreaterThan(500);
     expect(magenta.dominantWavelength!).toBeLessThan(570);
-    expect(() => transmittedLight(spectrum([400, 700], [0.5, 0.5], { name: "a tile", quantity: "reflectance" }))).toThrow(/not a transmittance/);
+    expect(() =>
+      transmittedLight(spectrum([400, 700], [0.5, 0.5], { name: "a tile", quantity: "reflectance" })),
+    ).toThrow(/not a transmittance/);
   });
 
   const ref = new URL("../../../../shared/reference/", import.meta.url);
   const d65File = new URL("cie_std_illum_d65_1nm.csv", ref);
   const vFile = new URL("cie_sle_photopic_1nm.csv", ref);
-  it.skipIf(!existsSync(d65File) || !existsSync(vFile))("matches τv summed directly from the CIE D65 and V(λ) dataset files", () => {
-    // Source: CIE D65 (DOI 10.25039/CIE.DS.hjfjmt59) and V(λ) (DOI 10.25039/CIE.DS.dktna2s3) 1 nm files in
-    // /work/shared/reference; τv = Σ S(λ)τ(λ)V(λ) / Σ S(λ)V(λ) (ISO/CIE 11664-3; ISO 12312-1's τv definition).
-    const table = (file: URL) => new Map(readFileSync(file, "utf8").trim().split("\n").slice(1).map((l) => l.split(",").map(Number) as [number, number]));
-    const S = table(d65File);
-    const V = table(vFile);
-    const filter = longPassFilter(520, { edgeWidth: 40, peak: 0.45, floor: 0.02 });
-    let num = 0;
-    let den = 0;
-    filter.wavelengths.forEach((w, i) => {
-      const s = S.get(w)! * V.get(w)!;
-      num += s * filter.values[i]!;
-      den += s;
-    });
-    const r = transmittedLight(filter);
-    expect(r.luminousTransmittance).toBeCloseTo(num / den, 6);
-    expect(filterSunglassCategory(filter).category).toBe(sunglassCategory(num / den).category);
-  });
+  it.skipIf(!existsSync(d65File) || !existsSync(vFile))(
+    "matches τv summed directly from the CIE D65 and V(λ) dataset files",
+    () => {
+      // Source: CIE D65 (DOI 10.25039/CIE.DS.hjfjmt59) and V(λ) (DOI 10.25039/CIE.DS.dktna2s3) 1 nm files in
+      // /work/shared/reference; τv = Σ S(λ)τ(λ)V(λ) / Σ S(λ)V(λ) (ISO/CIE 11664-3; ISO 12312-1's τv definition).
+      const table = (file: URL) =>
+        new Map(
+          readFileSync(file, "utf8")
+            .trim()
+            .split("\n")
+            .slice(1)
+            .map((l) => l.split(",").map(Number) as [number, number]),
+        );
+      const S = table(d65File);
+      const V = table(vFile);
+      const filter = longPassFilter(520, { edgeWidth: 40, peak: 0.45, floor: 0.02 });
+      let num = 0;
+      let den = 0;
+      filter.wavelengths.forEach((w, i) => {
+        const s = S.get(w)! * V.get(w)!;
+        num += s * filter.values[i]!;
+        den += s;
+      });
+      const r = transmittedLight(filter);
+      expect(r.luminousTransmittance).toBeCloseTo(num / den, 6);
+      expect(filterSunglassCategory(filter).category).toBe(sunglassCategory(num / den).category);
+    },
+  );
 });

@@ -17,7 +17,8 @@ import {
 const w = [450, 550, 650];
 // Invented demo reflectances (not measurements) for paper, the inks and their overprints.
 const paper = spectrum(w, [0.85, 0.88, 0.9], { name: "invented paper", quantity: "reflectance" });
-const inv = (name: string, v: number[]) => spectrum(w, v, { name: `invented ${name}`, quantity: "reflectance" });
+const inv = (name: string, v: number[]) =>
+  spectrum(w, v, { name: `invented ${name}`, quantity: "reflectance" });
 const frac = fc.double({ min: 0, max: 1, noNaN: true });
 
 describe("Murray–Davies and Yule–Nielsen", () => {
@@ -38,9 +39,15 @@ describe("Murray–Davies and Yule–Nielsen", () => {
     // Murray–Davies value (R^(1/n) is concave); for n → ∞ the model becomes R = R_s^a·R_p^(1−a) (the limit of the
     // power mean, a standard result of analysis).
     fc.assert(
-      fc.property(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.01, max: 0.5, noNaN: true }), fc.double({ min: 0.6, max: 1, noNaN: true }), fc.double({ min: 1.2, max: 8, noNaN: true }), (a, s, p, n) => {
-        expect(yuleNielsenValue(a, s, p, n)).toBeLessThan(murrayDaviesValue(a, s, p));
-      }),
+      fc.property(
+        fc.double({ min: 0.05, max: 0.95, noNaN: true }),
+        fc.double({ min: 0.01, max: 0.5, noNaN: true }),
+        fc.double({ min: 0.6, max: 1, noNaN: true }),
+        fc.double({ min: 1.2, max: 8, noNaN: true }),
+        (a, s, p, n) => {
+          expect(yuleNielsenValue(a, s, p, n)).toBeLessThan(murrayDaviesValue(a, s, p));
+        },
+      ),
     );
     expect(yuleNielsenValue(0.3, 0.1, 0.9, 1e7)).toBeCloseTo(0.1 ** 0.3 * 0.9 ** 0.7, 5);
   });
@@ -49,10 +56,15 @@ describe("Murray–Davies and Yule–Nielsen", () => {
     // Source: Murray (1936); ISO 12647-1 tone value a = (1 − 10^(−D_t))/(1 − 10^(−D_s)) with densities relative to
     // paper; applied to a tint made by Murray–Davies it must return the coverage used.
     fc.assert(
-      fc.property(frac, fc.double({ min: 0.01, max: 0.5, noNaN: true }), fc.double({ min: 0.6, max: 1, noNaN: true }), (a, s, p) => {
-        const r = murrayDaviesValue(a, s, p);
-        expect(toneValueFromDensity(-Math.log10(r / p), -Math.log10(s / p))).toBeCloseTo(a, 9);
-      }),
+      fc.property(
+        frac,
+        fc.double({ min: 0.01, max: 0.5, noNaN: true }),
+        fc.double({ min: 0.6, max: 1, noNaN: true }),
+        (a, s, p) => {
+          const r = murrayDaviesValue(a, s, p);
+          expect(toneValueFromDensity(-Math.log10(r / p), -Math.log10(s / p))).toBeCloseTo(a, 9);
+        },
+      ),
     );
     expect(() => toneValueFromDensity(1.6, 1.5)).toThrow(/outside paper/);
   });
@@ -100,15 +112,20 @@ describe("spectral Neugebauer with Demichel areas", () => {
     cmy: inv("CMY", [0.03, 0.02, 0.03]),
   };
   const withK: Record<string, ReturnType<typeof spectrum>> = { ...primaries };
-  for (const key of ["ck", "mk", "yk", "cmk", "cyk", "myk", "cmyk"]) withK[key] = inv(key.toUpperCase(), [0.02, 0.02, 0.02]);
+  for (const key of ["ck", "mk", "yk", "cmk", "cyk", "myk", "cmyk"])
+    withK[key] = inv(key.toUpperCase(), [0.02, 0.02, 0.02]);
 
   it("reduces to Murray–Davies for one ink and reproduces its primaries at solid or zero coverage", () => {
     // Source: Neugebauer (1937) with Demichel areas: one ink leaves two primaries with areas 1 − c and c, i.e.
     // Murray–Davies; with all coverages 0 or 1 only one primary has area 1.
     const one = neugebauerReflectance({ c: 0.35 }, primaries);
-    murrayDavies(0.35, primaries.c!, paper).values.forEach((v, i) => expect(one.values[i]).toBeCloseTo(v, 14));
+    murrayDavies(0.35, primaries.c!, paper).values.forEach((v, i) =>
+      expect(one.values[i]).toBeCloseTo(v, 14),
+    );
     const yn = neugebauerReflectance({ c: 0.35 }, primaries, { n: 2 });
-    yuleNielsen(0.35, primaries.c!, paper, 2).values.forEach((v, i) => expect(yn.values[i]).toBeCloseTo(v, 14));
+    yuleNielsen(0.35, primaries.c!, paper, 2).values.forEach((v, i) =>
+      expect(yn.values[i]).toBeCloseTo(v, 14),
+    );
     expect(neugebauerReflectance({ c: 1, m: 0, y: 1 }, primaries).values).toEqual(primaries.cy!.values);
     expect(neugebauerReflectance({ c: 0, m: 0, y: 0, k: 0 }, withK).values).toEqual(paper.values);
     expect(neugebauerReflectance({ c: 1, m: 1, y: 1, k: 1 }, withK).values).toEqual(withK.cmyk!.values);
@@ -119,7 +136,12 @@ describe("spectral Neugebauer with Demichel areas", () => {
     const cov = { c: 0.2, m: 0.5, y: 0.7, k: 0.1 };
     const areas = demichelAreas(cov);
     const r = neugebauerReflectance(cov, withK);
-    r.values.forEach((v, i) => expect(v).toBeCloseTo(Object.entries(areas).reduce((s, [k, a]) => s + a * withK[k]!.values[i]!, 0), 14));
+    r.values.forEach((v, i) =>
+      expect(v).toBeCloseTo(
+        Object.entries(areas).reduce((s, [k, a]) => s + a * withK[k]!.values[i]!, 0),
+        14,
+      ),
+    );
     expect(() => neugebauerReflectance(cov, primaries)).toThrow(/missing primaries "ck", "mk"/);
   });
 });

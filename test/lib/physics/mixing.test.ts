@@ -42,31 +42,65 @@ const cyan = ledSpectrum({ peak: 500, fwhm: 25, grid, name: "cyan LED (model)" }
 describe("additive mixing of lights", () => {
   it("adds spectra with drive levels, and the tristimulus values add likewise", () => {
     // Source: Grassmann's laws / linearity of the tristimulus integral (CIE 015:2018 §7): XYZ(aS₁ + bS₂) = a·XYZ(S₁) + b·XYZ(S₂).
-    const mix = mixLights([{ light: red, level: 0.7 }, { light: green, level: 0.2 }, { light: blue, level: 1.3 }]);
+    const mix = mixLights([
+      { light: red, level: 0.7 },
+      { light: green, level: 0.2 },
+      { light: blue, level: 1.3 },
+    ]);
     const parts = [lightXYZ(red), lightXYZ(green), lightXYZ(blue)];
-    const expected = [0.7, 0.2, 1.3].reduce((s, l, i) => ({ X: s.X + l * parts[i]!.X, Y: s.Y + l * parts[i]!.Y, Z: s.Z + l * parts[i]!.Z }), { X: 0, Y: 0, Z: 0 });
+    const expected = [0.7, 0.2, 1.3].reduce(
+      (s, l, i) => ({ X: s.X + l * parts[i]!.X, Y: s.Y + l * parts[i]!.Y, Z: s.Z + l * parts[i]!.Z }),
+      { X: 0, Y: 0, Z: 0 },
+    );
     const got = lightXYZ(mix);
     expect(got.X).toBeCloseTo(expected.X, 8);
     expect(got.Y).toBeCloseTo(expected.Y, 8);
     expect(got.Z).toBeCloseTo(expected.Z, 8);
     expect(() => mixLights([{ light: red, level: -1 }])).toThrow(/drive level of "red LED \(model\)" is -1/);
-    expect(() => mixLights([{ light: spectrum([500, 600], [0.5, 0.5], { name: "a filter", quantity: "transmittance" }), level: 1 }])).toThrow(/filters multiply/);
-    expect(() => mixLights([{ light: red, level: 1 }, { light: ledSpectrum({ peak: 500, fwhm: 20 }), level: 1 }])).toThrow(/different wavelengths/);
+    expect(() =>
+      mixLights([
+        {
+          light: spectrum([500, 600], [0.5, 0.5], { name: "a filter", quantity: "transmittance" }),
+          level: 1,
+        },
+      ]),
+    ).toThrow(/filters multiply/);
+    expect(() =>
+      mixLights([
+        { light: red, level: 1 },
+        { light: ledSpectrum({ peak: 500, fwhm: 20 }), level: 1 },
+      ]),
+    ).toThrow(/different wavelengths/);
   });
 
   it("solves three primaries exactly: the solution reproduces its target", () => {
     // Source: Grassmann additivity (CIE 015:2018 §7): a mixture of known levels has XYZ = M·levels, so solving for
     // that XYZ must give the levels back and the target chromaticity and luminance.
     fc.assert(
-      fc.property(fc.tuple(fc.double({ min: 0.01, max: 2, noNaN: true }), fc.double({ min: 0.01, max: 2, noNaN: true }), fc.double({ min: 0.01, max: 2, noNaN: true })), (lv) => {
-        const target = toXyY(lightXYZ(mixLights([{ light: red, level: lv[0] }, { light: green, level: lv[1] }, { light: blue, level: lv[2] }])));
-        const sol = solveDriveLevels([red, green, blue], target);
-        expect(sol.reachable).toBe(true);
-        sol.levels.forEach((l, i) => expect(l).toBeCloseTo(lv[i]!, 6));
-        expect(sol.achievedXyY!.x).toBeCloseTo(target.x, 9);
-        expect(sol.achievedXyY!.y).toBeCloseTo(target.y, 9);
-        expect(sol.achievedXyY!.Y / target.Y).toBeCloseTo(1, 9);
-      }),
+      fc.property(
+        fc.tuple(
+          fc.double({ min: 0.01, max: 2, noNaN: true }),
+          fc.double({ min: 0.01, max: 2, noNaN: true }),
+          fc.double({ min: 0.01, max: 2, noNaN: true }),
+        ),
+        (lv) => {
+          const target = toXyY(
+            lightXYZ(
+              mixLights([
+                { light: red, level: lv[0] },
+                { light: green, level: lv[1] },
+                { light: blue, level: lv[2] },
+              ]),
+            ),
+          );
+          const sol = solveDriveLevels([red, green, blue], target);
+          expect(sol.reachable).toBe(true);
+          sol.levels.forEach((l, i) => expect(l).toBeCloseTo(lv[i]!, 6));
+          expect(sol.achievedXyY!.x).toBeCloseTo(target.x, 9);
+          expect(sol.achievedXyY!.y).toBeCloseTo(target.y, 9);
+          expect(sol.achievedXyY!.Y / target.Y).toBeCloseTo(1, 9);
+        },
+      ),
       { numRuns: 40 },
     );
   });
@@ -82,7 +116,9 @@ describe("additive mixing of lights", () => {
     const bright = solveDriveLevels([red, green, blue], white, { maxLevel: 1 });
     expect(bright.reachable).toBe(false);
     expect(bright.message).toMatch(/above the maximum 1/);
-    expect(() => solveDriveLevels([red, green, blue], { x: 0.7, y: 0.5, Y: 1 })).toThrow(/not a physical chromaticity/);
+    expect(() => solveDriveLevels([red, green, blue], { x: 0.7, y: 0.5, Y: 1 })).toThrow(
+      /not a physical chromaticity/,
+    );
     expect(() => solveDriveLevels([red, red, blue], white)).toThrow(/linearly dependent/);
   });
 
@@ -91,14 +127,19 @@ describe("additive mixing of lights", () => {
     // Lawson & Hanson (1974, Theorem 23.4), so a target made from non-negative levels is matched exactly.
     const five = [red, amber, green, cyan, blue];
     fc.assert(
-      fc.property(fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 5, maxLength: 5 }).filter((a) => a.some((v) => v > 0.05)), (lv) => {
-        const target = toXyY(lightXYZ(mixLights(five.map((light, i) => ({ light, level: lv[i]! })))));
-        const sol = solveDriveLevels(five, target);
-        expect(sol.reachable).toBe(true);
-        expect(sol.method).toBe("non-negative least squares");
-        sol.levels.forEach((l) => expect(l).toBeGreaterThanOrEqual(0));
-        expect(sol.relativeError).toBeLessThan(1e-8);
-      }),
+      fc.property(
+        fc
+          .array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 5, maxLength: 5 })
+          .filter((a) => a.some((v) => v > 0.05)),
+        (lv) => {
+          const target = toXyY(lightXYZ(mixLights(five.map((light, i) => ({ light, level: lv[i]! })))));
+          const sol = solveDriveLevels(five, target);
+          expect(sol.reachable).toBe(true);
+          expect(sol.method).toBe("non-negative least squares");
+          sol.levels.forEach((l) => expect(l).toBeGreaterThanOrEqual(0));
+          expect(sol.relativeError).toBeLessThan(1e-8);
+        },
+      ),
       { numRuns: 30 },
     );
     const far = solveDriveLevels(five, { x: 0.05, y: 0.75, Y: 5 }); // near the spectrum locus at 515 nm (CIE 015 locus), outside five LED bands
@@ -122,7 +163,10 @@ describe("additive mixing of lights", () => {
     // w = Aᵀ(b − Ax) has w_j = 0 where x_j > 0 and w_j ≤ 0 where x_j = 0.
     fc.assert(
       fc.property(
-        fc.array(fc.array(fc.double({ min: -5, max: 5, noNaN: true }), { minLength: 4, maxLength: 4 }), { minLength: 3, maxLength: 6 }),
+        fc.array(fc.array(fc.double({ min: -5, max: 5, noNaN: true }), { minLength: 4, maxLength: 4 }), {
+          minLength: 3,
+          maxLength: 6,
+        }),
         fc.array(fc.double({ min: -5, max: 5, noNaN: true }), { minLength: 6, maxLength: 6 }),
         (A, bAll) => {
           const b = bAll.slice(0, A.length);
@@ -148,7 +192,13 @@ describe("LED spectra", () => {
     expect(ohnoLedShape(0)).toBe(1);
     for (const shape of ["ohno 2005", "gaussian"] as const) {
       for (const asymmetry of [0, 0.3]) {
-        const led = ledSpectrum({ peak: 540.5, fwhm: 27, shape, asymmetry, grid: { start: 360, end: 830, step: 0.5 } });
+        const led = ledSpectrum({
+          peak: 540.5,
+          fwhm: 27,
+          shape,
+          asymmetry,
+          grid: { start: 360, end: 830, step: 0.5 },
+        });
         expect(spectralPeak(led).wavelength).toBe(540.5);
         expect(fullWidthHalfMax(led).width).toBeCloseTo(27, 2);
       }
@@ -163,9 +213,15 @@ describe("LED spectra", () => {
   it("makes phosphor-converted white on the line between the pump and the phosphor band", () => {
     // Source: Grassmann's laws (CIE 015:2018 §7): a mixture of two lights lies on the straight line joining
     // their chromaticities in xy; the phosphor-to-blue radiant power ratio is as requested.
-    const w = phosphorWhite({ blue: { peak: 450, fwhm: 20 }, phosphor: { peak: 565, fwhm: 110, asymmetry: 0.2 }, phosphorToBlue: 2.5 });
+    const w = phosphorWhite({
+      blue: { peak: 450, fwhm: 20 },
+      phosphor: { peak: 565, fwhm: 110, asymmetry: 0.2 },
+      phosphorToBlue: 2.5,
+    });
     const pump = chromaticityXy(lightXYZ(ledSpectrum({ peak: 450, fwhm: 20 })));
-    const band = chromaticityXy(lightXYZ(ledSpectrum({ peak: 565, fwhm: 110, asymmetry: 0.2, shape: "gaussian" })));
+    const band = chromaticityXy(
+      lightXYZ(ledSpectrum({ peak: 565, fwhm: 110, asymmetry: 0.2, shape: "gaussian" })),
+    );
     const mix = chromaticityXy(lightXYZ(w));
     const cross = (band.x - pump.x) * (mix.y - pump.y) - (band.y - pump.y) * (mix.x - pump.x);
     expect(Math.abs(cross)).toBeLessThan(1e-12);
@@ -184,13 +240,29 @@ describe("transparent layers and dyes", () => {
     const a1 = spectrum(w, [0.9, 0.1, 0.02], { name: "invented yellow dye", quantity: "absorbance" });
     const a2 = spectrum(w, [0.05, 0.3, 1.2], { name: "invented cyan dye", quantity: "absorbance" });
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 3, noNaN: true }), fc.double({ min: 0, max: 3, noNaN: true }), fc.double({ min: 0.1, max: 5, noNaN: true }), (c1, c2, d) => {
-        const together = dyeMixture([{ absorbance: a1, concentration: c1 }, { absorbance: a2, concentration: c2 }], { path: d });
-        const apart = layeredTransmittance([dyeMixture([{ absorbance: a1, concentration: c1 }], { path: d }), dyeMixture([{ absorbance: a2, concentration: c2 }], { path: d })]);
-        together.values.forEach((v, i) => expect(v).toBeCloseTo(apart.values[i]!, 12));
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 3, noNaN: true }),
+        fc.double({ min: 0, max: 3, noNaN: true }),
+        fc.double({ min: 0.1, max: 5, noNaN: true }),
+        (c1, c2, d) => {
+          const together = dyeMixture(
+            [
+              { absorbance: a1, concentration: c1 },
+              { absorbance: a2, concentration: c2 },
+            ],
+            { path: d },
+          );
+          const apart = layeredTransmittance([
+            dyeMixture([{ absorbance: a1, concentration: c1 }], { path: d }),
+            dyeMixture([{ absorbance: a2, concentration: c2 }], { path: d }),
+          ]);
+          together.values.forEach((v, i) => expect(v).toBeCloseTo(apart.values[i]!, 12));
+        },
+      ),
     );
-    expect(() => layeredTransmittance([spectrum(w, [0.5, 40, 0.5], { name: "percent layer" })])).toThrow(/"percent layer" is 40 at 550 nm/);
+    expect(() => layeredTransmittance([spectrum(w, [0.5, 40, 0.5], { name: "percent layer" })])).toThrow(
+      /"percent layer" is 40 at 550 nm/,
+    );
   });
 });
 
@@ -235,7 +307,12 @@ describe("Kubelka–Munk theory", () => {
   it("matches a direct integration of the two-flux equations for finite layers", () => {
     // Source: the Kubelka–Munk differential equations (Kubelka & Munk 1931), integrated numerically (RK4), against
     // the hyperbolic closed form of Kubelka (1948).
-    for (const [K, S, X, Rg] of [[0.5, 3, 0.4, 0.8], [2, 0.5, 1.2, 0.1], [0.05, 10, 0.2, 0], [1, 1, 2, 0.5]] as const) {
+    for (const [K, S, X, Rg] of [
+      [0.5, 3, 0.4, 0.8],
+      [2, 0.5, 1.2, 0.1],
+      [0.05, 10, 0.2, 0],
+      [1, 1, 2, 0.5],
+    ] as const) {
       const ref = integrateTwoFlux(K, S, X, Rg);
       const got = layerOptics(K, S, X, Rg);
       expect(got.reflectance).toBeCloseTo(ref.R, 9);
@@ -247,13 +324,18 @@ describe("Kubelka–Munk theory", () => {
     // Source: Kubelka (1948): a = (S + K)/S = (1 + R₀² − T²)/(2R₀) = (1 + R∞²)/(2R∞); a layer over a background
     // equal to R∞ reflects R∞ at any thickness; X → ∞ gives R∞; X = 0 gives R_g; S = 0 gives Bouguer's T = e^(−KX).
     fc.assert(
-      fc.property(fc.double({ min: 0.01, max: 5, noNaN: true }), fc.double({ min: 0.01, max: 5, noNaN: true }), fc.double({ min: 0.01, max: 3, noNaN: true }), (K, S, X) => {
-        const { reflectanceOverBlack: r0, transmittance: t } = layerOptics(K, S, X, 0);
-        expect((1 + r0 * r0 - t * t) / (2 * r0)).toBeCloseTo(1 + K / S, 6);
-        const rInf = opaqueReflectance(K, S);
-        expect((1 + rInf * rInf) / (2 * rInf)).toBeCloseTo(1 + K / S, 9);
-        expect(layerOptics(K, S, X, rInf).reflectance).toBeCloseTo(rInf, 12);
-      }),
+      fc.property(
+        fc.double({ min: 0.01, max: 5, noNaN: true }),
+        fc.double({ min: 0.01, max: 5, noNaN: true }),
+        fc.double({ min: 0.01, max: 3, noNaN: true }),
+        (K, S, X) => {
+          const { reflectanceOverBlack: r0, transmittance: t } = layerOptics(K, S, X, 0);
+          expect((1 + r0 * r0 - t * t) / (2 * r0)).toBeCloseTo(1 + K / S, 6);
+          const rInf = opaqueReflectance(K, S);
+          expect((1 + rInf * rInf) / (2 * rInf)).toBeCloseTo(1 + K / S, 9);
+          expect(layerOptics(K, S, X, rInf).reflectance).toBeCloseTo(rInf, 12);
+        },
+      ),
     );
     expect(layerOptics(1, 2, 1000, 0.9).reflectance).toBeCloseTo(opaqueReflectance(1, 2), 12);
     expect(layerOptics(1, 2, 0, 0.37).reflectance).toBeCloseTo(0.37, 14);
@@ -268,11 +350,18 @@ describe("Kubelka–Munk theory", () => {
     expect(saundersonMeasured(1, { k1: 0.04, k2: 0.6 })).toBeCloseTo(1, 14);
     expect(saundersonMeasured(0, { specular: "excluded" })).toBe(0);
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 0.1, noNaN: true }), fc.double({ min: 0, max: 0.7, noNaN: true }), (ri, k1, k2) => {
-        for (const specular of ["included", "excluded"] as const) {
-          expect(saundersonInternal(saundersonMeasured(ri, { k1, k2, specular }), { k1, k2, specular })).toBeCloseTo(ri, 10);
-        }
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 0.1, noNaN: true }),
+        fc.double({ min: 0, max: 0.7, noNaN: true }),
+        (ri, k1, k2) => {
+          for (const specular of ["included", "excluded"] as const) {
+            expect(
+              saundersonInternal(saundersonMeasured(ri, { k1, k2, specular }), { k1, k2, specular }),
+            ).toBeCloseTo(ri, 10);
+          }
+        },
+      ),
     );
     expect(() => saundersonInternal(0.02, { k1: 0.04 })).toThrow(/below the surface reflection/);
   });
@@ -283,7 +372,10 @@ describe("Kubelka–Munk theory", () => {
     const p = demoPaints();
     const tintFraction = 0.2;
     const masstone = mixPaint([{ colourant: p.blue, amount: 1 }]);
-    const tint = mixPaint([{ colourant: p.blue, amount: tintFraction }, { colourant: p.white, amount: 1 - tintFraction }]);
+    const tint = mixPaint([
+      { colourant: p.blue, amount: tintFraction },
+      { colourant: p.white, amount: 1 - tintFraction },
+    ]);
     const white = mixPaint([{ colourant: p.white, amount: 1 }]);
     const { colourant } = colourantFromTint({ masstone, tint, white, tintFraction });
     colourant.k.values.forEach((k, i) => {
@@ -295,13 +387,28 @@ describe("Kubelka–Munk theory", () => {
     const w = [450, 550, 650];
     const a = singleConstantColourant(spectrum(w, [0.1, 1, 4], { name: "invented a" }));
     const b = singleConstantColourant(spectrum(w, [3, 0.5, 0.2], { name: "invented b" }));
-    const mixed = mixPaint([{ colourant: a, amount: 1 }, { colourant: b, amount: 3 }], { surface: "none" });
-    mixed.values.forEach((r, i) => expect(r).toBeCloseTo(reflectanceFromKs(0.25 * a.ks.values[i]! + 0.75 * b.ks.values[i]!), 12));
+    const mixed = mixPaint(
+      [
+        { colourant: a, amount: 1 },
+        { colourant: b, amount: 3 },
+      ],
+      { surface: "none" },
+    );
+    mixed.values.forEach((r, i) =>
+      expect(r).toBeCloseTo(reflectanceFromKs(0.25 * a.ks.values[i]! + 0.75 * b.ks.values[i]!), 12),
+    );
     const back = colourantFromMasstone(mixPaint([{ colourant: a, amount: 1 }]));
     back.ks.values.forEach((v, i) => expect(v).toBeCloseTo(a.ks.values[i]!, 9));
-    expect(() => mixPaint([{ colourant: a, amount: 1 }, { colourant: p.red, amount: 1 }])).toThrow(/single-constant and two-constant/);
+    expect(() =>
+      mixPaint([
+        { colourant: a, amount: 1 },
+        { colourant: p.red, amount: 1 },
+      ]),
+    ).toThrow(/single-constant and two-constant/);
     expect(() => mixPaint([{ colourant: a, amount: 0 }])).toThrow(/total amount of the recipe is 0/);
-    expect(() => twoConstantColourant(spectrum(w, [1, 1, 1]), spectrum(w, [1, -1, 1], { name: "bad S" }))).toThrow(/"bad S" is -1 at 550 nm/);
+    expect(() =>
+      twoConstantColourant(spectrum(w, [1, 1, 1]), spectrum(w, [1, -1, 1], { name: "bad S" })),
+    ).toThrow(/"bad S" is -1 at 550 nm/);
   });
 
   it("shows that red, green and blue paint mix to a dark, nearly neutral colour", () => {

@@ -12,9 +12,14 @@ import { swatch } from "../../../lib/plot/index.ts";
 import { linearRgb, xyzFromLinearRgb, type DisplayGamut } from "../../../lib/plot/display-rgb.ts";
 import { mapToDisplayGamut, oklabFromXyz, xyzFromOklab } from "../../../lib/plot/gamut-mapping.ts";
 
-const COLORJS_LINEAR: Record<DisplayGamut, string> = { sRGB: "srgb-linear", "Display P3": "p3-linear", "BT.2020": "rec2020-linear" };
+const COLORJS_LINEAR: Record<DisplayGamut, string> = {
+  sRGB: "srgb-linear",
+  "Display P3": "p3-linear",
+  "BT.2020": "rec2020-linear",
+};
 const decode = (c: number) => (c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4); // IEC 61966-2-1 eq. (2)
-const hexLinear = (hex: string) => [1, 3, 5].map((i) => decode(parseInt(hex.slice(i, i + 2), 16) / 255)) as [number, number, number];
+const hexLinear = (hex: string) =>
+  [1, 3, 5].map((i) => decode(parseInt(hex.slice(i, i + 2), 16) / 255)) as [number, number, number];
 
 // Out-of-gamut colours, XYZ relative to D65 on the Y = 1 scale (invented, except the spectral colour).
 const COLOURS: [string, { X: number; Y: number; Z: number }][] = [
@@ -44,12 +49,18 @@ describe("OKLab (CSS Color 4 §9)", () => {
 });
 
 describe("mapToDisplayGamut", () => {
-  it.each(COLOURS.flatMap(([name, xyz]) => (["sRGB", "Display P3", "BT.2020"] as const).map((g) => [name, g, xyz] as const)))(
+  it.each(
+    COLOURS.flatMap(([name, xyz]) =>
+      (["sRGB", "Display P3", "BT.2020"] as const).map((g) => [name, g, xyz] as const),
+    ),
+  )(
     "%s into %s: inside the cube, and the colour colorjs.io's CSS gamut mapping gives",
     (_name, gamut, xyz) => {
       const m = mapToDisplayGamut(xyz, gamut);
       m.linear.forEach((v) => expect(v >= 0 && v <= 1).toBe(true));
-      const ref = new Color("xyz-d65", [xyz.X, xyz.Y, xyz.Z]).toGamut({ space: COLORJS_LINEAR[gamut], method: "css" }).to(COLORJS_LINEAR[gamut]).coords as number[];
+      const ref = new Color("xyz-d65", [xyz.X, xyz.Y, xyz.Z])
+        .toGamut({ space: COLORJS_LINEAR[gamut], method: "css" })
+        .to(COLORJS_LINEAR[gamut]).coords as number[];
       m.linear.forEach((v, i) => expect(Math.abs(v - Math.min(1, Math.max(0, ref[i]!)))).toBeLessThan(2e-3));
     },
   );
@@ -60,10 +71,15 @@ describe("mapToDisplayGamut", () => {
     for (const [, xyz] of COLOURS) {
       const m = mapToDisplayGamut(xyz, "sRGB");
       if (m.how === "inside") continue;
-      const orig = oklabFromXyz(xyz), shown = oklabFromXyz(xyzFromLinearRgb(m.linear, "sRGB"));
+      const orig = oklabFromXyz(xyz),
+        shown = oklabFromXyz(xyzFromLinearRgb(m.linear, "sRGB"));
       const h = Math.atan2(orig[2], orig[1]);
       const along = Math.max(0, shown[1] * Math.cos(h) + shown[2] * Math.sin(h));
-      const fromRay = Math.hypot(shown[0] - orig[0], shown[1] - along * Math.cos(h), shown[2] - along * Math.sin(h));
+      const fromRay = Math.hypot(
+        shown[0] - orig[0],
+        shown[1] - along * Math.cos(h),
+        shown[2] - along * Math.sin(h),
+      );
       expect(fromRay).toBeLessThan(0.02);
       expect(Math.hypot(shown[1], shown[2])).toBeLessThan(Math.hypot(orig[1], orig[2])); // chroma reduced, never increased
     }
@@ -95,9 +111,23 @@ describe("a blue LED at 3 % of the white's luminance", () => {
   });
 
   it("is drawn as colorjs.io's CSS Color 4 mapping draws it, not as the channel clip", () => {
-    const ref = new Color("xyz-d65", [rel.X, rel.Y, rel.Z]).toGamut({ space: "srgb", method: "css" }).to("srgb").coords as number[];
-    const refHex = "#" + ref.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, "0")).join("");
-    [1, 3, 5].forEach((i) => expect(Math.abs(parseInt(s.hex.slice(i, i + 2), 16) - parseInt(refHex.slice(i, i + 2), 16))).toBeLessThanOrEqual(1));
+    const ref = new Color("xyz-d65", [rel.X, rel.Y, rel.Z])
+      .toGamut({ space: "srgb", method: "css" })
+      .to("srgb").coords as number[];
+    const refHex =
+      "#" +
+      ref
+        .map((v) =>
+          Math.round(Math.min(1, Math.max(0, v)) * 255)
+            .toString(16)
+            .padStart(2, "0"),
+        )
+        .join("");
+    [1, 3, 5].forEach((i) =>
+      expect(
+        Math.abs(parseInt(s.hex.slice(i, i + 2), 16) - parseInt(refHex.slice(i, i + 2), 16)),
+      ).toBeLessThanOrEqual(1),
+    );
     const clip = linearRgb(rel, "sRGB").map((v) => Math.min(1, Math.max(0, v)));
     expect(clip[2]).toBe(1); // the old way: the blue channel at full output, a bright blue
     expect(hexLinear(s.hex)[2]).toBeLessThan(0.8);
@@ -105,7 +135,10 @@ describe("a blue LED at 3 % of the white's luminance", () => {
 
   it("keeps the light's OKLab lightness within 0.02 and shows less luminance than the clip did", () => {
     const shownXyz = xyzFromLinearRgb(hexLinear(s.hex), "sRGB");
-    const clipXyz = xyzFromLinearRgb(linearRgb(rel, "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [number, number, number], "sRGB");
+    const clipXyz = xyzFromLinearRgb(
+      linearRgb(rel, "sRGB").map((v) => Math.min(1, Math.max(0, v))) as [number, number, number],
+      "sRGB",
+    );
     const L = oklabFromXyz(rel)[0];
     expect(Math.abs(oklabFromXyz(shownXyz)[0] - L)).toBeLessThanOrEqual(0.02 + 2e-3); // + 8-bit rounding of the hex
     expect(Math.abs(oklabFromXyz(clipXyz)[0] - L)).toBeGreaterThan(0.05);

@@ -16,17 +16,34 @@ const byName = (fig: { data: unknown[] }, name: string) => {
   if (!t) throw new Error(`no trace named ${name}`);
   return t;
 };
-const uvp = (x: number, y: number) => [(4 * x) / (-2 * x + 12 * y + 3), (9 * y) / (-2 * x + 12 * y + 3)] as const;
+const uvp = (x: number, y: number) =>
+  [(4 * x) / (-2 * x + 12 * y + 3), (9 * y) / (-2 * x + 12 * y + 3)] as const;
 
 // Primaries as the standards print them (recalled from memory): IEC 61966-2-1:1999 (sRGB, = ITU-R BT.709-6),
 // SMPTE EG 432-1:2010 (P3, used with D65 by Display P3), ITU-R BT.2020-2 Table 3.
 const STANDARD_PRIMARIES = {
-  sRGB: [[0.64, 0.33], [0.30, 0.60], [0.15, 0.06]],
-  "Display P3": [[0.680, 0.320], [0.265, 0.690], [0.150, 0.060]],
-  "BT.2020": [[0.708, 0.292], [0.170, 0.797], [0.131, 0.046]],
+  sRGB: [
+    [0.64, 0.33],
+    [0.3, 0.6],
+    [0.15, 0.06],
+  ],
+  "Display P3": [
+    [0.68, 0.32],
+    [0.265, 0.69],
+    [0.15, 0.06],
+  ],
+  "BT.2020": [
+    [0.708, 0.292],
+    [0.17, 0.797],
+    [0.131, 0.046],
+  ],
 } as const;
 // colorjs.io space ids for the same gamuts (an independent implementation from the npm registry).
-const COLORJS_SPACE = { sRGB: "srgb-linear", "Display P3": "p3-linear", "BT.2020": "rec2020-linear" } as const;
+const COLORJS_SPACE = {
+  sRGB: "srgb-linear",
+  "Display P3": "p3-linear",
+  "BT.2020": "rec2020-linear",
+} as const;
 
 describe("gamut outlines", () => {
   const names = ["sRGB", "Display P3", "BT.2020"] as const;
@@ -45,10 +62,17 @@ describe("gamut outlines", () => {
     });
 
     it(`${name}: vertices agree with colorjs.io's primaries, in xy and in u′v′`, () => {
-      const t = byName(xyFig, name), u = byName(uvFig, name);
-      [[1, 0, 0], [0, 1, 0], [0, 0, 1]].forEach((rgb, i) => {
-        const [X, Y, Z] = new Color(COLORJS_SPACE[name], rgb as [number, number, number]).to("xyz-d65").coords as [number, number, number];
-        const x = X / (X + Y + Z), y = Y / (X + Y + Z);
+      const t = byName(xyFig, name),
+        u = byName(uvFig, name);
+      [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, 1],
+      ].forEach((rgb, i) => {
+        const [X, Y, Z] = new Color(COLORJS_SPACE[name], rgb as [number, number, number]).to("xyz-d65")
+          .coords as [number, number, number];
+        const x = X / (X + Y + Z),
+          y = Y / (X + Y + Z);
         expect(Math.abs((t.x[i] as number) - x)).toBeLessThan(2e-4);
         expect(Math.abs((t.y[i] as number) - y)).toBeLessThan(2e-4);
         const [up, vp] = uvp(x, y);
@@ -66,7 +90,14 @@ describe("gamut outlines", () => {
   it("custom primaries may be given as xy, u′v′ or XYZ and land on the same point", () => {
     const fig = chromaticityDiagram({
       fill: false,
-      gamuts: [{ name: "Measured (invented)", r: { x: 0.64, y: 0.33 }, g: { u: uvp(0.3, 0.6)[0], v: uvp(0.3, 0.6)[1] }, b: { X: 15, Y: 6, Z: 79 } }],
+      gamuts: [
+        {
+          name: "Measured (invented)",
+          r: { x: 0.64, y: 0.33 },
+          g: { u: uvp(0.3, 0.6)[0], v: uvp(0.3, 0.6)[1] },
+          b: { X: 15, Y: 6, Z: 79 },
+        },
+      ],
     });
     const t = byName(fig, "Measured (invented)");
     expect(t.x[1]).toBeCloseTo(0.3, 5);
@@ -77,7 +108,11 @@ describe("gamut outlines", () => {
 
   it("an RGB space from lib/rgb (here from measured primaries) is outlined at its primaries under its own name", () => {
     // Invented measured primaries of a display.
-    const measured = rgbSpaceFromPrimaries({ r: { x: 0.66, y: 0.325 }, g: { x: 0.29, y: 0.63 }, b: { x: 0.152, y: 0.058 } }, { x: 0.313, y: 0.33 }, { name: "Lab monitor (invented)" });
+    const measured = rgbSpaceFromPrimaries(
+      { r: { x: 0.66, y: 0.325 }, g: { x: 0.29, y: 0.63 }, b: { x: 0.152, y: 0.058 } },
+      { x: 0.313, y: 0.33 },
+      { name: "Lab monitor (invented)" },
+    );
     const t = byName(chromaticityDiagram({ gamuts: [measured], fill: false }), "Lab monitor (invented)");
     expect([t.x[0], t.y[0], t.x[1], t.y[1], t.x[2], t.y[2]]).toEqual([0.66, 0.325, 0.29, 0.63, 0.152, 0.058]);
   });
@@ -87,23 +122,29 @@ describe("gamut outlines", () => {
   });
 });
 
-describe.skipIf(!HAVE_REFERENCE)(`labelled points (${HAVE_REFERENCE ? "reference present" : NO_REFERENCE})`, () => {
-  it("a point at illuminant A's chromaticity hovers with CCT ≈ 2856 K and Duv ≈ 0", () => {
-    // A: x = 0.44758, y = 0.40745 (CIE 015:2004 Table T.3); its CCT is 2856 K (CIE 015:2018 §4.1: 2848 K with the
-    // old c2, i.e. 2855.5 K with c2 = 1.4388e-2 m·K).
-    const t = readReferenceCsv("cie_illuminant_white_points.csv");
-    const a = t.rows.find((r) => r[0]!.startsWith("CIE 015:2004") && r[1] === "2" && r[2] === "A")!;
-    const fig = chromaticityDiagram({ fill: false, points: [{ label: "A", x: Number(a[6]), y: Number(a[7]) }] });
-    const p = byName(fig, "Points");
-    const custom = (p.customdata as string[][])[0]!;
-    expect(custom[0]).toBe(Number(a[6]).toFixed(4));
-    expect(custom[4]).toMatch(/^285[56] K$/);
-    expect(Math.abs(Number(custom[5]!.replace("−", "-")))).toBeLessThan(2e-4);
-    const [u, v] = uvp(Number(a[6]), Number(a[7]));
-    expect(custom[2]).toBe(u.toFixed(4));
-    expect(custom[3]).toBe(v.toFixed(4));
-  });
-});
+describe.skipIf(!HAVE_REFERENCE)(
+  `labelled points (${HAVE_REFERENCE ? "reference present" : NO_REFERENCE})`,
+  () => {
+    it("a point at illuminant A's chromaticity hovers with CCT ≈ 2856 K and Duv ≈ 0", () => {
+      // A: x = 0.44758, y = 0.40745 (CIE 015:2004 Table T.3); its CCT is 2856 K (CIE 015:2018 §4.1: 2848 K with the
+      // old c2, i.e. 2855.5 K with c2 = 1.4388e-2 m·K).
+      const t = readReferenceCsv("cie_illuminant_white_points.csv");
+      const a = t.rows.find((r) => r[0]!.startsWith("CIE 015:2004") && r[1] === "2" && r[2] === "A")!;
+      const fig = chromaticityDiagram({
+        fill: false,
+        points: [{ label: "A", x: Number(a[6]), y: Number(a[7]) }],
+      });
+      const p = byName(fig, "Points");
+      const custom = (p.customdata as string[][])[0]!;
+      expect(custom[0]).toBe(Number(a[6]).toFixed(4));
+      expect(custom[4]).toMatch(/^285[56] K$/);
+      expect(Math.abs(Number(custom[5]!.replace("−", "-")))).toBeLessThan(2e-4);
+      const [u, v] = uvp(Number(a[6]), Number(a[7]));
+      expect(custom[2]).toBe(u.toFixed(4));
+      expect(custom[3]).toBe(v.toFixed(4));
+    });
+  },
+);
 
 describe("labelled points", () => {
   it("groups points into one trace per group and says when CCT is not defined", () => {
@@ -126,8 +167,12 @@ describe("labelled points", () => {
   });
 
   it("a point that is not a chromaticity is an error naming the point", () => {
-    expect(() => chromaticityDiagram({ points: [{ label: "bad", x: Number.NaN, y: 0.3 }] })).toThrow(/point "bad": x = NaN/);
-    expect(() => chromaticityDiagram({ points: [{ label: "bad", x: 0.8, y: 0.5 }] })).toThrow(/not a possible chromaticity/);
+    expect(() => chromaticityDiagram({ points: [{ label: "bad", x: Number.NaN, y: 0.3 }] })).toThrow(
+      /point "bad": x = NaN/,
+    );
+    expect(() => chromaticityDiagram({ points: [{ label: "bad", x: 0.8, y: 0.5 }] })).toThrow(
+      /not a possible chromaticity/,
+    );
   });
 });
 
@@ -153,13 +198,20 @@ describe("tolerance regions and arrows", () => {
   });
 
   it("a tolerance needs a radius or an ellipse", () => {
-    expect(() => chromaticityDiagram({ tolerances: [{ label: "T", center: { x: 0.3, y: 0.3 } }] })).toThrow(/needs a radius or an ellipse/);
+    expect(() => chromaticityDiagram({ tolerances: [{ label: "T", center: { x: 0.3, y: 0.3 } }] })).toThrow(
+      /needs a radius or an ellipse/,
+    );
   });
 
   it("arrows run from the source to the target in diagram coordinates", () => {
-    const fig = chromaticityDiagram({ diagram: "u'v'", fill: false, arrows: [{ from: { x: 0.4476, y: 0.4074 }, to: { x: 0.38, y: 0.38 }, label: "filter" }] });
+    const fig = chromaticityDiagram({
+      diagram: "u'v'",
+      fill: false,
+      arrows: [{ from: { x: 0.4476, y: 0.4074 }, to: { x: 0.38, y: 0.38 }, label: "filter" }],
+    });
     const a = (fig.layout.annotations as Record<string, number | string>[])[0]!;
-    const [u0, v0] = uvp(0.4476, 0.4074), [u1, v1] = uvp(0.38, 0.38);
+    const [u0, v0] = uvp(0.4476, 0.4074),
+      [u1, v1] = uvp(0.38, 0.38);
     expect(a.ax).toBeCloseTo(u0, 5);
     expect(a.ay).toBeCloseTo(v0, 5);
     expect(a.x).toBeCloseTo(u1, 5);
@@ -169,7 +221,11 @@ describe("tolerance regions and arrows", () => {
 });
 
 describe("every chromaticity figure", () => {
-  const fig = chromaticityDiagram({ points: [{ label: "P", x: 0.33, y: 0.33 }], gamuts: ["sRGB"], whitePoints: true });
+  const fig = chromaticityDiagram({
+    points: [{ label: "P", x: 0.33, y: 0.33 }],
+    gamuts: ["sRGB"],
+    whitePoints: true,
+  });
 
   it("is plain JSON (no functions, no class instances) and survives a JSON round trip", () => {
     expect(JSON.parse(JSON.stringify(fig))).toEqual(fig);
@@ -201,7 +257,9 @@ describe("every chromaticity figure", () => {
   it("names a bad option value in its error", () => {
     expect(() => chromaticityDiagram({ diagram: "Lab" })).toThrow(/unknown chromaticity diagram "Lab"/);
     expect(() => chromaticityDiagram({ range: { x: [0.5, 0.2], y: [0, 1] } })).toThrow(/range.x/);
-    expect(() => chromaticityDiagram({ observer: "10°", daylight: true })).toThrow(/daylight locus is defined for the CIE 1931/);
+    expect(() => chromaticityDiagram({ observer: "10°", daylight: true })).toThrow(
+      /daylight locus is defined for the CIE 1931/,
+    );
     expect(() => chromaticityDiagram({ planckian: { duvBand: 0.2 } })).toThrow(/Duv band 0.2/);
   });
 });

@@ -4,8 +4,20 @@
  * chromaticity diagram's hover readouts call cctAndDuv). `withoutMethodNotes` is the library's no-notes path.
  */
 import { afterEach, describe, expect, it } from "vitest";
-import { methodsUsed, methodNotesActive, noteMethod, resetMethodLog, withoutMethodNotes } from "../../../lib/methods/method-log.ts";
-import { chromaticityDiagram, labPlane, lightnessChromaPlot, spectrumPlot, swatch } from "../../../lib/plot/index.ts";
+import {
+  methodsUsed,
+  methodNotesActive,
+  noteMethod,
+  resetMethodLog,
+  withoutMethodNotes,
+} from "../../../lib/methods/method-log.ts";
+import {
+  chromaticityDiagram,
+  labPlane,
+  lightnessChromaPlot,
+  spectrumPlot,
+  swatch,
+} from "../../../lib/plot/index.ts";
 import { pointTraces } from "../../../lib/plot/chromaticity-overlays.ts";
 import { cctAndDuv } from "../../../lib/temperature/cct.ts";
 import { deltaE2000 } from "../../../lib/difference/delta-e-2000.ts";
@@ -51,7 +63,10 @@ describe("withoutMethodNotes", () => {
 
   it("a sampler first used for a figure still notes its interpolation when a real computation uses it", () => {
     resetMethodLog();
-    const s = spectrum([400, 450, 500, 550, 600, 650, 700], [0.1, 0.2, 0.4, 0.5, 0.4, 0.3, 0.2], { name: "invented", quantity: "reflectance" });
+    const s = spectrum([400, 450, 500, 550, 600, 650, 700], [0.1, 0.2, 0.4, 0.5, 0.4, 0.3, 0.2], {
+      name: "invented",
+      quantity: "reflectance",
+    });
     const read = sampler(s);
     withoutMethodNotes(() => read(512));
     expect(methodsUsed()).toEqual([]);
@@ -70,7 +85,16 @@ describe("figures note nothing the notebook did not compute", () => {
     whitePoints: true,
     planckian: { duvBand: 0.006 },
     daylight: true,
-    gamuts: ["sRGB", "Display P3", { name: "device (invented)", r: { x: 0.68, y: 0.31 }, g: { x: 0.27, y: 0.66 }, b: { x: 0.15, y: 0.05 } }],
+    gamuts: [
+      "sRGB",
+      "Display P3",
+      {
+        name: "device (invented)",
+        r: { x: 0.68, y: 0.31 },
+        g: { x: 0.27, y: 0.66 },
+        b: { x: 0.15, y: 0.05 },
+      },
+    ],
     tolerances: [{ label: "circle", center: { x: 0.3127, y: 0.329 }, radius: 0.004 }],
     arrows: [{ from: { x: 0.3127, y: 0.329 }, to: { x: 0.32, y: 0.335 } }],
   } as const;
@@ -102,14 +126,23 @@ describe("figures note nothing the notebook did not compute", () => {
   });
 
   it("CIELAB plots (ΔE00 only in the hover box) and spectrum plots note nothing", () => {
-    const pairs = [{ label: "chip (invented)", reference: { L: 50, a: 2.6772, b: -79.7751 }, sample: { L: 50, a: 0, b: -82.7485 } }];
+    const pairs = [
+      {
+        label: "chip (invented)",
+        reference: { L: 50, a: 2.6772, b: -79.7751 },
+        sample: { L: 50, a: 0, b: -82.7485 },
+      },
+    ];
     resetMethodLog();
     deltaE2000(pairs[0]!.reference, pairs[0]!.sample);
     expect(methodsUsed().map((n) => n.topic)).toEqual(["colour difference"]); // what the hover would have noted
     resetMethodLog();
     labPlane({ pairs, samples: [{ label: "tile", lab: { L: 60, a: 10, b: -35 } }] });
     lightnessChromaPlot({ pairs });
-    const s = spectrum([400, 410, 420, 430, 440, 450, 460], [0.1, 0.2, 0.3, 0.35, 0.3, 0.2, 0.1], { name: "invented", quantity: "reflectance" });
+    const s = spectrum([400, 410, 420, 430, 440, 450, 460], [0.1, 0.2, 0.3, 0.35, 0.3, 0.2, 0.1], {
+      name: "invented",
+      quantity: "reflectance",
+    });
     spectrumPlot([s], { band: true });
     expect(methodsUsed()).toEqual([]);
   });

@@ -15,7 +15,9 @@ import { spectrum } from "../../../lib/spectrum/spectrum.ts";
 /** Decodes our PNGs (8-bit RGBA, one IDAT) by the PNG specification (W3C PNG 2nd ed. §9 filters), independently of the writer. */
 function decodePng(png: Uint8Array): { width: number; height: number; rgba: Uint8Array } {
   const view = new DataView(png.buffer, png.byteOffset, png.byteLength);
-  let o = 8, width = 0, height = 0;
+  let o = 8,
+    width = 0,
+    height = 0;
   const idat: Uint8Array[] = [];
   while (o < png.length) {
     const len = view.getUint32(o);
@@ -25,13 +27,19 @@ function decodePng(png: Uint8Array): { width: number; height: number; rgba: Uint
     o += 12 + len;
   }
   const raw = inflateSync(Buffer.concat(idat));
-  const stride = width * 4, out = new Uint8Array(width * height * 4);
+  const stride = width * 4,
+    out = new Uint8Array(width * height * 4);
   for (let y = 0; y < height; y++) {
     const f = raw[y * (stride + 1)]!;
     for (let i = 0; i < stride; i++) {
       const x = raw[y * (stride + 1) + 1 + i]!;
-      const a = i >= 4 ? out[y * stride + i - 4]! : 0, b = y > 0 ? out[(y - 1) * stride + i]! : 0, c = y > 0 && i >= 4 ? out[(y - 1) * stride + i - 4]! : 0;
-      const p = a + b - c, pa = Math.abs(p - a), pb = Math.abs(p - b), pc = Math.abs(p - c);
+      const a = i >= 4 ? out[y * stride + i - 4]! : 0,
+        b = y > 0 ? out[(y - 1) * stride + i]! : 0,
+        c = y > 0 && i >= 4 ? out[(y - 1) * stride + i - 4]! : 0;
+      const p = a + b - c,
+        pa = Math.abs(p - a),
+        pb = Math.abs(p - b),
+        pc = Math.abs(p - c);
       const pred = [0, a, b, (a + b) >> 1, pa <= pb && pa <= pc ? a : pb <= pc ? b : c][f]!;
       out[y * stride + i] = (x + pred) & 255;
     }
@@ -40,12 +48,14 @@ function decodePng(png: Uint8Array): { width: number; height: number; rgba: Uint
 }
 
 describe("PNG writer", () => {
-  it("CRC-32 of \"123456789\" is 0xCBF43926 (the check value of CRC-32/ISO-HDLC, recalled from memory)", () => {
+  it('CRC-32 of "123456789" is 0xCBF43926 (the check value of CRC-32/ISO-HDLC, recalled from memory)', () => {
     expect(crc32(new TextEncoder().encode("123456789"))).toBe(0xcbf43926);
   });
 
   it("writes the PNG signature, IHDR for 8-bit RGBA, and pixels that decode back unchanged", () => {
-    const w = 7, h = 5, rgba = new Uint8Array(w * h * 4).map((_, i) => (i * 37 + (i >> 3)) & 255);
+    const w = 7,
+      h = 5,
+      rgba = new Uint8Array(w * h * 4).map((_, i) => (i * 37 + (i >> 3)) & 255);
     const png = encodePng(w, h, rgba);
     expect([...png.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     expect(String.fromCharCode(...png.subarray(12, 16))).toBe("IHDR");
@@ -69,7 +79,8 @@ describe("approximate colour fill of the xy diagram", () => {
   const img = chromaticityFill(locus, "xy", [0, 0.8], [0, 0.9], { resolution: 160, veil: 0 });
   const d = decodePng(Buffer.from(img.source.replace(/^data:image\/png;base64,/, ""), "base64"));
   const pixel = (x: number, y: number) => {
-    const i = Math.floor((x / 0.8) * d.width), j = Math.floor(((0.9 - y) / 0.9) * d.height);
+    const i = Math.floor((x / 0.8) * d.width),
+      j = Math.floor(((0.9 - y) / 0.9) * d.height);
     return [...d.rgba.subarray((j * d.width + i) * 4, (j * d.width + i) * 4 + 4)];
   };
 
@@ -110,9 +121,19 @@ describe("visible-spectrum band", () => {
 describe("spectrum plots", () => {
   const w = [400, 450, 500, 550, 600, 650, 700];
   // Invented filter data.
-  const t = spectrum(w, [0.1, 0.2, 0.5, 0.8, 0.85, 0.86, 0.87], { name: "Filter (invented)", quantity: "transmittance" });
-  const r = spectrum(w, [0.05, 0.06, 0.1, 0.3, 0.5, 0.6, 0.62], { name: "Plate (invented)", quantity: "reflectance" });
-  const L = spectrum(w, [0.001, 0.004, 0.006, 0.005, 0.004, 0.003, 0.001], { name: "Lamp (invented)", quantity: "radiance", unit: "W/(sr·m²·nm)" });
+  const t = spectrum(w, [0.1, 0.2, 0.5, 0.8, 0.85, 0.86, 0.87], {
+    name: "Filter (invented)",
+    quantity: "transmittance",
+  });
+  const r = spectrum(w, [0.05, 0.06, 0.1, 0.3, 0.5, 0.6, 0.62], {
+    name: "Plate (invented)",
+    quantity: "reflectance",
+  });
+  const L = spectrum(w, [0.001, 0.004, 0.006, 0.005, 0.004, 0.003, 0.001], {
+    name: "Lamp (invented)",
+    quantity: "radiance",
+    unit: "W/(sr·m²·nm)",
+  });
 
   it("puts the quantity and unit on the value axis and shows transmittance in percent", () => {
     const fig = spectrumPlot(t);
@@ -120,7 +141,10 @@ describe("spectrum plots", () => {
     expect(layout.yaxis!.title!.text).toBe("Transmittance (%)");
     expect(layout.xaxis!.title!.text).toBe("Wavelength λ (nm)");
     expect((fig.data[0] as { y: number[] }).y).toEqual([10, 20, 50, 80, 85, 86, 87]);
-    expect(((spectrumPlot(t, { percent: false }).layout as Record<string, Record<string, { text: string }>>).yaxis!.title!.text)).toBe("Transmittance");
+    expect(
+      (spectrumPlot(t, { percent: false }).layout as Record<string, Record<string, { text: string }>>).yaxis!
+        .title!.text,
+    ).toBe("Transmittance");
   });
 
   it("uses the spectra's unit for absolute quantities", () => {
@@ -134,13 +158,22 @@ describe("spectrum plots", () => {
   });
 
   it("draws a log value axis for optical density, with marks and a band image", () => {
-    const od = spectrum(w, [0.1, 0.2, 3, 5, 3, 0.5, 0.1], { name: "OD (invented)", quantity: "optical density" });
+    const od = spectrum(w, [0.1, 0.2, 3, 5, 3, 0.5, 0.1], {
+      name: "OD (invented)",
+      quantity: "optical density",
+    });
     const fig = spectrumPlot(od, { scale: "log", marks: [{ wavelength: 532, label: "532 nm" }] });
-    const layout = fig.layout as Record<string, unknown> & { yaxis: { type: string }; images: { source: string }[]; shapes: { x0: number }[] };
+    const layout = fig.layout as Record<string, unknown> & {
+      yaxis: { type: string };
+      images: { source: string }[];
+      shapes: { x0: number }[];
+    };
     expect(layout.yaxis.type).toBe("log");
     expect(layout.shapes[0]!.x0).toBe(532);
     expect(layout.images[0]!.source).toMatch(/^data:image\/png;base64,/);
-    const marks = fig.data.find((d) => (d as { name: string }).name === "Marked wavelengths") as { y: number[] };
+    const marks = fig.data.find((d) => (d as { name: string }).name === "Marked wavelengths") as {
+      y: number[];
+    };
     // Linear reading between 500 nm (3) and 550 nm (5) at 532 nm: 3 + 32/50 × 2 = 4.28.
     expect(marks.y[0]).toBeCloseTo(4.28, 6);
     expect(fig.caption).toMatch(/logarithmic/);
@@ -148,7 +181,12 @@ describe("spectrum plots", () => {
 
   it("gives every series its own dash and marker for black-and-white print", () => {
     const fig = spectrumPlot([illuminant("D65"), illuminant("A"), illuminant("FL2")]);
-    const looks = fig.data.map((d) => JSON.stringify([(d as { line: { dash: string } }).line.dash, (d as { marker: { symbol: string } }).marker.symbol]));
+    const looks = fig.data.map((d) =>
+      JSON.stringify([
+        (d as { line: { dash: string } }).line.dash,
+        (d as { marker: { symbol: string } }).marker.symbol,
+      ]),
+    );
     expect(new Set(looks).size).toBe(3);
   });
 
