@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // The `tristim` command. The sources are TypeScript and there is no build step: on first use (and whenever a file
-// in runner/ or cells/ changes) this launcher has esbuild bundle runner/cli.ts into the package's
+// in runner/ or cells/ changes) this launcher has esbuild bundle runner/cli/cli.ts into the package's
 // node_modules/.cache/tristim/, and imports that; node starts it several times faster than through tsx's loader
 // (measured: about 0.25 s against 0.9 s). Where the cache cannot be written, or with TRISTIM_TSX=1, it registers tsx
 // and imports the TypeScript directly.
@@ -21,7 +21,7 @@ async function loadCli() {
   }
   const { register } = await import("tsx/esm/api");
   register();
-  return import("./cli.ts");
+  return import("./cli/cli.ts");
 }
 
 /** Path of the bundled CLI for the current sources, building it when missing. */
@@ -54,7 +54,7 @@ async function cachedBundle() {
   fs.mkdirSync(folder, { recursive: true });
   const temporary = `${file}.${process.pid}.tmp`;
   await esbuild.build({
-    entryPoints: [path.join(root, "runner", "cli.ts")],
+    entryPoints: [path.join(root, "runner", "cli", "cli.ts")],
     bundle: true,
     packages: "external",
     platform: "node",

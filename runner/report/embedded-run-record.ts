@@ -10,11 +10,11 @@
 import path from "node:path";
 import type { CautionRecord, CheckRecord, ErrorRecord, FailureKind } from "../../cells/records.ts";
 import type { InputValue } from "../../cells/inputs.ts";
-import { cautionResults } from "../caution-results.ts";
-import { checkResults, countChecks } from "../check-results.ts";
-import type { NotebookDocument } from "../notebook.ts";
-import { runExitCode } from "../run-outcome.ts";
-import type { CellStatus, RunRecord } from "../run-record.ts";
+import { cautionResults } from "../records/caution-results.ts";
+import { checkResults, countChecks } from "../records/check-results.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import { runExitCode } from "../records/run-outcome.ts";
+import type { CellStatus, RunRecord } from "../records/run-record.ts";
 import { jsonForScript } from "./escape.ts";
 import { shownPath } from "./run-details.ts";
 

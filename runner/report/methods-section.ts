@@ -5,7 +5,7 @@
  * recorded only when that is true: the log was collected from every cell that ran.
  */
 import { METHOD_TOPICS } from "../../lib/methods/method-log.ts";
-import type { MethodRecord, RunRecord } from "../run-record.ts";
+import type { MethodRecord, RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
 import { describeCells } from "./summary.ts";
 

@@ -6,8 +6,8 @@
 import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import type { BatchEntry, BatchRecord } from "../batch-index.ts";
-import { EXIT } from "../exit-codes.ts";
+import type { BatchEntry, BatchRecord } from "../batch/batch-index.ts";
+import { EXIT } from "../shared/exit-codes.ts";
 import { escapeHtml } from "./escape.ts";
 import { describeCells } from "./summary.ts";
 

@@ -17,10 +17,10 @@ import type {
   TableRecord,
   ValueRecord,
 } from "../../cells/records.ts";
-import { cautionKey } from "../caution-results.ts";
-import { checkAnchor } from "../check-results.ts";
+import { cautionKey } from "../records/caution-results.ts";
+import { checkAnchor } from "../records/check-results.ts";
 import { keepsOnOneLine } from "./cell-wrap.ts";
-import { limitsText, marginText, valueText } from "./check-text.ts";
+import { limitsText, marginText, valueText } from "../text/check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";

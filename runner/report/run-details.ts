@@ -5,11 +5,11 @@
  * durations) and says so, so that two runs of the same notebook on the same files give identical bytes.
  */
 import path from "node:path";
-import { checkResults } from "../check-results.ts";
-import type { NotebookDocument } from "../notebook.ts";
-import type { RunRecord } from "../run-record.ts";
+import { checkResults } from "../records/check-results.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
-import { formatDuration } from "./format.ts";
+import { formatDuration } from "../text/duration.ts";
 
 const STATUS_TEXT = { ok: "ran", failed: "failed", "not-run": "not run", listing: "listing only" } as const;
 

@@ -4,11 +4,11 @@
  * SUMMARY_SECTIONS.
  */
 import type { ErrorRecord } from "../../cells/records.ts";
-import { cautionResults } from "../caution-results.ts";
-import { checkResults } from "../check-results.ts";
-import { checkOutcomeText } from "./check-text.ts";
-import type { NotebookDocument } from "../notebook.ts";
-import type { RunRecord } from "../run-record.ts";
+import { cautionResults } from "../records/caution-results.ts";
+import { checkResults } from "../records/check-results.ts";
+import { checkOutcomeText } from "../text/check-text.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
 import { displayLocation, errorTitle } from "./render-output.ts";
 

@@ -12,11 +12,11 @@ import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import * as esbuild from "esbuild";
-import { readNotebook } from "../../runner/parse-notebook.ts";
+import { readNotebook } from "../../runner/parse/parse-notebook.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
-import { moveRecordsToEdit } from "../../runner/rerender.ts";
-import { runDocument, runSignature } from "../../runner/run-notebook.ts";
-import { writeReport } from "../../runner/report-file.ts";
+import { moveRecordsToEdit } from "../../runner/records/rerender.ts";
+import { runDocument, runSignature } from "../../runner/execute/run-notebook.ts";
+import { writeReport } from "../../runner/report/report-file.ts";
 import { median, type Bench } from "./bench.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));

@@ -8,9 +8,9 @@ import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { parseEachArgument } from "../../runner/batch.ts";
-import { EXIT } from "../../runner/exit-codes.ts";
-import { expandFilePattern, reportNamesFor } from "../../runner/file-pattern.ts";
+import { parseEachArgument } from "../../runner/batch/batch.ts";
+import { EXIT } from "../../runner/shared/exit-codes.ts";
+import { expandFilePattern, reportNamesFor } from "../../runner/batch/file-pattern.ts";
 import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { tempFolder, ts, writeFiles } from "./helpers.ts";
 

@@ -9,8 +9,8 @@ import { findCautions } from "../../cells/cautions.ts";
 import { show, showFigure, showTable } from "../../cells/display.ts";
 import { installOutputSink } from "../../cells/output-sink.ts";
 import type { OutputRecord } from "../../cells/records.ts";
-import { cautionResults } from "../../runner/caution-results.ts";
-import { parseNotebook } from "../../runner/parse-notebook.ts";
+import { cautionResults } from "../../runner/records/caution-results.ts";
+import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { outputsOf, runText, ts } from "./helpers.ts";
 

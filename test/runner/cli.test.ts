@@ -7,7 +7,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { EXIT } from "../../runner/exit-codes.ts";
+import { EXIT } from "../../runner/shared/exit-codes.ts";
 import { notebookFile, tempFolder, ts, writeFiles } from "./helpers.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));

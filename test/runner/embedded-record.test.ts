@@ -5,10 +5,10 @@
  * SHA-256 reference: FIPS 180-2, Appendix B.1 — SHA-256("abc") = ba7816bf…f20015ad.
  */
 import { describe, expect, it } from "vitest";
-import { parseNotebook } from "../../runner/parse-notebook.ts";
+import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
 import { readEmbeddedRunRecord, RUN_RECORD_VERSION } from "../../runner/report/embedded-run-record.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
-import type { RunRecord } from "../../runner/run-record.ts";
+import type { RunRecord } from "../../runner/records/run-record.ts";
 import { runText, ts } from "./helpers.ts";
 
 const ABC_SHA256 = "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"; // FIPS 180-2, B.1

@@ -2,11 +2,11 @@
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { readNotebook } from "../../runner/parse-notebook.ts";
-import { runDocument, type RunOptions } from "../../runner/run-notebook.ts";
+import { readNotebook } from "../../runner/parse/parse-notebook.ts";
+import { runDocument, type RunOptions } from "../../runner/execute/run-notebook.ts";
 import type { OutputRecord } from "../../cells/records.ts";
-import type { RunRecord } from "../../runner/run-record.ts";
-import type { NotebookDocument } from "../../runner/notebook.ts";
+import type { RunRecord } from "../../runner/records/run-record.ts";
+import type { NotebookDocument } from "../../runner/parse/notebook.ts";
 
 /** A fresh temporary folder (removed by the OS's tmp cleaning; tests keep them small). */
 export function tempFolder(prefix = "tristim-test-"): string {

@@ -4,7 +4,7 @@
  * a cell process stopped by its time limit must not make the notes of earlier cells vanish.
  */
 import { describe, expect, it } from "vitest";
-import type { CellRun, RunRecord } from "../../runner/run-record.ts";
+import type { CellRun, RunRecord } from "../../runner/records/run-record.ts";
 import { escapeHtml } from "../../runner/report/escape.ts";
 import { renderMethods } from "../../runner/report/methods-section.ts";
 import { runText, ts } from "./helpers.ts";

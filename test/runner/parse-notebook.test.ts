@@ -1,8 +1,8 @@
 import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { NotebookError } from "../../runner/errors.ts";
-import { parseNotebook, readNotebook } from "../../runner/parse-notebook.ts";
+import { NotebookError } from "../../runner/shared/errors.ts";
+import { parseNotebook, readNotebook } from "../../runner/parse/parse-notebook.ts";
 import { notebookFile, tempFolder, ts } from "./helpers.ts";
 
 function parseError(text: string): NotebookError {

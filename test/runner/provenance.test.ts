@@ -9,7 +9,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { EXIT } from "../../runner/exit-codes.ts";
+import { EXIT } from "../../runner/shared/exit-codes.ts";
 import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { runText, tempFolder, ts, writeFiles } from "./helpers.ts";

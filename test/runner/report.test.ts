@@ -7,11 +7,11 @@ import { createRequire } from "node:module";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import type { OutputRecord, SwatchRecord } from "../../cells/records.ts";
-import { parseNotebook } from "../../runner/parse-notebook.ts";
-import { writeReport } from "../../runner/report-file.ts";
+import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
+import { writeReport } from "../../runner/report/report-file.ts";
 import { PLOTLY_ASSET, renderReport } from "../../runner/report/render-report.ts";
-import type { CellRun, RunRecord } from "../../runner/run-record.ts";
-import { writeFileAtomic } from "../../runner/write-atomic.ts";
+import type { CellRun, RunRecord } from "../../runner/records/run-record.ts";
+import { writeFileAtomic } from "../../runner/shared/write-atomic.ts";
 import { runText, tempFolder, ts } from "./helpers.ts";
 
 const require = createRequire(import.meta.url);

@@ -6,7 +6,7 @@ import fs from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import { afterEach, describe, expect, it } from "vitest";
-import { EVENTS_PATH, startWatch, type RenderEvent, type Watcher } from "../../runner/watch.ts";
+import { EVENTS_PATH, startWatch, type RenderEvent, type Watcher } from "../../runner/watch/watch.ts";
 import { tempFolder, ts, writeFiles } from "./helpers.ts";
 
 let watcher: Watcher | undefined;

@@ -2,10 +2,10 @@
  * The record of a batch (`tristim run nb.md --each name=pattern`): one entry per data file, reduced from each run's
  * RunRecord to plain data, so the index page is written from records like every report.
  */
-import { cautionResults } from "./caution-results.ts";
-import { checkResults, type CheckCounts } from "./check-results.ts";
-import { EXIT, type ExitCode } from "./exit-codes.ts";
-import type { RunRecord } from "./run-record.ts";
+import { cautionResults } from "../records/caution-results.ts";
+import { checkResults, type CheckCounts } from "../records/check-results.ts";
+import { EXIT, type ExitCode } from "../shared/exit-codes.ts";
+import type { RunRecord } from "../records/run-record.ts";
 
 /** One run of the batch, as the index lists it. */
 export interface BatchEntry {

@@ -1,7 +1,7 @@
 /** The YAML front matter of a notebook: title, author, date and named inputs with defaults. */
 import { parseDocument } from "yaml";
-import type { InputValue } from "../cells/inputs.ts";
-import { NotebookError } from "./errors.ts";
+import type { InputValue } from "../../cells/inputs.ts";
+import { NotebookError } from "../shared/errors.ts";
 import type { FrontMatter } from "./notebook.ts";
 
 /** The keys the front matter may have. */

@@ -10,10 +10,10 @@ import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import * as esbuild from "esbuild";
-import { BANNER } from "./compile-cell.ts";
+import { BANNER } from "../compile/compile-cell.ts";
 
 /** The folder of the tristim package (where lib/, cells/ and runner/ are). */
-export const PACKAGE_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+export const PACKAGE_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 
 /** Paths of a built runtime. */
 export interface RuntimeBundle {

@@ -5,9 +5,9 @@
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import path from "node:path";
-import type { InputValue } from "../cells/inputs.ts";
-import type { FromCellProcess, RawError, ToCellProcess } from "../cells/protocol.ts";
-import type { OutputRecord } from "../cells/records.ts";
+import type { InputValue } from "../../cells/inputs.ts";
+import type { FromCellProcess, RawError, ToCellProcess } from "../../cells/protocol.ts";
+import type { OutputRecord } from "../../cells/records.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
 
 /** How long the cell process may take to load the library and get ready. */

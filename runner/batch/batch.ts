@@ -7,18 +7,18 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { batchEntry, type BatchEntry, type BatchRecord } from "./batch-index.ts";
-import { UsageError } from "./errors.ts";
-import { EXIT, worseExit, type ExitCode } from "./exit-codes.ts";
+import { UsageError } from "../shared/errors.ts";
+import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { expandFilePattern, reportNamesFor } from "./file-pattern.ts";
-import type { NotebookDocument } from "./notebook.ts";
-import { writeReport } from "./report-file.ts";
-import { renderBatchIndex } from "./report/render-index.ts";
-import { reportTitle } from "./report/render-report.ts";
-import { runDocument } from "./run-notebook.ts";
-import { runExitCode } from "./run-outcome.ts";
-import type { RunRecord } from "./run-record.ts";
-import { toolVersion } from "./tool-version.ts";
-import { writeFileAtomic } from "./write-atomic.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import { writeReport } from "../report/report-file.ts";
+import { renderBatchIndex } from "../report/render-index.ts";
+import { reportTitle } from "../report/render-report.ts";
+import { runDocument } from "../execute/run-notebook.ts";
+import { runExitCode } from "../records/run-outcome.ts";
+import type { RunRecord } from "../records/run-record.ts";
+import { toolVersion } from "../shared/tool-version.ts";
+import { writeFileAtomic } from "../shared/write-atomic.ts";
 
 /** Where a run of the batch stands, for the terminal. */
 export interface BatchRunPlace {

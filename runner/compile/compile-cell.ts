@@ -7,11 +7,11 @@
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
-import type { ErrorRecord } from "../cells/records.ts";
-import { codeFrame } from "./code-frame.ts";
+import type { ErrorRecord } from "../../cells/records.ts";
+import { codeFrame } from "../text/code-frame.ts";
 import { cellLines } from "./map-error.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
-import type { CellSource, NotebookDocument } from "./notebook.ts";
+import type { CellSource, NotebookDocument } from "../parse/notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
 
 /** A cell ready to run, or the reason it cannot run. Plain data. */

@@ -6,7 +6,7 @@
  */
 import fs from "node:fs";
 import path from "node:path";
-import { UsageError } from "./errors.ts";
+import { UsageError } from "../shared/errors.ts";
 
 /** Whether a path part has a wildcard. */
 function isWild(part: string): boolean {

@@ -2,7 +2,7 @@
  * The acceptance checks of a run, read from its records: each with its cell and its anchor in the report, and the
  * counts the summary, the command's exit code and the index page of a batch use.
  */
-import type { CheckRecord } from "../cells/records.ts";
+import type { CheckRecord } from "../../cells/records.ts";
 import type { RunRecord } from "./run-record.ts";
 
 /** One check as it appears in the report. */

@@ -2,8 +2,8 @@
  * Named inputs: front-matter defaults overridden by `--input name=value` on the command line. A value given on the
  * command line is read as the type of the default (number, true/false, text, or JSON for lists and mappings).
  */
-import type { InputValue } from "../cells/inputs.ts";
-import { UsageError } from "./errors.ts";
+import type { InputValue } from "../../cells/inputs.ts";
+import { UsageError } from "../shared/errors.ts";
 
 /** Splits `name=value` as written after --input. */
 export function parseInputArgument(argument: string): [string, string] {

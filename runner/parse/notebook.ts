@@ -1,7 +1,7 @@
 /**
  * The parsed notebook: plain data produced by parse-notebook.ts and read by every later stage.
  */
-import type { InputValue } from "../cells/inputs.ts";
+import type { InputValue } from "../../cells/inputs.ts";
 
 /** The YAML front matter: title block fields and named inputs with their defaults. */
 export interface FrontMatter {

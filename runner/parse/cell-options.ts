@@ -2,9 +2,9 @@
  * The words after `ts` on a cell's fence line, e.g. ```ts hide-source caption="Reflectance of tile 4" time-limit=2m
  * Flags are bare words; valued options are word=value, the value in double quotes when it has spaces.
  */
-import { NotebookError, UsageError } from "./errors.ts";
+import { NotebookError, UsageError } from "../shared/errors.ts";
 import type { CellOptions } from "./notebook.ts";
-import { parseTimeLimit } from "./time-limit.ts";
+import { parseTimeLimit } from "../shared/time-limit.ts";
 
 /** Option words that stand alone. */
 export const CELL_FLAGS = ["hide-source", "show-source", "no-run", "may-fail"] as const;

@@ -8,8 +8,8 @@ import fs from "node:fs";
 import path from "node:path";
 import MarkdownIt from "markdown-it";
 import { CELL_LANGUAGES, parseCellOptions } from "./cell-options.ts";
-import { codeFrame } from "./code-frame.ts";
-import { NotebookError } from "./errors.ts";
+import { codeFrame } from "../text/code-frame.ts";
+import { NotebookError } from "../shared/errors.ts";
 import { parseFrontMatter, splitFrontMatter } from "./front-matter.ts";
 import type { CellSource, NotebookDocument } from "./notebook.ts";
 

@@ -2,8 +2,8 @@
  * Stage 3's result: the record of a run. Plain serializable data; the report writer and the watch mode's prose-only
  * re-render read only this (with the parsed notebook), never live objects.
  */
-import type { InputValue } from "../cells/inputs.ts";
-import type { OutputRecord } from "../cells/records.ts";
+import type { InputValue } from "../../cells/inputs.ts";
+import type { OutputRecord } from "../../cells/records.ts";
 
 /** What happened to one cell. */
 export type CellStatus =

@@ -5,26 +5,26 @@
 import fs from "node:fs";
 import path from "node:path";
 import { parseArgs } from "node:util";
-import type { ErrorRecord } from "../cells/records.ts";
-import { NotebookError, UsageError } from "./errors.ts";
-import { parseEachArgument, runBatch, type EachOption } from "./batch.ts";
-import { checkResults } from "./check-results.ts";
-import { EXIT, worseExit, type ExitCode } from "./exit-codes.ts";
+import type { ErrorRecord } from "../../cells/records.ts";
+import { NotebookError, UsageError } from "../shared/errors.ts";
+import { parseEachArgument, runBatch, type EachOption } from "../batch/batch.ts";
+import { checkResults } from "../records/check-results.ts";
+import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { helpText } from "./help.ts";
-import { parseInputArgument, resolveInputs } from "./inputs.ts";
-import type { NotebookDocument } from "./notebook.ts";
-import { readNotebook } from "./parse-notebook.ts";
-import { defaultReportPath, writeReport } from "./report-file.ts";
-import { formatDuration } from "./report/format.ts";
-import { displayLocation, errorTitle } from "./report/render-output.ts";
-import { checkLine } from "./report/check-text.ts";
-import { describeCells } from "./report/summary.ts";
-import type { RunRecord } from "./run-record.ts";
-import { runDocument } from "./run-notebook.ts";
-import { RuntimeBuildError } from "./runtime-bundle.ts";
-import { parseTimeLimit } from "./time-limit.ts";
-import { toolVersion } from "./tool-version.ts";
-import { DEFAULT_PORT, startWatch } from "./watch.ts";
+import { parseInputArgument, resolveInputs } from "../execute/inputs.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import { readNotebook } from "../parse/parse-notebook.ts";
+import { defaultReportPath, writeReport } from "../report/report-file.ts";
+import { formatDuration } from "../text/duration.ts";
+import { displayLocation, errorTitle } from "../report/render-output.ts";
+import { checkLine } from "../text/check-text.ts";
+import { describeCells } from "../report/summary.ts";
+import type { RunRecord } from "../records/run-record.ts";
+import { runDocument } from "../execute/run-notebook.ts";
+import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
+import { parseTimeLimit } from "../shared/time-limit.ts";
+import { toolVersion } from "../shared/tool-version.ts";
+import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 
 /** Where the command writes its messages (the terminal, or a test's buffers). */
 export interface Io {

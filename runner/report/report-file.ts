@@ -1,9 +1,9 @@
 /** Writes a report file: renders it, copies shared assets when asked, and writes atomically. */
 import path from "node:path";
-import type { NotebookDocument } from "./notebook.ts";
-import { renderReport, writeSharedAssets } from "./report/render-report.ts";
-import type { RunRecord } from "./run-record.ts";
-import { writeFileAtomic } from "./write-atomic.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import { renderReport, writeSharedAssets } from "./render-report.ts";
+import type { RunRecord } from "../records/run-record.ts";
+import { writeFileAtomic } from "../shared/write-atomic.ts";
 
 /** Name of the shared assets folder written beside reports with --link-assets. */
 export const ASSETS_FOLDER = "tristim-assets";

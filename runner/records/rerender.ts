@@ -3,10 +3,10 @@
  * the notebook (error locations, code frames, stack frames) move with the cells, whose lines shift when prose above
  * them grows or shrinks.
  */
-import type { ErrorRecord, OutputRecord, StackFrameRecord } from "../cells/records.ts";
-import { codeFrame } from "./code-frame.ts";
-import { cellLines } from "./map-error.ts";
-import type { NotebookDocument } from "./notebook.ts";
+import type { ErrorRecord, OutputRecord, StackFrameRecord } from "../../cells/records.ts";
+import { codeFrame } from "../text/code-frame.ts";
+import { cellLines } from "../compile/map-error.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "./run-record.ts";
 
 /** The record of `run` (made from `before`) adjusted to the edited document `after`, which has the same cells. */

@@ -7,13 +7,13 @@ import fs from "node:fs";
 import { SourceMap } from "node:module";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import type { RawError } from "../cells/protocol.ts";
-import type { ErrorRecord, StackFrameRecord } from "../cells/records.ts";
+import type { RawError } from "../../cells/protocol.ts";
+import type { ErrorRecord, StackFrameRecord } from "../../cells/records.ts";
 import { notebookPosition } from "./cell-positions.ts";
-import { codeFrame } from "./code-frame.ts";
+import { codeFrame } from "../text/code-frame.ts";
 import type { CompiledCell } from "./compile-cell.ts";
-import type { NotebookDocument } from "./notebook.ts";
-import { PACKAGE_ROOT } from "./runtime-bundle.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import { PACKAGE_ROOT } from "../execute/runtime-bundle.ts";
 
 const FRAME = /^\s*at (?:(.*?) \()?(.+?):(\d+):(\d+)\)?$/;
 const CELL_FILE = /^tristim-cell-(\d+)\.js$/;

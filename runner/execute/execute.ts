@@ -4,15 +4,15 @@
  * cell process that had to be stopped is replaced by a fresh one (earlier bindings are then gone, and the report
  * says so). Reads the library's method log after the last cell.
  */
-import type { InputValue } from "../cells/inputs.ts";
-import type { ErrorRecord, OutputRecord } from "../cells/records.ts";
+import type { InputValue } from "../../cells/inputs.ts";
+import type { ErrorRecord, OutputRecord } from "../../cells/records.ts";
 import { CellProcess, CellProcessStartError } from "./cell-process.ts";
-import type { CompiledCell } from "./compile-cell.ts";
-import { cellLevelError, mapError } from "./map-error.ts";
-import type { NotebookDocument } from "./notebook.ts";
-import type { CellRun, MethodRecord } from "./run-record.ts";
+import type { CompiledCell } from "../compile/compile-cell.ts";
+import { cellLevelError, mapError } from "../compile/map-error.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import type { CellRun, MethodRecord } from "../records/run-record.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
-import { formatTimeLimit } from "./time-limit.ts";
+import { formatTimeLimit } from "../shared/time-limit.ts";
 
 /** How to execute. */
 export interface ExecuteOptions {

@@ -2,7 +2,7 @@
  * The distinct cautions of a run, in notebook order: each text once (the first place it was shown), with its anchor
  * in the report. The summary, the title block, the in-place rendering and the index page of a batch read these.
  */
-import type { CautionRecord } from "../cells/records.ts";
+import type { CautionRecord } from "../../cells/records.ts";
 import type { RunRecord } from "./run-record.ts";
 
 /** A distinct caution and where it first appears. */

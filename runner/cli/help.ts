@@ -1,6 +1,6 @@
 /** The text of `tristim --help` (README.md shows the same). */
-import { EXIT } from "./exit-codes.ts";
-import { DEFAULT_PORT } from "./watch.ts";
+import { EXIT } from "../shared/exit-codes.ts";
+import { DEFAULT_PORT } from "../watch/watch.ts";
 
 /** Help for the whole command. */
 export function helpText(version: string): string {

@@ -6,17 +6,17 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { CellProcess } from "./cell-process.ts";
-import { compileCells } from "./compile-cell.ts";
+import { compileCells } from "../compile/compile-cell.ts";
 import { executeCells } from "./execute.ts";
 import { resolveInputs } from "./inputs.ts";
-import type { NotebookDocument } from "./notebook.ts";
-import type { BatchPlace, FileRead, RunRecord } from "./run-record.ts";
-import type { CompiledCell } from "./compile-cell.ts";
-import type { OutputRecord } from "../cells/records.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import type { BatchPlace, FileRead, RunRecord } from "../records/run-record.ts";
+import type { CompiledCell } from "../compile/compile-cell.ts";
+import type { OutputRecord } from "../../cells/records.ts";
 import { cacheRoot, runtimeBundle } from "./runtime-bundle.ts";
-import type { CellRun } from "./run-record.ts";
-import { DEFAULT_TIME_LIMIT_MS } from "./time-limit.ts";
-import { toolVersion } from "./tool-version.ts";
+import type { CellRun } from "../records/run-record.ts";
+import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
+import { toolVersion } from "../shared/tool-version.ts";
 
 /** Options of a run (all optional). */
 export interface RunOptions {
