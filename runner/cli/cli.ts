@@ -8,6 +8,7 @@ import { parseArgs } from "node:util";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { NotebookError, UsageError } from "../shared/errors.ts";
 import { parseEachArgument, runBatch, type EachOption } from "../batch/batch.ts";
+import type { CommandOptions, Io } from "./command-options.ts";
 import { checkResults } from "../records/check-results.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { helpText } from "./help.ts";
@@ -26,28 +27,7 @@ import { parseTimeLimit } from "../shared/time-limit.ts";
 import { toolVersion } from "../shared/tool-version.ts";
 import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 
-/** Where the command writes its messages (the terminal, or a test's buffers). */
-export interface Io {
-  readonly out: (text: string) => void;
-  readonly err: (text: string) => void;
-}
-
 const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
-
-/** Options common to run and watch, after checking. */
-export interface CommandOptions {
-  readonly output?: string;
-  readonly inputs: Readonly<Record<string, string>>;
-  readonly timeLimitMs?: number;
-  readonly keepGoing: boolean;
-  readonly linkAssets: boolean;
-  readonly quiet: boolean;
-  readonly port: number;
-  /** Make reports byte-reproducible (no date, no durations). */
-  readonly reproducible: boolean;
-  /** Run once per data file: --each name=pattern. */
-  readonly each?: EachOption;
-}
 
 /** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
 export async function main(argv: readonly string[], io: Io = terminal): Promise<ExitCode> {

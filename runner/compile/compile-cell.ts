@@ -9,9 +9,8 @@ import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { codeFrame } from "../text/code-frame.ts";
-import { cellLines } from "./map-error.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
-import type { CellSource, NotebookDocument } from "../parse/notebook.ts";
+import { cellLineRange, type CellSource, type NotebookDocument } from "../parse/notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
 
 /** A cell ready to run, or the reason it cannot run. Plain data. */
@@ -229,6 +228,6 @@ function compileFailure(
     failure: "compile",
     message,
     location: { file: document.path, line, column: column ?? 1 },
-    codeFrame: codeFrame(document.text, line, column, 2, cellLines(document, line)),
+    codeFrame: codeFrame(document.text, line, column, 2, cellLineRange(document, line)),
   };
 }

@@ -8,7 +8,7 @@ import type { InputValue } from "../../cells/inputs.ts";
 import type { ErrorRecord, OutputRecord } from "../../cells/records.ts";
 import { CellProcess, CellProcessStartError } from "./cell-process.ts";
 import type { CompiledCell } from "../compile/compile-cell.ts";
-import { cellLevelError, mapError } from "../compile/map-error.ts";
+import { cellLevelError, mapError } from "./map-error.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { CellRun, MethodRecord } from "../records/run-record.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";

@@ -8,12 +8,9 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import * as esbuild from "esbuild";
 import { BANNER } from "../compile/compile-cell.ts";
-
-/** The folder of the tristim package (where lib/, cells/ and runner/ are). */
-export const PACKAGE_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+import { PACKAGE_ROOT } from "../shared/package-root.ts";
 
 /** Paths of a built runtime. */
 export interface RuntimeBundle {

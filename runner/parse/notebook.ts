@@ -37,6 +37,8 @@ export interface CellSource {
   readonly fenceLine: number;
   /** 1-based line of the first line of code (the line after the fence). */
   readonly firstLine: number;
+  /** 1-based line of the last line of code (the closing fence is on the line after it). */
+  readonly lastLine: number;
   /** Columns before the code on each line in the file (indentation or block-quote markers). */
   readonly columnOffset: number;
   readonly options: CellOptions;
@@ -53,4 +55,10 @@ export interface NotebookDocument {
   /** The Markdown after the front matter, with the front matter's lines left blank so line numbers still match. */
   readonly body: string;
   readonly cells: readonly CellSource[];
+}
+
+/** The first and last code lines of the cell that holds notebook line `line`, if any. */
+export function cellLineRange(document: NotebookDocument, line: number): [number, number] | undefined {
+  const cell = document.cells.find((c) => line >= c.firstLine && line <= c.lastLine);
+  return cell && [cell.firstLine, cell.lastLine];
 }

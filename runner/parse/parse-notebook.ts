@@ -64,6 +64,7 @@ export function parseNotebook(
       code,
       fenceLine,
       firstLine: fenceLine + 1,
+      lastLine: fenceLine + code.split("\n").length,
       columnOffset: columnOffset(lines, start + 1, code),
       options,
     });

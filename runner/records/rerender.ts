@@ -5,8 +5,7 @@
  */
 import type { ErrorRecord, OutputRecord, StackFrameRecord } from "../../cells/records.ts";
 import { codeFrame } from "../text/code-frame.ts";
-import { cellLines } from "../compile/map-error.ts";
-import type { NotebookDocument } from "../parse/notebook.ts";
+import { cellLineRange, type NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "./run-record.ts";
 
 /** The record of `run` (made from `before`) adjusted to the edited document `after`, which has the same cells. */
@@ -17,8 +16,8 @@ export function moveRecordsToEdit(
 ): RunRecord {
   const shift = (line: number): number => {
     for (const cell of before.cells) {
-      const last = cell.firstLine + cell.code.split("\n").length;
-      if (line >= cell.fenceLine && line <= last)
+      // From the opening fence to the closing one (the line after the last code line).
+      if (line >= cell.fenceLine && line <= cell.lastLine + 1)
         return line + (after.cells[cell.index]!.firstLine - cell.firstLine);
     }
     return line;
@@ -36,7 +35,7 @@ export function moveRecordsToEdit(
         line,
         o.location.column > 1 ? o.location.column : undefined,
         2,
-        cellLines(after, line),
+        cellLineRange(after, line),
       ),
       ...(o.stack ? { stack: o.stack.map(moveFrame) } : {}),
     };

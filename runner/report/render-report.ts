@@ -237,9 +237,8 @@ function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string 
   const { cell } = view;
   const status = view.run?.status ?? "not-run";
   const number = cell.index + 1;
-  const lines = cell.code.split("\n").length;
   const range =
-    lines > 1 ? `lines ${cell.firstLine}–${cell.firstLine + lines - 1}` : `line ${cell.firstLine}`;
+    cell.lastLine > cell.firstLine ? `lines ${cell.firstLine}–${cell.lastLine}` : `line ${cell.firstLine}`;
   const code = `<pre><code class="hljs language-ts">${highlight(cell.code, "typescript")}</code></pre>`;
   let source = "";
   if (status === "listing") {

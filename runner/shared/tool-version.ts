@@ -1,7 +1,7 @@
 /** The tool's name and version, from package.json. */
 import fs from "node:fs";
 import path from "node:path";
-import { PACKAGE_ROOT } from "../execute/runtime-bundle.ts";
+import { PACKAGE_ROOT } from "./package-root.ts";
 
 let cached: { name: string; version: string } | undefined;
 

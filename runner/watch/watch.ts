@@ -20,7 +20,7 @@ import type { RunRecord } from "../records/run-record.ts";
 import { runDocument, runSignature } from "../execute/run-notebook.ts";
 import { RunCancelled } from "../execute/cell-process.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
-import type { CommandOptions, Io } from "../cli/cli.ts";
+import type { CommandOptions, Io } from "../cli/command-options.ts";
 
 /** The port watch listens on unless --port says otherwise. */
 export const DEFAULT_PORT = 4178;

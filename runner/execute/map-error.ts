@@ -9,11 +9,11 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { RawError } from "../../cells/protocol.ts";
 import type { ErrorRecord, StackFrameRecord } from "../../cells/records.ts";
-import { notebookPosition } from "./cell-positions.ts";
+import { notebookPosition } from "../compile/cell-positions.ts";
 import { codeFrame } from "../text/code-frame.ts";
-import type { CompiledCell } from "./compile-cell.ts";
-import type { NotebookDocument } from "../parse/notebook.ts";
-import { PACKAGE_ROOT } from "../execute/runtime-bundle.ts";
+import type { CompiledCell } from "../compile/compile-cell.ts";
+import { cellLineRange, type NotebookDocument } from "../parse/notebook.ts";
+import { PACKAGE_ROOT } from "../shared/package-root.ts";
 
 const FRAME = /^\s*at (?:(.*?) \()?(.+?):(\d+):(\d+)\)?$/;
 const CELL_FILE = /^tristim-cell-(\d+)\.js$/;
@@ -49,13 +49,6 @@ export function mapError(
 }
 
 /** The first and last code line of the cell that holds `line`, if any. */
-export function cellLines(document: NotebookDocument, line: number): [number, number] | undefined {
-  for (const cell of document.cells) {
-    const last = cell.firstLine + cell.code.split("\n").length - 1;
-    if (line >= cell.firstLine && line <= last) return [cell.firstLine, last];
-  }
-  return undefined;
-}
 
 /** An error record for a failure that has no stack (time limit, crash), placed at the cell's fence line. */
 export function cellLevelError(
@@ -67,7 +60,7 @@ export function cellLevelError(
   const cell = document.cells[cellIndex];
   const line = cell?.fenceLine ?? 1;
   const frame = cell
-    ? codeFrame(document.text, cell.firstLine, undefined, 2, cellLines(document, cell.firstLine))
+    ? codeFrame(document.text, cell.firstLine, undefined, 2, cellLineRange(document, cell.firstLine))
     : codeFrame(document.text, line);
   return {
     kind: "error",
@@ -153,7 +146,7 @@ function mapThroughSourceMap(
 }
 
 function frameOf(file: string, line: number, column: number, document: NotebookDocument): string | undefined {
-  if (file === document.path) return codeFrame(document.text, line, column, 2, cellLines(document, line));
+  if (file === document.path) return codeFrame(document.text, line, column, 2, cellLineRange(document, line));
   try {
     return codeFrame(fs.readFileSync(file, "utf8"), line, column);
   } catch {

@@ -1,0 +1,23 @@
+/** What the run and watch commands are given: checked options and where to write messages. */
+import type { EachOption } from "../batch/batch.ts";
+
+/** Where the command writes its messages (the terminal, or a test's buffers). */
+export interface Io {
+  readonly out: (text: string) => void;
+  readonly err: (text: string) => void;
+}
+
+/** Options common to run and watch, after checking. */
+export interface CommandOptions {
+  readonly output?: string;
+  readonly inputs: Readonly<Record<string, string>>;
+  readonly timeLimitMs?: number;
+  readonly keepGoing: boolean;
+  readonly linkAssets: boolean;
+  readonly quiet: boolean;
+  readonly port: number;
+  /** Make reports byte-reproducible (no date, no durations). */
+  readonly reproducible: boolean;
+  /** Run once per data file: --each name=pattern. */
+  readonly each?: EachOption;
+}
