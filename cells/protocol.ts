@@ -2,7 +2,7 @@
  * The messages between the runner and the cell process (over Node's IPC channel, as JSON). Plain data only.
  */
 import type { InputValue } from "./inputs.ts";
-import type { FailureKind, OutputRecord } from "./records.ts";
+import type { FailureKind, MethodNote, OutputRecord } from "./records.ts";
 
 /** Runner → cell process: set up the run (sent once, first). */
 export interface InitMessage {
@@ -15,7 +15,7 @@ export interface InitMessage {
 export interface RunCellMessage {
   readonly type: "run";
   readonly cell: number;
-  /** The cell compiled to a function expression `(async function (rt) { ... })`. */
+  /** The cell compiled to a function expression `(async function (__tristimCell) { ... })`, its parameter a CellRuntime. */
   readonly code: string;
   /** File name the cell's stack frames carry, so the runner can map them back to the notebook. */
   readonly filename: string;
@@ -60,13 +60,13 @@ export interface CellDoneMessage {
   /** Absolute paths of the files the cell read. */
   readonly reads: readonly string[];
   /** The method log so far (every condition noted since the run began), so a later crash cannot lose it. */
-  readonly methods?: readonly { readonly topic: string; readonly statement: string }[];
+  readonly methods?: readonly MethodNote[];
 }
 
 /** Cell process → runner: the answer to "finish". */
 export interface FinishedMessage {
   readonly type: "finished";
-  readonly methods: readonly { readonly topic: string; readonly statement: string }[];
+  readonly methods: readonly MethodNote[];
   /** An error raised after the last cell finished, by code it left running (timer, unawaited promise). */
   readonly lateError?: RawError;
 }

@@ -169,12 +169,16 @@ export interface NoteRecord {
   readonly text: string;
 }
 
-/** One frame of a stack trace, already mapped to the notebook or to the original source file where possible. */
-export interface StackFrameRecord {
-  readonly function?: string;
+/** A place in a file: its path, and the 1-based line and column. The one shape for a position everywhere. */
+export interface Location {
   readonly file: string;
   readonly line: number;
   readonly column: number;
+}
+
+/** One frame of a stack trace, already mapped to the notebook or to the original source file where possible. */
+export interface StackFrameRecord extends Location {
+  readonly function?: string;
 }
 
 /** Why a cell failed. */
@@ -196,7 +200,7 @@ export interface ErrorRecord {
   readonly name?: string;
   readonly message: string;
   /** Where in the notebook (or in a file the cell imported) the error arose, 1-based line and column. */
-  readonly location?: { readonly file: string; readonly line: number; readonly column: number };
+  readonly location?: Location;
   /** A few notebook lines around `location` with a marker, as plain text. */
   readonly codeFrame?: string;
   /** Stack frames outside the runner's own code, mapped where possible. */
@@ -217,5 +221,8 @@ export type OutputRecord =
   | NoteRecord
   | ErrorRecord;
 
-/** The kinds of output record, for exhaustive checks. */
-export type OutputKind = OutputRecord["kind"];
+/** One condition from the library's method log (lib's MethodNote as it crosses to the runner: topic as plain text). */
+export interface MethodNote {
+  readonly topic: string;
+  readonly statement: string;
+}

@@ -18,7 +18,7 @@ import { inspectValue, show } from "./display.ts";
 import { setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
 import type { CellRuntime, FromCellProcess, RawError, RunCellMessage, ToCellProcess } from "./protocol.ts";
-import type { FailureKind } from "./records.ts";
+import type { FailureKind, MethodNote } from "./records.ts";
 
 const realExit = process.exit.bind(process);
 const send = (message: FromCellProcess): void => {
@@ -306,7 +306,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
 }
 
 /** The library's method log as plain records (empty if the library has none or it fails). */
-function methodLog(): { topic: string; statement: string }[] {
+function methodLog(): MethodNote[] {
   const methodsUsed = lib.methodsUsed;
   try {
     if (typeof methodsUsed !== "function") return [];

@@ -17,9 +17,10 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
 import { defaultReportPath, writeReport } from "../report/report-file.ts";
 import { formatDuration } from "../text/duration.ts";
-import { displayLocation, errorTitle } from "../report/render-output.ts";
+import { displayLocation, errorTitle } from "../text/error-text.ts";
+import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
-import { describeCells } from "../report/summary.ts";
+import { describeCells } from "../text/cell-numbers.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument } from "../execute/run-notebook.ts";
 import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
@@ -318,9 +319,8 @@ function isDirectory(p: string): boolean {
 }
 
 /** A path as the user would type it: relative to the working folder when inside it. */
-export function shown(file: string): string {
-  const relative = path.relative(process.cwd(), file);
-  return relative && !relative.startsWith("..") && !path.isAbsolute(relative) ? relative : file;
+function shown(file: string): string {
+  return displayPath(file, process.cwd(), "as given");
 }
 
 function indent(text: string): string {

@@ -3,6 +3,7 @@
  * hoist-cell.ts) → the cell's TypeScript (esbuild's source map) → the notebook line and column.
  */
 import { SourceMap } from "node:module";
+import type { Location } from "../../cells/records.ts";
 import { toInputOffset } from "./hoist-cell.ts";
 
 /** What is needed to map a compiled cell's positions (plain data, kept with the compiled cell). */
@@ -17,11 +18,8 @@ export interface CellPositions {
   readonly code: string;
 }
 
-/** A 1-based line and column. */
-export interface LineColumn {
-  readonly line: number;
-  readonly column: number;
-}
+/** A 1-based line and column in a file known from the context. */
+export type LineColumn = Omit<Location, "file">;
 
 /** Position in the cell's TypeScript (line 1-based, column 1-based) of an offset in its JavaScript. */
 export function jsOffsetToCellPosition(js: string, map: string, offset: number): LineColumn {

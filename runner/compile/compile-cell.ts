@@ -16,7 +16,7 @@ import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts"
 /** A cell ready to run, or the reason it cannot run. Plain data. */
 export interface CompiledCell {
   readonly index: number;
-  /** `(async function (rt) { ... })`, or absent when compilation failed. */
+  /** `(async function (__tristimCell) { ... })` (see RUNTIME_PARAMETER), or absent when compilation failed. */
   readonly code?: string;
   /** File name the cell's stack frames carry. */
   readonly filename: string;

@@ -10,7 +10,7 @@ import { CellProcess, CellProcessStartError } from "./cell-process.ts";
 import type { CompiledCell } from "../compile/compile-cell.ts";
 import { cellLevelError, mapError } from "./map-error.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
-import type { CellRun, MethodRecord } from "../records/run-record.ts";
+import type { CellRun, MethodNote } from "../records/run-record.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
 import { formatTimeLimit } from "../shared/time-limit.ts";
 
@@ -29,9 +29,9 @@ export interface ExecuteOptions {
 /** What execution produced. */
 export interface Execution {
   readonly cells: CellRun[];
-  readonly methods: MethodRecord[];
+  readonly methods: MethodNote[];
   /** Cells whose process was stopped before it could report its method notes (0-based). */
-  readonly methodGaps: number[];
+  readonly methodsMissingFrom: number[];
   readonly events: string[];
 }
 
@@ -45,11 +45,11 @@ export async function executeCells(
   const outputs = document.cells.map((): OutputRecord[] => []);
   const runs: (CellRun | undefined)[] = document.cells.map(() => undefined);
   const events: string[] = [];
-  const methods: MethodRecord[] = [];
-  const methodGaps: number[] = [];
+  const methods: MethodNote[] = [];
+  const methodsMissingFrom: number[] = [];
   const methodKeys = new Set<string>();
   // Each cell reports the method log so far; merged in first-use order, so a later crash or restart loses nothing.
-  const noteMethods = (notes: readonly MethodRecord[]) => {
+  const noteMethods = (notes: readonly MethodNote[]) => {
     for (const m of notes) {
       const key = `${m.topic}\0${m.statement}`;
       if (!methodKeys.has(key))
@@ -133,7 +133,7 @@ export async function executeCells(
         cell.options.timeLimitMs === undefined
           ? `the run's time limit of ${formatTimeLimit(limit)} (raise it with --time-limit, or with time-limit=… on this cell's fence line)`
           : `its time limit of ${formatTimeLimit(limit)} (set by time-limit=… on its fence line)`;
-      methodGaps.push(index);
+      methodsMissingFrom.push(index);
       fail(
         index,
         cellLevelError(
@@ -145,7 +145,7 @@ export async function executeCells(
         outcome.durationMs,
       );
     } else if (outcome.kind === "crash") {
-      methodGaps.push(index);
+      methodsMissingFrom.push(index);
       fail(
         index,
         cellLevelError(
@@ -187,7 +187,7 @@ export async function executeCells(
   return {
     cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }),
     methods,
-    methodGaps,
+    methodsMissingFrom,
     events,
   };
 }

@@ -77,7 +77,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       keepGoing,
       cells,
       methods: execution.methods,
-      ...(execution.methodGaps.length ? { methodsMissingFrom: execution.methodGaps } : {}),
+      ...(execution.methodsMissingFrom.length ? { methodsMissingFrom: execution.methodsMissingFrom } : {}),
       filesRead: filesRead(cells, compiled),
       events: execution.events,
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),

@@ -43,11 +43,3 @@ export function countChecks(run: RunRecord): CheckCounts {
   const failed = all.filter((c) => !c.record.passed).length;
   return { passed: all.length - failed, failed };
 }
-
-/** "12 passed, 2 failed", "3 passed", "1 failed". */
-export function describeCounts(counts: CheckCounts): string {
-  const parts: string[] = [];
-  if (counts.passed > 0 || counts.failed === 0) parts.push(`${counts.passed} passed`);
-  if (counts.failed > 0) parts.push(`${counts.failed} failed`);
-  return parts.join(", ");
-}

@@ -3,7 +3,7 @@
  * re-render read only this (with the parsed notebook), never live objects.
  */
 import type { InputValue } from "../../cells/inputs.ts";
-import type { OutputRecord } from "../../cells/records.ts";
+import type { MethodNote, OutputRecord } from "../../cells/records.ts";
 
 /** What happened to one cell. */
 export type CellStatus =
@@ -46,11 +46,7 @@ export interface BatchPlace {
   readonly count: number;
 }
 
-/** One colorimetric condition from the library's method log. */
-export interface MethodRecord {
-  readonly topic: string;
-  readonly statement: string;
-}
+export type { MethodNote } from "../../cells/records.ts";
 
 /** The record of one run of a notebook. */
 export interface RunRecord {
@@ -68,7 +64,7 @@ export interface RunRecord {
   readonly timeLimitMs: number;
   readonly keepGoing: boolean;
   readonly cells: readonly CellRun[];
-  readonly methods: readonly MethodRecord[];
+  readonly methods: readonly MethodNote[];
   /** Cells (0-based) whose process was stopped before it reported its method notes: the Methods may be incomplete. */
   readonly methodsMissingFrom?: readonly number[];
   readonly filesRead: readonly FileRead[];

@@ -8,7 +8,7 @@
  * Versioned: a tool checks `format` and `version`; fields are only ever added within one version.
  */
 import path from "node:path";
-import type { CautionRecord, CheckRecord, ErrorRecord, FailureKind } from "../../cells/records.ts";
+import type { CautionRecord, CheckRecord, ErrorRecord, FailureKind, Location } from "../../cells/records.ts";
 import type { InputValue } from "../../cells/inputs.ts";
 import { cautionResults } from "../records/caution-results.ts";
 import { checkResults, countChecks } from "../records/check-results.ts";
@@ -16,20 +16,13 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import { runExitCode } from "../records/run-outcome.ts";
 import type { CellStatus, RunRecord } from "../records/run-record.ts";
 import { jsonForScript } from "./escape.ts";
-import { shownPath } from "./run-details.ts";
+import { displayPath } from "../text/display-path.ts";
 
 /** The element id of the embedded record. */
 export const RUN_RECORD_ELEMENT_ID = "tristim-run-record";
 /** The value of `format`, and the current `version`. */
 export const RUN_RECORD_FORMAT = "tristim-run-record";
 export const RUN_RECORD_VERSION = 1;
-
-/** A place in the notebook (or in a file a cell imported): path relative to the notebook's folder, 1-based. */
-export interface EmbeddedLocation {
-  readonly file: string;
-  readonly line: number;
-  readonly column: number;
-}
 
 /** One cell: its number as the report shows it (1-based), first code line, status, failure, duration. */
 export interface EmbeddedCell {
@@ -42,7 +35,8 @@ export interface EmbeddedCell {
     readonly failure: FailureKind;
     readonly name?: string;
     readonly message: string;
-    readonly location?: EmbeddedLocation;
+    /** Path relative to the notebook's folder. */
+    readonly location?: Location;
   };
   /** How many acceptance checks the cell stated, and how many of them failed. */
   readonly checks: number;
@@ -186,7 +180,7 @@ export function embeddedRunRecord(
     methods: run.methods.map((m) => ({ topic: m.topic, statement: m.statement })),
     methodsMissingFrom: (run.methodsMissingFrom ?? []).map((i) => i + 1),
     filesRead: run.filesRead.map((f) => ({
-      path: shownPath(f.path, dir),
+      path: displayPath(f.path, dir, "relative"),
       sha256: f.sha256 ?? null,
       cells: f.cells.map((i) => i + 1),
       ...(f.imported ? { imported: true } : {}),
@@ -204,7 +198,7 @@ function embeddedError(error: ErrorRecord, dir: string): NonNullable<EmbeddedCel
     ...(error.location
       ? {
           location: {
-            file: shownPath(error.location.file, dir),
+            file: displayPath(error.location.file, dir, "relative"),
             line: error.location.line,
             column: error.location.column,
           },

@@ -5,9 +5,9 @@
  * recorded only when that is true: the log was collected from every cell that ran.
  */
 import { METHOD_TOPICS } from "../../lib/methods/method-log.ts";
-import type { MethodRecord, RunRecord } from "../records/run-record.ts";
+import type { MethodNote, RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
-import { describeCells } from "./summary.ts";
+import { describeCells } from "../text/cell-numbers.ts";
 
 /** The headings of the section and the topics under each, in reading order. */
 const GROUPS: readonly { readonly heading: string; readonly topics: readonly string[] }[] = [
@@ -79,7 +79,7 @@ export function renderMethods(
   }
 
   const known = new Set(GROUPS.flatMap((g) => g.topics));
-  const byTopic = new Map<string, MethodRecord[]>();
+  const byTopic = new Map<string, MethodNote[]>();
   for (const m of methods) byTopic.set(m.topic, [...(byTopic.get(m.topic) ?? []), m]);
   const order = (topic: string) => {
     const i = (METHOD_TOPICS as readonly string[]).indexOf(topic);

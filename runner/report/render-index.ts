@@ -9,7 +9,7 @@ import { fileURLToPath } from "node:url";
 import type { BatchEntry, BatchRecord } from "../batch/batch-index.ts";
 import { EXIT } from "../shared/exit-codes.ts";
 import { escapeHtml } from "./escape.ts";
-import { describeCells } from "./summary.ts";
+import { describeCells } from "../text/cell-numbers.ts";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const CSS = fs.readFileSync(path.join(here, "report.css"), "utf8");

@@ -2,7 +2,6 @@
  * HTML for each kind of output record. One function per kind, looked up by `kind`; a record of a kind this writer
  * does not know is shown as a short note instead of breaking the report.
  */
-import path from "node:path";
 import type {
   CautionRecord,
   CheckRecord,
@@ -24,6 +23,7 @@ import { limitsText, marginText, valueText } from "../text/check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";
+import { displayLocation, errorTitle } from "../text/error-text.ts";
 
 /** State shared while rendering one report: figure and table numbers, and how to show file paths. */
 export interface RenderContext {
@@ -201,18 +201,6 @@ function renderCaution(record: CautionRecord, ctx: RenderContext): string {
 
 function renderNote(record: NoteRecord): string {
   return `<p class="out-note">${escapeHtml(record.text)}</p>`;
-}
-
-/** "notebook.md:12:5" relative to the notebook's folder. */
-export function displayLocation(location: NonNullable<ErrorRecord["location"]>, notebookDir: string): string {
-  const relative = path.relative(notebookDir, location.file);
-  const shown = relative.startsWith("..") && path.isAbsolute(location.file) ? location.file : relative;
-  return `${shown}:${location.line}:${location.column}`;
-}
-
-/** The heading of an error: "TypeError: message" or the message alone. */
-export function errorTitle(record: ErrorRecord): string {
-  return record.name && record.failure !== "exit" ? `${record.name}: ${record.message}` : record.message;
 }
 
 const FAILURE_LABEL: Record<ErrorRecord["failure"], string> = {

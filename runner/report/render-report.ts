@@ -24,14 +24,13 @@ import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
 import { renderMethods } from "./methods-section.ts";
 import { renderOutputs, type RenderContext } from "./render-output.ts";
 import { renderRunDetails } from "./run-details.ts";
-import { describeCells, renderSummary } from "./summary.ts";
+import { renderSummary } from "./summary.ts";
+import { describeCells } from "../text/cell-numbers.ts";
 
 /** Options of the report writer. */
 export interface ReportOptions {
   /** Link Plotly from this folder (a URL relative to the report) instead of embedding it. */
   readonly assetsHref?: string;
-  /** HTML added at the end of the body (watch mode's reload script); never part of a written report. */
-  readonly extraBodyHtml?: string;
 }
 
 const require = createRequire(import.meta.url);
@@ -137,7 +136,7 @@ ${renderRunDetails(document, run, "run-record", hasFigures ? { plotlyVersion: PL
 ${runRecordScript(embeddedRunRecord(document, run, title))}
 ${plotly}
 ${hasFigures ? `<script>${FIGURES_CLIENT}</script>` : ""}
-${options.extraBodyHtml ?? ""}
+
 </body>
 </html>
 `;

@@ -9,6 +9,7 @@ import { checkResults } from "../records/check-results.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
+import { displayPath } from "../text/display-path.ts";
 import { formatDuration } from "../text/duration.ts";
 
 const STATUS_TEXT = { ok: "ran", failed: "failed", "not-run": "not run", listing: "listing only" } as const;
@@ -114,7 +115,7 @@ export function renderRunDetails(
       : `<h3>Files read by the cells</h3><p class="section-note">Paths are relative to the notebook's folder${run.filesRead.some((f) => f.imported) ? "; “imported” marks a module a cell imported" : ""}.</p><div class="table-scroll"><table class="compact files-read"><thead><tr><th>File</th><th>SHA-256</th><th>Used by</th></tr></thead><tbody>${run.filesRead
           .map(
             (f) =>
-              `<tr><td class="file-path">${escapeHtml(shownPath(f.path, dir))}${f.imported ? ` <span class="file-how">imported</span>` : ""}</td>` +
+              `<tr><td class="file-path">${escapeHtml(displayPath(f.path, dir, "relative"))}${f.imported ? ` <span class="file-how">imported</span>` : ""}</td>` +
               `<td><code class="hash">${f.sha256 ?? "(not a readable file)"}</code></td>` +
               `<td>${f.cells.map((i) => `<a href="#cell-${i + 1}">cell&nbsp;${i + 1}</a>`).join(", ")}</td></tr>`,
           )
@@ -125,11 +126,4 @@ export function renderRunDetails(
     `<p class="section-note">How this report was made. A SHA-256 identifies the exact bytes of a file: compute it again (for example with <code>sha256sum</code>) to confirm a file is the one used here.</p>` +
     `<dl class="facts">${facts.map(([k, v]) => `<dt>${k}</dt><dd>${v}</dd>`).join("")}</dl>${inputTable}${cellTable}${files}</section>`
   );
-}
-
-/** A path relative to the notebook's folder, with forward slashes (absolute when on another drive). */
-export function shownPath(file: string, dir: string): string {
-  const relative = path.relative(dir, file);
-  if (!relative || path.isAbsolute(relative)) return file;
-  return relative.split(path.sep).join("/");
 }

@@ -10,7 +10,8 @@ import { checkOutcomeText } from "../text/check-text.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
-import { displayLocation, errorTitle } from "./render-output.ts";
+import { displayLocation, errorTitle } from "../text/error-text.ts";
+import { describeCells } from "../text/cell-numbers.ts";
 
 /** What a summary section may look at. */
 export interface SummaryContext {
@@ -102,17 +103,4 @@ export function renderSummary(ctx: SummaryContext): string {
     : `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
   if (parts.length === 0) return clear;
   return `<section class="summary" aria-label="Summary">${clear}${parts.join("")}</section>`;
-}
-
-/** "cells 4–7 and 9" */
-export function describeCells(numbers: number[]): string {
-  const ranges: string[] = [];
-  for (let i = 0; i < numbers.length; i++) {
-    let j = i;
-    while (j + 1 < numbers.length && numbers[j + 1] === numbers[j]! + 1) j++;
-    ranges.push(j > i ? `${numbers[i]}–${numbers[j]}` : String(numbers[i]));
-    i = j;
-  }
-  const list = ranges.length > 1 ? `${ranges.slice(0, -1).join(", ")} and ${ranges.at(-1)}` : ranges[0]!;
-  return `${numbers.length === 1 ? "cell" : "cells"} ${list}`;
 }
