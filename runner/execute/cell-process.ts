@@ -7,7 +7,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import type { InputValue } from "../../cells/inputs.ts";
 import type { FromCellProcess, RawError, ToCellProcess } from "../../cells/protocol.ts";
-import type { OutputRecord } from "../../cells/records.ts";
+import type { MethodNote, OutputRecord } from "../../cells/records.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
 
 /** How long the cell process may take to load the library and get ready. */
@@ -22,7 +22,7 @@ export type CellOutcome =
       readonly durationMs: number;
       readonly error?: RawError;
       readonly reads: readonly string[];
-      readonly methods: readonly { readonly topic: string; readonly statement: string }[];
+      readonly methods: readonly MethodNote[];
     }
   | { readonly kind: "time-limit"; readonly durationMs: number }
   | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string };

@@ -48,8 +48,6 @@ export function mapError(
   return record;
 }
 
-/** The first and last code line of the cell that holds `line`, if any. */
-
 /** An error record for a failure that has no stack (time limit, crash), placed at the cell's fence line. */
 export function cellLevelError(
   failure: ErrorRecord["failure"],

@@ -13,18 +13,18 @@ import { promisify } from "node:util";
 import Color from "colorjs.io";
 import { differenceCiede2000 } from "culori";
 import { chromium, type Browser, type Page } from "playwright-core";
+import { CHROMIUM, NO_CHROMIUM } from "./chromium.ts";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodeRgb, linearRgb } from "../../lib/plot/display-rgb.ts";
 
-const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
-const HAVE_CHROMIUM = existsSync(CHROMIUM);
+const HAVE_CHROMIUM = CHROMIUM !== undefined;
 const ROOT = fileURLToPath(new URL("../../", import.meta.url));
 const ARTIFACTS = ROOT + "test/.artifacts/";
 const NOTEBOOK = ROOT + "test/browser/fixtures/figures-and-swatches.md";
 const REPORT = ARTIFACTS + "figures-and-swatches.html";
 const SCREENSHOT = ARTIFACTS + "figures-and-swatches.png";
 
-const SKIP_REASON = `no Chromium at ${CHROMIUM}: install Debian's chromium (apt-get install -y chromium, as .ci/run does) to run the browser test`;
+const SKIP_REASON = `${NO_CHROMIUM}, to run the browser test`;
 if (!HAVE_CHROMIUM) console.warn(`test/browser: SKIPPED – ${SKIP_REASON}`);
 
 interface DrawnFigure {

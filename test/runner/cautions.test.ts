@@ -13,6 +13,7 @@ import { cautionResults } from "../../runner/records/caution-results.ts";
 import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { outputsOf, runText, ts } from "./helpers.ts";
+import { okCell, runRecord } from "./run-records.ts";
 
 const TEXT =
   "Informative only: this is not a certification. The applicable standard, local codes and accredited testing decide.";
@@ -100,45 +101,15 @@ describe("cautions in a run and its report", () => {
 
   it("treats a caution already said within an earlier, longer one as the same caution", () => {
     const short = "Informative only: not a certification.";
-    const run = {
-      notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
-      tool: { name: "tristim", version: "0.1.0" },
-      node: "v20.0.0",
-      platform: "linux-x64",
-      startedAt: "2024-06-01T10:00:00.000Z",
-      durationMs: 1,
-      inputs: {},
-      inputsSet: {},
-      timeLimitMs: 30_000,
-      keepGoing: false,
-      methods: [],
-      filesRead: [],
-      events: [],
-      signature: "x",
-      cells: [
-        {
-          index: 0,
-          status: "ok" as const,
-          reads: [],
-          outputs: [
-            {
-              kind: "caution" as const,
-              title: "Eye protection",
-              text: `${short} Do not release eyewear on this record.`,
-            },
-          ],
-        },
-        {
-          index: 1,
-          status: "ok" as const,
-          reads: [],
-          outputs: [
-            { kind: "value" as const, text: "3" },
-            { kind: "caution" as const, title: "Caution", text: short, about: "value" as const },
-          ],
-        },
-      ],
-    };
+    const run = runRecord([
+      okCell(0, [
+        { kind: "caution", title: "Eye protection", text: `${short} Do not release eyewear on this record.` },
+      ]),
+      okCell(1, [
+        { kind: "value", text: "3" },
+        { kind: "caution", title: "Caution", text: short, about: "value" },
+      ]),
+    ]);
     expect(cautionResults(run)).toHaveLength(1);
     const html = renderReport(parseNotebook(ts("1") + ts("2"), "/lab/nb.md"), run);
     expect(html).toContain("This report contains a caution ");

@@ -19,6 +19,7 @@ import { limitsText, marginText, printedNumber } from "../../runner/text/check-t
 import { renderReport } from "../../runner/report/render-report.ts";
 import type { RunRecord } from "../../runner/records/run-record.ts";
 import { notebookFile, outputsOf, runText, ts } from "./helpers.ts";
+import { okCell, runRecord } from "./run-records.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));
 
@@ -261,25 +262,9 @@ describe("tristim run with checks", () => {
   }, 120_000);
 });
 
-/** A run record for renderer-only tests. */
-export function fakeRun(outputs: OutputRecord[]): RunRecord {
-  return {
-    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
-    tool: { name: "tristim", version: "0.1.0" },
-    node: "v20.0.0",
-    platform: "linux-x64",
-    startedAt: "2024-06-01T10:00:00.000Z",
-    durationMs: 1,
-    inputs: {},
-    inputsSet: {},
-    timeLimitMs: 30_000,
-    keepGoing: false,
-    cells: [{ index: 0, status: "ok", outputs, durationMs: 1, reads: [] }],
-    methods: [],
-    filesRead: [],
-    events: [],
-    signature: "x",
-  };
+/** A run record for renderer-only tests: one cell that showed `outputs`. */
+function fakeRun(outputs: OutputRecord[]): RunRecord {
+  return runRecord([okCell(0, outputs, 1)], { durationMs: 1 });
 }
 
 describe("the summary", () => {

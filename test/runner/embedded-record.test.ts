@@ -10,6 +10,7 @@ import { readEmbeddedRunRecord, RUN_RECORD_VERSION } from "../../runner/report/e
 import { renderReport } from "../../runner/report/render-report.ts";
 import type { RunRecord } from "../../runner/records/run-record.ts";
 import { runText, ts } from "./helpers.ts";
+import { okCell, runRecord } from "./run-records.ts";
 
 const ABC_SHA256 = "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"; // FIPS 180-2, B.1
 
@@ -109,7 +110,7 @@ describe("the run record embedded in the report", () => {
   it("cannot be broken out of: text with </script>, <!-- and line separators comes back as it was", () => {
     const evil = "</script><script>alert(1)</script><!-- \u2028 & </SCRIPT >";
     const doc = parseNotebook(`---\ntitle: "x"\n---\n` + ts("1"), "/lab/nb.md");
-    const html = renderReport(doc, runRecord({ label: evil }, evil));
+    const html = renderReport(doc, runRecordWith({ label: evil }, evil));
     expect(html).not.toContain("<script>alert(1)");
     expect(html).not.toContain("</SCRIPT >");
     const record = readEmbeddedRunRecord(html);
@@ -137,33 +138,18 @@ describe("the run record embedded in the report", () => {
 });
 
 /** A hand-made run whose check label, caution text and input value are `text`. */
-function runRecord(check: { label: string }, text: string): RunRecord {
-  return {
-    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
-    tool: { name: "tristim", version: "0.1.0" },
-    node: "v20.0.0",
-    platform: "linux-x64",
-    startedAt: "2024-06-01T10:00:00.000Z",
-    durationMs: 5,
-    inputs: { sample: text },
-    inputsSet: {},
-    timeLimitMs: 30_000,
-    keepGoing: false,
-    cells: [
-      {
-        index: 0,
-        status: "ok",
-        reads: [],
-        durationMs: 1,
-        outputs: [
+function runRecordWith(check: { label: string }, text: string): RunRecord {
+  return runRecord(
+    [
+      okCell(
+        0,
+        [
           { kind: "check", label: check.label, passed: true, value: 1, valueText: "1", limits: { min: 0 } },
           { kind: "caution", title: "Caution", text },
         ],
-      },
+        1,
+      ),
     ],
-    methods: [],
-    filesRead: [],
-    events: [],
-    signature: "x",
-  };
+    { durationMs: 5, inputs: { sample: text } },
+  );
 }

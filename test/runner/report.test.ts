@@ -13,6 +13,7 @@ import { PLOTLY_ASSET, renderReport } from "../../runner/report/render-report.ts
 import type { CellRun, RunRecord } from "../../runner/records/run-record.ts";
 import { writeFileAtomic } from "../../runner/shared/write-atomic.ts";
 import { runText, tempFolder, ts } from "./helpers.ts";
+import { okCell, runRecord } from "./run-records.ts";
 
 const require = createRequire(import.meta.url);
 const FIGURE: OutputRecord = {
@@ -20,30 +21,8 @@ const FIGURE: OutputRecord = {
   spec: { data: [{ type: "scatter", x: [1, 2], y: [3, 4] }], layout: {} },
 };
 
-function record(cells: CellRun[], extra: Partial<RunRecord> = {}): RunRecord {
-  return {
-    notebook: { path: "/lab/nb.md", sha256: "ab".repeat(32) },
-    tool: { name: "tristim", version: "0.1.0" },
-    node: "v20.0.0",
-    platform: "linux-x64",
-    startedAt: "2024-06-01T10:00:00.000Z",
-    durationMs: 1234,
-    inputs: {},
-    inputsSet: {},
-    timeLimitMs: 30_000,
-    keepGoing: false,
-    cells,
-    methods: [],
-    filesRead: [],
-    events: [],
-    signature: "x",
-    ...extra,
-  };
-}
-
-function ok(index: number, outputs: OutputRecord[]): CellRun {
-  return { index, status: "ok", outputs, durationMs: 5, reads: [] };
-}
+const record = runRecord;
+const ok = (index: number, outputs: OutputRecord[]): CellRun => okCell(index, outputs);
 
 describe("the report", () => {
   it("escapes text from cells and data: a sample named <script>alert(1)</script> appears as text", () => {
