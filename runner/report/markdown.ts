@@ -6,6 +6,7 @@
 import MarkdownIt, { type Token } from "markdown-it";
 import { highlight } from "./highlight.ts";
 import { escapeHtml } from "./escape.ts";
+import { cellFences } from "./cell-fences.ts";
 
 /** A heading of the report, for the contents list. */
 export interface Heading {
@@ -22,8 +23,8 @@ function create(html: boolean) {
   return md;
 }
 
-/** Renderer for the notebook's prose (raw HTML escaped). */
-export const proseMarkdown = create(false);
+/** Renderer for the notebook's prose (raw HTML escaped); its fences are cells or highlighted code. */
+export const proseMarkdown = create(false).use(cellFences);
 /** Renderer for Markdown a cell marked trusted. */
 export const trustedMarkdown = create(true);
 

@@ -16,8 +16,7 @@ import type {
   TableRecord,
   ValueRecord,
 } from "../../cells/records.ts";
-import { cautionKey } from "../records/caution-results.ts";
-import { checkAnchor } from "../records/check-results.ts";
+import type { OutputView } from "./report-model.ts";
 import { keepsOnOneLine } from "./cell-wrap.ts";
 import { limitsText, marginText, valueText } from "../text/check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
@@ -25,22 +24,13 @@ import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";
 import { displayLocation, errorTitle } from "../text/error-text.ts";
 
-/** State shared while rendering one report: figure and table numbers, and how to show file paths. */
-export interface RenderContext {
-  figures: number;
-  tables: number;
-  /** The notebook's folder; paths in error messages are shown relative to it. */
-  readonly notebookDir: string;
-  /** The cell being rendered (0-based) and how many of its checks are rendered so far (for their anchors). */
-  cell: number;
-  cellChecks: number;
-  /** For each caution text, the anchor of the box that says it in full; and the anchors already rendered. */
-  readonly cautionAnchors: ReadonlyMap<string, string>;
-  readonly cautionsShown: Set<string>;
-}
-
+/** A renderer of one kind: the record, its place in the report, and the notebook's folder (for paths). */
 type Renderers = {
-  [K in OutputRecord["kind"]]: (record: Extract<OutputRecord, { kind: K }>, ctx: RenderContext) => string;
+  [K in OutputRecord["kind"]]: (
+    record: Extract<OutputRecord, { kind: K }>,
+    view: OutputView,
+    notebookDir: string,
+  ) => string;
 };
 
 const renderers: Renderers = {
@@ -52,42 +42,44 @@ const renderers: Renderers = {
   markdown: renderMarkdown,
   html: renderHtml,
   caution: renderCaution,
-  check: (record, ctx) => renderChecks([record], ctx),
+  check: (_record, view) => renderChecks([view]),
   note: renderNote,
   error: renderError,
 };
 
 /** HTML for one output record. */
-export function renderOutput(record: OutputRecord, ctx: RenderContext): string {
-  const render = (renderers as Record<string, ((r: OutputRecord, c: RenderContext) => string) | undefined>)[
-    record.kind
-  ];
+export function renderOutput(view: OutputView, notebookDir: string): string {
+  const { record } = view;
+  const render = (
+    renderers as Record<string, ((r: OutputRecord, v: OutputView, dir: string) => string) | undefined>
+  )[record.kind];
   if (!render)
     return `<p class="out-note">An output of kind “${escapeHtml(String(record.kind))}” that this version cannot show.</p>`;
-  return render(record, ctx);
+  return render(record, view, notebookDir);
 }
 
 /** HTML for a cell's outputs in order; consecutive checks share one table. */
-export function renderOutputs(records: readonly OutputRecord[], ctx: RenderContext): string {
+export function renderOutputs(views: readonly OutputView[], notebookDir: string): string {
   const parts: string[] = [];
-  for (let i = 0; i < records.length; i++) {
-    if (records[i]!.kind !== "check") {
-      parts.push(renderOutput(records[i]!, ctx));
+  for (let i = 0; i < views.length; i++) {
+    if (views[i]!.record.kind !== "check") {
+      parts.push(renderOutput(views[i]!, notebookDir));
       continue;
     }
     let j = i;
-    while (j + 1 < records.length && records[j + 1]!.kind === "check") j++;
-    parts.push(renderChecks(records.slice(i, j + 1) as CheckRecord[], ctx));
+    while (j + 1 < views.length && views[j + 1]!.record.kind === "check") j++;
+    parts.push(renderChecks(views.slice(i, j + 1)));
     i = j;
   }
   return parts.join("\n");
 }
 
 /** A table of acceptance checks: result (word and symbol, not colour alone), label, value, limits. */
-function renderChecks(records: readonly CheckRecord[], ctx: RenderContext): string {
-  const rows = records
-    .map((r) => {
-      const id = checkAnchor(ctx.cell, ctx.cellChecks++);
+function renderChecks(views: readonly OutputView[]): string {
+  const rows = views
+    .map((view) => {
+      const r = view.record as CheckRecord;
+      const id = view.anchor!;
       const margin = marginText(r);
       const detail = r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "";
       const result = r.passed
@@ -114,8 +106,8 @@ function renderValue(record: ValueRecord): string {
   return `<pre class="out-value">${escapeHtml(record.text)}</pre>`;
 }
 
-function renderTable(record: TableRecord, ctx: RenderContext): string {
-  const number = ++ctx.tables;
+function renderTable(record: TableRecord, view: OutputView): string {
+  const number = view.number!;
   const id = `table-${number}`;
   const caption = `<figcaption><span class="label">Table ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption>`;
   const head = record.columns
@@ -147,8 +139,8 @@ function cellClass(text: string, numeric: boolean): string {
   return keepsOnOneLine(text) ? ' class="one-line"' : "";
 }
 
-function renderFigure(record: FigureRecord, ctx: RenderContext): string {
-  const number = ++ctx.figures;
+function renderFigure(record: FigureRecord, view: OutputView): string {
+  const number = view.number!;
   const id = `figure-${number}`;
   return (
     `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
@@ -157,8 +149,8 @@ function renderFigure(record: FigureRecord, ctx: RenderContext): string {
   );
 }
 
-function renderSwatches(record: SwatchesRecord, ctx: RenderContext): string {
-  return renderSwatchFigure(record, ++ctx.figures);
+function renderSwatches(record: SwatchesRecord, view: OutputView): string {
+  return renderSwatchFigure(record, view.number!);
 }
 
 function renderMarkdown(record: MarkdownRecord): string {
@@ -181,13 +173,12 @@ const CAUTION_ABOUT: Record<NonNullable<CautionRecord["about"]>, string> = {
  * A caution box. Each distinct text is shown in full once, where it first appears; later places repeat its first
  * sentence with a link to the full text, so the caution stays beside every result it belongs to without flooding.
  */
-function renderCaution(record: CautionRecord, ctx: RenderContext): string {
-  const key = cautionKey(record);
-  const anchor = ctx.cautionAnchors.get(key);
+function renderCaution(record: CautionRecord, view: OutputView): string {
+  const anchor = view.caution?.anchor;
   const about = record.about
     ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>`
     : "";
-  if (ctx.cautionsShown.has(anchor ?? key)) {
+  if (view.caution?.repeat) {
     const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
     const more = first.length < record.text.length ? " …" : "";
     return (
@@ -195,7 +186,6 @@ function renderCaution(record: CautionRecord, ctx: RenderContext): string {
       `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
     );
   }
-  ctx.cautionsShown.add(anchor ?? key);
   return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
 }
 
@@ -214,16 +204,16 @@ const FAILURE_LABEL: Record<ErrorRecord["failure"], string> = {
   startup: "could not start",
 };
 
-function renderError(record: ErrorRecord, ctx: RenderContext): string {
+function renderError(record: ErrorRecord, _view: OutputView, notebookDir: string): string {
   const where = record.location
-    ? `<p class="error-where">at ${escapeHtml(displayLocation(record.location, ctx.notebookDir))}</p>`
+    ? `<p class="error-where">at ${escapeHtml(displayLocation(record.location, notebookDir))}</p>`
     : "";
   const frame = record.codeFrame ? `<pre class="code-frame">${escapeHtml(record.codeFrame)}</pre>` : "";
   const stack =
     record.stack && record.stack.length > 1
       ? `<details class="stack"><summary>Call stack</summary><pre>${escapeHtml(
           record.stack
-            .map((f) => `at ${f.function ? `${f.function} ` : ""}${displayLocation(f, ctx.notebookDir)}`)
+            .map((f) => `at ${f.function ? `${f.function} ` : ""}${displayLocation(f, notebookDir)}`)
             .join("\n"),
         )}</pre></details>`
       : "";

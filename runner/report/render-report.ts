@@ -11,10 +11,9 @@ import type { Token } from "markdown-it";
 import path from "node:path";
 import { createRequire } from "node:module";
 import { fileURLToPath } from "node:url";
-import type { OutputRecord } from "../../cells/records.ts";
-import type { CellSource, NotebookDocument } from "../parse/notebook.ts";
-import type { CellRun, RunRecord } from "../records/run-record.ts";
-import { cautionIndex, cautionResults } from "../records/caution-results.ts";
+import type { NotebookDocument } from "../parse/notebook.ts";
+import type { RunRecord } from "../records/run-record.ts";
+import { cautionResults } from "../records/caution-results.ts";
 import { countChecks } from "../records/check-results.ts";
 import { embeddedRunRecord, runRecordScript } from "./embedded-run-record.ts";
 import { cssString, escapeHtml } from "./escape.ts";
@@ -22,7 +21,9 @@ import { formatDuration } from "../text/duration.ts";
 import { highlight } from "./highlight.ts";
 import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
 import { renderMethods } from "./methods-section.ts";
-import { renderOutputs, type RenderContext } from "./render-output.ts";
+import { renderOutputs } from "./render-output.ts";
+import { reportModel, type CellView, type ReportModel } from "./report-model.ts";
+import type { CellFenceEnv } from "./cell-fences.ts";
 import { renderRunDetails } from "./run-details.ts";
 import { renderSummary } from "./summary.ts";
 import { describeCells } from "../text/cell-numbers.ts";
@@ -68,29 +69,18 @@ export function writeSharedAssets(folder: string): void {
   fs.renameSync(temporary, target);
 }
 
-interface CellView {
-  readonly cell: CellSource;
-  readonly run: CellRun | undefined;
-}
-
 /** Renders the report HTML for a document and the record of its run. */
 export function renderReport(
   document: NotebookDocument,
   run: RunRecord,
   options: ReportOptions = {},
 ): string {
-  const notebookDir = path.dirname(document.path);
-  const ctx: RenderContext = {
-    figures: 0,
-    tables: 0,
-    notebookDir,
-    cell: 0,
-    cellChecks: 0,
-    cautionAnchors: cautionIndex(run).anchors,
-    cautionsShown: new Set(),
+  const model = reportModel(document, run);
+  const { notebookDir } = model;
+  const env: CellFenceEnv = {
+    cellsByFence: model.cellsByFence,
+    renderCell: (view) => renderCell(view, model),
   };
-  const env = { cells: new Map<number, CellView>(), render: (view: CellView) => renderCell(view, run, ctx) };
-  for (const cell of document.cells) env.cells.set(cell.fenceLine - 1, { cell, run: run.cells[cell.index] });
 
   const tokens = proseMarkdown.parse(document.body, env);
   const title = takeTitle(document, tokens);
@@ -169,16 +159,6 @@ export function reportTitle(document: NotebookDocument): string {
   return takeTitle(document, proseMarkdown.parse(document.body, {}));
 }
 
-// Cells take the place of their fences; other fences are shown as highlighted code.
-proseMarkdown.renderer.rules.fence = (tokens, idx, _options, environment) => {
-  const env = environment as { cells?: Map<number, CellView>; render?: (v: CellView) => string };
-  const token = tokens[idx]!;
-  const view = token.map ? env.cells?.get(token.map[0]) : undefined;
-  if (view && env.render) return env.render(view);
-  const language = token.info.trim().split(/\s+/)[0] ?? "";
-  return `<pre class="code-block"><code class="hljs${language ? ` language-${escapeHtml(language)}` : ""}">${highlight(token.content, language)}</code></pre>\n`;
-};
-
 function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: string): string {
   const fm = document.frontMatter;
   const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
@@ -232,7 +212,7 @@ function renderContents(entries: Heading[]): string {
   return `<nav class="contents" id="contents" aria-label="Contents"><h2>Contents</h2><ol${entries.length > 8 ? ' class="long"' : ""}>${items}</ol></nav>`;
 }
 
-function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string {
+function renderCell(view: CellView, { run, notebookDir }: ReportModel): string {
   const { cell } = view;
   const status = view.run?.status ?? "not-run";
   const number = cell.index + 1;
@@ -252,20 +232,8 @@ function renderCell(view: CellView, run: RunRecord, ctx: RenderContext): string 
       .map((c) => c.index + 1);
     notRun = `<p class="not-run-label">Cell ${number} was not run${failed.length ? ` because ${describeCells(failed.slice(-1))} failed` : ""}.</p>`;
   }
-  ctx.cell = cell.index;
-  ctx.cellChecks = 0;
-  const outputs = renderOutputs(withCaption(view.run?.outputs ?? [], cell.options.caption), ctx);
+  const outputs = renderOutputs(view.outputs, notebookDir);
   return `<section class="cell cell-${status}${status === "not-run" ? " not-run" : ""}" id="cell-${number}" data-line="${cell.fenceLine}">${source}${notRun}${
     outputs ? `<div class="cell-outputs">${outputs}</div>` : ""
   }</section>\n`;
-}
-
-/** Gives the fence line's caption to the cell's first figure, table or swatch row that has no caption of its own. */
-function withCaption(outputs: readonly OutputRecord[], caption: string | undefined): readonly OutputRecord[] {
-  if (!caption) return outputs;
-  const i = outputs.findIndex(
-    (o) => (o.kind === "figure" || o.kind === "table" || o.kind === "swatches") && !o.caption,
-  );
-  if (i < 0) return outputs;
-  return outputs.map((o, j) => (j === i ? ({ ...o, caption } as OutputRecord) : o));
 }
