@@ -8,6 +8,7 @@ import fs from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import { NotebookError, UsageError } from "../shared/errors.ts";
+import type { InputValue } from "../../cells/inputs.ts";
 import { resolveInputs } from "../execute/inputs.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
@@ -139,9 +140,10 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
   const build = async (): Promise<void> => {
     const started = performance.now();
     let document: NotebookDocument;
+    let inputs: Record<string, InputValue>;
     try {
       document = readNotebook(notebookPath);
-      resolveInputs(document.frontMatter.inputs, options.inputs, path.basename(notebookPath));
+      ({ inputs } = resolveInputs(document.frontMatter.inputs, options.inputs, path.basename(notebookPath)));
     } catch (e) {
       if (!(e instanceof NotebookError) && !(e instanceof UsageError)) throw e;
       const message = e instanceof NotebookError ? e.where(path.basename(notebookPath)) : e.message;
@@ -159,11 +161,6 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       } satisfies RenderEvent);
       return;
     }
-    const { inputs } = resolveInputs(
-      document.frontMatter.inputs,
-      options.inputs,
-      path.basename(notebookPath),
-    );
     const signature = runSignature(document, inputs, timeLimitMs, options.keepGoing);
     let run: RunRecord;
     let executed: boolean;
@@ -192,12 +189,14 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     }
     lastRun = run;
     lastDocument = document;
-    html = renderReport(document, run, {});
+    // One rendering serves both the file and the page, unless the file links shared assets the page does not.
+    let written: string | undefined;
     try {
-      writeReport(document, run, reportPath, options.linkAssets);
+      written = writeReport(document, run, reportPath, options.linkAssets);
     } catch (e) {
       io.err(`the report could not be written to ${reportPath}: ${(e as Error).message}\n`);
     }
+    html = written !== undefined && !options.linkAssets ? written : renderReport(document, run, {});
     watchFiles([notebookPath, ...run.filesRead.map((f) => f.path)]);
     broadcast("reload");
     const ms = performance.now() - started;
