@@ -34,6 +34,17 @@ export interface ReportOptions {
   readonly assetsHref?: string;
 }
 
+/*
+ * report.css is embedded byte for byte in every report (so it carries no comments of its own about this). Print
+ * (`@media print` there): A4 margins, a 10 pt root size, `break-inside: avoid` on figures, tables, rows, boxes and
+ * swatch pairs. Never `break-before: avoid` on a table caption: it glues tables to the text before them, and
+ * Chromium then slices a later figure. No Plotly mode bar in print. Swatch patches are framed by a border, not an
+ * outline: Chromium paints an outline onto the previous page. `.plot-figure` is at most 660 px wide because Plotly
+ * draws for the screen and does not redraw for print: a wider plot would be cut at the page edge. Each report adds a
+ * `<style media="print">` with `@page` margin boxes for its title (`pageMarginStyle`, `cssString` in escape.ts)
+ * and page numbers. Check a change with Chromium's `--print-to-pdf` and `pdftoppm`; the browser tests measure what
+ * can be measured.
+ */
 const require = createRequire(import.meta.url);
 const here = path.dirname(fileURLToPath(import.meta.url));
 const CSS = fs.readFileSync(path.join(here, "report.css"), "utf8");
