@@ -25,8 +25,6 @@ const send = (message: FromCellProcess): void => {
   process.send?.(message);
 };
 
-Error.stackTraceLimit = 40;
-
 /** process.exit() inside a cell throws this instead of ending the process. */
 class CellExit extends Error {
   override readonly name = "CellExit";
@@ -37,23 +35,45 @@ class CellExit extends Error {
   }
 }
 
-let notebookDir = process.cwd();
-let notebookPath = "";
-let lib: Record<string, unknown> = {};
-/** The cell running now, or the last one that ran (for output written later by its timers). */
-let currentCell: number | null = null;
-let lastCell: number | null = null;
-let output = new CellOutput();
-let reads = new Set<string>();
-let failCurrentCell: ((error: RawError) => void) | null = null;
-let lateError: RawError | undefined;
-let suppressReadTracking = false;
+/** Everything the harness keeps between messages; changed only by the named steps below. */
+interface WorkerState {
+  /** The notebook (set by "init"); cells resolve imports and relative paths from its folder. */
+  notebookDir: string;
+  notebookPath: string;
+  /** The "tristim" module namespace, loaded once by start(). */
+  lib: Record<string, unknown>;
+  /** The cell running now, or the last one that ran (for output written later by its timers). */
+  currentCell: number | null;
+  lastCell: number | null;
+  /** The running cell's output and the files it read. */
+  output: CellOutput;
+  reads: Set<string>;
+  /** Fails the running cell (an uncaught error while it runs); null between cells. */
+  failCurrentCell: ((error: RawError) => void) | null;
+  /** The first uncaught error after the last cell finished, reported with "finished". */
+  lateError: RawError | undefined;
+  /** True while a cell's import bundle loads (its reads are the runner's, not the cell's). */
+  suppressReadTracking: boolean;
+}
+
+const state: WorkerState = {
+  notebookDir: process.cwd(),
+  notebookPath: "",
+  lib: {},
+  currentCell: null,
+  lastCell: null,
+  output: new CellOutput(),
+  reads: new Set(),
+  failCurrentCell: null,
+  lateError: undefined,
+  suppressReadTracking: false,
+};
 
 // --- output: console, stdout/stderr and display records all go to the running cell -------------------------------
 function captureText(stream: "stdout" | "stderr", chunk: unknown): void {
   const text =
     typeof chunk === "string" ? chunk : Buffer.isBuffer(chunk) ? chunk.toString("utf8") : String(chunk);
-  output.addText(stream, text);
+  state.output.addText(stream, text);
 }
 const captureStream = (stream: "stdout" | "stderr") =>
   new Writable({
@@ -63,53 +83,60 @@ const captureStream = (stream: "stdout" | "stderr") =>
       done();
     },
   });
-globalThis.console = new Console({
-  stdout: captureStream("stdout"),
-  stderr: captureStream("stderr"),
-  colorMode: false,
-});
-process.stdout.write = ((chunk: unknown) => (
-  captureText("stdout", chunk),
-  true
-)) as typeof process.stdout.write;
-process.stderr.write = ((chunk: unknown) => (
-  captureText("stderr", chunk),
-  true
-)) as typeof process.stderr.write;
-installOutputSink((record) => output.addRecord(record));
+/** Install step: console, stdout/stderr and display records go to the running cell, flushed every 250 ms. */
+function installOutputCapture(): void {
+  globalThis.console = new Console({
+    stdout: captureStream("stdout"),
+    stderr: captureStream("stderr"),
+    colorMode: false,
+  });
+  process.stdout.write = ((chunk: unknown) => (
+    captureText("stdout", chunk),
+    true
+  )) as typeof process.stdout.write;
+  process.stderr.write = ((chunk: unknown) => (
+    captureText("stderr", chunk),
+    true
+  )) as typeof process.stderr.write;
+  installOutputSink((record) => state.output.addRecord(record));
+  setInterval(flush, 250).unref();
+}
 
 function flush(): void {
-  const records = output.take();
-  const cell = currentCell ?? lastCell;
+  const records = state.output.take();
+  const cell = state.currentCell ?? state.lastCell;
   if (records.length > 0 && cell !== null) send({ type: "output", cell, records });
 }
-setInterval(flush, 250).unref();
 
 // --- process.exit() and errors nobody awaited ---------------------------------------------------------------------
-process.exit = ((code?: unknown) => {
-  throw new CellExit(code);
-}) as typeof process.exit;
+/** Install step: process.exit() becomes an error of the cell; errors nobody awaited are attributed to a cell. */
+function installErrorCapture(): void {
+  Error.stackTraceLimit = 40;
+  process.exit = ((code?: unknown) => {
+    throw new CellExit(code);
+  }) as typeof process.exit;
+  process.on("uncaughtException", (error) =>
+    raiseUncaught(error, "an error was thrown outside the cell's own flow (by a timer or callback)"),
+  );
+  process.on("unhandledRejection", (reason) =>
+    raiseUncaught(reason, "a promise was rejected and nothing awaited or caught it"),
+  );
+}
 
 function raiseUncaught(error: unknown, what: string): void {
   const raw = toRawError(error, "uncaught");
   const message = `${what}: ${raw.message}`;
-  if (failCurrentCell) failCurrentCell({ ...raw, message });
+  if (state.failCurrentCell) state.failCurrentCell({ ...raw, message });
   else
-    lateError ??= {
+    state.lateError ??= {
       ...raw,
       message: `${message} (raised after the cell had finished, by a timer, callback or promise it left running)`,
     };
 }
-process.on("uncaughtException", (error) =>
-  raiseUncaught(error, "an error was thrown outside the cell's own flow (by a timer or callback)"),
-);
-process.on("unhandledRejection", (reason) =>
-  raiseUncaught(reason, "a promise was rejected and nothing awaited or caught it"),
-);
 
 // --- files the cells read (for watch re-runs and the report's record of inputs) -----------------------------------
 function trackRead(file: unknown): void {
-  if (suppressReadTracking || currentCell === null) return;
+  if (state.suppressReadTracking || state.currentCell === null) return;
   let p: string | undefined;
   if (typeof file === "string") p = file;
   else if (file instanceof URL && file.protocol === "file:") p = decodeURIComponent(file.pathname);
@@ -117,7 +144,7 @@ function trackRead(file: unknown): void {
   if (p === undefined) return;
   const absolute = path.resolve(p);
   if (absolute.includes(`${path.sep}node_modules${path.sep}`)) return;
-  reads.add(absolute);
+  state.reads.add(absolute);
 }
 function isReadFlag(flags: unknown): boolean {
   return (
@@ -128,7 +155,8 @@ function isReadFlag(flags: unknown): boolean {
     flags === fs.constants.O_RDONLY
   );
 }
-{
+/** Install step: the fs functions that read files note what the running cell read. */
+function installReadTracking(): void {
   const f = fs as unknown as Record<string, (...args: unknown[]) => unknown>;
   for (const name of ["readFileSync", "readFile", "createReadStream"]) {
     const original = f[name]!;
@@ -180,7 +208,7 @@ function toRawError(error: unknown, failure: FailureKind): RawError {
 }
 
 // --- running a cell -------------------------------------------------------------------------------------------------
-const notebookRequire = () => createRequire(path.join(notebookDir, "noop.js"));
+const notebookRequire = () => createRequire(path.join(state.notebookDir, "noop.js"));
 
 function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRuntime {
   return {
@@ -201,7 +229,7 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
     imported(i) {
       return namespaces[`m${i}`]!;
     },
-    lib,
+    lib: state.lib,
     bindImport(local, namespace, name, from) {
       declareGlobal(local);
       if (name in namespace) {
@@ -225,10 +253,10 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
       });
     },
     async dynamicImport(specifier) {
-      if (specifier === "tristim") return lib;
+      if (specifier === "tristim") return state.lib;
       if (isBuiltin(specifier)) return import(specifier);
       if (/^\.{0,2}\//.test(specifier))
-        return import(pathToFileURL(path.resolve(notebookDir, specifier)).href);
+        return import(pathToFileURL(path.resolve(state.notebookDir, specifier)).href);
       try {
         return await import(pathToFileURL(notebookRequire().resolve(specifier)).href);
       } catch {
@@ -236,9 +264,9 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
       }
     },
     meta: {
-      url: pathToFileURL(notebookPath).href,
-      dirname: notebookDir,
-      filename: notebookPath,
+      url: pathToFileURL(state.notebookPath).href,
+      dirname: state.notebookDir,
+      filename: state.notebookPath,
     },
   };
 }
@@ -260,12 +288,13 @@ function declareGlobal(name: string): void {
   });
 }
 
+/** Run step: one cell, its output and reads collected, then "done" with the method log so far. */
 async function runCell(message: RunCellMessage): Promise<void> {
-  currentCell = message.cell;
-  output = new CellOutput();
-  reads = new Set();
+  state.currentCell = message.cell;
+  state.output = new CellOutput();
+  state.reads = new Set();
   const failed = new Promise<never>((_, reject) => {
-    failCurrentCell = reject;
+    state.failCurrentCell = reject;
   });
   failed.catch(() => undefined);
   const started = performance.now();
@@ -273,14 +302,14 @@ async function runCell(message: RunCellMessage): Promise<void> {
   try {
     let namespaces: Record<string, Record<string, unknown>> = {};
     if (message.importBundle) {
-      suppressReadTracking = true;
+      state.suppressReadTracking = true;
       try {
         namespaces = (await Promise.race([
           import(pathToFileURL(message.importBundle).href),
           failed,
         ])) as typeof namespaces;
       } finally {
-        suppressReadTracking = false;
+        state.suppressReadTracking = false;
       }
     }
     const fn = vm.runInThisContext(message.code, { filename: message.filename }) as (
@@ -297,17 +326,24 @@ async function runCell(message: RunCellMessage): Promise<void> {
         : toRawError(e, "thrown");
   }
   const durationMs = performance.now() - started;
-  failCurrentCell = null;
-  const records = output.finish();
+  state.failCurrentCell = null;
+  const records = state.output.finish();
   if (records.length > 0) send({ type: "output", cell: message.cell, records });
-  send({ type: "done", cell: message.cell, durationMs, error, reads: [...reads], methods: methodLog() });
-  lastCell = currentCell;
-  currentCell = null;
+  send({
+    type: "done",
+    cell: message.cell,
+    durationMs,
+    error,
+    reads: [...state.reads],
+    methods: methodLog(),
+  });
+  state.lastCell = state.currentCell;
+  state.currentCell = null;
 }
 
 /** The library's method log as plain records (empty if the library has none or it fails). */
 function methodLog(): MethodNote[] {
-  const methodsUsed = lib.methodsUsed;
+  const methodsUsed = state.lib.methodsUsed;
   try {
     if (typeof methodsUsed !== "function") return [];
     return (methodsUsed() as { topic: unknown; statement: unknown }[]).map((m) => ({
@@ -319,10 +355,11 @@ function methodLog(): MethodNote[] {
   }
 }
 
+/** Start step: load the library once, then handle the runner's messages one after another. */
 async function start(): Promise<void> {
   try {
-    lib = { ...(await import("./tristim-entry.ts")) };
-    const resetMethodLog = lib.resetMethodLog;
+    state.lib = { ...(await import("./tristim-entry.ts")) };
+    const resetMethodLog = state.lib.resetMethodLog;
     if (typeof resetMethodLog === "function") resetMethodLog();
   } catch (e) {
     send({ type: "startup-failed", error: toRawError(e, "startup") });
@@ -337,10 +374,10 @@ async function start(): Promise<void> {
 
 async function handle(message: ToCellProcess): Promise<void> {
   if (message.type === "init") {
-    notebookPath = message.notebookPath;
-    notebookDir = path.dirname(message.notebookPath);
+    state.notebookPath = message.notebookPath;
+    state.notebookDir = path.dirname(message.notebookPath);
     setRunInputs(message.inputs);
-    for (const [name, value] of Object.entries(lib)) {
+    for (const [name, value] of Object.entries(state.lib)) {
       Object.defineProperty(globalThis, name, {
         value,
         writable: true,
@@ -352,12 +389,28 @@ async function handle(message: ToCellProcess): Promise<void> {
   } else if (message.type === "run") {
     await runCell(message);
   } else if (message.type === "finish") {
-    process.send?.({ type: "finished", methods: methodLog(), lateError } satisfies FromCellProcess, () => {
-      process.disconnect?.();
-      realExit(0);
-    });
+    finish();
   }
 }
 
-process.on("disconnect", () => realExit(0));
+/** Finish step: send the method log and any late error, then end the process. */
+function finish(): void {
+  process.send?.(
+    { type: "finished", methods: methodLog(), lateError: state.lateError } satisfies FromCellProcess,
+    () => {
+      process.disconnect?.();
+      realExit(0);
+    },
+  );
+}
+
+/** Install step: every patch of the process, made once before the library loads. */
+function install(): void {
+  installOutputCapture();
+  installErrorCapture();
+  installReadTracking();
+  process.on("disconnect", () => realExit(0));
+}
+
+install();
 void start();
