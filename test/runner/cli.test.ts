@@ -23,7 +23,8 @@ function expectNoRunnerStack(text: string): void {
   expect(text).not.toMatch(/node:internal/);
 }
 
-describe("tristim command line", () => {
+// Each test spawns the CLI several times; on a loaded machine one start takes seconds, so the budget is wide.
+describe("tristim command line", { timeout: 60_000 }, () => {
   it("prints help with the commands, options, cell options and exit codes", () => {
     const { code, out } = tristim(["--help"]);
     expect(code).toBe(EXIT.ok);

@@ -6,7 +6,8 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { consoleText, errorOf, outputsOf, runText, ts } from "./helpers.ts";
 
-describe("bindings shared between cells", () => {
+// These tests run real notebooks in cell processes; on a loaded machine a run takes seconds, so the budget is wide.
+describe("bindings shared between cells", { timeout: 60_000 }, () => {
   it("lets later cells use and redeclare top-level const, let, function and class", async () => {
     const { run } = await runText(
       ts(
@@ -56,7 +57,7 @@ describe("bindings shared between cells", () => {
   });
 });
 
-describe("console output", () => {
+describe("console output", { timeout: 60_000 }, () => {
   it("captures console.log/info/warn/error and direct writes per cell, in order, with their stream", async () => {
     const { run } = await runText(
       ts(
@@ -87,7 +88,7 @@ describe("console output", () => {
   });
 });
 
-describe("imports", () => {
+describe("imports", { timeout: 60_000 }, () => {
   it("imports relative .ts, .js and .json files and npm packages from the notebook's folder", async () => {
     const { run } = await runText(
       ts(
@@ -164,7 +165,7 @@ describe("imports", () => {
   });
 });
 
-describe("inputs", () => {
+describe("inputs", { timeout: 60_000 }, () => {
   const text =
     "---\ninputs:\n  lamp: A\n  count: 2\n  strict: false\n---\n" +
     ts("console.log(inputs.lamp, inputs.count + 1, inputs.strict)");
@@ -189,7 +190,7 @@ describe("inputs", () => {
   });
 });
 
-describe("failures", () => {
+describe("failures", { timeout: 60_000 }, () => {
   it("stops at the first failing cell, marks later cells not run, and maps the error to the notebook line", async () => {
     const { document, run } = await runText(
       "# Title\n\n" +
