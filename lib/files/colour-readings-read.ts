@@ -110,6 +110,8 @@ function buildRecord(
     else if (f.group === "spectral") spectral.push([f.wavelength!, v as number]);
     else if (f.group !== "other") (groups[f.group] ??= {})[f.component] = v as number;
   });
+  // L* is shared by CIELAB and its polar form (CIE 015:2018 §8.2.2).
+  if (groups.LCh && groups.LCh.L === undefined && groups.Lab?.L !== undefined) groups.LCh.L = groups.Lab.L;
   const record: Record<string, unknown> = { line, values: byName };
   if (id !== undefined) record.id = id;
   if (name !== undefined) record.name = name;

@@ -53,7 +53,7 @@ spell("Lab", "a", "laba", "ciea");
 spell("Lab", "b", "labb", "cieb");
 spell("LCh", "L", "lchl");
 spell("LCh", "C", "lchc", "cab", "chroma");
-spell("LCh", "h", "lchh", "hab", "hue", "hueangle", "h");
+spell("LCh", "h", "lchh", "hab", "hue", "hueangle");
 
 const UNIT_IN_NAME = /^(.*?)\s*[([]\s*([^)\]]*?)\s*[)\]]\s*$/;
 
@@ -112,10 +112,14 @@ export function recogniseFields(
     take(single.has("a") ? "a" : "A", "Lab", "a");
     take(single.has("b") ? "b" : "B", "Lab", "b");
   }
-  if (L && has("C") && (single.has("h") || single.has("H"))) {
+  if (
+    L &&
+    has("C") &&
+    (single.has("h") || single.has("H") || keys.some((k) => k?.group === "LCh" && k.component === "h"))
+  ) {
     take(L, "LCh", "L");
     take("C", "LCh", "C");
-    take(single.has("h") ? "h" : "H", "LCh", "h");
+    if (single.has("h") || single.has("H")) take(single.has("h") ? "h" : "H", "LCh", "h");
   }
   if (has("r", "g", "b") && !keys[single.get("b")!])
     for (const l of ["r", "g", "b"]) take(l, "RGB", l.toUpperCase());

@@ -139,7 +139,7 @@ export function parseSpectralTable(
 ): SpectralTableResult {
   if (!options || typeof options !== "object" || !options.quantity)
     throw new DataFileError(
-      'state what the values are, e.g. { quantity: "transmittance" } or { quantity: "reflectance" }; it is never assumed',
+      'state what the columns hold, e.g. { quantity: "transmittance" } or { quantity: "reflectance" }; it is never assumed',
     );
   checkOptionNames(options, OPTION_NAMES, READER);
   const inferred: string[] = [];
@@ -202,7 +202,7 @@ export function parseSpectralTable(
   const preamble = readPreamble(lines, 0, start.headerIndex);
   if (headerOption === "auto" && preamble.lines.length > 0)
     inferred.push(
-      `The table's header was taken to be line ${headerNumber}; the ${preamble.lines.length} line${preamble.lines.length === 1 ? "" : "s"} above it were kept as metadata (state headerLine to override).`,
+      `The table's header was taken to be line ${headerNumber}; the ${preamble.lines.length === 1 ? "line" : `${preamble.lines.length} lines`} above it ${preamble.lines.length === 1 ? "was" : "were"} kept as metadata (state headerLine to override).`,
     );
   const header = splitCells(lines[start.headerIndex]!, sep, headerNumber);
   const comments = [...preamble.lines];
@@ -378,7 +378,7 @@ export function parseSpectralTable(
     } else {
       const d = decideValueScale([largest], scaleOption, options.quantity);
       scale = d.scale;
-      if (d.inferred) inferred.push(`${d.statement} (state scale to override)`);
+      if (d.inferred) inferred.push(`${d.statement.replace(/\.$/, "")} (state scale to override).`);
     }
     valueFactor = scale === "percent" ? 0.01 : 1;
   }
@@ -544,7 +544,7 @@ function readWavelengthsAcross(
     fail(`the header row names no wavelengths after its ${k} text column${k === 1 ? "" : "s"}`, headerNumber);
   if (attributeOption === "auto" && k > 0)
     inferred.push(
-      `The first ${k} column${k === 1 ? "" : "s"} (${header.slice(0, k).join(", ")}) were kept as each sample's attributes (state attributeColumns to override).`,
+      `${k === 1 ? "The first column" : `The first ${k} columns`} (${header.slice(0, k).join(", ")}) ${k === 1 ? "was" : "were"} kept as each sample's attributes (state attributeColumns to override).`,
     );
   const attributeNames = header.slice(0, k);
   const wavelengths: number[] = [];

@@ -48,10 +48,13 @@ function nextContent(lines: readonly string[], from: number): number {
   return -1;
 }
 
-function safeSplit(line: string, sep: FieldSeparator): string[] | undefined {
+let firstFault: DataFileError | undefined;
+
+function safeSplit(line: string, sep: FieldSeparator, lineNumber?: number): string[] | undefined {
   try {
-    return splitCells(line, sep);
-  } catch {
+    return splitCells(line, sep, lineNumber);
+  } catch (e) {
+    if (lineNumber !== undefined && firstFault === undefined && e instanceof DataFileError) firstFault = e;
     return undefined;
   }
 }
@@ -78,19 +81,22 @@ export function findTableStart(
       i + 1,
     );
   }
+  firstFault = undefined;
   for (let i = nextContent(lines, 0); i >= 0; i = nextContent(lines, i + 1)) {
     const j = nextContent(lines, i + 1);
     if (j < 0) break;
     for (const sep of separators) {
       const head = safeSplit(lines[i]!, sep);
       if (!head || head.length < 2) continue;
-      const row = safeSplit(lines[j]!, sep);
+      const row = safeSplit(lines[j]!, sep, j + 1);
       if (!row || row.length !== head.length) continue;
       const down = looksNumeric(row[0]!) && !looksNumeric(head[0]!);
       const across = wavelengthTail(head) >= 2 && looksNumeric(row[row.length - 1]!);
       if (down || across) return { headerIndex: i, separator: sep };
     }
   }
+  // A quoted field left open under a header is the likelier fault than a missing table.
+  if (firstFault) throw firstFault;
   throw new DataFileError(
     "no spectral table found: no line is followed by rows of numbers with the same number of fields (separated by tab, semicolon, comma or spaces); a table needs a header row and at least one data row",
   );
