@@ -75,3 +75,76 @@ export function scanNumber(text: string, start: number, end: number, decimalCode
   value = scale >= 0 ? mantissa * POW10[scale]! : mantissa / POW10[-scale]!;
   return negative ? -value : value;
 }
+
+/**
+ * Reads a whole line of numbers separated by one character (`sepCode`, not a space) into `out` in one pass, and
+ * returns how many it read; −1 when the line holds anything else (a quote, a blank or non-numeric cell, more cells
+ * than `out` holds), so that the caller reads it again cell by cell to name the fault.
+ */
+export function scanNumberRow(line: string, sepCode: number, decimalCode: number, out: Float64Array): number {
+  const n = line.length;
+  let i = 0;
+  let count = 0;
+  for (;;) {
+    if (count >= out.length) return -1;
+    const cellStart = i;
+    let c = i < n ? line.charCodeAt(i) : -1;
+    while (c === 32 || c === 9) c = ++i < n ? line.charCodeAt(i) : -1;
+    let negative = false;
+    if (c === 45 || c === 43) {
+      negative = c === 45;
+      c = ++i < n ? line.charCodeAt(i) : -1;
+    }
+    let mantissa = 0;
+    let significant = 0;
+    let digits = 0;
+    let scale = 0;
+    let seenMark = false;
+    for (;;) {
+      if (c >= 48 && c <= 57) {
+        digits++;
+        if (significant > 0 || c !== 48) {
+          if (significant < 15) {
+            mantissa = mantissa * 10 + (c - 48);
+            if (seenMark) scale--;
+          } else if (!seenMark) scale++;
+          significant++;
+        } else if (seenMark) scale--;
+      } else if (c === decimalCode && !seenMark) seenMark = true;
+      else break;
+      c = ++i < n ? line.charCodeAt(i) : -1;
+    }
+    if (digits === 0) return -1;
+    if (c === 101 || c === 69) {
+      c = ++i < n ? line.charCodeAt(i) : -1;
+      let expNegative = false;
+      if (c === 45 || c === 43) {
+        expNegative = c === 45;
+        c = ++i < n ? line.charCodeAt(i) : -1;
+      }
+      let exp = 0;
+      let expDigits = 0;
+      while (c >= 48 && c <= 57) {
+        if (exp < 100000) exp = exp * 10 + (c - 48);
+        expDigits++;
+        c = ++i < n ? line.charCodeAt(i) : -1;
+      }
+      if (expDigits === 0) return -1;
+      scale += expNegative ? -exp : exp;
+    }
+    const cellEnd = i;
+    while (c === 32 || c === 9) c = ++i < n ? line.charCodeAt(i) : -1;
+    if (c !== sepCode && c !== -1) return -1;
+    let value: number;
+    if (significant > 15 || scale > 22 || scale < -22) {
+      value = scanNumber(line, cellStart, cellEnd, decimalCode);
+      if (value !== value) return -1;
+    } else {
+      value = scale >= 0 ? mantissa * POW10[scale]! : mantissa / POW10[-scale]!;
+      if (negative) value = -value;
+    }
+    out[count++] = value;
+    if (c === -1) return count;
+    i++; // past the separator
+  }
+}

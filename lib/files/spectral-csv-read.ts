@@ -20,7 +20,7 @@ import {
   type FieldSeparator,
 } from "./delimited-text.ts";
 import { hasDecimalComma, hasDecimalPoint } from "./number-text.ts";
-import { scanNumber } from "./number-scan.ts";
+import { scanNumber, scanNumberRow } from "./number-scan.ts";
 import { checkOptionNames, choiceOption } from "./option-names.ts";
 import { readPreamble, statedScale } from "./preamble-metadata.ts";
 import { findTableStart, looksNumeric, wavelengthTail } from "./table-start.ts";
@@ -470,50 +470,48 @@ function readWavelengthsDown(
   if (trailing) width--; // a separator at the end of every line
   const names = header.slice(1, width);
   checkNames(names, headerNumber, 2, "column");
-  const columns: number[][] = names.map(() => []);
+  const rows = dataIndex.length;
+  // One typed column per sample, filled in place: no array grows and no cell is cut out of its line.
+  const typed = names.map(() => new Float64Array(rows));
   const wavelengths: number[] = [];
   const wavelengthLines: number[] = [];
   const bounds = new Int32Array(2 * (width + 2));
-  for (const index of dataIndex) {
+  const row = new Float64Array(width);
+  const sepCode = sep === " " ? -1 : sep.charCodeAt(0);
+  for (let r = 0; r < rows; r++) {
+    const index = dataIndex[r]!;
     const line = lines[index]!;
-    const n = index + 1;
-    let count = cellBounds(line, sep, bounds);
-    let cells: string[] | undefined;
-    if (count === -1) {
-      cells = splitCells(line, sep, n);
-      count = cells.length;
+    // The hot path: a line of numbers read in one pass, as many as the header names.
+    if (sepCode >= 0 && scanNumberRow(line, sepCode, decimalCode, row) === width) {
+      wavelengths.push(row[0]!);
+      wavelengthLines.push(index + 1);
+      for (let k = 1; k < width; k++) typed[k - 1]![r] = row[k]!;
+      continue;
     }
-    const cellText = (k: number) => (cells ? cells[k]! : line.slice(bounds[2 * k]!, bounds[2 * k + 1]!));
-    const cellNumber = (k: number) =>
-      cells
-        ? scanNumber(cells[k]!, 0, cells[k]!.length, decimalCode)
-        : scanNumber(line, bounds[2 * k]!, bounds[2 * k + 1]!, decimalCode);
-    if (
-      count === -2 ||
-      (count > width && !(trailing && count === width + 1 && cellText(width).trim() === ""))
-    )
-      fail(`this row has ${count < 0 ? "more" : count} fields but the header has ${width}`, n);
-    const wl = cellNumber(0);
-    if (wl !== wl)
-      fail(`the first column must hold wavelengths, but it holds ${badValue(cellText(0), decimal)}`, n);
-    if (count < width) {
-      const missing = names[Math.max(count, 1) - 1]!;
-      fail(
-        `sample "${missing}" has no value at ${nm(wl)}: the row has ${count} field${count === 1 ? "" : "s"} but the header has ${width}`,
-        n,
-        missing,
-        wl,
-      );
+    const count = sepCode < 0 ? cellBounds(line, sep, bounds) : -1;
+    if (count === width) {
+      const wl = scanNumber(line, bounds[0]!, bounds[1]!, decimalCode);
+      if (wl !== wl) rowFault(line, index + 1, sep, width, trailing, names, decimal);
+      wavelengths.push(wl);
+      wavelengthLines.push(index + 1);
+      for (let k = 1; k < width; k++) {
+        const v = scanNumber(line, bounds[2 * k]!, bounds[2 * k + 1]!, decimalCode);
+        if (v !== v) rowFault(line, index + 1, sep, width, trailing, names, decimal);
+        typed[k - 1]![r] = v;
+      }
+      continue;
     }
-    wavelengths.push(wl);
-    wavelengthLines.push(n);
-    for (let k = 1; k < width; k++) {
-      const v = cellNumber(k);
-      if (v !== v)
-        fail(`sample "${names[k - 1]}" at ${nm(wl)}: ${badValue(cellText(k), decimal)}`, n, names[k - 1], wl);
-      columns[k - 1]!.push(v);
-    }
+    // Quoted cells, a trailing separator, or a fault: cut the cells out and check them one by one.
+    const cells = rowCells(line, index + 1, sep, width, trailing, names, decimal);
+    wavelengths.push(cells[0]!);
+    wavelengthLines.push(index + 1);
+    for (let k = 1; k < width; k++) typed[k - 1]![r] = cells[k]!;
   }
+  const columns = typed.map((t) => {
+    const a: number[] = []; // grown by push: a large preallocated array would be a slow dictionary in V8
+    for (let i = 0; i < t.length; i++) a.push(t[i]!);
+    return a;
+  });
   return {
     names,
     attributes: names.map(() => ({})),
@@ -523,6 +521,58 @@ function readWavelengthsDown(
     columns,
     headingUnit: unitFromHeading(header[0]!),
   };
+}
+
+/** The numbers of one row read cell by cell (quoted cells, trailing separator); a fault throws with its place. */
+function rowCells(
+  line: string,
+  n: number,
+  sep: FieldSeparator,
+  width: number,
+  trailing: boolean,
+  names: readonly string[],
+  decimal: "." | ",",
+): number[] {
+  const cells = splitCells(line, sep, n);
+  let count = cells.length;
+  if (trailing && count === width + 1 && cells[width]!.trim() === "") count = width;
+  const code = decimal.charCodeAt(0);
+  const num = (k: number) => scanNumber(cells[k]!, 0, cells[k]!.length, code);
+  if (count > width) fail(`this row has ${count} fields but the header has ${width}`, n);
+  const wl = num(0);
+  if (wl !== wl)
+    fail(`the first column must hold wavelengths, but it holds ${badValue(cells[0]!, decimal)}`, n);
+  if (count < width) {
+    const missing = names[Math.max(count, 1) - 1]!;
+    fail(
+      `sample "${missing}" has no value at ${nm(wl)}: the row has ${count} field${count === 1 ? "" : "s"} but the header has ${width}`,
+      n,
+      missing,
+      wl,
+    );
+  }
+  const out = [wl];
+  for (let k = 1; k < width; k++) {
+    const v = num(k);
+    if (v !== v)
+      fail(`sample "${names[k - 1]}" at ${nm(wl)}: ${badValue(cells[k]!, decimal)}`, n, names[k - 1], wl);
+    out.push(v);
+  }
+  return out;
+}
+
+/** Throws the fault of a row whose fast reading failed. */
+function rowFault(
+  line: string,
+  n: number,
+  sep: FieldSeparator,
+  width: number,
+  trailing: boolean,
+  names: readonly string[],
+  decimal: "." | ",",
+): never {
+  rowCells(line, n, sep, width, trailing, names, decimal);
+  fail("this row could not be read", n);
 }
 
 function readWavelengthsAcross(

@@ -3,6 +3,7 @@
  * (Unicode Standard §23.8); without one the bytes are read as UTF-8 when they are valid UTF-8, else as
  * Windows-1252 (the WHATWG Encoding Standard's decoder for the "latin1" label), and that choice is reported.
  */
+import { Buffer, isUtf8 } from "node:buffer";
 import { DataFileError } from "./data-file-error.ts";
 
 /** The text encodings a measurement file may be read in. */
@@ -46,14 +47,14 @@ export function decodeMeasurementText(
       inferred: `The text encoding (${ENCODING_NAMES[bom]}) was taken from the file's byte-order mark.`,
     };
   }
-  try {
-    const text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  if (isUtf8(bytes)) {
+    const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
     return {
       text,
       encoding: "utf-8",
       inferred: `The text encoding (UTF-8) was inferred: the bytes are valid UTF-8 and there is no byte-order mark.`,
     };
-  } catch {
+  } else {
     const text = new TextDecoder("windows-1252").decode(bytes);
     return {
       text,

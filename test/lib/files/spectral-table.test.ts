@@ -15,6 +15,7 @@ import {
   readSpectralTable,
   resetMethodLog,
   scanNumber,
+  scanNumberRow,
   valueAt,
 } from "../../../lib/index.ts";
 
@@ -218,5 +219,24 @@ describe("numbers read in place", () => {
     for (const bad of ["", "-", ".", "1e", "1.2.3", "abc", "1,5", "0x10", "Infinity"])
       expect(scanNumber(bad, 0, bad.length, 46)).toBeNaN();
     expect(scanNumber("1,5", 0, 3, 44)).toBe(1.5);
+  });
+
+  it("a whole row read in one pass agrees with Number() per cell, and gives up on anything but numbers", () => {
+    // Reference: ECMA-262 Number() on each cell as String.prototype.split cuts it out.
+    const out = new Float64Array(8);
+    let seed = 11;
+    const next = () => (seed = (seed * 48271) % 2147483647) / 2147483647;
+    for (let k = 0; k < 5000; k++) {
+      const cells = Array.from({ length: 1 + Math.floor(next() * 8) }, () => {
+        const v = (next() - 0.5) * 10 ** Math.floor(next() * 40 - 20);
+        return [String(v), v.toPrecision(3), v.toExponential(2), ` ${v.toFixed(4)} `][k % 4]!;
+      });
+      expect(scanNumberRow(cells.join(";"), 59, 46, out)).toBe(cells.length);
+      cells.forEach((c, i) => expect(out[i]).toBe(Number(c)));
+    }
+    for (const bad of ['1;"2"', "1;;3", "1;x", "1;2e", "1;2;3;4;5;6;7;8;9", "1,5;2"])
+      expect(scanNumberRow(bad, 59, 46, out)).toBe(-1);
+    expect(scanNumberRow("1,5;2,25", 59, 44, out)).toBe(2);
+    expect([out[0], out[1]]).toEqual([1.5, 2.25]);
   });
 });
