@@ -291,9 +291,10 @@ function readDelimited(
   if (sepOption === "auto")
     inferred.push(`The field separator (${SEPARATOR_NAMES[sep]}) was inferred from the header line.`);
   const preamble = readPreamble(lines, 0, headerIndex);
-  if (headerOption === "auto" && preamble.lines.length > 0)
+  const unmarked = lines.slice(0, headerIndex).filter((l) => !isCommentOrBlank(l)).length;
+  if (headerOption === "auto" && unmarked > 0)
     inferred.push(
-      `The table's header was taken to be line ${headerIndex + 1}; the lines above it were kept as metadata.`,
+      `The table's header was taken to be line ${headerIndex + 1}; the ${unmarked === 1 ? "line" : `${unmarked} lines`} above it without a comment mark ${unmarked === 1 ? "was" : "were"} kept as metadata.`,
     );
   const headerCells = splitCells(lines[headerIndex]!, sep, headerIndex + 1);
   let width = headerCells.length;

@@ -200,9 +200,11 @@ export function parseSpectralTable(
       `The field separator (${SEPARATOR_NAMES[sep]}) was inferred from the header line (state delimiter to override).`,
     );
   const preamble = readPreamble(lines, 0, start.headerIndex);
-  if (headerOption === "auto" && preamble.lines.length > 0)
+  // Lines with a comment mark are comments by convention; lines without one are metadata only by inference.
+  const unmarked = lines.slice(0, start.headerIndex).filter((l) => !isCommentOrBlank(l)).length;
+  if (headerOption === "auto" && unmarked > 0)
     inferred.push(
-      `The table's header was taken to be line ${headerNumber}; the ${preamble.lines.length === 1 ? "line" : `${preamble.lines.length} lines`} above it ${preamble.lines.length === 1 ? "was" : "were"} kept as metadata (state headerLine to override).`,
+      `The table's header was taken to be line ${headerNumber}; the ${unmarked === 1 ? "line" : `${unmarked} lines`} above it without a comment mark ${unmarked === 1 ? "was" : "were"} kept as metadata (state headerLine to override).`,
     );
   const header = splitCells(lines[start.headerIndex]!, sep, headerNumber);
   const comments = [...preamble.lines];
