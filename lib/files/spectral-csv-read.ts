@@ -233,8 +233,14 @@ export function parseSpectralTable(
   else {
     const downLike = looksNumeric(firstRow[0] ?? "") && !looksNumeric(header[0] ?? "");
     const acrossLike = wavelengthTail(header) >= 2;
+    // Both readings fit when the sample names look like numbers: one sample per row only if the first heading names
+    // samples (ID, name …) rather than wavelengths.
+    const first = header[0] ?? "";
+    const namesSamples =
+      /\b(id|name|sample|patch|label|specimen|index)\b|^(no\.?|nr|#)$/i.test(first) &&
+      unitFromHeading(first) === undefined;
     placement =
-      downLike && (!acrossLike || /wave|λ|lambda|^\s*(nm|µm|um|wl)\b/i.test(header[0] ?? ""))
+      downLike && (!acrossLike || !namesSamples)
         ? "first column"
         : acrossLike
           ? "header row"
@@ -382,11 +388,11 @@ export function parseSpectralTable(
       scale = d.scale;
       if (d.inferred) inferred.push(`${d.statement.replace(/\.$/, "")} (state scale to override).`);
     }
-    valueFactor = scale === "percent" ? 0.01 : 1;
+    valueFactor = scale === "percent" ? 100 : 1; // divided, so that 41.5 % gives the double nearest 0.415
   }
 
   const spectra = table.names.map((name, c) => {
-    const values = valueFactor === 1 ? table.columns[c]! : table.columns[c]!.map((v) => v * valueFactor);
+    const values = valueFactor === 1 ? table.columns[c]! : table.columns[c]!.map((v) => v / 100);
     return spectrum(wavelengths, values, {
       name,
       quantity: options.quantity,

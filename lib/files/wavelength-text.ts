@@ -5,7 +5,8 @@
 
 export type WavelengthUnit = "nm" | "µm";
 
-const CELL = /^[A-Za-zλ_%]*?[_ ]?(\d+(?:[.,]\d+)?)\s*(nm|µm|μm|um)?$/i;
+// A letter prefix is joined to the number ("nm380", "R380", "SPECTRAL_NM380"), never spaced: "Tile 2" is a name.
+const CELL = /^[A-Za-zλ_%]*?_?(\d+(?:[.,]\d+)?)\s*(nm|µm|μm|um)?$/i;
 
 /** The wavelength a header cell names, with its unit when the cell says it, or undefined. */
 export function wavelengthFromHeader(

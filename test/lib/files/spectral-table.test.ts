@@ -142,6 +142,24 @@ describe("spectral tables read with only the quantity stated", () => {
     expect(valueAt(r.spectra[1]!, 425)).toBeCloseTo(0.3, 15);
   });
 
+  it("sample names that end in a number are names, not wavelengths; percent is divided by 100", () => {
+    // Invented table; 41.5 / 100 is the double nearest 0.415 (IEEE 754 division is correctly rounded).
+    const r = parseSpectralTable(
+      "Instrument: invented\nMesure;%T\nLongueur d'onde (nm);Tile 1;Tile 2\n700;41,5;80,25\n650;38,0;79,5\n",
+      {
+        quantity: "transmittance",
+      },
+    );
+    expect(r.wavelengthsIn).toBe("first column");
+    expect(r.spectra.map((s) => s.name)).toEqual(["Tile 1", "Tile 2"]);
+    expect(r.spectra[0]!.values).toEqual([0.38, 0.415]);
+    const ids = parseSpectralTable("ID,400,410\n1,0.5,0.6\n2,0.5,0.7\n", { quantity: "reflectance" });
+    expect(ids.wavelengthsIn).toBe("header row");
+    expect(ids.spectra[1]!.values).toEqual([0.5, 0.7]);
+    const numbered = parseSpectralTable("nm,1,2\n400,0.5,0.6\n410,0.5,0.6\n", { quantity: "reflectance" });
+    expect(numbered.wavelengthsIn).toBe("first column");
+  });
+
   it("reports every inference in Methods, and a stated option replaces its inference", () => {
     resetMethodLog();
     readSpectralTable(corpus("latin1-semicolon.csv"), { quantity: "transmittance" });
