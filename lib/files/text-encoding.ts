@@ -47,6 +47,23 @@ export function decodeMeasurementText(
       inferred: `The text encoding (${ENCODING_NAMES[bom]}) was taken from the file's byte-order mark.`,
     };
   }
+  // UTF-16 without a byte-order mark: ASCII text then has a zero byte beside every character.
+  if (bytes.length >= 4 && b0 !== 0 && b1 === 0 && b2 !== 0 && bytes[3] === 0) {
+    return {
+      text: stripBom(new TextDecoder("utf-16le").decode(bytes)),
+      encoding: "utf-16le",
+      inferred:
+        "The text encoding (UTF-16 little-endian) was inferred from the zero bytes beside each character; the file has no byte-order mark (state encoding to override).",
+    };
+  }
+  if (bytes.length >= 4 && b0 === 0 && b1 !== 0 && b2 === 0 && bytes[3] !== 0) {
+    return {
+      text: stripBom(new TextDecoder("utf-16be").decode(bytes)),
+      encoding: "utf-16be",
+      inferred:
+        "The text encoding (UTF-16 big-endian) was inferred from the zero bytes beside each character; the file has no byte-order mark (state encoding to override).",
+    };
+  }
   if (isUtf8(bytes)) {
     const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
     return {

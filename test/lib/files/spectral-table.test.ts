@@ -160,6 +160,19 @@ describe("spectral tables read with only the quantity stated", () => {
     expect(numbered.wavelengthsIn).toBe("first column");
   });
 
+  it("a separator at the end of every line and CR LF line ends; UTF-16 without byte-order mark", () => {
+    // Invented table; the UTF-16 bytes are made by Node's Buffer (an outside encoder).
+    const text = "nm;a;b;\r\n400;0,1;0,2;\r\n410;0,3;0,4;\r\n";
+    const r = parseSpectralTable(text, { quantity: "reflectance" });
+    expect(r.spectra.map((s) => s.name)).toEqual(["a", "b"]);
+    expect(r.spectra[1]!.values).toEqual([0.2, 0.4]);
+    const le = parseSpectralTable(Buffer.from(text, "utf16le"), { quantity: "reflectance" });
+    expect(le.encoding).toBe("utf-16le");
+    expect(le.spectra[1]!.values).toEqual([0.2, 0.4]);
+    const be = Buffer.from(text, "utf16le").swap16();
+    expect(parseSpectralTable(be, { quantity: "reflectance" }).encoding).toBe("utf-16be");
+  });
+
   it("reports every inference in Methods, and a stated option replaces its inference", () => {
     resetMethodLog();
     readSpectralTable(corpus("latin1-semicolon.csv"), { quantity: "transmittance" });
