@@ -238,7 +238,10 @@ export function parseColourReadings(
   for (const t of result.tables)
     for (const f of t.fields)
       if (f.unitSource === "option")
-        noteMethod("data files", `The unit of the ${f.group} readings (${f.unit}) was stated by the caller.`);
+        noteMethod(
+          "data files",
+          `The unit of the ${f.group} readings (${f.unit || "dimensionless"}) was stated by the caller.`,
+        );
   for (const s of inferred) noteMethod("data files", s);
   return result;
 }

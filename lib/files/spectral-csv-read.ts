@@ -324,7 +324,7 @@ export function parseSpectralTable(
     } else if (fromValues !== undefined) {
       unit = fromValues;
       inferred.push(
-        `The wavelength unit (${unit}) was inferred from the values (${min}–${max}; below 100 read as µm) (state wavelengthUnit to override).`,
+        `The wavelength unit (${unit}) was inferred from the values (${min}–${max}; values below 100 are read as µm) (state wavelengthUnit to override).`,
       );
     } else
       fail(
