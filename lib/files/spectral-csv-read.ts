@@ -637,7 +637,7 @@ function readWavelengthsAcross(
     const n = index + 1;
     let count = cellBounds(line, sep, bounds);
     let cells: string[] | undefined;
-    if (count === -1 || k > 0) {
+    if (count === -1) {
       cells = splitCells(line, sep, n);
       count = cells.length;
     }
@@ -662,7 +662,7 @@ function readWavelengthsAcross(
       );
     }
     const attrs: Record<string, string> = {};
-    for (let c = 0; c < k; c++) attrs[attributeNames[c]! || `column ${c + 1}`] = cellText(c);
+    for (let c = 0; c < k; c++) attrs[attributeNames[c]! || `column ${c + 1}`] = cellText(c).trim();
     const values = new Array<number>(nWl);
     for (let c = k; c < width; c++) {
       const v = cells
