@@ -161,6 +161,10 @@ export function parseColourReadings(
   let text: string;
   let encoding: TextEncoding | "text";
   if (typeof input === "string") {
+    if (encodingOption !== "auto")
+      throw new DataFileError(
+        `${READER}: option encoding applies to a file's bytes; the text given is already decoded`,
+      );
     text = input.replace(/^\uFEFF/, "");
     encoding = "text";
   } else if (input instanceof Uint8Array) {

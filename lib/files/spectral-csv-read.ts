@@ -179,6 +179,8 @@ export function parseSpectralTable(
   let text: string;
   let encoding: TextEncoding | "text";
   if (typeof input === "string") {
+    if (encodingOption !== "auto")
+      fail(`${READER}: option encoding applies to a file's bytes; the text given is already decoded`);
     text = input.charCodeAt(0) === 0xfeff ? input.slice(1) : input;
     encoding = "text";
   } else if (input instanceof Uint8Array) {
