@@ -206,6 +206,9 @@ describe("spectral tables read with only the quantity stated", () => {
     expect(() =>
       parseSpectralTable("nm,a\n400,0.5\n", { quantity: "reflectance", order: "up" } as never),
     ).toThrow(/option order is "up"; expected "ascending", "descending", "auto"/);
+    expect(() =>
+      parseSpectralTable("nm,a\n400,0.5\n", { quantity: "reflectance", encoding: "utf-8" }),
+    ).toThrow(/encoding applies to a file's bytes/);
   });
 });
 
