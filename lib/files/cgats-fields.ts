@@ -140,7 +140,7 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
   const spectra = ids.map((id, i) =>
     spectrum(
       wavelengths,
-      columns.map((c) => c[i]! * factor),
+      columns.map((c) => (factor === 1 ? c[i]! : c[i]! / 100)),
       { name: id, quantity: options.quantity },
     ),
   );

@@ -1,40 +1,74 @@
-/** Errors from reading measurement files: they name the file (when known) and the line, so the user can find the fault. */
+/** Errors from reading measurement files: they name the file (when known), the line, and where it applies the sample and wavelength. */
 import { readFileSync } from "node:fs";
+
+/** Where in a table a fault lies, beyond its line. */
+export interface DataFilePlace {
+  readonly sample?: string;
+  /** Wavelength in nm. */
+  readonly wavelength?: number;
+}
 
 export class DataFileError extends Error {
   /** 1-based line number in the file, when the fault is on one line. */
   readonly line: number | undefined;
   /** The file path, or undefined when text was parsed directly. */
   readonly file: string | undefined;
+  /** The sample the fault concerns, when it concerns one. */
+  readonly sample: string | undefined;
+  /** The wavelength (nm) the fault concerns, when it concerns one. */
+  readonly wavelength: number | undefined;
+  /** The message without the file and line prefix. */
+  readonly reason: string;
 
-  constructor(message: string, line?: number, file?: string) {
+  constructor(message: string, line?: number, file?: string, place: DataFilePlace = {}) {
     const where = [file, line !== undefined ? `line ${line}` : undefined].filter(Boolean).join(", ");
     super(where ? `${where}: ${message}` : message);
     this.name = "DataFileError";
+    this.reason = message;
     this.line = line;
     this.file = file;
+    this.sample = place.sample;
+    this.wavelength = place.wavelength;
   }
 }
 
 /** A copy of a DataFileError (or plain error) with the file name added. */
 export function withFileName(error: unknown, file: string): Error {
   if (error instanceof DataFileError && error.file === undefined) {
-    const bare = error.line !== undefined ? error.message.replace(/^line \d+: /, "") : error.message;
-    return new DataFileError(bare, error.line, file);
+    return new DataFileError(error.reason, error.line, file, {
+      sample: error.sample,
+      wavelength: error.wavelength,
+    });
   }
   return error instanceof Error ? error : new Error(String(error));
 }
 
-/** Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line). */
-export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
-  let text: string;
+/** Reads a file's bytes; a missing file is an error naming the file. */
+export function readDataFileBytes(path: string): Buffer {
+  if (typeof path !== "string" || path === "")
+    throw new DataFileError(`expected a file path as a non-empty string, got ${JSON.stringify(path)}`);
   try {
-    text = readFileSync(path, "utf8");
+    return readFileSync(path);
   } catch (e) {
     throw new DataFileError(`cannot read the file: ${(e as Error).message}`, undefined, path);
   }
+}
+
+/** Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line). */
+export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
+  const bytes = readDataFileBytes(path);
   try {
-    return parse(text);
+    return parse(bytes.toString("utf8"));
+  } catch (e) {
+    throw withFileName(e, path);
+  }
+}
+
+/** Reads a file's bytes and parses them; a fault is an error naming the file (and line). */
+export function parseDataFileBytes<T>(path: string, parse: (bytes: Uint8Array) => T): T {
+  const bytes = readDataFileBytes(path);
+  try {
+    return parse(bytes);
   } catch (e) {
     throw withFileName(e, path);
   }

@@ -5,11 +5,18 @@ import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { writeNumber } from "./number-text.ts";
 import type { ValueScale } from "./value-scale.ts";
-import type { CsvDelimiter } from "./spectral-csv-read.ts";
+import type { FieldSeparator } from "./delimited-text.ts";
+import type { WavelengthPlacement } from "./spectral-csv-read.ts";
 
 export interface SpectraCsvWriteOptions {
-  /** Field separator (default ","). */
-  delimiter?: CsvDelimiter;
+  /** Field separator (default ","); " " writes single spaces (names with spaces are then quoted). */
+  delimiter?: FieldSeparator;
+  /** Wavelengths down the first column (default) or across the header row, one sample per row. */
+  wavelengthsIn?: WavelengthPlacement;
+  /** With wavelengths in the header row: per sample, text columns written before the values (same keys for all). */
+  attributes?: readonly Readonly<Record<string, string>>[];
+  /** Key/value lines written at the top as "# key: value". */
+  metadata?: Readonly<Record<string, string>>;
   /** Decimal mark (default "."); a comma needs ";" or tab as the separator. */
   decimal?: "." | ",";
   /** For reflectance/transmittance: write fractions (default) or percent. */
@@ -24,7 +31,11 @@ export interface SpectraCsvWriteOptions {
 
 /** One field, quoted when it holds the separator, a quote, a line break or edge spaces (RFC 4180 §2). */
 function field(text: string, delimiter: string): string {
-  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim()
+  return /["\r\n]/.test(text) ||
+    text.includes(delimiter) ||
+    text !== text.trim() ||
+    (delimiter === " " && /[\s]/.test(text)) ||
+    text === ""
     ? `"${text.replace(/"/g, '""')}"`
     : text;
 }
@@ -35,8 +46,8 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
     throw new Error("formatSpectraCsv: no spectra to write");
   requireSameGrid(spectra, "formatSpectraCsv");
   const delimiter = options.delimiter ?? ",";
-  if (![",", ";", "\t"].includes(delimiter))
-    throw new Error(`formatSpectraCsv: delimiter ${JSON.stringify(delimiter)} is not ",", ";" or "\\t"`);
+  if (![",", ";", "\t", " "].includes(delimiter))
+    throw new Error(`formatSpectraCsv: delimiter ${JSON.stringify(delimiter)} is not ",", ";", "\\t" or " "`);
   const decimal = options.decimal ?? ".";
   if (decimal !== "." && decimal !== ",")
     throw new Error(`formatSpectraCsv: decimal ${JSON.stringify(decimal)} is not "." or ","`);
@@ -64,6 +75,51 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
   const lines: string[] = [];
   for (const c of options.comments ?? [])
     for (const part of String(c).split(/\r\n|\n|\r/)) lines.push(`# ${part}`);
+  for (const [key, value] of Object.entries(options.metadata ?? {})) {
+    if (
+      /[\r\n:;=\t]/.test(key) ||
+      /[\r\n]/.test(value) ||
+      key.trim() !== key ||
+      value.trim() !== value ||
+      !key ||
+      !value
+    )
+      throw new Error(
+        `formatSpectraCsv: metadata ${JSON.stringify(key)}: ${JSON.stringify(value)} cannot be written as one "key: value" line`,
+      );
+    lines.push(`# ${key}: ${value}`);
+  }
+  if (options.wavelengthsIn === "header row") {
+    const attributes: readonly Readonly<Record<string, string>>[] =
+      options.attributes ?? spectra.map((s) => ({ sample: s.name }));
+    if (attributes.length !== spectra.length)
+      throw new Error(
+        `formatSpectraCsv: ${attributes.length} attribute records for ${spectra.length} spectra`,
+      );
+    const keys = Object.keys(attributes[0] ?? {});
+    lines.push(
+      [...keys, ...spectra[0]!.wavelengths.map((w: number) => writeNumber(w, decimal, 10))]
+        .map((t) => field(t, delimiter))
+        .join(delimiter),
+    );
+    spectra.forEach((s, k) => {
+      const a = attributes[k]!;
+      lines.push(
+        [
+          ...keys.map((key) => field(a[key] ?? "", delimiter)),
+          ...s.values.map((v: number) => writeNumber(v * factor(s), decimal, digits)),
+        ].join(delimiter),
+      );
+    });
+    noteMethod(
+      "data files",
+      `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
+    );
+    return lines.join("\n") + "\n";
+  } else if (options.wavelengthsIn !== undefined && options.wavelengthsIn !== "first column")
+    throw new Error(
+      `formatSpectraCsv: wavelengthsIn ${JSON.stringify(options.wavelengthsIn)} is not "first column" or "header row"`,
+    );
   lines.push(
     [options.wavelengthHeader ?? "wavelength_nm", ...names].map((t) => field(t, delimiter)).join(delimiter),
   );

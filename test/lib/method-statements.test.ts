@@ -176,6 +176,16 @@ function exercise(): Map<string, MethodNote[]> {
     t.formatSpectraCsv([refl], { scale: "percent" });
     const text = t.formatCgats({ spectra: [refl], keywords: { DESCRIPTOR: "invented" }, scale: "percent" });
     t.cgatsSpectra(t.parseCgats(text), { quantity: "reflectance" });
+    // Measurement-file readers (invented tables): preamble, µm, descending, across, Windows-1252, uneven grid, readings.
+    t.parseSpectralTable(Buffer.from("Operator: x\nwl;a\n0,41;50\n0,40;60\n", "latin1"), {
+      quantity: "reflectance",
+    });
+    t.parseSpectralTable("ID,Lot,400,410,430\nA,1,0.1,0.2,0.3\n", {
+      quantity: "reflectance",
+      unevenGrid: "accept",
+    });
+    t.parseColourReadings("Bench: x\nname;L*;a*;b*\nA;50,5;1;2\n", { units: { Lab: "" } });
+    t.parseColourReadings(text);
   });
   return byFile;
 }
@@ -279,6 +289,7 @@ describe("Methods statements are full sentences", () => {
       "files/cgats-read.ts": /A CGATS\.17 file/,
       "files/cgats-fields.ts": /were taken from CGATS spectral fields/,
       "files/cgats-write.ts": /CGATS\.17 text was written/,
+      "files/colour-readings-read.ts": /A table of colorimetric readings/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {

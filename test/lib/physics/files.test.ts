@@ -52,9 +52,14 @@ describe("spectral CSV/TSV", () => {
     expect(r.spectra[0]!.values).toEqual([0.105, 0.1225, 0.15]);
     expect(r.spectra[1]!.quantity).toBe("transmittance");
     expect(r.scale).toBe("percent");
+    // The comment line says "in percent", so the scale is taken from the file's own text (and said so).
     expect(r.inferred.join(" ")).toMatch(
-      /separator \(comma\) was inferred.*decimal mark \(point\) was inferred.*read as percent and divided by 100, as inferred from the values \(the largest is 82/,
+      /separator \(comma\) was inferred.*decimal mark was taken to be a point.*read as percent and divided by 100, as the file says on line 1/,
     );
+    const unmarked = parseSpectraCsv(commaCsv.replace(", transmittance in percent", ""), {
+      quantity: "transmittance",
+    });
+    expect(unmarked.inferred.join(" ")).toMatch(/as inferred from the values \(the largest is 82/);
     expect(r.comments).toEqual(["invented example, transmittance in percent"]);
   });
 
@@ -99,54 +104,56 @@ describe("spectral CSV/TSV", () => {
     expectLineError(
       () => parseSpectraCsv("# c\nnm,a\n400,0.5\n410,abc\n", { quantity: "reflectance" }),
       4,
-      /sample "a" at 410 nm: "abc" is not a number/,
+      /sample "a" at 410 nm: "abc", which is not a number/,
     );
     expectLineError(
       () => parseSpectraCsv("nm,a,b\n400,0.5,0.5\n410,0.5\n", { quantity: "reflectance" }),
       3,
-      /Record Length/,
+      /sample "b" has no value at 410 nm: the row has 2 fields but the header has 3/,
     );
     expectLineError(
       () => parseSpectraCsv("nm,a\n400,0.5\n400,0.6\n", { quantity: "reflectance" }),
       3,
-      /does not increase after 400 nm/,
+      /wavelength 400 nm is repeated \(line 2 and line 3\)/,
     );
     expectLineError(
       () => parseSpectraCsv("nm;a\n400;0,5\n410;0.6\n", { quantity: "reflectance" }),
       3,
-      /mix decimal commas \(first on line 2\) and decimal points \(first on line 3\)/,
+      /"0.6", which is not a number \(it has a decimal point but the file uses decimal commas/,
     );
     expectLineError(
       () => parseSpectraCsv("nm;a\n400;0,5\n410;\n", { quantity: "reflectance" }),
       3,
-      /no value at 410 nm/,
+      /at 410 nm: no value \(blank\)/,
     );
     expectLineError(
       () => parseSpectraCsv("nm,a,a\n400,0.5,0.5\n", { quantity: "reflectance" }),
       1,
       /"a" appears twice/,
     );
-    expectLineError(
-      () => parseSpectraCsv("patch,X\nred,98.6\n", { quantity: "reflectance" }),
-      2,
-      /first column must hold wavelengths.*"red"/,
+    expect(() => parseSpectraCsv("patch,X\nred,98.6\n", { quantity: "reflectance" })).toThrow(
+      /no spectral table found/,
     );
     expectLineError(
-      () => parseSpectraCsv("nm,a\n0.4,0.5\n", { quantity: "reflectance" }),
+      () => parseSpectraCsv("nm,a\n50,0.5\n60,0.5\n", { quantity: "reflectance" }),
       2,
-      /not plausible in nanometres/,
+      /wavelength 50 nm is not plausible/,
     );
+    // Small values without a unit in the heading are micrometres (stated).
+    const um = parseSpectraCsv("wl,a\n0.4,0.5\n0.5,0.5\n", { quantity: "reflectance" });
+    expect(um.spectra[0]!.wavelengths).toEqual([400, 500]);
+    expect(um.inferred.join(" ")).toMatch(/unit \(µm\) was inferred from the values/);
     expectLineError(
       () => parseSpectraCsv('nm,a\n400,"0.5\n', { quantity: "reflectance" }),
       2,
-      /Quote Not Closed/,
+      /quoted field opened at column 5 is not closed on this line/,
     );
     expect(() => parseSpectraCsv(commaCsv, {} as never)).toThrow(/state what the columns hold/);
     expect(() =>
       parseSpectraCsv("nm,a\n400,0.5\n", { quantity: "reflectance", delimiter: ",", decimal: "," }),
     ).toThrow(/decimal comma cannot be used with comma-separated/);
     expect(() => parseSpectraCsv("just one column\n400\n", { quantity: "reflectance" })).toThrow(
-      /single column/,
+      /no spectral table found/,
     );
   });
 
@@ -176,6 +183,7 @@ describe("spectral CSV/TSV", () => {
             scale: "fraction",
             delimiter,
             decimal,
+            unevenGrid: "accept", // 400, 450.5, 500, 700 nm on purpose
           });
           back.spectra.forEach((s, i) => {
             expect(s.wavelengths).toEqual(spectra[i]!.wavelengths);
