@@ -16,7 +16,16 @@ export class DataFileError extends Error {
   }
 }
 
-/** A copy of a DataFileError (or plain error) with the file name added. */
+/**
+ * A DataFileError that names no file, copied with the file name added; any other error is returned as it is (a
+ * non-Error wrapped in one).
+ *
+ * @param error The error caught.
+ * @param file The file's path.
+ * @returns An Error; for a DataFileError its message starts "<file>, line <n>: ".
+ * @source none: a tristim helper.
+ * @example withFileName(new DataFileError("bad value", 3), "invented.csv").message
+ */
 export function withFileName(error: unknown, file: string): Error {
   if (error instanceof DataFileError && error.file === undefined) {
     const bare = error.line !== undefined ? error.message.replace(/^line \d+: /, "") : error.message;
@@ -25,7 +34,15 @@ export function withFileName(error: unknown, file: string): Error {
   return error instanceof Error ? error : new Error(String(error));
 }
 
-/** Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line). */
+/**
+ * Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line).
+ *
+ * @param path The file's path (relative to the notebook's folder).
+ * @param parse A function from the file's text to the result.
+ * @returns What `parse` returns.
+ * @source none: a tristim helper.
+ * @example parseDataFile("data/filter-lot-114.csv", (text) => text.split("\n").length)
+ */
 export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
   let text: string;
   try {

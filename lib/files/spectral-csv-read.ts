@@ -26,7 +26,7 @@ export interface SpectraCsvReadOptions {
    * reported). Other quantities are kept as written unless "percent" is stated.
    */
   scale?: ValueScale | "auto";
-  /** Unit of the values for non-ratio quantities, e.g. "W/(sr·m²·nm)". */
+  /** Unit of the values for non-ratio quantities, e.g. "W/(sr·m²·nm)"; default "" (none). */
   unit?: string;
 }
 
@@ -76,7 +76,14 @@ function countOutsideQuotes(text: string, ch: string): number {
   return n;
 }
 
-/** Parses spectral CSV/TSV text (wavelength column + one column per sample) into spectra; see SpectraCsvReadOptions. */
+/**
+ * Parses spectral CSV/TSV text (a wavelength column and one column per sample) into spectra.
+ *
+ * @param text The file's text.
+ * @returns { spectra, wavelengthHeader, delimiter, decimal, scale, inferred (sentences on what was inferred), comments }.
+ * @source RFC 4180 (CSV).
+ * @example parseSpectraCsv("wavelength_nm,A\n400,12.5\n500,40\n600,55\n", { quantity: "reflectance", scale: "percent" }).spectra[0].values
+ */
 export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): SpectraCsvResult {
   if (typeof text !== "string")
     throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
@@ -247,7 +254,14 @@ export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): S
   return { spectra, wavelengthHeader: head[0]!, delimiter, decimal, scale, inferred, comments };
 }
 
-/** Reads a spectral CSV/TSV file (path relative to the notebook's folder) into spectra; errors name the file and line. */
+/**
+ * Reads a spectral CSV/TSV file (path relative to the notebook's folder) into spectra; errors name the file and line.
+ *
+ * @param path The file's path.
+ * @returns { spectra, wavelengthHeader, delimiter, decimal, scale, inferred, comments }.
+ * @source RFC 4180 (CSV).
+ * @example readSpectraCsv("data/filter-lot-114.csv", { quantity: "transmittance" }).spectra.length
+ */
 export function readSpectraCsv(path: string, options: SpectraCsvReadOptions): SpectraCsvResult {
   return parseDataFile(path, (text) => parseSpectraCsv(text, options));
 }

@@ -93,7 +93,8 @@ describe("renderings", () => {
   });
 });
 
-describe("referenceCommand on lib/", () => {
+// Each command reads lib/ afresh with the compiler (about 2 s, more on a loaded machine).
+describe("referenceCommand on lib/", { timeout: 60_000 }, () => {
   it("shows one function in full", async () => {
     const { code, text } = await run(["deltaE2000"]);
     expect(code).toBe(0);
