@@ -260,8 +260,11 @@ function readDoc(d: ts.FunctionDeclaration): DocParts {
     source: "",
     examples: [],
   };
+  const source = d.getSourceFile().text;
   for (const tag of doc?.tags ?? []) {
-    const text = commentText(tag.comment).trim();
+    // A text that starts with "{" (e.g. "{ X, Y, Z } on the Y = 100 scale") is parsed as a JSDoc type: put it back.
+    const typed = (ts.isJSDocParameterTag(tag) || ts.isJSDocReturnTag(tag)) && tag.typeExpression;
+    const text = typed ? rawTagText(source, tag) : commentText(tag.comment).trim();
     if (ts.isJSDocParameterTag(tag)) {
       parts.params.set(tag.name.getText(), oneParagraph(text.replace(/^-\s*/, "")));
     } else if (ts.isJSDocReturnTag(tag)) {
@@ -273,6 +276,16 @@ function readDoc(d: ts.FunctionDeclaration): DocParts {
     }
   }
   return parts;
+}
+
+/** A tag's text as written in the source, without "@tag", the parameter name and the comment's line-start stars. */
+function rawTagText(source: string, tag: ts.JSDocTag): string {
+  const raw = source
+    .slice(tag.pos, tag.end)
+    .replace(/\n[ \t]*\*(?!\/)[ \t]?/g, "\n")
+    .replace(/\*\/\s*$/, "")
+    .replace(/^\s*@\w+\s*/, "");
+  return (ts.isJSDocParameterTag(tag) ? raw.replace(/^[\w.$]+\s*/, "") : raw).trim();
 }
 
 /** Joins a comment's wrapped lines into running text. */

@@ -26,11 +26,16 @@ async function run(args: string[]): Promise<{ code: number; text: string }> {
 
 describe("extractReference (invented fixture library)", () => {
   it("lists exported functions only, with their topic (lib folder) and file", () => {
-    expect(fixture.map((e) => e.name)).toEqual(["lensPower", "plateThickness", "undocumented"]);
+    expect(fixture.map((e) => e.name)).toEqual([
+      "frameCorner",
+      "lensPower",
+      "plateThickness",
+      "undocumented",
+    ]);
     expect(fixture.every((e) => e.topic === "optics" && e.file === "lib/optics/lens.ts")).toBe(true);
   });
   it("reads summary, details, @param, @returns, @source and @example", () => {
-    const lens = fixture[0]!;
+    const lens = fixture[1]!;
     expect(lens.signatures).toEqual(["lensPower(aperture: number, options?: LensOptions): number"]);
     expect(lens.summary).toBe("Power of an invented lens.");
     expect(lens.details).toBe("A second paragraph <with markup> that the page must escape.");
@@ -45,25 +50,30 @@ describe("extractReference (invented fixture library)", () => {
     expect(lens.documented).toBe(true);
   });
   it("takes each option's meaning from its interface property, or from @param options.name", () => {
-    const lens = fixture[0]!;
+    const lens = fixture[1]!;
     expect(lens.parameters[1]!.options).toEqual([
       { name: "focalLength", type: "number", optional: true, doc: "Focal length in mm; default 50." },
       { name: "coated", type: "boolean", optional: true, doc: "Whether the lens is coated; default false." },
     ]);
-    const plate = fixture[1]!;
+    const plate = fixture[2]!;
     expect(plate.parameters[1]!.options).toEqual([
       { name: "material", type: "string", optional: true, doc: 'Plate material; default "glass".' },
     ]);
     expect(plate.parameters[1]!.initializer).toBe("{}");
   });
+  it("keeps a @param or @returns text that starts with a brace (JSDoc would take it for a type)", () => {
+    const corner = fixture[0]!;
+    expect(corner.parameters[0]!.doc).toBe("{ width, height } in mm.");
+    expect(corner.returns).toBe("{ x, y } of the first corner, in mm.");
+  });
   it("marks a function without a comment", () => {
-    expect(fixture[2]).toMatchObject({ documented: false, summary: "", source: "", examples: [] });
+    expect(fixture[3]).toMatchObject({ documented: false, summary: "", source: "", examples: [] });
   });
 });
 
 describe("renderings", () => {
   it("plain text shows signature, arguments with options, returns, source and example", () => {
-    const text = renderEntryText(fixture[0]!);
+    const text = renderEntryText(fixture[1]!);
     for (const part of [
       "lensPower(aperture: number, options?: LensOptions): number",
       "Arguments",

@@ -36,3 +36,14 @@ export function plateThickness(width: number, options: { material?: string } = {
 export function undocumented(x: number): number {
   return x;
 }
+
+/**
+ * Corners of an invented frame.
+ * @param size { width, height } in mm.
+ * @returns { x, y } of the first corner, in mm.
+ * @source Invented for this test.
+ * @example frameCorner({ width: 2, height: 3 })
+ */
+export function frameCorner(size: { width: number; height: number }): { x: number; y: number } {
+  return { x: size.width / 2, y: size.height / 2 };
+}
