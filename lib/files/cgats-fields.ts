@@ -19,7 +19,7 @@ const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
  * @param table A table of a parsed CGATS file.
  * @returns [{ field, wavelength in nm, index }, ...].
  * @source ANSI CGATS.17 (SPECTRAL_nnn fields).
- * @example cgatsSpectralFields(readCgats("data/blue-cut-plates.cgats.txt").tables[0]).length
+ * @example cgatsSpectralFields(readCgats("data/blue-cut-plates.cgats.txt").tables[0]!).length
  */
 export function cgatsSpectralFields(
   table: CgatsTable,
@@ -45,7 +45,7 @@ export function cgatsSpectralFields(
  * @param table A table of a parsed CGATS file.
  * @returns One identifier per set.
  * @source ANSI CGATS.17 (SAMPLE_ID, SAMPLE_NAME).
- * @example cgatsSampleIds(readCgats("data/blue-cut-plates.cgats.txt").tables[0])
+ * @example cgatsSampleIds(readCgats("data/blue-cut-plates.cgats.txt").tables[0]!)
  */
 export function cgatsSampleIds(table: CgatsTable): string[] {
   const nameAt = table.fields.indexOf("SAMPLE_NAME");
@@ -92,7 +92,7 @@ function requireFields(table: CgatsTable, wanted: readonly string[], what: strin
  * @param table A table of a parsed CGATS file.
  * @returns [{ id, XYZ }, ...] as written in the file.
  * @source ANSI CGATS.17 (XYZ_ fields).
- * @example cgatsTristimulus(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID XYZ_X XYZ_Y XYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1 41.2 21.3 1.9\nEND_DATA\n").tables[0])
+ * @example cgatsTristimulus(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID XYZ_X XYZ_Y XYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1 41.2 21.3 1.9\nEND_DATA\n").tables[0]!)
  */
 export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimulus }[] {
   requireFields(table, ["XYZ_X", "XYZ_Y", "XYZ_Z"], "XYZ fields");
@@ -107,7 +107,7 @@ export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimu
  * @param table A table of a parsed CGATS file.
  * @returns [{ id, Lab }, ...] as written in the file.
  * @source ANSI CGATS.17 (LAB_ fields).
- * @example cgatsLab(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID LAB_L LAB_A LAB_B\nEND_DATA_FORMAT\nBEGIN_DATA\n1 50 20 -10\nEND_DATA\n").tables[0])
+ * @example cgatsLab(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID LAB_L LAB_A LAB_B\nEND_DATA_FORMAT\nBEGIN_DATA\n1 50 20 -10\nEND_DATA\n").tables[0]!)
  */
 export function cgatsLab(table: CgatsTable): { id: string; Lab: Lab }[] {
   requireFields(table, ["LAB_L", "LAB_A", "LAB_B"], "Lab fields");
@@ -205,7 +205,7 @@ export function parseCgatsSpectra(text: string, options: CgatsSpectraOptions): C
  * @param path The file's path.
  * @returns { spectra, scale, inferred, keywords, file }.
  * @source ANSI CGATS.17.
- * @example readCgatsSpectra("data/blue-cut-plates.cgats.txt", { quantity: "transmittance" }).spectra[0].name
+ * @example readCgatsSpectra("data/blue-cut-plates.cgats.txt", { quantity: "transmittance" }).spectra[0]!.name
  */
 export function readCgatsSpectra(path: string, options: CgatsSpectraOptions): CgatsSpectraResult {
   const file = readCgats(path);

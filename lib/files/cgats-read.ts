@@ -86,7 +86,7 @@ const KEYWORD_NAME = /^[A-Za-z][A-Za-z0-9_.]*$/;
  * @param text The file's text.
  * @returns { identifier, tables [{ keywords, declared, fields, sets, setLines }], comments }.
  * @source ANSI CGATS.17 (exchange format for colour and process control data).
- * @example parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID\tXYZ_X\tXYZ_Y\tXYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1\t41.2\t21.3\t1.9\nEND_DATA\n").tables[0].fields
+ * @example parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID\tXYZ_X\tXYZ_Y\tXYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1\t41.2\t21.3\t1.9\nEND_DATA\n").tables[0]!.fields
  */
 export function parseCgats(text: string): CgatsFile {
   if (typeof text !== "string")

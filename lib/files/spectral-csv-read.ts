@@ -82,7 +82,7 @@ function countOutsideQuotes(text: string, ch: string): number {
  * @param text The file's text.
  * @returns { spectra, wavelengthHeader, delimiter, decimal, scale, inferred (sentences on what was inferred), comments }.
  * @source RFC 4180 (CSV).
- * @example parseSpectraCsv("wavelength_nm,A\n400,12.5\n500,40\n600,55\n", { quantity: "reflectance", scale: "percent" }).spectra[0].values
+ * @example parseSpectraCsv("wavelength_nm,A\n400,12.5\n500,40\n600,55\n", { quantity: "reflectance", scale: "percent" }).spectra[0]!.values
  */
 export function parseSpectraCsv(text: string, options: SpectraCsvReadOptions): SpectraCsvResult {
   if (typeof text !== "string")

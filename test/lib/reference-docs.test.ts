@@ -2,13 +2,14 @@
  * The reference of the public library (issue 11): every function exported from lib/index.ts has a doc comment with a
  * summary, a @param for each argument (an options argument may instead have every option described on its type),
  * a default stated for each optional argument and option, a @returns, a @source and an @example; and every example
- * runs without throwing. The convention is in DEVELOPERS.md ("Doc comments of public functions").
+ * runs without throwing and type-checks. The convention is in DEVELOPERS.md ("Doc comments of public functions").
  */
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { transformSync } from "esbuild";
+import ts from "typescript";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as tristim from "../../lib/index.ts";
 import { extractReference, type ReferenceEntry } from "../../runner/reference/index.ts";
@@ -94,4 +95,55 @@ describe("every example runs", () => {
       });
     });
   }
+});
+
+describe("every example type-checks", { timeout: 120_000 }, () => {
+  // Each example becomes the body of a function in one virtual module that imports the library, checked with the
+  // project's strictness (strict, noUncheckedIndexedAccess): an argument of the wrong shape is caught even where the
+  // function would run without throwing.
+  it("as the library's exports, with the project's compiler settings", () => {
+    const here = path.dirname(fileURLToPath(import.meta.url));
+    const file = path.join(here, "__reference-examples__.ts");
+    const lines = [
+      `import * as tristim from "../../lib/index.ts";`,
+      `const { ${Object.keys(exported).join(", ")} } = tristim;`,
+    ];
+    const owner: string[] = [];
+    for (const e of entries)
+      e.examples.forEach((example, i) => {
+        const start = lines.length;
+        lines.push(`export async function example${lines.length}() {`, example, "}");
+        for (let k = start; k < lines.length; k++) owner[k] = `${e.name} example ${i + 1}`;
+      });
+    const text = lines.join("\n");
+    const options: ts.CompilerOptions = {
+      target: ts.ScriptTarget.ES2022,
+      module: ts.ModuleKind.NodeNext,
+      moduleResolution: ts.ModuleResolutionKind.NodeNext,
+      allowImportingTsExtensions: true,
+      strict: true,
+      noUncheckedIndexedAccess: true,
+      noEmit: true,
+      skipLibCheck: true,
+      types: ["node"],
+      lib: ["lib.es2022.d.ts", "lib.dom.d.ts"],
+    };
+    const host = ts.createCompilerHost(options);
+    const getSourceFile = host.getSourceFile.bind(host);
+    host.getSourceFile = (name, language, ...rest) =>
+      path.resolve(name) === file
+        ? ts.createSourceFile(name, text, language)
+        : getSourceFile(name, language, ...rest);
+    const fileExists = host.fileExists.bind(host);
+    host.fileExists = (name) => path.resolve(name) === file || fileExists(name);
+    const program = ts.createProgram([file], options, host);
+    const problems = ts
+      .getPreEmitDiagnostics(program)
+      .filter((d) => d.file && path.resolve(d.file.fileName) === file)
+      .map((d) => {
+        const { line } = d.file!.getLineAndCharacterOfPosition(d.start ?? 0);
+        return `${owner[line] ?? "module"}: ${ts.flattenDiagnosticMessageText(d.messageText, " ")}`;
+      });
+    expect(problems).toEqual([]);
+  });
 });
