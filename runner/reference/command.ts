@@ -8,7 +8,7 @@ import { parseArgs } from "node:util";
 import { EXIT } from "../exit-codes.ts";
 import { toolVersion } from "../tool-version.ts";
 import { writeFileAtomic } from "../write-atomic.ts";
-import { extractReference, type ReferenceEntry } from "./extract.ts";
+import { extractReference, topicTitle, type ReferenceEntry } from "./extract.ts";
 import { renderReferenceHtml } from "./render-html.ts";
 import { closeMatches, renderEntryText, renderIndexText } from "./render-text.ts";
 
@@ -18,7 +18,8 @@ export interface ReferenceOutput {
 }
 
 const USAGE =
-  "usage: tristim reference [name]        show one function (without a name: every function by topic)\n" +
+  "usage: tristim reference [name]        show one function, or the functions of one topic (a lib folder, e.g.\n" +
+  "                                        photometry); without a name, every function by topic\n" +
   "       tristim reference --html <file>  write the whole reference as one HTML page\n";
 
 /** Runs `tristim reference` with the arguments after the command word; resolves to the exit code. */
@@ -67,6 +68,13 @@ export async function referenceCommand(args: string[], out: ReferenceOutput): Pr
   const entry = findEntry(entries, name);
   if (entry) {
     out.write(renderEntryText(entry));
+    return EXIT.ok;
+  }
+  const topic = entries.filter(
+    (e) => e.topic === name.toLowerCase() || topicTitle(e.topic).toLowerCase() === name.toLowerCase(),
+  );
+  if (topic.length > 0) {
+    out.write(renderIndexText(topic));
     return EXIT.ok;
   }
   const close = closeMatches(

@@ -58,7 +58,7 @@ export function renderEntryText(e: ReferenceEntry): string {
 /** Every function by topic, one line each: name and summary. */
 export function renderIndexText(entries: readonly ReferenceEntry[]): string {
   const out: string[] = [
-    `The tristim library: ${entries.length} functions. "tristim reference <name>" shows one in full;`,
+    `${entries.length === 1 ? "1 function" : `${entries.length} functions`} of the tristim library. "tristim reference <name>" shows one in full;`,
     `"tristim reference --html <file>" writes the whole reference as one page.`,
   ];
   let topic = "";

@@ -119,6 +119,13 @@ describe("referenceCommand on lib/", { timeout: 60_000 }, () => {
     expect(text).toContain("Colour differences (lib/difference)");
     expect(text).toMatch(/\n {2}deltaE76 +\S/);
   });
+  it("a topic (lib folder or its title) lists that topic's functions only", async () => {
+    const { code, text } = await run(["difference"]);
+    expect(code).toBe(0);
+    expect(text).toContain("Colour differences (lib/difference)");
+    expect(text).not.toContain("(lib/spectrum)");
+    expect((await run(["Colour differences"])).text).toBe(text);
+  });
   it("an unknown name exits 2 with close matches", async () => {
     const { code, text } = await run(["deltaE"]);
     expect(code).toBe(2);
