@@ -80,7 +80,7 @@ export function gammaDecode(signal: number, gamma: number): number {
  *
  * @param linear Scene linear light, relative 0–1.
  * @returns The encoded signal, 0–1.
- * @source ITU-R BT.709-6, Part 1 item 1.2.
+ * @source ITU-R BT.709-6 (opto-electronic transfer characteristic).
  * @example bt709Encode(0.18)
  */
 export function bt709Encode(linear: number): number {
@@ -127,7 +127,7 @@ function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: num
  * @param signal The video signal V, 0–1.
  * @param display { whiteLuminance Lw in cd/m², default 100; blackLuminance Lb in cd/m², default 0 } (0 ≤ Lb < Lw).
  * @returns The screen luminance L, in cd/m².
- * @source ITU-R BT.1886 (03/2011) Annex 1.
+ * @source ITU-R BT.1886 (03/2011), reference EOTF.
  * @example bt1886Eotf(0.5, { whiteLuminance: 120, blackLuminance: 0.1 })
  */
 export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
@@ -142,7 +142,7 @@ export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): numb
  * @param luminance The screen luminance L, in cd/m².
  * @param display { whiteLuminance Lw in cd/m², default 100; blackLuminance Lb in cd/m², default 0 }.
  * @returns The video signal V, 0–1 for Lb ≤ L ≤ Lw.
- * @source ITU-R BT.1886 (03/2011) Annex 1, inverted.
+ * @source ITU-R BT.1886 (03/2011), reference EOTF, inverted.
  * @example bt1886InverseEotf(20)
  */
 export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
