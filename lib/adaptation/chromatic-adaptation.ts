@@ -86,8 +86,16 @@ export interface AdaptationOptions {
 }
 
 /**
- * The 3 × 3 matrix M⁻¹·diag(D·ρd/ρs + 1 − D)·M that adapts XYZ from a source white to a destination white
- * (the whites are normalised to equal Y first, so only their chromaticity matters).
+ * The 3 × 3 matrix M⁻¹·diag(D·ρd ÷ ρs + 1 − D)·M that adapts XYZ from a source white to a destination white.
+ *
+ * The whites are normalised to equal Y first, so only their chromaticity matters.
+ *
+ * @param sourceWhite The white the colour was seen under, { X, Y, Z }, all positive.
+ * @param destinationWhite The white to adapt to, { X, Y, Z }, all positive.
+ * @param transform "bradford", "cat02", "cat16" or "von kries" (case, spaces, "-" and "_" ignored); default "bradford".
+ * @returns The matrix as rows (XYZ → adapted XYZ).
+ * @source Lam 1985 and ICC.1:2010 Annex E (Bradford); CIE 159:2004 (CAT02, M_HPE); Li et al., Color Res. Appl. 42:703–718, 2017 (CAT16); von Kries 1902.
+ * @example adaptationMatrix(whitePoint({ illuminant: "D65" }), whitePoint({ illuminant: "D50", interval: 5 }))
  */
 export function adaptationMatrix(
   sourceWhite: Tristimulus,
@@ -113,9 +121,18 @@ export function adaptationMatrix(
 }
 
 /**
- * XYZ seen under a source white, adapted to a destination white with a von Kries-type transform (default Bradford;
- * as reviewed in CIE 160:2004). The result keeps the scale of the input: the source white maps to the destination
- * white's chromaticity at the source white's Y.
+ * Tristimulus values seen under a source white, adapted to a destination white by a von Kries-type transform.
+ *
+ * The result keeps the scale of the input: the source white maps to the destination white's chromaticity at the
+ * source white's Y.
+ *
+ * @param xyz The colour's tristimulus values { X, Y, Z }, finite.
+ * @param sourceWhite The white the colour was seen under, { X, Y, Z }.
+ * @param destinationWhite The white to adapt to, { X, Y, Z }.
+ * @param transform "bradford", "cat02", "cat16" or "von kries"; default "bradford".
+ * @returns The adapted { X, Y, Z }, on the scale of `xyz`.
+ * @source CIE 160:2004 (review of von Kries-type transforms); Lam 1985 and ICC.1:2010 Annex E (Bradford); CIE 159:2004 (CAT02); Li et al. 2017 (CAT16).
+ * @example adaptXYZ({ X: 40, Y: 35, Z: 20 }, { X: 95.047, Y: 100, Z: 108.883 }, { X: 96.422, Y: 100, Z: 82.521 }, "cat16", { degree: 0.8 })
  */
 export function adaptXYZ(
   xyz: Tristimulus,

@@ -28,53 +28,109 @@ function requireSum(sum: number, what: string): void {
     throw new Error(`${what}: X + Y + Z = ${sum}; chromaticity needs a positive finite sum`);
 }
 
-/** x = X/(X+Y+Z), y = Y/(X+Y+Z) (CIE 015:2018 eq. 7.3). */
+/**
+ * CIE 1931 chromaticity coordinates of tristimulus values, x = X ÷ (X+Y+Z), y = Y ÷ (X+Y+Z).
+ *
+ * @param t Tristimulus values { X, Y, Z } with a positive sum (any scale).
+ * @returns { x, y }, dimensionless.
+ * @source CIE 015:2018 eq. 7.3.
+ * @example chromaticityXy({ X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function chromaticityXy(t: Tristimulus): Chromaticity {
   const s = t.X + t.Y + t.Z;
   requireSum(s, "chromaticityXy");
   return { x: t.X / s, y: t.Y / s };
 }
 
-/** x, y and luminance factor Y (CIE 015:2018 §7.3). */
+/**
+ * Chromaticity x, y with the luminance factor (or luminance) Y kept.
+ *
+ * @param t Tristimulus values { X, Y, Z } with a positive sum.
+ * @returns { x, y, Y }, Y on the scale of `t`.
+ * @source CIE 015:2018 §7.3.
+ * @example toXyY({ X: 41.24, Y: 21.26, Z: 1.93 })
+ */
 export function toXyY(t: Tristimulus): ChromaticityLuminance {
   const { x, y } = chromaticityXy(t);
   return { x, y, Y: t.Y };
 }
 
-/** X = xY/y, Z = (1 − x − y)Y/y (CIE 015:2018 eq. 7.4). */
+/**
+ * Tristimulus values from chromaticity and Y: X = xY ÷ y, Z = (1 − x − y)Y ÷ y.
+ *
+ * @param c { x, y, Y } with y > 0.
+ * @returns { X, Y, Z } on the scale of Y.
+ * @source CIE 015:2018 eq. 7.4.
+ * @example fromXyY({ x: 0.3127, y: 0.329, Y: 100 })
+ */
 export function fromXyY(c: ChromaticityLuminance): Tristimulus {
   if (!(c.y > 0)) throw new Error(`fromXyY: y = ${c.y}; tristimulus values need y > 0`);
   return { X: (c.x * c.Y) / c.y, Y: c.Y, Z: ((1 - c.x - c.y) * c.Y) / c.y };
 }
 
-/** u′ = 4X/(X+15Y+3Z), v′ = 9Y/(X+15Y+3Z) (CIE 015:2018 eq. 8.1). */
+/**
+ * CIE 1976 UCS chromaticity u′ = 4X ÷ (X+15Y+3Z), v′ = 9Y ÷ (X+15Y+3Z).
+ *
+ * @param t Tristimulus values { X, Y, Z } (X + 15Y + 3Z > 0).
+ * @returns { u, v } = u′, v′, dimensionless.
+ * @source CIE 015:2018 eq. 8.1.
+ * @example uvPrimeFromXYZ({ X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function uvPrimeFromXYZ(t: Tristimulus): UvPrime {
   const d = t.X + 15 * t.Y + 3 * t.Z;
   if (!(d > 0)) throw new Error(`uvPrimeFromXYZ: X + 15Y + 3Z = ${d}; u′v′ needs a positive denominator`);
   return { u: (4 * t.X) / d, v: (9 * t.Y) / d };
 }
 
-/** u′ = 4x/(−2x+12y+3), v′ = 9y/(−2x+12y+3) (CIE 015:2018 eq. 8.2). */
+/**
+ * CIE 1976 UCS chromaticity from xy: u′ = 4x ÷ (−2x+12y+3), v′ = 9y ÷ (−2x+12y+3).
+ *
+ * @param c Chromaticity { x, y } (CIE 1931).
+ * @returns { u, v } = u′, v′, dimensionless.
+ * @source CIE 015:2018 eq. 8.2.
+ * @example uvPrimeFromXy({ x: 0.3127, y: 0.329 })
+ */
 export function uvPrimeFromXy(c: Chromaticity): UvPrime {
   const d = -2 * c.x + 12 * c.y + 3;
   if (!(d > 0)) throw new Error(`uvPrimeFromXy: −2x + 12y + 3 = ${d} for (${c.x}, ${c.y})`);
   return { u: (4 * c.x) / d, v: (9 * c.y) / d };
 }
 
-/** x = 9u′/(6u′−16v′+12), y = 4v′/(6u′−16v′+12) (inverse of CIE 015:2018 eq. 8.2). */
+/**
+ * CIE 1931 xy from CIE 1976 u′v′: x = 9u′ ÷ (6u′−16v′+12), y = 4v′ ÷ (6u′−16v′+12).
+ *
+ * @param c { u, v } = u′, v′.
+ * @returns { x, y }, dimensionless.
+ * @source CIE 015:2018 eq. 8.2, inverted.
+ * @example xyFromUvPrime({ u: 0.1978, v: 0.4683 })
+ */
 export function xyFromUvPrime(c: UvPrime): Chromaticity {
   const d = 6 * c.u - 16 * c.v + 12;
   if (!(d > 0)) throw new Error(`xyFromUvPrime: 6u′ − 16v′ + 12 = ${d} for (${c.u}, ${c.v})`);
   return { x: (9 * c.u) / d, y: (4 * c.v) / d };
 }
 
-/** CIE 1960 UCS: u = u′, v = (2/3) v′ (CIE 015:2018 §8.1 note; CIE 13.3). */
+/**
+ * CIE 1960 UCS chromaticity u, v from xy: u = u′, v = (2 ÷ 3) v′.
+ *
+ * @param c Chromaticity { x, y } (CIE 1931).
+ * @returns { u, v } of the CIE 1960 UCS (used for CCT and colour rendering), dimensionless.
+ * @source CIE 015:2018 §8.1 (note); CIE 13.3-1995.
+ * @example uv1960FromXy({ x: 0.3127, y: 0.329 })
+ */
 export function uv1960FromXy(c: Chromaticity): Uv1960 {
   const p = uvPrimeFromXy(c);
   return { u: p.u, v: (2 * p.v) / 3 };
 }
 
-/** xy from CIE 1960 uv: x = 3u/(2u−8v+4), y = 2v/(2u−8v+4). */
+/**
+ * CIE 1931 xy from CIE 1960 uv: x = 3u ÷ (2u−8v+4), y = 2v ÷ (2u−8v+4).
+ *
+ * @param c { u, v } of the CIE 1960 UCS.
+ * @returns { x, y }, dimensionless.
+ * @source CIE 015:2018 §8.1 (the 1960 UCS), inverted.
+ * @example xyFromUv1960({ u: 0.1978, v: 0.3122 })
+ */
 export function xyFromUv1960(c: Uv1960): Chromaticity {
   const d = 2 * c.u - 8 * c.v + 4;
   if (!(d > 0)) throw new Error(`xyFromUv1960: 2u − 8v + 4 = ${d} for (${c.u}, ${c.v})`);

@@ -8,7 +8,15 @@ export interface Uvw1964 {
   readonly W: number;
 }
 
-/** W* = 25 Y^(1/3) − 17, U* = 13 W*(u − un), V* = 13 W*(v − vn), with CIE 1960 u, v and Y on the 0–100 scale (CIE 13.3-1995 eqs. 6–8). */
+/**
+ * CIE 1964 U*V*W* coordinates, as CIE 13.3 uses them for colour rendering: W* = 25 Y^(1/3) − 17, U* = 13 W*(u − un), V* = 13 W*(v − vn).
+ *
+ * @param t The colour's tristimulus values { X, Y, Z }, Y ≥ 0 on the 0–100 scale.
+ * @param white The reference white { X, Y, Z } (its chromaticity only is used).
+ * @returns { U, V, W }, with CIE 1960 u, v.
+ * @source CIE 13.3-1995 eqs. 6–8.
+ * @example uvwFromXYZ({ X: 30, Y: 30, Z: 25 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function uvwFromXYZ(t: Tristimulus, white: Tristimulus): Uvw1964 {
   if (typeof t !== "object" || t === null || ![t.X, t.Y, t.Z].every(Number.isFinite) || t.Y < 0) {
     throw new Error(`uvwFromXYZ: tristimulus values (${t?.X}, ${t?.Y}, ${t?.Z}) must be finite with Y ≥ 0`);

@@ -30,7 +30,17 @@ function requireWhite(white: Tristimulus, what: string): void {
     throw new Error(`${what}: the reference white (${white.X}, ${white.Y}, ${white.Z}) must be positive`);
 }
 
-/** L* = 116 f(Y/Yn) − 16, a* = 500[f(X/Xn) − f(Y/Yn)], b* = 200[f(Y/Yn) − f(Z/Zn)] (CIE 015:2018 eqs. 8.3–8.11). */
+/**
+ * CIELAB coordinates of a colour relative to a reference white: L* = 116 f(Y/Yn) − 16, a* = 500[f(X/Xn) − f(Y/Yn)], b* = 200[f(Y/Yn) − f(Z/Zn)].
+ *
+ * Use the white from the same weighting table as the sample (`objectColour` gives both).
+ *
+ * @param t The colour's tristimulus values { X, Y, Z }, finite.
+ * @param white The reference white { X, Y, Z } on the same scale (all positive; Yn = 100 for object colours).
+ * @returns { L, a, b }: L* 0–100 for object colours, a*, b* unbounded.
+ * @source CIE 015:2018 §8.2.1, eqs. 8.3–8.11.
+ * @example labFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
   requireWhite(white, "labFromXYZ");
   if (![t.X, t.Y, t.Z].every(Number.isFinite))
@@ -42,7 +52,15 @@ export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
   return { L: 116 * fy - 16, a: 500 * (fx - fy), b: 200 * (fy - fz) };
 }
 
-/** The inverse of labFromXYZ (CIE 015:2018 §8.2.1, inverted). */
+/**
+ * Tristimulus values of a CIELAB colour: the inverse of `labFromXYZ`.
+ *
+ * @param lab CIELAB { L, a, b }.
+ * @param white The reference white { X, Y, Z } (all positive).
+ * @returns { X, Y, Z } on the white's scale.
+ * @source CIE 015:2018 §8.2.1, inverted.
+ * @example xyzFromLab({ L: 53.24, a: 80.09, b: 67.2 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
   requireWhite(white, "xyzFromLab");
   const fy = (lab.L + 16) / 116;
@@ -51,12 +69,26 @@ export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
   return { X: white.X * fInverse(fx), Y: white.Y * fInverse(fy), Z: white.Z * fInverse(fz) };
 }
 
-/** C*ab = √(a*² + b*²), hab = atan2(b*, a*) in degrees (CIE 015:2018 eqs. 8.12–8.13). */
+/**
+ * The polar form of CIELAB: chroma C*ab = √(a*² + b*²) and hue angle hab = atan2(b*, a*).
+ *
+ * @param lab CIELAB { L, a, b }.
+ * @returns { L, C, h }, h in degrees, 0 ≤ h < 360.
+ * @source CIE 015:2018 eqs. 8.12–8.13.
+ * @example lchFromLab({ L: 50, a: 20, b: -20 })
+ */
 export function lchFromLab(lab: Lab): LCh {
   return { L: lab.L, C: Math.hypot(lab.a, lab.b), h: hueAngleDegrees(lab.a, lab.b) };
 }
 
-/** a* = C cos h, b* = C sin h. */
+/**
+ * CIELAB from its polar form: a* = C cos h, b* = C sin h.
+ *
+ * @param lch { L, C, h }, h in degrees.
+ * @returns CIELAB { L, a, b }.
+ * @source CIE 015:2018 eqs. 8.12–8.13, inverted.
+ * @example labFromLch({ L: 50, C: 30, h: 315 })
+ */
 export function labFromLch(lch: LCh): Lab {
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, a: lch.C * Math.cos(r), b: lch.C * Math.sin(r) };

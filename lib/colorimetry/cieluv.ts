@@ -35,7 +35,15 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
   }
 }
 
-/** L* = 116 f(Y/Yn) − 16, u* = 13 L*(u′ − u′n), v* = 13 L*(v′ − v′n) (CIE 015:2018 eqs. 8.15–8.19). */
+/**
+ * CIELUV coordinates relative to a reference white: L* = 116 f(Y/Yn) − 16, u* = 13 L*(u′ − u′n), v* = 13 L*(v′ − v′n).
+ *
+ * @param t The colour's tristimulus values { X, Y, Z }, finite.
+ * @param white The reference white { X, Y, Z }, all positive, on the same scale.
+ * @returns { L, u, v } = L*, u*, v*.
+ * @source CIE 015:2018 §8.2.2, eqs. 8.15–8.19.
+ * @example luvFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
   requireXYZ("luvFromXYZ", "the colour", t, false);
   requireXYZ("luvFromXYZ", "the reference white", white, true);
@@ -48,7 +56,15 @@ export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
   return { L, u: 13 * L * (u - un), v: 13 * L * (v - vn) };
 }
 
-/** The inverse of luvFromXYZ (CIE 015:2018 §8.2.2, inverted). */
+/**
+ * Tristimulus values of a CIELUV colour: the inverse of `luvFromXYZ` (L* ≤ 0 gives black).
+ *
+ * @param luv CIELUV { L, u, v }, finite.
+ * @param white The reference white { X, Y, Z }, all positive.
+ * @returns { X, Y, Z } on the white's scale.
+ * @source CIE 015:2018 §8.2.2, inverted.
+ * @example xyzFromLuv({ L: 53.24, u: 175, v: 37.8 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
   if (typeof luv !== "object" || luv === null || ![luv.L, luv.u, luv.v].every(Number.isFinite)) {
     throw new Error(`xyzFromLuv: (L* ${luv?.L}, u* ${luv?.u}, v* ${luv?.v}) must be finite`);
@@ -64,18 +80,40 @@ export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
   return { X, Y, Z };
 }
 
-/** C*uv = √(u*² + v*²), huv = atan2(v*, u*) in degrees (CIE 015:2018 eqs. 8.22–8.23). */
+/**
+ * The polar form of CIELUV: chroma C*uv = √(u*² + v*²) and hue angle huv = atan2(v*, u*).
+ *
+ * @param luv CIELUV { L, u, v }.
+ * @returns { L, C, h }, h in degrees, 0 ≤ h < 360.
+ * @source CIE 015:2018 eqs. 8.22–8.23.
+ * @example lchFromLuv({ L: 50, u: 30, v: 10 })
+ */
 export function lchFromLuv(luv: Luv): LChUv {
   return { L: luv.L, C: Math.hypot(luv.u, luv.v), h: hueAngleDegrees(luv.u, luv.v) };
 }
 
-/** u* = C cos h, v* = C sin h. */
+/**
+ * CIELUV from its polar form: u* = C cos h, v* = C sin h.
+ *
+ * @param lch { L, C, h }, h in degrees.
+ * @returns CIELUV { L, u, v }.
+ * @source CIE 015:2018 eqs. 8.22–8.23, inverted.
+ * @example luvFromLch({ L: 50, C: 30, h: 20 })
+ */
 export function luvFromLch(lch: LChUv): Luv {
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, u: lch.C * Math.cos(r), v: lch.C * Math.sin(r) };
 }
 
-/** CIE 1976 u,v saturation suv = 13 √((u′ − u′n)² + (v′ − v′n)²) (CIE 015:2018 eq. 8.21). */
+/**
+ * CIE 1976 u,v saturation suv = 13 √((u′ − u′n)² + (v′ − v′n)²).
+ *
+ * @param t The colour's tristimulus values { X, Y, Z }.
+ * @param white The reference white { X, Y, Z }, all positive.
+ * @returns suv, dimensionless.
+ * @source CIE 015:2018 eq. 8.21.
+ * @example saturationUv({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
+ */
 export function saturationUv(t: Tristimulus, white: Tristimulus): number {
   requireXYZ("saturationUv", "the colour", t, false);
   requireXYZ("saturationUv", "the reference white", white, true);

@@ -25,8 +25,14 @@ interface LocusPoint {
 const loci = new Map<string, LocusPoint[]>();
 
 /**
- * The spectrum locus of an observer at its 1 nm wavelengths, from its first wavelength up to where the locus stops
- * turning at the long-wavelength end (the CIE 1931 locus stays at one point above about 700 nm; the 1964 one turns back).
+ * The spectrum locus of an observer in CIE 1931 xy at its 1 nm wavelengths, up to where the locus stops turning at the long-wavelength end.
+ *
+ * The CIE 1931 locus stays at one point above about 700 nm; the 1964 one turns back. Cached per observer.
+ *
+ * @param observer "2°" or "10°" (see `observerByName`) or an `Observer`; default "2°".
+ * @returns [{ wavelength (nm), x, y }, ...] from the shortest wavelength.
+ * @source ISO/CIE 11664-1:2019 (colour-matching functions); the cut at the long-wavelength end is common practice with no source.
+ * @example spectrumLocus("2°").length
  */
 export function spectrumLocus(observer: ObserverName | Observer | 2 | 10 = "2°"): readonly LocusPoint[] {
   const obs = observerByName(observer);
@@ -77,7 +83,19 @@ function checkXy(what: string, c: Chromaticity): void {
   }
 }
 
-/** Dominant or complementary wavelength and excitation purity of `xy` relative to `white` (CIE 015:2018 §9.1–9.2). */
+/**
+ * Dominant (or, for purples, complementary) wavelength and excitation purity of a chromaticity relative to a white.
+ *
+ * The line from the white through the colour meets the spectrum locus, or, for purples, the purple line, in which case
+ * the opposite direction gives the complementary wavelength.
+ *
+ * @param xy The colour's chromaticity { x, y } (CIE 1931).
+ * @param white The white's chromaticity { x, y }, e.g. `chromaticityXy(whitePoint({ illuminant: "D65" }))`.
+ * @param observer The observer whose spectrum locus is used: "2°" or "10°" or an `Observer`; default "2°".
+ * @returns { wavelength (nm), complementary (true for purples: the wavelength is the complementary one), purity (excitation purity pe, fraction; above 1 outside the locus) }.
+ * @source CIE 015:2018 §9.1–9.2 (eq. 9.1 for excitation purity).
+ * @example dominantWavelength({ x: 0.45, y: 0.45 }, { x: 0.3127, y: 0.329 })
+ */
 export function dominantWavelength(
   xy: Chromaticity,
   white: Chromaticity,

@@ -3,7 +3,15 @@
 export type Vector3 = readonly [number, number, number];
 export type Matrix3 = readonly [Vector3, Vector3, Vector3];
 
-/** The product m · v. */
+/**
+ * The product of a 3 × 3 matrix and a 3-vector, m · v.
+ *
+ * @param m A 3 × 3 matrix as rows.
+ * @param v A vector [a, b, c].
+ * @returns The vector m · v.
+ * @source none: linear algebra, no published formula.
+ * @example applyMatrix3([[1, 0, 0], [0, 2, 0], [0, 0, 3]], [1, 1, 1])
+ */
 export function applyMatrix3(m: Matrix3, v: Vector3): [number, number, number] {
   return [
     m[0][0] * v[0] + m[0][1] * v[1] + m[0][2] * v[2],
@@ -12,7 +20,15 @@ export function applyMatrix3(m: Matrix3, v: Vector3): [number, number, number] {
   ];
 }
 
-/** The product a · b. */
+/**
+ * The product of two 3 × 3 matrices, a · b.
+ *
+ * @param a A 3 × 3 matrix as rows.
+ * @param b A 3 × 3 matrix as rows.
+ * @returns The matrix a · b.
+ * @source none: linear algebra, no published formula.
+ * @example multiplyMatrix3([[1, 2, 0], [0, 1, 0], [0, 0, 1]], [[1, 0, 0], [3, 1, 0], [0, 0, 1]])
+ */
 export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
   const row = (i: 0 | 1 | 2): Vector3 => [
     a[i][0] * b[0][0] + a[i][1] * b[1][0] + a[i][2] * b[2][0],
@@ -22,7 +38,15 @@ export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
   return [row(0), row(1), row(2)];
 }
 
-/** The inverse by cofactors; a singular (or nearly singular) matrix is an error naming `what`. */
+/**
+ * The inverse of a 3 × 3 matrix by cofactors; a singular (or nearly singular) matrix is an error naming `what`.
+ *
+ * @param m A 3 × 3 matrix as rows.
+ * @param what What the matrix is, for the error message; default "matrix".
+ * @returns The inverse matrix.
+ * @source none: linear algebra (inverse by cofactors), no published formula.
+ * @example invertMatrix3([[2, 0, 0], [0, 4, 0], [0, 0, 5]])
+ */
 export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
   const [[a, b, c], [d, e, f], [g, h, i]] = m;
   const A = e * i - f * h,
@@ -40,7 +64,14 @@ export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
   ];
 }
 
-/** A diagonal matrix. */
+/**
+ * A 3 × 3 diagonal matrix with the given diagonal.
+ *
+ * @param v The diagonal [a, b, c].
+ * @returns The matrix.
+ * @source none: linear algebra, no published formula.
+ * @example diagonalMatrix3([1, 2, 3])
+ */
 export function diagonalMatrix3(v: Vector3): Matrix3 {
   return [
     [v[0], 0, 0],

@@ -213,7 +213,14 @@ function tableFor(
   return table;
 }
 
-/** The weighting table for an illuminant and observer at 1 or 5 nm (computed once per run and kept). */
+/**
+ * The weighting table k·S(λ)·x̄(λ), k·S(λ)·ȳ(λ), k·S(λ)·z̄(λ), k = 100 ÷ Σ S ȳ, for an illuminant and observer at 1 or 5 nm (computed once per run and kept).
+ *
+ * @param options.interval The summation interval in nm, 1 or 5 (required here).
+ * @returns The `WeightingTable`: wavelengths (nm), wx, wy, wz, the white (perfect reflecting diffuser, Y = 100), range and Methods notes.
+ * @source CIE 015:2018 §7.1–7.2, eq. 7.2; ASTM E308 for the 1 nm / 5 nm practice.
+ * @example weightingTable({ illuminant: "D65", interval: 5 }).white
+ */
 export function weightingTable(options: TableOptions & { interval: 1 | 5 }): WeightingTable {
   return tableFor(options.illuminant, options.observer, options.interval, options.range);
 }
@@ -226,9 +233,15 @@ function defaultInterval(sample: Spectrum | undefined, ill: Spectrum): 1 | 5 {
 }
 
 /**
- * The summation interval tristimulus() would choose for all these samples together under each illuminant: 1 nm only
- * when every sample and every illuminant is tabulated at 1 nm, otherwise 5 nm (CIE 015:2018 §7.2). Use it to put
- * samples from different grids, and their whites, on one weighting table.
+ * The summation interval `tristimulus()` would choose for all these samples together: 1 nm only when every sample and every illuminant is tabulated at 1 nm, otherwise 5 nm.
+ *
+ * Use it to put samples from different grids, and their whites, on one weighting table.
+ *
+ * @param samples The sample spectra (at least one).
+ * @param illuminants Illuminant names or spectra; default [D65] (an `undefined` entry means D65).
+ * @returns 1 or 5 (nm).
+ * @source CIE 015:2018 §7.2.
+ * @example commonSummationInterval([spectrumOnGrid(380, 5, new Array(81).fill(0.5))], ["D65", "A"])
  */
 export function commonSummationInterval(
   samples: readonly Spectrum[],
@@ -263,9 +276,15 @@ function tableForSample(sample: Spectrum, options: ObjectColourOptions): Weighti
 }
 
 /**
- * X, Y, Z of an object colour: a reflectance or transmittance (as a fraction) under an illuminant, normalised so
- * that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 eqs. 7.1–7.2). For the sample's reference white
- * on the same weighting table, use objectColour().
+ * X, Y, Z of an object colour: a reflectance or transmittance under an illuminant, normalised so that the perfect reflecting diffuser has Y = 100.
+ *
+ * For the sample's reference white on the same weighting table, use `objectColour()`. Light sources go to
+ * `lightTristimulus()`.
+ *
+ * @param sample A reflectance or transmittance spectrum, values as fractions (quantity "reflectance", "transmittance" or "other").
+ * @returns { X, Y, Z } on the Y = 100 scale.
+ * @source CIE 015:2018 §7.1–7.2, eqs. 7.1–7.2; ASTM E308-22 §7 (1 nm and 5 nm practice).
+ * @example tristimulus(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "reflectance" }), { illuminant: "D50" })
  */
 export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {}): Tristimulus {
   checkObjectSample(sample, "tristimulus");
@@ -292,9 +311,15 @@ export interface ObjectColour {
 }
 
 /**
- * X, Y, Z of an object colour and its reference white from one weighting table (CIE 015:2018 §7.1–7.2: the white is
- * the perfect reflecting diffuser summed on the same grid, interval and range), so CIELAB and the like never mix
- * summation conditions. Options and defaults are those of tristimulus().
+ * X, Y, Z of an object colour and its reference white, both from one weighting table, with the conditions used.
+ *
+ * The white is the perfect reflecting diffuser summed on the same grid, interval and range, so CIELAB and the like
+ * never mix summation conditions. Options and defaults are those of `tristimulus()`.
+ *
+ * @param sample A reflectance or transmittance spectrum, values as fractions.
+ * @returns { XYZ, white (both on the Y = 100 scale), illuminant, observer (names), interval (nm), range ([first, last] nm) }.
+ * @source CIE 015:2018 §7.1–7.2, eqs. 7.1–7.2.
+ * @example objectColour(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "reflectance" })).white
  */
 export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}): ObjectColour {
   checkObjectSample(sample, "objectColour");
@@ -364,10 +389,16 @@ function noteObjectColourMethod(table: WeightingTable): void {
 }
 
 /**
- * Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white (Y = 100), summed as
- * CIE 015:2018 §7.1–7.2 describes. Its default interval is the illuminant's own (1 nm for D65 and A, 5 nm for D50),
- * which need not be the interval tristimulus() picks for a 5 nm sample: for a sample's white, use objectColour(sample)
- * or pass the same interval and range.
+ * Tristimulus values of the perfect reflecting diffuser under an illuminant: the reference white, Y = 100.
+ *
+ * Its default interval is the illuminant's own (1 nm for D65 and A, 5 nm for D50), which need not be the interval
+ * `tristimulus()` picks for a 5 nm sample: for a sample's white, use `objectColour(sample)` or pass the same interval
+ * and range.
+ *
+ * @param options.interval The summation interval in nm, 1 or 5; default 1 when the illuminant is tabulated at 1 nm (or unevenly), 5 when it is tabulated at a coarser step.
+ * @returns { X, Y, Z } with Y = 100.
+ * @source CIE 015:2018 §7.1–7.2; ASTM E308 (the white points the default range reproduces).
+ * @example chromaticityXy(whitePoint({ illuminant: "D50", interval: 5 }))
  */
 export function whitePoint(options: TableOptions = {}): Tristimulus {
   const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
@@ -377,6 +408,7 @@ export function whitePoint(options: TableOptions = {}): Tristimulus {
 }
 
 export interface LightOptions {
+  /** Observer: "2°" or "10°" (see `observerByName`) or an `Observer`; default the CIE 1931 2° observer. */
   observer?: ObserverName | Observer | 2 | 10;
   /**
    * "relative" (default): scaled so that Y = 100. "absolute": k = Km = 683 lm/W (CIE 015:2018 eq. 7.5;
@@ -389,8 +421,12 @@ export interface LightOptions {
 export const KM_PHOTOPIC = 683;
 
 /**
- * X, Y, Z of a light source from its spectral distribution (CIE 015:2018 eq. 7.5): summed at the source's own
- * 1 nm or 5 nm samples, otherwise after interpolation to 1 nm, over the range the source and observer share.
+ * X, Y, Z of a light source from its spectral distribution, summed at its own 1 nm or 5 nm samples (otherwise after interpolation to 1 nm) over the range the source and the observer share.
+ *
+ * @param source A spectral distribution of a light (relative, or radiance, irradiance, … in W/nm units for "absolute").
+ * @returns { X, Y, Z }: Y = 100 ("relative"), or Y in the photometric unit of the source's radiometric unit ("absolute": cd/m² from W/(sr·m²·nm)).
+ * @source CIE 015:2018 eq. 7.5 (Km = 683 lm/W).
+ * @example lightTristimulus(illuminant("A"))
  */
 export function lightTristimulus(source: Spectrum, options: LightOptions = {}): Tristimulus {
   const obs = observerByName(options.observer ?? "2°");

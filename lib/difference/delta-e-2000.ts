@@ -8,9 +8,11 @@ import { noteMethod } from "../methods/method-log.ts";
 import { requireFactor, requireLab } from "./check-lab.ts";
 
 export interface DeltaE2000Options {
-  /** Parametric factors (default 1 each, the reference conditions of CIE 142-2001). */
+  /** Parametric factor for lightness, dimensionless (default 1, the reference conditions of CIE 142-2001). */
   kL?: number;
+  /** Parametric factor for chroma, dimensionless (default 1). */
   kC?: number;
+  /** Parametric factor for hue, dimensionless (default 1). */
   kH?: number;
 }
 
@@ -39,7 +41,15 @@ const DEG = Math.PI / 180;
 const TWENTY_FIVE_7 = 6103515625; // 25⁷
 const TWO_PI = 2 * Math.PI;
 
-/** The CIEDE2000 formula with all its intermediate values (Sharma, Wu & Dalal 2005, eqs. 1–22). */
+/**
+ * The CIEDE2000 formula with every intermediate value (a′, C′, h′, h̄′, G, T, SL, SC, SH, RT, ΔL′, ΔC′, ΔH′, ΔE00).
+ *
+ * @param first The first colour, CIELAB { L, a, b }.
+ * @param second The second colour, CIELAB { L, a, b }.
+ * @returns The terms as Sharma, Wu and Dalal tabulate them: hue angles h′ and h̄′ in degrees, ΔE00 in `deltaE`.
+ * @source G. Sharma, W. Wu, E. N. Dalal, Color Res. Appl. 30(1):21–30, 2005, eqs. 1–22; CIE 142-2001.
+ * @example ciede2000Terms({ L: 50, a: 2.6772, b: -79.7751 }, { L: 50, a: 0, b: -82.7485 }).deltaE
+ */
 export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Options = {}): Ciede2000Terms {
   requireLab("deltaE2000", "first", first);
   requireLab("deltaE2000", "second", second);
@@ -53,7 +63,15 @@ export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Optio
   return compute(first.L, first.a, first.b, second.L, second.a, second.b, kL, kC, kH);
 }
 
-/** ΔE00 between two CIELAB colours, with optional parametric factors kL, kC, kH (CIE 142-2001; Sharma et al. 2005). */
+/**
+ * CIEDE2000 colour difference ΔE00 between two CIELAB colours.
+ *
+ * @param first The first colour, CIELAB { L, a, b }.
+ * @param second The second colour, CIELAB { L, a, b }.
+ * @returns ΔE00 (dimensionless); symmetric in the two colours.
+ * @source CIE 142-2001 (ISO/CIE 11664-6:2014), implemented as in Sharma, Wu and Dalal, Color Res. Appl. 30(1):21–30, 2005.
+ * @example deltaE2000({ L: 50, a: 2.6772, b: -79.7751 }, { L: 50, a: 0, b: -82.7485 })
+ */
 export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options): number {
   if (first == null || second == null) {
     requireLab("deltaE2000", "first", first);

@@ -17,8 +17,16 @@ const WEIGHTS = {
 } as const;
 
 /**
- * ΔE*94 = √((ΔL* ÷ kL·SL)² + (ΔC*ab ÷ SC)² + (ΔH*ab ÷ SH)²), SL = 1, SC = 1 + K1·C*, SH = 1 + K2·C*, with C* the chroma
- * of the first colour, taken as the reference (standard) as CIE 116-1995 specifies.
+ * CIE 1994 colour difference ΔE*94 of a sample from a reference.
+ *
+ * ΔE*94 = √((ΔL* ÷ kL·SL)² + (ΔC*ab ÷ SC)² + (ΔH*ab ÷ SH)²), SL = 1, SC = 1 + K1·C*, SH = 1 + K2·C*, with C* the
+ * chroma of the first colour, taken as the reference (standard) as CIE 116-1995 specifies; so the order matters.
+ *
+ * @param reference The reference (standard) colour, CIELAB { L, a, b }.
+ * @param sample The sample (batch) colour, CIELAB { L, a, b }.
+ * @returns ΔE*94, in CIELAB units (dimensionless).
+ * @source CIE 116-1995, Industrial colour-difference evaluation.
+ * @example deltaE94({ L: 50, a: 20, b: -10 }, { L: 51, a: 18, b: -9 }, { application: "textiles" })
  */
 export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options = {}): number {
   requireLab("deltaE94", "reference (first)", reference);

@@ -11,8 +11,15 @@ export interface DeltaECMCOptions {
 }
 
 /**
- * ΔE CMC(l:c) = √((ΔL* ÷ l·SL)² + (ΔC* ÷ c·SC)² + (ΔH* ÷ SH)²), with SL, SC, SH from the reference (first) colour
- * (ISO 105-J03:2009 §6; Clarke, McDonald & Rigg, JSDC 100:128–132, 1984).
+ * CMC l:c colour difference ΔE CMC(l:c) of a sample from a reference (default 2:1, acceptability).
+ *
+ * ΔE CMC = √((ΔL* ÷ l·SL)² + (ΔC* ÷ c·SC)² + (ΔH* ÷ SH)²), with SL, SC, SH from the reference (first) colour.
+ *
+ * @param reference The reference (standard) colour, CIELAB { L, a, b }.
+ * @param sample The sample (batch) colour, CIELAB { L, a, b }.
+ * @returns ΔE CMC(l:c), dimensionless.
+ * @source ISO 105-J03:2009 §6; F. J. J. Clarke, R. McDonald, B. Rigg, JSDC 100:128–132, 1984.
+ * @example deltaECMC({ L: 50, a: 20, b: -10 }, { L: 51, a: 18, b: -9 }, { l: 1, c: 1 })
  */
 export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions = {}): number {
   requireLab("deltaECMC", "reference (first)", reference);

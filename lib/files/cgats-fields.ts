@@ -13,7 +13,14 @@ import { decideValueScale, type ValueScale } from "./value-scale.ts";
 
 const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
 
-/** The spectral fields of a table with their wavelengths (nm), in field order; they must increase. */
+/**
+ * The spectral fields of a CGATS table with their wavelengths, in field order (they must increase).
+ *
+ * @param table A table of a parsed CGATS file.
+ * @returns [{ field, wavelength in nm, index }, ...].
+ * @source ANSI CGATS.17 (SPECTRAL_nnn fields).
+ * @example cgatsSpectralFields(readCgats("data/blue-cut-plates.cgats.txt").tables[0]!).length
+ */
 export function cgatsSpectralFields(
   table: CgatsTable,
 ): { field: string; index: number; wavelength: number }[] {
@@ -32,7 +39,14 @@ export function cgatsSpectralFields(
   return out;
 }
 
-/** Each set's identifier: SAMPLE_NAME when present, else SAMPLE_ID, else "set N"; repeated identifiers are an error. */
+/**
+ * Each set's identifier in a CGATS table: SAMPLE_NAME when present, else SAMPLE_ID, else "set N"; repeated identifiers are an error.
+ *
+ * @param table A table of a parsed CGATS file.
+ * @returns One identifier per set.
+ * @source ANSI CGATS.17 (SAMPLE_ID, SAMPLE_NAME).
+ * @example cgatsSampleIds(readCgats("data/blue-cut-plates.cgats.txt").tables[0]!)
+ */
 export function cgatsSampleIds(table: CgatsTable): string[] {
   const nameAt = table.fields.indexOf("SAMPLE_NAME");
   const idAt = table.fields.indexOf("SAMPLE_ID");
@@ -72,7 +86,14 @@ function requireFields(table: CgatsTable, wanted: readonly string[], what: strin
     );
 }
 
-/** X, Y, Z of each set from the fields XYZ_X, XYZ_Y, XYZ_Z. */
+/**
+ * X, Y, Z of each set of a CGATS table, from the fields XYZ_X, XYZ_Y, XYZ_Z.
+ *
+ * @param table A table of a parsed CGATS file.
+ * @returns [{ id, XYZ }, ...] as written in the file.
+ * @source ANSI CGATS.17 (XYZ_ fields).
+ * @example cgatsTristimulus(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID XYZ_X XYZ_Y XYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1 41.2 21.3 1.9\nEND_DATA\n").tables[0]!)
+ */
 export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimulus }[] {
   requireFields(table, ["XYZ_X", "XYZ_Y", "XYZ_Z"], "XYZ fields");
   const ids = cgatsSampleIds(table);
@@ -80,7 +101,14 @@ export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimu
   return ids.map((id, i) => ({ id, XYZ: { X: X![i]!, Y: Y![i]!, Z: Z![i]! } }));
 }
 
-/** L*, a*, b* of each set from the fields LAB_L, LAB_A, LAB_B. */
+/**
+ * L*, a*, b* of each set of a CGATS table, from the fields LAB_L, LAB_A, LAB_B.
+ *
+ * @param table A table of a parsed CGATS file.
+ * @returns [{ id, Lab }, ...] as written in the file.
+ * @source ANSI CGATS.17 (LAB_ fields).
+ * @example cgatsLab(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID LAB_L LAB_A LAB_B\nEND_DATA_FORMAT\nBEGIN_DATA\n1 50 20 -10\nEND_DATA\n").tables[0]!)
+ */
 export function cgatsLab(table: CgatsTable): { id: string; Lab: Lab }[] {
   requireFields(table, ["LAB_L", "LAB_A", "LAB_B"], "Lab fields");
   const ids = cgatsSampleIds(table);
@@ -107,7 +135,14 @@ export interface CgatsSpectraResult {
   readonly file: CgatsFile;
 }
 
-/** The spectra of one table of a parsed CGATS file, named by sample identifier; see CgatsSpectraOptions. */
+/**
+ * The spectra of one table of a parsed CGATS file, named by sample identifier, reflectance and transmittance scaled to fractions.
+ *
+ * @param file A parsed CGATS file.
+ * @returns { spectra, scale, inferred (sentences on what was inferred), keywords, file }.
+ * @source ANSI CGATS.17.
+ * @example cgatsSpectra(readCgats("data/blue-cut-plates.cgats.txt"), { quantity: "transmittance", scale: "percent" }).spectra.length
+ */
 export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): CgatsSpectraResult {
   if (!options || !options.quantity)
     throw new DataFileError(
@@ -152,12 +187,26 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
   return { spectra, scale, inferred, keywords: table.keywords, file };
 }
 
-/** Parses CGATS.17 text and returns the spectra of one table (see cgatsSpectra). */
+/**
+ * Parses CGATS.17 text and returns the spectra of one table (see `cgatsSpectra`).
+ *
+ * @param text The file's text.
+ * @returns { spectra, scale, inferred, keywords, file }.
+ * @source ANSI CGATS.17.
+ * @example parseCgatsSpectra("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID SPECTRAL_400 SPECTRAL_500\nEND_DATA_FORMAT\nBEGIN_DATA\nA 0.2 0.4\nEND_DATA\n", { quantity: "reflectance" }).spectra[0]
+ */
 export function parseCgatsSpectra(text: string, options: CgatsSpectraOptions): CgatsSpectraResult {
   return cgatsSpectra(parseCgats(text), options);
 }
 
-/** Reads a CGATS.17 file and returns the spectra of one table; errors name the file and line. */
+/**
+ * Reads a CGATS.17 file (path relative to the notebook's folder) and returns the spectra of one table; errors name the file and line.
+ *
+ * @param path The file's path.
+ * @returns { spectra, scale, inferred, keywords, file }.
+ * @source ANSI CGATS.17.
+ * @example readCgatsSpectra("data/blue-cut-plates.cgats.txt", { quantity: "transmittance" }).spectra[0]!.name
+ */
 export function readCgatsSpectra(path: string, options: CgatsSpectraOptions): CgatsSpectraResult {
   const file = readCgats(path);
   try {

@@ -66,14 +66,28 @@ function tokenise(line: string, lineNumber: number, comments: string[]): Token[]
 /** Field name prefixes whose values must be numbers (CGATS.17 reserved measurement fields). */
 const NUMERIC_FIELD = /^(SPECTRAL_|NM_?\d|XYZ_|XYY_|LAB_|LCH_|CMYK_|CMY_|RGB_|D_|STDEV_)/i;
 
-/** True when a field of this name must hold numbers. */
+/**
+ * True when a CGATS field of this name must hold numbers (the reserved measurement fields SPECTRAL_, XYZ_, LAB_, …).
+ *
+ * @param field The field name.
+ * @returns true for a numeric field.
+ * @source ANSI CGATS.17 (reserved field names).
+ * @example isNumericCgatsField("LAB_L")
+ */
 export function isNumericCgatsField(field: string): boolean {
   return NUMERIC_FIELD.test(field);
 }
 
 const KEYWORD_NAME = /^[A-Za-z][A-Za-z0-9_.]*$/;
 
-/** Parses CGATS.17 text into its tables; a malformed file gives a DataFileError with the line number. */
+/**
+ * Parses CGATS.17 text into its tables; a malformed file gives a DataFileError with the line number.
+ *
+ * @param text The file's text.
+ * @returns { identifier, tables [{ keywords, declared, fields, sets, setLines }], comments }.
+ * @source ANSI CGATS.17 (exchange format for colour and process control data).
+ * @example parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID\tXYZ_X\tXYZ_Y\tXYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1\t41.2\t21.3\t1.9\nEND_DATA\n").tables[0]!.fields
+ */
 export function parseCgats(text: string): CgatsFile {
   if (typeof text !== "string")
     throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
@@ -261,7 +275,14 @@ function checkFieldCount(
   }
 }
 
-/** Reads a CGATS.17 file (path relative to the notebook's folder); errors name the file and line. */
+/**
+ * Reads a CGATS.17 file (path relative to the notebook's folder); errors name the file and line.
+ *
+ * @param path The file's path.
+ * @returns The parsed file, as `parseCgats` gives it.
+ * @source ANSI CGATS.17.
+ * @example readCgats("data/blue-cut-plates.cgats.txt").tables.length
+ */
 export function readCgats(path: string): CgatsFile {
   return parseDataFile(path, (text) => parseCgats(text));
 }

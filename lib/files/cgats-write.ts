@@ -58,7 +58,14 @@ function quote(value: string, what: string): string {
   return `"${value}"`;
 }
 
-/** CGATS.17 text for the given samples (see CgatsWriteInput); the inverse of parseCgats plus the field readers. */
+/**
+ * CGATS.17 text for the given samples: spectra, XYZ and/or CIELAB with identifiers and header keywords.
+ *
+ * @param input { sampleIds (default 1, 2, …), sampleNames, spectra, XYZ, Lab, keywords, scale (default "fraction"), digits (default 6), identifier (default "CGATS.17") }.
+ * @returns The file's text.
+ * @source ANSI CGATS.17.
+ * @example formatCgats({ Lab: [{ L: 50, a: 20, b: -10 }], keywords: { DESCRIPTOR: "invented sample" } })
+ */
 export function formatCgats(input: CgatsWriteInput): string {
   const counts = [
     ["spectra", input.spectra?.length],
@@ -157,7 +164,14 @@ export function formatCgats(input: CgatsWriteInput): string {
   return lines.join("\n") + "\n";
 }
 
-/** Writes CGATS.17 text to a file (path relative to the notebook's folder); see formatCgats. */
+/**
+ * Writes CGATS.17 text to a file (path relative to the notebook's folder); see `formatCgats`.
+ *
+ * @param path The file's path.
+ * @param input What to write, as for `formatCgats`.
+ * @source ANSI CGATS.17.
+ * @example writeCgats("invented-lab.cgats.txt", { Lab: [{ L: 50, a: 20, b: -10 }] })
+ */
 export function writeCgats(path: string, input: CgatsWriteInput): void {
   writeFileSync(path, formatCgats(input), "utf8");
 }

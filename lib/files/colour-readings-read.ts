@@ -36,7 +36,7 @@ export interface ColourReadingsOptions {
   decimal?: "." | "," | "auto";
   /** The 1-based line of the header row of delimited text (default "auto"). */
   headerLine?: number | "auto";
-  /** Units per group where the file does not name them, e.g. { XYZ: "cd/m²" }. */
+  /** Units per group where the file does not name them, e.g. { XYZ: "cd/m²" } (default: by convention per group). */
   units?: Partial<Record<ReadingGroup, string>>;
 }
 
@@ -141,7 +141,16 @@ function checkUniqueNames(names: readonly string[], line: number | undefined): v
   }
 }
 
-/** Parses a table of colorimetric readings from text or bytes; see ColourReadingsOptions. */
+/**
+ * Parses a table of colorimetric readings (CSV, TSV or CGATS) from text or bytes: every record with every field,
+ * typed and with its unit, header names recognised in their common spellings; metadata and CGATS keywords kept.
+ *
+ * @param input The file's text, or its bytes (the encoding is then detected).
+ * @param options Format, separator, header line and units to take instead of inferring them (default: all inferred).
+ * @returns `{ records, fields, metadata, ... }`: one record per sample, with id, name, device values and readings.
+ * @source none: a tristim reader; CGATS as in ISO 28178.
+ * @example parseColourReadings("id,X,Y,Z\nwhite,95.05,100,108.9\n").records[0]
+ */
 export function parseColourReadings(
   input: string | Uint8Array,
   options: ColourReadingsOptions = {},
@@ -397,7 +406,16 @@ function readDelimited(
   };
 }
 
-/** Reads a table of colorimetric readings from a file (path relative to the notebook's folder); errors name the file and line. */
+/**
+ * Reads a table of colorimetric readings from a file (path relative to the notebook's folder), as
+ * parseColourReadings does; errors name the file and line.
+ *
+ * @param path The file's path, relative to the notebook's folder.
+ * @param options Format, separator, header line and units to take instead of inferring them (default: all inferred).
+ * @returns `{ records, fields, metadata, ... }`: one record per sample, with id, name, device values and readings.
+ * @source none: a tristim reader.
+ * @example readColourReadings("data/panel-kx0042.csv", { units: { XYZ: "cd/m²" } }).records.length
+ */
 export function readColourReadings(path: string, options: ColourReadingsOptions = {}): ColourReadings {
   return parseDataFileBytes(path, (bytes) => parseColourReadings(bytes, options));
 }

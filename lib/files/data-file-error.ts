@@ -32,7 +32,16 @@ export class DataFileError extends Error {
   }
 }
 
-/** A copy of a DataFileError (or plain error) with the file name added. */
+/**
+ * A DataFileError that names no file, copied with the file name added; any other error is returned as it is (a
+ * non-Error wrapped in one).
+ *
+ * @param error The error caught.
+ * @param file The file's path.
+ * @returns An Error; for a DataFileError its message starts "<file>, line <n>: ".
+ * @source none: a tristim helper.
+ * @example withFileName(new DataFileError("bad value", 3), "invented.csv").message
+ */
 export function withFileName(error: unknown, file: string): Error {
   if (error instanceof DataFileError && error.file === undefined) {
     return new DataFileError(error.reason, error.line, file, {
@@ -54,7 +63,15 @@ export function readDataFileBytes(path: string): Buffer {
   }
 }
 
-/** Reads a text file and parses it; a missing file or a fault in it is an error naming the file (and line). */
+/**
+ * Reads a UTF-8 text file and parses it; a missing file or a fault in it is an error naming the file (and line).
+ *
+ * @param path The file's path (relative to the notebook's folder).
+ * @param parse A function from the file's text to the result.
+ * @returns What `parse` returns.
+ * @source none: a tristim helper.
+ * @example parseDataFile("data/filter-lot-114.csv", (text) => text.split("\n").length)
+ */
 export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
   const bytes = readDataFileBytes(path);
   try {

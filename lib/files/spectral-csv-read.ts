@@ -52,7 +52,7 @@ export interface SpectralTableOptions {
   headerLine?: number | "auto";
   /** Where the wavelengths stand; "auto" (default) decides from the header and first row. */
   wavelengthsIn?: WavelengthPlacement | "auto";
-  /** With wavelengths in the header row: how many text columns come before them ("auto": those that are not wavelengths). */
+  /** With wavelengths in the header row: how many text columns come before them (default "auto": those that are not wavelengths). */
   attributeColumns?: number | "auto";
   /** Unit of the wavelengths; "auto" (default) from the heading, else from the values' size. Always returned in nm. */
   wavelengthUnit?: WavelengthUnit | "auto";
@@ -65,7 +65,7 @@ export interface SpectralTableOptions {
    * "%T", else from the values). Other quantities are kept as written unless "percent" is stated.
    */
   scale?: ValueScale | "auto";
-  /** Unit of the values for non-ratio quantities, e.g. "W/(sr·m²·nm)". */
+  /** Unit of the values for non-ratio quantities, e.g. "W/(sr·m²·nm)" (default: none stated; ratios are dimensionless). */
   unit?: string;
 }
 
@@ -130,8 +130,16 @@ function fail(message: string, line?: number, sample?: string, wavelength?: numb
 const nm = (w: number) => `${w} nm`;
 
 /**
- * Reads a spectral table from its text or its bytes; see SpectralTableOptions. Throws a DataFileError naming the
- * line, sample and wavelength of the first fault; nothing is returned from a faulty table.
+ * Reads a spectral table from its text or its bytes, as instruments export it: a preamble, wavelengths down the first
+ * column or across the header, either order, any common encoding, separator and decimal mark; every decision is
+ * stated in `inferred` and in Methods. Throws a DataFileError naming the line, sample and wavelength of the first
+ * fault; nothing is returned from a faulty table.
+ *
+ * @param input The file's text, or its bytes (the encoding is then detected).
+ * @param options What the columns hold (`quantity`, required) and any decision to take instead of inferring it.
+ * @returns `{ spectra, metadata, notes, comments, inferred, ... }`: the samples on ascending wavelengths in nm.
+ * @source none: a tristim reader; CGATS and CSV as in ISO 28178 and RFC 4180 where they apply.
+ * @example parseSpectralTable("nm,filter A\n400,0.5\n410,0.52\n420,0.55\n", { quantity: "transmittance" }).spectra[0]
  */
 export function parseSpectralTable(
   input: string | Uint8Array,
@@ -765,12 +773,45 @@ function checkGrid(
   return step;
 }
 
-/** Reads a spectral table from a file (path relative to the notebook's folder); errors name the file and line. */
+/**
+ * Reads a spectral table from a file (path relative to the notebook's folder), as parseSpectralTable does; errors
+ * name the file, line, sample and wavelength.
+ *
+ * @param path The file's path, relative to the notebook's folder.
+ * @param options What the columns hold (`quantity`, required) and any decision to take instead of inferring it.
+ * @returns `{ spectra, metadata, notes, comments, inferred, ... }`: the samples on ascending wavelengths in nm.
+ * @source none: a tristim reader.
+ * @example readSpectralTable("data/filter-lot-114.csv", { quantity: "transmittance" }).spectra.length
+ */
 export function readSpectralTable(path: string, options: SpectralTableOptions): SpectralTableResult {
   return parseDataFileBytes(path, (bytes) => parseSpectralTable(bytes, options));
 }
 
-/** The former name of parseSpectralTable (text or bytes), kept for existing notebooks. */
-export const parseSpectraCsv = parseSpectralTable;
-/** The former name of readSpectralTable, kept for existing notebooks. */
-export const readSpectraCsv = readSpectralTable;
+/**
+ * The former name of parseSpectralTable, kept for existing notebooks: reads a spectral table from its text or bytes.
+ *
+ * @param input The file's text, or its bytes.
+ * @param options What the columns hold (`quantity`, required) and any decision to take instead of inferring it.
+ * @returns As parseSpectralTable.
+ * @source none: a tristim reader.
+ * @example parseSpectraCsv("nm,filter A\n400,0.5\n410,0.52\n", { quantity: "transmittance" }).spectra.length
+ */
+export function parseSpectraCsv(
+  input: string | Uint8Array,
+  options: SpectralTableOptions,
+): SpectralTableResult {
+  return parseSpectralTable(input, options);
+}
+
+/**
+ * The former name of readSpectralTable, kept for existing notebooks: reads a spectral table from a file.
+ *
+ * @param path The file's path, relative to the notebook's folder.
+ * @param options What the columns hold (`quantity`, required) and any decision to take instead of inferring it.
+ * @returns As readSpectralTable.
+ * @source none: a tristim reader.
+ * @example readSpectraCsv("data/filter-lot-114.csv", { quantity: "transmittance" }).spectra.length
+ */
+export function readSpectraCsv(path: string, options: SpectralTableOptions): SpectralTableResult {
+  return readSpectralTable(path, options);
+}

@@ -13,9 +13,9 @@ export interface SpectraCsvWriteOptions {
   delimiter?: FieldSeparator;
   /** Wavelengths down the first column (default) or across the header row, one sample per row. */
   wavelengthsIn?: WavelengthPlacement;
-  /** With wavelengths in the header row: per sample, text columns written before the values (same keys for all). */
+  /** With wavelengths in the header row: per sample, text columns written before the values (same keys for all; default none). */
   attributes?: readonly Readonly<Record<string, string>>[];
-  /** Key/value lines written at the top as "# key: value". */
+  /** Key/value lines written at the top as "# key: value" (default none). */
   metadata?: Readonly<Record<string, string>>;
   /** Decimal mark (default "."); a comma needs ";" or tab as the separator. */
   decimal?: "." | ",";
@@ -25,7 +25,7 @@ export interface SpectraCsvWriteOptions {
   digits?: number;
   /** Header of the wavelength column (default "wavelength_nm"). */
   wavelengthHeader?: string;
-  /** Lines written at the top as "# ..." comments (e.g. provenance). */
+  /** Lines written at the top as "# ..." comments (e.g. provenance); default none. */
   comments?: readonly string[];
 }
 
@@ -40,7 +40,14 @@ function field(text: string, delimiter: string): string {
     : text;
 }
 
-/** The spectra (all on one grid) as CSV/TSV text with a header row; the inverse of parseSpectraCsv. */
+/**
+ * The spectra (all on one grid) as CSV/TSV text with a header row; the inverse of `parseSpectraCsv`.
+ *
+ * @param spectra Spectra on the same wavelengths.
+ * @returns The text.
+ * @source RFC 4180 (CSV).
+ * @example formatSpectraCsv([spectrumOnGrid(400, 100, [0.2, 0.4, 0.5], { name: "invented A", quantity: "reflectance" })], { scale: "percent" })
+ */
 export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraCsvWriteOptions = {}): string {
   if (!Array.isArray(spectra) || spectra.length === 0)
     throw new Error("formatSpectraCsv: no spectra to write");
@@ -138,7 +145,14 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
   return lines.join("\n") + "\n";
 }
 
-/** Writes the spectra to a CSV/TSV file (path relative to the notebook's folder); see formatSpectraCsv. */
+/**
+ * Writes the spectra to a CSV/TSV file (path relative to the notebook's folder); see `formatSpectraCsv`.
+ *
+ * @param path The file's path.
+ * @param spectra Spectra on the same wavelengths.
+ * @source RFC 4180 (CSV).
+ * @example writeSpectraCsv("invented-spectra.csv", [spectrumOnGrid(400, 100, [0.2, 0.4, 0.5], { name: "invented A" })])
+ */
 export function writeSpectraCsv(
   path: string,
   spectra: readonly Spectrum[],

@@ -18,8 +18,16 @@ export interface ScaleDecision {
 export const PERCENT_THRESHOLD = 1.5;
 
 /**
- * Decides the scale: the stated one, or inferred (largest value above 1.5 → percent, otherwise fraction) and said so.
- * An inferred scale is worth confirming by stating `scale` (percent values of a very dark sample read as fractions).
+ * Decides whether a file's values are percent or fractions: the stated scale, or inferred (largest value above 1.5 → percent) and said so.
+ *
+ * An inferred scale is worth confirming by stating it (percent values of a very dark sample read as fractions).
+ *
+ * @param values The values.
+ * @param stated "fraction", "percent", or "auto"/undefined to infer (the default when absent).
+ * @param what What the values are, for the statement ("transmittance").
+ * @returns { scale, inferred, statement (a sentence for the report) }.
+ * @source none: the 1.5 threshold is common practice with no source.
+ * @example decideValueScale([12, 45, 88], "auto", "transmittance")
  */
 export function decideValueScale(
   values: Iterable<number>,

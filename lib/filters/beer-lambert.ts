@@ -8,7 +8,15 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum, requireNonNegative, requirePositive } from "./checks.ts";
 import { externalTransmittance, internalTransmittance, type PlateOptions } from "./plate.ts";
 
-/** τᵢ raised to the path ratio: τᵢ' = τᵢ^ratio (Beer–Lambert; ratio = new path × concentration over the old). */
+/**
+ * Internal transmittance raised to a Beer–Lambert path ratio, τᵢ′ = τᵢ^ratio.
+ *
+ * @param internal The internal transmittance τᵢ, a fraction 0–1.
+ * @param ratio The ratio (new thickness × concentration) ÷ (old), 0 or more.
+ * @returns τᵢ′, a fraction.
+ * @source IUPAC Gold Book, "Beer–Lambert law".
+ * @example scaleInternalValue(0.5, 2)
+ */
 export function scaleInternalValue(internal: number, ratio: number): number {
   requireFraction(internal, "internal transmittance");
   requireNonNegative(ratio, "Beer–Lambert path ratio");
@@ -23,7 +31,14 @@ export interface PathChange {
   concentration?: readonly [number, number];
 }
 
-/** The Beer–Lambert ratio (d₂/d₁)·(c₂/c₁) of a change of thickness and/or concentration. */
+/**
+ * The Beer–Lambert ratio (d₂ ÷ d₁)·(c₂ ÷ c₁) of a change of thickness and/or concentration.
+ *
+ * @param change { thickness?: [from, to], concentration?: [from, to] }, each pair in one unit of your choice; at least one pair; a missing pair counts as unchanged.
+ * @returns The ratio, dimensionless.
+ * @source IUPAC Gold Book, "Beer–Lambert law".
+ * @example pathRatio({ thickness: [2, 3] })
+ */
 export function pathRatio(change: PathChange): number {
   let ratio = 1;
   for (const key of ["thickness", "concentration"] as const) {
@@ -41,7 +56,18 @@ export function pathRatio(change: PathChange): number {
   return ratio;
 }
 
-/** Internal transmittance spectrum scaled to another thickness and/or concentration (Beer–Lambert: τᵢ^ratio). */
+/**
+ * Internal transmittance spectrum scaled to another thickness and/or concentration by the Beer–Lambert law, τᵢ^ratio.
+ *
+ * Only internal transmittance scales this way; for a measured (external) one use `scaleFilterTransmittance`.
+ *
+ * @param internal The internal transmittance spectrum, fractions 0–1.
+ * @param change { thickness?: [from, to], concentration?: [from, to] }, or the ratio itself as a number.
+ * @param name The result's name; default "<input> ×<ratio> path".
+ * @returns A "transmittance" `Spectrum`.
+ * @source IUPAC Gold Book, "Beer–Lambert law".
+ * @example scaleInternalTransmittance(spectrumOnGrid(400, 100, [0.9, 0.5, 0.2]), { thickness: [1, 2] })
+ */
 export function scaleInternalTransmittance(
   internal: Spectrum,
   change: PathChange | number,
@@ -65,8 +91,13 @@ export function scaleInternalTransmittance(
 }
 
 /**
- * A measured (external) filter transmittance at another thickness/concentration: surface reflections removed with
- * the plate relation, the bulk scaled by Beer–Lambert, and the surfaces put back (Hecht §4.6; IUPAC Gold Book).
+ * A measured (external) filter transmittance at another thickness or concentration: surface reflections removed with the plate relation, the bulk scaled by Beer–Lambert, and the surfaces put back.
+ *
+ * @param external The measured external transmittance spectrum, fractions 0–1.
+ * @param change { thickness?: [from, to], concentration?: [from, to] }.
+ * @returns A "transmittance" `Spectrum`, named `options.name` or "<input> (rescaled)".
+ * @source E. Hecht, Optics, 5th ed., §4.6 (plate relation); IUPAC Gold Book, "Beer–Lambert law".
+ * @example scaleFilterTransmittance(spectrumOnGrid(400, 100, [0.8, 0.5, 0.2]), { thickness: [2, 3] }, { refractiveIndex: 1.52 })
  */
 export function scaleFilterTransmittance(
   external: Spectrum,

@@ -28,7 +28,16 @@ export interface FilterElement {
   readonly refractiveIndex: RefractiveIndex;
 }
 
-/** A filter element from its internal transmittance (fractions) and refractive index (required). */
+/**
+ * One element of a filter stack, from its internal transmittance and refractive index (required, never assumed).
+ *
+ * @param internal The internal (bulk) transmittance spectrum, fractions 0–1.
+ * @param options.refractiveIndex The element's refractive index: a number, or a dispersion spectrum n(λ) covering the data (required).
+ * @param options.name The element's name; default the spectrum's name.
+ * @returns A `FilterElement` for `stackTransmittance`.
+ * @source none: a tristim data structure (used with the plate relation of Hecht, Optics §4.6).
+ * @example filterElement(spectrumOnGrid(400, 100, [0.9, 0.6, 0.3]), { refractiveIndex: 1.52, name: "invented amber glass" })
+ */
 export function filterElement(
   internal: Spectrum,
   options: { refractiveIndex: RefractiveIndex; name?: string },
@@ -53,7 +62,17 @@ export function filterElement(
   };
 }
 
-/** A filter element from a measured external transmittance: the surface reflections are removed first (plate relation). */
+/**
+ * A filter-stack element from a measured external transmittance: the surface reflections are removed first (plate relation).
+ *
+ * @param external The measured external transmittance spectrum, fractions 0–1.
+ * @param options.refractiveIndex The element's refractive index: a number or a dispersion spectrum n(λ) (required).
+ * @param options.name The element's name; default the spectrum's name.
+ * @param options.aboveClearPlate A value above the clear-plate limit: "error" (default) or "clip" to internal transmittance 1.
+ * @returns A `FilterElement`.
+ * @source E. Hecht, Optics, 5th ed., §4.6 (plate relation solved for the internal transmittance).
+ * @example filterElementFromMeasurement(spectrumOnGrid(400, 100, [0.8, 0.6, 0.3]), { refractiveIndex: 1.5 })
+ */
 export function filterElementFromMeasurement(
   external: Spectrum,
   options: { refractiveIndex: RefractiveIndex; name?: string; aboveClearPlate?: "error" | "clip" },
@@ -79,7 +98,21 @@ const JOIN_WORDS: Record<StackJoin, string> = {
     "as separate plates in air with the light reflected back and forth between the elements summed (adding relation for incoherent layers)",
 };
 
-/** Transmittance of filters in series for the chosen kind of join (formulas in the file header). */
+/**
+ * Transmittance of filters in series for the chosen kind of join.
+ *
+ * "no surface losses": the product of internal transmittances; "cemented": index-matched joins, reflection only at
+ * the two outer faces with multiple reflections between them, T = (1 − ρa)(1 − ρb)Πτᵢ ÷ (1 − ρaρb(Πτᵢ)²); "air gaps":
+ * each element a plate in air, light reflected between elements lost; "air gaps with interreflection": the light
+ * reflected back and forth between elements summed, T₁₂ = T₁T₂ ÷ (1 − R₁′R₂).
+ *
+ * @param elements The stack's elements (from `filterElement`), on the same wavelengths.
+ * @param options.join "no surface losses", "cemented", "air gaps" or "air gaps with interreflection" (required).
+ * @param options.name The result's name; default the elements' names joined by " + ".
+ * @returns A "transmittance" `Spectrum`.
+ * @source Fresnel equations and plate relation (Hecht, Optics, 5th ed., §4.6); adding relation for incoherent layers (Stokes 1862; Kubelka 1954).
+ * @example stackTransmittance([filterElement(spectrumOnGrid(400, 100, [0.9, 0.8, 0.7]), { refractiveIndex: 1.5 }), filterElement(spectrumOnGrid(400, 100, [0.5, 0.6, 0.9]), { refractiveIndex: 1.5 })], { join: "air gaps" })
+ */
 export function stackTransmittance(
   elements: readonly FilterElement[],
   options: { join: StackJoin; name?: string },

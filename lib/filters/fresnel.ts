@@ -10,7 +10,15 @@ import { requireFinite } from "./checks.ts";
 /** A refractive index: one number for all wavelengths, or a dispersion curve (a spectrum of n against wavelength). */
 export type RefractiveIndex = number | Spectrum;
 
-/** Reflectance of one surface at normal incidence, ρ = ((n − n₀)/(n + n₀))² (Fresnel; Hecht, Optics §4.6.2). */
+/**
+ * Reflectance of one smooth surface at normal incidence, ρ = ((n − n₀) ÷ (n + n₀))².
+ *
+ * @param index The refractive index n of the material (at least 1).
+ * @param outsideIndex The refractive index n₀ of the surrounding medium; default 1 (air).
+ * @returns ρ as a fraction.
+ * @source Fresnel equations at 0°; E. Hecht, Optics, 5th ed., §4.6.2.
+ * @example surfaceReflectance(1.5)
+ */
 export function surfaceReflectance(index: number, outsideIndex = 1): number {
   requireFinite(index, "refractive index");
   requireFinite(outsideIndex, "refractive index of the surrounding medium");
@@ -22,7 +30,15 @@ export function surfaceReflectance(index: number, outsideIndex = 1): number {
   return ((index - outsideIndex) / (index + outsideIndex)) ** 2;
 }
 
-/** The refractive index at each wavelength: a constant, or a dispersion curve read by interpolation (no extrapolation). */
+/**
+ * The refractive index at each wavelength: a constant, or a dispersion curve read by interpolation (no extrapolation).
+ *
+ * @param index A refractive index: a number, or a spectrum of n against wavelength.
+ * @param wavelengths Wavelengths in nm (inside the curve's range).
+ * @returns n at each wavelength.
+ * @source none: a tristim helper; CIE 167:2005 interpolation of the curve.
+ * @example indexAtWavelengths(spectrumOnGrid(400, 100, [1.53, 1.52, 1.515]), [450, 550])
+ */
 export function indexAtWavelengths(index: RefractiveIndex, wavelengths: readonly number[]): number[] {
   if (typeof index === "number") {
     requireFinite(index, "refractive index");
@@ -32,7 +48,16 @@ export function indexAtWavelengths(index: RefractiveIndex, wavelengths: readonly
   return wavelengths.map((w) => read(w));
 }
 
-/** Surface reflectance at normal incidence at each wavelength (Fresnel; Hecht, Optics §4.6.2). */
+/**
+ * Surface reflectance at normal incidence at each wavelength, from a constant index or a dispersion curve.
+ *
+ * @param index A refractive index: a number, or a spectrum of n against wavelength.
+ * @param wavelengths Wavelengths in nm.
+ * @param outsideIndex The refractive index of the surrounding medium; default 1 (air).
+ * @returns ρ at each wavelength, as fractions.
+ * @source Fresnel equations at 0°; E. Hecht, Optics, 5th ed., §4.6.2.
+ * @example surfaceReflectanceAt(1.52, [450, 550, 650])
+ */
 export function surfaceReflectanceAt(
   index: RefractiveIndex,
   wavelengths: readonly number[],
@@ -45,7 +70,14 @@ export function surfaceReflectanceAt(
   return indexAtWavelengths(index, wavelengths).map((n) => surfaceReflectance(n, outsideIndex));
 }
 
-/** A short description of an index for names and method notes. */
+/**
+ * A short description of a refractive index for names and Methods statements ("n = 1.5" or "n(λ) from "name"").
+ *
+ * @param index A refractive index: a number or a dispersion spectrum.
+ * @returns The description.
+ * @source none: a tristim helper, no published formula.
+ * @example describeRefractiveIndex(1.5)
+ */
 export function describeRefractiveIndex(index: RefractiveIndex): string {
   return typeof index === "number" ? `n = ${index}` : `n(λ) from "${index.name}"`;
 }

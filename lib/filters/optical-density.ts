@@ -3,7 +3,14 @@ import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFinite, requireFraction } from "./checks.ts";
 
-/** D = −log₁₀ T for a transmittance fraction T > 0 (ISO 5-1 transmission density). */
+/**
+ * Optical density (decadic), D = −log₁₀ T, of a transmittance; zero transmittance is an error. For a spectrum use `opticalDensitySpectrum`.
+ *
+ * @param transmittance The transmittance T, a fraction, above 0 and at most 1.
+ * @returns D, dimensionless (0 for T = 1).
+ * @source ISO 5-1 (transmission density).
+ * @example opticalDensity(0.01)
+ */
 export function opticalDensity(transmittance: number): number {
   requireFraction(transmittance, "transmittance");
   if (transmittance === 0)
@@ -13,7 +20,14 @@ export function opticalDensity(transmittance: number): number {
   return -Math.log10(transmittance);
 }
 
-/** T = 10^−D (ISO 5-1 transmission density, inverted). */
+/**
+ * Transmittance from an optical density, T = 10^−D.
+ *
+ * @param density The optical density D, 0 or more.
+ * @returns T, a fraction.
+ * @source ISO 5-1 (transmission density), inverted.
+ * @example transmittanceFromDensity(2)
+ */
 export function transmittanceFromDensity(density: number): number {
   requireFinite(density, "optical density");
   if (density < 0)
@@ -21,7 +35,14 @@ export function transmittanceFromDensity(density: number): number {
   return 10 ** -density;
 }
 
-/** Optical density at each wavelength, D(λ) = −log₁₀ T(λ); a zero transmittance is an error naming its wavelength. */
+/**
+ * Optical density at each wavelength, D(λ) = −log₁₀ T(λ); a zero transmittance is an error naming its wavelength.
+ *
+ * @param transmittance A transmittance spectrum, fractions above 0.
+ * @returns An "optical density" `Spectrum` with the same name.
+ * @source ISO 5-1 (transmission density).
+ * @example opticalDensitySpectrum(spectrumOnGrid(400, 100, [0.5, 0.1, 0.01]))
+ */
 export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = transmittance.values.map((t, i) => {
@@ -39,7 +60,14 @@ export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
   });
 }
 
-/** Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ). */
+/**
+ * Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ).
+ *
+ * @param density An optical density spectrum, values 0 or more.
+ * @returns A "transmittance" `Spectrum` with the same name.
+ * @source ISO 5-1 (transmission density), inverted.
+ * @example transmittanceFromDensitySpectrum(spectrumOnGrid(400, 100, [0.3, 1, 2]))
+ */
 export function transmittanceFromDensitySpectrum(density: Spectrum): Spectrum {
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = density.values.map((d, i) => {

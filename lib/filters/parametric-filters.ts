@@ -19,11 +19,21 @@ export interface EdgeShape {
   floor?: number;
   /** Distance in nm over which the edge rises from 10 % to 90 % of its step; 0 (default) gives an ideal, sharp edge. */
   edgeWidth?: number;
+  /** Wavelengths { start, end, step } in nm; default `PARAMETRIC_GRID`, 360–830 nm every 1 nm. */
   grid?: WavelengthGrid;
+  /** The spectrum's name; default a description such as "long-pass 500 nm". */
   name?: string;
 }
 
-/** Logistic step rising through 0.5 at x = 0 with 10–90 % width w: 1/(1 + exp(−x·2ln9/w)); a unit step when w = 0. */
+/**
+ * A logistic step rising through 0.5 at x = 0 with a 10 %–90 % width w: 1 ÷ (1 + exp(−x·2 ln 9 ÷ w)); a unit step when w = 0.
+ *
+ * @param x The distance from the edge, in nm (positive on the passing side).
+ * @param edgeWidth The 10 %–90 % width w, in nm (0 for a sharp edge).
+ * @returns A value 0–1.
+ * @source none: a logistic edge shape, common practice with no source.
+ * @example logisticEdge(5, 10)
+ */
 export function logisticEdge(x: number, edgeWidth: number): number {
   if (edgeWidth === 0) return x >= 0 ? 1 : 0;
   return 1 / (1 + Math.exp((-x * 2 * Math.log(9)) / edgeWidth));
@@ -47,7 +57,14 @@ function shape(options: EdgeShape): {
   return { peak, floor, edgeWidth, wavelengths: gridWavelengths(options.grid ?? PARAMETRIC_GRID) };
 }
 
-/** A long-pass filter: blocks below `edge` nm (its 50 % point) and passes above (logistic edge; common practice, no source). */
+/**
+ * A parametric long-pass filter (modelled, not measured): blocks below `edge` nm, its 50 % point, and passes above.
+ *
+ * @param edge The 50 % wavelength, in nm.
+ * @returns A "transmittance" `Spectrum`, named `options.name` or "long-pass <edge> nm".
+ * @source none: a logistic edge, common practice with no source.
+ * @example longPassFilter(500, { edgeWidth: 20 })
+ */
 export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "long-pass edge wavelength (nm)");
   const s = shape(options);
@@ -61,7 +78,14 @@ export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum 
   );
 }
 
-/** A short-pass filter: passes below `edge` nm (its 50 % point) and blocks above (logistic edge; common practice, no source). */
+/**
+ * A parametric short-pass filter (modelled, not measured): passes below `edge` nm, its 50 % point, and blocks above.
+ *
+ * @param edge The 50 % wavelength, in nm.
+ * @returns A "transmittance" `Spectrum`, named `options.name` or "short-pass <edge> nm".
+ * @source none: a logistic edge, common practice with no source.
+ * @example shortPassFilter(600, { edgeWidth: 15, floor: 0.01 })
+ */
 export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
   requirePositive(edge, "short-pass edge wavelength (nm)");
   const s = shape(options);
@@ -76,8 +100,13 @@ export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum
 }
 
 /**
- * A band-pass filter centred on `centre` nm with full width `width` nm between its 50 % points: the product of a
- * long-pass and a short-pass edge (ideal when edgeWidth is 0; common practice, no source).
+ * A parametric band-pass filter (modelled, not measured): the product of a long-pass and a short-pass edge.
+ *
+ * @param centre The centre wavelength, in nm.
+ * @param width The full width between the 50 % points, in nm.
+ * @returns A "transmittance" `Spectrum`, named `options.name` or "band-pass <centre>/<width> nm".
+ * @source none: logistic edges, common practice with no source.
+ * @example bandPassFilter(550, 40, { edgeWidth: 10, peak: 0.9 })
  */
 export function bandPassFilter(centre: number, width: number, options: EdgeShape = {}): Spectrum {
   requirePositive(centre, "band-pass centre wavelength (nm)");
@@ -95,7 +124,16 @@ export function bandPassFilter(centre: number, width: number, options: EdgeShape
   );
 }
 
-/** A neutral density filter: T = 10^−D at every wavelength (ISO 5-1 transmission density). */
+/**
+ * A parametric neutral density filter: T = 10^−D at every wavelength.
+ *
+ * @param density The optical density D, 0 or more.
+ * @param options.grid Wavelengths { start, end, step } in nm; default `PARAMETRIC_GRID`, 360–830 nm every 1 nm.
+ * @param options.name The spectrum's name; default "ND <density>".
+ * @returns A "transmittance" `Spectrum`.
+ * @source ISO 5-1 (transmission density).
+ * @example neutralDensityFilter(0.3, { grid: { start: 380, end: 780, step: 5 } })
+ */
 export function neutralDensityFilter(
   density: number,
   options: { grid?: WavelengthGrid; name?: string } = {},
@@ -114,8 +152,14 @@ export function neutralDensityFilter(
 }
 
 /**
- * Internal transmittance of an absorbing dye layer from its decadic absorbance curve A(λ) (measured at some
- * reference concentration and path): τᵢ = 10^(−amount·A), `amount` = (c·d)/(c_ref·d_ref) (Beer–Lambert, IUPAC Gold Book).
+ * Internal transmittance of an absorbing dye layer from its decadic absorbance curve, τᵢ = 10^(−amount·A).
+ *
+ * @param absorbance The decadic absorbance A(λ) at a reference concentration and path, 0 or more.
+ * @param options.amount (c·d) ÷ (c_ref·d_ref), relative concentration × path, 0 or more; default 1.
+ * @param options.name The spectrum's name; default "<absorbance> ×<amount>".
+ * @returns A "transmittance" `Spectrum` (internal transmittance).
+ * @source IUPAC Gold Book, "Beer–Lambert law".
+ * @example dyeFilter(spectrumOnGrid(400, 50, [0.1, 0.8, 1.2, 0.4, 0.05]), { amount: 0.5 })
  */
 export function dyeFilter(absorbance: Spectrum, options: { amount?: number; name?: string } = {}): Spectrum {
   const amount = requireNonNegative(options.amount ?? 1, "dye amount (relative concentration × path)");

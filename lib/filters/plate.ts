@@ -10,7 +10,15 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum } from "./checks.ts";
 import { describeRefractiveIndex, surfaceReflectanceAt, type RefractiveIndex } from "./fresnel.ts";
 
-/** External transmittance of a plate with internal transmittance τᵢ and face reflectance ρ: (1 − ρ)²τᵢ/(1 − ρ²τᵢ²) (Hecht, Optics §4.6). */
+/**
+ * External transmittance of a plate in air from its internal transmittance and face reflectance, T = (1 − ρ)²τᵢ ÷ (1 − ρ²τᵢ²).
+ *
+ * @param internal The internal transmittance τᵢ, a fraction 0–1.
+ * @param faceReflectance The reflectance ρ of each face, a fraction 0–1.
+ * @returns T, a fraction.
+ * @source Plate relation with incoherent multiple reflections; E. Hecht, Optics, 5th ed., §4.6.
+ * @example externalFromInternal(0.8, surfaceReflectance(1.5))
+ */
 export function externalFromInternal(internal: number, faceReflectance: number): number {
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
@@ -18,7 +26,15 @@ export function externalFromInternal(internal: number, faceReflectance: number):
   return ((1 - r) ** 2 * internal) / (1 - r * r * internal * internal);
 }
 
-/** Reflectance of a plate (both faces and the light returned through the bulk): ρ + ρ(1 − ρ)²τᵢ²/(1 − ρ²τᵢ²) (Hecht, Optics §4.6). */
+/**
+ * Reflectance of a plate in air (both faces and the light returned through the bulk), R = ρ + ρ(1 − ρ)²τᵢ² ÷ (1 − ρ²τᵢ²).
+ *
+ * @param internal The internal transmittance τᵢ, a fraction 0–1.
+ * @param faceReflectance The reflectance ρ of each face, a fraction 0–1.
+ * @returns R, a fraction.
+ * @source Plate relation with incoherent multiple reflections; E. Hecht, Optics, 5th ed., §4.6.
+ * @example plateReflectanceValue(1, surfaceReflectance(1.5))
+ */
 export function plateReflectanceValue(internal: number, faceReflectance: number): number {
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
@@ -27,7 +43,14 @@ export function plateReflectanceValue(internal: number, faceReflectance: number)
   return r + (r * (1 - r) ** 2 * t2) / (1 - r * r * t2);
 }
 
-/** The largest external transmittance a non-absorbing plate can have: (1 − ρ)/(1 + ρ) (τᵢ = 1 in the plate relation). */
+/**
+ * The largest external transmittance a non-absorbing plate can have, (1 − ρ) ÷ (1 + ρ) (τᵢ = 1 in the plate relation).
+ *
+ * @param faceReflectance The reflectance ρ of each face, a fraction 0–1.
+ * @returns T of a clear plate, a fraction (2n ÷ (n² + 1) for index n).
+ * @source Plate relation; E. Hecht, Optics, 5th ed., §4.6.
+ * @example clearPlateTransmittance(surfaceReflectance(1.5))
+ */
 export function clearPlateTransmittance(faceReflectance: number): number {
   requireFraction(faceReflectance, "face reflectance");
   return (1 - faceReflectance) / (1 + faceReflectance);
@@ -37,8 +60,14 @@ export function clearPlateTransmittance(faceReflectance: number): number {
 export type AboveClearPlate = "error" | "clip";
 
 /**
- * Internal transmittance from a measured external one: the positive root of ρ²T τᵢ² + (1 − ρ)² τᵢ − T = 0
- * (the plate relation of Hecht, Optics §4.6, solved for τᵢ).
+ * Internal transmittance from a measured external one: the positive root of ρ²T τᵢ² + (1 − ρ)² τᵢ − T = 0.
+ *
+ * @param external The measured external transmittance T, a fraction 0–1.
+ * @param faceReflectance The reflectance ρ of each face, a fraction 0–1.
+ * @param above What to do with T above the clear-plate limit: "error" (default) or "clip" to τᵢ = 1.
+ * @returns τᵢ, a fraction 0–1.
+ * @source The plate relation of E. Hecht, Optics, 5th ed., §4.6, solved for τᵢ.
+ * @example internalFromExternal(0.7, surfaceReflectance(1.5))
  */
 export function internalFromExternal(
   external: number,
@@ -66,6 +95,7 @@ export function internalFromExternal(
 export interface PlateOptions {
   /** Refractive index of the plate (a number, or a dispersion curve n(λ)); required, never assumed. */
   refractiveIndex: RefractiveIndex;
+  /** The result's name; default the input spectrum's name (with " (reflectance)" or " (rescaled)" where a function says so). */
   name?: string;
 }
 
@@ -90,7 +120,14 @@ function notePlate(index: RefractiveIndex): void {
   );
 }
 
-/** External transmittance of a plate from its internal transmittance spectrum (plate relation, Hecht §4.6). */
+/**
+ * External transmittance spectrum of a plate in air from its internal transmittance (plate relation at each wavelength).
+ *
+ * @param internal The internal transmittance spectrum, fractions 0–1.
+ * @returns A "transmittance" `Spectrum` named `options.name` or the input's name.
+ * @source Fresnel equations and the plate relation; E. Hecht, Optics, 5th ed., §4.6.
+ * @example externalTransmittance(spectrumOnGrid(400, 100, [0.9, 0.8, 0.7]), { refractiveIndex: 1.5 })
+ */
 export function externalTransmittance(internal: Spectrum, options: PlateOptions): Spectrum {
   const index = requireIndex(options, "externalTransmittance");
   requireFractionSpectrum(internal, "internal transmittance");
@@ -106,7 +143,14 @@ export function externalTransmittance(internal: Spectrum, options: PlateOptions)
   );
 }
 
-/** Internal transmittance from a measured external transmittance spectrum (plate relation solved for τᵢ). */
+/**
+ * Internal transmittance spectrum from a measured external transmittance (plate relation solved for τᵢ at each wavelength).
+ *
+ * @param external The measured external transmittance spectrum, fractions 0–1.
+ * @returns A "transmittance" `Spectrum` named `options.name` or the input's name.
+ * @source Fresnel equations and the plate relation; E. Hecht, Optics, 5th ed., §4.6.
+ * @example internalTransmittance(spectrumOnGrid(400, 100, [0.8, 0.7, 0.6]), { refractiveIndex: 1.5 })
+ */
 export function internalTransmittance(external: Spectrum, options: InternalOptions): Spectrum {
   const index = requireIndex(options, "internalTransmittance");
   requireFractionSpectrum(external, "external transmittance");
@@ -125,7 +169,14 @@ export function internalTransmittance(external: Spectrum, options: InternalOptio
   });
 }
 
-/** Reflectance spectrum of a plate from its internal transmittance (plate relation, Hecht §4.6). */
+/**
+ * Reflectance spectrum of a plate in air from its internal transmittance (both faces and the light returned through the bulk).
+ *
+ * @param internal The internal transmittance spectrum, fractions 0–1.
+ * @returns A "reflectance" `Spectrum`, named `options.name` or "<input> (reflectance)".
+ * @source Fresnel equations and the plate relation; E. Hecht, Optics, 5th ed., §4.6.
+ * @example plateReflectance(spectrumOnGrid(400, 100, [1, 1, 1]), { refractiveIndex: 1.5 })
+ */
 export function plateReflectance(internal: Spectrum, options: PlateOptions): Spectrum {
   const index = requireIndex(options, "plateReflectance");
   requireFractionSpectrum(internal, "internal transmittance");

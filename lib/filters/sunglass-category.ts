@@ -43,7 +43,18 @@ export const SUNGLASS_CATEGORY_LIMITS: ReadonlyArray<{
   { category: 4, above: 0.03, upTo: 0.08, description: "very dark tint" },
 ];
 
-/** The category of a filter from its luminous transmittance τv as a fraction (ISO 12312-1:2013 Table 1; informative only). */
+/**
+ * The filter category 0–4 of a sunglass-type filter from its luminous transmittance (informative only: the result always carries a caution).
+ *
+ * Limits (as fractions, category k covers above … up to): 0: 0.80–1, 1: 0.43–0.80, 2: 0.18–0.43, 3: 0.08–0.18,
+ * 4: 0.03–0.08; at or below 0.03 the category is null. Eye protection is decided by the standard and accredited
+ * testing, never by this tool.
+ *
+ * @param luminousTransmittance τv (D65, CIE 1931 2° observer), a fraction 0–1.
+ * @returns { category (0–4 or null), luminousTransmittance, range, description, notes, basis, caution }.
+ * @source ISO 12312-1:2013 Table 1 (limits recalled from memory, not transcribed from the standard).
+ * @example sunglassCategory(0.12).category
+ */
 export function sunglassCategory(luminousTransmittance: number): SunglassCategory {
   const tv = requireFraction(luminousTransmittance, "luminous transmittance τv");
   noteMethod(

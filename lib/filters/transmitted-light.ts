@@ -41,7 +41,14 @@ export interface TransmittedLight {
 
 type LightOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "interval">;
 
-/** τv, xy, u′v′, dominant wavelength and purity of the light a filter transmits from a source (default D65, 2°). */
+/**
+ * The light a filter passes from a source: τv, XYZ, xy, u′v′, and dominant wavelength and purity against the source's own white; with a safety caution.
+ *
+ * @param filter A transmittance spectrum, fractions 0–1.
+ * @returns { luminousTransmittance (fraction), XYZ (Y = 100 τv), xy, uvPrime, white (xy), dominantWavelength (nm or null), complementary, purity, illuminant, notes, caution }.
+ * @source ISO/CIE 11664-3 and CIE 015:2018 §7.1 (τv); CIE 015:2018 §9.1–9.2 (dominant wavelength, purity).
+ * @example transmittedLight(bandPassFilter(590, 60, { edgeWidth: 10 }), { illuminant: "A" }).dominantWavelength
+ */
 export function transmittedLight(filter: Spectrum, options: LightOptions = {}): TransmittedLight {
   if (filter?.kind !== "spectrum")
     throw new Error("transmittedLight: give the filter's transmittance spectrum");
@@ -92,7 +99,14 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
   };
 }
 
-/** The ISO 12312-1 category of a filter from its spectral transmittance: τv under D65 with the 2° observer, then sunglassCategory (informative only, with its caution). */
+/**
+ * The sunglass category of a filter from its spectral transmittance: τv under D65 with the 2° observer, then `sunglassCategory` (informative only, with its caution).
+ *
+ * @param filter A transmittance spectrum, fractions 0–1.
+ * @returns The `SunglassCategory` result with its caution.
+ * @source ISO/CIE 11664-3 (τv); ISO 12312-1:2013 Table 1 (limits recalled from memory).
+ * @example filterSunglassCategory(neutralDensityFilter(1)).category
+ */
 export function filterSunglassCategory(filter: Spectrum): SunglassCategory {
   requireFractionSpectrum(filter, "transmittance");
   return sunglassCategory(luminousTransmittance(filter, { illuminant: "D65" }));

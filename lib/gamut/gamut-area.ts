@@ -97,7 +97,15 @@ function ccw(p: Point[]): Point[] {
   return signedArea(p) < 0 ? [...p].reverse() : p;
 }
 
-/** Area of a gamut polygon in the xy or u′v′ diagram (shoelace formula). */
+/**
+ * Area of a gamut polygon in the CIE 1931 xy or CIE 1976 u′v′ diagram (shoelace formula).
+ *
+ * @param gamut The primaries' chromaticities { x, y } in order round the polygon (3 or more), or an `RgbSpace`.
+ * @param diagram "xy" or "u′v′" (also "u'v'"); default "xy".
+ * @returns The area in the diagram's units (dimensionless).
+ * @source none: the shoelace formula for a polygon's area, no colour-science source.
+ * @example gamutArea(rgbSpace("sRGB"))
+ */
 export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const p = toDiagram(verticesOf(gamut, "gamutArea"), diagram);
   noteMethod(
@@ -107,7 +115,16 @@ export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): nu
   return Math.abs(signedArea(p));
 }
 
-/** Area of the overlap of two gamut polygons in the xy or u′v′ diagram; at least one of them must be convex. */
+/**
+ * Area of the overlap of two gamut polygons in the xy or u′v′ diagram; at least one of them must be convex.
+ *
+ * @param a A gamut: chromaticities { x, y } in order round the polygon, or an `RgbSpace`.
+ * @param b Another gamut.
+ * @param diagram "xy" or "u′v′"; default "xy".
+ * @returns The overlap's area (dimensionless), 0 when they do not overlap.
+ * @source I. E. Sutherland, G. W. Hodgman, "Reentrant polygon clipping", Comm. ACM 17(1):32–42, 1974.
+ * @example gamutIntersectionArea(rgbSpace("sRGB"), rgbSpace("Display P3"), "u′v′")
+ */
 export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const pa = ccw(toDiagram(verticesOf(a, "gamut intersection (first gamut)"), diagram));
   const pb = ccw(toDiagram(verticesOf(b, "gamut intersection (second gamut)"), diagram));
@@ -122,8 +139,14 @@ export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityD
 }
 
 /**
- * Coverage of a reference gamut by a device gamut in percent: 100 × area(device ∩ reference) / area(reference),
- * in the xy or u′v′ diagram.
+ * Coverage of a reference gamut by a device gamut, in percent: 100 × area(device ∩ reference) ÷ area(reference).
+ *
+ * @param device The device's gamut: chromaticities in order round the polygon, or an `RgbSpace`.
+ * @param reference The reference gamut (with a positive area).
+ * @param diagram "xy" or "u′v′"; default "xy".
+ * @returns The coverage in percent, 0–100.
+ * @source Sutherland & Hodgman, Comm. ACM 17(1):32–42, 1974 (polygon clipping); the ratio itself is common practice with no source.
+ * @example gamutCoverage(rgbSpace("sRGB"), rgbSpace("BT.2020"))
  */
 export function gamutCoverage(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const ref = Math.abs(signedArea(toDiagram(verticesOf(reference, "gamutCoverage (reference)"), diagram)));
@@ -135,7 +158,16 @@ export function gamutCoverage(device: Gamut, reference: Gamut, diagram: Chromati
   return (100 * gamutIntersectionArea(device, reference, diagram)) / ref;
 }
 
-/** Area of a device gamut relative to a reference gamut in percent (100 × area ratio, which may exceed 100). */
+/**
+ * Area of a device gamut relative to a reference gamut, in percent (100 × area ratio, which may exceed 100).
+ *
+ * @param device The device's gamut: chromaticities in order round the polygon, or an `RgbSpace`.
+ * @param reference The reference gamut (with a positive area).
+ * @param diagram "xy" or "u′v′"; default "xy".
+ * @returns 100 × area(device) ÷ area(reference), in percent.
+ * @source none: a ratio of polygon areas (shoelace formula), common practice with no source.
+ * @example gamutAreaRatio(rgbSpace("Display P3"), rgbSpace("sRGB"))
+ */
 export function gamutAreaRatio(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
   const ref = gamutArea(reference, diagram);
   if (!(ref > 0)) throw new Error("gamutAreaRatio: the reference gamut has no area");

@@ -12,7 +12,16 @@ import {
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
-/** R = a·R_s + (1 − a)·R_p for one wavelength or a filtered (e.g. densitometric) reflectance (Murray 1936). */
+/**
+ * Murray–Davies reflectance of a halftone at one wavelength (or a filtered, e.g. densitometric, reflectance): R = a·R_solid + (1 − a)·R_paper.
+ *
+ * @param coverage The dot coverage a, a fraction 0–1.
+ * @param solid The solid ink's reflectance, a fraction.
+ * @param paper The bare paper's reflectance, a fraction.
+ * @returns R, a fraction.
+ * @source A. Murray, J. Franklin Inst. 221:721, 1936.
+ * @example murrayDaviesValue(0.4, 0.05, 0.9)
+ */
 export function murrayDaviesValue(coverage: number, solid: number, paper: number): number {
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
@@ -20,7 +29,17 @@ export function murrayDaviesValue(coverage: number, solid: number, paper: number
   return coverage * solid + (1 - coverage) * paper;
 }
 
-/** Spectral Murray–Davies: R(λ) = a·R_solid(λ) + (1 − a)·R_paper(λ) (Murray 1936). */
+/**
+ * Spectral Murray–Davies reflectance of a halftone: R(λ) = a·R_solid(λ) + (1 − a)·R_paper(λ).
+ *
+ * @param coverage The dot coverage a, a fraction 0–1.
+ * @param solid The solid ink's reflectance spectrum, fractions.
+ * @param paper The paper's reflectance spectrum on the same wavelengths.
+ * @param name The result's name; default "<solid> at <a·100> %".
+ * @returns A "reflectance" `Spectrum`.
+ * @source A. Murray, J. Franklin Inst. 221:721, 1936.
+ * @example murrayDavies(0.5, spectrumOnGrid(400, 100, [0.6, 0.1, 0.05]), spectrumOnGrid(400, 100, [0.88, 0.9, 0.9]))
+ */
 export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum, name?: string): Spectrum {
   requireFraction(coverage, "dot coverage");
   requireFractionSpectrum(solid, "solid reflectance");
@@ -40,7 +59,15 @@ export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum,
   );
 }
 
-/** Tone value (effective dot area) from densities relative to paper: (1 − 10^(−D_t))/(1 − 10^(−D_s)) (Murray–Davies; ISO 12647-1). */
+/**
+ * Tone value (effective dot area) from densities relative to paper: (1 − 10^(−D_t)) ÷ (1 − 10^(−D_s)).
+ *
+ * @param tintDensity The tint's density relative to paper, D_t, 0 to D_s.
+ * @param solidDensity The solid's density relative to paper, D_s, above 0.
+ * @returns The tone value as a fraction 0–1.
+ * @source Murray–Davies (Murray 1936), in the form ISO 12647-1 uses for tone value.
+ * @example toneValueFromDensity(0.35, 1.4)
+ */
 export function toneValueFromDensity(tintDensity: number, solidDensity: number): number {
   requireFinite(tintDensity, "tint density");
   requireFinite(solidDensity, "solid density");

@@ -25,15 +25,26 @@ export interface InkCoverages {
 /** The ink letters in their fixed order; a primary's key lists its inks in this order ("paper" for none). */
 export const INK_ORDER = ["c", "m", "y", "k"] as const;
 
-/** The key of the Neugebauer primary printed with the given inks: "paper", "c", "cm", "cmy", "cmyk", ... */
+/**
+ * The key of the Neugebauer primary printed with the given inks: "paper", "c", "cm", "cmy", "cmyk", … (inks in the order c, m, y, k).
+ *
+ * @param inks The printed ink letters, any of "c", "m", "y", "k".
+ * @returns The key.
+ * @source none: a tristim naming convention.
+ * @example primaryKey(["y", "c"])
+ */
 export function primaryKey(inks: readonly string[]): string {
   const key = INK_ORDER.filter((i) => inks.includes(i)).join("");
   return key === "" ? "paper" : key;
 }
 
 /**
- * Demichel's areas: for each combination of the printed inks, the product of cᵢ for the inks present and (1 − cᵢ)
- * for the others (Demichel 1924). Keys as primaryKey; the areas sum to 1.
+ * Demichel's areas of the Neugebauer primaries for independently placed dots: for each combination of the printed inks, the product of cᵢ for the inks present and (1 − cᵢ) for the others.
+ *
+ * @param coverages { c?, m?, y?, k? }: ink coverages as fractions 0–1; leave out an ink that is not printed.
+ * @returns Areas by primary key (see `primaryKey`), summing to 1.
+ * @source M. E. Demichel, Procédé 26:17–21 and 26–27, 1924.
+ * @example demichelAreas({ c: 0.5, m: 0.2 })
  */
 export function demichelAreas(coverages: InkCoverages): Record<string, number> {
   const inks = INK_ORDER.filter((i) => coverages[i] !== undefined);
@@ -58,9 +69,15 @@ export function demichelAreas(coverages: InkCoverages): Record<string, number> {
 export type NeugebauerPrimaries = Readonly<Record<string, Spectrum>>;
 
 /**
- * Print reflectance by the spectral Neugebauer model: R(λ)^(1/n) = Σ aᵢ·Rᵢ(λ)^(1/n) over the primaries with
- * Demichel areas aᵢ (Neugebauer 1937; Demichel 1924); n = 1 (default) is the classical model, n > 1 its
- * Yule–Nielsen modification (Viggiano 1990).
+ * Print reflectance by the spectral Neugebauer model, R(λ)^(1/n) = Σ aᵢ·Rᵢ(λ)^(1/n) with Demichel areas aᵢ; n = 1 is the classical model, n > 1 its Yule–Nielsen modification.
+ *
+ * @param coverages { c?, m?, y?, k? }: ink coverages as fractions 0–1.
+ * @param primaries Reflectance spectra of the Neugebauer primaries by key ("paper", "c", "m", "cm", …), one grid; every combination of the printed inks is needed.
+ * @param options.n The Yule–Nielsen n factor, positive; default 1.
+ * @param options.name The result's name; default "print C50 M20 …".
+ * @returns A "reflectance" `Spectrum`.
+ * @source H. E. J. Neugebauer, Z. wiss. Photogr. 36:73, 1937; Demichel 1924; J. A. S. Viggiano, TAGA Proc. 1990 (n factor).
+ * @example neugebauerReflectance({ c: 0.5 }, { paper: spectrumOnGrid(400, 100, [0.9, 0.9, 0.9]), c: spectrumOnGrid(400, 100, [0.7, 0.5, 0.05]) }, { n: 1.7 })
  */
 export function neugebauerReflectance(
   coverages: InkCoverages,

@@ -12,7 +12,17 @@ import {
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
-/** R = (a·R_s^(1/n) + (1 − a)·R_p^(1/n))^n (Yule & Nielsen 1951). */
+/**
+ * Yule–Nielsen reflectance of a halftone at one wavelength: R = (a·R_s^(1/n) + (1 − a)·R_p^(1/n))^n.
+ *
+ * @param coverage The dot coverage a, a fraction 0–1.
+ * @param solid The solid ink's reflectance R_s, a fraction.
+ * @param paper The paper's reflectance R_p, a fraction.
+ * @param n The Yule–Nielsen n factor, positive (1 gives Murray–Davies).
+ * @returns R, a fraction.
+ * @source J. A. C. Yule, W. J. Nielsen, TAGA Proc. 1951, p. 65.
+ * @example yuleNielsenValue(0.4, 0.05, 0.9, 2)
+ */
 export function yuleNielsenValue(coverage: number, solid: number, paper: number, n: number): number {
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
@@ -21,7 +31,18 @@ export function yuleNielsenValue(coverage: number, solid: number, paper: number,
   return (coverage * solid ** (1 / n) + (1 - coverage) * paper ** (1 / n)) ** n;
 }
 
-/** Spectral Yule–Nielsen: R(λ) = (a·R_s(λ)^(1/n) + (1 − a)·R_p(λ)^(1/n))^n (Yule & Nielsen 1951). */
+/**
+ * Spectral Yule–Nielsen reflectance of a halftone: R(λ) = (a·R_s(λ)^(1/n) + (1 − a)·R_p(λ)^(1/n))^n.
+ *
+ * @param coverage The dot coverage a, a fraction 0–1.
+ * @param solid The solid ink's reflectance spectrum, fractions.
+ * @param paper The paper's reflectance spectrum on the same wavelengths.
+ * @param n The Yule–Nielsen n factor, positive.
+ * @param name The result's name; default "<solid> at <a·100> % (n = <n>)".
+ * @returns A "reflectance" `Spectrum`.
+ * @source J. A. C. Yule, W. J. Nielsen, TAGA Proc. 1951, p. 65.
+ * @example yuleNielsen(0.5, spectrumOnGrid(400, 100, [0.6, 0.1, 0.05]), spectrumOnGrid(400, 100, [0.88, 0.9, 0.9]), 1.8)
+ */
 export function yuleNielsen(
   coverage: number,
   solid: Spectrum,
@@ -47,9 +68,17 @@ export function yuleNielsen(
 }
 
 /**
- * The effective coverage that best explains a measured tint by the Yule–Nielsen model, in least squares over the
- * wavelengths: a = Σ(M − P)(S − P)/Σ(S − P)² with M, S, P the 1/n-th powers of tint, solid and paper (Yule &
- * Nielsen 1951, solved for a); n = 1 gives the Murray–Davies effective coverage.
+ * The effective dot coverage that best explains a measured tint by the Yule–Nielsen model, in least squares over wavelength: a = Σ(M − P)(S − P) ÷ Σ(S − P)².
+ *
+ * M, S, P are the 1/n-th powers of the tint, solid and paper reflectances.
+ *
+ * @param measured The tint's measured reflectance spectrum, fractions.
+ * @param solid The solid's reflectance spectrum, same wavelengths.
+ * @param paper The paper's reflectance spectrum, same wavelengths.
+ * @param n The Yule–Nielsen n factor; default 1 (the Murray–Davies effective coverage).
+ * @returns The coverage a (a fraction; may fall outside 0–1 for inconsistent data).
+ * @source Yule & Nielsen, TAGA Proc. 1951 (the model solved for a by least squares).
+ * @example effectiveCoverage(spectrumOnGrid(400, 100, [0.7, 0.4, 0.35]), spectrumOnGrid(400, 100, [0.6, 0.1, 0.05]), spectrumOnGrid(400, 100, [0.88, 0.9, 0.9]), 1.5)
  */
 export function effectiveCoverage(measured: Spectrum, solid: Spectrum, paper: Spectrum, n = 1): number {
   requirePositive(n, "Yule–Nielsen n factor");

@@ -3,7 +3,14 @@ import { CIE_DAYLIGHT_COMPONENTS_TABLE } from "../data/cie-daylight-components.t
 import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import type { Chromaticity } from "../colorimetry/chromaticity.ts";
 
-/** Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K (CIE 015:2018 eqs. 4.5–4.6). */
+/**
+ * Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K.
+ *
+ * @param cct The correlated colour temperature, in K (4000–25000).
+ * @returns { x, y } in CIE 1931 xy.
+ * @source CIE 015:2018 eqs. 4.5–4.6.
+ * @example daylightChromaticity(6504)
+ */
 export function daylightChromaticity(cct: number): Chromaticity {
   if (!Number.isFinite(cct) || cct < 4000 || cct > 25000) {
     throw new Error(
@@ -19,7 +26,15 @@ export function daylightChromaticity(cct: number): Chromaticity {
   return { x, y };
 }
 
-/** The factors M1, M2 of S1 and S2 for a daylight chromaticity (CIE 015:2018 eq. 4.7). */
+/**
+ * The factors M1 and M2 of the daylight components S1 and S2 for a daylight chromaticity.
+ *
+ * @param xy The daylight chromaticity { x, y } (CIE 1931).
+ * @param roundToThreeDecimals Round M1 and M2 to 3 decimals as the CIE tables of D50, D55, D75 do; default false.
+ * @returns [M1, M2], dimensionless.
+ * @source CIE 015:2018 eq. 4.7.
+ * @example daylightFactors(daylightChromaticity(6504))
+ */
 export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false): [number, number] {
   const m = 0.0241 + 0.2562 * xy.x - 0.7341 * xy.y;
   let m1 = (-1.3515 - 1.7703 * xy.x + 5.9114 * xy.y) / m;
@@ -32,8 +47,14 @@ export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false):
 }
 
 /**
- * Relative spectral power of CIE daylight at a CCT (K), S(λ) = S0 + M1·S1 + M2·S2, 300–830 nm at 5 nm.
- * `roundFactors` rounds M1 and M2 to 3 decimals, as CIE 015:2018 does for the tabulated D50, D55, D75.
+ * Relative spectral power of CIE daylight at a correlated colour temperature, S(λ) = S0 + M1·S1 + M2·S2, 300–830 nm at 5 nm.
+ *
+ * @param cct The correlated colour temperature, in K (4000–25000).
+ * @param options.roundFactors Round M1 and M2 to 3 decimals, as CIE 015:2018 does for the tabulated D50, D55, D75; default false.
+ * @param options.name The spectrum's name; default "CIE daylight <cct> K".
+ * @returns A "relative power" `Spectrum`, 300–830 nm every 5 nm.
+ * @source CIE 015:2018 §4.1.2, eqs. 4.3–4.7.
+ * @example daylightSpectrum(5003, { roundFactors: true })
  */
 export function daylightSpectrum(
   cct: number,

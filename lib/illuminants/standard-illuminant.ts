@@ -39,12 +39,29 @@ for (const name of Object.keys(CIE_LED_TABLE.columns)) {
 
 const cache = new Map<string, Spectrum>();
 
-/** The names `illuminant()` accepts. */
+/**
+ * The names `illuminant()` accepts: A, D50, D55, D65, D75, E, FL1–FL12, FL3.1–FL3.15 and the LED series.
+ *
+ * @returns The names, as `illuminant()` spells them.
+ * @source CIE 015:2018 (the tabulated illuminants).
+ * @example illuminantNames().length
+ */
 export function illuminantNames(): string[] {
   return Object.keys(BUILDERS);
 }
 
-/** A CIE illuminant's relative spectral power by name ("A", "D65", "FL2", "LED-B3", ...); case and spaces are ignored. */
+/**
+ * A CIE illuminant's relative spectral power by name ("A", "D65", "FL2", "LED-B3", ...); case and spaces are ignored.
+ *
+ * D50, D55 and D75 are computed from the daylight components at the nominal CCT × 1.4388 ÷ 1.4380 with M1, M2
+ * rounded to 3 decimals (as the CIE tables are); A from its formula (300–830 nm at 1 nm); D65 and the fluorescent and
+ * LED illuminants from the CIE tables; E is 100 everywhere, 300–830 nm at 1 nm.
+ *
+ * @param name The illuminant's name (see `illuminantNames()`); an unknown name is an error listing the known ones.
+ * @returns A "relative power" `Spectrum`.
+ * @source CIE 015:2018 §4 and its tables of illuminants.
+ * @example illuminant("D65").values.length
+ */
 export function illuminant(name: string): Spectrum {
   const key = Object.keys(BUILDERS).find(
     (k) => k.toUpperCase() === String(name).replace(/\s+/g, "").toUpperCase(),

@@ -44,8 +44,14 @@ const seen = new Map<string, Set<string>>();
 let silentDepth = 0;
 
 /**
- * Notes that a computation used a condition; repeated notes are kept once, in first-use order. Inside
- * withoutMethodNotes nothing is recorded.
+ * Notes that a computation used a condition, for the report's Methods section; repeated notes are kept once, in first-use order.
+ *
+ * Inside `withoutMethodNotes` nothing is recorded.
+ *
+ * @param topic One of `METHOD_TOPICS` ("observer", "illuminant", "colour difference", ...).
+ * @param statement A full sentence as a lab report states it ("Colour differences were computed by ...").
+ * @source none: the tristim Methods log.
+ * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
   if (silentDepth > 0) return;
@@ -59,15 +65,28 @@ export function noteMethod(topic: MethodTopic, statement: string): void {
   order.push({ topic, statement });
 }
 
-/** False while a withoutMethodNotes call is running (a caller that remembers "already noted" must not remember then). */
+/**
+ * False while a `withoutMethodNotes` call is running (a caller that remembers "already noted" must not remember then).
+ *
+ * @returns true when notes are being recorded.
+ * @source none: the tristim Methods log.
+ * @example methodNotesActive()
+ */
 export function methodNotesActive(): boolean {
   return silentDepth === 0;
 }
 
 /**
- * Runs `compute` without recording any method note, and returns its result. For decorative computations the report
- * did not ask for (a figure's hover readouts, reference curves, colour fills, display conversions of swatches), so the
- * Methods section lists only what the notebook computed. `compute` must be synchronous; a nested call is fine.
+ * Runs a synchronous computation without recording any method note, and returns its result.
+ *
+ * For decorative computations the report did not ask for (a figure's hover readouts, reference curves, colour fills,
+ * display conversions of swatches), so the Methods section lists only what the notebook computed. A nested call is
+ * fine; a computation that returns a promise is an error.
+ *
+ * @param compute A synchronous function with no arguments.
+ * @returns What `compute` returns.
+ * @source none: the tristim Methods log.
+ * @example withoutMethodNotes(() => deltaE76({ L: 50, a: 0, b: 0 }, { L: 51, a: 1, b: 0 }))
  */
 export function withoutMethodNotes<T>(compute: () => T): T {
   if (typeof compute !== "function")
@@ -91,12 +110,23 @@ export function withoutMethodNotes<T>(compute: () => T): T {
   return result;
 }
 
-/** Every condition noted since the last reset, as plain serializable records. */
+/**
+ * Every condition noted since the last reset, in first-use order, as plain serializable records.
+ *
+ * @returns [{ topic, statement }, ...] copies.
+ * @source none: the tristim Methods log.
+ * @example methodsUsed().length
+ */
 export function methodsUsed(): MethodNote[] {
   return order.map((n) => ({ ...n }));
 }
 
-/** Forgets every note (the runner calls this at the start of a run). */
+/**
+ * Forgets every method note (the runner calls this at the start of a run; a cell rarely should, as the report's Methods section would lose the notes).
+ *
+ * @source none: the tristim Methods log.
+ * @example resetMethodLog()
+ */
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();

@@ -28,7 +28,13 @@ const below =
   (w: number) =>
     logisticEdge(edge - w, width);
 
-/** Invented demo paints (K and S per unit amount, two-constant): white, red, green, blue, cyan, magenta, yellow. */
+/**
+ * Invented demo paints (not measurements, not references): K and S per unit amount for a white and six colours, two-constant.
+ *
+ * @returns { white, red, green, blue, cyan, magenta, yellow }: `TwoConstantColourant`s on 360–830 nm every 5 nm.
+ * @source none: invented demonstration data built from logistic edges.
+ * @example Object.keys(demoPaints())
+ */
 export function demoPaints(): Record<
   "white" | "red" | "green" | "blue" | "cyan" | "magenta" | "yellow",
   TwoConstantColourant

@@ -18,6 +18,7 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 import { nonNegativeLeastSquares, solveAugmented } from "./nnls.ts";
 
 export interface DriveOptions {
+  /** Observer for the primaries' tristimulus values: "2°" or "10°" or an `Observer`; default the CIE 1931 2° observer. */
   observer?: ObserverName | Observer | 2 | 10;
   /** The highest drive level a primary can take (e.g. 1 for full output); default: no upper limit. */
   maxLevel?: number;
@@ -41,14 +42,31 @@ export interface DriveSolution {
 }
 
 /**
- * Absolute X, Y, Z of a light (k = 683 lm/W, CIE 015:2018 eq. 7.5): a radiance in W/(sr·m²·nm) gives Y in cd/m²;
- * relative spectra give Y in the same relative units.
+ * Absolute X, Y, Z of a light with k = Km = 683 lm/W: a radiance in W/(sr·m²·nm) gives Y in cd/m²; relative spectra give Y in the same relative units.
+ *
+ * @param light A light's spectral distribution.
+ * @param observer "2°" or "10°" or an `Observer`; default (absent) the CIE 1931 2° observer.
+ * @returns { X, Y, Z } in the photometric unit of the spectrum's radiometric unit.
+ * @source CIE 015:2018 eq. 7.5.
+ * @example lightXYZ(ledSpectrum({ peak: 530, fwhm: 30 }))
  */
 export function lightXYZ(light: Spectrum, observer?: DriveOptions["observer"]): Tristimulus {
   return lightTristimulus(light, { scale: "absolute", observer });
 }
 
-/** Drive levels of the primaries for a target x, y and luminance Y (in the units of lightXYZ of the primaries). */
+/**
+ * Drive levels of primaries (lights) that reproduce a target chromaticity and luminance.
+ *
+ * By Grassmann additivity the mixture's X, Y, Z are Σ levelᵢ·(Xᵢ, Yᵢ, Zᵢ), so three primaries give one exact linear
+ * solution and more primaries are solved by non-negative least squares. A target is out of reach when it needs a
+ * negative level (outside the primaries' gamut) or a level above `maxLevel`.
+ *
+ * @param primaries The primaries' spectra, on the same wavelengths (each with luminance).
+ * @param target { x, y, Y }: CIE 1931 chromaticity and luminance Y in the units `lightXYZ` gives the primaries.
+ * @returns { reachable, levels (one per primary, in order), primaries (names), target, achieved, achievedXyY, relativeError, message, method }.
+ * @source CIE 015:2018 §7 (additivity); Lawson & Hanson 1974, ch. 23 (NNLS).
+ * @example solveDriveLevels([ledSpectrum({ peak: 630, fwhm: 20 }), ledSpectrum({ peak: 530, fwhm: 30 }), ledSpectrum({ peak: 460, fwhm: 20 })], { x: 0.3127, y: 0.329, Y: 50 }).levels
+ */
 export function solveDriveLevels(
   primaries: readonly Spectrum[],
   target: ChromaticityLuminance,

@@ -5,7 +5,14 @@
  */
 import { requireFinite, requireFraction, requireNonNegative } from "../filters/checks.ts";
 
-/** The Kubelka–Munk function of an opaque layer's internal reflectance: K/S = (1 − R∞)² / (2R∞) (Kubelka & Munk 1931). */
+/**
+ * The Kubelka–Munk function of an opaque layer's internal reflectance, K/S = (1 − R∞)² ÷ (2R∞).
+ *
+ * @param reflectanceInfinite R∞, the internal reflectance of an opaque layer, a fraction above 0.
+ * @returns K/S, dimensionless.
+ * @source P. Kubelka, F. Munk, Z. techn. Physik 12:593, 1931.
+ * @example ksFromReflectance(0.3)
+ */
 export function ksFromReflectance(reflectanceInfinite: number): number {
   requireFraction(reflectanceInfinite, "reflectance of an opaque layer (R∞)");
   if (reflectanceInfinite === 0)
@@ -13,7 +20,14 @@ export function ksFromReflectance(reflectanceInfinite: number): number {
   return (1 - reflectanceInfinite) ** 2 / (2 * reflectanceInfinite);
 }
 
-/** Reflectance of an opaque (infinitely thick) layer from K/S: R∞ = 1 + K/S − √((K/S)² + 2K/S) (Kubelka & Munk 1931; Kubelka 1948 eq. 6). */
+/**
+ * Reflectance of an opaque layer from K/S, R∞ = 1 + K/S − √((K/S)² + 2K/S).
+ *
+ * @param ks K/S, 0 or more.
+ * @returns R∞, a fraction.
+ * @source Kubelka & Munk 1931; P. Kubelka, J. Opt. Soc. Am. 38:448, 1948, eq. 6.
+ * @example reflectanceFromKs(0.8167)
+ */
 export function reflectanceFromKs(ks: number): number {
   requireNonNegative(ks, "K/S");
   // Written as 1/(1 + K/S + √((K/S)² + 2K/S)), the same number without cancellation for large K/S.
@@ -29,10 +43,18 @@ export interface LayerOptics {
 }
 
 /**
- * Reflectance and transmittance of a layer of thickness X over a background of reflectance R_g, with
- * a = 1 + K/S, b = √(a² − 1): R₀ = sinh(bSX)/(a·sinh(bSX) + b·cosh(bSX)), T = b/(a·sinh(bSX) + b·cosh(bSX)), and
- * R = R₀ + T²R_g/(1 − R₀R_g) (Kubelka 1948, eqs. for the hyperbolic solution). The limits S = 0 (T = e^(−KX)) and
- * K = 0 (R₀ = SX/(1 + SX)) are handled exactly.
+ * Reflectance and transmittance of a scattering layer of finite thickness over a background (Kubelka's hyperbolic solution).
+ *
+ * With a = 1 + K/S, b = √(a² − 1): R₀ = sinh(bSX) ÷ (a·sinh(bSX) + b·cosh(bSX)), T = b ÷ (a·sinh(bSX) + b·cosh(bSX)),
+ * R = R₀ + T²R_g ÷ (1 − R₀R_g). The limits S = 0 and K = 0 are handled exactly.
+ *
+ * @param k The absorption coefficient K, per unit thickness, 0 or more.
+ * @param s The scattering coefficient S, per unit thickness, 0 or more.
+ * @param thickness The layer thickness X, in the unit K and S are per.
+ * @param background The background's reflectance R_g, a fraction.
+ * @returns { reflectance (over the background), reflectanceOverBlack (R₀), transmittance }, fractions.
+ * @source P. Kubelka, J. Opt. Soc. Am. 38:448, 1948.
+ * @example layerOptics(0.2, 2, 0.5, 0.8)
  */
 export function layerOptics(k: number, s: number, thickness: number, background: number): LayerOptics {
   requireNonNegative(k, "absorption coefficient K");
@@ -67,7 +89,15 @@ export function layerOptics(k: number, s: number, thickness: number, background:
   return { reflectance, reflectanceOverBlack: r0, transmittance: t };
 }
 
-/** Reflectance of a layer thick enough to hide its background, from K and S: R∞ = a − b (Kubelka 1948). */
+/**
+ * Reflectance of a layer thick enough to hide its background, from K and S: R∞ = a − b.
+ *
+ * @param k The absorption coefficient K, 0 or more.
+ * @param s The scattering coefficient S, above 0.
+ * @returns R∞, a fraction.
+ * @source P. Kubelka, J. Opt. Soc. Am. 38:448, 1948.
+ * @example opaqueReflectance(0.2, 2)
+ */
 export function opaqueReflectance(k: number, s: number): number {
   requireNonNegative(k, "absorption coefficient K");
   requireNonNegative(s, "scattering coefficient S");

@@ -17,17 +17,26 @@ export interface LedOptions {
   peak: number;
   /** Full width at half maximum in nm; the curve's FWHM equals this exactly. */
   fwhm: number;
+  /** "ohno 2005" (default): Ohno's LED shape; "gaussian": a plain Gaussian. */
   shape?: LedShape;
   /** −0.9 … 0.9: long side width = (1 + a)·FWHM/2, short side (1 − a)·FWHM/2 (common practice, no source). Default 0. */
   asymmetry?: number;
   /** Value at the peak (default 1). */
   peakValue?: number;
-  /** Default 360–830 nm every 1 nm. */
+  /** Wavelengths { start, end, step } in nm; default 360–830 nm every 1 nm. */
   grid?: WavelengthGrid;
+  /** The spectrum's name; default "LED <peak> nm / <fwhm> nm". */
   name?: string;
 }
 
-/** The Ohno (2005) LED shape at normalised distance u = (λ − λ₀)/Δλ: [e^(−u²) + 2e^(−5u²)]/3 (Ohno 2005, recalled). */
+/**
+ * Ohno's LED band shape at normalised distance u = (λ − λ₀) ÷ Δλ: [e^(−u²) + 2e^(−5u²)] ÷ 3.
+ *
+ * @param u The normalised distance from the peak (dimensionless).
+ * @returns The relative value, 1 at u = 0.
+ * @source Y. Ohno, Opt. Eng. 44(11) 111302, 2005 (form recalled from memory).
+ * @example ohnoLedShape(0.5)
+ */
 export function ohnoLedShape(u: number): number {
   const g = Math.exp(-u * u);
   return (g + 2 * g ** 5) / 3;
@@ -45,7 +54,13 @@ export const OHNO_HALF_WIDTH_U = (() => {
   return (lo + hi) / 2;
 })();
 
-/** A model LED spectrum with the given peak wavelength and FWHM (Ohno 2005 shape by default; see the file header). */
+/**
+ * A model spectrum of a single-colour LED from its peak wavelength and FWHM (Ohno 2005 shape by default, or a Gaussian).
+ *
+ * @returns A "relative power" `Spectrum`, named `options.name` or "LED <peak> nm / <fwhm> nm".
+ * @source Y. Ohno, Opt. Eng. 44(11) 111302, 2005 (shape recalled from memory); the asymmetry is common practice with no source.
+ * @example ledSpectrum({ peak: 450, fwhm: 22, asymmetry: 0.2, grid: { start: 380, end: 780, step: 1 } })
+ */
 export function ledSpectrum(options: LedOptions): Spectrum {
   const peak = requirePositive(options?.peak, "ledSpectrum: peak wavelength (nm)");
   const fwhm = requirePositive(options.fwhm, "ledSpectrum: FWHM (nm)");
@@ -84,11 +99,19 @@ export interface PhosphorWhiteOptions {
   phosphor: { peak: number; fwhm: number; asymmetry?: number } | Spectrum;
   /** Radiant power of the phosphor band over that of the blue band (both summed over the grid). */
   phosphorToBlue: number;
+  /** Wavelengths { start, end, step } in nm; default 360–830 nm every 1 nm (a measured phosphor must be on it). */
   grid?: WavelengthGrid;
+  /** The spectrum's name; default "phosphor white (<peak> nm pump, ratio <r>)". */
   name?: string;
 }
 
-/** Phosphor-converted white: a blue LED plus a broad phosphor band at a given ratio of radiant powers (common practice, no source). */
+/**
+ * A model phosphor-converted white LED: a blue pump band plus a broad phosphor band at a given ratio of radiant powers.
+ *
+ * @returns A "relative power" `Spectrum`, named `options.name` or "phosphor white (<peak> nm pump, ratio <r>)".
+ * @source none: a model, common practice with no source (pump band as in `ledSpectrum`).
+ * @example phosphorWhite({ blue: { peak: 450, fwhm: 20 }, phosphor: { peak: 560, fwhm: 110, asymmetry: 0.2 }, phosphorToBlue: 2.5 })
+ */
 export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
   const grid = options.grid ?? { start: 360, end: 830, step: 1 };
   const ratio = requirePositive(options.phosphorToBlue, "phosphorWhite: phosphor-to-blue power ratio");

@@ -9,7 +9,15 @@ export interface LightPart {
   readonly level: number;
 }
 
-/** Σ levelᵢ·Sᵢ(λ): the spectrum of lights added together (additivity of radiant power; CIE 015:2018 §7). */
+/**
+ * The spectrum of lights added together, Σ levelᵢ·Sᵢ(λ) (additivity of radiant power).
+ *
+ * @param parts [{ light: a light's spectrum, level: its drive level, a multiplier 0 or more }, ...], all on the same wavelengths; filters are refused (they multiply).
+ * @param name The mixture's name; default "<level>×<light> + …".
+ * @returns A `Spectrum` with the first light's quantity and unit.
+ * @source Grassmann's laws; CIE 015:2018 §7.
+ * @example mixLights([{ light: ledSpectrum({ peak: 450, fwhm: 20 }), level: 0.4 }, { light: ledSpectrum({ peak: 590, fwhm: 15 }), level: 1 }])
+ */
 export function mixLights(parts: readonly LightPart[], name?: string): Spectrum {
   if (!Array.isArray(parts) || parts.length === 0) throw new Error("mixLights: no lights to mix");
   parts.forEach((p, i) => {

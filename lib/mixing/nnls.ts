@@ -43,7 +43,15 @@ export function solveAugmented(M: number[][]): number[] | undefined {
   return M.map((row, i) => row[k]! / row[i]!);
 }
 
-/** x ≥ 0 minimising ‖Ax − b‖₂ (Lawson & Hanson 1974, NNLS). A is given by rows. */
+/**
+ * The x ≥ 0 minimising ‖Ax − b‖₂, by the active-set algorithm (small dense problems only).
+ *
+ * @param A The matrix, by rows (a few rows and columns).
+ * @param b The right-hand side, one value per row.
+ * @returns x, one non-negative value per column.
+ * @source C. L. Lawson, R. J. Hanson, Solving Least Squares Problems, 1974, ch. 23 (algorithm NNLS).
+ * @example nonNegativeLeastSquares([[1, 0], [0, 1], [1, 1]], [1, -1, 0.5])
+ */
 export function nonNegativeLeastSquares(A: readonly (readonly number[])[], b: readonly number[]): number[] {
   const m = A.length;
   const n = A[0]?.length ?? 0;

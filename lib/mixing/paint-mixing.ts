@@ -49,13 +49,30 @@ function requireNonNegativeSpectrum(s: Spectrum, what: string): void {
   });
 }
 
-/** A single-constant colourant from its K/S spectrum. */
+/**
+ * A colourant described by its K/S alone (single-constant Kubelka–Munk theory).
+ *
+ * @param ks K/S per unit amount at each wavelength, 0 or more.
+ * @param name The colourant's name; default the spectrum's name.
+ * @returns A `SingleConstantColourant`.
+ * @source D. R. Duncan, Proc. Phys. Soc. 52:390, 1940 (single-constant additivity).
+ * @example singleConstantColourant(spectrumOnGrid(400, 100, [2, 0.5, 0.1]), "invented ochre")
+ */
 export function singleConstantColourant(ks: Spectrum, name = ks.name): SingleConstantColourant {
   requireNonNegativeSpectrum(ks, "K/S");
   return { kind: "colourant", model: "single constant", name, ks };
 }
 
-/** A two-constant colourant from its K and S spectra (same wavelengths). */
+/**
+ * A colourant described by its absorption K and scattering S (two-constant Kubelka–Munk theory), per unit amount and thickness.
+ *
+ * @param k The absorption K at each wavelength, 0 or more.
+ * @param s The scattering S on the same wavelengths, 0 or more.
+ * @param name The colourant's name; default the K spectrum's name.
+ * @returns A `TwoConstantColourant`.
+ * @source D. R. Duncan, Proc. Phys. Soc. 52:390, 1940 (two-constant additivity).
+ * @example twoConstantColourant(spectrumOnGrid(400, 100, [2, 0.5, 0.1]), spectrumOnGrid(400, 100, [1, 1, 1]), "invented ochre")
+ */
 export function twoConstantColourant(k: Spectrum, s: Spectrum, name = k.name): TwoConstantColourant {
   requireNonNegativeSpectrum(k, "absorption K");
   requireNonNegativeSpectrum(s, "scattering S");
@@ -70,7 +87,16 @@ function toMeasured(r: number, surface: SurfaceTreatment): number {
   return surface === "none" ? r : saundersonMeasured(r, surface);
 }
 
-/** A single-constant colourant from the measured reflectance of an opaque layer (masstone): K/S = (1 − Rᵢ)²/(2Rᵢ) after the Saunderson inversion. */
+/**
+ * A single-constant colourant from the measured reflectance of an opaque layer (masstone): K/S = (1 − Rᵢ)² ÷ (2Rᵢ) after the Saunderson inversion.
+ *
+ * @param masstone The measured reflectance of the opaque masstone, fractions above 0.
+ * @param options.surface Saunderson constants (k1, k2, specular) or "none" for data already internal; default {} (k₁ = 0.04, k₂ = 0.6, specular included).
+ * @param options.name The colourant's name; default the masstone's name.
+ * @returns A `SingleConstantColourant`.
+ * @source Kubelka & Munk 1931; Saunderson, J. Opt. Soc. Am. 32:727, 1942.
+ * @example colourantFromMasstone(spectrumOnGrid(400, 100, [0.05, 0.3, 0.6], { quantity: "reflectance" }))
+ */
 export function colourantFromMasstone(
   masstone: Spectrum,
   options: { surface?: SurfaceTreatment; name?: string } = {},
@@ -93,9 +119,15 @@ export function colourantFromMasstone(
 }
 
 /**
- * Two-constant K and S of a colourant from opaque drawdowns of its masstone and of a tint with a white, relative to
- * the white's scattering (S_white = 1): with m = (K/S) of the masstone, t = (K/S) of the tint at colourant fraction c,
- * S = (1 − c)(t·S_w − K_w) / (c(m − t)) and K = m·S (the masstone-and-tint method that follows from Duncan 1940).
+ * Two-constant K and S of a colourant from opaque drawdowns of its masstone and of a tint with a white, relative to the white's scattering (S_white = 1).
+ *
+ * With m = K/S of the masstone, t = K/S of the tint at colourant fraction c: S = (1 − c)(t − K_w) ÷ (c(m − t)) and
+ * K = m·S.
+ *
+ * @param input { masstone, tint, white: measured reflectance spectra on one grid; tintFraction c, strictly between 0 and 1; surface: Saunderson constants or "none", default {} (k₁ = 0.04, k₂ = 0.6); name: default the masstone's name }.
+ * @returns { colourant, white }: two-constant colourants (the white with S = 1).
+ * @source D. R. Duncan, Proc. Phys. Soc. 52:390, 1940 (the masstone-and-tint method follows from its additivity); Saunderson 1942.
+ * @example colourantFromTint({ masstone: spectrumOnGrid(400, 100, [0.05, 0.2, 0.5]), tint: spectrumOnGrid(400, 100, [0.3, 0.5, 0.7]), white: spectrumOnGrid(400, 100, [0.85, 0.88, 0.9]), tintFraction: 0.2 }).colourant.name
  */
 export function colourantFromTint(input: {
   masstone: Spectrum;
@@ -167,15 +199,19 @@ export interface RecipePart {
 export interface PaintOptions {
   /** Surface correction (Saunderson defaults k₁ = 0.04, k₂ = 0.6, specular included), or "none". */
   surface?: SurfaceTreatment;
-  /** For two-constant colourants only: a layer of this thickness (in the units of K and S) over `background` instead of an opaque layer. */
+  /** For two-constant colourants only: a layer of this thickness (in the units of K and S) over `background` (a reflectance fraction) instead of an opaque layer; default (absent) an opaque layer. */
   layer?: { thickness: number; background: number };
+  /** The result's name; default the recipe, "<amount> <colourant> + …". */
   name?: string;
 }
 
 /**
- * Reflectance of a paint mixed from a recipe: the parts are normalised to fractions cⱼ, the coefficients added
- * (Duncan 1940), the internal reflectance found from Kubelka–Munk (opaque, or a layer over a background, Kubelka
- * 1948) and corrected for the surface (Saunderson 1942).
+ * Reflectance of a paint mixed from a recipe: parts normalised to fractions, coefficients added, Kubelka–Munk reflectance, then the surface correction.
+ *
+ * @param recipe [{ colourant, amount (parts by weight or volume, ≥ 0) }, ...], all single-constant or all two-constant.
+ * @returns A "reflectance" `Spectrum` (fractions), named `options.name` or "<amount> <colourant> + …".
+ * @source Duncan, Proc. Phys. Soc. 52:390, 1940; Kubelka & Munk 1931; Kubelka, JOSA 38:448, 1948; Saunderson, JOSA 32:727, 1942.
+ * @example mixPaint([{ colourant: demoPaints().white, amount: 3 }, { colourant: demoPaints().blue, amount: 1 }])
  */
 export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = {}): Spectrum {
   if (!Array.isArray(recipe) || recipe.length === 0) throw new Error("mixPaint: the recipe is empty");
@@ -246,8 +282,12 @@ export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = 
 }
 
 /**
- * A recipe's reflectance and its colour: X, Y, Z and CIELAB under an illuminant and observer (CIE 015:2018), the
- * white summed on the same weighting table as the reflectance (objectColour).
+ * A recipe's reflectance and its colour: X, Y, Z and CIELAB under an illuminant and observer, the white summed on the same weighting table.
+ *
+ * @param recipe [{ colourant, amount (parts by weight or volume, ≥ 0) }, ...], as for `mixPaint`.
+ * @returns { reflectance, XYZ (Y = 100 scale), Lab, white }.
+ * @source Kubelka–Munk mixing as `mixPaint`; CIE 015:2018 §7 and §8.2.1 (colour).
+ * @example recipeColour([{ colourant: demoPaints().yellow, amount: 1 }, { colourant: demoPaints().blue, amount: 1 }], { illuminant: "D50" }).Lab
  */
 export function recipeColour(
   recipe: readonly RecipePart[],

@@ -30,14 +30,28 @@ function constants(options: SurfaceCorrection): { k1: number; k2: number; includ
   return { k1, k2, included: specular === "included" };
 }
 
-/** Measured reflectance from internal reflectance: R_m = k₁ + (1 − k₁)(1 − k₂)R_i/(1 − k₂R_i) (Saunderson 1942; without k₁ when specular is excluded). */
+/**
+ * Measured reflectance from internal (Kubelka–Munk) reflectance: R_m = k₁ + (1 − k₁)(1 − k₂)R_i ÷ (1 − k₂R_i), without k₁ when the specular component is excluded.
+ *
+ * @param internal The internal reflectance R_i, a fraction.
+ * @returns R_m, a fraction.
+ * @source J. L. Saunderson, J. Opt. Soc. Am. 32:727, 1942.
+ * @example saundersonMeasured(0.5, { specular: "excluded" })
+ */
 export function saundersonMeasured(internal: number, options: SurfaceCorrection = {}): number {
   requireFraction(internal, "internal reflectance R_i");
   const { k1, k2, included } = constants(options);
   return (included ? k1 : 0) + ((1 - k1) * (1 - k2) * internal) / (1 - k2 * internal);
 }
 
-/** Internal reflectance from measured reflectance: R_i = (R_m − k₁)/(1 − k₁ − k₂ + k₂R_m) (Saunderson 1942, inverted). */
+/**
+ * Internal reflectance from measured reflectance: R_i = (R_m − k₁) ÷ (1 − k₁ − k₂ + k₂R_m) (without k₁ when the specular component is excluded).
+ *
+ * @param measured The measured reflectance R_m, a fraction.
+ * @returns R_i, a fraction.
+ * @source J. L. Saunderson, J. Opt. Soc. Am. 32:727, 1942, inverted.
+ * @example saundersonInternal(0.35)
+ */
 export function saundersonInternal(measured: number, options: SurfaceCorrection = {}): number {
   requireFraction(measured, "measured reflectance R_m");
   const { k1, k2, included } = constants(options);

@@ -1,7 +1,14 @@
 /** The peak wavelength and full width at half maximum (FWHM) of a band-shaped spectrum, as LED data sheets state them (CIE 127:2007 §6, "peak wavelength" and "spectral bandwidth"). */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 
-/** The wavelength and value of the largest sample (the peak wavelength, CIE 127:2007). */
+/**
+ * The wavelength and value of a spectrum's largest sample (its peak wavelength).
+ *
+ * @param s A spectrum with a positive value.
+ * @returns { wavelength in nm, value in the spectrum's unit }.
+ * @source CIE 127:2007 §6 ("peak wavelength").
+ * @example spectralPeak(ledSpectrum({ peak: 525, fwhm: 30 })).wavelength
+ */
 export function spectralPeak(s: Spectrum): { wavelength: number; value: number } {
   let best = 0;
   for (let i = 1; i < s.values.length; i++) if (s.values[i]! > s.values[best]!) best = i;
@@ -10,8 +17,12 @@ export function spectralPeak(s: Spectrum): { wavelength: number; value: number }
 }
 
 /**
- * Full width at half maximum: the distance between the outermost half-peak crossings on either side of the peak,
- * each found by linear interpolation between samples (CIE 127:2007 spectral bandwidth at half intensity).
+ * Full width at half maximum: the distance between the outermost half-peak crossings either side of the peak, each found by linear interpolation between samples.
+ *
+ * @param s A band-shaped spectrum that falls below half its peak on both sides within its range.
+ * @returns { width, short, long } in nm (the two crossing wavelengths and their distance).
+ * @source CIE 127:2007 §6 (spectral bandwidth at half intensity).
+ * @example fullWidthHalfMax(ledSpectrum({ peak: 525, fwhm: 30 })).width
  */
 export function fullWidthHalfMax(s: Spectrum): { width: number; short: number; long: number } {
   const peak = spectralPeak(s);

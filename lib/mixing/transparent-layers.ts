@@ -7,7 +7,15 @@ import { requireFractionSpectrum, requireNonNegative, requireSameGrid } from "..
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 
-/** Internal transmittance of transparent layers in optical contact: Π τⱼ(λ) (no reflections between them). */
+/**
+ * Internal transmittance of transparent layers in optical contact, Π τⱼ(λ) (no reflections between them).
+ *
+ * @param layers Transmittance spectra (fractions 0–1) on the same wavelengths.
+ * @param name The result's name; default the layers' names joined by " × ".
+ * @returns A "transmittance" `Spectrum`.
+ * @source IUPAC Gold Book, "Beer–Lambert law" (absorbances of layers add).
+ * @example layeredTransmittance([spectrumOnGrid(400, 100, [0.9, 0.5, 0.2]), spectrumOnGrid(400, 100, [0.3, 0.8, 0.9])])
+ */
 export function layeredTransmittance(layers: readonly Spectrum[], name?: string): Spectrum {
   if (!Array.isArray(layers) || layers.length === 0) throw new Error("layeredTransmittance: no layers given");
   layers.forEach((l) => requireFractionSpectrum(l, "layer transmittance"));
@@ -33,7 +41,16 @@ export interface DyeAmount {
   readonly concentration: number;
 }
 
-/** Internal transmittance of dyes mixed in one layer: 10^(−path·Σ cⱼAⱼ(λ)) (Beer–Lambert, absorbances add; IUPAC Gold Book). */
+/**
+ * Internal transmittance of dyes dissolved in one layer, 10^(−path·Σ cⱼAⱼ(λ)) (absorbances add).
+ *
+ * @param dyes [{ absorbance: decadic absorbance per unit concentration and path, ≥ 0; concentration, ≥ 0 }, ...] on the same wavelengths.
+ * @param options.path The path length, in the unit the absorbances are per; default 1.
+ * @param options.name The result's name; default "<c>×<dye> + …".
+ * @returns A "transmittance" `Spectrum`.
+ * @source IUPAC Gold Book, "Beer–Lambert law".
+ * @example dyeMixture([{ absorbance: spectrumOnGrid(400, 100, [1, 0.2, 0.1]), concentration: 0.5 }, { absorbance: spectrumOnGrid(400, 100, [0.1, 0.3, 1.5]), concentration: 0.2 }], { path: 2 })
+ */
 export function dyeMixture(
   dyes: readonly DyeAmount[],
   options: { path?: number; name?: string } = {},

@@ -48,7 +48,14 @@ export const CIE_1964_10_DEGREE: Observer = fromTable(
 /** Names accepted wherever an observer is asked for. */
 export type ObserverName = "2°" | "10°" | "2" | "10" | "1931" | "1964" | "CIE 1931" | "CIE 1964";
 
-/** An observer by name ("2°"/"1931" or "10°"/"1964"), or the observer itself; an unknown name is an error. */
+/**
+ * A CIE standard colorimetric observer by name ("2°"/"1931" or "10°"/"1964"), or the observer itself; an unknown name is an error.
+ *
+ * @param which "2°", "2", "1931", "CIE 1931", 2 for the CIE 1931 2° observer; "10°", "10", "1964", "CIE 1964", 10 for the CIE 1964 10° observer; or an `Observer`, returned as it is. Default "2°".
+ * @returns The `Observer`: x̄, ȳ, z̄ tabulated 360–830 nm at 1 nm.
+ * @source CIE 018:2019 Table 6 (1931 2°); ISO/CIE 11664-1:2019 Table 2 (1964 10°).
+ * @example observerByName("10°").name
+ */
 export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"): Observer {
   if (typeof which === "object") return which;
   const key = String(which)
@@ -60,7 +67,15 @@ export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"):
   throw new Error(`unknown observer "${which}": use "2°" (CIE 1931) or "10°" (CIE 1964)`);
 }
 
-/** x̄, ȳ, z̄ at a wavelength (nm), linearly interpolated between the 1 nm table values; zero outside 360–830 nm. */
+/**
+ * The colour-matching functions x̄, ȳ, z̄ at one wavelength, linearly interpolated between the 1 nm table values; zero outside 360–830 nm.
+ *
+ * @param obs An `Observer` (e.g. `CIE_1931_2_DEGREE`).
+ * @param wavelength The wavelength, in nm.
+ * @returns [x̄, ȳ, z̄] (dimensionless; ȳ is V(λ) for the 2° observer).
+ * @source ISO/CIE 11664-1:2019 (the tables); linear interpolation between 1 nm values is common practice with no source.
+ * @example colourMatchingAt(CIE_1931_2_DEGREE, 555.5)
+ */
 export function colourMatchingAt(obs: Observer, wavelength: number): [number, number, number] {
   const u = (wavelength - obs.start) / obs.step;
   const n = obs.xBar.length;

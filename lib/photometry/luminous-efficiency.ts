@@ -16,8 +16,12 @@ let photopic: Spectrum | undefined;
 let scotopic: Spectrum | undefined;
 
 /**
- * V(λ), 360–830 nm at 1 nm: identical to ȳ(λ) of the CIE 1931 observer (CIE 018:2019 Table 1), or V′(λ),
- * 380–780 nm at 1 nm (CIE 018:2019 Table 2, CIE 1951).
+ * The CIE spectral luminous efficiency function: photopic V(λ), 360–830 nm at 1 nm (identical to ȳ(λ) of the CIE 1931 observer), or scotopic V′(λ), 380–780 nm at 1 nm.
+ *
+ * @param vision "photopic" or "scotopic"; default "photopic".
+ * @returns A "luminous efficiency" `Spectrum` (dimensionless, peak 1).
+ * @source CIE 018:2019 Table 1 (V) and Table 2 (V′, CIE 1951).
+ * @example valueAt(luminousEfficiency("scotopic"), 507)
  */
 export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
   if (vision === "photopic") {

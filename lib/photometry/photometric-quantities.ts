@@ -11,8 +11,16 @@ import { withValues, type SpectralQuantity, type Spectrum } from "../spectrum/sp
 import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-efficiency.ts";
 
 /**
- * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V share: at the spectrum's own samples when they lie every
- * 1 or 5 nm on whole nanometres, otherwise after interpolating the spectrum to 1 nm (CIE 167:2005 interpolation).
+ * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V (or V′) share.
+ *
+ * Summed at the spectrum's own samples when they lie every 1 or 5 nm on whole nanometres, otherwise after
+ * interpolating the spectrum to 1 nm (V is read linearly).
+ *
+ * @param spd A spectral distribution.
+ * @param vision "photopic" (V) or "scotopic" (V′); default "photopic".
+ * @returns { sum in the spectrum's unit × nm, interval in nm, range [first, last] in nm }.
+ * @source CIE 018:2019 eq. 2 (without the factor Km); CIE 167:2005 (interpolation).
+ * @example spectralLuminousSum(illuminant("D65")).sum
  */
 export function spectralLuminousSum(
   spd: Spectrum,
@@ -62,27 +70,66 @@ function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): n
   return k * sum;
 }
 
-/** Luminous flux in lm from spectral radiant flux in W/nm: Φv = Km Σ Φe,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+/**
+ * Luminous flux from spectral radiant flux: Φv = Km Σ Φe,λ V(λ) Δλ (K′m and V′ for scotopic vision).
+ *
+ * @param spd Spectral radiant flux in W/nm (quantity "radiant flux" or "other").
+ * @param options.vision "photopic" (Km = 683 lm/W) or "scotopic" (K′m = 1700 lm/W); default "photopic".
+ * @returns Φv in lm.
+ * @source CIE 018:2019 eq. 2.
+ * @example luminousFlux(spectrumOnGrid(550, 5, [0.01, 0.01, 0.01], { quantity: "radiant flux", unit: "W/nm" }))
+ */
 export function luminousFlux(spd: Spectrum, options: { vision?: Vision } = {}): number {
   return photometric("luminous flux", spd, options.vision ?? "photopic");
 }
 
-/** Luminance in cd/m² from spectral radiance in W/(sr·m²·nm): Lv = Km Σ Le,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+/**
+ * Luminance from spectral radiance: Lv = Km Σ Le,λ V(λ) Δλ (K′m and V′ for scotopic vision).
+ *
+ * @param spd Spectral radiance in W/(sr·m²·nm) (quantity "radiance" or "other").
+ * @param options.vision "photopic" (Km = 683 lm/W) or "scotopic" (K′m = 1700 lm/W); default "photopic".
+ * @returns Lv in cd/m².
+ * @source CIE 018:2019 eq. 2.
+ * @example luminance(spectrumOnGrid(380, 5, new Array(81).fill(0.001), { quantity: "radiance", unit: "W/(sr·m²·nm)" }))
+ */
 export function luminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
   return photometric("luminance", spd, options.vision ?? "photopic");
 }
 
-/** Illuminance in lx from spectral irradiance in W/(m²·nm): Ev = Km Σ Ee,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+/**
+ * Illuminance from spectral irradiance: Ev = Km Σ Ee,λ V(λ) Δλ (K′m and V′ for scotopic vision).
+ *
+ * @param spd Spectral irradiance in W/(m²·nm) (quantity "irradiance" or "other").
+ * @param options.vision "photopic" (Km = 683 lm/W) or "scotopic" (K′m = 1700 lm/W); default "photopic".
+ * @returns Ev in lx.
+ * @source CIE 018:2019 eq. 2.
+ * @example illuminance(spectrumOnGrid(380, 5, new Array(81).fill(0.01), { quantity: "irradiance", unit: "W/(m²·nm)" }), { vision: "scotopic" })
+ */
 export function illuminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
   return photometric("illuminance", spd, options.vision ?? "photopic");
 }
 
-/** Luminous intensity in cd from spectral radiant intensity in W/(sr·nm): Iv = Km Σ Ie,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
+/**
+ * Luminous intensity from spectral radiant intensity: Iv = Km Σ Ie,λ V(λ) Δλ (K′m and V′ for scotopic vision).
+ *
+ * @param spd Spectral radiant intensity in W/(sr·nm) (quantity "other").
+ * @param options.vision "photopic" (Km = 683 lm/W) or "scotopic" (K′m = 1700 lm/W); default "photopic".
+ * @returns Iv in cd.
+ * @source CIE 018:2019 eq. 2.
+ * @example luminousIntensity(spectrumOnGrid(500, 10, [0.002, 0.003, 0.004, 0.003], { unit: "W/(sr·nm)" }))
+ */
 export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = {}): number {
   return photometric("luminous intensity", spd, options.vision ?? "photopic");
 }
 
-/** Luminous efficacy of radiation K = Km Σ S V Δλ / Σ S Δλ in lm/W over the spectrum's own range (CIE 018:2019 §3.4). */
+/**
+ * Luminous efficacy of radiation K = Km Σ S V Δλ ÷ Σ S Δλ, with the radiant power taken over the spectrum's own measured range.
+ *
+ * @param spd A spectral distribution (any scale) with radiant power.
+ * @returns K in lm/W.
+ * @source CIE 018:2019 §3.4.
+ * @example luminousEfficacyOfRadiation(illuminant("D65"))
+ */
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   const { sum } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
@@ -99,7 +146,14 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   return (KM * sum) / radiant;
 }
 
-/** Scotopic-to-photopic ratio S/P = K′m Σ S V′ Δλ / (Km Σ S V Δλ), K′m = 1700 lm/W, Km = 683 lm/W (CIE 018:2019). */
+/**
+ * Scotopic-to-photopic ratio S/P = K′m Σ S V′ Δλ ÷ (Km Σ S V Δλ), K′m = 1700 lm/W, Km = 683 lm/W.
+ *
+ * @param spd A light's spectral distribution (any scale).
+ * @returns S/P, dimensionless.
+ * @source CIE 018:2019 (V, V′, Km and K′m).
+ * @example scotopicPhotopicRatio(illuminant("A"))
+ */
 export function scotopicPhotopicRatio(spd: Spectrum): number {
   const p = spectralLuminousSum(spd, "photopic");
   const s = spectralLuminousSum(spd, "scotopic");
@@ -111,7 +165,15 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
   return (KM_SCOTOPIC * s.sum) / (KM * p.sum);
 }
 
-/** The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target` (cd/m², lx or lm, as the spectrum's unit implies). */
+/**
+ * The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target`.
+ *
+ * @param spd A spectral distribution with luminous power.
+ * @param target The photopic value wanted, positive: cd/m², lx or lm as the spectrum's unit implies.
+ * @returns A new `Spectrum` on the same wavelengths.
+ * @source CIE 018:2019 eq. 2 (Km = 683 lm/W).
+ * @example luminance(normaliseToLuminance(spectrumOnGrid(380, 5, new Array(81).fill(1), { quantity: "radiance" }), 100))
+ */
 export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
   if (!(Number.isFinite(target) && target > 0))
     throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
@@ -144,9 +206,15 @@ function luminousFactor(
 }
 
 /**
- * Luminous transmittance τv = Σ S τ V Δλ / Σ S V Δλ as a fraction (ISO/CIE 11664-3; CIE 015:2018 §7.1: Y/100 with
- * the 1931 observer), under illuminant D65 unless another is given. A bare number cannot carry a caution: for a
- * safety use, transmittedLight() and filterSunglassCategory() return τv with a `caution` field the report shows.
+ * Luminous transmittance τv = Σ S τ V Δλ ÷ Σ S V Δλ, i.e. Y ÷ 100 with the CIE 1931 observer, under D65 unless another illuminant is given.
+ *
+ * A bare number cannot carry a caution: for a safety use, `transmittedLight()` and `filterSunglassCategory()`
+ * return τv with a `caution` field the report shows.
+ *
+ * @param sample A transmittance spectrum, values as fractions (quantity "transmittance" or "other").
+ * @returns τv as a fraction 0–1.
+ * @source ISO/CIE 11664-3; CIE 015:2018 §7.1.
+ * @example luminousTransmittance(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "transmittance" }))
  */
 export function luminousTransmittance(sample: Spectrum, options: LuminousOptions = {}): number {
   const t = luminousFactor("luminousTransmittance", sample, "transmittance", options);
@@ -157,7 +225,14 @@ export function luminousTransmittance(sample: Spectrum, options: LuminousOptions
   return t;
 }
 
-/** Luminous reflectance ρv = Σ S ρ V Δλ / Σ S V Δλ as a fraction (Y/100 with the CIE 1931 observer; CIE 015:2018 §7.1), D65 unless given. */
+/**
+ * Luminous reflectance ρv = Σ S ρ V Δλ ÷ Σ S V Δλ, i.e. Y ÷ 100 with the CIE 1931 observer, under D65 unless another illuminant is given.
+ *
+ * @param sample A reflectance spectrum, values as fractions (quantity "reflectance" or "other").
+ * @returns ρv as a fraction 0–1.
+ * @source CIE 015:2018 §7.1.
+ * @example luminousReflectance(spectrumOnGrid(380, 5, new Array(81).fill(0.2), { quantity: "reflectance" }), { illuminant: "A" })
+ */
 export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
   const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
   noteMethod(

@@ -52,7 +52,7 @@ export interface ChromaticityDiagramOptions {
   observer?: ObserverName | Observer | 2 | 10;
   /** Title; default names the diagram. */
   title?: string;
-  /** Your caption; the figure adds a sentence on what is drawn and that the colours are approximate. */
+  /** Your caption, default none; the figure adds a sentence on what is drawn and that the colours are approximate. */
   caption?: string;
   /** Approximate colour fill inside the locus (default on). */
   fill?: boolean | FillOptions;
@@ -64,13 +64,13 @@ export interface ChromaticityDiagramOptions {
   daylight?: boolean;
   /** White points to mark: illuminant names, true for A, D50, D55, D65, D75, E; default ["D65"]. */
   whitePoints?: readonly string[] | boolean;
-  /** Labelled points; points with the same `group` share a marker and a legend entry. */
+  /** Labelled points; points with the same `group` share a marker and a legend entry; default none. */
   points?: readonly LabelledChromaticity[];
-  /** Gamut outlines: "sRGB", "BT.709", "Display P3", "BT.2020", or custom primaries. */
+  /** Gamut outlines: "sRGB", "BT.709", "Display P3", "BT.2020", or custom primaries; default none. */
   gamuts?: readonly GamutChoice[];
-  /** Tolerance circles and ellipses. */
+  /** Tolerance circles and ellipses; default none. */
   tolerances?: readonly ToleranceRegion[];
-  /** Arrows from one chromaticity to another. */
+  /** Arrows from one chromaticity to another; default none. */
   arrows?: readonly ChromaticityArrow[];
   /** Axis ranges in diagram coordinates, or "white region" for the area around the Planckian locus; default the whole diagram. */
   range?: { x: readonly [number, number]; y: readonly [number, number] } | "white region";
@@ -499,9 +499,14 @@ function whitePointTrace(
 }
 
 /**
- * A chromaticity diagram (CIE 1931 xy or CIE 1976 u′v′) with the overlays asked for, as a Plotly figure record.
- * Drawing notes nothing in the methods log: the loci, white-point marks, fill and hover readouts (CCT, Duv) are
+ * A chromaticity diagram (CIE 1931 xy or CIE 1976 u′v′) with the overlays asked for, as a figure record for `showFigure`.
+ *
+ * Drawing notes nothing in the Methods log: the loci, white-point marks, fill and hover readouts (CCT, Duv) are
  * decorations, and the caption states what they are.
+ *
+ * @returns A `PlotFigure` (Plotly data, layout, config and caption).
+ * @source CIE 015:2018 (spectral locus, Planckian and daylight loci, white points); the drawing is the tristim house style.
+ * @example chromaticityDiagram({ diagram: "u'v'", points: [{ label: "invented lamp", x: 0.45, y: 0.41 }], gamuts: ["sRGB"] })
  */
 export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): PlotFigure {
   return withoutMethodNotes(() => drawChromaticityDiagram(options));
@@ -626,7 +631,16 @@ function drawChromaticityDiagram(options: ChromaticityDiagramOptions): PlotFigur
   return plotFigure(data, layout, houseConfig(options.title ?? defaultTitle), caption);
 }
 
-/** The point of the spectral locus at a wavelength, in a diagram's coordinates (for annotations in cells). */
+/**
+ * The point of the spectral locus at a wavelength, in a diagram's coordinates (for annotations in cells).
+ *
+ * @param wavelength The wavelength, in nm.
+ * @param diagram "xy" or "u'v'"; default "xy".
+ * @param observer "2°" or "10°" or an `Observer`; default "2°".
+ * @returns [x, y] (or [u′, v′]).
+ * @source ISO/CIE 11664-1:2019 (colour-matching functions); CIE 015:2018 eqs. 7.3 and 8.2.
+ * @example spectralLocusPoint(520)
+ */
 export function spectralLocusPoint(
   wavelength: number,
   diagram: "xy" | "u'v'" = "xy",

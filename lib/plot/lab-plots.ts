@@ -36,22 +36,32 @@ export interface LabPair {
 }
 
 export interface LabPlotOptions {
+  /** Points to plot: { label, lab, group? } (a shared `group` shares a marker); default none. */
   samples?: readonly LabSample[];
+  /** Reference → sample pairs { label, reference, sample }, drawn as arrows with ΔE00 on hover; default none. */
   pairs?: readonly LabPair[];
+  /** Title; default "CIELAB a*, b* plane" or "CIELAB lightness against chroma". */
   title?: string;
-  /** Your caption; the figure adds what the markers and arrows mean. */
+  /** Your caption, default none; the figure adds what the markers and arrows mean. */
   caption?: string;
   /** Half-width of the a* and b* axes (labPlane) or the largest C*ab shown (lightnessChromaPlot); default from the data. */
   extent?: number;
   /** Label every point with its name (default: when there are at most 30 points). */
   labels?: boolean;
+  /** Height in CSS px; default 600 (labPlane) or 420 (lightnessChromaPlot). */
   height?: number;
 }
 
 /**
- * An approximate sRGB #rrggbb for a CIELAB colour, for marker fills only: the L*a*b* values are read as if relative
- * to the D65 display white (so no chromatic adaptation is modelled) and a colour outside sRGB is gamut-mapped into
- * it by CSS Color 4 §13.2 (chroma reduced at constant OKLab lightness and hue; gamut-mapping.ts).
+ * An approximate sRGB #rrggbb for a CIELAB colour, for marker fills only (not a colorimetric conversion).
+ *
+ * L*a*b* is read as if relative to the D65 display white (no chromatic adaptation is modelled); a colour outside sRGB
+ * is gamut-mapped into it (chroma reduced at constant OKLab lightness and hue).
+ *
+ * @param lab CIELAB { L, a, b }.
+ * @returns "#rrggbb".
+ * @source CSS Color Module Level 4 §13.2 (gamut mapping); IEC 61966-2-1:1999 (sRGB).
+ * @example labDisplayHex({ L: 60, a: 30, b: 20 })
  */
 export function labDisplayHex(lab: Lab): string {
   const xyz = xyzFromLab(lab, D65_WHITE_Y100);
@@ -259,7 +269,14 @@ function captionFor(o: LabPlotOptions, view: View): string {
   return o.caption ? `${o.caption.trim()} ${auto}` : auto;
 }
 
-/** The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows (hover ΔE00 is not noted in the methods log). */
+/**
+ * The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows, as a figure record (hover ΔE00 is not noted in the Methods log).
+ *
+ * @param options Samples, pairs, title, caption, extent, labels, height.
+ * @returns A `PlotFigure`.
+ * @source CIE 015:2018 §8.2.1 (CIELAB); CIE 142-2001 (ΔE00 on hover); the drawing is the tristim house style.
+ * @example labPlane({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }], pairs: [{ label: "invented B", reference: { L: 60, a: -10, b: 30 }, sample: { L: 61, a: -8, b: 28 } }] })
+ */
 export function labPlane(options: LabPlotOptions): PlotFigure {
   return withoutMethodNotes(() => drawLabPlane(options));
 }
@@ -333,7 +350,14 @@ function drawLabPlane(options: LabPlotOptions): PlotFigure {
   );
 }
 
-/** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows (hover ΔE00 is not noted in the methods log). */
+/**
+ * CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows, as a figure record (hover ΔE00 is not noted in the Methods log).
+ *
+ * @param options Samples, pairs, title, caption, extent, labels, height.
+ * @returns A `PlotFigure`.
+ * @source CIE 015:2018 §8.2.1 (CIELAB, C*ab); the drawing is the tristim house style.
+ * @example lightnessChromaPlot({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }, { label: "invented B", lab: { L: 70, a: 5, b: 40 } }] })
+ */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
   return withoutMethodNotes(() => drawLightnessChromaPlot(options));
 }

@@ -41,8 +41,9 @@ export interface SpectrumEnvelope {
 }
 
 export interface SpectrumPlotOptions {
+  /** Title; default the one series' label or name, else the axis quantity. */
   title?: string;
-  /** Your caption; the figure adds what the axes show and that the colour band is approximate. */
+  /** Your caption, default none; the figure adds what the axes show and that the colour band is approximate. */
   caption?: string;
   /** The axis quantity, e.g. "Spectral irradiance"; default from the spectra (they must then agree). */
   quantity?: string;
@@ -54,14 +55,17 @@ export interface SpectrumPlotOptions {
   scale?: "linear" | "log";
   /** Wavelength range (nm); default the spectra's range. */
   wavelengthRange?: readonly [number, number];
-  /** Value range in axis units (for a log axis give the values, not their logarithms). */
+  /** Value range in axis units (for a log axis give the values, not their logarithms); default from the data. */
   valueRange?: readonly [number, number];
   /** Visible-spectrum colour band under the wavelength axis (default on). */
   band?: boolean;
+  /** Vertical marks { wavelength (nm), label? } (laser lines, peaks, edges); default none. */
   marks?: readonly WavelengthMark[];
+  /** Shaded bands { lower, upper, label? } between two spectra (tolerance limits, min/max); default none. */
   envelopes?: readonly SpectrumEnvelope[];
-  /** Fill under every curve (each series can also ask for it). */
+  /** Fill under every curve (each series can also ask for it); default false. */
   fill?: boolean;
+  /** Height in CSS px; default `FIGURE_HEIGHTS.chart` (420). */
   height?: number;
 }
 
@@ -104,7 +108,14 @@ function valueAt(s: Spectrum, w: number): number | undefined {
   return s.values[i]! + t * (s.values[i + 1]! - s.values[i]!);
 }
 
-/** A plot of spectra against wavelength in the house style, with the quantity and unit on the value axis (drawing notes nothing in the methods log). */
+/**
+ * A plot of spectra against wavelength in the house style, with the quantity and unit on the value axis (drawing notes nothing in the Methods log).
+ *
+ * @param spectra A spectrum, a series { spectrum, label?, fill? }, or a list of them (same quantity unless `quantity` is given).
+ * @returns A `PlotFigure`.
+ * @source none: the tristim house style (the colour band under the axis is approximate).
+ * @example spectrumPlot([illuminant("A"), illuminant("D65")], { wavelengthRange: [380, 780], marks: [{ wavelength: 560, label: "560 nm" }] })
+ */
 export function spectrumPlot(
   spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[],
   options: SpectrumPlotOptions = {},

@@ -57,7 +57,14 @@ export const SERIES_MARKERS: readonly string[] = [
   "triangle-down",
 ];
 
-/** The look of the i-th series (0-based): colour, dash and marker, cycling independently so pairs rarely repeat. */
+/**
+ * The look of the i-th series in the house style: colour, dash and marker, cycling independently so pairs rarely repeat.
+ *
+ * @param i The series index, a whole number from 0.
+ * @returns { color (CSS colour), dash (Plotly dash), symbol (Plotly marker) }.
+ * @source none: the tristim house style.
+ * @example seriesLook(3)
+ */
 export function seriesLook(i: number): { color: string; dash: string; symbol: string } {
   if (!Number.isInteger(i) || i < 0) throw new Error(`series index ${i} must be a whole number ≥ 0`);
   return {
@@ -80,7 +87,15 @@ export const FIGURE_HEIGHTS = {
 /** Margins in px: room for axis titles on the left and bottom, the title on top. */
 export const MARGINS = { l: 68, r: 24, t: 64, b: 60, pad: 0 } as const;
 
-/** An axis in the house style: closed frame, inward major and minor ticks, dotted grid, title with its unit. */
+/**
+ * A Plotly axis in the house style: closed frame, inward major and minor ticks, dotted grid, title with its unit.
+ *
+ * @param title The axis title with its unit, e.g. "Wavelength (nm)".
+ * @param extra Further Plotly axis settings, overriding the house ones; default none ({}).
+ * @returns A Plotly axis object.
+ * @source none: the tristim house style.
+ * @example houseAxis("Wavelength (nm)", { range: [380, 780] })
+ */
 export function houseAxis(title: string, extra: Record<string, unknown> = {}): Record<string, unknown> {
   return {
     title: { text: title, font: { size: 13, color: INK.text }, standoff: 8 },
@@ -105,13 +120,17 @@ export function houseAxis(title: string, extra: Record<string, unknown> = {}): R
 }
 
 export interface HouseLayoutOptions {
+  /** The figure's title (required). */
   title: string;
-  /** A second, smaller title line (observer, illuminant, conditions). */
+  /** A second, smaller title line (observer, illuminant, conditions); default none. */
   subtitle?: string;
+  /** Height in CSS px; default `FIGURE_HEIGHTS.chart` (420). */
   height?: number;
+  /** The x axis, e.g. from `houseAxis` (required). */
   xaxis: Record<string, unknown>;
+  /** The y axis, e.g. from `houseAxis` (required). */
   yaxis: Record<string, unknown>;
-  /** Legend placement inside the frame, or outside on the right. */
+  /** Legend placement inside the frame, outside on the right, below, or "none"; default "inside top right". */
   legend?:
     | "inside top right"
     | "inside top left"
@@ -155,7 +174,14 @@ function legendAt(where: NonNullable<HouseLayoutOptions["legend"]>): Record<stri
   };
 }
 
-/** The base layout every tristim figure starts from. */
+/**
+ * The base Plotly layout every tristim figure starts from (title, fonts, margins, legend, hover style).
+ *
+ * @param o The title, axes and optional subtitle, height and legend placement.
+ * @returns A Plotly layout object.
+ * @source none: the tristim house style.
+ * @example houseLayout({ title: "Invented spectra", xaxis: houseAxis("Wavelength (nm)"), yaxis: houseAxis("Reflectance (%)"), legend: "below" })
+ */
 export function houseLayout(o: HouseLayoutOptions): PlotLayout {
   const legend = o.legend ?? "inside top right";
   return {
@@ -192,7 +218,14 @@ export function houseLayout(o: HouseLayoutOptions): PlotLayout {
   };
 }
 
-/** Plotly config: no vendor logo, responsive width, a PNG export at print resolution (3× the screen size). */
+/**
+ * Plotly configuration in the house style: no vendor logo, responsive width, PNG export at 3× the screen size.
+ *
+ * @param filename The PNG file name offered on export (characters outside A–Z, a–z, 0–9, ".", "_", "-" become "-").
+ * @returns A Plotly config object.
+ * @source none: the tristim house style.
+ * @example houseConfig("invented-spectra")
+ */
 export function houseConfig(filename: string): PlotConfig {
   return {
     displaylogo: false,

@@ -77,6 +77,7 @@ export interface SwatchOptions {
    * 1 nm, else 5 nm; 360–830 nm). The white is always summed on the same table as the sample (objectColour).
    */
   interval?: ObjectColourOptions["interval"];
+  /** Summation range in nm for spectra, as for tristimulus(); default 360–830 nm. */
   range?: ObjectColourOptions["range"];
 }
 
@@ -164,7 +165,16 @@ const MAPPING_REMARKS: Partial<Record<GamutMapping, string>> = {
   black: "shown as black",
 };
 
-/** One swatch for a colour, for the chosen display gamut. */
+/**
+ * One colour swatch for the chosen display gamut: sRGB hex (gamut-mapped when needed), a wide-gamut CSS colour when outside sRGB, and gamut flags.
+ *
+ * @param label The swatch's label.
+ * @param colour { XYZ, white? } or { lab, white? } (white default D65, Y = 100), { hex }, or a reflectance/transmittance spectrum (coloured under `options.illuminant`).
+ * @param options.note A note shown under the patch; default none.
+ * @returns A `Swatch` for `showSwatches`.
+ * @source IEC 61966-2-1:1999 (sRGB); CSS Color Module Level 4 §13.2 (gamut mapping); Bradford adaptation to D65 for spectra (ICC.1:2010 Annex E).
+ * @example swatch("invented tile", { lab: { L: 55, a: 40, b: 25 } }).hex
+ */
 export function swatch(
   label: string,
   colour: SwatchColour,
@@ -228,7 +238,14 @@ export interface SwatchEntry {
   readonly note?: string;
 }
 
-/** Swatches for a set of colours (show them with `showSwatches(grid, caption)` or `show(grid)`). */
+/**
+ * Swatches for a set of colours (show them with `showSwatches(grid, caption)` or `show(grid)`).
+ *
+ * @param entries [{ label, colour, note? }, ...] with colours as `swatch` takes them.
+ * @returns An array of `Swatch`.
+ * @source As `swatch`: IEC 61966-2-1:1999; CSS Color Module Level 4 §13.2.
+ * @example swatchGrid([{ label: "invented red", colour: { hex: "#c03030" } }, { label: "invented blue", colour: { lab: { L: 40, a: 10, b: -50 } } }])
+ */
 export function swatchGrid(entries: readonly SwatchEntry[], options: SwatchOptions = {}): Swatch[] {
   if (!Array.isArray(entries)) throw new Error("swatchGrid: expected an array of { label, colour }");
   return entries.map((e, i) => {
@@ -252,9 +269,12 @@ function labOf(c: SwatchColour, options: SwatchOptions, what: string): { lab: La
 }
 
 /**
- * Reference/sample pairs: two swatches per pair ("<label> reference", "<label> sample"), each with `pair` { label,
- * role }, the sample's carrying ΔE00 (CIEDE2000, CIE 142-2001, via lib/difference; unrounded) computed from CIELAB
- * with the pair's common reference white. The report draws each pair as one unit, the ΔE00 under both patches.
+ * Reference/sample pairs: two swatches per pair, each with `pair` { label, role }, the sample's carrying ΔE00 from CIELAB with the pair's common white.
+ *
+ * @param pairs [{ label, reference, sample }, ...] with colours as `swatch` takes them.
+ * @returns An array of `Swatch`, reference then sample for each pair.
+ * @source CIE 142-2001 (ΔE00); IEC 61966-2-1:1999 (sRGB display).
+ * @example swatchPairs([{ label: "invented lot 7", reference: { lab: { L: 50, a: 20, b: 10 } }, sample: { lab: { L: 51, a: 18, b: 12 } } }])
  */
 export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOptions = {}): Swatch[] {
   if (!Array.isArray(pairs))

@@ -107,7 +107,14 @@ function cd(p: Sums): { c: number; d: number } {
   return { c: (4 - p.u - 10 * p.v) / p.v, d: (1.708 * p.v + 0.404 - 1.481 * p.u) / p.v };
 }
 
-/** The reference illuminant of CIE 13.3 for a CCT: a Planckian radiator below 5000 K, CIE daylight from 5000 K. */
+/**
+ * The reference illuminant of the colour rendering index for a CCT: a Planckian radiator below 5000 K (380–780 nm at 5 nm), CIE daylight from 5000 K to 25000 K.
+ *
+ * @param cct The correlated colour temperature, in K.
+ * @returns A "relative power" `Spectrum`.
+ * @source CIE 13.3-1995 (choice of the reference illuminant).
+ * @example renderingReference(3000).name
+ */
 export function renderingReference(cct: number): Spectrum {
   requireFinite(cct, "colour rendering reference CCT");
   if (cct < CRI_DAYLIGHT_FROM_K) return planckianSpectrum(cct, { start: 380, end: 780, step: 5 });
@@ -118,7 +125,19 @@ export function renderingReference(cct: number): Spectrum {
   return daylightSpectrum(cct);
 }
 
-/** Ra and R1–R14 of a light source by CIE 13.3-1995 (see the file header for the steps). */
+/**
+ * The CIE general colour rendering index Ra and the special indices R1–R14 of a light source.
+ *
+ * The 14 test colour samples are computed under the source and under a reference illuminant of the same CCT, adapted
+ * by the von Kries-type transform of CIE 13.3, and compared in CIE 1964 U*V*W*: Rᵢ = 100 − 4.6·ΔEᵢ; Ra is the mean of
+ * R1–R8 (unrounded).
+ *
+ * @param source The light source's spectral distribution, covering 380–780 nm.
+ * @param options.cctMethod How the CCT is found: "ohno" or "robertson"; default "ohno" (see `cctAndDuv`).
+ * @returns { ra, special [{ sample, R, deltaE }], cct (K), duv, reference, dc, withinTolerance (DC < 5.4e-3), notes }.
+ * @source CIE 13.3-1995.
+ * @example colourRenderingIndex(illuminant("FL2")).ra
+ */
 export function colourRenderingIndex(
   source: Spectrum,
   options: { cctMethod?: CctMethod } = {},

@@ -21,6 +21,7 @@ export interface MetamerismOptions {
   reference?: string | Spectrum;
   /** The illuminant the pair is judged under (default "A"). */
   test?: string | Spectrum;
+  /** Observer: "2°" or "10°" or an `Observer`; default the CIE 1931 2° observer. */
   observer?: ObserverName | Observer | 2 | 10;
   /** Correction of an imperfect match under the reference (default "multiplicative", CIE 015). */
   correction?: MetamerismCorrection;
@@ -47,7 +48,18 @@ function nameOf(ill: string | Spectrum): string {
   return typeof ill === "string" ? ill : ill.name;
 }
 
-/** Special metamerism index of a pair for a change from the reference to the test illuminant (CIE 015:2018, special metamerism index). */
+/**
+ * Special metamerism index for a change of illuminant: the colour difference under a test illuminant of two samples that match under a reference illuminant.
+ *
+ * When the pair does not match exactly under the reference, sample 2 is first corrected (multiplicatively in X, Y, Z
+ * by default, or additively in CIELAB).
+ *
+ * @param sample1 The first sample's reflectance or transmittance spectrum (fractions).
+ * @param sample2 The second sample's spectrum.
+ * @returns { index, formula, correction, mismatchUnderReference, reference, test, labUnderTest }.
+ * @source CIE 015:2018, special metamerism index: change in illuminant.
+ * @example metamerismIndex(spectrumOnGrid(380, 40, [0.2, 0.3, 0.4, 0.35, 0.3, 0.3, 0.35, 0.4, 0.4, 0.4, 0.4]), spectrumOnGrid(380, 40, [0.25, 0.28, 0.38, 0.38, 0.28, 0.32, 0.33, 0.42, 0.38, 0.4, 0.4])).index
+ */
 export function metamerismIndex(
   sample1: Spectrum,
   sample2: Spectrum,

@@ -25,9 +25,17 @@ function noteSpace(space: RgbSpace, encoded: boolean): void {
 }
 
 /**
- * RGB of a colour in an RGB space: linear RGB = M⁻¹·XYZ (SMPTE RP 177-1993), then encoded by the space's transfer
- * function unless `encode: false`. XYZ on the Y = 100 scale (white Y = 100), except PQ spaces: absolute XYZ in cd/m².
- * XYZ must be relative to the space's white; adapt it first (adaptXYZ) if it is not. Values may fall outside 0–1.
+ * RGB values of a colour in an RGB space: linear RGB = M⁻¹·XYZ, then encoded by the space's transfer function unless `encode: false`.
+ *
+ * XYZ must be relative to the space's white (adapt it first with `adaptXYZ` if it is not). Values may fall outside
+ * 0–1 (see `isInGamut`).
+ *
+ * @param xyz Tristimulus values on the Y = 100 scale (white Y = 100); for PQ spaces absolute XYZ in cd/m².
+ * @param space An `RgbSpace` (from `rgbSpace` or `rgbSpaceFromPrimaries`).
+ * @param options.encode Apply the space's transfer function; default true (false gives linear RGB).
+ * @returns { r, g, b }, 0–1 inside the gamut.
+ * @source SMPTE RP 177-1993 (matrices from primaries and white); the space's transfer function standard.
+ * @example rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"))
  */
 export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?: boolean } = {}): Rgb {
   if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
@@ -44,7 +52,16 @@ export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?
   return { r: t.encode(r), g: t.encode(g), b: t.encode(b) };
 }
 
-/** XYZ (Y = 100 scale; cd/m² for PQ spaces) of RGB values in a space: decoded by its transfer function unless `decode: false`, then M·RGB (SMPTE RP 177-1993). */
+/**
+ * Tristimulus values of RGB values in a space: decoded by its transfer function unless `decode: false`, then XYZ = M·RGB.
+ *
+ * @param rgb { r, g, b }, encoded (or linear with `decode: false`).
+ * @param space An `RgbSpace`.
+ * @param options.decode Apply the space's inverse transfer function first; default true.
+ * @returns { X, Y, Z } on the Y = 100 scale (white Y = 100); cd/m² for PQ spaces.
+ * @source SMPTE RP 177-1993; the space's transfer function standard.
+ * @example xyzFromRgb({ r: 1, g: 0, b: 0 }, rgbSpace("sRGB"))
+ */
 export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolean } = {}): Tristimulus {
   if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
     throw new Error(`xyzFromRgb: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
@@ -61,8 +78,13 @@ export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolea
 }
 
 /**
- * True when every channel lies in 0–1 within the tolerance (default 1e-6, to absorb rounding in measured data);
- * works on linear or encoded values alike, since the transfer functions keep 0 and 1 fixed and preserve order.
+ * True when every channel lies in 0–1 within the tolerance; works on linear or encoded values alike.
+ *
+ * @param rgb { r, g, b }, finite.
+ * @param tolerance How far outside 0–1 a channel may be, to absorb rounding in measured data; default 1e-6.
+ * @returns true inside the gamut.
+ * @source none: a tristim helper, no published formula.
+ * @example isInGamut(rgbFromXYZ({ X: 20, Y: 30, Z: 10 }, rgbSpace("sRGB")))
  */
 export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
   if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {

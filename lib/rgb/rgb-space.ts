@@ -49,7 +49,15 @@ function requireChromaticity(what: string, c: Chromaticity): void {
   }
 }
 
-/** The normalised primary matrix NPM = P·diag(P⁻¹·W) of SMPTE RP 177-1993 §3.3 (linear RGB → XYZ with Y = 1 for white). */
+/**
+ * The normalised primary matrix NPM = P·diag(P⁻¹·W): linear RGB → XYZ with Y = 1 for the white.
+ *
+ * @param primaries Chromaticities { r, g, b } of the primaries, each { x, y }.
+ * @param white The white's chromaticity { x, y }.
+ * @returns The 3 × 3 matrix as rows.
+ * @source SMPTE RP 177-1993 §3.3.
+ * @example normalisedPrimaryMatrix({ r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } }, { x: 0.3127, y: 0.329 })
+ */
 export function normalisedPrimaryMatrix(primaries: RgbPrimaries, white: Chromaticity): Matrix3 {
   requireChromaticity("red primary", primaries.r);
   requireChromaticity("green primary", primaries.g);
@@ -70,7 +78,18 @@ export function normalisedPrimaryMatrix(primaries: RgbPrimaries, white: Chromati
   return multiplyMatrix3(P, diagonalMatrix3(C));
 }
 
-/** An RGB space from measured or specified primaries and white (SMPTE RP 177-1993), with a transfer function by name. */
+/**
+ * An RGB space from measured or specified primaries and white, with a transfer function by name.
+ *
+ * @param primaries Chromaticities { r, g, b } of the primaries, each { x, y } (CIE 1931).
+ * @param white The white's chromaticity { x, y }.
+ * @param options.name The space's name; default "RGB from measured primaries".
+ * @param options.transfer The transfer function's name (see `transferFunction`); default "linear".
+ * @param options.source Where the primaries come from, for the Methods statement; default "primaries and white as given".
+ * @returns An `RgbSpace` with matrices toXYZ and fromXYZ.
+ * @source SMPTE RP 177-1993 (normalised primary matrix).
+ * @example rgbSpaceFromPrimaries({ r: { x: 0.68, y: 0.31 }, g: { x: 0.26, y: 0.68 }, b: { x: 0.15, y: 0.05 } }, { x: 0.3127, y: 0.329 }, { name: "invented display", transfer: "gamma 2.2" })
+ */
 export function rgbSpaceFromPrimaries(
   primaries: RgbPrimaries,
   white: Chromaticity,
@@ -152,14 +171,24 @@ const DEFINITIONS: Record<
 
 const cache = new Map<string, RgbSpace>();
 
-/** The names rgbSpace() knows. */
+/**
+ * The names `rgbSpace()` knows.
+ *
+ * @returns The names: "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ", "BT.2100 HLG".
+ * @source IEC 61966-2-1; SMPTE EG 432-1 (Display P3); ITU-R BT.709-6, BT.2020-2, BT.2100-2.
+ * @example rgbSpaceNames()
+ */
 export function rgbSpaceNames(): string[] {
   return Object.keys(DEFINITIONS);
 }
 
 /**
- * A standard RGB space by name: "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ", "BT.2100 HLG" (case and
- * spaces ignored), with matrices derived from its primaries and white per SMPTE RP 177-1993.
+ * A standard RGB space by name (case and spaces ignored), with matrices derived from its primaries and white.
+ *
+ * @param name "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ" or "BT.2100 HLG".
+ * @returns An `RgbSpace`: primaries, white, transfer function name, toXYZ and fromXYZ matrices, source.
+ * @source IEC 61966-2-1:1999; SMPTE EG 432-1 (Display P3); ITU-R BT.709-6, BT.2020-2, BT.2100-2; matrices per SMPTE RP 177-1993.
+ * @example rgbSpace("Display P3").white
  */
 export function rgbSpace(name: string): RgbSpace {
   const norm = (s: string) =>

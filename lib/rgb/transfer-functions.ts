@@ -14,13 +14,27 @@ function odd(f: (x: number) => number): (x: number) => number {
   return (x) => (x < 0 ? -f(-x) : f(x));
 }
 
-/** sRGB encoding (IEC 61966-2-1:1999 §5.3): V = 12.92·L for L ≤ 0.0031308, else 1.055·L^(1/2.4) − 0.055. */
+/**
+ * sRGB encoding of a linear value: V = 12.92·L for L ≤ 0.0031308, else 1.055·L^(1/2.4) − 0.055 (negative values keep their sign).
+ *
+ * @param linear Linear light, relative 0–1 (values outside are encoded too).
+ * @returns The encoded signal, 0–1 for linear 0–1.
+ * @source IEC 61966-2-1:1999 §5.3.
+ * @example srgbEncode(0.18)
+ */
 export function srgbEncode(linear: number): number {
   requireFinite("srgbEncode", linear);
   return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
 }
 
-/** sRGB decoding (IEC 61966-2-1:1999 §5.2): L = V/12.92 for V ≤ 0.04045, else ((V + 0.055)/1.055)^2.4. */
+/**
+ * sRGB decoding of a signal: L = V ÷ 12.92 for V ≤ 0.04045, else ((V + 0.055) ÷ 1.055)^2.4 (negative values keep their sign).
+ *
+ * @param signal The encoded signal, 0–1.
+ * @returns Linear light, relative 0–1.
+ * @source IEC 61966-2-1:1999 §5.2.
+ * @example srgbDecode(0.5)
+ */
 export function srgbDecode(signal: number): number {
   requireFinite("srgbDecode", signal);
   return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
@@ -31,27 +45,57 @@ function requireGamma(what: string, gamma: number): void {
     throw new Error(`${what}: gamma ${gamma} must be a positive finite number`);
 }
 
-/** Pure power-law encoding V = L^(1/γ). */
+/**
+ * Pure power-law encoding V = L^(1/γ) (negative values keep their sign).
+ *
+ * @param linear Linear light, relative 0–1.
+ * @param gamma The exponent γ, positive (e.g. 2.2).
+ * @returns The encoded signal.
+ * @source none: a pure power law, no published formula.
+ * @example gammaEncode(0.18, 2.2)
+ */
 export function gammaEncode(linear: number, gamma: number): number {
   requireFinite("gammaEncode", linear);
   requireGamma("gammaEncode", gamma);
   return odd((l) => l ** (1 / gamma))(linear);
 }
 
-/** Pure power-law decoding L = V^γ. */
+/**
+ * Pure power-law decoding L = V^γ (negative values keep their sign).
+ *
+ * @param signal The encoded signal, 0–1.
+ * @param gamma The exponent γ, positive (e.g. 2.2).
+ * @returns Linear light, relative 0–1.
+ * @source none: a pure power law, no published formula.
+ * @example gammaDecode(0.5, 2.2)
+ */
 export function gammaDecode(signal: number, gamma: number): number {
   requireFinite("gammaDecode", signal);
   requireGamma("gammaDecode", gamma);
   return odd((v) => v ** gamma)(signal);
 }
 
-/** ITU-R BT.709-6 camera OETF: V = 4.500·L for L < 0.018, else 1.099·L^0.45 − 0.099. */
+/**
+ * ITU-R BT.709 camera OETF: V = 4.500·L for L < 0.018, else 1.099·L^0.45 − 0.099.
+ *
+ * @param linear Scene linear light, relative 0–1.
+ * @returns The encoded signal, 0–1.
+ * @source ITU-R BT.709-6 (opto-electronic transfer characteristic).
+ * @example bt709Encode(0.18)
+ */
 export function bt709Encode(linear: number): number {
   requireFinite("bt709Encode", linear);
   return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
 }
 
-/** Inverse of the ITU-R BT.709-6 OETF: L = V/4.5 for V < 0.081, else ((V + 0.099)/1.099)^(1/0.45). */
+/**
+ * Inverse of the ITU-R BT.709 OETF: L = V ÷ 4.5 for V < 0.081, else ((V + 0.099) ÷ 1.099)^(1/0.45).
+ *
+ * @param signal The encoded signal, 0–1.
+ * @returns Scene linear light, relative 0–1.
+ * @source ITU-R BT.709-6 (the OETF, inverted).
+ * @example bt709Decode(0.409)
+ */
 export function bt709Decode(signal: number): number {
   requireFinite("bt709Decode", signal);
   return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
@@ -75,14 +119,32 @@ function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: num
   return { a: root ** 2.4, b: lb ** (1 / 2.4) / root, lw };
 }
 
-/** ITU-R BT.1886 reference EOTF: L = a·max(V + b, 0)^2.4 in cd/m², a = (Lw^(1/2.4) − Lb^(1/2.4))^2.4, b = Lb^(1/2.4)/(Lw^(1/2.4) − Lb^(1/2.4)). */
+/**
+ * ITU-R BT.1886 reference display EOTF: L = a·max(V + b, 0)^2.4, with a and b from the screen's white and black luminance.
+ *
+ * a = (Lw^(1/2.4) − Lb^(1/2.4))^2.4, b = Lb^(1/2.4) ÷ (Lw^(1/2.4) − Lb^(1/2.4)).
+ *
+ * @param signal The video signal V, 0–1.
+ * @param display { whiteLuminance Lw in cd/m², default 100; blackLuminance Lb in cd/m², default 0 } (0 ≤ Lb < Lw).
+ * @returns The screen luminance L, in cd/m².
+ * @source ITU-R BT.1886 (03/2011), reference EOTF.
+ * @example bt1886Eotf(0.5, { whiteLuminance: 120, blackLuminance: 0.1 })
+ */
 export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
   requireFinite("bt1886Eotf", signal);
   const { a, b } = bt1886Constants("bt1886Eotf", display);
   return a * Math.max(signal + b, 0) ** 2.4;
 }
 
-/** Inverse of the ITU-R BT.1886 EOTF: V = (L/a)^(1/2.4) − b, L in cd/m². */
+/**
+ * Inverse of the ITU-R BT.1886 EOTF: V = (L ÷ a)^(1/2.4) − b.
+ *
+ * @param luminance The screen luminance L, in cd/m².
+ * @param display { whiteLuminance Lw in cd/m², default 100; blackLuminance Lb in cd/m², default 0 }.
+ * @returns The video signal V, 0–1 for Lb ≤ L ≤ Lw.
+ * @source ITU-R BT.1886 (03/2011), reference EOTF, inverted.
+ * @example bt1886InverseEotf(20)
+ */
 export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
   requireFinite("bt1886InverseEotf", luminance);
   const { a, b } = bt1886Constants("bt1886InverseEotf", display);
@@ -99,7 +161,14 @@ const PQ_C3 = (2392 / 4096) * 32;
 /** PQ peak luminance: signal 1 is 10 000 cd/m² (SMPTE ST 2084:2014). */
 export const PQ_PEAK_LUMINANCE = 10000;
 
-/** PQ inverse EOTF (SMPTE ST 2084:2014 eq. 5.2): N = ((c1 + c2·Y^m1)/(1 + c3·Y^m1))^m2 with Y = L/10 000, L in cd/m². */
+/**
+ * PQ inverse EOTF: N = ((c1 + c2·Y^m1) ÷ (1 + c3·Y^m1))^m2 with Y = L ÷ 10000.
+ *
+ * @param luminance The display luminance L, in cd/m² (0–10000).
+ * @returns The PQ signal N, 0–1.
+ * @source SMPTE ST 2084:2014 eq. 5.2; ITU-R BT.2100-2.
+ * @example pqEncode(100)
+ */
 export function pqEncode(luminance: number): number {
   requireFinite("pqEncode", luminance);
   return odd((l) => {
@@ -108,7 +177,14 @@ export function pqEncode(luminance: number): number {
   })(luminance);
 }
 
-/** PQ EOTF (SMPTE ST 2084:2014 eq. 5.1): L = 10 000·(max(N^(1/m2) − c1, 0)/(c2 − c3·N^(1/m2)))^(1/m1) cd/m². */
+/**
+ * PQ EOTF: L = 10000·(max(N^(1/m2) − c1, 0) ÷ (c2 − c3·N^(1/m2)))^(1/m1).
+ *
+ * @param signal The PQ signal N, 0–1.
+ * @returns The display luminance L, in cd/m².
+ * @source SMPTE ST 2084:2014 eq. 5.1; ITU-R BT.2100-2.
+ * @example pqDecode(0.5)
+ */
 export function pqDecode(signal: number): number {
   requireFinite("pqDecode", signal);
   return odd((n) => {
@@ -124,21 +200,40 @@ const HLG_A = 0.17883277;
 const HLG_B = 1 - 4 * HLG_A;
 const HLG_C = 0.5 - HLG_A * Math.log(4 * HLG_A);
 
-/** HLG OETF (ITU-R BT.2100-2 Table 5): E′ = √(3E) for E ≤ 1/12, else a·ln(12E − b) + c; E is normalised scene light 0–1. */
+/**
+ * HLG OETF: E′ = √(3E) for E ≤ 1/12, else a·ln(12E − b) + c.
+ *
+ * @param sceneLinear Normalised scene light E, 0–1.
+ * @returns The HLG signal E′, 0–1.
+ * @source ITU-R BT.2100-2 Table 5.
+ * @example hlgEncode(0.18)
+ */
 export function hlgEncode(sceneLinear: number): number {
   requireFinite("hlgEncode", sceneLinear);
   return odd((e) => (e <= 1 / 12 ? Math.sqrt(3 * e) : HLG_A * Math.log(12 * e - HLG_B) + HLG_C))(sceneLinear);
 }
 
-/** HLG inverse OETF (ITU-R BT.2100-2 Table 5): E = E′²/3 for E′ ≤ 1/2, else (exp((E′ − c)/a) + b)/12. */
+/**
+ * HLG inverse OETF: E = E′² ÷ 3 for E′ ≤ 1/2, else (exp((E′ − c) ÷ a) + b) ÷ 12.
+ *
+ * @param signal The HLG signal E′, 0–1.
+ * @returns Normalised scene light E, 0–1.
+ * @source ITU-R BT.2100-2 Table 5.
+ * @example hlgDecode(0.5)
+ */
 export function hlgDecode(signal: number): number {
   requireFinite("hlgDecode", signal);
   return odd((v) => (v <= 0.5 ? (v * v) / 3 : (Math.exp((v - HLG_C) / HLG_A) + HLG_B) / 12))(signal);
 }
 
 /**
- * HLG OOTF (ITU-R BT.2100-2 Table 5, Lb = 0): display light F_D = Lw·Ys^(γ − 1)·E per channel, with
- * Ys = 0.2627R + 0.6780G + 0.0593B and system gamma γ = 1.2 + 0.42·log10(Lw/1000). Scene light in, cd/m² out.
+ * HLG OOTF with zero black level: display light F_D = Lw·Ys^(γ − 1)·E per channel, Ys = 0.2627R + 0.6780G + 0.0593B, γ = 1.2 + 0.42·log10(Lw ÷ 1000).
+ *
+ * @param sceneLinear Normalised scene light { r, g, b }, each 0–1.
+ * @param peakLuminance The display's nominal peak luminance Lw, in cd/m²; default 1000.
+ * @returns Display light { r, g, b } in cd/m².
+ * @source ITU-R BT.2100-2 Table 5 (OOTF, Lb = 0).
+ * @example hlgDisplayLight({ r: 0.5, g: 0.5, b: 0.5 }, 1000)
  */
 export function hlgDisplayLight(
   sceneLinear: { r: number; g: number; b: number },
@@ -223,7 +318,16 @@ const TRANSFERS: Record<TransferName, TransferFunction> = {
   },
 };
 
-/** The transfer function with this name; an unknown name is an error listing the known ones. */
+/**
+ * The transfer function with this name ("sRGB", "linear", "gamma 2.2", "gamma 2.4", "gamma 2.6", "BT.709", "BT.1886", "PQ", "HLG"); an unknown name is an error listing the known ones.
+ *
+ * "PQ" here takes linear 1 = 10000 cd/m²; "BT.1886" is the EOTF with zero black level (a 2.4 power law).
+ *
+ * @param name The transfer function's name.
+ * @returns { name, description, encode(linear), decode(signal) }.
+ * @source IEC 61966-2-1:1999; ITU-R BT.709-6; ITU-R BT.1886; SMPTE ST 2084:2014; ITU-R BT.2100-2.
+ * @example transferFunction("sRGB").encode(0.5)
+ */
 export function transferFunction(name: TransferName | string): TransferFunction {
   const t = TRANSFERS[name as TransferName];
   if (!t) throw new Error(`unknown transfer function "${name}"; known: ${Object.keys(TRANSFERS).join(", ")}`);

@@ -41,18 +41,48 @@ function combine(
   );
 }
 
-/** Product of two spectra, e.g. an illuminant through a filter or two filters in series (sample by sample). */
+/**
+ * Product of two spectra sample by sample, e.g. an illuminant through a filter or two filters in series.
+ *
+ * Both must be on the same wavelengths (see `alignSpectra`). The result's quantity is that of `b` when `a` is a
+ * transmittance or reflectance, else that of `a`.
+ *
+ * @param a A spectrum.
+ * @param b A spectrum on the same wavelengths.
+ * @param label Name, quantity or unit of the result; default name "a × b", quantity as above, unit of `a`.
+ * @returns A new `Spectrum`.
+ * @source none: sample-by-sample arithmetic, no published formula.
+ * @example multiplySpectra(spectrumOnGrid(400, 10, [1, 1, 1]), spectrumOnGrid(400, 10, [0.5, 0.4, 0.3]))
+ */
 export function multiplySpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
   const quantity = a.quantity === "transmittance" || a.quantity === "reflectance" ? b.quantity : a.quantity;
   return combine("×", a, b, (x, y) => x * y, label, quantity);
 }
 
-/** Sum of two spectra, e.g. two lights falling on the same surface (additive mixing). */
+/**
+ * Sum of two spectra sample by sample, e.g. two lights falling on the same surface (additive mixing).
+ *
+ * @param a A spectrum.
+ * @param b A spectrum on the same wavelengths (see `alignSpectra`).
+ * @param label Name, quantity or unit of the result; default name "a + b", quantity and unit of `a`.
+ * @returns A new `Spectrum`.
+ * @source none: sample-by-sample arithmetic, no published formula.
+ * @example addSpectra(spectrumOnGrid(400, 10, [1, 2, 3]), spectrumOnGrid(400, 10, [3, 2, 1]))
+ */
 export function addSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
   return combine("+", a, b, (x, y) => x + y, label, a.quantity);
 }
 
-/** Ratio a/b sample by sample, e.g. a sample's signal over a reference's; a zero denominator is an error. */
+/**
+ * Ratio a ÷ b sample by sample, e.g. a sample's signal over a reference's; a zero denominator is an error.
+ *
+ * @param a The numerator spectrum.
+ * @param b The denominator spectrum, on the same wavelengths, never zero.
+ * @param label Name, quantity or unit of the result; default name "a ÷ b", quantity "other", unit of `a`.
+ * @returns A new `Spectrum`.
+ * @source none: sample-by-sample arithmetic, no published formula.
+ * @example divideSpectra(spectrumOnGrid(400, 10, [1, 2, 3]), spectrumOnGrid(400, 10, [2, 4, 4]))
+ */
 export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
   requireSameWavelengths("÷", a, b);
   b.values.forEach((y, i) => {
@@ -62,7 +92,16 @@ export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {
   return combine("÷", a, b, (x, y) => x / y, label, "other");
 }
 
-/** The spectrum with every value multiplied by a factor. */
+/**
+ * The spectrum with every value multiplied by a factor.
+ *
+ * @param s A spectrum.
+ * @param factor A finite number (dimensionless).
+ * @param label Name, quantity or unit of the result; each absent one is kept from `s` (default: all kept).
+ * @returns A new `Spectrum`.
+ * @source none: arithmetic, no published formula.
+ * @example scaleSpectrum(spectrumOnGrid(400, 10, [1, 2, 3]), 0.5)
+ */
 export function scaleSpectrum(s: Spectrum, factor: number, label: SpectrumLabel = {}): Spectrum {
   if (!Number.isFinite(factor))
     throw new Error(`scaleSpectrum: the factor for "${s.name}" is ${factor}, not a finite number`);
@@ -74,8 +113,14 @@ export function scaleSpectrum(s: Spectrum, factor: number, label: SpectrumLabel 
 }
 
 /**
- * Both spectra resampled onto one grid: by default the wavelengths they share (the overlap) at the finer of their
- * steps (1 nm when either is uneven), so that they can be combined.
+ * Both spectra resampled onto one grid, so that they can be combined sample by sample.
+ *
+ * @param a A spectrum.
+ * @param b Another spectrum.
+ * @param grid The target grid { start, end, step } in nm; default `overlapGrid(a, b)`: the shared wavelengths at the finer step (1 nm when either is uneven).
+ * @returns [a, b] on the grid.
+ * @source CIE 167:2005 (interpolation); CIE 015:2018 §7.2.2 (extrapolation).
+ * @example alignSpectra(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]), spectrumOnGrid(405, 5, [1, 2, 3, 4, 5, 6, 7]))
  */
 export function alignSpectra(
   a: Spectrum,
@@ -88,7 +133,15 @@ export function alignSpectra(
   return [resample(a, target, options), resample(b, target, options)];
 }
 
-/** The grid over the wavelengths two spectra share, at the finer of their steps (1 nm if either is uneven). */
+/**
+ * The grid over the wavelengths two spectra share, at the finer of their steps (1 nm when either is uneven).
+ *
+ * @param a A spectrum.
+ * @param b Another spectrum; the two must share some wavelengths.
+ * @returns { start, end, step } in nm.
+ * @source none: a tristim helper, no published formula.
+ * @example overlapGrid(spectrumOnGrid(400, 10, [1, 2, 3, 4]), spectrumOnGrid(405, 5, [1, 2, 3, 4, 5, 6]))
+ */
 export function overlapGrid(a: Spectrum, b: Spectrum): WavelengthGrid {
   const start = Math.max(a.wavelengths[0]!, b.wavelengths[0]!);
   const end = Math.min(a.wavelengths.at(-1)!, b.wavelengths.at(-1)!);

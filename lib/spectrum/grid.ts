@@ -8,7 +8,14 @@ export interface WavelengthGrid {
   readonly step: number;
 }
 
-/** The wavelengths of a grid, checked: start ≤ end, step > 0, and (end − start) a whole number of steps. */
+/**
+ * The wavelengths of a regular grid, checked: start ≤ end, step > 0, and end − start a whole number of steps.
+ *
+ * @param grid { start, end, step } in nm, end included.
+ * @returns The wavelengths in nm, from start to end.
+ * @source none: a tristim helper, no published formula.
+ * @example gridWavelengths({ start: 380, end: 780, step: 5 }).length
+ */
 export function gridWavelengths(grid: WavelengthGrid): number[] {
   const { start, end, step } = grid;
   if (![start, end, step].every(Number.isFinite) || step <= 0 || end < start) {
@@ -23,7 +30,14 @@ export function gridWavelengths(grid: WavelengthGrid): number[] {
   return Array.from({ length: n + 1 }, (_, i) => roundWavelength(start + i * step));
 }
 
-/** The spectrum's step if its wavelengths are evenly spaced (to 1e-6 nm), otherwise undefined. */
+/**
+ * The spectrum's wavelength step if its wavelengths are evenly spaced (to 1e-6 nm), otherwise undefined.
+ *
+ * @param s A spectrum.
+ * @returns The step in nm, or undefined for uneven spacing or a single sample.
+ * @source none: a tristim helper, no published formula.
+ * @example regularStep(spectrumOnGrid(400, 5, [1, 2, 3]))
+ */
 export function regularStep(s: Spectrum): number | undefined {
   const w = s.wavelengths;
   if (w.length < 2) return undefined;
@@ -32,14 +46,29 @@ export function regularStep(s: Spectrum): number | undefined {
   return roundWavelength(step);
 }
 
-/** The grid of an evenly spaced spectrum, or undefined when its spacing is irregular. */
+/**
+ * The regular grid of an evenly spaced spectrum, or undefined when its spacing is irregular.
+ *
+ * @param s A spectrum.
+ * @returns { start, end, step } in nm, or undefined.
+ * @source none: a tristim helper, no published formula.
+ * @example gridOf(spectrumOnGrid(400, 5, [1, 2, 3]))
+ */
 export function gridOf(s: Spectrum): WavelengthGrid | undefined {
   const step = regularStep(s);
   if (step === undefined) return undefined;
   return { start: s.wavelengths[0]!, end: s.wavelengths[s.wavelengths.length - 1]!, step };
 }
 
-/** True when two spectra are sampled at exactly the same wavelengths. */
+/**
+ * True when two spectra are sampled at exactly the same wavelengths (to 1e-9 nm).
+ *
+ * @param a A spectrum.
+ * @param b Another spectrum.
+ * @returns true when the wavelength lists match.
+ * @source none: a tristim helper, no published formula.
+ * @example sameWavelengths(spectrumOnGrid(400, 5, [1, 2]), spectrumOnGrid(400, 5, [3, 4]))
+ */
 export function sameWavelengths(a: Spectrum, b: Spectrum): boolean {
   if (a.wavelengths.length !== b.wavelengths.length) return false;
   for (let i = 0; i < a.wavelengths.length; i++)

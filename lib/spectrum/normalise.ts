@@ -2,7 +2,15 @@
 import { sampler, type SamplingOptions } from "./sample.ts";
 import { spectrum, withValues, type Spectrum } from "./spectrum.ts";
 
-/** The spectrum scaled so that its largest value equals `peak` (default 1). */
+/**
+ * The spectrum scaled so that its largest value equals `peak`.
+ *
+ * @param s A spectrum with at least one positive value.
+ * @param peak The value the largest sample becomes; default 1.
+ * @returns A new `Spectrum` with the same name, quantity and unit.
+ * @source none: arithmetic, no published formula.
+ * @example normaliseToPeak(spectrumOnGrid(400, 10, [1, 4, 2]))
+ */
 export function normaliseToPeak(s: Spectrum, peak = 1): Spectrum {
   const max = Math.max(...s.values);
   if (!(max > 0)) throw new Error(`normaliseToPeak: "${s.name}" has no positive value to scale to ${peak}`);
@@ -12,7 +20,16 @@ export function normaliseToPeak(s: Spectrum, peak = 1): Spectrum {
   );
 }
 
-/** The spectrum scaled so that its value at `wavelength` equals `value` (e.g. 100 at 560 nm, the CIE 015 convention for illuminants). */
+/**
+ * The spectrum scaled so that its value at `wavelength` equals `value` (e.g. 100 at 560 nm, the CIE 015 convention for illuminants).
+ *
+ * @param s A spectrum covering `wavelength` (no extrapolation).
+ * @param wavelength The wavelength in nm where the value is fixed.
+ * @param value The value there after scaling; default 100.
+ * @returns A new `Spectrum` with the same name, quantity and unit.
+ * @source CIE 015:2018 convention: relative spectral power distributions of illuminants are given as 100 at 560 nm.
+ * @example normaliseAt(spectrumOnGrid(500, 20, [2, 3, 4, 5, 6, 7]), 560)
+ */
 export function normaliseAt(
   s: Spectrum,
   wavelength: number,
@@ -30,7 +47,16 @@ export function normaliseAt(
   );
 }
 
-/** The samples of the spectrum between `from` and `to` nm inclusive. */
+/**
+ * The samples of the spectrum between `from` and `to` nm inclusive.
+ *
+ * @param s A spectrum.
+ * @param from The shortest wavelength kept, in nm.
+ * @param to The longest wavelength kept, in nm.
+ * @returns A new `Spectrum` with the samples in range (at least one).
+ * @source none: a tristim helper, no published formula.
+ * @example trimSpectrum(spectrumOnGrid(380, 10, [1, 2, 3, 4, 5]), 390, 410)
+ */
 export function trimSpectrum(s: Spectrum, from: number, to: number): Spectrum {
   const keep = s.wavelengths
     .map((w, i) => [w, i] as const)

@@ -20,7 +20,15 @@ export interface SamplingOptions {
   extrapolation?: Extrapolation;
 }
 
-/** The interpolation "auto" resolves to for this spectrum. */
+/**
+ * The interpolation method "auto" resolves to for this spectrum: Sprague for 6+ evenly spaced samples, a natural cubic spline for 3+ samples, else linear.
+ *
+ * @param s A spectrum.
+ * @param requested The interpolation asked for; default "auto". "sprague" and "spline" are checked against the data.
+ * @returns "linear", "sprague" or "spline".
+ * @source CIE 167:2005 (Sprague interpolation of evenly spaced data).
+ * @example resolveInterpolation(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]))
+ */
 export function resolveInterpolation(
   s: Spectrum,
   requested: Interpolation = "auto",
@@ -52,12 +60,30 @@ const METHOD_WORDS: Record<Exclude<Interpolation, "auto">, string> = {
   spline: "natural cubic spline interpolation of unevenly spaced data",
 };
 
-/** The Methods statement for reading this spectrum between its samples (the one `sampler` notes when it interpolates). */
+/**
+ * The Methods statement for reading this spectrum between its samples (the one `sampler` notes when it interpolates).
+ *
+ * @param s A spectrum.
+ * @param requested The interpolation asked for; default "auto" (see `resolveInterpolation`).
+ * @returns A sentence for the Methods section.
+ * @source CIE 167:2005 (Sprague interpolation); none for the wording.
+ * @example interpolationStatement(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]))
+ */
 export function interpolationStatement(s: Spectrum, requested: Interpolation = "auto"): string {
   return `Spectral data were interpolated by ${METHOD_WORDS[resolveInterpolation(s, requested)]}.`;
 }
 
-/** A function giving the spectrum's value at any wavelength (nm), built once for repeated reading. */
+/**
+ * A function giving the spectrum's value at any wavelength, built once for repeated reading.
+ *
+ * Measured values are returned exactly; between samples the interpolation applies, beyond them the extrapolation.
+ * The first interpolation and the first extrapolation are each noted in the Methods log.
+ *
+ * @param s A spectrum.
+ * @returns A function from a wavelength in nm to a value in the spectrum's unit.
+ * @source CIE 167:2005 (interpolation); CIE 015:2018 §7.2.2 (holding the end values beyond the measured range).
+ * @example sampler(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]))(415)
+ */
 export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength: number) => number {
   const method = resolveInterpolation(s, options.interpolation);
   const extrapolation = options.extrapolation ?? "hold";
@@ -108,7 +134,15 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
   };
 }
 
-/** The spectrum's value at one wavelength (nm). */
+/**
+ * The spectrum's value at one wavelength, interpolated or extrapolated as `sampler` does.
+ *
+ * @param s A spectrum.
+ * @param wavelength The wavelength, in nm.
+ * @returns The value in the spectrum's unit.
+ * @source CIE 167:2005 (interpolation); CIE 015:2018 §7.2.2 (extrapolation by holding the end values).
+ * @example valueAt(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]), 425, { interpolation: "linear" })
+ */
 export function valueAt(s: Spectrum, wavelength: number, options: SamplingOptions = {}): number {
   return sampler(s, options)(wavelength);
 }

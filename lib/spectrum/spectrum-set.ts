@@ -1,7 +1,16 @@
 /** Sets of spectra measured on one wavelength column (e.g. 24 samples of a chart): a plain array of spectra. */
 import { spectrum, type Spectrum, type SpectrumLabel } from "./spectrum.ts";
 
-/** Builds one spectrum per named column, all on the same wavelengths. */
+/**
+ * Builds one spectrum per named column, all on the same wavelengths (e.g. the patches of a chart).
+ *
+ * @param wavelengths Wavelengths in nm, strictly increasing.
+ * @param columns Values per spectrum name, one value per wavelength.
+ * @param label Quantity and unit shared by all; default quantity "other", unit "" (none).
+ * @returns An array of spectra, named after the columns.
+ * @source none: a tristim data structure, no published formula.
+ * @example spectrumSet([400, 500, 600], { "patch 1": [0.1, 0.2, 0.3], "patch 2": [0.5, 0.5, 0.4] }, { quantity: "reflectance" })
+ */
 export function spectrumSet(
   wavelengths: readonly number[],
   columns: Readonly<Record<string, readonly number[]>>,
@@ -10,7 +19,15 @@ export function spectrumSet(
   return Object.entries(columns).map(([name, values]) => spectrum(wavelengths, values, { ...label, name }));
 }
 
-/** The spectrum of a set with the given name; an unknown name is an error listing the names there are. */
+/**
+ * The spectrum of a set with the given name; an unknown name is an error listing the names there are.
+ *
+ * @param set An array of spectra.
+ * @param name The name to find (exact).
+ * @returns The spectrum.
+ * @source none: a tristim helper, no published formula.
+ * @example pickSpectrum(spectrumSet([400, 500], { a: [1, 2], b: [3, 4] }), "b")
+ */
 export function pickSpectrum(set: readonly Spectrum[], name: string): Spectrum {
   const found = set.find((s) => s.name === name);
   if (!found)

@@ -34,7 +34,16 @@ export interface SpectrumLabel {
   unit?: string;
 }
 
-/** Builds a spectrum from wavelengths (nm) and values, checking that both are finite and the wavelengths increase. */
+/**
+ * Builds a spectrum from wavelengths and values, checking that both are finite and that the wavelengths increase.
+ *
+ * @param wavelengths Wavelengths in nm, positive and strictly increasing.
+ * @param values One value per wavelength (transmittance and reflectance as fractions 0–1), all finite.
+ * @param label Name, quantity and unit of the values; default name "spectrum", quantity "other", unit "" (none).
+ * @returns A new `Spectrum` (copies of both arrays).
+ * @source none: a tristim data structure, no published formula.
+ * @example spectrum([400, 500, 600], [0.2, 0.5, 0.4], { name: "invented filter", quantity: "transmittance" })
+ */
 export function spectrum(
   wavelengths: readonly number[],
   values: readonly number[],
@@ -70,7 +79,17 @@ export function spectrum(
   };
 }
 
-/** Builds a spectrum on a regular grid: the first wavelength, the step (nm), and one value per step. */
+/**
+ * Builds a spectrum on a regular grid from the first wavelength, the step and one value per step.
+ *
+ * @param start The first wavelength, in nm.
+ * @param step The wavelength step, in nm (positive).
+ * @param values One value per step, all finite.
+ * @param label Name, quantity and unit of the values; default name "spectrum", quantity "other", unit "" (none).
+ * @returns A `Spectrum` at start, start + step, … nm.
+ * @source none: a tristim data structure, no published formula.
+ * @example spectrumOnGrid(400, 10, [0.1, 0.2, 0.4, 0.6], { name: "invented sample", quantity: "reflectance" })
+ */
 export function spectrumOnGrid(
   start: number,
   step: number,
@@ -89,7 +108,15 @@ export function spectrumOnGrid(
   );
 }
 
-/** Builds a spectrum from [wavelength, value] pairs. */
+/**
+ * Builds a spectrum from [wavelength, value] pairs.
+ *
+ * @param pairs [wavelength in nm, value] pairs, wavelengths strictly increasing.
+ * @param label Name, quantity and unit of the values; default name "spectrum", quantity "other", unit "" (none).
+ * @returns A `Spectrum`.
+ * @source none: a tristim data structure, no published formula.
+ * @example spectrumFromPairs([[450, 0.3], [550, 0.6], [650, 0.5]], { name: "invented sample" })
+ */
 export function spectrumFromPairs(
   pairs: ReadonlyArray<readonly [number, number]>,
   label: SpectrumLabel = {},
@@ -101,7 +128,16 @@ export function spectrumFromPairs(
   );
 }
 
-/** A copy of a spectrum with new values on the same wavelengths (and optionally a new label). */
+/**
+ * A copy of a spectrum with new values on the same wavelengths, and optionally a new label.
+ *
+ * @param s The spectrum whose wavelengths are kept.
+ * @param values One new value per wavelength.
+ * @param label New name, quantity or unit; each one absent is kept from `s` (default: all kept).
+ * @returns A new `Spectrum`.
+ * @source none: a tristim helper, no published formula.
+ * @example withValues(spectrumOnGrid(400, 100, [1, 2, 3]), [0.5, 0.5, 0.5])
+ */
 export function withValues(s: Spectrum, values: readonly number[], label: SpectrumLabel = {}): Spectrum {
   return spectrum(s.wavelengths, values, {
     name: label.name ?? s.name,
@@ -110,12 +146,26 @@ export function withValues(s: Spectrum, values: readonly number[], label: Spectr
   });
 }
 
-/** Removes floating-point noise from computed wavelengths (grids are specified to well under 1e-9 nm). */
+/**
+ * Removes floating-point noise from a computed wavelength by rounding to 1e-9 nm.
+ *
+ * @param wl A wavelength in nm.
+ * @returns The wavelength rounded to 1e-9 nm.
+ * @source none: a tristim helper (grids are specified to well under 1e-9 nm).
+ * @example roundWavelength(400 + 3 * 0.1)
+ */
 export function roundWavelength(wl: number): number {
   return Math.round(wl * 1e9) / 1e9;
 }
 
-/** True when the value is a spectrum object. */
+/**
+ * True when the value is a spectrum object (`kind: "spectrum"`).
+ *
+ * @param value Anything.
+ * @returns true for a `Spectrum`, false otherwise.
+ * @source none: a tristim helper, no published formula.
+ * @example isSpectrum(spectrumOnGrid(400, 10, [1, 2]))
+ */
 export function isSpectrum(value: unknown): value is Spectrum {
   return typeof value === "object" && value !== null && (value as { kind?: unknown }).kind === "spectrum";
 }

@@ -53,8 +53,15 @@ function duvAt(u: number, v: number, cct: number): number {
 }
 
 /**
- * CCT (K) and Duv of a CIE 1931 chromaticity: Ohno (2014) combined triangular/parabolic method by default, or
- * Robertson (1968); an error when |Duv| > 0.05 (CIE 015:2018 §9.5) or the CCT is outside the method's range.
+ * Correlated colour temperature and Duv of a CIE 1931 chromaticity (Ohno's combined method by default, or Robertson's).
+ *
+ * An error when |Duv| > 0.05 (`DUV_LIMIT`) or when the CCT is outside the method's range (Ohno: 1000–100000 K,
+ * `OHNO_RANGE_K`; Robertson: from about 1667 K up).
+ *
+ * @param xy A chromaticity { x, y } (CIE 1931, computed with the 2° observer).
+ * @returns { cct in K, duv: signed distance from the Planckian locus in CIE 1960 uv, positive above (towards green) }.
+ * @source CIE 015:2018 §9.5; Y. Ohno, LEUKOS 10:47–55, 2014; A. R. Robertson, JOSA 58:1528–1535, 1968.
+ * @example cctAndDuv({ x: 0.3127, y: 0.329 })
  */
 export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
   checkXy(xy, "cctAndDuv");
@@ -85,15 +92,27 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
   return result;
 }
 
-/** CCT and Duv of a light source from its spectral distribution (CIE 1931 2° observer; CIE 015:2018 §9.5). */
+/**
+ * Correlated colour temperature and Duv of a light source from its spectral distribution (CIE 1931 2° observer).
+ *
+ * @param spd The light's spectral distribution (relative or absolute).
+ * @returns { cct in K, duv } as `cctAndDuv` gives them.
+ * @source CIE 015:2018 §9.5 (with eq. 7.5 for the tristimulus values).
+ * @example cctFromSpectrum(illuminant("A"))
+ */
 export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctResult {
   const xyz = lightTristimulus(spd, { observer: "2°" });
   return cctAndDuv(chromaticityXy(xyz), options);
 }
 
 /**
- * The CIE 1931 chromaticity at a CCT and Duv: the Planckian point at T moved Duv along the normal to the locus in
- * CIE 1960 uv (the inverse of the definition in CIE 015:2018 §9.5 and Ohno 2014).
+ * The CIE 1931 chromaticity at a CCT and Duv: the Planckian point at T moved Duv along the normal to the locus in CIE 1960 uv.
+ *
+ * @param cct The correlated colour temperature, in K (1000–100000).
+ * @param duv The signed distance from the locus in CIE 1960 uv, within ±0.05; default 0 (on the locus).
+ * @returns { x, y }.
+ * @source CIE 015:2018 §9.5 and Ohno 2014 (the definition of CCT and Duv, inverted).
+ * @example chromaticityAtCct(4000, 0.002)
  */
 export function chromaticityAtCct(cct: number, duv = 0): Chromaticity {
   if (typeof cct !== "number" || !Number.isFinite(cct) || cct < OHNO_RANGE_K[0] || cct > OHNO_RANGE_K[1]) {

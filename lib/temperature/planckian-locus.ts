@@ -32,8 +32,16 @@ export interface LocusPoint {
 }
 
 /**
- * The locus in CIE 1960 uv at reciprocal temperature s = 1/T (s = 0 is the limit T → ∞), with its derivative.
- * Planck's law is written as λ⁻⁴·g(x), g(x) = x/(eˣ − 1), x = c2·s/λ, which is finite at s = 0.
+ * The Planckian locus in CIE 1960 uv at reciprocal temperature s = 1/T, with its derivative; s = 0 is the limit T → ∞.
+ *
+ * Planck's law is written as λ⁻⁴·g(x), g(x) = x ÷ (eˣ − 1), x = c2·s ÷ λ, which is finite at s = 0; summed over the
+ * CIE 1931 2° colour-matching functions at 1 nm, 360–830 nm.
+ *
+ * @param s The reciprocal temperature 1/T, in K⁻¹ (0 or positive).
+ * @param c2 The second radiation constant, in m·K; default `C2_CIE` = 1.4388e-2.
+ * @returns { u, v, duds, dvds }: the CIE 1960 uv point and its rates of change with s (per K⁻¹).
+ * @source CIE 015:2018 §9.5 (the Planckian locus, c2 = 1.4388e-2 m·K).
+ * @example planckianLocusAtReciprocal(1 / 6500)
  */
 export function planckianLocusAtReciprocal(s: number, c2 = C2_CIE): LocusPoint {
   let X = 0,
@@ -85,14 +93,28 @@ function checkTemperature(what: string, t: number): void {
   }
 }
 
-/** CIE 1960 (u, v) of a Planckian radiator at T kelvin (CIE 015:2018 §9.5; c2 = 1.4388e-2 m·K, 1 nm from 360 to 830 nm). */
+/**
+ * CIE 1960 (u, v) of a Planckian radiator, summed at 1 nm over 360–830 nm with c2 = 1.4388e-2 m·K.
+ *
+ * @param temperatureK The temperature, in K (at least 100).
+ * @returns { u, v } of the CIE 1960 UCS.
+ * @source CIE 015:2018 §9.5.
+ * @example planckianUv(2856)
+ */
 export function planckianUv(temperatureK: number): Uv1960 {
   checkTemperature("planckianUv", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   return { u: p.u, v: p.v };
 }
 
-/** CIE 1931 (x, y) of a Planckian radiator at T kelvin (CIE 015:2018 §9.5; c2 = 1.4388e-2 m·K, 1 nm from 360 to 830 nm). */
+/**
+ * CIE 1931 (x, y) of a Planckian radiator, summed at 1 nm over 360–830 nm with c2 = 1.4388e-2 m·K.
+ *
+ * @param temperatureK The temperature, in K (at least 100).
+ * @returns { x, y }.
+ * @source CIE 015:2018 §9.5.
+ * @example planckianChromaticity(2856)
+ */
 export function planckianChromaticity(temperatureK: number): Chromaticity {
   checkTemperature("planckianChromaticity", temperatureK);
   const { u, v } = planckianLocusAtReciprocal(1 / temperatureK);
@@ -100,7 +122,14 @@ export function planckianChromaticity(temperatureK: number): Chromaticity {
   return { x: (3 * u) / d, y: (2 * v) / d };
 }
 
-/** The locus point and its unit normal pointing to positive Duv (above the locus, towards green), in CIE 1960 uv. */
+/**
+ * The Planckian locus point at T and its unit normal pointing to positive Duv (above the locus, towards green), in CIE 1960 uv.
+ *
+ * @param temperatureK The temperature, in K (at least 100).
+ * @returns { u, v, nu, nv }: the locus point and the unit normal.
+ * @source CIE 015:2018 §9.5 (Duv as the distance from the locus in the CIE 1960 UCS); Ohno 2014, LEUKOS 10:47–55.
+ * @example planckianNormal(4000)
+ */
 export function planckianNormal(temperatureK: number): { u: number; v: number; nu: number; nv: number } {
   checkTemperature("planckianNormal", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);

@@ -65,8 +65,13 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
     io.out(`${toolVersion().version}\n`);
     return EXIT.ok;
   }
+  if (command === "reference") {
+    // Loaded on demand: the TypeScript compiler it reads the doc comments with is large.
+    const { referenceCommand } = await import("../reference/command.ts");
+    return (await referenceCommand(rest, { write: io.out })) as ExitCode;
+  }
   if (command !== "run" && command !== "watch") {
-    throw new UsageError(`unknown command "${command}"; the commands are run, watch and help`);
+    throw new UsageError(`unknown command "${command}"; the commands are run, watch, reference and help`);
   }
   const { options, files, help } = parseOptions(rest, command);
   if (help) {

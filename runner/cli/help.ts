@@ -12,6 +12,9 @@ Usage:
                                            run one notebook once per data file, one report each
                                            and an index page
   tristim watch <notebook.md> [options]    serve the report on 127.0.0.1, re-run on save
+  tristim reference [name]                 the library's functions: signature, arguments with units and
+                                           defaults, returns, published source, an example
+  tristim reference --html <file>          the whole library reference as one HTML page
   tristim help                             show this text (also --help, -h)
   tristim --version                        print the version
 

@@ -7,12 +7,8 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { parse } from "csv-parse/sync";
 import { describe, expect, it } from "vitest";
-import {
-  DataFileError,
-  parseColourReadings,
-  readColourReadings,
-  recogniseFields,
-} from "../../../lib/index.ts";
+import { DataFileError, parseColourReadings, readColourReadings } from "../../../lib/index.ts";
+import { recogniseFields } from "../../../lib/files/reading-fields.ts";
 
 const corpus = (name: string) => fileURLToPath(new URL(`./corpus/${name}`, import.meta.url));
 

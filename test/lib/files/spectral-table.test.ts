@@ -14,10 +14,9 @@ import {
   parseSpectralTable,
   readSpectralTable,
   resetMethodLog,
-  scanNumber,
-  scanNumberRow,
   valueAt,
 } from "../../../lib/index.ts";
+import { scanNumber, scanNumberRow } from "../../../lib/files/number-scan.ts";
 
 const corpus = (name: string) => fileURLToPath(new URL(`./corpus/${name}`, import.meta.url));
 
