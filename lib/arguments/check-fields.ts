@@ -31,7 +31,8 @@ export function checkFields(
   if (!hasNumberFields(value, shape)) refuse(fn, arg, shape.what, value, shape.instead);
 }
 
-const FROM_SPECTRUM = "for a spectrum compute its tristimulus values first (objectColour or lightTristimulus)";
+const FROM_SPECTRUM =
+  "for a spectrum compute its tristimulus values first (objectColour or lightTristimulus)";
 
 /** Tristimulus values. */
 export const XYZ_FIELDS: FieldShape = {
@@ -46,7 +47,10 @@ export const LAB_FIELDS: FieldShape = {
   instead: { spectrum: "for a spectrum compute objectColour first, then labFromXYZ" },
 };
 /** CIELAB or CIELUV polar form. */
-export const LCH_FIELDS: FieldShape = { what: "polar values { L, C, h } (h in degrees)", keys: ["L", "C", "h"] };
+export const LCH_FIELDS: FieldShape = {
+  what: "polar values { L, C, h } (h in degrees)",
+  keys: ["L", "C", "h"],
+};
 /** CIELUV. */
 export const LUV_FIELDS: FieldShape = { what: "CIELUV values { L, u, v }", keys: ["L", "u", "v"] };
 /** CIE 1931 chromaticity. */
@@ -56,7 +60,10 @@ export const XY_FIELDS: FieldShape = {
   instead: { spectrum: "for a spectrum use chromaticityXy(lightTristimulus(spectrum))" },
 };
 /** Chromaticity and luminance factor. */
-export const XYY_FIELDS: FieldShape = { what: "a chromaticity with luminance { x, y, Y }", keys: ["x", "y", "Y"] };
+export const XYY_FIELDS: FieldShape = {
+  what: "a chromaticity with luminance { x, y, Y }",
+  keys: ["x", "y", "Y"],
+};
 /** CIE 1976 u′v′ or CIE 1960 uv. */
 export const UV_FIELDS: FieldShape = { what: "chromaticity coordinates { u, v }", keys: ["u", "v"] };
 /** RGB components. */

@@ -50,7 +50,8 @@ export function checkList(
 ): void {
   if (value === undefined && rule?.optional) return;
   const expected = lengthWords(rule, items);
-  if (!Array.isArray(value) || !lengthFits(value.length, rule)) refuse(fn, arg, expected, value, rule?.instead);
+  if (!Array.isArray(value) || !lengthFits(value.length, rule))
+    refuse(fn, arg, expected, value, rule?.instead);
   value.forEach((item, i) => {
     if (!isItem(item)) refuse(fn, `${arg}[${i}]`, `one of ${items}`, item);
   });

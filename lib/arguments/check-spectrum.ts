@@ -26,5 +26,11 @@ export function isWellFormedSpectrum(value: unknown): boolean {
 export function checkSpectrum(fn: string, arg: string, value: unknown, rule?: SpectrumRule): void {
   if (value === undefined && rule?.optional) return;
   if (!isWellFormedSpectrum(value))
-    refuse(fn, arg, rule?.what ?? "a spectrum (made by spectrum() or spectrumOnGrid())", value, rule?.instead);
+    refuse(
+      fn,
+      arg,
+      rule?.what ?? "a spectrum (made by spectrum() or spectrumOnGrid())",
+      value,
+      rule?.instead,
+    );
 }

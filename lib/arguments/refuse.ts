@@ -21,7 +21,9 @@ export function insteadHint(value: unknown, instead: Instead | undefined): strin
   if (typeof value === "string") return instead.string;
   if (Array.isArray(value)) return instead.array;
   if (typeof value === "object" && value !== null) {
-    return (value as { kind?: unknown }).kind === "spectrum" ? (instead.spectrum ?? instead.object) : instead.object;
+    return (value as { kind?: unknown }).kind === "spectrum"
+      ? (instead.spectrum ?? instead.object)
+      : instead.object;
   }
   return undefined;
 }

@@ -1,4 +1,5 @@
 /** Chromaticity coordinates: CIE 1931 xy, CIE 1976 u′v′ and CIE 1960 uv (CIE 015:2018 §7.3, §8.1). */
+import { UV_FIELDS, XYY_FIELDS, XYZ_FIELDS, XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Tristimulus {
   readonly X: number;
@@ -30,6 +31,7 @@ function requireSum(sum: number, what: string): void {
 
 /** x = X/(X+Y+Z), y = Y/(X+Y+Z) (CIE 015:2018 eq. 7.3). */
 export function chromaticityXy(t: Tristimulus): Chromaticity {
+  checkFields("chromaticityXy", "t", t, XYZ_FIELDS);
   const s = t.X + t.Y + t.Z;
   requireSum(s, "chromaticityXy");
   return { x: t.X / s, y: t.Y / s };
@@ -37,18 +39,21 @@ export function chromaticityXy(t: Tristimulus): Chromaticity {
 
 /** x, y and luminance factor Y (CIE 015:2018 §7.3). */
 export function toXyY(t: Tristimulus): ChromaticityLuminance {
+  checkFields("toXyY", "t", t, XYZ_FIELDS);
   const { x, y } = chromaticityXy(t);
   return { x, y, Y: t.Y };
 }
 
 /** X = xY/y, Z = (1 − x − y)Y/y (CIE 015:2018 eq. 7.4). */
 export function fromXyY(c: ChromaticityLuminance): Tristimulus {
+  checkFields("fromXyY", "c", c, XYY_FIELDS);
   if (!(c.y > 0)) throw new Error(`fromXyY: y = ${c.y}; tristimulus values need y > 0`);
   return { X: (c.x * c.Y) / c.y, Y: c.Y, Z: ((1 - c.x - c.y) * c.Y) / c.y };
 }
 
 /** u′ = 4X/(X+15Y+3Z), v′ = 9Y/(X+15Y+3Z) (CIE 015:2018 eq. 8.1). */
 export function uvPrimeFromXYZ(t: Tristimulus): UvPrime {
+  checkFields("uvPrimeFromXYZ", "t", t, XYZ_FIELDS);
   const d = t.X + 15 * t.Y + 3 * t.Z;
   if (!(d > 0)) throw new Error(`uvPrimeFromXYZ: X + 15Y + 3Z = ${d}; u′v′ needs a positive denominator`);
   return { u: (4 * t.X) / d, v: (9 * t.Y) / d };
@@ -56,6 +61,7 @@ export function uvPrimeFromXYZ(t: Tristimulus): UvPrime {
 
 /** u′ = 4x/(−2x+12y+3), v′ = 9y/(−2x+12y+3) (CIE 015:2018 eq. 8.2). */
 export function uvPrimeFromXy(c: Chromaticity): UvPrime {
+  checkFields("uvPrimeFromXy", "c", c, XY_FIELDS);
   const d = -2 * c.x + 12 * c.y + 3;
   if (!(d > 0)) throw new Error(`uvPrimeFromXy: −2x + 12y + 3 = ${d} for (${c.x}, ${c.y})`);
   return { u: (4 * c.x) / d, v: (9 * c.y) / d };
@@ -63,6 +69,7 @@ export function uvPrimeFromXy(c: Chromaticity): UvPrime {
 
 /** x = 9u′/(6u′−16v′+12), y = 4v′/(6u′−16v′+12) (inverse of CIE 015:2018 eq. 8.2). */
 export function xyFromUvPrime(c: UvPrime): Chromaticity {
+  checkFields("xyFromUvPrime", "c", c, UV_FIELDS);
   const d = 6 * c.u - 16 * c.v + 12;
   if (!(d > 0)) throw new Error(`xyFromUvPrime: 6u′ − 16v′ + 12 = ${d} for (${c.u}, ${c.v})`);
   return { x: (9 * c.u) / d, y: (4 * c.v) / d };
@@ -70,12 +77,14 @@ export function xyFromUvPrime(c: UvPrime): Chromaticity {
 
 /** CIE 1960 UCS: u = u′, v = (2/3) v′ (CIE 015:2018 §8.1 note; CIE 13.3). */
 export function uv1960FromXy(c: Chromaticity): Uv1960 {
+  checkFields("uv1960FromXy", "c", c, XY_FIELDS);
   const p = uvPrimeFromXy(c);
   return { u: p.u, v: (2 * p.v) / 3 };
 }
 
 /** xy from CIE 1960 uv: x = 3u/(2u−8v+4), y = 2v/(2u−8v+4). */
 export function xyFromUv1960(c: Uv1960): Chromaticity {
+  checkFields("xyFromUv1960", "c", c, UV_FIELDS);
   const d = 2 * c.u - 8 * c.v + 4;
   if (!(d > 0)) throw new Error(`xyFromUv1960: 2u − 8v + 4 = ${d} for (${c.u}, ${c.v})`);
   return { x: (3 * c.u) / d, y: (2 * c.v) / d };

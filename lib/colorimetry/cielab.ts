@@ -2,6 +2,7 @@
 import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { LAB_FIELDS, LCH_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Lab {
   readonly L: number;
@@ -32,6 +33,11 @@ function requireWhite(white: Tristimulus, what: string): void {
 
 /** L* = 116 f(Y/Yn) − 16, a* = 500[f(X/Xn) − f(Y/Yn)], b* = 200[f(Y/Yn) − f(Z/Zn)] (CIE 015:2018 eqs. 8.3–8.11). */
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
+  checkFields("labFromXYZ", "t", t, XYZ_FIELDS);
+  checkFields("labFromXYZ", "white", white, {
+    ...XYZ_FIELDS,
+    what: "the reference white's tristimulus values { X, Y, Z } (e.g. objectColour(sample).white)",
+  });
   requireWhite(white, "labFromXYZ");
   if (![t.X, t.Y, t.Z].every(Number.isFinite))
     throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
@@ -44,6 +50,8 @@ export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
 
 /** The inverse of labFromXYZ (CIE 015:2018 §8.2.1, inverted). */
 export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
+  checkFields("xyzFromLab", "lab", lab, LAB_FIELDS);
+  checkFields("xyzFromLab", "white", white, XYZ_FIELDS);
   requireWhite(white, "xyzFromLab");
   const fy = (lab.L + 16) / 116;
   const fx = fy + lab.a / 500;
@@ -53,11 +61,13 @@ export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
 
 /** C*ab = √(a*² + b*²), hab = atan2(b*, a*) in degrees (CIE 015:2018 eqs. 8.12–8.13). */
 export function lchFromLab(lab: Lab): LCh {
+  checkFields("lchFromLab", "lab", lab, LAB_FIELDS);
   return { L: lab.L, C: Math.hypot(lab.a, lab.b), h: hueAngleDegrees(lab.a, lab.b) };
 }
 
 /** a* = C cos h, b* = C sin h. */
 export function labFromLch(lch: LCh): Lab {
+  checkFields("labFromLch", "lch", lch, LCH_FIELDS);
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, a: lch.C * Math.cos(r), b: lch.C * Math.sin(r) };
 }

@@ -2,6 +2,7 @@
 import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { LCH_FIELDS, LUV_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Luv {
   readonly L: number;
@@ -37,6 +38,8 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
 
 /** L* = 116 f(Y/Yn) − 16, u* = 13 L*(u′ − u′n), v* = 13 L*(v′ − v′n) (CIE 015:2018 eqs. 8.15–8.19). */
 export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
+  checkFields("luvFromXYZ", "t", t, XYZ_FIELDS);
+  checkFields("luvFromXYZ", "white", white, XYZ_FIELDS);
   requireXYZ("luvFromXYZ", "the colour", t, false);
   requireXYZ("luvFromXYZ", "the reference white", white, true);
   noteMethod("colour space", "CIELUV (CIE 1976 L*u*v*) values were computed per CIE 015:2018 §8.2.2.");
@@ -50,6 +53,8 @@ export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
 
 /** The inverse of luvFromXYZ (CIE 015:2018 §8.2.2, inverted). */
 export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
+  checkFields("xyzFromLuv", "luv", luv, LUV_FIELDS);
+  checkFields("xyzFromLuv", "white", white, XYZ_FIELDS);
   if (typeof luv !== "object" || luv === null || ![luv.L, luv.u, luv.v].every(Number.isFinite)) {
     throw new Error(`xyzFromLuv: (L* ${luv?.L}, u* ${luv?.u}, v* ${luv?.v}) must be finite`);
   }
@@ -66,17 +71,21 @@ export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
 
 /** C*uv = √(u*² + v*²), huv = atan2(v*, u*) in degrees (CIE 015:2018 eqs. 8.22–8.23). */
 export function lchFromLuv(luv: Luv): LChUv {
+  checkFields("lchFromLuv", "luv", luv, LUV_FIELDS);
   return { L: luv.L, C: Math.hypot(luv.u, luv.v), h: hueAngleDegrees(luv.u, luv.v) };
 }
 
 /** u* = C cos h, v* = C sin h. */
 export function luvFromLch(lch: LChUv): Luv {
+  checkFields("luvFromLch", "lch", lch, LCH_FIELDS);
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, u: lch.C * Math.cos(r), v: lch.C * Math.sin(r) };
 }
 
 /** CIE 1976 u,v saturation suv = 13 √((u′ − u′n)² + (v′ − v′n)²) (CIE 015:2018 eq. 8.21). */
 export function saturationUv(t: Tristimulus, white: Tristimulus): number {
+  checkFields("saturationUv", "t", t, XYZ_FIELDS);
+  checkFields("saturationUv", "white", white, XYZ_FIELDS);
   requireXYZ("saturationUv", "the colour", t, false);
   requireXYZ("saturationUv", "the reference white", white, true);
   const [u, v] = uvPrime(t);

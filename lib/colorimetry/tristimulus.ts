@@ -19,6 +19,11 @@ import {
 } from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { checkList, checkSpectrumList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum, isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkLightOptions, checkObjectColourOptions, checkTableOptions } from "../arguments/option-sets.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 export interface ObjectColourOptions {
   /** Illuminant name ("D65", "A", "FL2", ...) or a spectrum; default D65. */
@@ -215,6 +220,17 @@ function tableFor(
 
 /** The weighting table for an illuminant and observer at 1 or 5 nm (computed once per run and kept). */
 export function weightingTable(options: TableOptions & { interval: 1 | 5 }): WeightingTable {
+  checkWith(
+    "weightingTable",
+    "options",
+    options,
+    "options { interval: 1 or 5 (nm), illuminant?, observer?, range? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      [1, 5].includes((o as { interval?: unknown }).interval as number),
+  );
+  checkTableOptions("weightingTable", options);
   return tableFor(options.illuminant, options.observer, options.interval, options.range);
 }
 
@@ -234,6 +250,14 @@ export function commonSummationInterval(
   samples: readonly Spectrum[],
   illuminants: readonly (string | Spectrum | undefined)[] = [undefined],
 ): 1 | 5 {
+  checkSpectrumList("commonSummationInterval", "samples", samples, { minLength: 1 });
+  checkList(
+    "commonSummationInterval",
+    "illuminants",
+    illuminants,
+    "illuminant names or spectra",
+    (i) => i === undefined || typeof i === "string" || isWellFormedSpectrum(i),
+  );
   if (!Array.isArray(samples) || samples.length === 0)
     throw new Error("commonSummationInterval: give at least one sample spectrum");
   for (const ill of illuminants.length > 0 ? illuminants : [undefined]) {
@@ -268,6 +292,10 @@ function tableForSample(sample: Spectrum, options: ObjectColourOptions): Weighti
  * on the same weighting table, use objectColour().
  */
 export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {}): Tristimulus {
+  checkSpectrum("tristimulus", "sample", sample, {
+    what: "a reflectance or transmittance spectrum (fractions 0–1)",
+  });
+  checkObjectColourOptions("tristimulus", options);
   checkObjectSample(sample, "tristimulus");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -297,6 +325,10 @@ export interface ObjectColour {
  * summation conditions. Options and defaults are those of tristimulus().
  */
 export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}): ObjectColour {
+  checkSpectrum("objectColour", "sample", sample, {
+    what: "a reflectance or transmittance spectrum (fractions 0–1)",
+  });
+  checkObjectColourOptions("objectColour", options);
   checkObjectSample(sample, "objectColour");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -370,6 +402,7 @@ function noteObjectColourMethod(table: WeightingTable): void {
  * or pass the same interval and range.
  */
 export function whitePoint(options: TableOptions = {}): Tristimulus {
+  checkTableOptions("whitePoint", options);
   const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
   const table = tableFor(options.illuminant, options.observer, interval, options.range);
   noteObjectColourMethod(table);
@@ -393,6 +426,10 @@ export const KM_PHOTOPIC = 683;
  * 1 nm or 5 nm samples, otherwise after interpolation to 1 nm, over the range the source and observer share.
  */
 export function lightTristimulus(source: Spectrum, options: LightOptions = {}): Tristimulus {
+  checkSpectrum("lightTristimulus", "source", source, {
+    what: "a spectrum of a light source (power, radiance, irradiance, ...)",
+  });
+  checkLightOptions("lightTristimulus", options);
   const obs = observerByName(options.observer ?? "2°");
   const step = regularStep(source);
   const onWholeNm =

@@ -2,9 +2,12 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 /** ΔE*ab = √(ΔL*² + Δa*² + Δb*²) (CIE 015:2018 eq. 8.14). */
 export function deltaE76(a: Lab, b: Lab): number {
+  checkFields("deltaE76", "a", a, LAB_FIELDS);
+  checkFields("deltaE76", "b", b, LAB_FIELDS);
   requireLab("deltaE76", "first", a);
   requireLab("deltaE76", "second", b);
   noteMethod(

@@ -2,6 +2,8 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireFactor, requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface DeltaECMCOptions {
   /** Lightness weight l (default 2, the acceptability ratio 2:1). */
@@ -15,6 +17,9 @@ export interface DeltaECMCOptions {
  * (ISO 105-J03:2009 §6; Clarke, McDonald & Rigg, JSDC 100:128–132, 1984).
  */
 export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions = {}): number {
+  checkFields("deltaECMC", "reference", reference, LAB_FIELDS);
+  checkFields("deltaECMC", "sample", sample, LAB_FIELDS);
+  checkOptions("deltaECMC", "options", options, ["l", "c"]);
   requireLab("deltaECMC", "reference (first)", reference);
   requireLab("deltaECMC", "sample (second)", sample);
   const l = options.l ?? 2;

@@ -2,9 +2,16 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFinite, requireFraction } from "./checks.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /** D = −log₁₀ T for a transmittance fraction T > 0 (ISO 5-1 transmission density). */
 export function opticalDensity(transmittance: number): number {
+  checkNumber("opticalDensity", "transmittance", transmittance, {
+    unit: "fraction",
+    above: 0,
+    instead: { spectrum: "for a spectrum use opticalDensitySpectrum" },
+  });
   requireFraction(transmittance, "transmittance");
   if (transmittance === 0)
     throw new Error(
@@ -15,6 +22,11 @@ export function opticalDensity(transmittance: number): number {
 
 /** T = 10^−D (ISO 5-1 transmission density, inverted). */
 export function transmittanceFromDensity(density: number): number {
+  checkNumber("transmittanceFromDensity", "density", density, {
+    unit: "optical density",
+    min: 0,
+    instead: { spectrum: "for a spectrum use transmittanceFromDensitySpectrum" },
+  });
   requireFinite(density, "optical density");
   if (density < 0)
     throw new Error(`optical density ${density} is negative, i.e. a transmittance above 1; check the data`);
@@ -23,6 +35,10 @@ export function transmittanceFromDensity(density: number): number {
 
 /** Optical density at each wavelength, D(λ) = −log₁₀ T(λ); a zero transmittance is an error naming its wavelength. */
 export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
+  checkSpectrum("opticalDensitySpectrum", "transmittance", transmittance, {
+    what: "a transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use opticalDensity" },
+  });
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = transmittance.values.map((t, i) => {
     try {
@@ -41,6 +57,10 @@ export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
 
 /** Transmittance at each wavelength from an optical density spectrum, T(λ) = 10^−D(λ). */
 export function transmittanceFromDensitySpectrum(density: Spectrum): Spectrum {
+  checkSpectrum("transmittanceFromDensitySpectrum", "density", density, {
+    what: "an optical density spectrum",
+    instead: { number: "for a single value use transmittanceFromDensity" },
+  });
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = density.values.map((d, i) => {
     try {

@@ -9,9 +9,18 @@ import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum } from "./checks.ts";
 import { describeRefractiveIndex, surfaceReflectanceAt, type RefractiveIndex } from "./fresnel.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkPlateOptions } from "../arguments/physics-arguments.ts";
 
 /** External transmittance of a plate with internal transmittance τᵢ and face reflectance ρ: (1 − ρ)²τᵢ/(1 − ρ²τᵢ²) (Hecht, Optics §4.6). */
 export function externalFromInternal(internal: number, faceReflectance: number): number {
+  checkNumber("externalFromInternal", "internal", internal, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use externalTransmittance" },
+  });
+  checkNumber("externalFromInternal", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -20,6 +29,11 @@ export function externalFromInternal(internal: number, faceReflectance: number):
 
 /** Reflectance of a plate (both faces and the light returned through the bulk): ρ + ρ(1 − ρ)²τᵢ²/(1 − ρ²τᵢ²) (Hecht, Optics §4.6). */
 export function plateReflectanceValue(internal: number, faceReflectance: number): number {
+  checkNumber("plateReflectanceValue", "internal", internal, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use plateReflectance" },
+  });
+  checkNumber("plateReflectanceValue", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -29,6 +43,7 @@ export function plateReflectanceValue(internal: number, faceReflectance: number)
 
 /** The largest external transmittance a non-absorbing plate can have: (1 − ρ)/(1 + ρ) (τᵢ = 1 in the plate relation). */
 export function clearPlateTransmittance(faceReflectance: number): number {
+  checkNumber("clearPlateTransmittance", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(faceReflectance, "face reflectance");
   return (1 - faceReflectance) / (1 + faceReflectance);
 }
@@ -45,6 +60,12 @@ export function internalFromExternal(
   faceReflectance: number,
   above: AboveClearPlate = "error",
 ): number {
+  checkNumber("internalFromExternal", "external", external, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use internalTransmittance" },
+  });
+  checkNumber("internalFromExternal", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
+  checkChoice("internalFromExternal", "above", above, ["error", "clip"], { optional: true });
   requireFraction(external, "external transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -92,6 +113,11 @@ function notePlate(index: RefractiveIndex): void {
 
 /** External transmittance of a plate from its internal transmittance spectrum (plate relation, Hecht §4.6). */
 export function externalTransmittance(internal: Spectrum, options: PlateOptions): Spectrum {
+  checkSpectrum("externalTransmittance", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use externalFromInternal" },
+  });
+  checkPlateOptions("externalTransmittance", options);
   const index = requireIndex(options, "externalTransmittance");
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);
@@ -108,6 +134,11 @@ export function externalTransmittance(internal: Spectrum, options: PlateOptions)
 
 /** Internal transmittance from a measured external transmittance spectrum (plate relation solved for τᵢ). */
 export function internalTransmittance(external: Spectrum, options: InternalOptions): Spectrum {
+  checkSpectrum("internalTransmittance", "external", external, {
+    what: "a measured (external) transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use internalFromExternal" },
+  });
+  checkPlateOptions("internalTransmittance", options, ["aboveClearPlate"]);
   const index = requireIndex(options, "internalTransmittance");
   requireFractionSpectrum(external, "external transmittance");
   const rho = surfaceReflectanceAt(index, external.wavelengths);
@@ -127,6 +158,11 @@ export function internalTransmittance(external: Spectrum, options: InternalOptio
 
 /** Reflectance spectrum of a plate from its internal transmittance (plate relation, Hecht §4.6). */
 export function plateReflectance(internal: Spectrum, options: PlateOptions): Spectrum {
+  checkSpectrum("plateReflectance", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use plateReflectanceValue" },
+  });
+  checkPlateOptions("plateReflectance", options);
   const index = requireIndex(options, "plateReflectance");
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);

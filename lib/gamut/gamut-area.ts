@@ -6,6 +6,8 @@
 import { uvPrimeFromXy, type Chromaticity } from "../colorimetry/chromaticity.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { RgbSpace } from "../rgb/rgb-space.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkGamut } from "../arguments/common-arguments.ts";
 
 export type ChromaticityDiagram = "xy" | "u′v′";
 
@@ -99,6 +101,8 @@ function ccw(p: Point[]): Point[] {
 
 /** Area of a gamut polygon in the xy or u′v′ diagram (shoelace formula). */
 export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutArea", "gamut", gamut);
+  checkChoice("gamutArea", "diagram", diagram, ["xy", "u′v′"]);
   const p = toDiagram(verticesOf(gamut, "gamutArea"), diagram);
   noteMethod(
     "gamut",
@@ -109,6 +113,9 @@ export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): nu
 
 /** Area of the overlap of two gamut polygons in the xy or u′v′ diagram; at least one of them must be convex. */
 export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutIntersectionArea", "a", a);
+  checkGamut("gamutIntersectionArea", "b", b);
+  checkChoice("gamutIntersectionArea", "diagram", diagram, ["xy", "u′v′"]);
   const pa = ccw(toDiagram(verticesOf(a, "gamut intersection (first gamut)"), diagram));
   const pb = ccw(toDiagram(verticesOf(b, "gamut intersection (second gamut)"), diagram));
   let clipped: Point[];
@@ -126,6 +133,9 @@ export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityD
  * in the xy or u′v′ diagram.
  */
 export function gamutCoverage(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutCoverage", "device", device);
+  checkGamut("gamutCoverage", "reference", reference);
+  checkChoice("gamutCoverage", "diagram", diagram, ["xy", "u′v′"]);
   const ref = Math.abs(signedArea(toDiagram(verticesOf(reference, "gamutCoverage (reference)"), diagram)));
   if (!(ref > 0)) throw new Error("gamutCoverage: the reference gamut has no area");
   noteMethod(
@@ -137,6 +147,9 @@ export function gamutCoverage(device: Gamut, reference: Gamut, diagram: Chromati
 
 /** Area of a device gamut relative to a reference gamut in percent (100 × area ratio, which may exceed 100). */
 export function gamutAreaRatio(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutAreaRatio", "device", device);
+  checkGamut("gamutAreaRatio", "reference", reference);
+  checkChoice("gamutAreaRatio", "diagram", diagram, ["xy", "u′v′"]);
   const ref = gamutArea(reference, diagram);
   if (!(ref > 0)) throw new Error("gamutAreaRatio: the reference gamut has no area");
   return (100 * gamutArea(device, diagram)) / ref;

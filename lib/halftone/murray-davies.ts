@@ -11,9 +11,18 @@ import {
 } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /** R = a·R_s + (1 − a)·R_p for one wavelength or a filtered (e.g. densitometric) reflectance (Murray 1936). */
 export function murrayDaviesValue(coverage: number, solid: number, paper: number): number {
+  checkNumber("murrayDaviesValue", "coverage", coverage, { unit: "fraction" });
+  checkNumber("murrayDaviesValue", "solid", solid, {
+    unit: "fraction",
+    instead: { spectrum: "for spectra use murrayDavies" },
+  });
+  checkNumber("murrayDaviesValue", "paper", paper, { unit: "fraction" });
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
   requireFraction(paper, "paper reflectance");
@@ -22,6 +31,13 @@ export function murrayDaviesValue(coverage: number, solid: number, paper: number
 
 /** Spectral Murray–Davies: R(λ) = a·R_solid(λ) + (1 − a)·R_paper(λ) (Murray 1936). */
 export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum, name?: string): Spectrum {
+  checkNumber("murrayDavies", "coverage", coverage, { unit: "fraction" });
+  checkSpectrum("murrayDavies", "solid", solid, {
+    what: "the solid's reflectance spectrum",
+    instead: { number: "for single values use murrayDaviesValue" },
+  });
+  checkSpectrum("murrayDavies", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkString("murrayDavies", "name", name, { optional: true });
   requireFraction(coverage, "dot coverage");
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
@@ -42,6 +58,8 @@ export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum,
 
 /** Tone value (effective dot area) from densities relative to paper: (1 − 10^(−D_t))/(1 − 10^(−D_s)) (Murray–Davies; ISO 12647-1). */
 export function toneValueFromDensity(tintDensity: number, solidDensity: number): number {
+  checkNumber("toneValueFromDensity", "tintDensity", tintDensity, { unit: "optical density" });
+  checkNumber("toneValueFromDensity", "solidDensity", solidDensity, { unit: "optical density", above: 0 });
   requireFinite(tintDensity, "tint density");
   requireFinite(solidDensity, "solid density");
   if (!(solidDensity > 0))

@@ -11,9 +11,19 @@ import {
 } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /** R = (a·R_s^(1/n) + (1 − a)·R_p^(1/n))^n (Yule & Nielsen 1951). */
 export function yuleNielsenValue(coverage: number, solid: number, paper: number, n: number): number {
+  checkNumber("yuleNielsenValue", "coverage", coverage, { unit: "fraction" });
+  checkNumber("yuleNielsenValue", "solid", solid, {
+    unit: "fraction",
+    instead: { spectrum: "for spectra use yuleNielsen" },
+  });
+  checkNumber("yuleNielsenValue", "paper", paper, { unit: "fraction" });
+  checkNumber("yuleNielsenValue", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
   requireFraction(paper, "paper reflectance");
@@ -29,6 +39,14 @@ export function yuleNielsen(
   n: number,
   name?: string,
 ): Spectrum {
+  checkNumber("yuleNielsen", "coverage", coverage, { unit: "fraction" });
+  checkSpectrum("yuleNielsen", "solid", solid, {
+    what: "the solid's reflectance spectrum",
+    instead: { number: "for single values use yuleNielsenValue" },
+  });
+  checkSpectrum("yuleNielsen", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkNumber("yuleNielsen", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
+  checkString("yuleNielsen", "name", name, { optional: true });
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "yuleNielsen");
@@ -52,6 +70,12 @@ export function yuleNielsen(
  * Nielsen 1951, solved for a); n = 1 gives the Murray–Davies effective coverage.
  */
 export function effectiveCoverage(measured: Spectrum, solid: Spectrum, paper: Spectrum, n = 1): number {
+  checkSpectrum("effectiveCoverage", "measured", measured, {
+    what: "the tint's measured reflectance spectrum",
+  });
+  checkSpectrum("effectiveCoverage", "solid", solid, { what: "the solid's reflectance spectrum" });
+  checkSpectrum("effectiveCoverage", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkNumber("effectiveCoverage", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
   requirePositive(n, "Yule–Nielsen n factor");
   [measured, solid, paper].forEach((s) => requireFractionSpectrum(s, "reflectance"));
   requireSameGrid([measured, solid, paper], "effectiveCoverage");

@@ -2,9 +2,14 @@
 import { CIE_DAYLIGHT_COMPONENTS_TABLE } from "../data/cie-daylight-components.ts";
 import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import type { Chromaticity } from "../colorimetry/chromaticity.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkBoolean } from "../arguments/check-text.ts";
 
 /** Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K (CIE 015:2018 eqs. 4.5–4.6). */
 export function daylightChromaticity(cct: number): Chromaticity {
+  checkNumber("daylightChromaticity", "cct", cct, { unit: "K", min: 4000, max: 25000 });
   if (!Number.isFinite(cct) || cct < 4000 || cct > 25000) {
     throw new Error(
       `daylight chromaticity: CIE 015 defines daylight from 4000 K to 25000 K; ${cct} K is outside that range`,
@@ -21,6 +26,8 @@ export function daylightChromaticity(cct: number): Chromaticity {
 
 /** The factors M1, M2 of S1 and S2 for a daylight chromaticity (CIE 015:2018 eq. 4.7). */
 export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false): [number, number] {
+  checkFields("daylightFactors", "xy", xy, XY_FIELDS);
+  checkBoolean("daylightFactors", "roundToThreeDecimals", roundToThreeDecimals);
   const m = 0.0241 + 0.2562 * xy.x - 0.7341 * xy.y;
   let m1 = (-1.3515 - 1.7703 * xy.x + 5.9114 * xy.y) / m;
   let m2 = (0.03 - 31.4424 * xy.x + 30.0717 * xy.y) / m;
@@ -39,6 +46,8 @@ export function daylightSpectrum(
   cct: number,
   options: { roundFactors?: boolean; name?: string } = {},
 ): Spectrum {
+  checkNumber("daylightSpectrum", "cct", cct, { unit: "K", min: 4000, max: 25000 });
+  checkOptions("daylightSpectrum", "options", options, ["roundFactors", "name"]);
   const [m1, m2] = daylightFactors(daylightChromaticity(cct), options.roundFactors ?? false);
   const t = CIE_DAYLIGHT_COMPONENTS_TABLE;
   const s0 = t.columns.S0!,

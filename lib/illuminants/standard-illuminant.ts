@@ -6,6 +6,7 @@ import { tableColumn } from "../data/table-to-spectrum.ts";
 import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import { daylightSpectrum } from "./daylight.ts";
 import { illuminantA } from "./illuminant-a.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /**
  * The nominal CCTs of D50, D55, D75 corrected for the change of c2 from 1.4380e-2 to 1.4388e-2 m·K
@@ -46,6 +47,16 @@ export function illuminantNames(): string[] {
 
 /** A CIE illuminant's relative spectral power by name ("A", "D65", "FL2", "LED-B3", ...); case and spaces are ignored. */
 export function illuminant(name: string): Spectrum {
+  checkWith(
+    "illuminant",
+    "name",
+    name,
+    `an illuminant name, one of ${Object.keys(BUILDERS).join(", ")} (case and spaces are ignored)`,
+    (n) =>
+      typeof n === "string" &&
+      Object.keys(BUILDERS).some((k) => k.toUpperCase() === n.replace(/\s+/g, "").toUpperCase()),
+    { instead: { spectrum: "a spectrum is already an illuminant: pass it directly" } },
+  );
   const key = Object.keys(BUILDERS).find(
     (k) => k.toUpperCase() === String(name).replace(/\s+/g, "").toUpperCase(),
   );

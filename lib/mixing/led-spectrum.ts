@@ -9,6 +9,9 @@ import { requireFinite, requirePositive } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 export type LedShape = "ohno 2005" | "gaussian";
 
@@ -29,6 +32,7 @@ export interface LedOptions {
 
 /** The Ohno (2005) LED shape at normalised distance u = (λ − λ₀)/Δλ: [e^(−u²) + 2e^(−5u²)]/3 (Ohno 2005, recalled). */
 export function ohnoLedShape(u: number): number {
+  checkNumber("ohnoLedShape", "u", u, { unit: "(λ − peak)/half width" });
   const g = Math.exp(-u * u);
   return (g + 2 * g ** 5) / 3;
 }
@@ -47,6 +51,26 @@ export const OHNO_HALF_WIDTH_U = (() => {
 
 /** A model LED spectrum with the given peak wavelength and FWHM (Ohno 2005 shape by default; see the file header). */
 export function ledSpectrum(options: LedOptions): Spectrum {
+  checkWith(
+    "ledSpectrum",
+    "options",
+    options,
+    "LED options { peak (nm), fwhm (nm), shape?, asymmetry?, peakValue?, grid?, name? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      Number.isFinite((o as { peak?: unknown }).peak) &&
+      Number.isFinite((o as { fwhm?: unknown }).fwhm),
+  );
+  checkOptions("ledSpectrum", "options", options, [
+    "peak",
+    "fwhm",
+    "shape",
+    "asymmetry",
+    "peakValue",
+    "grid",
+    "name",
+  ]);
   const peak = requirePositive(options?.peak, "ledSpectrum: peak wavelength (nm)");
   const fwhm = requirePositive(options.fwhm, "ledSpectrum: FWHM (nm)");
   const a = requireFinite(options.asymmetry ?? 0, "ledSpectrum: asymmetry");
@@ -90,6 +114,21 @@ export interface PhosphorWhiteOptions {
 
 /** Phosphor-converted white: a blue LED plus a broad phosphor band at a given ratio of radiant powers (common practice, no source). */
 export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
+  checkWith(
+    "phosphorWhite",
+    "options",
+    options,
+    "options { blue: { peak, fwhm }, phosphor: a spectrum or { peak, fwhm }, phosphorToBlue: number, grid?, name? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      typeof (o as { blue?: unknown }).blue === "object" &&
+      (o as { blue?: unknown }).blue !== null &&
+      typeof (o as { phosphor?: unknown }).phosphor === "object" &&
+      (o as { phosphor?: unknown }).phosphor !== null &&
+      Number.isFinite((o as { phosphorToBlue?: unknown }).phosphorToBlue),
+  );
+  checkOptions("phosphorWhite", "options", options, ["blue", "phosphor", "phosphorToBlue", "grid", "name"]);
   const grid = options.grid ?? { start: 360, end: 830, step: 1 };
   const ratio = requirePositive(options.phosphorToBlue, "phosphorWhite: phosphor-to-blue power ratio");
   const blue = ledSpectrum({ ...options.blue, grid, name: "blue pump" });

@@ -6,6 +6,8 @@
  */
 import { requireFraction } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface SurfaceCorrection {
   /** External surface reflectance k₁; default 0.04, the Fresnel value for n = 1.5 at normal incidence (Hecht §4.6). */
@@ -32,6 +34,8 @@ function constants(options: SurfaceCorrection): { k1: number; k2: number; includ
 
 /** Measured reflectance from internal reflectance: R_m = k₁ + (1 − k₁)(1 − k₂)R_i/(1 − k₂R_i) (Saunderson 1942; without k₁ when specular is excluded). */
 export function saundersonMeasured(internal: number, options: SurfaceCorrection = {}): number {
+  checkNumber("saundersonMeasured", "internal", internal, { unit: "fraction" });
+  checkOptions("saundersonMeasured", "options", options, ["k1", "k2", "specular"]);
   requireFraction(internal, "internal reflectance R_i");
   const { k1, k2, included } = constants(options);
   return (included ? k1 : 0) + ((1 - k1) * (1 - k2) * internal) / (1 - k2 * internal);
@@ -39,6 +43,8 @@ export function saundersonMeasured(internal: number, options: SurfaceCorrection 
 
 /** Internal reflectance from measured reflectance: R_i = (R_m − k₁)/(1 − k₁ − k₂ + k₂R_m) (Saunderson 1942, inverted). */
 export function saundersonInternal(measured: number, options: SurfaceCorrection = {}): number {
+  checkNumber("saundersonInternal", "measured", measured, { unit: "fraction" });
+  checkOptions("saundersonInternal", "options", options, ["k1", "k2", "specular"]);
   requireFraction(measured, "measured reflectance R_m");
   const { k1, k2, included } = constants(options);
   const rm = included ? measured - k1 : measured;

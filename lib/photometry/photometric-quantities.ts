@@ -9,6 +9,10 @@ import { regularStep } from "../spectrum/grid.ts";
 import { sampler } from "../spectrum/sample.ts";
 import { withValues, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
 import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-efficiency.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkLuminousOptions, checkVisionOptions } from "../arguments/option-sets.ts";
 
 /**
  * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V share: at the spectrum's own samples when they lie every
@@ -18,6 +22,8 @@ export function spectralLuminousSum(
   spd: Spectrum,
   vision: Vision = "photopic",
 ): { sum: number; interval: number; range: [number, number] } {
+  checkSpectrum("spectralLuminousSum", "spd", spd);
+  checkChoice("spectralLuminousSum", "vision", vision, ["photopic", "scotopic"]);
   const v = luminousEfficiency(vision);
   const start = Math.max(spd.wavelengths[0]!, v.wavelengths[0]!);
   const end = Math.min(spd.wavelengths.at(-1)!, v.wavelengths.at(-1)!);
@@ -64,26 +70,35 @@ function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): n
 
 /** Luminous flux in lm from spectral radiant flux in W/nm: Φv = Km Σ Φe,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
 export function luminousFlux(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminousFlux", "spd", spd, { what: "a spectral radiant flux in W/nm" });
+  checkVisionOptions("luminousFlux", options);
   return photometric("luminous flux", spd, options.vision ?? "photopic");
 }
 
 /** Luminance in cd/m² from spectral radiance in W/(sr·m²·nm): Lv = Km Σ Le,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
 export function luminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminance", "spd", spd, { what: "a spectral radiance in W/(sr·m²·nm)" });
+  checkVisionOptions("luminance", options);
   return photometric("luminance", spd, options.vision ?? "photopic");
 }
 
 /** Illuminance in lx from spectral irradiance in W/(m²·nm): Ev = Km Σ Ee,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
 export function illuminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("illuminance", "spd", spd, { what: "a spectral irradiance in W/(m²·nm)" });
+  checkVisionOptions("illuminance", options);
   return photometric("illuminance", spd, options.vision ?? "photopic");
 }
 
 /** Luminous intensity in cd from spectral radiant intensity in W/(sr·nm): Iv = Km Σ Ie,λ V(λ) Δλ (CIE 018:2019 eq. 2). */
 export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminousIntensity", "spd", spd, { what: "a spectral radiant intensity in W/(sr·nm)" });
+  checkVisionOptions("luminousIntensity", options);
   return photometric("luminous intensity", spd, options.vision ?? "photopic");
 }
 
 /** Luminous efficacy of radiation K = Km Σ S V Δλ / Σ S Δλ in lm/W over the spectrum's own range (CIE 018:2019 §3.4). */
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
+  checkSpectrum("luminousEfficacyOfRadiation", "spd", spd, { what: "a spectrum of a light source" });
   const { sum } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
   const w = spd.wavelengths,
@@ -101,6 +116,7 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
 
 /** Scotopic-to-photopic ratio S/P = K′m Σ S V′ Δλ / (Km Σ S V Δλ), K′m = 1700 lm/W, Km = 683 lm/W (CIE 018:2019). */
 export function scotopicPhotopicRatio(spd: Spectrum): number {
+  checkSpectrum("scotopicPhotopicRatio", "spd", spd, { what: "a spectrum of a light source" });
   const p = spectralLuminousSum(spd, "photopic");
   const s = spectralLuminousSum(spd, "scotopic");
   if (!(p.sum > 0)) throw new Error(`scotopicPhotopicRatio: "${spd.name}" has no photopic luminous power`);
@@ -113,6 +129,8 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
 
 /** The spectrum scaled so that its photopic value Km Σ S V Δλ equals `target` (cd/m², lx or lm, as the spectrum's unit implies). */
 export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
+  checkSpectrum("normaliseToLuminance", "spd", spd, { what: "a spectral radiance" });
+  checkNumber("normaliseToLuminance", "target", target, { unit: "cd/m²", above: 0 });
   if (!(Number.isFinite(target) && target > 0))
     throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
   const { sum } = spectralLuminousSum(spd, "photopic");
@@ -149,6 +167,10 @@ function luminousFactor(
  * safety use, transmittedLight() and filterSunglassCategory() return τv with a `caution` field the report shows.
  */
 export function luminousTransmittance(sample: Spectrum, options: LuminousOptions = {}): number {
+  checkSpectrum("luminousTransmittance", "sample", sample, {
+    what: "a transmittance spectrum (fractions 0–1)",
+  });
+  checkLuminousOptions("luminousTransmittance", options);
   const t = luminousFactor("luminousTransmittance", sample, "transmittance", options);
   noteMethod(
     "photometry",
@@ -159,6 +181,8 @@ export function luminousTransmittance(sample: Spectrum, options: LuminousOptions
 
 /** Luminous reflectance ρv = Σ S ρ V Δλ / Σ S V Δλ as a fraction (Y/100 with the CIE 1931 observer; CIE 015:2018 §7.1), D65 unless given. */
 export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
+  checkSpectrum("luminousReflectance", "sample", sample, { what: "a reflectance spectrum (fractions 0–1)" });
+  checkLuminousOptions("luminousReflectance", options);
   const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
   noteMethod(
     "photometry",

@@ -20,6 +20,9 @@ import {
   houseConfig,
   houseLayout,
 } from "./style.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /** A sample in CIELAB; `group` collects samples under one legend entry and marker shape. */
 export interface LabSample {
@@ -54,6 +57,7 @@ export interface LabPlotOptions {
  * it by CSS Color 4 §13.2 (chroma reduced at constant OKLab lightness and hue; gamut-mapping.ts).
  */
 export function labDisplayHex(lab: Lab): string {
+  checkFields("labDisplayHex", "lab", lab, LAB_FIELDS);
   const xyz = xyzFromLab(lab, D65_WHITE_Y100);
   return hexFromEncoded(
     encodeRgb(mapToDisplayGamut({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").linear, "sRGB"),
@@ -261,6 +265,26 @@ function captionFor(o: LabPlotOptions, view: View): string {
 
 /** The CIELAB a*b* plane with samples, chroma circles and reference → sample arrows (hover ΔE00 is not noted in the methods log). */
 export function labPlane(options: LabPlotOptions): PlotFigure {
+  checkOptions("labPlane", "options", options, [
+    "samples",
+    "pairs",
+    "title",
+    "caption",
+    "extent",
+    "labels",
+    "height",
+  ]);
+  checkWith(
+    "labPlane",
+    "options",
+    options,
+    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      (Array.isArray((o as { samples?: unknown }).samples) ||
+        Array.isArray((o as { pairs?: unknown }).pairs)),
+  );
   return withoutMethodNotes(() => drawLabPlane(options));
 }
 
@@ -335,6 +359,26 @@ function drawLabPlane(options: LabPlotOptions): PlotFigure {
 
 /** CIELAB lightness L* against chroma C*ab for samples, with reference → sample arrows (hover ΔE00 is not noted in the methods log). */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
+  checkOptions("lightnessChromaPlot", "options", options, [
+    "samples",
+    "pairs",
+    "title",
+    "caption",
+    "extent",
+    "labels",
+    "height",
+  ]);
+  checkWith(
+    "lightnessChromaPlot",
+    "options",
+    options,
+    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      (Array.isArray((o as { samples?: unknown }).samples) ||
+        Array.isArray((o as { pairs?: unknown }).pairs)),
+  );
   return withoutMethodNotes(() => drawLightnessChromaPlot(options));
 }
 

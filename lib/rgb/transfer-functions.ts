@@ -4,6 +4,10 @@
  * Linear values below zero (out-of-gamut colours) are encoded with the sign carried through, so that they stay
  * visible as out of gamut instead of turning into NaN.
  */
+import { RGB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 function requireFinite(what: string, value: number): void {
   if (typeof value !== "number" || !Number.isFinite(value))
@@ -16,12 +20,14 @@ function odd(f: (x: number) => number): (x: number) => number {
 
 /** sRGB encoding (IEC 61966-2-1:1999 §5.3): V = 12.92·L for L ≤ 0.0031308, else 1.055·L^(1/2.4) − 0.055. */
 export function srgbEncode(linear: number): number {
+  checkNumber("srgbEncode", "linear", linear, { unit: "linear light, 0–1 for in-gamut colours" });
   requireFinite("srgbEncode", linear);
   return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
 }
 
 /** sRGB decoding (IEC 61966-2-1:1999 §5.2): L = V/12.92 for V ≤ 0.04045, else ((V + 0.055)/1.055)^2.4. */
 export function srgbDecode(signal: number): number {
+  checkNumber("srgbDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("srgbDecode", signal);
   return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
 }
@@ -33,6 +39,8 @@ function requireGamma(what: string, gamma: number): void {
 
 /** Pure power-law encoding V = L^(1/γ). */
 export function gammaEncode(linear: number, gamma: number): number {
+  checkNumber("gammaEncode", "linear", linear, { unit: "linear light, 0–1" });
+  checkNumber("gammaEncode", "gamma", gamma, { above: 0 });
   requireFinite("gammaEncode", linear);
   requireGamma("gammaEncode", gamma);
   return odd((l) => l ** (1 / gamma))(linear);
@@ -40,6 +48,8 @@ export function gammaEncode(linear: number, gamma: number): number {
 
 /** Pure power-law decoding L = V^γ. */
 export function gammaDecode(signal: number, gamma: number): number {
+  checkNumber("gammaDecode", "signal", signal, { unit: "encoded signal, 0–1" });
+  checkNumber("gammaDecode", "gamma", gamma, { above: 0 });
   requireFinite("gammaDecode", signal);
   requireGamma("gammaDecode", gamma);
   return odd((v) => v ** gamma)(signal);
@@ -47,12 +57,14 @@ export function gammaDecode(signal: number, gamma: number): number {
 
 /** ITU-R BT.709-6 camera OETF: V = 4.500·L for L < 0.018, else 1.099·L^0.45 − 0.099. */
 export function bt709Encode(linear: number): number {
+  checkNumber("bt709Encode", "linear", linear, { unit: "linear light, 0–1" });
   requireFinite("bt709Encode", linear);
   return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
 }
 
 /** Inverse of the ITU-R BT.709-6 OETF: L = V/4.5 for V < 0.081, else ((V + 0.099)/1.099)^(1/0.45). */
 export function bt709Decode(signal: number): number {
+  checkNumber("bt709Decode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("bt709Decode", signal);
   return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
 }
@@ -77,6 +89,8 @@ function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: num
 
 /** ITU-R BT.1886 reference EOTF: L = a·max(V + b, 0)^2.4 in cd/m², a = (Lw^(1/2.4) − Lb^(1/2.4))^2.4, b = Lb^(1/2.4)/(Lw^(1/2.4) − Lb^(1/2.4)). */
 export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
+  checkNumber("bt1886Eotf", "signal", signal, { unit: "encoded signal, 0–1" });
+  checkOptions("bt1886Eotf", "display", display, ["whiteLuminance", "blackLuminance"]);
   requireFinite("bt1886Eotf", signal);
   const { a, b } = bt1886Constants("bt1886Eotf", display);
   return a * Math.max(signal + b, 0) ** 2.4;
@@ -84,6 +98,8 @@ export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): numb
 
 /** Inverse of the ITU-R BT.1886 EOTF: V = (L/a)^(1/2.4) − b, L in cd/m². */
 export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
+  checkNumber("bt1886InverseEotf", "luminance", luminance, { unit: "cd/m²" });
+  checkOptions("bt1886InverseEotf", "display", display, ["whiteLuminance", "blackLuminance"]);
   requireFinite("bt1886InverseEotf", luminance);
   const { a, b } = bt1886Constants("bt1886InverseEotf", display);
   return odd((l) => (l / a) ** (1 / 2.4))(luminance) - b;
@@ -101,6 +117,7 @@ export const PQ_PEAK_LUMINANCE = 10000;
 
 /** PQ inverse EOTF (SMPTE ST 2084:2014 eq. 5.2): N = ((c1 + c2·Y^m1)/(1 + c3·Y^m1))^m2 with Y = L/10 000, L in cd/m². */
 export function pqEncode(luminance: number): number {
+  checkNumber("pqEncode", "luminance", luminance, { unit: "cd/m²" });
   requireFinite("pqEncode", luminance);
   return odd((l) => {
     const ym = (l / PQ_PEAK_LUMINANCE) ** PQ_M1;
@@ -110,6 +127,7 @@ export function pqEncode(luminance: number): number {
 
 /** PQ EOTF (SMPTE ST 2084:2014 eq. 5.1): L = 10 000·(max(N^(1/m2) − c1, 0)/(c2 − c3·N^(1/m2)))^(1/m1) cd/m². */
 export function pqDecode(signal: number): number {
+  checkNumber("pqDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("pqDecode", signal);
   return odd((n) => {
     const np = n ** (1 / PQ_M2);
@@ -126,12 +144,14 @@ const HLG_C = 0.5 - HLG_A * Math.log(4 * HLG_A);
 
 /** HLG OETF (ITU-R BT.2100-2 Table 5): E′ = √(3E) for E ≤ 1/12, else a·ln(12E − b) + c; E is normalised scene light 0–1. */
 export function hlgEncode(sceneLinear: number): number {
+  checkNumber("hlgEncode", "sceneLinear", sceneLinear, { unit: "scene linear light, 0–1" });
   requireFinite("hlgEncode", sceneLinear);
   return odd((e) => (e <= 1 / 12 ? Math.sqrt(3 * e) : HLG_A * Math.log(12 * e - HLG_B) + HLG_C))(sceneLinear);
 }
 
 /** HLG inverse OETF (ITU-R BT.2100-2 Table 5): E = E′²/3 for E′ ≤ 1/2, else (exp((E′ − c)/a) + b)/12. */
 export function hlgDecode(signal: number): number {
+  checkNumber("hlgDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("hlgDecode", signal);
   return odd((v) => (v <= 0.5 ? (v * v) / 3 : (Math.exp((v - HLG_C) / HLG_A) + HLG_B) / 12))(signal);
 }
@@ -144,6 +164,8 @@ export function hlgDisplayLight(
   sceneLinear: { r: number; g: number; b: number },
   peakLuminance = 1000,
 ): { r: number; g: number; b: number } {
+  checkFields("hlgDisplayLight", "sceneLinear", sceneLinear, RGB_FIELDS);
+  checkNumber("hlgDisplayLight", "peakLuminance", peakLuminance, { unit: "cd/m²", above: 0 });
   for (const k of ["r", "g", "b"] as const) requireFinite(`hlgDisplayLight (${k})`, sceneLinear[k]);
   if (!(Number.isFinite(peakLuminance) && peakLuminance > 0))
     throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
@@ -225,6 +247,13 @@ const TRANSFERS: Record<TransferName, TransferFunction> = {
 
 /** The transfer function with this name; an unknown name is an error listing the known ones. */
 export function transferFunction(name: TransferName | string): TransferFunction {
+  checkWith(
+    "transferFunction",
+    "name",
+    name,
+    `a transfer function name, one of ${Object.keys(TRANSFERS).join(", ")}`,
+    (n) => typeof n === "string" && Object.hasOwn(TRANSFERS, n),
+  );
   const t = TRANSFERS[name as TransferName];
   if (!t) throw new Error(`unknown transfer function "${name}"; known: ${Object.keys(TRANSFERS).join(", ")}`);
   return t;

@@ -6,6 +6,10 @@ import { gridOf, gridWavelengths, sameWavelengths, type WavelengthGrid } from ".
 import { resample } from "./resample.ts";
 import type { SamplingOptions } from "./sample.ts";
 import { spectrum, type SpectralQuantity, type Spectrum, type SpectrumLabel } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkLabel, checkSampling } from "../arguments/common-arguments.ts";
 
 function requireSameWavelengths(what: string, a: Spectrum, b: Spectrum): void {
   if (!sameWavelengths(a, b)) {
@@ -43,17 +47,30 @@ function combine(
 
 /** Product of two spectra, e.g. an illuminant through a filter or two filters in series (sample by sample). */
 export function multiplySpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("multiplySpectra", "a", a);
+  checkSpectrum("multiplySpectra", "b", b, {
+    instead: { number: "to multiply by a number use scaleSpectrum" },
+  });
+  checkLabel("multiplySpectra", "label", label);
   const quantity = a.quantity === "transmittance" || a.quantity === "reflectance" ? b.quantity : a.quantity;
   return combine("×", a, b, (x, y) => x * y, label, quantity);
 }
 
 /** Sum of two spectra, e.g. two lights falling on the same surface (additive mixing). */
 export function addSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("addSpectra", "a", a);
+  checkSpectrum("addSpectra", "b", b);
+  checkLabel("addSpectra", "label", label);
   return combine("+", a, b, (x, y) => x + y, label, a.quantity);
 }
 
 /** Ratio a/b sample by sample, e.g. a sample's signal over a reference's; a zero denominator is an error. */
 export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("divideSpectra", "a", a);
+  checkSpectrum("divideSpectra", "b", b, {
+    instead: { number: "to divide by a number use scaleSpectrum with 1/number" },
+  });
+  checkLabel("divideSpectra", "label", label);
   requireSameWavelengths("÷", a, b);
   b.values.forEach((y, i) => {
     if (y === 0)
@@ -64,6 +81,11 @@ export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {
 
 /** The spectrum with every value multiplied by a factor. */
 export function scaleSpectrum(s: Spectrum, factor: number, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("scaleSpectrum", "s", s);
+  checkNumber("scaleSpectrum", "factor", factor, {
+    instead: { spectrum: "to multiply two spectra use multiplySpectra" },
+  });
+  checkLabel("scaleSpectrum", "label", label);
   if (!Number.isFinite(factor))
     throw new Error(`scaleSpectrum: the factor for "${s.name}" is ${factor}, not a finite number`);
   return spectrum(
@@ -83,6 +105,10 @@ export function alignSpectra(
   grid?: WavelengthGrid,
   options: SamplingOptions = {},
 ): [Spectrum, Spectrum] {
+  checkSpectrum("alignSpectra", "a", a);
+  checkSpectrum("alignSpectra", "b", b);
+  checkFields("alignSpectra", "grid", grid, GRID_FIELDS, { optional: true });
+  checkSampling("alignSpectra", "options", options);
   const target = grid ?? overlapGrid(a, b);
   gridWavelengths(target);
   return [resample(a, target, options), resample(b, target, options)];
@@ -90,6 +116,8 @@ export function alignSpectra(
 
 /** The grid over the wavelengths two spectra share, at the finer of their steps (1 nm if either is uneven). */
 export function overlapGrid(a: Spectrum, b: Spectrum): WavelengthGrid {
+  checkSpectrum("overlapGrid", "a", a);
+  checkSpectrum("overlapGrid", "b", b);
   const start = Math.max(a.wavelengths[0]!, b.wavelengths[0]!);
   const end = Math.min(a.wavelengths.at(-1)!, b.wavelengths.at(-1)!);
   if (end < start) {

@@ -1,5 +1,7 @@
 /** Regular wavelength grids: the sampling that tables and integrations use. */
 import { roundWavelength, type Spectrum } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /** A regular wavelength grid from `start` to `end` nm inclusive, every `step` nm. */
 export interface WavelengthGrid {
@@ -10,6 +12,7 @@ export interface WavelengthGrid {
 
 /** The wavelengths of a grid, checked: start ≤ end, step > 0, and (end − start) a whole number of steps. */
 export function gridWavelengths(grid: WavelengthGrid): number[] {
+  checkFields("gridWavelengths", "grid", grid, GRID_FIELDS);
   const { start, end, step } = grid;
   if (![start, end, step].every(Number.isFinite) || step <= 0 || end < start) {
     throw new Error(
@@ -25,6 +28,7 @@ export function gridWavelengths(grid: WavelengthGrid): number[] {
 
 /** The spectrum's step if its wavelengths are evenly spaced (to 1e-6 nm), otherwise undefined. */
 export function regularStep(s: Spectrum): number | undefined {
+  checkSpectrum("regularStep", "s", s);
   const w = s.wavelengths;
   if (w.length < 2) return undefined;
   const step = w[1]! - w[0]!;
@@ -34,6 +38,7 @@ export function regularStep(s: Spectrum): number | undefined {
 
 /** The grid of an evenly spaced spectrum, or undefined when its spacing is irregular. */
 export function gridOf(s: Spectrum): WavelengthGrid | undefined {
+  checkSpectrum("gridOf", "s", s);
   const step = regularStep(s);
   if (step === undefined) return undefined;
   return { start: s.wavelengths[0]!, end: s.wavelengths[s.wavelengths.length - 1]!, step };
@@ -41,6 +46,8 @@ export function gridOf(s: Spectrum): WavelengthGrid | undefined {
 
 /** True when two spectra are sampled at exactly the same wavelengths. */
 export function sameWavelengths(a: Spectrum, b: Spectrum): boolean {
+  checkSpectrum("sameWavelengths", "a", a);
+  checkSpectrum("sameWavelengths", "b", b);
   if (a.wavelengths.length !== b.wavelengths.length) return false;
   for (let i = 0; i < a.wavelengths.length; i++)
     if (Math.abs(a.wavelengths[i]! - b.wavelengths[i]!) > 1e-9) return false;

@@ -2,9 +2,19 @@
 import { gridWavelengths, type WavelengthGrid } from "./grid.ts";
 import { sampler, type SamplingOptions } from "./sample.ts";
 import { spectrum, type Spectrum } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumberList } from "../arguments/check-list.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkSampling } from "../arguments/common-arguments.ts";
 
 /** The spectrum read at every wavelength of a regular grid (CIE 167:2005 interpolation by default). */
 export function resample(s: Spectrum, grid: WavelengthGrid, options: SamplingOptions = {}): Spectrum {
+  checkSpectrum("resample", "s", s);
+  checkFields("resample", "grid", grid, {
+    ...GRID_FIELDS,
+    instead: { array: "for a list of wavelengths use resampleAt" },
+  });
+  checkSampling("resample", "options", options);
   return resampleAt(s, gridWavelengths(grid), options);
 }
 
@@ -14,6 +24,13 @@ export function resampleAt(
   wavelengths: readonly number[],
   options: SamplingOptions = {},
 ): Spectrum {
+  checkSpectrum("resampleAt", "s", s);
+  checkNumberList("resampleAt", "wavelengths", wavelengths, {
+    unit: "nm",
+    minLength: 1,
+    instead: { object: "for a grid { start, end, step } use resample" },
+  });
+  checkSampling("resampleAt", "options", options);
   const read = sampler(s, options);
   return spectrum(wavelengths, wavelengths.map(read), { name: s.name, quantity: s.quantity, unit: s.unit });
 }

@@ -14,6 +14,10 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 import { cctOhno, OHNO_RANGE_K } from "./cct-ohno.ts";
 import { cctRobertson } from "./cct-robertson.ts";
 import { planckianLocusAtReciprocal, planckianNormal } from "./planckian-locus.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkCctOptions } from "../arguments/option-sets.ts";
 
 export type CctMethod = "ohno" | "robertson";
 
@@ -57,6 +61,11 @@ function duvAt(u: number, v: number, cct: number): number {
  * Robertson (1968); an error when |Duv| > 0.05 (CIE 015:2018 §9.5) or the CCT is outside the method's range.
  */
 export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
+  checkFields("cctAndDuv", "xy", xy, {
+    ...XY_FIELDS,
+    instead: { spectrum: "for a spectrum use cctFromSpectrum" },
+  });
+  checkCctOptions("cctAndDuv", options);
   checkXy(xy, "cctAndDuv");
   const method = options.method ?? "ohno";
   const uv = uv1960FromXy(xy);
@@ -87,6 +96,11 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
 
 /** CCT and Duv of a light source from its spectral distribution (CIE 1931 2° observer; CIE 015:2018 §9.5). */
 export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctResult {
+  checkSpectrum("cctFromSpectrum", "spd", spd, {
+    what: "a spectrum of a light source",
+    instead: { object: "for a chromaticity { x, y } use cctAndDuv" },
+  });
+  checkCctOptions("cctFromSpectrum", options);
   const xyz = lightTristimulus(spd, { observer: "2°" });
   return cctAndDuv(chromaticityXy(xyz), options);
 }
@@ -96,6 +110,8 @@ export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctRes
  * CIE 1960 uv (the inverse of the definition in CIE 015:2018 §9.5 and Ohno 2014).
  */
 export function chromaticityAtCct(cct: number, duv = 0): Chromaticity {
+  checkNumber("chromaticityAtCct", "cct", cct, { unit: "K" });
+  checkNumber("chromaticityAtCct", "duv", duv, { min: -DUV_LIMIT, max: DUV_LIMIT });
   if (typeof cct !== "number" || !Number.isFinite(cct) || cct < OHNO_RANGE_K[0] || cct > OHNO_RANGE_K[1]) {
     throw new Error(`chromaticityAtCct: CCT ${cct} K is outside ${OHNO_RANGE_K[0]}–${OHNO_RANGE_K[1]} K`);
   }

@@ -5,6 +5,7 @@
 import { CIE_1931_2_DEGREE } from "../observers/standard-observer.ts";
 import { C2_CIE } from "../illuminants/planckian-radiator.ts";
 import type { Chromaticity, Uv1960 } from "../colorimetry/chromaticity.ts";
+import { checkNumber } from "../arguments/check-number.ts";
 
 /** Lowest temperature (K) for which the locus is computed; below it Planck's law underflows in the visible. */
 export const PLANCKIAN_MIN_K = 100;
@@ -36,6 +37,12 @@ export interface LocusPoint {
  * Planck's law is written as λ⁻⁴·g(x), g(x) = x/(eˣ − 1), x = c2·s/λ, which is finite at s = 0.
  */
 export function planckianLocusAtReciprocal(s: number, c2 = C2_CIE): LocusPoint {
+  checkNumber("planckianLocusAtReciprocal", "s", s, {
+    unit: "1/K (reciprocal temperature)",
+    min: 0,
+    max: 1 / PLANCKIAN_MIN_K,
+  });
+  checkNumber("planckianLocusAtReciprocal", "c2", c2, { unit: "m·K", above: 0 });
   let X = 0,
     Y = 0,
     Z = 0,
@@ -87,6 +94,7 @@ function checkTemperature(what: string, t: number): void {
 
 /** CIE 1960 (u, v) of a Planckian radiator at T kelvin (CIE 015:2018 §9.5; c2 = 1.4388e-2 m·K, 1 nm from 360 to 830 nm). */
 export function planckianUv(temperatureK: number): Uv1960 {
+  checkNumber("planckianUv", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianUv", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   return { u: p.u, v: p.v };
@@ -94,6 +102,7 @@ export function planckianUv(temperatureK: number): Uv1960 {
 
 /** CIE 1931 (x, y) of a Planckian radiator at T kelvin (CIE 015:2018 §9.5; c2 = 1.4388e-2 m·K, 1 nm from 360 to 830 nm). */
 export function planckianChromaticity(temperatureK: number): Chromaticity {
+  checkNumber("planckianChromaticity", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianChromaticity", temperatureK);
   const { u, v } = planckianLocusAtReciprocal(1 / temperatureK);
   const d = 2 * u - 8 * v + 4;
@@ -102,6 +111,7 @@ export function planckianChromaticity(temperatureK: number): Chromaticity {
 
 /** The locus point and its unit normal pointing to positive Duv (above the locus, towards green), in CIE 1960 uv. */
 export function planckianNormal(temperatureK: number): { u: number; v: number; nu: number; nv: number } {
+  checkNumber("planckianNormal", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianNormal", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   // Tangent along increasing T is −(du/ds, dv/ds); the normal (tv, −tu) has a positive v component since u falls with T.

@@ -31,21 +31,32 @@ const flat = lib.spectrum(
   { name: "flat 50 % (invented)", quantity: "other" },
 );
 
+const dark = lib.withValues(
+  flat,
+  w5.map(() => 0.1),
+  { name: "flat 10 % (invented)" },
+);
+
 /** A value of the declared type that a careful caller might pass (it need not satisfy every range check). */
 function plausible(p: PublicParameter): unknown {
   const t = p.type.replace(/\s+/g, " ");
-  if (/^Spectrum$|^\(?Spectrum \|/.test(t)) return flat;
+  if (/^Spectrum$|^\(?Spectrum \|/.test(t)) return /solid/i.test(p.name) ? dark : flat;
   if (/Spectrum\[\]$|readonly Spectrum\[\]/.test(t)) return [flat, flat];
   if (t === "Tristimulus") return { X: 40, Y: 50, Z: 30 };
   if (t === "Lab") return { L: 50, a: 10, b: -10 };
   if (t === "LCh" || t === "LChUv") return { L: 50, C: 20, h: 120 };
   if (t === "Luv") return { L: 50, u: 10, v: -10 };
-  if (t === "Chromaticity") return { x: 0.3127, y: 0.329 };
+  if (t === "Chromaticity") return /white/i.test(p.name) ? { x: 0.3127, y: 0.329 } : { x: 0.45, y: 0.41 };
   if (t === "ChromaticityLuminance") return { x: 0.3127, y: 0.329, Y: 50 };
   if (t === "UvPrime" || t === "Uv1960") return { u: 0.2, v: 0.45 };
   if (t === "Rgb" || /^\{ r: number/.test(t)) return { r: 0.5, g: 0.4, b: 0.3 };
   if (t === "WavelengthGrid") return { start: 380, end: 780, step: 5 };
-  if (t === "Matrix3") return [[1, 0, 0], [0, 1, 0], [0, 0, 1]];
+  if (t === "Matrix3")
+    return [
+      [1, 0, 0],
+      [0, 1, 0],
+      [0, 0, 1],
+    ];
   if (t === "Vector3") return [1, 2, 3];
   if (t === "RgbSpace") return lib.rgbSpace("sRGB");
   if (t === "Observer") return lib.observerByName("2°");
@@ -54,6 +65,7 @@ function plausible(p: PublicParameter): unknown {
   if (t === "number") {
     if (/wavelength|edge|centre/i.test(p.name)) return 550;
     if (/temperature|cct/i.test(p.name)) return 5000;
+    if (/reflectance/i.test(p.name)) return 0.04;
     return 0.5;
   }
   if (/^string|TransferName/.test(t)) return /name/i.test(p.name) ? "D65" : "sRGB";
