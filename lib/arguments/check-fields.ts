@@ -28,7 +28,18 @@ export function checkFields(
   rule?: { readonly optional?: boolean },
 ): void {
   if (value === undefined && rule?.optional) return;
-  if (!hasNumberFields(value, shape)) refuse(fn, arg, shape.what, value, shape.instead);
+  if (hasNumberFields(value, shape)) return;
+  // An object with the right keys but one bad value: name that field and what it holds.
+  if (typeof value === "object" && value !== null && !Array.isArray(value)) {
+    const record = value as Record<string, unknown>;
+    if (shape.keys.some((k) => k in record)) {
+      const bad = shape.keys.find(
+        (k) => typeof record[k] !== "number" || !Number.isFinite(record[k] as number),
+      )!;
+      refuse(fn, `${arg}.${bad}`, `a finite number (${arg} should be ${shape.what})`, record[bad]);
+    }
+  }
+  refuse(fn, arg, shape.what, value, shape.instead);
 }
 
 const FROM_SPECTRUM =

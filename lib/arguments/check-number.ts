@@ -1,4 +1,6 @@
 /** Checking one numeric argument: finite, in its range, in its unit. */
+import { ArgumentError } from "./argument-error.ts";
+import { describeKind } from "./describe-kind.ts";
 import { refuse, type Instead } from "./refuse.ts";
 
 /** What a numeric argument must be. Units are stated in the message ("nm", "K", "fraction from 0 to 1"). */
@@ -49,6 +51,8 @@ export function checkNumber(fn: string, arg: string, value: unknown, rule?: Numb
     (rule.below !== undefined && !(value < rule.below)) ||
     (rule.integer && !Number.isInteger(value))
   ) {
-    refuse(fn, arg, numberExpectation(rule), value, rule.instead);
+    // A number out of range is shown with its unit ("3000 K"), when the unit is a short symbol.
+    const unit = rule.unit && !/\s|fraction/.test(rule.unit) ? ` ${rule.unit}` : "";
+    throw new ArgumentError(fn, arg, numberExpectation(rule), unit ? `${value}${unit}` : describeKind(value));
   }
 }

@@ -3,7 +3,7 @@
  * options, an RGB space and a gamut. Each is one call at the top of a public function.
  */
 import { checkChoice } from "./check-text.ts";
-import { hasNumberFields, XY_FIELDS } from "./check-fields.ts";
+import { checkFields, hasNumberFields, XY_FIELDS } from "./check-fields.ts";
 import { checkOptions } from "./check-options.ts";
 import { isWellFormedSpectrum } from "./check-spectrum.ts";
 import { checkWith } from "./check-with.ts";
@@ -88,6 +88,7 @@ export function checkRgbSpace(fn: string, arg: string, value: unknown): void {
 
 /** Throws an ArgumentError unless `value` is a gamut: an RGB space or an array of at least 3 chromaticities { x, y }. */
 export function checkGamut(fn: string, arg: string, value: unknown): void {
+  if (Array.isArray(value)) value.forEach((c, i) => checkFields(fn, `${arg}[${i}]`, c, XY_FIELDS));
   checkWith(
     fn,
     arg,

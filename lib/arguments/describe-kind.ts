@@ -57,11 +57,14 @@ function describeArray(items: readonly unknown[]): string {
   if (items.length === 0) return "an empty array";
   const kinds = new Set(items.map(itemKind));
   const n = items.length;
+  // A short array of numbers shows its values: "an array of 2 items (numbers, non-finite numbers) [410, NaN]".
+  const shown =
+    n <= 4 && items.every((i) => typeof i === "number") ? ` [${items.map(String).join(", ")}]` : "";
   if (kinds.size === 1) {
     const [kind] = kinds;
-    return `an array of ${n} ${n === 1 ? kind : plural(kind!)}`;
+    return `an array of ${n} ${n === 1 ? kind : plural(kind!)}${shown}`;
   }
-  return `an array of ${n} items (${[...kinds].map(plural).join(", ")})`;
+  return `an array of ${n} items (${[...kinds].map(plural).join(", ")})${shown}`;
 }
 
 function itemKind(item: unknown): string {

@@ -19,7 +19,10 @@ function checkSummation(fn: string, o: Options): void {
   if (o === undefined) return;
   checkIlluminantChoice(fn, "options.illuminant", o.illuminant);
   checkObserver(fn, "options.observer", o.observer);
-  checkChoice(fn, "options.interval", o.interval, [1, 5], { what: "a summation interval in nm" });
+  checkChoice(fn, "options.interval", o.interval, [1, 5], {
+    what: "a summation interval in nm",
+    optional: true,
+  });
   checkNumberList(fn, "options.range", o.range, { length: 2, unit: "nm", optional: true });
 }
 
@@ -115,6 +118,9 @@ export function checkLuminousOptions(fn: string, options: unknown): void {
   if (options === undefined) return;
   const o = options as Record<string, unknown>;
   checkIlluminantChoice(fn, "options.illuminant", o.illuminant);
-  checkChoice(fn, "options.interval", o.interval, [1, 5], { what: "a summation interval in nm" });
+  checkChoice(fn, "options.interval", o.interval, [1, 5], {
+    what: "a summation interval in nm",
+    optional: true,
+  });
   checkNumberList(fn, "options.range", o.range, { length: 2, unit: "nm", optional: true });
 }

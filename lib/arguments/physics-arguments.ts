@@ -41,7 +41,7 @@ export function checkPlateOptions(fn: string, options: unknown, more: readonly s
 }
 
 function isPair(v: unknown): boolean {
-  return Array.isArray(v) && v.length === 2 && v.every(isFinitePositive);
+  return Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === "number" && Number.isFinite(x));
 }
 
 /** True for a path change { thickness?: [from, to], concentration?: [from, to] } with at least one of them. */

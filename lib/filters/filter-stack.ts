@@ -24,6 +24,7 @@ import { checkOptions } from "../arguments/check-options.ts";
 import { checkSpectrum } from "../arguments/check-spectrum.ts";
 import { checkWith } from "../arguments/check-with.ts";
 import { checkPlateOptions } from "../arguments/physics-arguments.ts";
+import { checkChoice } from "../arguments/check-text.ts";
 
 /** One filter of a stack: its internal (bulk) transmittance and refractive index. */
 export interface FilterElement {
@@ -110,13 +111,11 @@ export function stackTransmittance(
     "options",
     options,
     'options { join: "no surface losses" | "cemented" | "air gaps" | "air gaps with interreflection", name? }',
-    (o) =>
-      typeof o === "object" &&
-      o !== null &&
-      ["no surface losses", "cemented", "air gaps", "air gaps with interreflection"].includes(
-        (o as { join?: string }).join ?? "",
-      ),
+    (o) => typeof o === "object" && o !== null && !Array.isArray(o),
   );
+  checkChoice("stackTransmittance", "options.join", options.join, Object.keys(JOIN_WORDS), {
+    what: "how the elements are joined",
+  });
   checkOptions("stackTransmittance", "options", options, ["join", "name"]);
   if (!Array.isArray(elements) || elements.length === 0)
     throw new Error("stackTransmittance: the stack has no elements");

@@ -9,7 +9,6 @@ import { checkSpectrum } from "../arguments/check-spectrum.ts";
 export function opticalDensity(transmittance: number): number {
   checkNumber("opticalDensity", "transmittance", transmittance, {
     unit: "fraction",
-    above: 0,
     instead: { spectrum: "for a spectrum use opticalDensitySpectrum" },
   });
   requireFraction(transmittance, "transmittance");

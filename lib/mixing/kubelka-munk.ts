@@ -10,7 +10,6 @@ import { checkNumber } from "../arguments/check-number.ts";
 export function ksFromReflectance(reflectanceInfinite: number): number {
   checkNumber("ksFromReflectance", "reflectanceInfinite", reflectanceInfinite, {
     unit: "fraction",
-    above: 0,
   });
   requireFraction(reflectanceInfinite, "reflectance of an opaque layer (R∞)");
   if (reflectanceInfinite === 0)
@@ -42,7 +41,7 @@ export interface LayerOptics {
  */
 export function layerOptics(k: number, s: number, thickness: number, background: number): LayerOptics {
   checkNumber("layerOptics", "k", k, { min: 0, unit: "absorption coefficient" });
-  checkNumber("layerOptics", "s", s, { above: 0, unit: "scattering coefficient" });
+  checkNumber("layerOptics", "s", s, { min: 0, unit: "scattering coefficient" });
   checkNumber("layerOptics", "thickness", thickness, { min: 0 });
   checkNumber("layerOptics", "background", background, { unit: "fraction" });
   requireNonNegative(k, "absorption coefficient K");

@@ -295,7 +295,11 @@ export function recipeColour(
     minLength: 1,
   });
   checkOptions("recipeColour", "options", options, ["surface", "layer", "name", "illuminant", "observer"]);
-  const reflectance = mixPaint(recipe, options);
+  const reflectance = mixPaint(recipe, {
+    surface: options.surface,
+    layer: options.layer,
+    name: options.name,
+  });
   const { XYZ, white } = objectColour(reflectance, {
     illuminant: options.illuminant,
     observer: options.observer,

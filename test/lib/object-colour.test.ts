@@ -84,7 +84,9 @@ describe("objectColour: the sample and its white from one table", () => {
     expect(commonSummationInterval([flat(0.5, 1)], ["D65"])).toBe(1);
     expect(commonSummationInterval([flat(0.5, 1), flat(0.5, 5)], ["D65"])).toBe(5);
     expect(commonSummationInterval([flat(0.5, 1)], ["D65", "D50"])).toBe(5); // D50 is built from the 5 nm S0, S1, S2
-    expect(() => commonSummationInterval([])).toThrow(/at least one sample/);
+    expect(() => commonSummationInterval([])).toThrow(
+      /commonSummationInterval: samples should be an array of at least 1 spectra/,
+    );
   });
 });
 
