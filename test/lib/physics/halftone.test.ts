@@ -100,7 +100,7 @@ describe("spectral Neugebauer with Demichel areas", () => {
       /demichelAreas: coverages.c should be a fraction from 0 to 1.*but got the number 1.2/,
     );
     expect(() => demichelAreas({ c: 0.2, r: 0.1 } as never)).toThrow(
-      /demichelAreas: coverages should be an options object with any of c, m, y, k, but got an object with key r \(unknown option "r"/,
+      /demichelAreas: coverages should be an options object with any of c, m, y, k, but got an object with keys c, r \(unknown option "r"/,
     );
   });
 
