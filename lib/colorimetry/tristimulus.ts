@@ -72,6 +72,8 @@ export interface WeightingTable {
     readonly observer: string;
     readonly illuminant: string;
     readonly integration: string;
+    /** What the Methods section says when the table served only for a reference white (whitePoint). */
+    readonly white: string;
     readonly interpolation?: string;
   };
 }
@@ -134,6 +136,7 @@ function buildTable(
   interval: 1 | 5,
   range: [number, number],
   requested: readonly [number, number] | undefined,
+  fromSample = false,
 ): WeightingTable {
   const wavelengths = gridFor(range, interval);
   // Built once and kept: the illuminant's interpolation is stated on every use of the table (notes.interpolation),
@@ -170,6 +173,9 @@ function buildTable(
   }
   const first = wavelengths[0]!,
     last = wavelengths.at(-1)!;
+  const rangePhrase = fromSample
+    ? " (the measured range of the samples within the 360–830 nm of the colour-matching functions, without extrapolation)"
+    : rangeWords(first, last, requested);
   return {
     wavelengths,
     wx,
@@ -183,7 +189,8 @@ function buildTable(
     notes: {
       observer: observerStatement(obs),
       illuminant: `Object colours were computed under ${ill.name}.`,
-      integration: `Tristimulus values of object colours were summed at ${interval} nm intervals over ${first}–${last} nm${rangeWords(first, last, requested)}, with the normalising constant chosen so that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 §7.1).`,
+      white: `Reference whites were the perfect reflecting diffuser under ${ill.name}, summed at ${interval} nm intervals over ${first}–${last} nm${rangePhrase}, with Y = 100 (CIE 015:2018 §7.1).`,
+      integration: `Tristimulus values of object colours were summed at ${interval} nm intervals over ${first}–${last} nm${rangePhrase}, with the normalising constant chosen so that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 §7.1).`,
       ...(interpolated ? { interpolation: interpolationStatement(ill) } : {}),
     },
   };
@@ -199,11 +206,12 @@ function tableFor(
   observerOption: TableOptions["observer"],
   interval: 1 | 5,
   rangeOption: TableOptions["range"],
+  fromSample = false,
 ): WeightingTable {
   checkInterval(interval);
   const ill = resolveIlluminant(illuminantOption);
   const obs = observerByName(observerOption ?? "2°");
-  const key = `${obs.name}|${interval}|${rangeOption ? rangeOption.join("-") : "default"}`;
+  const key = `${obs.name}|${interval}|${rangeOption ? rangeOption.join("-") : "default"}${fromSample ? "|sample" : ""}`;
   let cache: Map<string, WeightingTable> | undefined;
   if (typeof illuminantOption === "object") {
     cache = objectCache.get(illuminantOption);
@@ -212,7 +220,7 @@ function tableFor(
   const fullKey = typeof illuminantOption === "object" ? key : `${ill.name}|${key}`;
   let table = cache.get(fullKey);
   if (!table) {
-    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs), rangeOption);
+    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs), rangeOption, fromSample);
     cache.set(fullKey, table);
   }
   return table;
@@ -281,9 +289,26 @@ function checkObjectSample(sample: Spectrum, what: string): void {
   }
 }
 
+/**
+ * The summation range a sample gets unless a range is asked for: the wavelengths it was measured at, within the
+ * 360–830 nm of the colour-matching functions (no extrapolation; the library's one convention for lights and objects).
+ */
+function measuredRange(sample: Spectrum): [number, number] {
+  return [
+    Math.max(sample.wavelengths[0]!, DEFAULT_SUMMATION_RANGE[0]),
+    Math.min(sample.wavelengths.at(-1)!, DEFAULT_SUMMATION_RANGE[1]),
+  ];
+}
+
 function tableForSample(sample: Spectrum, options: ObjectColourOptions): WeightingTable {
   const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
-  return tableFor(options.illuminant, options.observer, interval, options.range);
+  return tableFor(
+    options.illuminant,
+    options.observer,
+    interval,
+    options.range ?? measuredRange(sample),
+    !options.range,
+  );
 }
 
 /**
@@ -401,11 +426,29 @@ function noteObjectColourMethod(table: WeightingTable): void {
  * which need not be the interval tristimulus() picks for a 5 nm sample: for a sample's white, use objectColour(sample)
  * or pass the same interval and range.
  */
-export function whitePoint(options: TableOptions = {}): Tristimulus {
-  checkTableOptions("whitePoint", options);
-  const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
-  const table = tableFor(options.illuminant, options.observer, interval, options.range);
-  noteObjectColourMethod(table);
+export function whitePoint(
+  options: TableOptions & {
+    /** A sample whose summation the white should follow: its interval and measured range (as tristimulus sums it). */
+    sample?: Spectrum;
+  } = {},
+): Tristimulus {
+  checkTableOptions("whitePoint", options, ["sample"]);
+  const sample = options.sample;
+  checkSpectrum("whitePoint", "options.sample", sample, { optional: true });
+  const ill = resolveIlluminant(options.illuminant);
+  const interval = options.interval ?? defaultInterval(sample, ill);
+  const table = sample
+    ? tableFor(
+        options.illuminant,
+        options.observer,
+        interval,
+        options.range ?? measuredRange(sample),
+        !options.range,
+      )
+    : tableFor(options.illuminant, options.observer, interval, options.range);
+  noteMethod("observer", table.notes.observer);
+  noteMethod("integration", table.notes.white);
+  if (table.notes.interpolation) noteMethod("interpolation", table.notes.interpolation);
   return { ...table.white };
 }
 
