@@ -140,9 +140,9 @@ export function gamutCoverage(device: Gamut, reference: Gamut, diagram: Chromati
   if (!(ref > 0)) throw new Error("gamutCoverage: the reference gamut has no area");
   noteMethod(
     "gamut",
-    `Gamut coverage was computed as 100 × area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon clipping, Sutherland & Hodgman 1974).`,
+    `Gamut coverage was computed as the fraction area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon clipping, Sutherland & Hodgman 1974).`,
   );
-  return (100 * gamutIntersectionArea(device, reference, diagram)) / ref;
+  return gamutIntersectionArea(device, reference, diagram) / ref;
 }
 
 /** Area of a device gamut relative to a reference gamut in percent (100 × area ratio, which may exceed 100). */
@@ -152,5 +152,9 @@ export function gamutAreaRatio(device: Gamut, reference: Gamut, diagram: Chromat
   checkChoice("gamutAreaRatio", "diagram", diagram, ["xy", "u′v′"]);
   const ref = gamutArea(reference, diagram);
   if (!(ref > 0)) throw new Error("gamutAreaRatio: the reference gamut has no area");
-  return (100 * gamutArea(device, diagram)) / ref;
+  noteMethod(
+    "gamut",
+    `Gamut area ratios were computed as the fraction area(device) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram.`,
+  );
+  return gamutArea(device, diagram) / ref;
 }

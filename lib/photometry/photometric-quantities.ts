@@ -99,7 +99,7 @@ export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = 
 /** Luminous efficacy of radiation K = Km Σ S V Δλ / Σ S Δλ in lm/W over the spectrum's own range (CIE 018:2019 §3.4). */
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   checkSpectrum("luminousEfficacyOfRadiation", "spd", spd, { what: "a spectrum of a light source" });
-  const { sum } = spectralLuminousSum(spd, "photopic");
+  const { sum, range } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
   const w = spd.wavelengths,
     v = spd.values;
@@ -109,7 +109,7 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   if (!(radiant > 0)) throw new Error(`luminousEfficacyOfRadiation: "${spd.name}" has no radiant power`);
   noteMethod(
     "photometry",
-    `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range (CIE 018:2019).`,
+    `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W (CIE 018:2019), the luminous sum over ${range[0]}–${range[1]} nm where the spectrum and V(λ) overlap and the radiant power Σ S·Δλ over the whole measured range, ${w[0]}–${w.at(-1)} nm.`,
   );
   return (KM * sum) / radiant;
 }

@@ -86,12 +86,14 @@ export function spectrumOnGrid(
   start: number,
   step: number,
   values: readonly number[],
-  label: SpectrumLabel = {},
+  /** The label, or just the name as a string. */
+  label: SpectrumLabel | string = {},
 ): Spectrum {
   checkNumber("spectrumOnGrid", "start", start, { unit: "nm", above: 0 });
   checkNumber("spectrumOnGrid", "step", step, { unit: "nm", above: 0 });
   checkNumberList("spectrumOnGrid", "values", values, { minLength: 1 });
-  checkLabel("spectrumOnGrid", "label", label);
+  checkLabel("spectrumOnGrid", "label", typeof label === "string" ? { name: label } : label);
+  if (typeof label === "string") label = { name: label };
   if (!Number.isFinite(start) || !Number.isFinite(step) || step <= 0) {
     throw new Error(
       `spectrum "${label.name ?? "spectrum"}": grid start ${start} nm, step ${step} nm is not a valid grid`,
