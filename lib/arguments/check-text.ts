@@ -8,11 +8,16 @@ export interface TextRule {
   readonly instead?: Instead;
 }
 
-/** Throws an ArgumentError unless `value` is a string (an empty string is refused). */
-export function checkString(fn: string, arg: string, value: unknown, rule?: TextRule): void {
+/** Throws an ArgumentError unless `value` is a string (an empty one too, unless `nonEmpty`). */
+export function checkString(
+  fn: string,
+  arg: string,
+  value: unknown,
+  rule?: TextRule & { readonly nonEmpty?: boolean },
+): void {
   if (value === undefined && rule?.optional) return;
-  if (typeof value !== "string" || value.length === 0)
-    refuse(fn, arg, rule?.what ?? "a non-empty string", value, rule?.instead);
+  if (typeof value !== "string" || (rule?.nonEmpty && value.length === 0))
+    refuse(fn, arg, rule?.what ?? "a string", value, rule?.instead);
 }
 
 /** Throws an ArgumentError unless `value` is one of `choices`; the message lists them. */
