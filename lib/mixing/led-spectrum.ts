@@ -12,6 +12,8 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { checkNumber } from "../arguments/check-number.ts";
 import { checkOptions } from "../arguments/check-options.ts";
 import { checkWith } from "../arguments/check-with.ts";
+import { GRID_FIELDS, checkFields, hasNumberFields } from "../arguments/check-fields.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
 
 export type LedShape = "ohno 2005" | "gaussian";
 
@@ -71,6 +73,7 @@ export function ledSpectrum(options: LedOptions): Spectrum {
     "grid",
     "name",
   ]);
+  checkFields("ledSpectrum", "options.grid", options.grid, GRID_FIELDS, { optional: true });
   const peak = requirePositive(options?.peak, "ledSpectrum: peak wavelength (nm)");
   const fwhm = requirePositive(options.fwhm, "ledSpectrum: FWHM (nm)");
   const a = requireFinite(options.asymmetry ?? 0, "ledSpectrum: asymmetry");
@@ -129,6 +132,18 @@ export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
       Number.isFinite((o as { phosphorToBlue?: unknown }).phosphorToBlue),
   );
   checkOptions("phosphorWhite", "options", options, ["blue", "phosphor", "phosphorToBlue", "grid", "name"]);
+  checkFields("phosphorWhite", "options.blue", options.blue, {
+    what: "the blue LED { peak, fwhm } in nm",
+    keys: ["peak", "fwhm"],
+  });
+  checkWith(
+    "phosphorWhite",
+    "options.phosphor",
+    options.phosphor,
+    "the phosphor: an emission spectrum or { peak, fwhm } in nm",
+    (p) => isWellFormedSpectrum(p) || hasNumberFields(p, { what: "", keys: ["peak", "fwhm"] }),
+  );
+  checkFields("phosphorWhite", "options.grid", options.grid, GRID_FIELDS, { optional: true });
   const grid = options.grid ?? { start: 360, end: 830, step: 1 };
   const ratio = requirePositive(options.phosphorToBlue, "phosphorWhite: phosphor-to-blue power ratio");
   const blue = ledSpectrum({ ...options.blue, grid, name: "blue pump" });
