@@ -49,3 +49,6 @@ export * from "./mixing/index.ts";
 export * from "./halftone/index.ts";
 export * from "./rendering/index.ts";
 export * from "./files/index.ts";
+
+// Argument checking: the error every public function throws for a wrong argument.
+export * from "./arguments/argument-error.ts";

@@ -11,6 +11,9 @@ import {
   type Matrix3,
 } from "../colorimetry/matrix3.ts";
 import { noteMethod } from "../methods/method-log.ts";
+import { XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkTransform } from "../arguments/option-sets.ts";
 
 export type AdaptationTransform = "bradford" | "cat02" | "cat16" | "von kries";
 
@@ -103,6 +106,10 @@ export function adaptationMatrix(
   transform: AdaptationTransform = "bradford",
   options: AdaptationOptions = {},
 ): Matrix3 {
+  checkFields("adaptationMatrix", "sourceWhite", sourceWhite, XYZ_FIELDS);
+  checkFields("adaptationMatrix", "destinationWhite", destinationWhite, XYZ_FIELDS);
+  checkTransform("adaptationMatrix", transform);
+  checkOptions("adaptationMatrix", "options", options, ["degree"]);
   requireWhite("adaptation: the source white", sourceWhite);
   requireWhite("adaptation: the destination white", destinationWhite);
   const key = resolveTransform(transform);
@@ -141,6 +148,11 @@ export function adaptXYZ(
   transform: AdaptationTransform = "bradford",
   options: AdaptationOptions = {},
 ): Tristimulus {
+  checkFields("adaptXYZ", "xyz", xyz, XYZ_FIELDS);
+  checkFields("adaptXYZ", "sourceWhite", sourceWhite, XYZ_FIELDS);
+  checkFields("adaptXYZ", "destinationWhite", destinationWhite, XYZ_FIELDS);
+  checkTransform("adaptXYZ", transform);
+  checkOptions("adaptXYZ", "options", options, ["degree"]);
   if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
     throw new Error(`adaptXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`);
   }

@@ -1,4 +1,5 @@
 /** Chromaticity coordinates: CIE 1931 xy, CIE 1976 u′v′ and CIE 1960 uv (CIE 015:2018 §7.3, §8.1). */
+import { UV_FIELDS, XYY_FIELDS, XYZ_FIELDS, XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Tristimulus {
   readonly X: number;
@@ -37,6 +38,7 @@ function requireSum(sum: number, what: string): void {
  * @example chromaticityXy({ X: 95.047, Y: 100, Z: 108.883 })
  */
 export function chromaticityXy(t: Tristimulus): Chromaticity {
+  checkFields("chromaticityXy", "t", t, XYZ_FIELDS);
   const s = t.X + t.Y + t.Z;
   requireSum(s, "chromaticityXy");
   return { x: t.X / s, y: t.Y / s };
@@ -51,6 +53,7 @@ export function chromaticityXy(t: Tristimulus): Chromaticity {
  * @example toXyY({ X: 41.24, Y: 21.26, Z: 1.93 })
  */
 export function toXyY(t: Tristimulus): ChromaticityLuminance {
+  checkFields("toXyY", "t", t, XYZ_FIELDS);
   const { x, y } = chromaticityXy(t);
   return { x, y, Y: t.Y };
 }
@@ -64,6 +67,7 @@ export function toXyY(t: Tristimulus): ChromaticityLuminance {
  * @example fromXyY({ x: 0.3127, y: 0.329, Y: 100 })
  */
 export function fromXyY(c: ChromaticityLuminance): Tristimulus {
+  checkFields("fromXyY", "c", c, XYY_FIELDS);
   if (!(c.y > 0)) throw new Error(`fromXyY: y = ${c.y}; tristimulus values need y > 0`);
   return { X: (c.x * c.Y) / c.y, Y: c.Y, Z: ((1 - c.x - c.y) * c.Y) / c.y };
 }
@@ -77,6 +81,7 @@ export function fromXyY(c: ChromaticityLuminance): Tristimulus {
  * @example uvPrimeFromXYZ({ X: 95.047, Y: 100, Z: 108.883 })
  */
 export function uvPrimeFromXYZ(t: Tristimulus): UvPrime {
+  checkFields("uvPrimeFromXYZ", "t", t, XYZ_FIELDS);
   const d = t.X + 15 * t.Y + 3 * t.Z;
   if (!(d > 0)) throw new Error(`uvPrimeFromXYZ: X + 15Y + 3Z = ${d}; u′v′ needs a positive denominator`);
   return { u: (4 * t.X) / d, v: (9 * t.Y) / d };
@@ -91,6 +96,7 @@ export function uvPrimeFromXYZ(t: Tristimulus): UvPrime {
  * @example uvPrimeFromXy({ x: 0.3127, y: 0.329 })
  */
 export function uvPrimeFromXy(c: Chromaticity): UvPrime {
+  checkFields("uvPrimeFromXy", "c", c, XY_FIELDS);
   const d = -2 * c.x + 12 * c.y + 3;
   if (!(d > 0)) throw new Error(`uvPrimeFromXy: −2x + 12y + 3 = ${d} for (${c.x}, ${c.y})`);
   return { u: (4 * c.x) / d, v: (9 * c.y) / d };
@@ -105,6 +111,7 @@ export function uvPrimeFromXy(c: Chromaticity): UvPrime {
  * @example xyFromUvPrime({ u: 0.1978, v: 0.4683 })
  */
 export function xyFromUvPrime(c: UvPrime): Chromaticity {
+  checkFields("xyFromUvPrime", "c", c, UV_FIELDS);
   const d = 6 * c.u - 16 * c.v + 12;
   if (!(d > 0)) throw new Error(`xyFromUvPrime: 6u′ − 16v′ + 12 = ${d} for (${c.u}, ${c.v})`);
   return { x: (9 * c.u) / d, y: (4 * c.v) / d };
@@ -119,6 +126,7 @@ export function xyFromUvPrime(c: UvPrime): Chromaticity {
  * @example uv1960FromXy({ x: 0.3127, y: 0.329 })
  */
 export function uv1960FromXy(c: Chromaticity): Uv1960 {
+  checkFields("uv1960FromXy", "c", c, XY_FIELDS);
   const p = uvPrimeFromXy(c);
   return { u: p.u, v: (2 * p.v) / 3 };
 }
@@ -132,6 +140,7 @@ export function uv1960FromXy(c: Chromaticity): Uv1960 {
  * @example xyFromUv1960({ u: 0.1978, v: 0.3122 })
  */
 export function xyFromUv1960(c: Uv1960): Chromaticity {
+  checkFields("xyFromUv1960", "c", c, UV_FIELDS);
   const d = 2 * c.u - 8 * c.v + 4;
   if (!(d > 0)) throw new Error(`xyFromUv1960: 2u − 8v + 4 = ${d} for (${c.u}, ${c.v})`);
   return { x: (3 * c.u) / d, y: (2 * c.v) / d };

@@ -1,6 +1,7 @@
 /** CIE 1964 uniform colour space U*V*W*, as CIE 13.3-1995 uses it for colour rendering (CIE 13.3 §5.6; CIE 015:2004 §8 note). */
 import { noteMethod } from "../methods/method-log.ts";
 import { chromaticityXy, uv1960FromXy, type Tristimulus } from "./chromaticity.ts";
+import { XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Uvw1964 {
   readonly U: number;
@@ -18,6 +19,8 @@ export interface Uvw1964 {
  * @example uvwFromXYZ({ X: 30, Y: 30, Z: 25 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function uvwFromXYZ(t: Tristimulus, white: Tristimulus): Uvw1964 {
+  checkFields("uvwFromXYZ", "t", t, XYZ_FIELDS);
+  checkFields("uvwFromXYZ", "white", white, XYZ_FIELDS);
   if (typeof t !== "object" || t === null || ![t.X, t.Y, t.Z].every(Number.isFinite) || t.Y < 0) {
     throw new Error(`uvwFromXYZ: tristimulus values (${t?.X}, ${t?.Y}, ${t?.Z}) must be finite with Y ≥ 0`);
   }

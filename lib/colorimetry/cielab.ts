@@ -2,6 +2,7 @@
 import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { LAB_FIELDS, LCH_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Lab {
   readonly L: number;
@@ -42,6 +43,11 @@ function requireWhite(white: Tristimulus, what: string): void {
  * @example labFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
+  checkFields("labFromXYZ", "t", t, XYZ_FIELDS);
+  checkFields("labFromXYZ", "white", white, {
+    ...XYZ_FIELDS,
+    what: "the reference white's tristimulus values { X, Y, Z } (e.g. objectColour(sample).white)",
+  });
   requireWhite(white, "labFromXYZ");
   if (![t.X, t.Y, t.Z].every(Number.isFinite))
     throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
@@ -62,6 +68,8 @@ export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
  * @example xyzFromLab({ L: 53.24, a: 80.09, b: 67.2 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
+  checkFields("xyzFromLab", "lab", lab, LAB_FIELDS);
+  checkFields("xyzFromLab", "white", white, XYZ_FIELDS);
   requireWhite(white, "xyzFromLab");
   const fy = (lab.L + 16) / 116;
   const fx = fy + lab.a / 500;
@@ -78,6 +86,7 @@ export function xyzFromLab(lab: Lab, white: Tristimulus): Tristimulus {
  * @example lchFromLab({ L: 50, a: 20, b: -20 })
  */
 export function lchFromLab(lab: Lab): LCh {
+  checkFields("lchFromLab", "lab", lab, LAB_FIELDS);
   return { L: lab.L, C: Math.hypot(lab.a, lab.b), h: hueAngleDegrees(lab.a, lab.b) };
 }
 
@@ -90,6 +99,7 @@ export function lchFromLab(lab: Lab): LCh {
  * @example labFromLch({ L: 50, C: 30, h: 315 })
  */
 export function labFromLch(lch: LCh): Lab {
+  checkFields("labFromLch", "lch", lch, LCH_FIELDS);
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, a: lch.C * Math.cos(r), b: lch.C * Math.sin(r) };
 }

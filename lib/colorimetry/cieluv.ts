@@ -2,6 +2,7 @@
 import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { LCH_FIELDS, LUV_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 export interface Luv {
   readonly L: number;
@@ -45,6 +46,8 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
  * @example luvFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
+  checkFields("luvFromXYZ", "t", t, XYZ_FIELDS);
+  checkFields("luvFromXYZ", "white", white, XYZ_FIELDS);
   requireXYZ("luvFromXYZ", "the colour", t, false);
   requireXYZ("luvFromXYZ", "the reference white", white, true);
   noteMethod("colour space", "CIELUV (CIE 1976 L*u*v*) values were computed per CIE 015:2018 §8.2.2.");
@@ -66,6 +69,8 @@ export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
  * @example xyzFromLuv({ L: 53.24, u: 175, v: 37.8 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
+  checkFields("xyzFromLuv", "luv", luv, LUV_FIELDS);
+  checkFields("xyzFromLuv", "white", white, XYZ_FIELDS);
   if (typeof luv !== "object" || luv === null || ![luv.L, luv.u, luv.v].every(Number.isFinite)) {
     throw new Error(`xyzFromLuv: (L* ${luv?.L}, u* ${luv?.u}, v* ${luv?.v}) must be finite`);
   }
@@ -89,6 +94,7 @@ export function xyzFromLuv(luv: Luv, white: Tristimulus): Tristimulus {
  * @example lchFromLuv({ L: 50, u: 30, v: 10 })
  */
 export function lchFromLuv(luv: Luv): LChUv {
+  checkFields("lchFromLuv", "luv", luv, LUV_FIELDS);
   return { L: luv.L, C: Math.hypot(luv.u, luv.v), h: hueAngleDegrees(luv.u, luv.v) };
 }
 
@@ -101,6 +107,7 @@ export function lchFromLuv(luv: Luv): LChUv {
  * @example luvFromLch({ L: 50, C: 30, h: 20 })
  */
 export function luvFromLch(lch: LChUv): Luv {
+  checkFields("luvFromLch", "lch", lch, LCH_FIELDS);
   const r = (lch.h * Math.PI) / 180;
   return { L: lch.L, u: lch.C * Math.cos(r), v: lch.C * Math.sin(r) };
 }
@@ -115,6 +122,8 @@ export function luvFromLch(lch: LChUv): Luv {
  * @example saturationUv({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function saturationUv(t: Tristimulus, white: Tristimulus): number {
+  checkFields("saturationUv", "t", t, XYZ_FIELDS);
+  checkFields("saturationUv", "white", white, XYZ_FIELDS);
   requireXYZ("saturationUv", "the colour", t, false);
   requireXYZ("saturationUv", "the reference white", white, true);
   const [u, v] = uvPrime(t);

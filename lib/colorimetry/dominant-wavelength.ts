@@ -6,6 +6,8 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { observerByName, type Observer, type ObserverName } from "../observers/standard-observer.ts";
 import type { Chromaticity } from "./chromaticity.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkObserver } from "../arguments/common-arguments.ts";
 
 export interface DominantWavelength {
   /** The dominant wavelength in nm, or the complementary wavelength when `complementary` is true. */
@@ -35,6 +37,7 @@ const loci = new Map<string, LocusPoint[]>();
  * @example spectrumLocus("2°").length
  */
 export function spectrumLocus(observer: ObserverName | Observer | 2 | 10 = "2°"): readonly LocusPoint[] {
+  checkObserver("spectrumLocus", "observer", observer);
   const obs = observerByName(observer);
   let locus = loci.get(obs.name);
   if (!locus) {
@@ -101,6 +104,12 @@ export function dominantWavelength(
   white: Chromaticity,
   observer: ObserverName | Observer | 2 | 10 = "2°",
 ): DominantWavelength {
+  checkFields("dominantWavelength", "xy", xy, XY_FIELDS);
+  checkFields("dominantWavelength", "white", white, {
+    ...XY_FIELDS,
+    what: "the white's chromaticity { x, y }",
+  });
+  checkObserver("dominantWavelength", "observer", observer);
   checkXy("the colour", xy);
   checkXy("the white", white);
   const dx = xy.x - white.x,

@@ -1,4 +1,6 @@
 /** 3 × 3 matrices for linear colour transforms (RGB ↔ XYZ, cone spaces), as plain nested arrays. */
+import { checkMatrix3, checkNumberList } from "../arguments/check-list.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 export type Vector3 = readonly [number, number, number];
 export type Matrix3 = readonly [Vector3, Vector3, Vector3];
@@ -13,6 +15,8 @@ export type Matrix3 = readonly [Vector3, Vector3, Vector3];
  * @example applyMatrix3([[1, 0, 0], [0, 2, 0], [0, 0, 3]], [1, 1, 1])
  */
 export function applyMatrix3(m: Matrix3, v: Vector3): [number, number, number] {
+  checkMatrix3("applyMatrix3", "m", m);
+  checkNumberList("applyMatrix3", "v", v, { length: 3 });
   return [
     m[0][0] * v[0] + m[0][1] * v[1] + m[0][2] * v[2],
     m[1][0] * v[0] + m[1][1] * v[1] + m[1][2] * v[2],
@@ -30,6 +34,8 @@ export function applyMatrix3(m: Matrix3, v: Vector3): [number, number, number] {
  * @example multiplyMatrix3([[1, 2, 0], [0, 1, 0], [0, 0, 1]], [[1, 0, 0], [3, 1, 0], [0, 0, 1]])
  */
 export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
+  checkMatrix3("multiplyMatrix3", "a", a);
+  checkMatrix3("multiplyMatrix3", "b", b);
   const row = (i: 0 | 1 | 2): Vector3 => [
     a[i][0] * b[0][0] + a[i][1] * b[1][0] + a[i][2] * b[2][0],
     a[i][0] * b[0][1] + a[i][1] * b[1][1] + a[i][2] * b[2][1],
@@ -48,6 +54,11 @@ export function multiplyMatrix3(a: Matrix3, b: Matrix3): Matrix3 {
  * @example invertMatrix3([[2, 0, 0], [0, 4, 0], [0, 0, 5]])
  */
 export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
+  checkMatrix3("invertMatrix3", "m", m);
+  checkString("invertMatrix3", "what", what, {
+    optional: true,
+    what: "a description of the matrix for the error message",
+  });
   const [[a, b, c], [d, e, f], [g, h, i]] = m;
   const A = e * i - f * h,
     B = -(d * i - f * g),
@@ -73,6 +84,7 @@ export function invertMatrix3(m: Matrix3, what = "matrix"): Matrix3 {
  * @example diagonalMatrix3([1, 2, 3])
  */
 export function diagonalMatrix3(v: Vector3): Matrix3 {
+  checkNumberList("diagonalMatrix3", "v", v, { length: 3 });
   return [
     [v[0], 0, 0],
     [0, v[1], 0],

@@ -19,6 +19,11 @@ import {
 } from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { Tristimulus } from "./chromaticity.ts";
+import { checkList, checkSpectrumList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum, isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkLightOptions, checkObjectColourOptions, checkTableOptions } from "../arguments/option-sets.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 export interface ObjectColourOptions {
   /** Illuminant name ("D65", "A", "FL2", ...) or a spectrum; default D65. */
@@ -67,6 +72,8 @@ export interface WeightingTable {
     readonly observer: string;
     readonly illuminant: string;
     readonly integration: string;
+    /** What the Methods section says when the table served only for a reference white (whitePoint). */
+    readonly white: string;
     readonly interpolation?: string;
   };
 }
@@ -129,6 +136,7 @@ function buildTable(
   interval: 1 | 5,
   range: [number, number],
   requested: readonly [number, number] | undefined,
+  fromSample = false,
 ): WeightingTable {
   const wavelengths = gridFor(range, interval);
   // Built once and kept: the illuminant's interpolation is stated on every use of the table (notes.interpolation),
@@ -165,6 +173,9 @@ function buildTable(
   }
   const first = wavelengths[0]!,
     last = wavelengths.at(-1)!;
+  const rangePhrase = fromSample
+    ? " (the measured range of the samples within the 360–830 nm of the colour-matching functions, without extrapolation)"
+    : rangeWords(first, last, requested);
   return {
     wavelengths,
     wx,
@@ -178,7 +189,8 @@ function buildTable(
     notes: {
       observer: observerStatement(obs),
       illuminant: `Object colours were computed under ${ill.name}.`,
-      integration: `Tristimulus values of object colours were summed at ${interval} nm intervals over ${first}–${last} nm${rangeWords(first, last, requested)}, with the normalising constant chosen so that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 §7.1).`,
+      white: `Reference whites were the perfect reflecting diffuser under ${ill.name}, summed at ${interval} nm intervals over ${first}–${last} nm${rangePhrase}, with Y = 100 (CIE 015:2018 §7.1).`,
+      integration: `Tristimulus values of object colours were summed at ${interval} nm intervals over ${first}–${last} nm${rangePhrase}, with the normalising constant chosen so that the perfect reflecting diffuser has Y = 100 (CIE 015:2018 §7.1).`,
       ...(interpolated ? { interpolation: interpolationStatement(ill) } : {}),
     },
   };
@@ -194,11 +206,12 @@ function tableFor(
   observerOption: TableOptions["observer"],
   interval: 1 | 5,
   rangeOption: TableOptions["range"],
+  fromSample = false,
 ): WeightingTable {
   checkInterval(interval);
   const ill = resolveIlluminant(illuminantOption);
   const obs = observerByName(observerOption ?? "2°");
-  const key = `${obs.name}|${interval}|${rangeOption ? rangeOption.join("-") : "default"}`;
+  const key = `${obs.name}|${interval}|${rangeOption ? rangeOption.join("-") : "default"}${fromSample ? "|sample" : ""}`;
   let cache: Map<string, WeightingTable> | undefined;
   if (typeof illuminantOption === "object") {
     cache = objectCache.get(illuminantOption);
@@ -207,7 +220,7 @@ function tableFor(
   const fullKey = typeof illuminantOption === "object" ? key : `${ill.name}|${key}`;
   let table = cache.get(fullKey);
   if (!table) {
-    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs), rangeOption);
+    table = buildTable(ill, obs, interval, resolveRange(rangeOption, ill, obs), rangeOption, fromSample);
     cache.set(fullKey, table);
   }
   return table;
@@ -222,6 +235,17 @@ function tableFor(
  * @example weightingTable({ illuminant: "D65", interval: 5 }).white
  */
 export function weightingTable(options: TableOptions & { interval: 1 | 5 }): WeightingTable {
+  checkWith(
+    "weightingTable",
+    "options",
+    options,
+    "options { interval: 1 or 5 (nm), illuminant?, observer?, range? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      [1, 5].includes((o as { interval?: unknown }).interval as number),
+  );
+  checkTableOptions("weightingTable", options);
   return tableFor(options.illuminant, options.observer, options.interval, options.range);
 }
 
@@ -247,6 +271,14 @@ export function commonSummationInterval(
   samples: readonly Spectrum[],
   illuminants: readonly (string | Spectrum | undefined)[] = [undefined],
 ): 1 | 5 {
+  checkSpectrumList("commonSummationInterval", "samples", samples, { minLength: 1 });
+  checkList(
+    "commonSummationInterval",
+    "illuminants",
+    illuminants,
+    "illuminant names or spectra",
+    (i) => i === undefined || typeof i === "string" || isWellFormedSpectrum(i),
+  );
   if (!Array.isArray(samples) || samples.length === 0)
     throw new Error("commonSummationInterval: give at least one sample spectrum");
   for (const ill of illuminants.length > 0 ? illuminants : [undefined]) {
@@ -270,9 +302,26 @@ function checkObjectSample(sample: Spectrum, what: string): void {
   }
 }
 
+/**
+ * The summation range a sample gets unless a range is asked for: the wavelengths it was measured at, within the
+ * 360–830 nm of the colour-matching functions (no extrapolation; the library's one convention for lights and objects).
+ */
+function measuredRange(sample: Spectrum): [number, number] {
+  return [
+    Math.max(sample.wavelengths[0]!, DEFAULT_SUMMATION_RANGE[0]),
+    Math.min(sample.wavelengths.at(-1)!, DEFAULT_SUMMATION_RANGE[1]),
+  ];
+}
+
 function tableForSample(sample: Spectrum, options: ObjectColourOptions): WeightingTable {
   const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
-  return tableFor(options.illuminant, options.observer, interval, options.range);
+  return tableFor(
+    options.illuminant,
+    options.observer,
+    interval,
+    options.range ?? measuredRange(sample),
+    !options.range,
+  );
 }
 
 /**
@@ -287,6 +336,10 @@ function tableForSample(sample: Spectrum, options: ObjectColourOptions): Weighti
  * @example tristimulus(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "reflectance" }), { illuminant: "D50" })
  */
 export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {}): Tristimulus {
+  checkSpectrum("tristimulus", "sample", sample, {
+    what: "a reflectance or transmittance spectrum (fractions 0–1)",
+  });
+  checkObjectColourOptions("tristimulus", options);
   checkObjectSample(sample, "tristimulus");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -322,6 +375,10 @@ export interface ObjectColour {
  * @example objectColour(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "reflectance" })).white
  */
 export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}): ObjectColour {
+  checkSpectrum("objectColour", "sample", sample, {
+    what: "a reflectance or transmittance spectrum (fractions 0–1)",
+  });
+  checkObjectColourOptions("objectColour", options);
   checkObjectSample(sample, "objectColour");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -400,10 +457,29 @@ function noteObjectColourMethod(table: WeightingTable): void {
  * @source CIE 015:2018 §7.1–7.2; ASTM E308 (the white points the default range reproduces).
  * @example chromaticityXy(whitePoint({ illuminant: "D50", interval: 5 }))
  */
-export function whitePoint(options: TableOptions = {}): Tristimulus {
-  const interval = options.interval ?? defaultInterval(undefined, resolveIlluminant(options.illuminant));
-  const table = tableFor(options.illuminant, options.observer, interval, options.range);
-  noteObjectColourMethod(table);
+export function whitePoint(
+  options: TableOptions & {
+    /** A sample whose summation the white should follow: its interval and measured range, as tristimulus sums it (default none: the table's own interval over 360–830 nm). */
+    sample?: Spectrum;
+  } = {},
+): Tristimulus {
+  checkTableOptions("whitePoint", options, ["sample"]);
+  const sample = options.sample;
+  checkSpectrum("whitePoint", "options.sample", sample, { optional: true });
+  const ill = resolveIlluminant(options.illuminant);
+  const interval = options.interval ?? defaultInterval(sample, ill);
+  const table = sample
+    ? tableFor(
+        options.illuminant,
+        options.observer,
+        interval,
+        options.range ?? measuredRange(sample),
+        !options.range,
+      )
+    : tableFor(options.illuminant, options.observer, interval, options.range);
+  noteMethod("observer", table.notes.observer);
+  noteMethod("integration", table.notes.white);
+  if (table.notes.interpolation) noteMethod("interpolation", table.notes.interpolation);
   return { ...table.white };
 }
 
@@ -429,6 +505,10 @@ export const KM_PHOTOPIC = 683;
  * @example lightTristimulus(illuminant("A"))
  */
 export function lightTristimulus(source: Spectrum, options: LightOptions = {}): Tristimulus {
+  checkSpectrum("lightTristimulus", "source", source, {
+    what: "a spectrum of a light source (power, radiance, irradiance, ...)",
+  });
+  checkLightOptions("lightTristimulus", options);
   const obs = observerByName(options.observer ?? "2°");
   const step = regularStep(source);
   const onWholeNm =

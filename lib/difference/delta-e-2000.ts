@@ -6,6 +6,8 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireFactor, requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface DeltaE2000Options {
   /** Parametric factor for lightness, dimensionless (default 1, the reference conditions of CIE 142-2001). */
@@ -51,6 +53,9 @@ const TWO_PI = 2 * Math.PI;
  * @example ciede2000Terms({ L: 50, a: 2.6772, b: -79.7751 }, { L: 50, a: 0, b: -82.7485 }).deltaE
  */
 export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Options = {}): Ciede2000Terms {
+  checkFields("ciede2000Terms", "first", first, LAB_FIELDS);
+  checkFields("ciede2000Terms", "second", second, LAB_FIELDS);
+  checkOptions("ciede2000Terms", "options", options, ["kL", "kC", "kH"]);
   requireLab("deltaE2000", "first", first);
   requireLab("deltaE2000", "second", second);
   const kL = options.kL ?? 1,
@@ -73,6 +78,9 @@ export function ciede2000Terms(first: Lab, second: Lab, options: DeltaE2000Optio
  * @example deltaE2000({ L: 50, a: 2.6772, b: -79.7751 }, { L: 50, a: 0, b: -82.7485 })
  */
 export function deltaE2000(first: Lab, second: Lab, options?: DeltaE2000Options): number {
+  checkFields("deltaE2000", "first", first, LAB_FIELDS);
+  checkFields("deltaE2000", "second", second, LAB_FIELDS);
+  checkOptions("deltaE2000", "options", options, ["kL", "kC", "kH"]);
   if (first == null || second == null) {
     requireLab("deltaE2000", "first", first);
     requireLab("deltaE2000", "second", second);

@@ -2,6 +2,7 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
 
 /**
  * CIE 1976 colour difference ΔE*ab: the Euclidean distance of two colours in CIELAB.
@@ -15,6 +16,8 @@ import { requireLab } from "./check-lab.ts";
  * @example deltaE76({ L: 50, a: 2, b: -3 }, { L: 52, a: 0, b: 0 })
  */
 export function deltaE76(a: Lab, b: Lab): number {
+  checkFields("deltaE76", "a", a, LAB_FIELDS);
+  checkFields("deltaE76", "b", b, LAB_FIELDS);
   requireLab("deltaE76", "first", a);
   requireLab("deltaE76", "second", b);
   noteMethod(

@@ -2,6 +2,8 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface DeltaE94Options {
   /**
@@ -29,6 +31,9 @@ const WEIGHTS = {
  * @example deltaE94({ L: 50, a: 20, b: -10 }, { L: 51, a: 18, b: -9 }, { application: "textiles" })
  */
 export function deltaE94(reference: Lab, sample: Lab, options: DeltaE94Options = {}): number {
+  checkFields("deltaE94", "reference", reference, LAB_FIELDS);
+  checkFields("deltaE94", "sample", sample, LAB_FIELDS);
+  checkOptions("deltaE94", "options", options, ["application"]);
   requireLab("deltaE94", "reference (first)", reference);
   requireLab("deltaE94", "sample (second)", sample);
   const application = options.application ?? "graphic arts";

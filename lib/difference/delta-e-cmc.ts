@@ -2,6 +2,8 @@
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { requireFactor, requireLab } from "./check-lab.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface DeltaECMCOptions {
   /** Lightness weight l (default 2, the acceptability ratio 2:1). */
@@ -22,6 +24,9 @@ export interface DeltaECMCOptions {
  * @example deltaECMC({ L: 50, a: 20, b: -10 }, { L: 51, a: 18, b: -9 }, { l: 1, c: 1 })
  */
 export function deltaECMC(reference: Lab, sample: Lab, options: DeltaECMCOptions = {}): number {
+  checkFields("deltaECMC", "reference", reference, LAB_FIELDS);
+  checkFields("deltaECMC", "sample", sample, LAB_FIELDS);
+  checkOptions("deltaECMC", "options", options, ["l", "c"]);
   requireLab("deltaECMC", "reference (first)", reference);
   requireLab("deltaECMC", "sample (second)", sample);
   const l = options.l ?? 2;

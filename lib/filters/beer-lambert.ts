@@ -7,6 +7,11 @@ import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum, requireNonNegative, requirePositive } from "./checks.ts";
 import { externalTransmittance, internalTransmittance, type PlateOptions } from "./plate.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { checkPathChange, checkPlateOptions, isPathChange } from "../arguments/physics-arguments.ts";
 
 /**
  * Internal transmittance raised to a Beer–Lambert path ratio, τᵢ′ = τᵢ^ratio.
@@ -18,6 +23,11 @@ import { externalTransmittance, internalTransmittance, type PlateOptions } from 
  * @example scaleInternalValue(0.5, 2)
  */
 export function scaleInternalValue(internal: number, ratio: number): number {
+  checkNumber("scaleInternalValue", "internal", internal, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use scaleInternalTransmittance" },
+  });
+  checkNumber("scaleInternalValue", "ratio", ratio, { min: 0, unit: "path-length ratio" });
   requireFraction(internal, "internal transmittance");
   requireNonNegative(ratio, "Beer–Lambert path ratio");
   return internal ** ratio;
@@ -40,6 +50,7 @@ export interface PathChange {
  * @example pathRatio({ thickness: [2, 3] })
  */
 export function pathRatio(change: PathChange): number {
+  checkPathChange("pathRatio", "change", change);
   let ratio = 1;
   for (const key of ["thickness", "concentration"] as const) {
     const pair = change[key];
@@ -73,6 +84,17 @@ export function scaleInternalTransmittance(
   change: PathChange | number,
   name?: string,
 ): Spectrum {
+  checkSpectrum("scaleInternalTransmittance", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+  });
+  checkWith(
+    "scaleInternalTransmittance",
+    "change",
+    change,
+    "a path-length ratio ≥ 0 or { thickness?: [from, to], concentration?: [from, to] }",
+    (c) => (typeof c === "number" && Number.isFinite(c) && c >= 0) || isPathChange(c),
+  );
+  checkString("scaleInternalTransmittance", "name", name, { optional: true });
   const ratio =
     typeof change === "number" ? requireNonNegative(change, "Beer–Lambert path ratio") : pathRatio(change);
   requireFractionSpectrum(internal, "internal transmittance");
@@ -104,6 +126,11 @@ export function scaleFilterTransmittance(
   change: PathChange,
   options: PlateOptions,
 ): Spectrum {
+  checkSpectrum("scaleFilterTransmittance", "external", external, {
+    what: "a measured (external) transmittance spectrum (fractions 0–1)",
+  });
+  checkPathChange("scaleFilterTransmittance", "change", change);
+  checkPlateOptions("scaleFilterTransmittance", options);
   const inner = internalTransmittance(external, options);
   const scaled = scaleInternalTransmittance(inner, change);
   return externalTransmittance(scaled, { ...options, name: options.name ?? `${external.name} (rescaled)` });

@@ -19,6 +19,12 @@ import {
   type RefractiveIndex,
 } from "./fresnel.ts";
 import { externalFromInternal, internalTransmittance, plateReflectanceValue } from "./plate.ts";
+import { checkList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { checkPlateOptions } from "../arguments/physics-arguments.ts";
+import { checkChoice } from "../arguments/check-text.ts";
 
 /** One filter of a stack: its internal (bulk) transmittance and refractive index. */
 export interface FilterElement {
@@ -42,6 +48,10 @@ export function filterElement(
   internal: Spectrum,
   options: { refractiveIndex: RefractiveIndex; name?: string },
 ): FilterElement {
+  checkSpectrum("filterElement", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+  });
+  checkPlateOptions("filterElement", options);
   if (!options || options.refractiveIndex === undefined) {
     throw new Error(
       `filterElement "${internal.name}": give its refractiveIndex (e.g. 1.52); it is never assumed`,
@@ -77,6 +87,10 @@ export function filterElementFromMeasurement(
   external: Spectrum,
   options: { refractiveIndex: RefractiveIndex; name?: string; aboveClearPlate?: "error" | "clip" },
 ): FilterElement {
+  checkSpectrum("filterElementFromMeasurement", "external", external, {
+    what: "a measured (external) transmittance spectrum (fractions 0–1)",
+  });
+  checkPlateOptions("filterElementFromMeasurement", options, ["aboveClearPlate"]);
   const internal = internalTransmittance(external, options);
   return filterElement(internal, {
     refractiveIndex: options.refractiveIndex,
@@ -117,6 +131,25 @@ export function stackTransmittance(
   elements: readonly FilterElement[],
   options: { join: StackJoin; name?: string },
 ): Spectrum {
+  checkList(
+    "stackTransmittance",
+    "elements",
+    elements,
+    "filter elements (from filterElement or filterElementFromMeasurement)",
+    (e) => typeof e === "object" && e !== null && (e as { kind?: unknown }).kind === "filter element",
+    { minLength: 1, instead: { spectrum: "for spectra make filter elements first with filterElement" } },
+  );
+  checkWith(
+    "stackTransmittance",
+    "options",
+    options,
+    'options { join: "no surface losses" | "cemented" | "air gaps" | "air gaps with interreflection", name? }',
+    (o) => typeof o === "object" && o !== null && !Array.isArray(o),
+  );
+  checkChoice("stackTransmittance", "options.join", options.join, Object.keys(JOIN_WORDS), {
+    what: "how the elements are joined",
+  });
+  checkOptions("stackTransmittance", "options", options, ["join", "name"]);
   if (!Array.isArray(elements) || elements.length === 0)
     throw new Error("stackTransmittance: the stack has no elements");
   const join = options?.join;

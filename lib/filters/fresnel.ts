@@ -6,6 +6,9 @@ import { noteMethod } from "../methods/method-log.ts";
 import { sampler } from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { requireFinite } from "./checks.ts";
+import { checkNumberList } from "../arguments/check-list.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkRefractiveIndex } from "../arguments/physics-arguments.ts";
 
 /** A refractive index: one number for all wavelengths, or a dispersion curve (a spectrum of n against wavelength). */
 export type RefractiveIndex = number | Spectrum;
@@ -20,6 +23,12 @@ export type RefractiveIndex = number | Spectrum;
  * @example surfaceReflectance(1.5)
  */
 export function surfaceReflectance(index: number, outsideIndex = 1): number {
+  checkNumber("surfaceReflectance", "index", index, {
+    unit: "refractive index",
+    min: 1,
+    instead: { spectrum: "for a dispersive index use surfaceReflectanceAt" },
+  });
+  checkNumber("surfaceReflectance", "outsideIndex", outsideIndex, { unit: "refractive index", min: 1 });
   requireFinite(index, "refractive index");
   requireFinite(outsideIndex, "refractive index of the surrounding medium");
   if (index < 1 || outsideIndex < 1) {
@@ -40,6 +49,8 @@ export function surfaceReflectance(index: number, outsideIndex = 1): number {
  * @example indexAtWavelengths(spectrumOnGrid(400, 100, [1.53, 1.52, 1.515]), [450, 550])
  */
 export function indexAtWavelengths(index: RefractiveIndex, wavelengths: readonly number[]): number[] {
+  checkRefractiveIndex("indexAtWavelengths", "index", index);
+  checkNumberList("indexAtWavelengths", "wavelengths", wavelengths, { unit: "nm", minLength: 1 });
   if (typeof index === "number") {
     requireFinite(index, "refractive index");
     return wavelengths.map(() => index);
@@ -63,6 +74,9 @@ export function surfaceReflectanceAt(
   wavelengths: readonly number[],
   outsideIndex = 1,
 ): number[] {
+  checkRefractiveIndex("surfaceReflectanceAt", "index", index);
+  checkNumberList("surfaceReflectanceAt", "wavelengths", wavelengths, { unit: "nm", minLength: 1 });
+  checkNumber("surfaceReflectanceAt", "outsideIndex", outsideIndex, { unit: "refractive index", above: 0 });
   noteMethod(
     "optics",
     "Surface reflection was computed at normal incidence from the refractive index, ρ = ((n − 1)/(n + 1))² (Fresnel equations; Hecht, Optics §4.6).",
@@ -79,5 +93,6 @@ export function surfaceReflectanceAt(
  * @example describeRefractiveIndex(1.5)
  */
 export function describeRefractiveIndex(index: RefractiveIndex): string {
+  checkRefractiveIndex("describeRefractiveIndex", "index", index);
   return typeof index === "number" ? `n = ${index}` : `n(λ) from "${index.name}"`;
 }

@@ -2,6 +2,8 @@
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFinite, requireFraction } from "./checks.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /**
  * Optical density (decadic), D = −log₁₀ T, of a transmittance; zero transmittance is an error. For a spectrum use `opticalDensitySpectrum`.
@@ -12,6 +14,10 @@ import { requireFinite, requireFraction } from "./checks.ts";
  * @example opticalDensity(0.01)
  */
 export function opticalDensity(transmittance: number): number {
+  checkNumber("opticalDensity", "transmittance", transmittance, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use opticalDensitySpectrum" },
+  });
   requireFraction(transmittance, "transmittance");
   if (transmittance === 0)
     throw new Error(
@@ -29,6 +35,11 @@ export function opticalDensity(transmittance: number): number {
  * @example transmittanceFromDensity(2)
  */
 export function transmittanceFromDensity(density: number): number {
+  checkNumber("transmittanceFromDensity", "density", density, {
+    unit: "optical density",
+    min: 0,
+    instead: { spectrum: "for a spectrum use transmittanceFromDensitySpectrum" },
+  });
   requireFinite(density, "optical density");
   if (density < 0)
     throw new Error(`optical density ${density} is negative, i.e. a transmittance above 1; check the data`);
@@ -44,6 +55,10 @@ export function transmittanceFromDensity(density: number): number {
  * @example opticalDensitySpectrum(spectrumOnGrid(400, 100, [0.5, 0.1, 0.01]))
  */
 export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
+  checkSpectrum("opticalDensitySpectrum", "transmittance", transmittance, {
+    what: "a transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use opticalDensity" },
+  });
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = transmittance.values.map((t, i) => {
     try {
@@ -69,6 +84,10 @@ export function opticalDensitySpectrum(transmittance: Spectrum): Spectrum {
  * @example transmittanceFromDensitySpectrum(spectrumOnGrid(400, 100, [0.3, 1, 2]))
  */
 export function transmittanceFromDensitySpectrum(density: Spectrum): Spectrum {
+  checkSpectrum("transmittanceFromDensitySpectrum", "density", density, {
+    what: "an optical density spectrum",
+    instead: { number: "for a single value use transmittanceFromDensity" },
+  });
   noteMethod("optics", "Optical densities were computed as decadic densities, D = −log₁₀ T.");
   const values = density.values.map((d, i) => {
     try {

@@ -8,6 +8,9 @@ import { noteMethod } from "../methods/method-log.ts";
 import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFinite, requireFraction, requireNonNegative, requirePositive } from "./checks.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /** The default grid of parametric curves: 360–830 nm every 1 nm, the range of the CIE observers. */
 export const PARAMETRIC_GRID: WavelengthGrid = { start: 360, end: 830, step: 1 };
@@ -35,6 +38,8 @@ export interface EdgeShape {
  * @example logisticEdge(5, 10)
  */
 export function logisticEdge(x: number, edgeWidth: number): number {
+  checkNumber("logisticEdge", "x", x, { unit: "nm from the edge" });
+  checkNumber("logisticEdge", "edgeWidth", edgeWidth, { unit: "nm", min: 0 });
   if (edgeWidth === 0) return x >= 0 ? 1 : 0;
   return 1 / (1 + Math.exp((-x * 2 * Math.log(9)) / edgeWidth));
 }
@@ -66,6 +71,8 @@ function shape(options: EdgeShape): {
  * @example longPassFilter(500, { edgeWidth: 20 })
  */
 export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
+  checkNumber("longPassFilter", "edge", edge, { unit: "nm", above: 0 });
+  checkOptions("longPassFilter", "options", options, ["peak", "floor", "edgeWidth", "grid", "name"]);
   requirePositive(edge, "long-pass edge wavelength (nm)");
   const s = shape(options);
   return spectrum(
@@ -87,6 +94,8 @@ export function longPassFilter(edge: number, options: EdgeShape = {}): Spectrum 
  * @example shortPassFilter(600, { edgeWidth: 15, floor: 0.01 })
  */
 export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum {
+  checkNumber("shortPassFilter", "edge", edge, { unit: "nm", above: 0 });
+  checkOptions("shortPassFilter", "options", options, ["peak", "floor", "edgeWidth", "grid", "name"]);
   requirePositive(edge, "short-pass edge wavelength (nm)");
   const s = shape(options);
   return spectrum(
@@ -109,6 +118,9 @@ export function shortPassFilter(edge: number, options: EdgeShape = {}): Spectrum
  * @example bandPassFilter(550, 40, { edgeWidth: 10, peak: 0.9 })
  */
 export function bandPassFilter(centre: number, width: number, options: EdgeShape = {}): Spectrum {
+  checkNumber("bandPassFilter", "centre", centre, { unit: "nm", above: 0 });
+  checkNumber("bandPassFilter", "width", width, { unit: "nm", above: 0 });
+  checkOptions("bandPassFilter", "options", options, ["peak", "floor", "edgeWidth", "grid", "name"]);
   requirePositive(centre, "band-pass centre wavelength (nm)");
   requirePositive(width, "band-pass width (nm)");
   const s = shape(options);
@@ -138,6 +150,8 @@ export function neutralDensityFilter(
   density: number,
   options: { grid?: WavelengthGrid; name?: string } = {},
 ): Spectrum {
+  checkNumber("neutralDensityFilter", "density", density, { unit: "optical density", min: 0 });
+  checkOptions("neutralDensityFilter", "options", options, ["grid", "name"]);
   requireNonNegative(density, "neutral density");
   const w = gridWavelengths(options.grid ?? PARAMETRIC_GRID);
   noteMethod(
@@ -162,6 +176,8 @@ export function neutralDensityFilter(
  * @example dyeFilter(spectrumOnGrid(400, 50, [0.1, 0.8, 1.2, 0.4, 0.05]), { amount: 0.5 })
  */
 export function dyeFilter(absorbance: Spectrum, options: { amount?: number; name?: string } = {}): Spectrum {
+  checkSpectrum("dyeFilter", "absorbance", absorbance, { what: "an absorbance (decadic) spectrum" });
+  checkOptions("dyeFilter", "options", options, ["amount", "name"]);
   const amount = requireNonNegative(options.amount ?? 1, "dye amount (relative concentration × path)");
   absorbance.values.forEach((a, i) => {
     requireFinite(a, `absorbance of "${absorbance.name}" at ${absorbance.wavelengths[i]} nm`);

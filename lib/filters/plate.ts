@@ -9,6 +9,10 @@ import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { requireFraction, requireFractionSpectrum } from "./checks.ts";
 import { describeRefractiveIndex, surfaceReflectanceAt, type RefractiveIndex } from "./fresnel.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkPlateOptions } from "../arguments/physics-arguments.ts";
 
 /**
  * External transmittance of a plate in air from its internal transmittance and face reflectance, T = (1 − ρ)²τᵢ ÷ (1 − ρ²τᵢ²).
@@ -20,6 +24,11 @@ import { describeRefractiveIndex, surfaceReflectanceAt, type RefractiveIndex } f
  * @example externalFromInternal(0.8, surfaceReflectance(1.5))
  */
 export function externalFromInternal(internal: number, faceReflectance: number): number {
+  checkNumber("externalFromInternal", "internal", internal, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use externalTransmittance" },
+  });
+  checkNumber("externalFromInternal", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -36,6 +45,11 @@ export function externalFromInternal(internal: number, faceReflectance: number):
  * @example plateReflectanceValue(1, surfaceReflectance(1.5))
  */
 export function plateReflectanceValue(internal: number, faceReflectance: number): number {
+  checkNumber("plateReflectanceValue", "internal", internal, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use plateReflectance" },
+  });
+  checkNumber("plateReflectanceValue", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(internal, "internal transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -52,6 +66,7 @@ export function plateReflectanceValue(internal: number, faceReflectance: number)
  * @example clearPlateTransmittance(surfaceReflectance(1.5))
  */
 export function clearPlateTransmittance(faceReflectance: number): number {
+  checkNumber("clearPlateTransmittance", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
   requireFraction(faceReflectance, "face reflectance");
   return (1 - faceReflectance) / (1 + faceReflectance);
 }
@@ -74,6 +89,12 @@ export function internalFromExternal(
   faceReflectance: number,
   above: AboveClearPlate = "error",
 ): number {
+  checkNumber("internalFromExternal", "external", external, {
+    unit: "fraction",
+    instead: { spectrum: "for a spectrum use internalTransmittance" },
+  });
+  checkNumber("internalFromExternal", "faceReflectance", faceReflectance, { unit: "fraction", below: 1 });
+  checkChoice("internalFromExternal", "above", above, ["error", "clip"], { optional: true });
   requireFraction(external, "external transmittance");
   requireFraction(faceReflectance, "face reflectance");
   const r = faceReflectance;
@@ -129,6 +150,11 @@ function notePlate(index: RefractiveIndex): void {
  * @example externalTransmittance(spectrumOnGrid(400, 100, [0.9, 0.8, 0.7]), { refractiveIndex: 1.5 })
  */
 export function externalTransmittance(internal: Spectrum, options: PlateOptions): Spectrum {
+  checkSpectrum("externalTransmittance", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use externalFromInternal" },
+  });
+  checkPlateOptions("externalTransmittance", options);
   const index = requireIndex(options, "externalTransmittance");
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);
@@ -152,6 +178,11 @@ export function externalTransmittance(internal: Spectrum, options: PlateOptions)
  * @example internalTransmittance(spectrumOnGrid(400, 100, [0.8, 0.7, 0.6]), { refractiveIndex: 1.5 })
  */
 export function internalTransmittance(external: Spectrum, options: InternalOptions): Spectrum {
+  checkSpectrum("internalTransmittance", "external", external, {
+    what: "a measured (external) transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use internalFromExternal" },
+  });
+  checkPlateOptions("internalTransmittance", options, ["aboveClearPlate"]);
   const index = requireIndex(options, "internalTransmittance");
   requireFractionSpectrum(external, "external transmittance");
   const rho = surfaceReflectanceAt(index, external.wavelengths);
@@ -178,6 +209,11 @@ export function internalTransmittance(external: Spectrum, options: InternalOptio
  * @example plateReflectance(spectrumOnGrid(400, 100, [1, 1, 1]), { refractiveIndex: 1.5 })
  */
 export function plateReflectance(internal: Spectrum, options: PlateOptions): Spectrum {
+  checkSpectrum("plateReflectance", "internal", internal, {
+    what: "an internal transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a single value use plateReflectanceValue" },
+  });
+  checkPlateOptions("plateReflectance", options);
   const index = requireIndex(options, "plateReflectance");
   requireFractionSpectrum(internal, "internal transmittance");
   const rho = surfaceReflectanceAt(index, internal.wavelengths);

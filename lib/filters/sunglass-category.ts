@@ -6,6 +6,7 @@
  */
 import { noteMethod } from "../methods/method-log.ts";
 import { requireFraction } from "./checks.ts";
+import { checkNumber } from "../arguments/check-number.ts";
 
 /** The caution every sunglass-category result carries, for the report to show beside it. */
 export const EYE_PROTECTION_CAUTION =
@@ -56,6 +57,10 @@ export const SUNGLASS_CATEGORY_LIMITS: ReadonlyArray<{
  * @example sunglassCategory(0.12).category
  */
 export function sunglassCategory(luminousTransmittance: number): SunglassCategory {
+  checkNumber("sunglassCategory", "luminousTransmittance", luminousTransmittance, {
+    unit: "fraction",
+    instead: { spectrum: "for a transmittance spectrum use filterSunglassCategory" },
+  });
   const tv = requireFraction(luminousTransmittance, "luminous transmittance τv");
   noteMethod(
     "optics",

@@ -18,6 +18,8 @@ import { SAFETY_DECISION_CAUTION } from "../photometry/safety-caution.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { requireFractionSpectrum } from "./checks.ts";
 import { sunglassCategory, type SunglassCategory } from "./sunglass-category.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkTableOptions } from "../arguments/option-sets.ts";
 
 export interface TransmittedLight {
   /** τv as a fraction: the source's luminous power passed, weighted by V(λ) (CIE 1931 2° ȳ). */
@@ -50,6 +52,8 @@ type LightOptions = Pick<ObjectColourOptions, "illuminant" | "observer" | "inter
  * @example transmittedLight(bandPassFilter(590, 60, { edgeWidth: 10 }), { illuminant: "A" }).dominantWavelength
  */
 export function transmittedLight(filter: Spectrum, options: LightOptions = {}): TransmittedLight {
+  checkSpectrum("transmittedLight", "filter", filter, { what: "a transmittance spectrum (fractions 0–1)" });
+  checkTableOptions("transmittedLight", options);
   if (filter?.kind !== "spectrum")
     throw new Error("transmittedLight: give the filter's transmittance spectrum");
   if (filter.quantity !== "transmittance" && filter.quantity !== "other") {
@@ -108,6 +112,10 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
  * @example filterSunglassCategory(neutralDensityFilter(1)).category
  */
 export function filterSunglassCategory(filter: Spectrum): SunglassCategory {
+  checkSpectrum("filterSunglassCategory", "filter", filter, {
+    what: "a transmittance spectrum (fractions 0–1)",
+    instead: { number: "for a luminous transmittance use sunglassCategory" },
+  });
   requireFractionSpectrum(filter, "transmittance");
   return sunglassCategory(luminousTransmittance(filter, { illuminant: "D65" }));
 }

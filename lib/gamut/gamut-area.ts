@@ -6,6 +6,8 @@
 import { uvPrimeFromXy, type Chromaticity } from "../colorimetry/chromaticity.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { RgbSpace } from "../rgb/rgb-space.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkGamut } from "../arguments/common-arguments.ts";
 
 export type ChromaticityDiagram = "xy" | "u′v′";
 
@@ -107,6 +109,8 @@ function ccw(p: Point[]): Point[] {
  * @example gamutArea(rgbSpace("sRGB"))
  */
 export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutArea", "gamut", gamut);
+  checkChoice("gamutArea", "diagram", diagram, ["xy", "u′v′"]);
   const p = toDiagram(verticesOf(gamut, "gamutArea"), diagram);
   noteMethod(
     "gamut",
@@ -126,6 +130,9 @@ export function gamutArea(gamut: Gamut, diagram: ChromaticityDiagram = "xy"): nu
  * @example gamutIntersectionArea(rgbSpace("sRGB"), rgbSpace("Display P3"), "u′v′")
  */
 export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutIntersectionArea", "a", a);
+  checkGamut("gamutIntersectionArea", "b", b);
+  checkChoice("gamutIntersectionArea", "diagram", diagram, ["xy", "u′v′"]);
   const pa = ccw(toDiagram(verticesOf(a, "gamut intersection (first gamut)"), diagram));
   const pb = ccw(toDiagram(verticesOf(b, "gamut intersection (second gamut)"), diagram));
   let clipped: Point[];
@@ -139,37 +146,47 @@ export function gamutIntersectionArea(a: Gamut, b: Gamut, diagram: ChromaticityD
 }
 
 /**
- * Coverage of a reference gamut by a device gamut, in percent: 100 × area(device ∩ reference) ÷ area(reference).
+ * Coverage of a reference gamut by a device gamut, as a fraction: area(device ∩ reference) ÷ area(reference).
  *
  * @param device The device's gamut: chromaticities in order round the polygon, or an `RgbSpace`.
  * @param reference The reference gamut (with a positive area).
  * @param diagram "xy" or "u′v′"; default "xy".
- * @returns The coverage in percent, 0–100.
+ * @returns The coverage as a fraction, 0–1 (multiply by 100 for percent).
  * @source Sutherland & Hodgman, Comm. ACM 17(1):32–42, 1974 (polygon clipping); the ratio itself is common practice with no source.
  * @example gamutCoverage(rgbSpace("sRGB"), rgbSpace("BT.2020"))
  */
 export function gamutCoverage(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutCoverage", "device", device);
+  checkGamut("gamutCoverage", "reference", reference);
+  checkChoice("gamutCoverage", "diagram", diagram, ["xy", "u′v′"]);
   const ref = Math.abs(signedArea(toDiagram(verticesOf(reference, "gamutCoverage (reference)"), diagram)));
   if (!(ref > 0)) throw new Error("gamutCoverage: the reference gamut has no area");
   noteMethod(
     "gamut",
-    `Gamut coverage was computed as 100 × area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon clipping, Sutherland & Hodgman 1974).`,
+    `Gamut coverage was computed as the fraction area(device ∩ reference) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram (polygon clipping, Sutherland & Hodgman 1974).`,
   );
-  return (100 * gamutIntersectionArea(device, reference, diagram)) / ref;
+  return gamutIntersectionArea(device, reference, diagram) / ref;
 }
 
 /**
- * Area of a device gamut relative to a reference gamut, in percent (100 × area ratio, which may exceed 100).
+ * Area of a device gamut relative to a reference gamut, as a fraction (which may exceed 1).
  *
  * @param device The device's gamut: chromaticities in order round the polygon, or an `RgbSpace`.
  * @param reference The reference gamut (with a positive area).
  * @param diagram "xy" or "u′v′"; default "xy".
- * @returns 100 × area(device) ÷ area(reference), in percent.
+ * @returns area(device) ÷ area(reference), a fraction (multiply by 100 for percent).
  * @source none: a ratio of polygon areas (shoelace formula), common practice with no source.
  * @example gamutAreaRatio(rgbSpace("Display P3"), rgbSpace("sRGB"))
  */
 export function gamutAreaRatio(device: Gamut, reference: Gamut, diagram: ChromaticityDiagram = "xy"): number {
+  checkGamut("gamutAreaRatio", "device", device);
+  checkGamut("gamutAreaRatio", "reference", reference);
+  checkChoice("gamutAreaRatio", "diagram", diagram, ["xy", "u′v′"]);
   const ref = gamutArea(reference, diagram);
   if (!(ref > 0)) throw new Error("gamutAreaRatio: the reference gamut has no area");
-  return (100 * gamutArea(device, diagram)) / ref;
+  noteMethod(
+    "gamut",
+    `Gamut area ratios were computed as the fraction area(device) / area(reference) in the CIE ${diagram === "xy" ? "1931 xy" : "1976 u′v′"} chromaticity diagram.`,
+  );
+  return gamutArea(device, diagram) / ref;
 }

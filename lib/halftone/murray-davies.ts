@@ -11,6 +11,9 @@ import {
 } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /**
  * Murray–Davies reflectance of a halftone at one wavelength (or a filtered, e.g. densitometric, reflectance): R = a·R_solid + (1 − a)·R_paper.
@@ -23,6 +26,12 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
  * @example murrayDaviesValue(0.4, 0.05, 0.9)
  */
 export function murrayDaviesValue(coverage: number, solid: number, paper: number): number {
+  checkNumber("murrayDaviesValue", "coverage", coverage, { unit: "fraction" });
+  checkNumber("murrayDaviesValue", "solid", solid, {
+    unit: "fraction",
+    instead: { spectrum: "for spectra use murrayDavies" },
+  });
+  checkNumber("murrayDaviesValue", "paper", paper, { unit: "fraction" });
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
   requireFraction(paper, "paper reflectance");
@@ -41,6 +50,13 @@ export function murrayDaviesValue(coverage: number, solid: number, paper: number
  * @example murrayDavies(0.5, spectrumOnGrid(400, 100, [0.6, 0.1, 0.05]), spectrumOnGrid(400, 100, [0.88, 0.9, 0.9]))
  */
 export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum, name?: string): Spectrum {
+  checkNumber("murrayDavies", "coverage", coverage, { unit: "fraction" });
+  checkSpectrum("murrayDavies", "solid", solid, {
+    what: "the solid's reflectance spectrum",
+    instead: { number: "for single values use murrayDaviesValue" },
+  });
+  checkSpectrum("murrayDavies", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkString("murrayDavies", "name", name, { optional: true });
   requireFraction(coverage, "dot coverage");
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
@@ -69,6 +85,8 @@ export function murrayDavies(coverage: number, solid: Spectrum, paper: Spectrum,
  * @example toneValueFromDensity(0.35, 1.4)
  */
 export function toneValueFromDensity(tintDensity: number, solidDensity: number): number {
+  checkNumber("toneValueFromDensity", "tintDensity", tintDensity, { unit: "optical density" });
+  checkNumber("toneValueFromDensity", "solidDensity", solidDensity, { unit: "optical density", above: 0 });
   requireFinite(tintDensity, "tint density");
   requireFinite(solidDensity, "solid density");
   if (!(solidDensity > 0))

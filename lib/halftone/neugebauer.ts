@@ -13,6 +13,11 @@ import {
 } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { checkInkCoverages } from "../arguments/physics-arguments.ts";
 
 /** Ink coverages as fractions 0–1; leave out an ink that is not printed (k may be omitted for three-colour prints). */
 export interface InkCoverages {
@@ -34,6 +39,7 @@ export const INK_ORDER = ["c", "m", "y", "k"] as const;
  * @example primaryKey(["y", "c"])
  */
 export function primaryKey(inks: readonly string[]): string {
+  checkList("primaryKey", "inks", inks, 'ink letters ("c", "m", "y", "k")', (i) => typeof i === "string");
   const key = INK_ORDER.filter((i) => inks.includes(i)).join("");
   return key === "" ? "paper" : key;
 }
@@ -47,6 +53,7 @@ export function primaryKey(inks: readonly string[]): string {
  * @example demichelAreas({ c: 0.5, m: 0.2 })
  */
 export function demichelAreas(coverages: InkCoverages): Record<string, number> {
+  checkInkCoverages("demichelAreas", coverages);
   const inks = INK_ORDER.filter((i) => coverages[i] !== undefined);
   if (inks.length === 0) throw new Error("demichelAreas: give at least one ink coverage (c, m, y or k)");
   for (const key of Object.keys(coverages)) {
@@ -84,6 +91,20 @@ export function neugebauerReflectance(
   primaries: NeugebauerPrimaries,
   options: { n?: number; name?: string } = {},
 ): Spectrum {
+  checkInkCoverages("neugebauerReflectance", coverages);
+  checkWith(
+    "neugebauerReflectance",
+    "primaries",
+    primaries,
+    'Neugebauer primaries: an object of reflectance spectra keyed "paper", "c", "m", "cm", ...',
+    (p) =>
+      typeof p === "object" &&
+      p !== null &&
+      !Array.isArray(p) &&
+      !isWellFormedSpectrum(p) &&
+      Object.values(p).every(isWellFormedSpectrum),
+  );
+  checkOptions("neugebauerReflectance", "options", options, ["n", "name"]);
   const n = requirePositive(options.n ?? 1, "Yule–Nielsen n factor");
   const areas = demichelAreas(coverages);
   const missing = Object.keys(areas).filter((key) => !primaries[key]);

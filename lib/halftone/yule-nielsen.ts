@@ -11,6 +11,9 @@ import {
 } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /**
  * Yule–Nielsen reflectance of a halftone at one wavelength: R = (a·R_s^(1/n) + (1 − a)·R_p^(1/n))^n.
@@ -24,6 +27,13 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
  * @example yuleNielsenValue(0.4, 0.05, 0.9, 2)
  */
 export function yuleNielsenValue(coverage: number, solid: number, paper: number, n: number): number {
+  checkNumber("yuleNielsenValue", "coverage", coverage, { unit: "fraction" });
+  checkNumber("yuleNielsenValue", "solid", solid, {
+    unit: "fraction",
+    instead: { spectrum: "for spectra use yuleNielsen" },
+  });
+  checkNumber("yuleNielsenValue", "paper", paper, { unit: "fraction" });
+  checkNumber("yuleNielsenValue", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
   requireFraction(coverage, "dot coverage");
   requireFraction(solid, "solid reflectance");
   requireFraction(paper, "paper reflectance");
@@ -50,6 +60,14 @@ export function yuleNielsen(
   n: number,
   name?: string,
 ): Spectrum {
+  checkNumber("yuleNielsen", "coverage", coverage, { unit: "fraction" });
+  checkSpectrum("yuleNielsen", "solid", solid, {
+    what: "the solid's reflectance spectrum",
+    instead: { number: "for single values use yuleNielsenValue" },
+  });
+  checkSpectrum("yuleNielsen", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkNumber("yuleNielsen", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
+  checkString("yuleNielsen", "name", name, { optional: true });
   requireFractionSpectrum(solid, "solid reflectance");
   requireFractionSpectrum(paper, "paper reflectance");
   requireSameGrid([solid, paper], "yuleNielsen");
@@ -81,6 +99,12 @@ export function yuleNielsen(
  * @example effectiveCoverage(spectrumOnGrid(400, 100, [0.7, 0.4, 0.35]), spectrumOnGrid(400, 100, [0.6, 0.1, 0.05]), spectrumOnGrid(400, 100, [0.88, 0.9, 0.9]), 1.5)
  */
 export function effectiveCoverage(measured: Spectrum, solid: Spectrum, paper: Spectrum, n = 1): number {
+  checkSpectrum("effectiveCoverage", "measured", measured, {
+    what: "the tint's measured reflectance spectrum",
+  });
+  checkSpectrum("effectiveCoverage", "solid", solid, { what: "the solid's reflectance spectrum" });
+  checkSpectrum("effectiveCoverage", "paper", paper, { what: "the paper's reflectance spectrum" });
+  checkNumber("effectiveCoverage", "n", n, { min: 1, unit: "Yule–Nielsen factor" });
   requirePositive(n, "Yule–Nielsen n factor");
   [measured, solid, paper].forEach((s) => requireFractionSpectrum(s, "reflectance"));
   requireSameGrid([measured, solid, paper], "effectiveCoverage");

@@ -2,6 +2,10 @@
 import { CIE_DAYLIGHT_COMPONENTS_TABLE } from "../data/cie-daylight-components.ts";
 import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import type { Chromaticity } from "../colorimetry/chromaticity.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkBoolean } from "../arguments/check-text.ts";
 
 /**
  * Chromaticity (x_D, y_D) of CIE daylight at a correlated colour temperature of 4000–25000 K.
@@ -12,6 +16,7 @@ import type { Chromaticity } from "../colorimetry/chromaticity.ts";
  * @example daylightChromaticity(6504)
  */
 export function daylightChromaticity(cct: number): Chromaticity {
+  checkNumber("daylightChromaticity", "cct", cct, { unit: "K", min: 4000, max: 25000 });
   if (!Number.isFinite(cct) || cct < 4000 || cct > 25000) {
     throw new Error(
       `daylight chromaticity: CIE 015 defines daylight from 4000 K to 25000 K; ${cct} K is outside that range`,
@@ -36,6 +41,8 @@ export function daylightChromaticity(cct: number): Chromaticity {
  * @example daylightFactors(daylightChromaticity(6504))
  */
 export function daylightFactors(xy: Chromaticity, roundToThreeDecimals = false): [number, number] {
+  checkFields("daylightFactors", "xy", xy, XY_FIELDS);
+  checkBoolean("daylightFactors", "roundToThreeDecimals", roundToThreeDecimals);
   const m = 0.0241 + 0.2562 * xy.x - 0.7341 * xy.y;
   let m1 = (-1.3515 - 1.7703 * xy.x + 5.9114 * xy.y) / m;
   let m2 = (0.03 - 31.4424 * xy.x + 30.0717 * xy.y) / m;
@@ -60,6 +67,8 @@ export function daylightSpectrum(
   cct: number,
   options: { roundFactors?: boolean; name?: string } = {},
 ): Spectrum {
+  checkNumber("daylightSpectrum", "cct", cct, { unit: "K", min: 4000, max: 25000 });
+  checkOptions("daylightSpectrum", "options", options, ["roundFactors", "name"]);
   const [m1, m2] = daylightFactors(daylightChromaticity(cct), options.roundFactors ?? false);
   const t = CIE_DAYLIGHT_COMPONENTS_TABLE;
   const s0 = t.columns.S0!,

@@ -2,6 +2,8 @@
 import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { noteMethod } from "../methods/method-log.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
 
 /** First radiation constant c1 = 2πhc² = 3.741771852e-16 W·m² (CODATA 2018). */
 export const C1 = 3.741771852e-16;
@@ -21,6 +23,9 @@ export const C2_CIE = 1.4388e-2;
  * @example planckExitance(560, 2856)
  */
 export function planckExitance(wavelengthNm: number, temperatureK: number, c2 = C2_CIE): number {
+  checkNumber("planckExitance", "wavelengthNm", wavelengthNm, { unit: "nm", above: 0 });
+  checkNumber("planckExitance", "temperatureK", temperatureK, { unit: "K", above: 0 });
+  checkNumber("planckExitance", "c2", c2, { unit: "m·K", above: 0 });
   if (!(temperatureK > 0) || !Number.isFinite(temperatureK))
     throw new Error(`Planck's law: temperature ${temperatureK} K must be a positive finite number`);
   if (!(wavelengthNm > 0)) throw new Error(`Planck's law: wavelength ${wavelengthNm} nm must be positive`);
@@ -43,6 +48,9 @@ export function planckianSpectrum(
   grid: WavelengthGrid = { start: 360, end: 830, step: 1 },
   c2 = C2_CIE,
 ): Spectrum {
+  checkNumber("planckianSpectrum", "temperatureK", temperatureK, { unit: "K", above: 0 });
+  checkFields("planckianSpectrum", "grid", grid, GRID_FIELDS);
+  checkNumber("planckianSpectrum", "c2", c2, { unit: "m·K", above: 0 });
   const ref = planckExitance(560, temperatureK, c2);
   const w = gridWavelengths(grid);
   noteMethod("illuminant", `Planckian radiators were computed from Planck's law with c2 = ${c2} m·K.`);

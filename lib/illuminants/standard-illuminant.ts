@@ -6,6 +6,7 @@ import { tableColumn } from "../data/table-to-spectrum.ts";
 import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import { daylightSpectrum } from "./daylight.ts";
 import { illuminantA } from "./illuminant-a.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /**
  * The nominal CCTs of D50, D55, D75 corrected for the change of c2 from 1.4380e-2 to 1.4388e-2 m·K
@@ -63,6 +64,16 @@ export function illuminantNames(): string[] {
  * @example illuminant("D65").values.length
  */
 export function illuminant(name: string): Spectrum {
+  checkWith(
+    "illuminant",
+    "name",
+    name,
+    `an illuminant name, one of ${Object.keys(BUILDERS).join(", ")} (case and spaces are ignored)`,
+    (n) =>
+      typeof n === "string" &&
+      Object.keys(BUILDERS).some((k) => k.toUpperCase() === n.replace(/\s+/g, "").toUpperCase()),
+    { instead: { spectrum: "a spectrum is already an illuminant: pass it directly" } },
+  );
   const key = Object.keys(BUILDERS).find(
     (k) => k.toUpperCase() === String(name).replace(/\s+/g, "").toUpperCase(),
   );

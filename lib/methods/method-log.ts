@@ -4,6 +4,7 @@
  * runner reads the log after the last cell and writes the report's Methods section from it.
  * One instance per run: the worker loads the library once and every cell shares it.
  */
+import { checkChoice, checkFunction, checkString } from "../arguments/check-text.ts";
 
 /** One condition used during the run, e.g. { topic: "observer", statement: "CIE 1931 2° standard observer" }. */
 export interface MethodNote {
@@ -54,6 +55,8 @@ let silentDepth = 0;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
+  checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
+  checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
   if (silentDepth > 0) return;
   let statements = seen.get(topic);
   if (statements === undefined) {
@@ -89,6 +92,7 @@ export function methodNotesActive(): boolean {
  * @example withoutMethodNotes(() => deltaE76({ L: 50, a: 0, b: 0 }, { L: 51, a: 1, b: 0 }))
  */
 export function withoutMethodNotes<T>(compute: () => T): T {
+  checkFunction("withoutMethodNotes", "compute", compute, { what: "a function taking no arguments" });
   if (typeof compute !== "function")
     throw new Error(`withoutMethodNotes: expected a function, got ${String(compute)}`);
   silentDepth++;

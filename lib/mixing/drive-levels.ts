@@ -16,6 +16,11 @@ import { noteMethod } from "../methods/method-log.ts";
 import type { Observer, ObserverName } from "../observers/standard-observer.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { nonNegativeLeastSquares, solveAugmented } from "./nnls.ts";
+import { XYY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkSpectrumList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkObserver } from "../arguments/common-arguments.ts";
 
 export interface DriveOptions {
   /** Observer for the primaries' tristimulus values: "2°" or "10°" or an `Observer`; default the CIE 1931 2° observer. */
@@ -51,6 +56,8 @@ export interface DriveSolution {
  * @example lightXYZ(ledSpectrum({ peak: 530, fwhm: 30 }))
  */
 export function lightXYZ(light: Spectrum, observer?: DriveOptions["observer"]): Tristimulus {
+  checkSpectrum("lightXYZ", "light", light, { what: "a spectrum of a light" });
+  checkObserver("lightXYZ", "observer", observer);
   return lightTristimulus(light, { scale: "absolute", observer });
 }
 
@@ -72,6 +79,12 @@ export function solveDriveLevels(
   target: ChromaticityLuminance,
   options: DriveOptions = {},
 ): DriveSolution {
+  checkSpectrumList("solveDriveLevels", "primaries", primaries, { minLength: 1 });
+  checkFields("solveDriveLevels", "target", target, {
+    ...XYY_FIELDS,
+    what: "a target { x, y, Y } (Y in the primaries' units)",
+  });
+  checkOptions("solveDriveLevels", "options", options, ["observer", "maxLevel"]);
   if (!Array.isArray(primaries) || primaries.length === 0)
     throw new Error("solveDriveLevels: no primaries given");
   requireSameGrid(primaries, "solveDriveLevels");

@@ -4,6 +4,7 @@
  * J. Opt. Soc. Am. 38, 448, 1948). K is the absorption and S the scattering coefficient (per unit thickness).
  */
 import { requireFinite, requireFraction, requireNonNegative } from "../filters/checks.ts";
+import { checkNumber } from "../arguments/check-number.ts";
 
 /**
  * The Kubelka–Munk function of an opaque layer's internal reflectance, K/S = (1 − R∞)² ÷ (2R∞).
@@ -14,6 +15,9 @@ import { requireFinite, requireFraction, requireNonNegative } from "../filters/c
  * @example ksFromReflectance(0.3)
  */
 export function ksFromReflectance(reflectanceInfinite: number): number {
+  checkNumber("ksFromReflectance", "reflectanceInfinite", reflectanceInfinite, {
+    unit: "fraction",
+  });
   requireFraction(reflectanceInfinite, "reflectance of an opaque layer (R∞)");
   if (reflectanceInfinite === 0)
     throw new Error("R∞ = 0 gives K/S = ∞; an opaque layer with no reflectance has no finite K/S");
@@ -29,6 +33,7 @@ export function ksFromReflectance(reflectanceInfinite: number): number {
  * @example reflectanceFromKs(0.8167)
  */
 export function reflectanceFromKs(ks: number): number {
+  checkNumber("reflectanceFromKs", "ks", ks, { min: 0, unit: "K/S ratio" });
   requireNonNegative(ks, "K/S");
   // Written as 1/(1 + K/S + √((K/S)² + 2K/S)), the same number without cancellation for large K/S.
   return 1 / (1 + ks + Math.sqrt(ks * ks + 2 * ks));
@@ -57,6 +62,10 @@ export interface LayerOptics {
  * @example layerOptics(0.2, 2, 0.5, 0.8)
  */
 export function layerOptics(k: number, s: number, thickness: number, background: number): LayerOptics {
+  checkNumber("layerOptics", "k", k, { min: 0, unit: "absorption coefficient" });
+  checkNumber("layerOptics", "s", s, { min: 0, unit: "scattering coefficient" });
+  checkNumber("layerOptics", "thickness", thickness, { min: 0 });
+  checkNumber("layerOptics", "background", background, { unit: "fraction" });
   requireNonNegative(k, "absorption coefficient K");
   requireNonNegative(s, "scattering coefficient S");
   requireNonNegative(thickness, "layer thickness X");
@@ -99,6 +108,8 @@ export function layerOptics(k: number, s: number, thickness: number, background:
  * @example opaqueReflectance(0.2, 2)
  */
 export function opaqueReflectance(k: number, s: number): number {
+  checkNumber("opaqueReflectance", "k", k, { min: 0, unit: "absorption coefficient" });
+  checkNumber("opaqueReflectance", "s", s, { above: 0, unit: "scattering coefficient" });
   requireNonNegative(k, "absorption coefficient K");
   requireNonNegative(s, "scattering coefficient S");
   if (s === 0)

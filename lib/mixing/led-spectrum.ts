@@ -9,6 +9,11 @@ import { requireFinite, requirePositive } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { GRID_FIELDS, checkFields, hasNumberFields } from "../arguments/check-fields.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
 
 export type LedShape = "ohno 2005" | "gaussian";
 
@@ -38,6 +43,7 @@ export interface LedOptions {
  * @example ohnoLedShape(0.5)
  */
 export function ohnoLedShape(u: number): number {
+  checkNumber("ohnoLedShape", "u", u, { unit: "(λ − peak)/half width" });
   const g = Math.exp(-u * u);
   return (g + 2 * g ** 5) / 3;
 }
@@ -62,6 +68,27 @@ export const OHNO_HALF_WIDTH_U = (() => {
  * @example ledSpectrum({ peak: 450, fwhm: 22, asymmetry: 0.2, grid: { start: 380, end: 780, step: 1 } })
  */
 export function ledSpectrum(options: LedOptions): Spectrum {
+  checkWith(
+    "ledSpectrum",
+    "options",
+    options,
+    "LED options { peak (nm), fwhm (nm), shape?, asymmetry?, peakValue?, grid?, name? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      Number.isFinite((o as { peak?: unknown }).peak) &&
+      Number.isFinite((o as { fwhm?: unknown }).fwhm),
+  );
+  checkOptions("ledSpectrum", "options", options, [
+    "peak",
+    "fwhm",
+    "shape",
+    "asymmetry",
+    "peakValue",
+    "grid",
+    "name",
+  ]);
+  checkFields("ledSpectrum", "options.grid", options.grid, GRID_FIELDS, { optional: true });
   const peak = requirePositive(options?.peak, "ledSpectrum: peak wavelength (nm)");
   const fwhm = requirePositive(options.fwhm, "ledSpectrum: FWHM (nm)");
   const a = requireFinite(options.asymmetry ?? 0, "ledSpectrum: asymmetry");
@@ -113,6 +140,33 @@ export interface PhosphorWhiteOptions {
  * @example phosphorWhite({ blue: { peak: 450, fwhm: 20 }, phosphor: { peak: 560, fwhm: 110, asymmetry: 0.2 }, phosphorToBlue: 2.5 })
  */
 export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
+  checkWith(
+    "phosphorWhite",
+    "options",
+    options,
+    "options { blue: { peak, fwhm }, phosphor: a spectrum or { peak, fwhm }, phosphorToBlue: number, grid?, name? }",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      typeof (o as { blue?: unknown }).blue === "object" &&
+      (o as { blue?: unknown }).blue !== null &&
+      typeof (o as { phosphor?: unknown }).phosphor === "object" &&
+      (o as { phosphor?: unknown }).phosphor !== null &&
+      Number.isFinite((o as { phosphorToBlue?: unknown }).phosphorToBlue),
+  );
+  checkOptions("phosphorWhite", "options", options, ["blue", "phosphor", "phosphorToBlue", "grid", "name"]);
+  checkFields("phosphorWhite", "options.blue", options.blue, {
+    what: "the blue LED { peak, fwhm } in nm",
+    keys: ["peak", "fwhm"],
+  });
+  checkWith(
+    "phosphorWhite",
+    "options.phosphor",
+    options.phosphor,
+    "the phosphor: an emission spectrum or { peak, fwhm } in nm",
+    (p) => isWellFormedSpectrum(p) || hasNumberFields(p, { what: "", keys: ["peak", "fwhm"] }),
+  );
+  checkFields("phosphorWhite", "options.grid", options.grid, GRID_FIELDS, { optional: true });
   const grid = options.grid ?? { start: 360, end: 830, step: 1 };
   const ratio = requirePositive(options.phosphorToBlue, "phosphorWhite: phosphor-to-blue power ratio");
   const blue = ledSpectrum({ ...options.blue, grid, name: "blue pump" });

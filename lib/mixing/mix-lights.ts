@@ -2,6 +2,9 @@
 import { requireNonNegative, requireSameGrid } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkList } from "../arguments/check-list.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /** One light in a mixture and its drive level (a multiplier of its spectrum, e.g. 0–1 of full output). */
 export interface LightPart {
@@ -19,6 +22,19 @@ export interface LightPart {
  * @example mixLights([{ light: ledSpectrum({ peak: 450, fwhm: 20 }), level: 0.4 }, { light: ledSpectrum({ peak: 590, fwhm: 15 }), level: 1 }])
  */
 export function mixLights(parts: readonly LightPart[], name?: string): Spectrum {
+  checkList(
+    "mixLights",
+    "parts",
+    parts,
+    "parts { light: spectrum, level: number }",
+    (p) =>
+      typeof p === "object" &&
+      p !== null &&
+      isWellFormedSpectrum((p as { light?: unknown }).light) &&
+      Number.isFinite((p as { level?: unknown }).level),
+    { minLength: 1 },
+  );
+  checkString("mixLights", "name", name, { optional: true });
   if (!Array.isArray(parts) || parts.length === 0) throw new Error("mixLights: no lights to mix");
   parts.forEach((p, i) => {
     if (p?.light?.kind !== "spectrum") throw new Error(`mixLights: part #${i + 1} has no light spectrum`);

@@ -2,6 +2,7 @@
  * Non-negative least squares, min ‖Ax − b‖ subject to x ≥ 0, by the active-set algorithm of Lawson & Hanson
  * (Solving Least Squares Problems, 1974, ch. 23, algorithm NNLS). Small dense problems only (a few rows and columns).
  */
+import { checkList, checkNumberList } from "../arguments/check-list.ts";
 
 /** Solves the unconstrained least-squares problem for the columns in `cols` (normal equations, Gaussian elimination with pivoting). */
 function leastSquaresOn(
@@ -53,6 +54,15 @@ export function solveAugmented(M: number[][]): number[] | undefined {
  * @example nonNegativeLeastSquares([[1, 0], [0, 1], [1, 1]], [1, -1, 0.5])
  */
 export function nonNegativeLeastSquares(A: readonly (readonly number[])[], b: readonly number[]): number[] {
+  checkList(
+    "nonNegativeLeastSquares",
+    "A",
+    A,
+    "rows of finite numbers",
+    (r) => Array.isArray(r) && r.every(Number.isFinite),
+    { minLength: 1 },
+  );
+  checkNumberList("nonNegativeLeastSquares", "b", b, { length: A.length });
   const m = A.length;
   const n = A[0]?.length ?? 0;
   if (m === 0 || n === 0 || b.length !== m)

@@ -19,6 +19,12 @@ import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { ksFromReflectance, layerOptics, reflectanceFromKs } from "./kubelka-munk.ts";
 import { saundersonInternal, saundersonMeasured, type SurfaceCorrection } from "./saunderson.ts";
+import { checkList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum, isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { isRecipePart } from "../arguments/physics-arguments.ts";
 
 /** A colourant described by its K/S alone (single-constant theory). */
 export interface SingleConstantColourant {
@@ -58,7 +64,9 @@ function requireNonNegativeSpectrum(s: Spectrum, what: string): void {
  * @source D. R. Duncan, Proc. Phys. Soc. 52:390, 1940 (single-constant additivity).
  * @example singleConstantColourant(spectrumOnGrid(400, 100, [2, 0.5, 0.1]), "invented ochre")
  */
-export function singleConstantColourant(ks: Spectrum, name = ks.name): SingleConstantColourant {
+export function singleConstantColourant(ks: Spectrum, name: string = ks?.name): SingleConstantColourant {
+  checkSpectrum("singleConstantColourant", "ks", ks, { what: "a K/S spectrum" });
+  checkString("singleConstantColourant", "name", name);
   requireNonNegativeSpectrum(ks, "K/S");
   return { kind: "colourant", model: "single constant", name, ks };
 }
@@ -73,7 +81,10 @@ export function singleConstantColourant(ks: Spectrum, name = ks.name): SingleCon
  * @source D. R. Duncan, Proc. Phys. Soc. 52:390, 1940 (two-constant additivity).
  * @example twoConstantColourant(spectrumOnGrid(400, 100, [2, 0.5, 0.1]), spectrumOnGrid(400, 100, [1, 1, 1]), "invented ochre")
  */
-export function twoConstantColourant(k: Spectrum, s: Spectrum, name = k.name): TwoConstantColourant {
+export function twoConstantColourant(k: Spectrum, s: Spectrum, name: string = k?.name): TwoConstantColourant {
+  checkSpectrum("twoConstantColourant", "k", k, { what: "an absorption K spectrum" });
+  checkSpectrum("twoConstantColourant", "s", s, { what: "a scattering S spectrum" });
+  checkString("twoConstantColourant", "name", name);
   requireNonNegativeSpectrum(k, "absorption K");
   requireNonNegativeSpectrum(s, "scattering S");
   requireSameGrid([k, s], `twoConstantColourant "${name}"`);
@@ -101,6 +112,10 @@ export function colourantFromMasstone(
   masstone: Spectrum,
   options: { surface?: SurfaceTreatment; name?: string } = {},
 ): SingleConstantColourant {
+  checkSpectrum("colourantFromMasstone", "masstone", masstone, {
+    what: "a masstone reflectance spectrum (fractions 0–1)",
+  });
+  checkOptions("colourantFromMasstone", "options", options, ["surface", "name"]);
   requireFractionSpectrum(masstone, "masstone reflectance");
   const surface = options.surface ?? {};
   const ks = masstone.values.map((r, i) => {
@@ -138,6 +153,25 @@ export function colourantFromTint(input: {
   surface?: SurfaceTreatment;
   name?: string;
 }): { colourant: TwoConstantColourant; white: TwoConstantColourant } {
+  checkWith(
+    "colourantFromTint",
+    "input",
+    input,
+    "{ masstone, tint, white: reflectance spectra; tintFraction: number; surface?, name? }",
+    (i) =>
+      typeof i === "object" &&
+      i !== null &&
+      ["masstone", "tint", "white"].every((k) => isWellFormedSpectrum((i as Record<string, unknown>)[k])) &&
+      Number.isFinite((i as { tintFraction?: unknown }).tintFraction),
+  );
+  checkOptions("colourantFromTint", "input", input, [
+    "masstone",
+    "tint",
+    "white",
+    "tintFraction",
+    "surface",
+    "name",
+  ]);
   const c = requireFraction(input.tintFraction, "colourantFromTint: tint fraction");
   if (c === 0 || c === 1)
     throw new Error(`colourantFromTint: tint fraction ${c} must lie strictly between 0 and 1`);
@@ -214,6 +248,10 @@ export interface PaintOptions {
  * @example mixPaint([{ colourant: demoPaints().white, amount: 3 }, { colourant: demoPaints().blue, amount: 1 }])
  */
 export function mixPaint(recipe: readonly RecipePart[], options: PaintOptions = {}): Spectrum {
+  checkList("mixPaint", "recipe", recipe, "recipe parts { colourant, amount }", isRecipePart, {
+    minLength: 1,
+  });
+  checkOptions("mixPaint", "options", options, ["surface", "layer", "name"]);
   if (!Array.isArray(recipe) || recipe.length === 0) throw new Error("mixPaint: the recipe is empty");
   recipe.forEach((p, i) => {
     if (p?.colourant?.kind !== "colourant") throw new Error(`mixPaint: part #${i + 1} is not a colourant`);
@@ -293,7 +331,15 @@ export function recipeColour(
   recipe: readonly RecipePart[],
   options: PaintOptions & Pick<ObjectColourOptions, "illuminant" | "observer"> = {},
 ): { reflectance: Spectrum; XYZ: Tristimulus; Lab: Lab; white: Tristimulus } {
-  const reflectance = mixPaint(recipe, options);
+  checkList("recipeColour", "recipe", recipe, "recipe parts { colourant, amount }", isRecipePart, {
+    minLength: 1,
+  });
+  checkOptions("recipeColour", "options", options, ["surface", "layer", "name", "illuminant", "observer"]);
+  const reflectance = mixPaint(recipe, {
+    surface: options.surface,
+    layer: options.layer,
+    name: options.name,
+  });
   const { XYZ, white } = objectColour(reflectance, {
     illuminant: options.illuminant,
     observer: options.observer,

@@ -6,6 +6,8 @@
  */
 import { requireFraction } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
 
 export interface SurfaceCorrection {
   /** External surface reflectance k₁; default 0.04, the Fresnel value for n = 1.5 at normal incidence (Hecht §4.6). */
@@ -39,6 +41,8 @@ function constants(options: SurfaceCorrection): { k1: number; k2: number; includ
  * @example saundersonMeasured(0.5, { specular: "excluded" })
  */
 export function saundersonMeasured(internal: number, options: SurfaceCorrection = {}): number {
+  checkNumber("saundersonMeasured", "internal", internal, { unit: "fraction" });
+  checkOptions("saundersonMeasured", "options", options, ["k1", "k2", "specular"]);
   requireFraction(internal, "internal reflectance R_i");
   const { k1, k2, included } = constants(options);
   return (included ? k1 : 0) + ((1 - k1) * (1 - k2) * internal) / (1 - k2 * internal);
@@ -53,6 +57,8 @@ export function saundersonMeasured(internal: number, options: SurfaceCorrection 
  * @example saundersonInternal(0.35)
  */
 export function saundersonInternal(measured: number, options: SurfaceCorrection = {}): number {
+  checkNumber("saundersonInternal", "measured", measured, { unit: "fraction" });
+  checkOptions("saundersonInternal", "options", options, ["k1", "k2", "specular"]);
   requireFraction(measured, "measured reflectance R_m");
   const { k1, k2, included } = constants(options);
   const rm = included ? measured - k1 : measured;

@@ -1,5 +1,6 @@
 /** The peak wavelength and full width at half maximum (FWHM) of a band-shaped spectrum, as LED data sheets state them (CIE 127:2007 §6, "peak wavelength" and "spectral bandwidth"). */
 import type { Spectrum } from "../spectrum/spectrum.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /**
  * The wavelength and value of a spectrum's largest sample (its peak wavelength).
@@ -10,6 +11,7 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
  * @example spectralPeak(ledSpectrum({ peak: 525, fwhm: 30 })).wavelength
  */
 export function spectralPeak(s: Spectrum): { wavelength: number; value: number } {
+  checkSpectrum("spectralPeak", "s", s);
   let best = 0;
   for (let i = 1; i < s.values.length; i++) if (s.values[i]! > s.values[best]!) best = i;
   if (!(s.values[best]! > 0)) throw new Error(`spectralPeak: "${s.name}" has no positive value`);
@@ -25,6 +27,7 @@ export function spectralPeak(s: Spectrum): { wavelength: number; value: number }
  * @example fullWidthHalfMax(ledSpectrum({ peak: 525, fwhm: 30 })).width
  */
 export function fullWidthHalfMax(s: Spectrum): { width: number; short: number; long: number } {
+  checkSpectrum("fullWidthHalfMax", "s", s);
   const peak = spectralPeak(s);
   const half = peak.value / 2;
   const w = s.wavelengths;

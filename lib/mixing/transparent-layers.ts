@@ -6,6 +6,10 @@
 import { requireFractionSpectrum, requireNonNegative, requireSameGrid } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkList, checkSpectrumList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkString } from "../arguments/check-text.ts";
 
 /**
  * Internal transmittance of transparent layers in optical contact, Π τⱼ(λ) (no reflections between them).
@@ -17,6 +21,8 @@ import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
  * @example layeredTransmittance([spectrumOnGrid(400, 100, [0.9, 0.5, 0.2]), spectrumOnGrid(400, 100, [0.3, 0.8, 0.9])])
  */
 export function layeredTransmittance(layers: readonly Spectrum[], name?: string): Spectrum {
+  checkSpectrumList("layeredTransmittance", "layers", layers, { minLength: 1 });
+  checkString("layeredTransmittance", "name", name, { optional: true });
   if (!Array.isArray(layers) || layers.length === 0) throw new Error("layeredTransmittance: no layers given");
   layers.forEach((l) => requireFractionSpectrum(l, "layer transmittance"));
   requireSameGrid(layers, "layeredTransmittance");
@@ -55,6 +61,19 @@ export function dyeMixture(
   dyes: readonly DyeAmount[],
   options: { path?: number; name?: string } = {},
 ): Spectrum {
+  checkList(
+    "dyeMixture",
+    "dyes",
+    dyes,
+    "dyes { absorbance: spectrum, concentration: number }",
+    (d) =>
+      typeof d === "object" &&
+      d !== null &&
+      isWellFormedSpectrum((d as { absorbance?: unknown }).absorbance) &&
+      Number.isFinite((d as { concentration?: unknown }).concentration),
+    { minLength: 1 },
+  );
+  checkOptions("dyeMixture", "options", options, ["path", "name"]);
   if (!Array.isArray(dyes) || dyes.length === 0) throw new Error("dyeMixture: no dyes given");
   const path = requireNonNegative(options.path ?? 1, "dyeMixture: path length");
   dyes.forEach((d) => {

@@ -2,6 +2,9 @@
 import { CIE1931_2DEG_TABLE } from "../data/cie1931-observer.ts";
 import { CIE1964_10DEG_TABLE } from "../data/cie1964-observer.ts";
 import type { TabulatedData } from "../data/tabulated-data.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { checkObserver } from "../arguments/common-arguments.ts";
 
 export interface Observer {
   readonly kind: "observer";
@@ -57,6 +60,7 @@ export type ObserverName = "2°" | "10°" | "2" | "10" | "1931" | "1964" | "CIE 
  * @example observerByName("10°").name
  */
 export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"): Observer {
+  checkObserver("observerByName", "which", which);
   if (typeof which === "object") return which;
   const key = String(which)
     .replace(/^CIE\s*/i, "")
@@ -77,6 +81,15 @@ export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"):
  * @example colourMatchingAt(CIE_1931_2_DEGREE, 555.5)
  */
 export function colourMatchingAt(obs: Observer, wavelength: number): [number, number, number] {
+  checkWith(
+    "colourMatchingAt",
+    "obs",
+    obs,
+    "an observer object (from observerByName)",
+    (o) => typeof o === "object" && o !== null && (o as { kind?: unknown }).kind === "observer",
+    { instead: { string: 'for an observer by name use colourMatchingAt(observerByName("2°"), wavelength)' } },
+  );
+  checkNumber("colourMatchingAt", "wavelength", wavelength, { unit: "nm" });
   const u = (wavelength - obs.start) / obs.step;
   const n = obs.xBar.length;
   if (u < 0 || u > n - 1) return [0, 0, 0];

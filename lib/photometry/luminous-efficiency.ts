@@ -4,6 +4,7 @@ import { tableColumn } from "../data/table-to-spectrum.ts";
 import { KM_PHOTOPIC } from "../colorimetry/tristimulus.ts";
 import { CIE_1931_2_DEGREE } from "../observers/standard-observer.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
 
 /** Km = 683 lm/W, maximum luminous efficacy for photopic vision (CIE 018:2019 §3; the SI value Kcd at 540 THz). */
 export const KM = KM_PHOTOPIC;
@@ -24,6 +25,7 @@ let scotopic: Spectrum | undefined;
  * @example valueAt(luminousEfficiency("scotopic"), 507)
  */
 export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
+  checkChoice("luminousEfficiency", "vision", vision, ["photopic", "scotopic"]);
   if (vision === "photopic") {
     photopic ??= spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, {
       name: "CIE photopic V(λ)",

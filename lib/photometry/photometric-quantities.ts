@@ -9,6 +9,10 @@ import { regularStep } from "../spectrum/grid.ts";
 import { sampler } from "../spectrum/sample.ts";
 import { withValues, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
 import { KM, KM_SCOTOPIC, luminousEfficiency, type Vision } from "./luminous-efficiency.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkLuminousOptions, checkVisionOptions } from "../arguments/option-sets.ts";
 
 /**
  * Σ S(λ) V(λ) Δλ over the wavelengths the spectrum and V (or V′) share.
@@ -26,6 +30,8 @@ export function spectralLuminousSum(
   spd: Spectrum,
   vision: Vision = "photopic",
 ): { sum: number; interval: number; range: [number, number] } {
+  checkSpectrum("spectralLuminousSum", "spd", spd);
+  checkChoice("spectralLuminousSum", "vision", vision, ["photopic", "scotopic"]);
   const v = luminousEfficiency(vision);
   const start = Math.max(spd.wavelengths[0]!, v.wavelengths[0]!);
   const end = Math.min(spd.wavelengths.at(-1)!, v.wavelengths.at(-1)!);
@@ -80,6 +86,8 @@ function photometric(what: keyof typeof UNITS, spd: Spectrum, vision: Vision): n
  * @example luminousFlux(spectrumOnGrid(550, 5, [0.01, 0.01, 0.01], { quantity: "radiant flux", unit: "W/nm" }))
  */
 export function luminousFlux(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminousFlux", "spd", spd, { what: "a spectral radiant flux in W/nm" });
+  checkVisionOptions("luminousFlux", options);
   return photometric("luminous flux", spd, options.vision ?? "photopic");
 }
 
@@ -93,6 +101,8 @@ export function luminousFlux(spd: Spectrum, options: { vision?: Vision } = {}): 
  * @example luminance(spectrumOnGrid(380, 5, new Array(81).fill(0.001), { quantity: "radiance", unit: "W/(sr·m²·nm)" }))
  */
 export function luminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminance", "spd", spd, { what: "a spectral radiance in W/(sr·m²·nm)" });
+  checkVisionOptions("luminance", options);
   return photometric("luminance", spd, options.vision ?? "photopic");
 }
 
@@ -106,6 +116,8 @@ export function luminance(spd: Spectrum, options: { vision?: Vision } = {}): num
  * @example illuminance(spectrumOnGrid(380, 5, new Array(81).fill(0.01), { quantity: "irradiance", unit: "W/(m²·nm)" }), { vision: "scotopic" })
  */
 export function illuminance(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("illuminance", "spd", spd, { what: "a spectral irradiance in W/(m²·nm)" });
+  checkVisionOptions("illuminance", options);
   return photometric("illuminance", spd, options.vision ?? "photopic");
 }
 
@@ -119,6 +131,8 @@ export function illuminance(spd: Spectrum, options: { vision?: Vision } = {}): n
  * @example luminousIntensity(spectrumOnGrid(500, 10, [0.002, 0.003, 0.004, 0.003], { unit: "W/(sr·nm)" }))
  */
 export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = {}): number {
+  checkSpectrum("luminousIntensity", "spd", spd, { what: "a spectral radiant intensity in W/(sr·nm)" });
+  checkVisionOptions("luminousIntensity", options);
   return photometric("luminous intensity", spd, options.vision ?? "photopic");
 }
 
@@ -131,7 +145,8 @@ export function luminousIntensity(spd: Spectrum, options: { vision?: Vision } = 
  * @example luminousEfficacyOfRadiation(illuminant("D65"))
  */
 export function luminousEfficacyOfRadiation(spd: Spectrum): number {
-  const { sum } = spectralLuminousSum(spd, "photopic");
+  checkSpectrum("luminousEfficacyOfRadiation", "spd", spd, { what: "a spectrum of a light source" });
+  const { sum, range } = spectralLuminousSum(spd, "photopic");
   const step = regularStep(spd);
   const w = spd.wavelengths,
     v = spd.values;
@@ -141,7 +156,7 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
   if (!(radiant > 0)) throw new Error(`luminousEfficacyOfRadiation: "${spd.name}" has no radiant power`);
   noteMethod(
     "photometry",
-    `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W over the measured range (CIE 018:2019).`,
+    `Luminous efficacy of radiation was computed as Km·Σ S·V·Δλ / Σ S·Δλ with Km = ${KM} lm/W (CIE 018:2019), the luminous sum over ${range[0]}–${range[1]} nm where the spectrum and V(λ) overlap and the radiant power Σ S·Δλ over the whole measured range, ${w[0]}–${w.at(-1)} nm.`,
   );
   return (KM * sum) / radiant;
 }
@@ -155,6 +170,7 @@ export function luminousEfficacyOfRadiation(spd: Spectrum): number {
  * @example scotopicPhotopicRatio(illuminant("A"))
  */
 export function scotopicPhotopicRatio(spd: Spectrum): number {
+  checkSpectrum("scotopicPhotopicRatio", "spd", spd, { what: "a spectrum of a light source" });
   const p = spectralLuminousSum(spd, "photopic");
   const s = spectralLuminousSum(spd, "scotopic");
   if (!(p.sum > 0)) throw new Error(`scotopicPhotopicRatio: "${spd.name}" has no photopic luminous power`);
@@ -175,6 +191,8 @@ export function scotopicPhotopicRatio(spd: Spectrum): number {
  * @example luminance(normaliseToLuminance(spectrumOnGrid(380, 5, new Array(81).fill(1), { quantity: "radiance" }), 100))
  */
 export function normaliseToLuminance(spd: Spectrum, target: number): Spectrum {
+  checkSpectrum("normaliseToLuminance", "spd", spd, { what: "a spectral radiance" });
+  checkNumber("normaliseToLuminance", "target", target, { unit: "cd/m²", above: 0 });
   if (!(Number.isFinite(target) && target > 0))
     throw new Error(`normaliseToLuminance: target ${target} must be a positive finite number`);
   const { sum } = spectralLuminousSum(spd, "photopic");
@@ -217,6 +235,10 @@ function luminousFactor(
  * @example luminousTransmittance(spectrumOnGrid(380, 5, new Array(81).fill(0.5), { quantity: "transmittance" }))
  */
 export function luminousTransmittance(sample: Spectrum, options: LuminousOptions = {}): number {
+  checkSpectrum("luminousTransmittance", "sample", sample, {
+    what: "a transmittance spectrum (fractions 0–1)",
+  });
+  checkLuminousOptions("luminousTransmittance", options);
   const t = luminousFactor("luminousTransmittance", sample, "transmittance", options);
   noteMethod(
     "photometry",
@@ -234,6 +256,8 @@ export function luminousTransmittance(sample: Spectrum, options: LuminousOptions
  * @example luminousReflectance(spectrumOnGrid(380, 5, new Array(81).fill(0.2), { quantity: "reflectance" }), { illuminant: "A" })
  */
 export function luminousReflectance(sample: Spectrum, options: LuminousOptions = {}): number {
+  checkSpectrum("luminousReflectance", "sample", sample, { what: "a reflectance spectrum (fractions 0–1)" });
+  checkLuminousOptions("luminousReflectance", options);
   const r = luminousFactor("luminousReflectance", sample, "reflectance", options);
   noteMethod(
     "photometry",

@@ -33,6 +33,10 @@ import {
   type ToleranceRegion,
   type ChromaticityArrow,
 } from "./chromaticity-overlays.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkObserver } from "../arguments/common-arguments.ts";
 
 export interface PlanckianOptions {
   /** Temperatures (K) that get an isotemperature line; default 1500, 2000, 3000, 4000, 6500, 10 000 K (more when zoomed). */
@@ -509,6 +513,23 @@ function whitePointTrace(
  * @example chromaticityDiagram({ diagram: "u'v'", points: [{ label: "invented lamp", x: 0.45, y: 0.41 }], gamuts: ["sRGB"] })
  */
 export function chromaticityDiagram(options: ChromaticityDiagramOptions = {}): PlotFigure {
+  checkOptions("chromaticityDiagram", "options", options, [
+    "diagram",
+    "observer",
+    "title",
+    "caption",
+    "fill",
+    "wavelengthLabels",
+    "planckian",
+    "daylight",
+    "whitePoints",
+    "points",
+    "gamuts",
+    "tolerances",
+    "arrows",
+    "range",
+    "height",
+  ]);
   return withoutMethodNotes(() => drawChromaticityDiagram(options));
 }
 
@@ -646,5 +667,13 @@ export function spectralLocusPoint(
   diagram: "xy" | "u'v'" = "xy",
   observer: ObserverName | Observer | 2 | 10 = "2°",
 ): [number, number] {
+  checkNumber("spectralLocusPoint", "wavelength", wavelength, {
+    unit: "nm",
+    integer: true,
+    min: 360,
+    max: 830,
+  });
+  checkChoice("spectralLocusPoint", "diagram", diagram, ["xy", "u'v'", "u′v′"], { optional: true });
+  checkObserver("spectralLocusPoint", "observer", observer);
   return locusPointAt(observerByName(observer), wavelength, diagramSpace(diagram)).at;
 }

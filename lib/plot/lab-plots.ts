@@ -20,6 +20,9 @@ import {
   houseConfig,
   houseLayout,
 } from "./style.ts";
+import { LAB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /** A sample in CIELAB; `group` collects samples under one legend entry and marker shape. */
 export interface LabSample {
@@ -64,6 +67,7 @@ export interface LabPlotOptions {
  * @example labDisplayHex({ L: 60, a: 30, b: 20 })
  */
 export function labDisplayHex(lab: Lab): string {
+  checkFields("labDisplayHex", "lab", lab, LAB_FIELDS);
   const xyz = xyzFromLab(lab, D65_WHITE_Y100);
   return hexFromEncoded(
     encodeRgb(mapToDisplayGamut({ X: xyz.X / 100, Y: xyz.Y / 100, Z: xyz.Z / 100 }, "sRGB").linear, "sRGB"),
@@ -278,6 +282,26 @@ function captionFor(o: LabPlotOptions, view: View): string {
  * @example labPlane({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }], pairs: [{ label: "invented B", reference: { L: 60, a: -10, b: 30 }, sample: { L: 61, a: -8, b: 28 } }] })
  */
 export function labPlane(options: LabPlotOptions): PlotFigure {
+  checkOptions("labPlane", "options", options, [
+    "samples",
+    "pairs",
+    "title",
+    "caption",
+    "extent",
+    "labels",
+    "height",
+  ]);
+  checkWith(
+    "labPlane",
+    "options",
+    options,
+    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      (Array.isArray((o as { samples?: unknown }).samples) ||
+        Array.isArray((o as { pairs?: unknown }).pairs)),
+  );
   return withoutMethodNotes(() => drawLabPlane(options));
 }
 
@@ -359,6 +383,26 @@ function drawLabPlane(options: LabPlotOptions): PlotFigure {
  * @example lightnessChromaPlot({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }, { label: "invented B", lab: { L: 70, a: 5, b: 40 } }] })
  */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
+  checkOptions("lightnessChromaPlot", "options", options, [
+    "samples",
+    "pairs",
+    "title",
+    "caption",
+    "extent",
+    "labels",
+    "height",
+  ]);
+  checkWith(
+    "lightnessChromaPlot",
+    "options",
+    options,
+    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      (Array.isArray((o as { samples?: unknown }).samples) ||
+        Array.isArray((o as { pairs?: unknown }).pairs)),
+  );
   return withoutMethodNotes(() => drawLightnessChromaPlot(options));
 }
 

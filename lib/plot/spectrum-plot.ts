@@ -18,6 +18,9 @@ import {
 import { spectrumBandImage } from "./spectrum-band.ts";
 import { escapeHover } from "./chromaticity-overlays.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /** One curve: a spectrum with an optional legend label, fill under it, or a fixed colour. */
 export interface SpectrumSeries {
@@ -120,6 +123,33 @@ export function spectrumPlot(
   spectra: Spectrum | SpectrumSeries | readonly (Spectrum | SpectrumSeries)[],
   options: SpectrumPlotOptions = {},
 ): PlotFigure {
+  checkWith(
+    "spectrumPlot",
+    "spectra",
+    spectra,
+    "a spectrum, a series { spectrum, label? }, or an array of them",
+    (v) => {
+      const one = (x: unknown) =>
+        isWellFormedSpectrum(x) ||
+        (typeof x === "object" && x !== null && isWellFormedSpectrum((x as { spectrum?: unknown }).spectrum));
+      return one(v) || (Array.isArray(v) && v.length > 0 && v.every(one));
+    },
+  );
+  checkOptions("spectrumPlot", "options", options, [
+    "title",
+    "caption",
+    "quantity",
+    "unit",
+    "percent",
+    "scale",
+    "wavelengthRange",
+    "valueRange",
+    "band",
+    "marks",
+    "envelopes",
+    "fill",
+    "height",
+  ]);
   return withoutMethodNotes(() => drawSpectrumPlot(spectra, options));
 }
 

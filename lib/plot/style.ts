@@ -5,6 +5,9 @@
  * that a black-and-white copy still tells the series apart. (Our own design; common practice, no source.)
  */
 import type { PlotConfig, PlotLayout } from "./figure.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkString } from "../arguments/check-text.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 /** Font stack: metric-compatible faces that Linux, macOS and Windows ship, so layout does not shift between them. */
 export const FONT_FAMILY = '"Liberation Sans", Arial, Helvetica, "DejaVu Sans", sans-serif';
@@ -66,6 +69,7 @@ export const SERIES_MARKERS: readonly string[] = [
  * @example seriesLook(3)
  */
 export function seriesLook(i: number): { color: string; dash: string; symbol: string } {
+  checkNumber("seriesLook", "i", i, { integer: true, min: 0, unit: "series index" });
   if (!Number.isInteger(i) || i < 0) throw new Error(`series index ${i} must be a whole number ≥ 0`);
   return {
     color: SERIES_COLOURS[i % SERIES_COLOURS.length]!,
@@ -97,6 +101,15 @@ export const MARGINS = { l: 68, r: 24, t: 64, b: 60, pad: 0 } as const;
  * @example houseAxis("Wavelength (nm)", { range: [380, 780] })
  */
 export function houseAxis(title: string, extra: Record<string, unknown> = {}): Record<string, unknown> {
+  checkString("houseAxis", "title", title, { what: "an axis title" });
+  checkWith(
+    "houseAxis",
+    "extra",
+    extra,
+    "an object of extra axis settings",
+    (e) => typeof e === "object" && e !== null && !Array.isArray(e),
+    { optional: true },
+  );
   return {
     title: { text: title, font: { size: 13, color: INK.text }, standoff: 8 },
     showline: true,
@@ -183,6 +196,19 @@ function legendAt(where: NonNullable<HouseLayoutOptions["legend"]>): Record<stri
  * @example houseLayout({ title: "Invented spectra", xaxis: houseAxis("Wavelength (nm)"), yaxis: houseAxis("Reflectance (%)"), legend: "below" })
  */
 export function houseLayout(o: HouseLayoutOptions): PlotLayout {
+  checkWith(
+    "houseLayout",
+    "o",
+    o,
+    "layout options { title, xaxis, yaxis, subtitle?, height?, legend? }",
+    (v) =>
+      typeof v === "object" &&
+      v !== null &&
+      !Array.isArray(v) &&
+      typeof (v as { title?: unknown }).title === "string" &&
+      typeof (v as { xaxis?: unknown }).xaxis === "object" &&
+      typeof (v as { yaxis?: unknown }).yaxis === "object",
+  );
   const legend = o.legend ?? "inside top right";
   return {
     title: {
@@ -227,6 +253,7 @@ export function houseLayout(o: HouseLayoutOptions): PlotLayout {
  * @example houseConfig("invented-spectra")
  */
 export function houseConfig(filename: string): PlotConfig {
+  checkString("houseConfig", "filename", filename, { what: "a file name for the downloaded image" });
   return {
     displaylogo: false,
     responsive: true,

@@ -29,6 +29,11 @@ import {
 import { adaptToD65, D65_WHITE_Y100 } from "./display-white.ts";
 import { withoutMethodNotes } from "../methods/method-log.ts";
 import { mapToDisplayGamut, type GamutMapping } from "./gamut-mapping.ts";
+import { checkList } from "../arguments/check-list.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkString } from "../arguments/check-text.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { isSwatchColour } from "../arguments/physics-arguments.ts";
 
 /** One swatch: what `showSwatches` draws. */
 export interface Swatch {
@@ -180,6 +185,15 @@ export function swatch(
   colour: SwatchColour,
   options: SwatchOptions & { note?: string } = {},
 ): Swatch {
+  checkString("swatch", "label", label, { what: "a label for the swatch" });
+  checkWith(
+    "swatch",
+    "colour",
+    colour,
+    "a colour: a spectrum, { XYZ, white? }, { lab, white? } or { hex }",
+    isSwatchColour,
+  );
+  checkOptions("swatch", "options", options, ["display", "illuminant", "interval", "range", "note"]);
   if (typeof label !== "string") throw new Error(`swatch: label must be a string, got ${String(label)}`);
   const display = options.display ?? "sRGB";
   if (!DISPLAY_GAMUTS.includes(display))
@@ -247,6 +261,18 @@ export interface SwatchEntry {
  * @example swatchGrid([{ label: "invented red", colour: { hex: "#c03030" } }, { label: "invented blue", colour: { lab: { L: 40, a: 10, b: -50 } } }])
  */
 export function swatchGrid(entries: readonly SwatchEntry[], options: SwatchOptions = {}): Swatch[] {
+  checkList(
+    "swatchGrid",
+    "entries",
+    entries,
+    "entries { label, colour, note? }",
+    (e) =>
+      typeof e === "object" &&
+      e !== null &&
+      typeof (e as { label?: unknown }).label === "string" &&
+      isSwatchColour((e as { colour?: unknown }).colour),
+  );
+  checkOptions("swatchGrid", "options", options, ["display", "illuminant", "interval", "range"]);
   if (!Array.isArray(entries)) throw new Error("swatchGrid: expected an array of { label, colour }");
   return entries.map((e, i) => {
     if (!e || typeof e.label !== "string")
@@ -277,6 +303,19 @@ function labOf(c: SwatchColour, options: SwatchOptions, what: string): { lab: La
  * @example swatchPairs([{ label: "invented lot 7", reference: { lab: { L: 50, a: 20, b: 10 } }, sample: { lab: { L: 51, a: 18, b: 12 } } }])
  */
 export function swatchPairs(pairs: readonly SwatchPairEntry[], options: SwatchOptions = {}): Swatch[] {
+  checkList(
+    "swatchPairs",
+    "pairs",
+    pairs,
+    "pairs { label, reference, sample }",
+    (e) =>
+      typeof e === "object" &&
+      e !== null &&
+      typeof (e as { label?: unknown }).label === "string" &&
+      isSwatchColour((e as { reference?: unknown }).reference) &&
+      isSwatchColour((e as { sample?: unknown }).sample),
+  );
+  checkOptions("swatchPairs", "options", options, ["display", "illuminant", "interval", "range"]);
   if (!Array.isArray(pairs))
     throw new Error("swatchPairs: expected an array of { label, reference, sample }");
   const out: Swatch[] = [];

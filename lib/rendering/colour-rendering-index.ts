@@ -23,6 +23,9 @@ import { gridWavelengths } from "../spectrum/grid.ts";
 import { sampler } from "../spectrum/sample.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { cctAndDuv, type CctMethod } from "../temperature/cct.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkCctOptions } from "../arguments/option-sets.ts";
 
 /** The chromaticity distance DC (CIE 1960 uv) between test source and reference below which CIE 13.3 regards the method as applicable. */
 export const CRI_DC_LIMIT = 5.4e-3;
@@ -116,6 +119,7 @@ function cd(p: Sums): { c: number; d: number } {
  * @example renderingReference(3000).name
  */
 export function renderingReference(cct: number): Spectrum {
+  checkNumber("renderingReference", "cct", cct, { unit: "K", above: 0 });
   requireFinite(cct, "colour rendering reference CCT");
   if (cct < CRI_DAYLIGHT_FROM_K) return planckianSpectrum(cct, { start: 380, end: 780, step: 5 });
   if (cct > 25000)
@@ -142,6 +146,8 @@ export function colourRenderingIndex(
   source: Spectrum,
   options: { cctMethod?: CctMethod } = {},
 ): ColourRendering {
+  checkSpectrum("colourRenderingIndex", "source", source, { what: "a spectrum of the light source" });
+  checkCctOptions("colourRenderingIndex", options, "cctMethod");
   if (source?.kind !== "spectrum") throw new Error("colourRenderingIndex: give the light source's spectrum");
   if (source.quantity === "reflectance" || source.quantity === "transmittance") {
     throw new Error(`colourRenderingIndex: "${source.name}" is a ${source.quantity}, not a light source`);

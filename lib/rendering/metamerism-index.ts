@@ -12,6 +12,8 @@ import { deltaE76 } from "../difference/delta-e-76.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Observer, ObserverName } from "../observers/standard-observer.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 export type MetamerismCorrection = "multiplicative" | "additive" | "none";
 export type MetamerismFormula = "ΔE*ab" | "ΔE00";
@@ -65,6 +67,16 @@ export function metamerismIndex(
   sample2: Spectrum,
   options: MetamerismOptions = {},
 ): MetamerismIndex {
+  checkSpectrum("metamerismIndex", "sample1", sample1, { what: "a reflectance spectrum (fractions 0–1)" });
+  checkSpectrum("metamerismIndex", "sample2", sample2, { what: "a reflectance spectrum (fractions 0–1)" });
+  checkOptions("metamerismIndex", "options", options, [
+    "reference",
+    "test",
+    "observer",
+    "correction",
+    "formula",
+    "interval",
+  ]);
   const reference = options.reference ?? "D65";
   const test = options.test ?? "A";
   const correction = options.correction ?? "multiplicative";

@@ -4,6 +4,10 @@ import { applyMatrix3 } from "../colorimetry/matrix3.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { RgbSpace } from "./rgb-space.ts";
 import { PQ_PEAK_LUMINANCE, transferFunction } from "./transfer-functions.ts";
+import { RGB_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkRgbSpace } from "../arguments/common-arguments.ts";
 
 export interface Rgb {
   readonly r: number;
@@ -38,6 +42,9 @@ function noteSpace(space: RgbSpace, encoded: boolean): void {
  * @example rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"))
  */
 export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?: boolean } = {}): Rgb {
+  checkFields("rgbFromXYZ", "xyz", xyz, XYZ_FIELDS);
+  checkRgbSpace("rgbFromXYZ", "space", space);
+  checkOptions("rgbFromXYZ", "options", options, ["encode"]);
   if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
     throw new Error(
       `rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`,
@@ -63,6 +70,9 @@ export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?
  * @example xyzFromRgb({ r: 1, g: 0, b: 0 }, rgbSpace("sRGB"))
  */
 export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolean } = {}): Tristimulus {
+  checkFields("xyzFromRgb", "rgb", rgb, RGB_FIELDS);
+  checkRgbSpace("xyzFromRgb", "space", space);
+  checkOptions("xyzFromRgb", "options", options, ["decode"]);
   if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
     throw new Error(`xyzFromRgb: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
   }
@@ -87,6 +97,8 @@ export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolea
  * @example isInGamut(rgbFromXYZ({ X: 20, Y: 30, Z: 10 }, rgbSpace("sRGB")))
  */
 export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
+  checkFields("isInGamut", "rgb", rgb, RGB_FIELDS);
+  checkNumber("isInGamut", "tolerance", tolerance, { min: 0 });
   if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
     throw new Error(`isInGamut: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
   }

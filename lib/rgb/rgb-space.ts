@@ -11,6 +11,10 @@ import {
   type Matrix3,
 } from "../colorimetry/matrix3.ts";
 import { transferFunction, type TransferName } from "./transfer-functions.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { checkPrimaries } from "../arguments/option-sets.ts";
 
 export interface RgbPrimaries {
   readonly r: Chromaticity;
@@ -59,6 +63,11 @@ function requireChromaticity(what: string, c: Chromaticity): void {
  * @example normalisedPrimaryMatrix({ r: { x: 0.64, y: 0.33 }, g: { x: 0.3, y: 0.6 }, b: { x: 0.15, y: 0.06 } }, { x: 0.3127, y: 0.329 })
  */
 export function normalisedPrimaryMatrix(primaries: RgbPrimaries, white: Chromaticity): Matrix3 {
+  checkPrimaries("normalisedPrimaryMatrix", "primaries", primaries);
+  checkFields("normalisedPrimaryMatrix", "white", white, {
+    ...XY_FIELDS,
+    what: "the white's chromaticity { x, y }",
+  });
   requireChromaticity("red primary", primaries.r);
   requireChromaticity("green primary", primaries.g);
   requireChromaticity("blue primary", primaries.b);
@@ -95,6 +104,12 @@ export function rgbSpaceFromPrimaries(
   white: Chromaticity,
   options: { name?: string; transfer?: TransferName; source?: string } = {},
 ): RgbSpace {
+  checkPrimaries("rgbSpaceFromPrimaries", "primaries", primaries);
+  checkFields("rgbSpaceFromPrimaries", "white", white, {
+    ...XY_FIELDS,
+    what: "the white's chromaticity { x, y }",
+  });
+  checkOptions("rgbSpaceFromPrimaries", "options", options, ["name", "transfer", "source"]);
   const transfer = options.transfer ?? "linear";
   transferFunction(transfer); // checks the name
   const toXYZ = normalisedPrimaryMatrix(primaries, white);
@@ -191,6 +206,22 @@ export function rgbSpaceNames(): string[] {
  * @example rgbSpace("Display P3").white
  */
 export function rgbSpace(name: string): RgbSpace {
+  checkWith(
+    "rgbSpace",
+    "name",
+    name,
+    `an RGB space name, one of ${rgbSpaceNames().join(", ")}`,
+    (n) =>
+      typeof n === "string" &&
+      Object.keys(DEFINITIONS).some((k) => {
+        const norm = (t: string) => t.replace(/[\s_-]+/g, "").toUpperCase();
+        return (
+          norm(k) === norm(n) ||
+          (norm(n) === "REC709" && k === "BT.709") ||
+          (norm(n) === "REC2020" && k === "BT.2020")
+        );
+      }),
+  );
   const norm = (s: string) =>
     String(s)
       .replace(/[\s_-]+/g, "")

@@ -4,6 +4,10 @@
  * Linear values below zero (out-of-gamut colours) are encoded with the sign carried through, so that they stay
  * visible as out of gamut instead of turning into NaN.
  */
+import { RGB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkWith } from "../arguments/check-with.ts";
 
 function requireFinite(what: string, value: number): void {
   if (typeof value !== "number" || !Number.isFinite(value))
@@ -23,6 +27,7 @@ function odd(f: (x: number) => number): (x: number) => number {
  * @example srgbEncode(0.18)
  */
 export function srgbEncode(linear: number): number {
+  checkNumber("srgbEncode", "linear", linear, { unit: "linear light, 0–1 for in-gamut colours" });
   requireFinite("srgbEncode", linear);
   return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
 }
@@ -36,6 +41,7 @@ export function srgbEncode(linear: number): number {
  * @example srgbDecode(0.5)
  */
 export function srgbDecode(signal: number): number {
+  checkNumber("srgbDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("srgbDecode", signal);
   return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
 }
@@ -55,6 +61,8 @@ function requireGamma(what: string, gamma: number): void {
  * @example gammaEncode(0.18, 2.2)
  */
 export function gammaEncode(linear: number, gamma: number): number {
+  checkNumber("gammaEncode", "linear", linear, { unit: "linear light, 0–1" });
+  checkNumber("gammaEncode", "gamma", gamma, { above: 0 });
   requireFinite("gammaEncode", linear);
   requireGamma("gammaEncode", gamma);
   return odd((l) => l ** (1 / gamma))(linear);
@@ -70,6 +78,8 @@ export function gammaEncode(linear: number, gamma: number): number {
  * @example gammaDecode(0.5, 2.2)
  */
 export function gammaDecode(signal: number, gamma: number): number {
+  checkNumber("gammaDecode", "signal", signal, { unit: "encoded signal, 0–1" });
+  checkNumber("gammaDecode", "gamma", gamma, { above: 0 });
   requireFinite("gammaDecode", signal);
   requireGamma("gammaDecode", gamma);
   return odd((v) => v ** gamma)(signal);
@@ -84,6 +94,7 @@ export function gammaDecode(signal: number, gamma: number): number {
  * @example bt709Encode(0.18)
  */
 export function bt709Encode(linear: number): number {
+  checkNumber("bt709Encode", "linear", linear, { unit: "linear light, 0–1" });
   requireFinite("bt709Encode", linear);
   return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
 }
@@ -97,6 +108,7 @@ export function bt709Encode(linear: number): number {
  * @example bt709Decode(0.409)
  */
 export function bt709Decode(signal: number): number {
+  checkNumber("bt709Decode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("bt709Decode", signal);
   return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
 }
@@ -131,6 +143,8 @@ function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: num
  * @example bt1886Eotf(0.5, { whiteLuminance: 120, blackLuminance: 0.1 })
  */
 export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
+  checkNumber("bt1886Eotf", "signal", signal, { unit: "encoded signal, 0–1" });
+  checkOptions("bt1886Eotf", "display", display, ["whiteLuminance", "blackLuminance"]);
   requireFinite("bt1886Eotf", signal);
   const { a, b } = bt1886Constants("bt1886Eotf", display);
   return a * Math.max(signal + b, 0) ** 2.4;
@@ -146,6 +160,8 @@ export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): numb
  * @example bt1886InverseEotf(20)
  */
 export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
+  checkNumber("bt1886InverseEotf", "luminance", luminance, { unit: "cd/m²" });
+  checkOptions("bt1886InverseEotf", "display", display, ["whiteLuminance", "blackLuminance"]);
   requireFinite("bt1886InverseEotf", luminance);
   const { a, b } = bt1886Constants("bt1886InverseEotf", display);
   return odd((l) => (l / a) ** (1 / 2.4))(luminance) - b;
@@ -170,6 +186,7 @@ export const PQ_PEAK_LUMINANCE = 10000;
  * @example pqEncode(100)
  */
 export function pqEncode(luminance: number): number {
+  checkNumber("pqEncode", "luminance", luminance, { unit: "cd/m²" });
   requireFinite("pqEncode", luminance);
   return odd((l) => {
     const ym = (l / PQ_PEAK_LUMINANCE) ** PQ_M1;
@@ -186,6 +203,7 @@ export function pqEncode(luminance: number): number {
  * @example pqDecode(0.5)
  */
 export function pqDecode(signal: number): number {
+  checkNumber("pqDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("pqDecode", signal);
   return odd((n) => {
     const np = n ** (1 / PQ_M2);
@@ -209,6 +227,7 @@ const HLG_C = 0.5 - HLG_A * Math.log(4 * HLG_A);
  * @example hlgEncode(0.18)
  */
 export function hlgEncode(sceneLinear: number): number {
+  checkNumber("hlgEncode", "sceneLinear", sceneLinear, { unit: "scene linear light, 0–1" });
   requireFinite("hlgEncode", sceneLinear);
   return odd((e) => (e <= 1 / 12 ? Math.sqrt(3 * e) : HLG_A * Math.log(12 * e - HLG_B) + HLG_C))(sceneLinear);
 }
@@ -222,6 +241,7 @@ export function hlgEncode(sceneLinear: number): number {
  * @example hlgDecode(0.5)
  */
 export function hlgDecode(signal: number): number {
+  checkNumber("hlgDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("hlgDecode", signal);
   return odd((v) => (v <= 0.5 ? (v * v) / 3 : (Math.exp((v - HLG_C) / HLG_A) + HLG_B) / 12))(signal);
 }
@@ -239,6 +259,8 @@ export function hlgDisplayLight(
   sceneLinear: { r: number; g: number; b: number },
   peakLuminance = 1000,
 ): { r: number; g: number; b: number } {
+  checkFields("hlgDisplayLight", "sceneLinear", sceneLinear, RGB_FIELDS);
+  checkNumber("hlgDisplayLight", "peakLuminance", peakLuminance, { unit: "cd/m²", above: 0 });
   for (const k of ["r", "g", "b"] as const) requireFinite(`hlgDisplayLight (${k})`, sceneLinear[k]);
   if (!(Number.isFinite(peakLuminance) && peakLuminance > 0))
     throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
@@ -329,6 +351,13 @@ const TRANSFERS: Record<TransferName, TransferFunction> = {
  * @example transferFunction("sRGB").encode(0.5)
  */
 export function transferFunction(name: TransferName | string): TransferFunction {
+  checkWith(
+    "transferFunction",
+    "name",
+    name,
+    `a transfer function name, one of ${Object.keys(TRANSFERS).join(", ")}`,
+    (n) => typeof n === "string" && Object.hasOwn(TRANSFERS, n),
+  );
   const t = TRANSFERS[name as TransferName];
   if (!t) throw new Error(`unknown transfer function "${name}"; known: ${Object.keys(TRANSFERS).join(", ")}`);
   return t;

@@ -6,6 +6,10 @@ import { gridOf, gridWavelengths, sameWavelengths, type WavelengthGrid } from ".
 import { resample } from "./resample.ts";
 import type { SamplingOptions } from "./sample.ts";
 import { spectrum, type SpectralQuantity, type Spectrum, type SpectrumLabel } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkLabel, checkSampling } from "../arguments/common-arguments.ts";
 
 function requireSameWavelengths(what: string, a: Spectrum, b: Spectrum): void {
   if (!sameWavelengths(a, b)) {
@@ -55,6 +59,11 @@ function combine(
  * @example multiplySpectra(spectrumOnGrid(400, 10, [1, 1, 1]), spectrumOnGrid(400, 10, [0.5, 0.4, 0.3]))
  */
 export function multiplySpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("multiplySpectra", "a", a);
+  checkSpectrum("multiplySpectra", "b", b, {
+    instead: { number: "to multiply by a number use scaleSpectrum" },
+  });
+  checkLabel("multiplySpectra", "label", label);
   const quantity = a.quantity === "transmittance" || a.quantity === "reflectance" ? b.quantity : a.quantity;
   return combine("×", a, b, (x, y) => x * y, label, quantity);
 }
@@ -70,6 +79,9 @@ export function multiplySpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel =
  * @example addSpectra(spectrumOnGrid(400, 10, [1, 2, 3]), spectrumOnGrid(400, 10, [3, 2, 1]))
  */
 export function addSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("addSpectra", "a", a);
+  checkSpectrum("addSpectra", "b", b);
+  checkLabel("addSpectra", "label", label);
   return combine("+", a, b, (x, y) => x + y, label, a.quantity);
 }
 
@@ -84,6 +96,11 @@ export function addSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}):
  * @example divideSpectra(spectrumOnGrid(400, 10, [1, 2, 3]), spectrumOnGrid(400, 10, [2, 4, 4]))
  */
 export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("divideSpectra", "a", a);
+  checkSpectrum("divideSpectra", "b", b, {
+    instead: { number: "to divide by a number use scaleSpectrum with 1/number" },
+  });
+  checkLabel("divideSpectra", "label", label);
   requireSameWavelengths("÷", a, b);
   b.values.forEach((y, i) => {
     if (y === 0)
@@ -103,6 +120,11 @@ export function divideSpectra(a: Spectrum, b: Spectrum, label: SpectrumLabel = {
  * @example scaleSpectrum(spectrumOnGrid(400, 10, [1, 2, 3]), 0.5)
  */
 export function scaleSpectrum(s: Spectrum, factor: number, label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("scaleSpectrum", "s", s);
+  checkNumber("scaleSpectrum", "factor", factor, {
+    instead: { spectrum: "to multiply two spectra use multiplySpectra" },
+  });
+  checkLabel("scaleSpectrum", "label", label);
   if (!Number.isFinite(factor))
     throw new Error(`scaleSpectrum: the factor for "${s.name}" is ${factor}, not a finite number`);
   return spectrum(
@@ -128,6 +150,10 @@ export function alignSpectra(
   grid?: WavelengthGrid,
   options: SamplingOptions = {},
 ): [Spectrum, Spectrum] {
+  checkSpectrum("alignSpectra", "a", a);
+  checkSpectrum("alignSpectra", "b", b);
+  checkFields("alignSpectra", "grid", grid, GRID_FIELDS, { optional: true });
+  checkSampling("alignSpectra", "options", options);
   const target = grid ?? overlapGrid(a, b);
   gridWavelengths(target);
   return [resample(a, target, options), resample(b, target, options)];
@@ -143,6 +169,8 @@ export function alignSpectra(
  * @example overlapGrid(spectrumOnGrid(400, 10, [1, 2, 3, 4]), spectrumOnGrid(405, 5, [1, 2, 3, 4, 5, 6]))
  */
 export function overlapGrid(a: Spectrum, b: Spectrum): WavelengthGrid {
+  checkSpectrum("overlapGrid", "a", a);
+  checkSpectrum("overlapGrid", "b", b);
   const start = Math.max(a.wavelengths[0]!, b.wavelengths[0]!);
   const end = Math.min(a.wavelengths.at(-1)!, b.wavelengths.at(-1)!);
   if (end < start) {

@@ -1,5 +1,7 @@
 /** Regular wavelength grids: the sampling that tables and integrations use. */
 import { roundWavelength, type Spectrum } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
 
 /** A regular wavelength grid from `start` to `end` nm inclusive, every `step` nm. */
 export interface WavelengthGrid {
@@ -17,6 +19,7 @@ export interface WavelengthGrid {
  * @example gridWavelengths({ start: 380, end: 780, step: 5 }).length
  */
 export function gridWavelengths(grid: WavelengthGrid): number[] {
+  checkFields("gridWavelengths", "grid", grid, GRID_FIELDS);
   const { start, end, step } = grid;
   if (![start, end, step].every(Number.isFinite) || step <= 0 || end < start) {
     throw new Error(
@@ -39,6 +42,7 @@ export function gridWavelengths(grid: WavelengthGrid): number[] {
  * @example regularStep(spectrumOnGrid(400, 5, [1, 2, 3]))
  */
 export function regularStep(s: Spectrum): number | undefined {
+  checkSpectrum("regularStep", "s", s);
   const w = s.wavelengths;
   if (w.length < 2) return undefined;
   const step = w[1]! - w[0]!;
@@ -55,6 +59,7 @@ export function regularStep(s: Spectrum): number | undefined {
  * @example gridOf(spectrumOnGrid(400, 5, [1, 2, 3]))
  */
 export function gridOf(s: Spectrum): WavelengthGrid | undefined {
+  checkSpectrum("gridOf", "s", s);
   const step = regularStep(s);
   if (step === undefined) return undefined;
   return { start: s.wavelengths[0]!, end: s.wavelengths[s.wavelengths.length - 1]!, step };
@@ -70,6 +75,8 @@ export function gridOf(s: Spectrum): WavelengthGrid | undefined {
  * @example sameWavelengths(spectrumOnGrid(400, 5, [1, 2]), spectrumOnGrid(400, 5, [3, 4]))
  */
 export function sameWavelengths(a: Spectrum, b: Spectrum): boolean {
+  checkSpectrum("sameWavelengths", "a", a);
+  checkSpectrum("sameWavelengths", "b", b);
   if (a.wavelengths.length !== b.wavelengths.length) return false;
   for (let i = 0; i < a.wavelengths.length; i++)
     if (Math.abs(a.wavelengths[i]! - b.wavelengths[i]!) > 1e-9) return false;

@@ -1,6 +1,9 @@
 /** Normalising and trimming spectra. */
 import { sampler, type SamplingOptions } from "./sample.ts";
 import { spectrum, withValues, type Spectrum } from "./spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkSampling } from "../arguments/common-arguments.ts";
 
 /**
  * The spectrum scaled so that its largest value equals `peak`.
@@ -12,6 +15,8 @@ import { spectrum, withValues, type Spectrum } from "./spectrum.ts";
  * @example normaliseToPeak(spectrumOnGrid(400, 10, [1, 4, 2]))
  */
 export function normaliseToPeak(s: Spectrum, peak = 1): Spectrum {
+  checkSpectrum("normaliseToPeak", "s", s);
+  checkNumber("normaliseToPeak", "peak", peak, { above: 0 });
   const max = Math.max(...s.values);
   if (!(max > 0)) throw new Error(`normaliseToPeak: "${s.name}" has no positive value to scale to ${peak}`);
   return withValues(
@@ -36,6 +41,10 @@ export function normaliseAt(
   value = 100,
   options: SamplingOptions = {},
 ): Spectrum {
+  checkSpectrum("normaliseAt", "s", s);
+  checkNumber("normaliseAt", "wavelength", wavelength, { unit: "nm" });
+  checkNumber("normaliseAt", "value", value);
+  checkSampling("normaliseAt", "options", options);
   const at = sampler(s, { ...options, extrapolation: "refuse" })(wavelength);
   if (at === 0)
     throw new Error(
@@ -58,6 +67,9 @@ export function normaliseAt(
  * @example trimSpectrum(spectrumOnGrid(380, 10, [1, 2, 3, 4, 5]), 390, 410)
  */
 export function trimSpectrum(s: Spectrum, from: number, to: number): Spectrum {
+  checkSpectrum("trimSpectrum", "s", s);
+  checkNumber("trimSpectrum", "from", from, { unit: "nm" });
+  checkNumber("trimSpectrum", "to", to, { unit: "nm" });
   const keep = s.wavelengths
     .map((w, i) => [w, i] as const)
     .filter(([w]) => w >= from - 1e-9 && w <= to + 1e-9);

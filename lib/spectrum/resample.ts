@@ -2,6 +2,10 @@
 import { gridWavelengths, type WavelengthGrid } from "./grid.ts";
 import { sampler, type SamplingOptions } from "./sample.ts";
 import { spectrum, type Spectrum } from "./spectrum.ts";
+import { GRID_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumberList } from "../arguments/check-list.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkSampling } from "../arguments/common-arguments.ts";
 
 /**
  * The spectrum read at every wavelength of a regular grid (Sprague interpolation for even data by default).
@@ -13,6 +17,12 @@ import { spectrum, type Spectrum } from "./spectrum.ts";
  * @example resample(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]), { start: 400, end: 450, step: 5 })
  */
 export function resample(s: Spectrum, grid: WavelengthGrid, options: SamplingOptions = {}): Spectrum {
+  checkSpectrum("resample", "s", s);
+  checkFields("resample", "grid", grid, {
+    ...GRID_FIELDS,
+    instead: { array: "for a list of wavelengths use resampleAt" },
+  });
+  checkSampling("resample", "options", options);
   return resampleAt(s, gridWavelengths(grid), options);
 }
 
@@ -30,6 +40,13 @@ export function resampleAt(
   wavelengths: readonly number[],
   options: SamplingOptions = {},
 ): Spectrum {
+  checkSpectrum("resampleAt", "s", s);
+  checkNumberList("resampleAt", "wavelengths", wavelengths, {
+    unit: "nm",
+    minLength: 1,
+    instead: { object: "for a grid { start, end, step } use resample" },
+  });
+  checkSampling("resampleAt", "options", options);
   const read = sampler(s, options);
   return spectrum(wavelengths, wavelengths.map(read), { name: s.name, quantity: s.quantity, unit: s.unit });
 }

@@ -9,6 +9,10 @@ import { cubicSplineInterpolator } from "./interpolate-spline.ts";
 import { linearInterpolator } from "./interpolate-linear.ts";
 import { spragueInterpolator } from "./interpolate-sprague.ts";
 import type { Spectrum } from "./spectrum.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { checkSampling } from "../arguments/common-arguments.ts";
 
 export type Interpolation = "linear" | "sprague" | "spline" | "auto";
 export type Extrapolation = "hold" | "zero" | "refuse";
@@ -33,6 +37,10 @@ export function resolveInterpolation(
   s: Spectrum,
   requested: Interpolation = "auto",
 ): Exclude<Interpolation, "auto"> {
+  checkSpectrum("resolveInterpolation", "s", s);
+  checkChoice("resolveInterpolation", "requested", requested, ["auto", "linear", "sprague", "spline"], {
+    optional: true,
+  });
   const n = s.wavelengths.length;
   const step = regularStep(s);
   if (requested === "sprague") {
@@ -70,6 +78,10 @@ const METHOD_WORDS: Record<Exclude<Interpolation, "auto">, string> = {
  * @example interpolationStatement(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]))
  */
 export function interpolationStatement(s: Spectrum, requested: Interpolation = "auto"): string {
+  checkSpectrum("interpolationStatement", "s", s);
+  checkChoice("interpolationStatement", "requested", requested, ["auto", "linear", "sprague", "spline"], {
+    optional: true,
+  });
   return `Spectral data were interpolated by ${METHOD_WORDS[resolveInterpolation(s, requested)]}.`;
 }
 
@@ -85,6 +97,8 @@ export function interpolationStatement(s: Spectrum, requested: Interpolation = "
  * @example sampler(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]))(415)
  */
 export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength: number) => number {
+  checkSpectrum("sampler", "s", s);
+  checkSampling("sampler", "options", options);
   const method = resolveInterpolation(s, options.interpolation);
   const extrapolation = options.extrapolation ?? "hold";
   const w = s.wavelengths;
@@ -144,6 +158,9 @@ export function sampler(s: Spectrum, options: SamplingOptions = {}): (wavelength
  * @example valueAt(spectrumOnGrid(400, 10, [1, 2, 3, 4, 5, 6]), 425, { interpolation: "linear" })
  */
 export function valueAt(s: Spectrum, wavelength: number, options: SamplingOptions = {}): number {
+  checkSpectrum("valueAt", "s", s);
+  checkNumber("valueAt", "wavelength", wavelength, { unit: "nm" });
+  checkSampling("valueAt", "options", options);
   return sampler(s, options)(wavelength);
 }
 

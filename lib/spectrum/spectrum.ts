@@ -2,6 +2,10 @@
  * The sampled spectral distribution: wavelengths in nm (strictly increasing), one value per wavelength, what the
  * values are, and a name. A plain, serializable object; every operation on it is a pure function in this folder.
  */
+import { checkList, checkNumberList } from "../arguments/check-list.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkLabel } from "../arguments/common-arguments.ts";
 
 /** What a spectrum's values measure. Transmittance and reflectance are stored as fractions (0–1), never percent. */
 export type SpectralQuantity =
@@ -49,6 +53,13 @@ export function spectrum(
   values: readonly number[],
   label: SpectrumLabel = {},
 ): Spectrum {
+  checkNumberList("spectrum", "wavelengths", wavelengths, {
+    unit: "nm",
+    minLength: 1,
+    instead: { spectrum: "to copy a spectrum with new values use withValues" },
+  });
+  checkNumberList("spectrum", "values", values, { length: wavelengths.length, unit: "one per wavelength" });
+  checkLabel("spectrum", "label", label);
   const name = label.name ?? "spectrum";
   if (wavelengths.length !== values.length) {
     throw new Error(`spectrum "${name}": ${wavelengths.length} wavelengths but ${values.length} values`);
@@ -94,8 +105,14 @@ export function spectrumOnGrid(
   start: number,
   step: number,
   values: readonly number[],
-  label: SpectrumLabel = {},
+  /** The label, or just the name as a string. */
+  label: SpectrumLabel | string = {},
 ): Spectrum {
+  checkNumber("spectrumOnGrid", "start", start, { unit: "nm", above: 0 });
+  checkNumber("spectrumOnGrid", "step", step, { unit: "nm", above: 0 });
+  checkNumberList("spectrumOnGrid", "values", values, { minLength: 1 });
+  checkLabel("spectrumOnGrid", "label", typeof label === "string" ? { name: label } : label);
+  if (typeof label === "string") label = { name: label };
   if (!Number.isFinite(start) || !Number.isFinite(step) || step <= 0) {
     throw new Error(
       `spectrum "${label.name ?? "spectrum"}": grid start ${start} nm, step ${step} nm is not a valid grid`,
@@ -121,6 +138,15 @@ export function spectrumFromPairs(
   pairs: ReadonlyArray<readonly [number, number]>,
   label: SpectrumLabel = {},
 ): Spectrum {
+  checkList(
+    "spectrumFromPairs",
+    "pairs",
+    pairs,
+    "[wavelength in nm, value] pairs",
+    (p) => Array.isArray(p) && p.length === 2 && p.every(Number.isFinite),
+    { minLength: 1 },
+  );
+  checkLabel("spectrumFromPairs", "label", label);
   return spectrum(
     pairs.map((p) => p[0]),
     pairs.map((p) => p[1]),
@@ -139,6 +165,9 @@ export function spectrumFromPairs(
  * @example withValues(spectrumOnGrid(400, 100, [1, 2, 3]), [0.5, 0.5, 0.5])
  */
 export function withValues(s: Spectrum, values: readonly number[], label: SpectrumLabel = {}): Spectrum {
+  checkSpectrum("withValues", "s", s);
+  checkNumberList("withValues", "values", values, { length: s.wavelengths.length });
+  checkLabel("withValues", "label", label);
   return spectrum(s.wavelengths, values, {
     name: label.name ?? s.name,
     quantity: label.quantity ?? s.quantity,
@@ -155,6 +184,7 @@ export function withValues(s: Spectrum, values: readonly number[], label: Spectr
  * @example roundWavelength(400 + 3 * 0.1)
  */
 export function roundWavelength(wl: number): number {
+  checkNumber("roundWavelength", "wl", wl, { unit: "nm" });
   return Math.round(wl * 1e9) / 1e9;
 }
 

@@ -14,6 +14,10 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 import { cctOhno, OHNO_RANGE_K } from "./cct-ohno.ts";
 import { cctRobertson } from "./cct-robertson.ts";
 import { planckianLocusAtReciprocal, planckianNormal } from "./planckian-locus.ts";
+import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkSpectrum } from "../arguments/check-spectrum.ts";
+import { checkCctOptions } from "../arguments/option-sets.ts";
 
 export type CctMethod = "ohno" | "robertson";
 
@@ -64,6 +68,11 @@ function duvAt(u: number, v: number, cct: number): number {
  * @example cctAndDuv({ x: 0.3127, y: 0.329 })
  */
 export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
+  checkFields("cctAndDuv", "xy", xy, {
+    ...XY_FIELDS,
+    instead: { spectrum: "for a spectrum use cctFromSpectrum" },
+  });
+  checkCctOptions("cctAndDuv", options);
   checkXy(xy, "cctAndDuv");
   const method = options.method ?? "ohno";
   const uv = uv1960FromXy(xy);
@@ -101,6 +110,11 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
  * @example cctFromSpectrum(illuminant("A"))
  */
 export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctResult {
+  checkSpectrum("cctFromSpectrum", "spd", spd, {
+    what: "a spectrum of a light source",
+    instead: { object: "for a chromaticity { x, y } use cctAndDuv" },
+  });
+  checkCctOptions("cctFromSpectrum", options);
   const xyz = lightTristimulus(spd, { observer: "2°" });
   return cctAndDuv(chromaticityXy(xyz), options);
 }
@@ -115,6 +129,8 @@ export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctRes
  * @example chromaticityAtCct(4000, 0.002)
  */
 export function chromaticityAtCct(cct: number, duv = 0): Chromaticity {
+  checkNumber("chromaticityAtCct", "cct", cct, { unit: "K" });
+  checkNumber("chromaticityAtCct", "duv", duv, { min: -DUV_LIMIT, max: DUV_LIMIT });
   if (typeof cct !== "number" || !Number.isFinite(cct) || cct < OHNO_RANGE_K[0] || cct > OHNO_RANGE_K[1]) {
     throw new Error(`chromaticityAtCct: CCT ${cct} K is outside ${OHNO_RANGE_K[0]}–${OHNO_RANGE_K[1]} K`);
   }

@@ -5,6 +5,7 @@
 import { CIE_1931_2_DEGREE } from "../observers/standard-observer.ts";
 import { C2_CIE } from "../illuminants/planckian-radiator.ts";
 import type { Chromaticity, Uv1960 } from "../colorimetry/chromaticity.ts";
+import { checkNumber } from "../arguments/check-number.ts";
 
 /** Lowest temperature (K) for which the locus is computed; below it Planck's law underflows in the visible. */
 export const PLANCKIAN_MIN_K = 100;
@@ -44,6 +45,12 @@ export interface LocusPoint {
  * @example planckianLocusAtReciprocal(1 / 6500)
  */
 export function planckianLocusAtReciprocal(s: number, c2 = C2_CIE): LocusPoint {
+  checkNumber("planckianLocusAtReciprocal", "s", s, {
+    unit: "1/K (reciprocal temperature)",
+    min: 0,
+    max: 1 / PLANCKIAN_MIN_K,
+  });
+  checkNumber("planckianLocusAtReciprocal", "c2", c2, { unit: "m·K", above: 0 });
   let X = 0,
     Y = 0,
     Z = 0,
@@ -102,6 +109,7 @@ function checkTemperature(what: string, t: number): void {
  * @example planckianUv(2856)
  */
 export function planckianUv(temperatureK: number): Uv1960 {
+  checkNumber("planckianUv", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianUv", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   return { u: p.u, v: p.v };
@@ -116,6 +124,7 @@ export function planckianUv(temperatureK: number): Uv1960 {
  * @example planckianChromaticity(2856)
  */
 export function planckianChromaticity(temperatureK: number): Chromaticity {
+  checkNumber("planckianChromaticity", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianChromaticity", temperatureK);
   const { u, v } = planckianLocusAtReciprocal(1 / temperatureK);
   const d = 2 * u - 8 * v + 4;
@@ -131,6 +140,7 @@ export function planckianChromaticity(temperatureK: number): Chromaticity {
  * @example planckianNormal(4000)
  */
 export function planckianNormal(temperatureK: number): { u: number; v: number; nu: number; nv: number } {
+  checkNumber("planckianNormal", "temperatureK", temperatureK, { unit: "K", min: PLANCKIAN_MIN_K });
   checkTemperature("planckianNormal", temperatureK);
   const p = planckianLocusAtReciprocal(1 / temperatureK);
   // Tangent along increasing T is −(du/ds, dv/ds); the normal (tv, −tu) has a positive v component since u falls with T.

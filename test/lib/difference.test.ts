@@ -188,7 +188,9 @@ describe("colour difference properties", () => {
       }),
       { numRuns: 500 },
     );
-    expect(() => deltaE2000(null as never, { L: 1, a: 1, b: 1 })).toThrow(/first colour/);
+    expect(() => deltaE2000(null as never, { L: 1, a: 1, b: 1 })).toThrow(
+      /deltaE2000: first should be CIELAB values/,
+    );
   });
 
   it("ΔE*ab, ΔE00 are zero for identical colours and symmetric (Sharma et al. 2005 note ΔE00 symmetry)", () => {

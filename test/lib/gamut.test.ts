@@ -25,9 +25,9 @@ describe("gamut area and coverage", () => {
   });
 
   it("sRGB lies inside Display P3 and BT.2020: full coverage, and its share of BT.2020 is the area ratio", () => {
-    expect(gamutCoverage(rgbSpace("Display P3"), rgbSpace("sRGB"))).toBeCloseTo(100, 9);
-    expect(gamutCoverage(rgbSpace("sRGB"), rgbSpace("BT.2020"))).toBeCloseTo((100 * 0.11205) / 0.2118665, 9);
-    expect(gamutAreaRatio(rgbSpace("Display P3"), rgbSpace("sRGB"))).toBeCloseTo((100 * 0.152) / 0.11205, 9);
+    expect(gamutCoverage(rgbSpace("Display P3"), rgbSpace("sRGB"))).toBeCloseTo(1, 11);
+    expect(gamutCoverage(rgbSpace("sRGB"), rgbSpace("BT.2020"))).toBeCloseTo(0.11205 / 0.2118665, 11);
+    expect(gamutAreaRatio(rgbSpace("Display P3"), rgbSpace("sRGB"))).toBeCloseTo(0.152 / 0.11205, 11);
   });
 
   it("u′v′ areas use the transformed primaries", () => {
@@ -54,9 +54,9 @@ describe("gamut area and coverage", () => {
     ];
     const b = a.map((p) => ({ x: p.x + 0.1, y: p.y }));
     expect(gamutIntersectionArea(a, b)).toBeCloseTo(0.02, 12);
-    expect(gamutCoverage(a, b)).toBeCloseTo(50, 9);
+    expect(gamutCoverage(a, b)).toBeCloseTo(0.5, 11);
     // vertex order (clockwise or not) does not matter
-    expect(gamutCoverage([...a].reverse(), b)).toBeCloseTo(50, 9);
+    expect(gamutCoverage([...a].reverse(), b)).toBeCloseTo(0.5, 11);
   });
 
   it("intersection area agrees with counting grid points inside both triangles (independent estimate, property)", () => {

@@ -39,7 +39,8 @@ describe("objectColour: the sample and its white from one table", () => {
   it("a flat 50 % grey measured every 5 nm is exactly neutral in CIELAB against the white objectColour returns", () => {
     const c = objectColour(flat(0.5, 5));
     expect(c.interval).toBe(5);
-    expect(c.range).toEqual([360, 830]);
+    // The library's one convention (README, "Summation range"): the sample's measured range within 360–830 nm.
+    expect(c.range).toEqual([380, 780]);
     const lab = labFromXYZ(c.XYZ, c.white);
     expect(Math.abs(lab.a)).toBeLessThan(1e-9);
     expect(Math.abs(lab.b)).toBeLessThan(1e-9);
@@ -68,7 +69,7 @@ describe("objectColour: the sample and its white from one table", () => {
     const integration = methodsUsed().filter((n) => n.topic === "integration");
     expect(integration).toHaveLength(1);
     expect(integration[0]!.statement).toMatch(
-      /^Tristimulus values of object colours were summed at 5 nm intervals over 360–830 nm/,
+      /^Tristimulus values of object colours were summed at 5 nm intervals over 380–780 nm \(the measured range of the samples within the 360–830 nm of the colour-matching functions, without extrapolation\)/,
     );
   });
 
@@ -84,7 +85,9 @@ describe("objectColour: the sample and its white from one table", () => {
     expect(commonSummationInterval([flat(0.5, 1)], ["D65"])).toBe(1);
     expect(commonSummationInterval([flat(0.5, 1), flat(0.5, 5)], ["D65"])).toBe(5);
     expect(commonSummationInterval([flat(0.5, 1)], ["D65", "D50"])).toBe(5); // D50 is built from the 5 nm S0, S1, S2
-    expect(() => commonSummationInterval([])).toThrow(/at least one sample/);
+    expect(() => commonSummationInterval([])).toThrow(
+      /commonSummationInterval: samples should be an array of at least 1 spectra/,
+    );
   });
 });
 
@@ -108,7 +111,11 @@ describe.skipIf(!HAVE_REFERENCE)(
         Y += s * yb[i]!;
         Z += s * zb[i]!;
       });
-      const c = objectColour(flat(0.5, 5), { illuminant: "D65" });
+      const wide = spectrumOnGrid(360, 5, new Array(95).fill(0.5), {
+        quantity: "reflectance",
+        name: "flat 50 % over 360–830 nm (invented)",
+      });
+      const c = objectColour(wide, { illuminant: "D65" });
       expect(c.white.X).toBeCloseTo((100 * X) / Y, 9);
       expect(c.white.Y).toBeCloseTo(100, 12);
       expect(c.white.Z).toBeCloseTo((100 * Z) / Y, 9);
@@ -160,7 +167,7 @@ describe("everywhere the library pairs a sample with a white, both come from one
     const c = recipeColour([{ colourant: grey, amount: 1 }], { illuminant: "D50" });
     expect(Math.abs(c.Lab.a) + Math.abs(c.Lab.b)).toBeLessThan(1e-9);
     expect(chromaticityXy(c.white).x).toBeCloseTo(
-      chromaticityXy(whitePoint({ illuminant: "D50", interval: 5 })).x,
+      chromaticityXy(whitePoint({ illuminant: "D50", sample: c.reflectance })).x,
       12,
     );
   });

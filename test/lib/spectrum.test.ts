@@ -234,15 +234,25 @@ describe("arithmetic, normalisation, sets", () => {
     expect(set).toHaveLength(2);
     expect(set.map((s) => s.name)).toEqual(["patch1", "patch2"]);
     expect(pickSpectrum(set, "patch2").values).toEqual([0.3, 0.2, 0.1]);
-    expect(() => pickSpectrum(set, "patch3")).toThrow(/patch3.*patch1, patch2/);
+    expect(() => pickSpectrum(set, "patch3")).toThrow(
+      /pickSpectrum: name should be the name of a spectrum in the set: one of "patch1", "patch2", but got a string \("patch3"\)/,
+    );
   });
 });
 
 describe("bad input gives a clear error naming the value, never a silent NaN", () => {
   it.each([
-    ["NaN value", () => spectrum([400, 410], [1, NaN]), /value at 410 nm is NaN/],
+    [
+      "NaN value",
+      () => spectrum([400, 410], [1, NaN]),
+      /spectrum: values\[1\] should be a finite number, but got NaN/,
+    ],
     ["infinite value", () => spectrum([400, 410], [Infinity, 1]), /Infinity/],
-    ["NaN wavelength", () => spectrum([400, NaN], [1, 1]), /wavelength #2 is NaN/],
+    [
+      "NaN wavelength",
+      () => spectrum([400, NaN], [1, 1]),
+      /spectrum: wavelengths\[1\] should be a finite number, but got NaN/,
+    ],
     ["infinite wavelength", () => spectrum([400, Infinity], [1, 1]), /Infinity/],
     ["negative wavelength", () => spectrum([-400, 410], [1, 1]), /-400 nm/],
     ["zero wavelength", () => spectrum([0, 410], [1, 1]), /0 nm/],
@@ -252,9 +262,21 @@ describe("bad input gives a clear error naming the value, never a silent NaN", (
       /410 nm\) does not increase after 420 nm/,
     ],
     ["duplicate wavelengths", () => spectrum([400, 400], [1, 1]), /does not increase/],
-    ["empty spectrum", () => spectrum([], []), /empty spectrum/],
-    ["mismatched lengths", () => spectrum([400, 410], [1]), /2 wavelengths but 1 values/],
-    ["bad grid step", () => spectrumOnGrid(400, -5, [1, 2]), /step -5 nm/],
+    [
+      "empty spectrum",
+      () => spectrum([], []),
+      /spectrum: wavelengths should be an array of at least 1 finite numbers \(nm\), but got an empty array/,
+    ],
+    [
+      "mismatched lengths",
+      () => spectrum([400, 410], [1]),
+      /spectrum: values should be an array of 2 finite numbers \(one per wavelength\), but got an array of 1 number/,
+    ],
+    [
+      "bad grid step",
+      () => spectrumOnGrid(400, -5, [1, 2]),
+      /spectrumOnGrid: step should be a finite number in nm greater than 0, but got -5 nm/,
+    ],
     [
       "pairs with NaN",
       () =>
@@ -264,7 +286,11 @@ describe("bad input gives a clear error naming the value, never a silent NaN", (
         ]),
       /NaN/,
     ],
-    ["reading at NaN nm", () => valueAt(spectrumOnGrid(400, 10, [1, 2, 3]), NaN), /wavelength NaN/],
+    [
+      "reading at NaN nm",
+      () => valueAt(spectrumOnGrid(400, 10, [1, 2, 3]), NaN),
+      /valueAt: wavelength should be a finite number in nm, but got NaN/,
+    ],
   ])("%s", (_what, make, message) => {
     expect(make).toThrow(message);
   });

@@ -92,7 +92,9 @@ describe("Fresnel reflection and the plate relation", () => {
   });
 
   it("rejects bad input with clear errors", () => {
-    expect(() => surfaceReflectance(Number.NaN)).toThrow(/refractive index is NaN/);
+    expect(() => surfaceReflectance(Number.NaN)).toThrow(
+      /surfaceReflectance: index should be a finite number in refractive index of at least 1, but got NaN/,
+    );
     expect(() => externalTransmittance(flat(0.5), {} as never)).toThrow(/refractiveIndex/);
     expect(() =>
       externalTransmittance(spectrum(grid3, [50, 60, 70], { name: "percent data" }), {
@@ -127,7 +129,7 @@ describe("optical density and Beer–Lambert scaling", () => {
     twice.values.forEach((v) => expect(v).toBeCloseTo(0.36, 12));
     expect(pathRatio({ thickness: [2, 3], concentration: [1, 2] })).toBeCloseTo(3, 12);
     expect(() => pathRatio({ thickness: [0, 3] })).toThrow(/thickness \(from\) is 0/);
-    expect(() => pathRatio({})).toThrow(/give thickness/);
+    expect(() => pathRatio({})).toThrow(/pathRatio: change should be a path change \{ thickness\?/);
   });
 
   it("composes: scaling by a then b equals scaling by a·b", () => {
@@ -254,8 +256,12 @@ describe("filter stacks", () => {
       refractiveIndex: 1.5,
     });
     expect(() => stackTransmittance([el, other], { join: "air gaps" })).toThrow(/different wavelengths/);
-    expect(() => stackTransmittance([], { join: "air gaps" })).toThrow(/no elements/);
-    expect(() => stackTransmittance([el], { join: "glued" as StackJoin })).toThrow(/join "glued"/);
+    expect(() => stackTransmittance([], { join: "air gaps" })).toThrow(
+      /stackTransmittance: elements should be an array of at least 1 filter elements .*, but got an empty array/,
+    );
+    expect(() => stackTransmittance([el], { join: "glued" as StackJoin })).toThrow(
+      /options.join should be how the elements are joined: one of .*"air gaps".*but got a string \("glued"\)/,
+    );
   });
 });
 
@@ -279,7 +285,9 @@ describe("parametric filters", () => {
     expect(at(600)).toBeCloseTo(0.5, 12);
     expect(at(610)).toBeCloseTo(0.9, 12);
     expect(() => longPassFilter(600, { peak: 90 })).toThrow(/percent/);
-    expect(() => bandPassFilter(550, -3)).toThrow(/width \(nm\) is -3/);
+    expect(() => bandPassFilter(550, -3)).toThrow(
+      /bandPassFilter: width should be a finite number in nm greater than 0, but got -3 nm/,
+    );
   });
 });
 

@@ -96,8 +96,12 @@ describe("spectral Neugebauer with Demichel areas", () => {
     );
     expect(primaryKey(["y", "c"])).toBe("cy");
     expect(() => demichelAreas({})).toThrow(/at least one ink/);
-    expect(() => demichelAreas({ c: 1.2 })).toThrow(/coverage of c is 1.2/);
-    expect(() => demichelAreas({ c: 0.2, r: 0.1 } as never)).toThrow(/unknown ink "r"/);
+    expect(() => demichelAreas({ c: 1.2 })).toThrow(
+      /demichelAreas: coverages.c should be a fraction from 0 to 1.*but got the number 1.2/,
+    );
+    expect(() => demichelAreas({ c: 0.2, r: 0.1 } as never)).toThrow(
+      /demichelAreas: coverages should be an options object with any of c, m, y, k, but got an object with keys c, r \(unknown option "r"/,
+    );
   });
 
   const primaries: NeugebauerPrimaries = {

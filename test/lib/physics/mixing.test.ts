@@ -340,7 +340,9 @@ describe("Kubelka–Munk theory", () => {
     expect(layerOptics(1, 2, 1000, 0.9).reflectance).toBeCloseTo(opaqueReflectance(1, 2), 12);
     expect(layerOptics(1, 2, 0, 0.37).reflectance).toBeCloseTo(0.37, 14);
     expect(layerOptics(0.7, 0, 2, 0).transmittance).toBeCloseTo(Math.exp(-1.4), 14);
-    expect(() => layerOptics(-1, 1, 1, 0)).toThrow(/absorption coefficient K is -1/);
+    expect(() => layerOptics(-1, 1, 1, 0)).toThrow(
+      /layerOptics: k should be a finite number in absorption coefficient of at least 0, but got the number -1/,
+    );
   });
 
   it("applies the Saunderson correction consistently", () => {

@@ -66,7 +66,7 @@ describe("a*b* plane", () => {
   });
 
   it("needs samples or pairs, and names a bad reading", () => {
-    expect(() => labPlane({})).toThrow(/give samples or pairs/);
+    expect(() => labPlane({})).toThrow(/labPlane: options should be options with samples .* or pairs/);
     expect(() => labPlane({ samples: [{ label: "bad", lab: { L: 50, a: Number.NaN, b: 0 } }] })).toThrow(
       /sample 1 \("bad"\)/,
     );

@@ -160,7 +160,9 @@ describe("wide-gamut colours", () => {
 
   it("a colour that is not a colour is an error naming the swatch", () => {
     expect(() => swatch("x", { hex: "red" })).toThrow(/"red" is not an sRGB hex/);
-    expect(() => swatch("y", { lab: { L: 50, a: Number.NaN, b: 0 } })).toThrow(/swatch "y"/);
+    expect(() => swatch("y", { lab: { L: 50, a: Number.NaN, b: 0 } })).toThrow(
+      /swatch: colour should be a colour: a spectrum, \{ XYZ, white\? \}, \{ lab, white\? \} or \{ hex \}, but got an object with key lab/,
+    );
     expect(() => swatch("z", { XYZ: { X: 1, Y: 1, Z: 1 } }, { display: "Rec.709" as "sRGB" })).toThrow(
       /display "Rec.709"/,
     );
