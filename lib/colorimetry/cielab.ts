@@ -33,7 +33,7 @@ function requireWhite(white: Tristimulus, what: string): void {
 /** L* = 116 f(Y/Yn) − 16, a* = 500[f(X/Xn) − f(Y/Yn)], b* = 200[f(Y/Yn) − f(Z/Zn)] (CIE 015:2018 eqs. 8.3–8.11). */
 export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
   requireWhite(white, "labFromXYZ");
-  if (![t.X, t.Y, t.Z].every(Number.isFinite))
+  if (!(Number.isFinite(t.X) && Number.isFinite(t.Y) && Number.isFinite(t.Z)))
     throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
   noteMethod("colour space", "CIELAB (CIE 1976 L*a*b*) values were computed per CIE 015:2018 §8.2.1.");
   const fx = f(t.X / white.X),

@@ -42,13 +42,18 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
+// The last note recorded or found recorded: a loop that notes the same condition on every call costs two compares.
+let lastTopic: string | undefined;
+let lastStatement: string | undefined;
 
 /**
  * Notes that a computation used a condition; repeated notes are kept once, in first-use order. Inside
  * withoutMethodNotes nothing is recorded.
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  if (silentDepth > 0) return;
+  if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
+  lastTopic = topic;
+  lastStatement = statement;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -100,4 +105,5 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
+  lastTopic = lastStatement = undefined;
 }

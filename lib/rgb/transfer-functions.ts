@@ -17,13 +17,17 @@ function odd(f: (x: number) => number): (x: number) => number {
 /** sRGB encoding (IEC 61966-2-1:1999 §5.3): V = 12.92·L for L ≤ 0.0031308, else 1.055·L^(1/2.4) − 0.055. */
 export function srgbEncode(linear: number): number {
   requireFinite("srgbEncode", linear);
-  return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
+  const l = linear < 0 ? -linear : linear;
+  const e = l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055;
+  return linear < 0 ? -e : e;
 }
 
 /** sRGB decoding (IEC 61966-2-1:1999 §5.2): L = V/12.92 for V ≤ 0.04045, else ((V + 0.055)/1.055)^2.4. */
 export function srgbDecode(signal: number): number {
   requireFinite("srgbDecode", signal);
-  return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
+  const v = signal < 0 ? -signal : signal;
+  const l = v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
+  return signal < 0 ? -l : l;
 }
 
 function requireGamma(what: string, gamma: number): void {
@@ -35,26 +39,32 @@ function requireGamma(what: string, gamma: number): void {
 export function gammaEncode(linear: number, gamma: number): number {
   requireFinite("gammaEncode", linear);
   requireGamma("gammaEncode", gamma);
-  return odd((l) => l ** (1 / gamma))(linear);
+  const e = (linear < 0 ? -linear : linear) ** (1 / gamma);
+  return linear < 0 ? -e : e;
 }
 
 /** Pure power-law decoding L = V^γ. */
 export function gammaDecode(signal: number, gamma: number): number {
   requireFinite("gammaDecode", signal);
   requireGamma("gammaDecode", gamma);
-  return odd((v) => v ** gamma)(signal);
+  const l = (signal < 0 ? -signal : signal) ** gamma;
+  return signal < 0 ? -l : l;
 }
 
 /** ITU-R BT.709-6 camera OETF: V = 4.500·L for L < 0.018, else 1.099·L^0.45 − 0.099. */
 export function bt709Encode(linear: number): number {
   requireFinite("bt709Encode", linear);
-  return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
+  const l = linear < 0 ? -linear : linear;
+  const e = l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099;
+  return linear < 0 ? -e : e;
 }
 
 /** Inverse of the ITU-R BT.709-6 OETF: L = V/4.5 for V < 0.081, else ((V + 0.099)/1.099)^(1/0.45). */
 export function bt709Decode(signal: number): number {
   requireFinite("bt709Decode", signal);
-  return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
+  const v = signal < 0 ? -signal : signal;
+  const l = v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45);
+  return signal < 0 ? -l : l;
 }
 
 /** Screen white and black luminance for the BT.1886 EOTF, in cd/m². */
