@@ -42,9 +42,12 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
-// The last note recorded or found recorded: a loop that notes the same condition on every call costs two compares.
+// The last two notes recorded or found recorded: a loop that notes the same one or two conditions on every call
+// (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) costs a few compares.
 let lastTopic: string | undefined;
 let lastStatement: string | undefined;
+let previousTopic: string | undefined;
+let previousStatement: string | undefined;
 
 /**
  * Notes that a computation used a condition; repeated notes are kept once, in first-use order. Inside
@@ -52,6 +55,15 @@ let lastStatement: string | undefined;
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
   if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
+  if (statement === previousStatement && topic === previousTopic) {
+    previousTopic = lastTopic;
+    previousStatement = lastStatement;
+    lastTopic = topic;
+    lastStatement = statement;
+    return;
+  }
+  previousTopic = lastTopic;
+  previousStatement = lastStatement;
   lastTopic = topic;
   lastStatement = statement;
   let statements = seen.get(topic);
@@ -105,5 +117,5 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
-  lastTopic = lastStatement = undefined;
+  lastTopic = lastStatement = previousTopic = previousStatement = undefined;
 }

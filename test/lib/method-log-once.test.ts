@@ -100,4 +100,20 @@ describe("method notes once per condition", () => {
       { topic: "other", statement: "B was done." },
     ]);
   });
+
+  it("two notes alternating in a loop, then a third, then the first two again: each kept once, in first-use order", () => {
+    resetMethodLog();
+    for (let i = 0; i < 3; i++) {
+      noteMethod("rgb encoding", "A was done.");
+      noteMethod("colour space", "B was done.");
+    }
+    noteMethod("gamut", "C was done.");
+    noteMethod("colour space", "B was done.");
+    noteMethod("rgb encoding", "A was done.");
+    noteMethod("gamut", "C was done.");
+    expect(methodsUsed().map((n) => n.statement)).toEqual(["A was done.", "B was done.", "C was done."]);
+    resetMethodLog();
+    noteMethod("colour space", "B was done.");
+    expect(methodsUsed().map((n) => n.statement)).toEqual(["B was done."]);
+  });
 });
