@@ -49,7 +49,7 @@ export function labFromXYZ(t: Tristimulus, white: Tristimulus): Lab {
     what: "the reference white's tristimulus values { X, Y, Z } (e.g. objectColour(sample).white)",
   });
   requireWhite(white, "labFromXYZ");
-  if (![t.X, t.Y, t.Z].every(Number.isFinite))
+  if (!(Number.isFinite(t.X) && Number.isFinite(t.Y) && Number.isFinite(t.Z)))
     throw new Error(`labFromXYZ: tristimulus values (${t.X}, ${t.Y}, ${t.Z}) must be finite`);
   noteMethod("colour space", "CIELAB (CIE 1976 L*a*b*) values were computed per CIE 015:2018 §8.2.1.");
   const fx = f(t.X / white.X),

@@ -28,7 +28,8 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
   if (
     typeof t !== "object" ||
     t === null ||
-    ![t.X, t.Y, t.Z].every((v) => Number.isFinite(v) && (!positive || v > 0))
+    !(Number.isFinite(t.X) && Number.isFinite(t.Y) && Number.isFinite(t.Z)) ||
+    (positive && !(t.X > 0 && t.Y > 0 && t.Z > 0))
   ) {
     throw new Error(
       `${what}: ${name} (${t?.X}, ${t?.Y}, ${t?.Z}) must be ${positive ? "positive " : ""}finite tristimulus values`,
@@ -53,9 +54,14 @@ export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
   noteMethod("colour space", "CIELUV (CIE 1976 L*u*v*) values were computed per CIE 015:2018 §8.2.2.");
   const yr = t.Y / white.Y;
   const L = yr > EPSILON ? 116 * Math.cbrt(yr) - 16 : KAPPA * yr;
-  const [u, v] = uvPrime(t);
-  const [un, vn] = uvPrime(white);
   if (L === 0) return { L: 0, u: 0, v: 0 };
+  // u′, v′ of the colour and the white as uvPrime computes them, without its arrays (this runs per colour).
+  const d = t.X + 15 * t.Y + 3 * t.Z;
+  const u = d > 0 ? (4 * t.X) / d : 0,
+    v = d > 0 ? (9 * t.Y) / d : 0;
+  const dn = white.X + 15 * white.Y + 3 * white.Z;
+  const un = (4 * white.X) / dn,
+    vn = (9 * white.Y) / dn;
   return { L, u: 13 * L * (u - un), v: 13 * L * (v - vn) };
 }
 

@@ -43,6 +43,12 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
+// The last two notes recorded or found recorded: a loop that notes the same one or two conditions on every call
+// (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) costs a few compares.
+let lastTopic: string | undefined;
+let lastStatement: string | undefined;
+let previousTopic: string | undefined;
+let previousStatement: string | undefined;
 
 /**
  * Notes that a computation used a condition, for the report's Methods section; repeated notes are kept once, in first-use order.
@@ -55,9 +61,21 @@ let silentDepth = 0;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
+  // The fast path first: a note equal to the last one was checked when it was recorded.
+  if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
   checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
   checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
-  if (silentDepth > 0) return;
+  if (statement === previousStatement && topic === previousTopic) {
+    previousTopic = lastTopic;
+    previousStatement = lastStatement;
+    lastTopic = topic;
+    lastStatement = statement;
+    return;
+  }
+  previousTopic = lastTopic;
+  previousStatement = lastStatement;
+  lastTopic = topic;
+  lastStatement = statement;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -134,4 +152,5 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
+  lastTopic = lastStatement = previousTopic = previousStatement = undefined;
 }

@@ -43,6 +43,43 @@ export function chromaticityFill(
     [y0, y1] = yRange;
   if (!(x1 > x0 && y1 > y0))
     throw new Error(`chromaticity fill: axis ranges [${x0}, ${x1}] × [${y0}, ${y1}] must increase`);
+  // The same fill is drawn once per run: a report's diagrams share observer, diagram and size.
+  const key = fillKey(locusPolygon, space, xRange, yRange, resolution, veil);
+  let image = cache.get(key);
+  if (image === undefined) {
+    image = Object.freeze(drawFill(locusPolygon, space, xRange, yRange, resolution, veil));
+    if (cache.size >= CACHE_SIZE) cache.delete(cache.keys().next().value!);
+    cache.set(key, image);
+  }
+  return image;
+}
+
+/** Fills drawn so far, by everything they depend on; the oldest is dropped beyond CACHE_SIZE. */
+const cache = new Map<string, FillImage>();
+const CACHE_SIZE = 16;
+
+function fillKey(
+  polygon: readonly (readonly [number, number])[],
+  space: DiagramSpace,
+  xRange: readonly [number, number],
+  yRange: readonly [number, number],
+  resolution: number,
+  veil: number,
+): string {
+  // Numbers as JavaScript prints them round-trip exactly, so equal keys mean equal inputs.
+  return `${space}|${xRange[0]},${xRange[1]}|${yRange[0]},${yRange[1]}|${resolution}|${veil}|${polygon.join(";")}`;
+}
+
+function drawFill(
+  locusPolygon: readonly (readonly [number, number])[],
+  space: DiagramSpace,
+  xRange: readonly [number, number],
+  yRange: readonly [number, number],
+  resolution: number,
+  veil: number,
+): FillImage {
+  const [x0, x1] = xRange,
+    [y0, y1] = yRange;
   const w = resolution;
   const h = Math.max(16, Math.round((resolution * (y1 - y0)) / (x1 - x0)));
   const dx = (x1 - x0) / w,

@@ -3,7 +3,7 @@
  * visible-spectrum band): 8-bit RGBA, per-row filter chosen by the minimum-sum-of-absolute-differences heuristic,
  * zlib deflate, returned as a data: URI so a report stays self-contained (PNG: ISO/IEC 15948:2004 / W3C PNG spec).
  */
-import { deflateSync } from "node:zlib";
+import { constants as zlibConstants, deflateSync } from "node:zlib";
 
 const CRC_TABLE = (() => {
   const t = new Uint32Array(256);
@@ -95,7 +95,11 @@ export function encodePng(width: number, height: number, rgba: Uint8Array): Uint
   header[12] = 0; // no interlace
   // sRGB chunk, rendering intent 0 (perceptual): the pixels are sRGB-encoded (PNG spec §11.3.3.5).
   const srgb = new Uint8Array([0]);
-  const idat = new Uint8Array(deflateSync(filterRows(width, height, rgba), { level: 9 }));
+  // Level 3 with the strategy meant for filtered image data: some 40× faster than level 9 on a diagram fill (5 ms
+  // against 200 ms) for about 1.5× the bytes (37 kB against 24 kB); the pixels are the same.
+  const idat = new Uint8Array(
+    deflateSync(filterRows(width, height, rgba), { level: 3, strategy: zlibConstants.Z_FILTERED }),
+  );
   const parts = [
     new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
     chunk("IHDR", header),

@@ -1,6 +1,5 @@
 /** Conversions between CIE XYZ and the RGB values of an RGB space, and the gamut test on RGB values. */
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
-import { applyMatrix3 } from "../colorimetry/matrix3.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { RgbSpace } from "./rgb-space.ts";
 import { PQ_PEAK_LUMINANCE, transferFunction } from "./transfer-functions.ts";
@@ -20,12 +19,30 @@ function xyzScale(space: RgbSpace): number {
   return space.transfer === "PQ" ? PQ_PEAK_LUMINANCE : 100;
 }
 
-function noteSpace(space: RgbSpace, encoded: boolean): void {
+function spaceStatement(space: RgbSpace, encoded: boolean): string {
   const w = space.white;
-  noteMethod(
-    "rgb encoding",
-    `Conversions between XYZ and ${space.name} RGB (${space.source}) used the primaries R (${space.primaries.r.x}, ${space.primaries.r.y}), G (${space.primaries.g.x}, ${space.primaries.g.y}), B (${space.primaries.b.x}, ${space.primaries.b.y}) and white (${w.x}, ${w.y}), with RGB–XYZ matrices derived per SMPTE RP 177-1993${encoded ? ` and ${transferFunction(space.transfer).description}` : "; the RGB values are linear (no transfer function was applied)"}.`,
-  );
+  return `Conversions between XYZ and ${space.name} RGB (${space.source}) used the primaries R (${space.primaries.r.x}, ${space.primaries.r.y}), G (${space.primaries.g.x}, ${space.primaries.g.y}), B (${space.primaries.b.x}, ${space.primaries.b.y}) and white (${w.x}, ${w.y}), with RGB–XYZ matrices derived per SMPTE RP 177-1993${encoded ? ` and ${transferFunction(space.transfer).description}` : "; the RGB values are linear (no transfer function was applied)"}.`;
+}
+
+// The statement per space and per encoded/linear, built once: the conversions run in loops over many colours, and
+// building the sentence cost more than the conversion. The log itself keeps each statement once (noteMethod).
+const statements = new WeakMap<RgbSpace, { encoded?: string; linear?: string }>();
+
+// The default options, shared (an object literal as default would be allocated on every call).
+const NO_OPTIONS: { readonly encode?: boolean; readonly decode?: boolean } = Object.freeze({});
+
+let lastSpace: RgbSpace | undefined;
+let lastStatements: { encoded?: string; linear?: string } = {};
+
+function noteSpace(space: RgbSpace, encoded: boolean): void {
+  let cached = space === lastSpace ? lastStatements : statements.get(space);
+  if (cached === undefined) statements.set(space, (cached = {}));
+  lastSpace = space;
+  lastStatements = cached;
+  const statement = encoded
+    ? (cached.encoded ??= spaceStatement(space, true))
+    : (cached.linear ??= spaceStatement(space, false));
+  noteMethod("rgb encoding", statement);
 }
 
 /**
@@ -41,17 +58,31 @@ function noteSpace(space: RgbSpace, encoded: boolean): void {
  * @source SMPTE RP 177-1993 (matrices from primaries and white); the space's transfer function standard.
  * @example rgbFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, rgbSpace("sRGB"))
  */
-export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?: boolean } = {}): Rgb {
+export function rgbFromXYZ(
+  xyz: Tristimulus,
+  space: RgbSpace,
+  options: { encode?: boolean } = NO_OPTIONS,
+): Rgb {
   checkFields("rgbFromXYZ", "xyz", xyz, XYZ_FIELDS);
   checkRgbSpace("rgbFromXYZ", "space", space);
-  checkOptions("rgbFromXYZ", "options", options, ["encode"]);
-  if (typeof xyz !== "object" || xyz === null || ![xyz.X, xyz.Y, xyz.Z].every(Number.isFinite)) {
+  if (options !== NO_OPTIONS) checkOptions("rgbFromXYZ", "options", options, ["encode"]);
+  if (
+    typeof xyz !== "object" ||
+    xyz === null ||
+    !(Number.isFinite(xyz.X) && Number.isFinite(xyz.Y) && Number.isFinite(xyz.Z))
+  ) {
     throw new Error(
       `rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`,
     );
   }
   const s = xyzScale(space);
-  const [r, g, b] = applyMatrix3(space.fromXYZ, [xyz.X / s, xyz.Y / s, xyz.Z / s]);
+  const m = space.fromXYZ;
+  const X = xyz.X / s,
+    Y = xyz.Y / s,
+    Z = xyz.Z / s;
+  const r = m[0][0] * X + m[0][1] * Y + m[0][2] * Z,
+    g = m[1][0] * X + m[1][1] * Y + m[1][2] * Z,
+    b = m[2][0] * X + m[2][1] * Y + m[2][2] * Z;
   const encode = options.encode ?? true;
   noteSpace(space, encode);
   if (!encode) return { r, g, b };
@@ -69,22 +100,40 @@ export function rgbFromXYZ(xyz: Tristimulus, space: RgbSpace, options: { encode?
  * @source SMPTE RP 177-1993; the space's transfer function standard.
  * @example xyzFromRgb({ r: 1, g: 0, b: 0 }, rgbSpace("sRGB"))
  */
-export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolean } = {}): Tristimulus {
+
+export function xyzFromRgb(
+  rgb: Rgb,
+  space: RgbSpace,
+  options: { decode?: boolean } = NO_OPTIONS,
+): Tristimulus {
   checkFields("xyzFromRgb", "rgb", rgb, RGB_FIELDS);
   checkRgbSpace("xyzFromRgb", "space", space);
-  checkOptions("xyzFromRgb", "options", options, ["decode"]);
-  if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
+  if (options !== NO_OPTIONS) checkOptions("xyzFromRgb", "options", options, ["decode"]);
+  if (
+    typeof rgb !== "object" ||
+    rgb === null ||
+    !(Number.isFinite(rgb.r) && Number.isFinite(rgb.g) && Number.isFinite(rgb.b))
+  ) {
     throw new Error(`xyzFromRgb: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
   }
   const decode = options.decode ?? true;
   noteSpace(space, decode);
-  const t = transferFunction(space.transfer);
-  const lin = decode
-    ? ([t.decode(rgb.r), t.decode(rgb.g), t.decode(rgb.b)] as const)
-    : ([rgb.r, rgb.g, rgb.b] as const);
-  const [X, Y, Z] = applyMatrix3(space.toXYZ, lin);
+  let r = rgb.r,
+    g = rgb.g,
+    b = rgb.b;
+  if (decode) {
+    const t = transferFunction(space.transfer);
+    r = t.decode(r);
+    g = t.decode(g);
+    b = t.decode(b);
+  }
+  const m = space.toXYZ;
   const s = xyzScale(space);
-  return { X: X * s, Y: Y * s, Z: Z * s };
+  return {
+    X: (m[0][0] * r + m[0][1] * g + m[0][2] * b) * s,
+    Y: (m[1][0] * r + m[1][1] * g + m[1][2] * b) * s,
+    Z: (m[2][0] * r + m[2][1] * g + m[2][2] * b) * s,
+  };
 }
 
 /**
@@ -99,7 +148,11 @@ export function xyzFromRgb(rgb: Rgb, space: RgbSpace, options: { decode?: boolea
 export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
   checkFields("isInGamut", "rgb", rgb, RGB_FIELDS);
   checkNumber("isInGamut", "tolerance", tolerance, { min: 0 });
-  if (typeof rgb !== "object" || rgb === null || ![rgb.r, rgb.g, rgb.b].every(Number.isFinite)) {
+  if (
+    typeof rgb !== "object" ||
+    rgb === null ||
+    !(Number.isFinite(rgb.r) && Number.isFinite(rgb.g) && Number.isFinite(rgb.b))
+  ) {
     throw new Error(`isInGamut: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
   }
   if (!(Number.isFinite(tolerance) && tolerance >= 0))

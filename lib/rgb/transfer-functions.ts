@@ -29,7 +29,9 @@ function odd(f: (x: number) => number): (x: number) => number {
 export function srgbEncode(linear: number): number {
   checkNumber("srgbEncode", "linear", linear, { unit: "linear light, 0–1 for in-gamut colours" });
   requireFinite("srgbEncode", linear);
-  return odd((l) => (l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055))(linear);
+  const l = linear < 0 ? -linear : linear;
+  const e = l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055;
+  return linear < 0 ? -e : e;
 }
 
 /**
@@ -43,7 +45,9 @@ export function srgbEncode(linear: number): number {
 export function srgbDecode(signal: number): number {
   checkNumber("srgbDecode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("srgbDecode", signal);
-  return odd((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4))(signal);
+  const v = signal < 0 ? -signal : signal;
+  const l = v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
+  return signal < 0 ? -l : l;
 }
 
 function requireGamma(what: string, gamma: number): void {
@@ -65,7 +69,8 @@ export function gammaEncode(linear: number, gamma: number): number {
   checkNumber("gammaEncode", "gamma", gamma, { above: 0 });
   requireFinite("gammaEncode", linear);
   requireGamma("gammaEncode", gamma);
-  return odd((l) => l ** (1 / gamma))(linear);
+  const e = (linear < 0 ? -linear : linear) ** (1 / gamma);
+  return linear < 0 ? -e : e;
 }
 
 /**
@@ -82,7 +87,8 @@ export function gammaDecode(signal: number, gamma: number): number {
   checkNumber("gammaDecode", "gamma", gamma, { above: 0 });
   requireFinite("gammaDecode", signal);
   requireGamma("gammaDecode", gamma);
-  return odd((v) => v ** gamma)(signal);
+  const l = (signal < 0 ? -signal : signal) ** gamma;
+  return signal < 0 ? -l : l;
 }
 
 /**
@@ -96,7 +102,9 @@ export function gammaDecode(signal: number, gamma: number): number {
 export function bt709Encode(linear: number): number {
   checkNumber("bt709Encode", "linear", linear, { unit: "linear light, 0–1" });
   requireFinite("bt709Encode", linear);
-  return odd((l) => (l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099))(linear);
+  const l = linear < 0 ? -linear : linear;
+  const e = l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099;
+  return linear < 0 ? -e : e;
 }
 
 /**
@@ -110,7 +118,9 @@ export function bt709Encode(linear: number): number {
 export function bt709Decode(signal: number): number {
   checkNumber("bt709Decode", "signal", signal, { unit: "encoded signal, 0–1" });
   requireFinite("bt709Decode", signal);
-  return odd((v) => (v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45)))(signal);
+  const v = signal < 0 ? -signal : signal;
+  const l = v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45);
+  return signal < 0 ? -l : l;
 }
 
 /** Screen white and black luminance for the BT.1886 EOTF, in cd/m². */

@@ -11,7 +11,7 @@ import {
 import { lightTristimulus } from "../colorimetry/tristimulus.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { cctOhno, OHNO_RANGE_K } from "./cct-ohno.ts";
+import { cctOhno, OHNO_RANGE_K, tabulatedLocusUv } from "./cct-ohno.ts";
 import { cctRobertson } from "./cct-robertson.ts";
 import { planckianLocusAtReciprocal, planckianNormal } from "./planckian-locus.ts";
 import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
@@ -39,6 +39,10 @@ export const DUV_LIMIT = 0.05;
 const LOCUS_WORDS =
   "The Planckian locus was computed from Planck's law with c2 = 1.4388e-2 m·K and the CIE 1931 2° observer at 1 nm over 360–830 nm, and distances were taken in the CIE 1960 UCS (CIE 015:2018 §9.5).";
 
+// The Methods statements, built once: cctAndDuv runs in loops over many chromaticities.
+const OHNO_WORDS = `Correlated colour temperatures and Duv were computed by Ohno's combined triangular/parabolic method (Ohno 2014, LEUKOS 10:47–55) on a Planckian table in 0.01 % steps from ${OHNO_RANGE_K[0]} K to ${OHNO_RANGE_K[1]} K (cubic in ln T between exact locus points 1 % apart), refined around the nearest point to steps of 0.0001 % for the triangular and 0.001 % for the parabolic solution (so the 1 %-table correction factor 0.99991 was not applied). ${LOCUS_WORDS}`;
+const ROBERTSON_WORDS = `Correlated colour temperatures were computed by Robertson's method (JOSA 58:1528, 1968) on his 31 isotemperature lines (0–600 MK⁻¹), recomputed from the Planckian locus, and Duv as the distance to the locus at that temperature. ${LOCUS_WORDS}`;
+
 function checkXy(xy: Chromaticity, what: string): void {
   if (typeof xy !== "object" || xy === null || !Number.isFinite(xy.x) || !Number.isFinite(xy.y)) {
     throw new Error(`${what}: chromaticity (${xy?.x}, ${xy?.y}) must be two finite numbers`);
@@ -50,9 +54,12 @@ function checkXy(xy: Chromaticity, what: string): void {
   }
 }
 
-/** Duv of a 1960 (u, v) at a temperature: the distance to the locus point, signed by v − v_T (Ohno 2014). */
+/**
+ * Duv of a 1960 (u, v) at a temperature: the distance to the locus point, signed by v − v_T (Ohno 2014); the locus
+ * point from Ohno's fine table where it reaches, else summed.
+ */
 function duvAt(u: number, v: number, cct: number): number {
-  const p = planckianLocusAtReciprocal(1 / cct);
+  const p = tabulatedLocusUv(cct) ?? planckianLocusAtReciprocal(1 / cct);
   return Math.hypot(u - p.u, v - p.v) * Math.sign(v - p.v);
 }
 
@@ -79,17 +86,11 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
   let result: CctResult;
   if (method === "ohno") {
     result = cctOhno(uv);
-    noteMethod(
-      "colour temperature",
-      `Correlated colour temperatures and Duv were computed by Ohno's combined triangular/parabolic method (Ohno 2014, LEUKOS 10:47–55) on a Planckian table in 1 % steps from ${OHNO_RANGE_K[0]} K to ${OHNO_RANGE_K[1]} K, refined around the nearest point to steps of about 0.0003 % (so the 1 %-table correction factor 0.99991 was not applied). ${LOCUS_WORDS}`,
-    );
+    noteMethod("colour temperature", OHNO_WORDS);
   } else if (method === "robertson") {
     const cct = cctRobertson(uv);
     result = { cct, duv: duvAt(uv.u, uv.v, cct) };
-    noteMethod(
-      "colour temperature",
-      `Correlated colour temperatures were computed by Robertson's method (JOSA 58:1528, 1968) on his 31 isotemperature lines (0–600 MK⁻¹), recomputed from the Planckian locus, and Duv as the distance to the locus at that temperature. ${LOCUS_WORDS}`,
-    );
+    noteMethod("colour temperature", ROBERTSON_WORDS);
   } else {
     throw new Error(`cctAndDuv: unknown method "${String(method)}"; use "ohno" or "robertson"`);
   }

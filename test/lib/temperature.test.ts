@@ -13,6 +13,7 @@ import { methodsUsed, resetMethodLog } from "../../lib/methods/method-log.ts";
 import { spectrum } from "../../lib/spectrum/spectrum.ts";
 import { cctAndDuv, cctFromSpectrum, chromaticityAtCct } from "../../lib/temperature/cct.ts";
 import { robertsonLines } from "../../lib/temperature/cct-robertson.ts";
+import { tabulatedLocusUv } from "../../lib/temperature/cct-ohno.ts";
 import {
   planckianChromaticity,
   planckianLocusAtReciprocal,
@@ -125,6 +126,20 @@ describe("Planckian locus", () => {
       expect(p.x).toBeCloseTo(viaSpectrum.x, 10);
       expect(p.y).toBeCloseTo(viaSpectrum.y, 10);
     }
+  });
+
+  it("Ohno's fine table (cubic between exact points 1 % apart) matches the locus summed by Planck's law (property, 1000–100000 K)", () => {
+    fc.assert(
+      fc.property(fc.double({ min: Math.log(1000), max: Math.log(100000), noNaN: true }), (lnT) => {
+        const t = Math.exp(lnT);
+        const tab = tabulatedLocusUv(t)!;
+        const exact = planckianUv(t);
+        expect(Math.abs(tab.u - exact.u)).toBeLessThan(5e-11);
+        expect(Math.abs(tab.v - exact.v)).toBeLessThan(5e-11);
+      }),
+      { numRuns: 200 },
+    );
+    expect(tabulatedLocusUv(500)).toBeUndefined();
   });
 
   it("refuses temperatures that are not finite or below 100 K, naming the value", () => {

@@ -9,6 +9,9 @@ import { crc32, encodePng } from "../../../lib/plot/png-image.ts";
 import { chromaticityFill } from "../../../lib/plot/chromaticity-fill.ts";
 import { spectralLocus } from "../../../lib/plot/spectral-locus.ts";
 import { spectralDisplayColour } from "../../../lib/plot/spectrum-band.ts";
+import { brightDisplayColour } from "../../../lib/plot/display-rgb.ts";
+import { xyFromDiagram, type DiagramSpace } from "../../../lib/plot/chromaticity-space.ts";
+import { chromaticityDiagram } from "../../../lib/plot/chromaticity-diagram.ts";
 import { illuminant } from "../../../lib/illuminants/standard-illuminant.ts";
 import { spectrum } from "../../../lib/spectrum/spectrum.ts";
 
@@ -105,6 +108,113 @@ describe("approximate colour fill of the xy diagram", () => {
   it("is transparent outside the spectral locus", () => {
     expect(pixel(0.7, 0.8)[3]).toBe(0);
     expect(pixel(0.05, 0.02)[3]).toBe(0);
+  });
+});
+
+/**
+ * The fill as it was drawn before it was cached and written with faster compression: every pixel recomputed here,
+ * with the same scanline (even–odd) rule, neighbour seam and colours, for comparison pixel by pixel.
+ */
+function referenceFill(
+  polygon: readonly (readonly [number, number])[],
+  space: DiagramSpace,
+  [x0, x1]: readonly [number, number],
+  [y0, y1]: readonly [number, number],
+  w: number,
+  veil: number,
+): { width: number; height: number; rgba: Uint8Array } {
+  const h = Math.max(16, Math.round((w * (y1 - y0)) / (x1 - x0)));
+  const dx = (x1 - x0) / w,
+    dy = (y1 - y0) / h;
+  const inside = new Uint8Array(w * h);
+  for (let j = 0; j < h; j++) {
+    const b = y1 - (j + 0.5) * dy;
+    const cross: number[] = [];
+    for (let k = 0, l = polygon.length - 1; k < polygon.length; l = k++) {
+      const [xk, yk] = polygon[k]!,
+        [xl, yl] = polygon[l]!;
+      if (yk > b !== yl > b) cross.push(((xl - xk) * (b - yk)) / (yl - yk) + xk);
+    }
+    cross.sort((p, q) => p - q);
+    for (let c = 0; c + 1 < cross.length; c += 2)
+      for (
+        let i = Math.max(0, Math.ceil((cross[c]! - x0) / dx - 0.5));
+        i <= Math.min(w - 1, Math.floor((cross[c + 1]! - x0) / dx - 0.5));
+        i++
+      )
+        inside[j * w + i] = 1;
+  }
+  const rgba = new Uint8Array(w * h * 4);
+  for (let j = 0; j < h; j++)
+    for (let i = 0; i < w; i++) {
+      let near = false;
+      for (let dj = -1; dj <= 1; dj++)
+        for (let di = -1; di <= 1; di++) {
+          const jj = j + dj,
+            ii = i + di;
+          if (jj >= 0 && jj < h && ii >= 0 && ii < w && inside[jj * w + ii]) near = true;
+        }
+      if (!near) continue;
+      let xy;
+      try {
+        xy = xyFromDiagram(x0 + (i + 0.5) * dx, y1 - (j + 0.5) * dy, space);
+      } catch {
+        continue;
+      }
+      if (!(xy.y > 1e-4)) continue;
+      const c = brightDisplayColour({ X: xy.x / xy.y, Y: 1, Z: (1 - xy.x - xy.y) / xy.y });
+      const k = (j * w + i) * 4;
+      for (let n = 0; n < 3; n++) rgba[k + n] = Math.round((c[n]! * (1 - veil) + veil) * 255);
+      rgba[k + 3] = 255;
+    }
+  return { width: w, height: h, rgba };
+}
+
+describe("the fill drawn once per observer, diagram and size", () => {
+  const decode = (source: string) =>
+    decodePng(Buffer.from(source.replace(/^data:image\/png;base64,/, ""), "base64"));
+  it.each([
+    ["2°", "xy", [0, 0.8], [0, 0.9], 360, 0.12],
+    ["10°", "xy", [0, 0.8], [0, 0.9], 200, 0.12],
+    ["2°", "u'v'", [0, 0.65], [0, 0.6], 240, 0],
+    ["2°", "xy", [0.25, 0.45], [0.25, 0.45], 180, 0.3],
+  ] as const)(
+    "%s %s %j × %j at %i px, veil %d: the same pixels as drawn afresh",
+    (obs, space, xr, yr, res, veil) => {
+      const polygon = spectralLocus(obs, space, 380, 780).map((p) => p.at);
+      const first = chromaticityFill(polygon, space, xr, yr, { resolution: res, veil });
+      const again = chromaticityFill(polygon, space, xr, yr, { resolution: res, veil });
+      expect(again).toBe(first); // cached
+      const got = decode(first.source);
+      const want = referenceFill(polygon, space, xr, yr, res, veil);
+      expect([got.width, got.height]).toEqual([want.width, want.height]);
+      expect(Buffer.from(got.rgba).equals(Buffer.from(want.rgba))).toBe(true);
+    },
+  );
+
+  it("draws a new fill when anything it depends on changes", () => {
+    const polygon = spectralLocus("2°", "xy", 380, 780).map((p) => p.at);
+    const base = chromaticityFill(polygon, "xy", [0, 0.8], [0, 0.9], { resolution: 100 });
+    const other = [
+      chromaticityFill(polygon, "xy", [0, 0.8], [0, 0.9], { resolution: 101 }),
+      chromaticityFill(polygon, "xy", [0, 0.8], [0, 0.9], { resolution: 100, veil: 0.2 }),
+      chromaticityFill(polygon, "xy", [0, 0.7], [0, 0.9], { resolution: 100 }),
+      chromaticityFill(
+        spectralLocus("10°", "xy", 380, 780).map((p) => p.at),
+        "xy",
+        [0, 0.8],
+        [0, 0.9],
+        { resolution: 100 },
+      ),
+    ];
+    for (const o of other) expect(o.source).not.toBe(base.source);
+  });
+
+  it("a second diagram of a run carries the very same image as the first", () => {
+    const a = chromaticityDiagram({ observer: "10°", daylight: false });
+    const b = chromaticityDiagram({ observer: "10°", daylight: false, title: "another" });
+    const img = (f: typeof a) => (f.layout.images as { source: string }[])[0]!.source;
+    expect(img(b)).toBe(img(a));
   });
 });
 
