@@ -189,5 +189,6 @@ function messageText(d: Diagnostic): string {
     .flattenDiagnosticMessageText(d.messageText, "\n")
     .replace(/import\("[^"]*__tristim_cell_\d+(?:\.ts)?"\)\./g, "")
     .replace(/import\("[^"]*__tristim_cell_(\d+)(?:\.ts)?"\)/g, "cell $1")
-    .replace(/'?"[^"]*__tristim_notebook_module__(?:\.ts)?"'?/g, '"tristim"');
+    .replace(/"[^"]*__tristim_notebook_module__(?:\.ts)?"/g, '"tristim"')
+    .replace(/'"([^"']+)"'/g, '"$1"');
 }
