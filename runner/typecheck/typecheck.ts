@@ -62,7 +62,7 @@ export interface TypecheckSession {
 /** A new session (one per watch, or per command for several notebooks). */
 export function createTypecheckSession(): TypecheckSession {
   const options = cellCompilerOptions();
-  const base = ts.createCompilerHost(options, true);
+  const base = ts.createCompilerHost(options);
   /** Parsed real files by name, with the modification time they were read at. */
   const parsed = new Map<string, { mtimeMs: number; file: SourceFile }>();
   /** Parsed virtual files by name, with their text. */
@@ -81,7 +81,7 @@ export function createTypecheckSession(): TypecheckSession {
       if (text !== undefined) {
         const known = virtualParsed.get(fileName);
         if (known && known.text === text) return known;
-        const file = ts.createSourceFile(fileName, text, languageVersion, true);
+        const file = ts.createSourceFile(fileName, text, languageVersion);
         virtualParsed.set(fileName, file);
         return file;
       }
