@@ -70,8 +70,20 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
     const { referenceCommand } = await import("../reference/command.ts");
     return (await referenceCommand(rest, { write: io.out })) as ExitCode;
   }
+  if (command === "typecheck" || command === "editor-types") {
+    // Loaded only here: the type check brings in the TypeScript compiler, which run and watch need not load.
+    const run =
+      command === "typecheck"
+        ? (await import("../typecheck/typecheck-command.ts")).typecheckCommand
+        : (await import("../typecheck/editor-types.ts")).editorTypesCommand;
+    const exit = run(rest, io);
+    if (exit === "help") io.out(helpText(toolVersion().version));
+    return exit === "help" ? EXIT.ok : exit;
+  }
   if (command !== "run" && command !== "watch") {
-    throw new UsageError(`unknown command "${command}"; the commands are run, watch, reference and help`);
+    throw new UsageError(
+      `unknown command "${command}"; the commands are run, watch, typecheck, editor-types, reference and help`,
+    );
   }
   const { options, files, help } = parseOptions(rest, command);
   if (help) {
@@ -113,6 +125,8 @@ export function parseOptions(
         port: { type: "string" },
         reproducible: { type: "boolean" },
         each: { type: "string", multiple: true },
+        typecheck: { type: "boolean" },
+        "no-typecheck": { type: "boolean" },
         help: { type: "boolean", short: "h" },
       },
     });
@@ -143,6 +157,10 @@ export function parseOptions(
     throw new UsageError("--each is an option of run, not of watch");
   if (v.reproducible && command !== "run")
     throw new UsageError("--reproducible is an option of run, not of watch");
+  if (v.typecheck && command !== "run")
+    throw new UsageError("--typecheck is an option of run (watch checks unless given --no-typecheck)");
+  if (v["no-typecheck"] && command !== "watch")
+    throw new UsageError("--no-typecheck is an option of watch (run checks only when given --typecheck)");
   if ((v.each?.length ?? 0) > 1)
     throw new UsageError("--each can be given once (one input takes the data files)");
   const each = v.each?.[0] === undefined ? undefined : parseEachArgument(v.each[0]);
@@ -175,6 +193,7 @@ export function parseOptions(
       quiet: v.quiet === true,
       port,
       reproducible: v.reproducible === true,
+      typecheck: command === "watch" ? v["no-typecheck"] !== true : v.typecheck === true,
       ...(each ? { each } : {}),
     },
   };
@@ -189,6 +208,13 @@ export function reportPathFor(notebook: string, output: string | undefined, seve
 }
 
 async function runCommand(files: string[], options: CommandOptions, io: Io): Promise<ExitCode> {
+  if (options.typecheck) {
+    const { typecheckFiles } = await import("../typecheck/typecheck-command.ts");
+    if (typecheckFiles(files, io, { quiet: true }) !== EXIT.ok) {
+      io.err("not run: the type check found errors (run without --typecheck to run anyway)\n");
+      return EXIT.notebookFailed;
+    }
+  }
   if (options.each) {
     if (files.length !== 1)
       throw new UsageError(`--each runs one notebook once per data file; got ${files.length} notebooks`);

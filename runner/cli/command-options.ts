@@ -18,6 +18,8 @@ export interface CommandOptions {
   readonly port: number;
   /** Make reports byte-reproducible (no date, no durations). */
   readonly reproducible: boolean;
+  /** Type-check the cells first: run --typecheck (then no run on errors), watch unless --no-typecheck (banner). */
+  readonly typecheck?: boolean;
   /** Run once per data file: --each name=pattern. */
   readonly each?: EachOption;
 }

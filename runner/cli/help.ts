@@ -12,6 +12,11 @@ Usage:
                                            run one notebook once per data file, one report each
                                            and an index page
   tristim watch <notebook.md> [options]    serve the report on 127.0.0.1, re-run on save
+  tristim typecheck <notebook.md>... [--quiet]
+                                           type-check the cells as a run links them; prints
+                                           notebook.md:line:column: message for each error
+  tristim editor-types <folder>            write tristim-globals.d.ts and tsconfig.json into a notebook
+                                           folder, so editors and tsc check its helper .ts files
   tristim reference [name]                 the library's functions: signature, arguments with units and
                                            defaults, returns, published source, an example
   tristim reference --html <file>          the whole library reference as one HTML page
@@ -39,8 +44,11 @@ Options for run:
                            Reports go to -o <folder> (default <notebook>-reports/ beside the notebook),
                            one per data file named after it, with index.html listing every run.
                            The exit code is the worst over the runs.
+  --typecheck              type-check the cells first; do not run a notebook with type errors
 Options for watch:
   --port <number>          port on 127.0.0.1 (default ${DEFAULT_PORT}; 0 picks a free one)
+  --no-typecheck           do not type-check (by default type errors show in a banner on the page,
+                           and the cells run anyway)
 
 Notebook format:
   A Markdown file (.md). Optional YAML front matter between --- lines: title, author, date, and
@@ -68,8 +76,8 @@ Acceptance checks (shown in place and summarised at the top; a failed one makes 
   Both return true or false.
 
 Exit codes:
-  ${EXIT.ok}  every notebook ran and its report was written
-  ${EXIT.notebookFailed}  a cell failed, or a notebook could not be read or parsed
+  ${EXIT.ok}  every notebook ran and its report was written (typecheck: no type errors)
+  ${EXIT.notebookFailed}  a cell failed, or a notebook could not be read or parsed (typecheck: a type error)
   ${EXIT.usage}  wrong command line (unknown option, bad value, unknown input name)
   ${EXIT.checkFailed}  every cell ran, but an acceptance check failed (check / checkThat)
   With several notebooks the most severe code is returned: ${EXIT.internal}, then ${EXIT.notebookFailed}, then ${EXIT.checkFailed}; a failed cell (${EXIT.notebookFailed})

@@ -31,7 +31,7 @@ export const EVENTS_PATH = "/__tristim/events";
 /** Options of watch mode: the run options that apply to it, plus where to print and how long to wait. */
 export type WatchOptions = Pick<
   CommandOptions,
-  "port" | "output" | "inputs" | "timeLimitMs" | "keepGoing" | "linkAssets" | "quiet"
+  "port" | "output" | "inputs" | "timeLimitMs" | "keepGoing" | "linkAssets" | "quiet" | "typecheck"
 > & {
   readonly io?: Io;
   /** Wait this long after a change before rebuilding (editors write in several steps). */
@@ -97,6 +97,9 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
   /** A file a cell read has changed since the last run, so even a prose-only edit needs a run. */
   let dirtyData = false;
   let timer: NodeJS.Timeout | undefined;
+  /** Type errors as a banner on the page (runner/typecheck/), when asked for; the run goes ahead regardless. */
+  let typeBanner = "";
+  let checkTypes: ((document: NotebookDocument) => string) | undefined;
   const watchers = new Map<string, { watcher: fs.FSWatcher; names: Set<string> }>();
 
   const broadcast = (event: string) => {
@@ -161,11 +164,14 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       } satisfies RenderEvent);
       return;
     }
+    if (options.typecheck)
+      checkTypes ??= (await import("../typecheck/type-error-banner.ts")).watchTypecheck();
     const signature = runSignature(document, inputs, timeLimitMs, options.keepGoing);
     let run: RunRecord;
     let executed: boolean;
     if (lastRun && lastDocument && lastRun.signature === signature && !dirtyData) {
       run = moveRecordsToEdit(lastRun, lastDocument, document);
+      typeBanner = checkTypes?.(document) ?? "";
       executed = false;
     } else {
       broadcast("running");
@@ -173,12 +179,14 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       dirtyData = false;
       current = new AbortController();
       try {
-        run = await runDocument(document, {
+        const running = runDocument(document, {
           inputs: options.inputs,
           timeLimitMs,
           keepGoing: options.keepGoing,
           signal: current.signal,
         });
+        typeBanner = checkTypes?.(document) ?? ""; // checks while the cells run in their own process
+        run = await running;
       } catch (e) {
         if (e instanceof RunCancelled) return;
         throw e;
@@ -261,7 +269,13 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     }
     if (url.pathname === "/" || url.pathname === `/${encodeURIComponent(path.basename(reportPath))}`) {
       res.writeHead(200, { "content-type": "text/html; charset=utf-8", "cache-control": "no-store" });
-      res.end(req.method === "HEAD" ? undefined : html.replace("</body>", `${RELOAD_SCRIPT}\n</body>`));
+      res.end(
+        req.method === "HEAD"
+          ? undefined
+          : html
+              .replace(/<body[^>]*>/, (body) => body + typeBanner)
+              .replace("</body>", `${RELOAD_SCRIPT}\n</body>`),
+      );
       return;
     }
     serveFile(root, req.url ?? "/", req.method === "HEAD", res);
