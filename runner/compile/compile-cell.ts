@@ -9,6 +9,7 @@ import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { codeFrame } from "../text/code-frame.ts";
+import { BANNER } from "../shared/require-banner.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
 import { cellLineRange, type CellSource, type NotebookDocument } from "../parse/notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
@@ -189,9 +190,7 @@ export function compileCells(context: CompileContext): Promise<(CompiledCell | u
 /** Name of the generated entry file that re-exports a cell's imports (never shown to the user). */
 const IMPORTS_ENTRY = "__tristim_cell_imports__.js";
 
-/** Lets CommonJS packages call require() from the ESM bundle. */
-export const BANNER =
-  'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);';
+export { BANNER };
 
 /** Resolves "tristim" to the run's library module, kept external so all cells share one instance. */
 export function tristimExternal(modulePath: string): esbuild.Plugin {
