@@ -112,6 +112,13 @@ export class CellProcess {
     spares().set(key, cell);
   }
 
+  /** Stops the spare cell process waiting for notebooks in `folder`, if any (watch mode, when it stops). */
+  static discardSpare(folder: string): void {
+    for (const [key, cell] of spares()) {
+      if (key.endsWith(`\0${path.resolve(folder)}`)) (cell.kill(), spares().delete(key));
+    }
+  }
+
   /** Keeps the runner's event loop alive for this process (or not, while it waits as a spare); for this module. */
   setHeld(held: boolean): void {
     const handles = [this.child, this.child.channel, this.child.stdout, this.child.stderr] as (

@@ -19,7 +19,7 @@ import { renderReport } from "../report/render-report.ts";
 import { moveRecordsToEdit } from "../records/rerender.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument, runSignature } from "../execute/run-notebook.ts";
-import { RunCancelled } from "../execute/cell-process.ts";
+import { CellProcess, RunCancelled } from "../execute/cell-process.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
 import type { CommandOptions, Io } from "../cli/command-options.ts";
 
@@ -178,6 +178,8 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
           timeLimitMs,
           keepGoing: options.keepGoing,
           signal: current.signal,
+          // The next edit's run starts in a cell process readied while this one is shown.
+          prepareNext: true,
         });
       } catch (e) {
         if (e instanceof RunCancelled) return;
@@ -295,6 +297,7 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       clients.clear();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await building;
+      CellProcess.discardSpare(path.dirname(notebookPath));
     },
   };
 }
