@@ -87,6 +87,8 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
   const events = new EventEmitter();
   const clients = new Set<http.ServerResponse>();
   const timeLimitMs = options.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS;
+  let servedFor: string | undefined;
+  let served = Buffer.alloc(0);
   let html = pageMessage("Running the notebook…", "The report appears here when the first run finishes.");
   let lastRun: RunRecord | undefined;
   let lastDocument: NotebookDocument | undefined;
@@ -233,7 +235,7 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
 
   function schedule(): void {
     clearTimeout(timer);
-    timer = setTimeout(rebuild, options.debounceMs ?? 80);
+    timer = setTimeout(rebuild, options.debounceMs ?? 40);
   }
 
   const server = http.createServer((req, res) => {
@@ -263,7 +265,10 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     }
     if (url.pathname === "/" || url.pathname === `/${encodeURIComponent(path.basename(reportPath))}`) {
       res.writeHead(200, { "content-type": "text/html; charset=utf-8", "cache-control": "no-store" });
-      res.end(req.method === "HEAD" ? undefined : html.replace("</body>", `${RELOAD_SCRIPT}\n</body>`));
+      // The page with its reload script is encoded once per rendering, not per request (a report is ~5 MB).
+      if (servedFor !== html)
+        ((served = Buffer.from(html.replace("</body>", `${RELOAD_SCRIPT}\n</body>`))), (servedFor = html));
+      res.end(req.method === "HEAD" ? undefined : served);
       return;
     }
     serveFile(root, req.url ?? "/", req.method === "HEAD", res);
