@@ -84,8 +84,11 @@ export type FromCellProcess =
 export interface CellRuntime {
   /** Makes sure each shared name exists as a writable global before the cell assigns it. */
   declare(names: readonly string[]): void;
-  /** Makes each [name, get, set] a global accessor of the cell's own binding, for the cells after it. */
-  link(bindings: readonly (readonly [string, () => unknown, (value: unknown) => void])[]): void;
+  /**
+   * Makes each [name, get, set] a global accessor of the cell's own binding, for the cells after it; a binding marked
+   * constant (a fourth element 1, for `const`) becomes a read-only value when the cell has finished.
+   */
+  link(bindings: readonly (readonly [string, () => unknown, (value: unknown) => void, 1?])[]): void;
   /** The namespace of the cell's import number `i` (loaded before the cell runs). */
   imported(i: number): Record<string, unknown>;
   /** The "tristim" module namespace. */

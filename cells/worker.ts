@@ -210,13 +210,19 @@ function toRawError(error: unknown, failure: FailureKind): RawError {
 // --- running a cell -------------------------------------------------------------------------------------------------
 const notebookRequire = () => createRequire(path.join(state.notebookDir, "noop.js"));
 
-function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRuntime {
+/** A cell's runtime, and its `const` bindings (name, read) to freeze when it has finished. */
+type CellRuntimeWithConstants = CellRuntime & { readonly constants: [string, () => unknown][] };
+
+function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRuntimeWithConstants {
+  const constants: [string, () => unknown][] = [];
   return {
+    constants,
     declare(names) {
       for (const name of names) declareGlobal(name);
     },
     link(bindings) {
-      for (const [name, get, set] of bindings) {
+      for (const [name, get, set, constant] of bindings) {
+        if (constant) constants.push([name, get]);
         const d = Object.getOwnPropertyDescriptor(globalThis, name);
         if (d && !d.configurable) {
           throw new TypeError(
@@ -288,6 +294,24 @@ function declareGlobal(name: string): void {
   });
 }
 
+/**
+ * After a cell: each of its `const` bindings that was initialised becomes a read-only global value (it can never
+ * change again), so later cells read it as fast as a module-level constant instead of through an accessor. One not
+ * initialised (the cell failed first) keeps its accessor, which throws as the binding would. A later cell may still
+ * declare the name again (the property stays configurable); assigning to it throws in strict code, as for a const.
+ */
+function freezeConstants(runtime: CellRuntimeWithConstants | undefined): void {
+  for (const [name, get] of runtime?.constants ?? []) {
+    let value: unknown;
+    try {
+      value = get();
+    } catch {
+      continue;
+    }
+    Object.defineProperty(globalThis, name, { value, writable: false, configurable: true, enumerable: true });
+  }
+}
+
 /** Run step: one cell, its output and reads collected, then "done" with the method log so far. */
 async function runCell(message: RunCellMessage): Promise<void> {
   state.currentCell = message.cell;
@@ -299,6 +323,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
   failed.catch(() => undefined);
   const started = performance.now();
   let error: RawError | undefined;
+  let runtime: CellRuntimeWithConstants | undefined;
   try {
     let namespaces: Record<string, Record<string, unknown>> = {};
     if (message.importBundle) {
@@ -315,7 +340,8 @@ async function runCell(message: RunCellMessage): Promise<void> {
     const fn = vm.runInThisContext(message.code, { filename: message.filename }) as (
       rt: CellRuntime,
     ) => Promise<unknown>;
-    const value = await Promise.race([fn(runtimeFor(namespaces)), failed]);
+    runtime = runtimeFor(namespaces);
+    const value = await Promise.race([fn(runtime), failed]);
     if (value !== undefined) show(value);
     // Let rejections nobody handled surface now, so they count against this cell.
     await Promise.race([new Promise((resolve) => setImmediate(resolve)), failed]);
@@ -327,6 +353,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
   }
   const durationMs = performance.now() - started;
   state.failCurrentCell = null;
+  freezeConstants(runtime);
   const records = state.output.finish();
   if (records.length > 0) send({ type: "output", cell: message.cell, records });
   send({

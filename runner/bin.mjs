@@ -11,10 +11,13 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 
-async function loadCli() {
+async function loadCli(argv) {
   if (process.env.TRISTIM_TSX !== "1") {
     try {
-      return await import(pathToFileURL(await cachedBundle()).href);
+      const bundles = await cachedBundle();
+      // `run` starts its cell process first (early-start.ts), then loads the rest of the CLI.
+      if (argv[0] === "run") await (await import(pathToFileURL(bundles.early).href)).startEarly(argv);
+      return await import(pathToFileURL(bundles.cli).href);
     } catch (error) {
       if (process.env.TRISTIM_DEBUG) console.error("tristim: bundled start failed, using tsx:", error);
     }
@@ -24,7 +27,7 @@ async function loadCli() {
   return import("./cli/cli.ts");
 }
 
-/** Path of the bundled CLI for the current sources, building it when missing. */
+/** Paths of the bundled CLI (and its early start) for the current sources, building them when missing. */
 async function cachedBundle() {
   const hash = createHash("sha256").update(process.version);
   const walk = (dir) => {
@@ -48,28 +51,42 @@ async function cachedBundle() {
     } catch {}
   }
   const folder = path.join(root, "node_modules", ".cache", "tristim");
-  const file = path.join(folder, `cli-${hash.digest("hex").slice(0, 16)}.mjs`);
-  if (fs.existsSync(file)) return file;
+  const file = path.join(folder, `cli-${hash.digest("hex").slice(0, 16)}`);
+  const bundles = { cli: path.join(file, "cli.mjs"), early: path.join(file, "early-start.mjs") };
+  if (fs.existsSync(bundles.cli)) return bundles;
   const esbuild = await import("esbuild");
   fs.mkdirSync(folder, { recursive: true });
   const temporary = `${file}.${process.pid}.tmp`;
+  // The CLI's npm dependencies (markdown-it, yaml, highlight.js, acorn) are bundled in: node loads one file instead
+  // of hundreds. esbuild stays external (it runs its own binary).
   await esbuild.build({
-    entryPoints: [path.join(root, "runner", "cli", "cli.ts")],
+    entryPoints: [
+      path.join(root, "runner", "cli", "cli.ts"),
+      path.join(root, "runner", "cli", "early-start.ts"),
+    ],
     bundle: true,
-    packages: "external",
+    external: ["esbuild"],
     platform: "node",
     format: "esm",
     target: "node20",
-    outfile: temporary,
+    outdir: temporary,
+    outExtension: { ".js": ".mjs" },
     logLevel: "silent",
+    banner: {
+      js: 'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);',
+    },
     plugins: [keepModuleUrls],
   });
-  fs.renameSync(temporary, file);
+  try {
+    fs.renameSync(temporary, file);
+  } catch {
+    fs.rmSync(temporary, { recursive: true, force: true }); // another start built the same bundles
+  }
   for (const old of fs.readdirSync(folder)) {
     if (old.startsWith("cli-") && path.join(folder, old) !== file)
-      fs.rmSync(path.join(folder, old), { force: true });
+      fs.rmSync(path.join(folder, old), { recursive: true, force: true });
   }
-  return file;
+  return bundles;
 }
 
 /** Each source file keeps its own import.meta.url (the runner finds report.css and the package root with it). */
@@ -85,5 +102,11 @@ const keepModuleUrls = {
   },
 };
 
-const { main } = await loadCli();
-process.exitCode = await main(process.argv.slice(2));
+const argv = process.argv.slice(2);
+if (argv.length === 1 && (argv[0] === "--version" || argv[0] === "-v")) {
+  // Answered before anything else is loaded (the CLI's main gives the same answer).
+  process.stdout.write(`${JSON.parse(fs.readFileSync(path.join(root, "package.json"), "utf8")).version}\n`);
+} else {
+  const { main } = await loadCli(argv);
+  process.exitCode = await main(argv);
+}

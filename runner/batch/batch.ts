@@ -29,6 +29,14 @@ export interface BatchRunPlace {
   readonly error?: string;
 }
 
+/** One finished run of a batch, waiting to be taken in the order of the files. */
+interface BatchRunResult {
+  readonly run: RunRecord;
+  readonly place: BatchRunPlace;
+  readonly code: ExitCode;
+  readonly entry: BatchEntry;
+}
+
 /** A batch as given on the command line. */
 export interface EachOption {
   readonly input: string;
@@ -43,6 +51,8 @@ export interface BatchOptions {
   readonly keepGoing: boolean;
   readonly linkAssets: boolean;
   readonly reproducible: boolean;
+  /** How many runs go at the same time (default 1); the results are taken in the order of the files all the same. */
+  readonly jobs?: number;
   /** The working folder the pattern is relative to. */
   readonly cwd: string;
   /** Called after each run (for the terminal); `report` is absent and `error` set when the report could not be written. */
@@ -118,7 +128,35 @@ export async function runBatch(
   const notebookDir = path.dirname(document.path);
   let exit: ExitCode = EXIT.ok;
   const entries: BatchEntry[] = [];
-  for (const [i, file] of files.entries()) {
+  // Runs go `jobs` at a time, each in a cell process of its own (a spare one is readied for the next run while a
+  // run goes on); their results are taken strictly in the order of the files, so the messages, the index and every
+  // report are those of a run one at a time.
+  const finished: (BatchRunResult | undefined)[] = files.map(() => undefined);
+  let taken = 0;
+  const takeInOrder = () => {
+    for (let result = finished[taken]; result; result = finished[taken]) {
+      finished[taken++] = undefined;
+      options.onRun?.(result.run, result.place);
+      exit = worseExit(exit, result.code);
+      entries.push(result.entry);
+    }
+  };
+  let next = 0;
+  let failure: { error: unknown } | undefined;
+  const worker = async () => {
+    while (next < files.length && !failure) {
+      const i = next++;
+      try {
+        finished[i] = await runOne(i);
+      } catch (error) {
+        failure ??= { error };
+        return;
+      }
+      takeInOrder();
+    }
+  };
+  const runOne = async (i: number): Promise<BatchRunResult> => {
+    const file = files[i]!;
     const dataFile = pathForNotebook(file, notebookDir);
     const sha256 = createHash("sha256").update(fs.readFileSync(file)).digest("hex");
     const run = await runDocument(document, {
@@ -127,6 +165,7 @@ export async function runBatch(
       keepGoing: options.keepGoing,
       reproducible: options.reproducible,
       batch: { input: each.input, pattern: each.pattern, position: i + 1, count: files.length },
+      prepareNext: i + 1 < files.length,
     });
     const name = names.get(file)!;
     let report: string | undefined = name;
@@ -138,16 +177,18 @@ export async function runBatch(
       error = (e as Error).message;
     }
     const code = report ? runExitCode(run) : EXIT.internal;
-    options.onRun?.(run, {
+    const place: BatchRunPlace = {
       position: i + 1,
       count: files.length,
       dataFile,
       ...(report ? { report: path.join(folder, name) } : {}),
       ...(error ? { error } : {}),
-    });
-    exit = worseExit(exit, code);
-    entries.push(batchEntry(run, dataFile, sha256, report, code));
-  }
+    };
+    return { run, place, code, entry: batchEntry(run, dataFile, sha256, report, code) };
+  };
+  const jobs = Math.max(1, Math.min(options.jobs ?? 1, files.length));
+  await Promise.all(Array.from({ length: jobs }, worker));
+  if (failure) throw failure.error;
   const tool = toolVersion();
   const record: BatchRecord = {
     notebook: { path: document.path, sha256: document.sha256, title: reportTitle(document) },

@@ -3,6 +3,7 @@
  * (exit-codes.ts); only an internal error mentions the runner's own code, and its stack only with TRISTIM_DEBUG=1.
  */
 import fs from "node:fs";
+import os from "node:os";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import type { ErrorRecord } from "../../cells/records.ts";
@@ -127,6 +128,7 @@ export function parseOptions(
         each: { type: "string", multiple: true },
         typecheck: { type: "boolean" },
         "no-typecheck": { type: "boolean" },
+        jobs: { type: "string" },
         help: { type: "boolean", short: "h" },
       },
     });
@@ -164,6 +166,9 @@ export function parseOptions(
   if ((v.each?.length ?? 0) > 1)
     throw new UsageError("--each can be given once (one input takes the data files)");
   const each = v.each?.[0] === undefined ? undefined : parseEachArgument(v.each[0]);
+  if (v.jobs !== undefined && each === undefined)
+    throw new UsageError("--jobs is an option of run --each (it sets how many of its runs go at once)");
+  const jobs = v.jobs === undefined ? undefined : parseJobs(v.jobs);
   const inputs: Record<string, string> = {};
   for (const argument of v.input ?? []) {
     const [name, value] = parseInputArgument(argument);
@@ -195,8 +200,19 @@ export function parseOptions(
       reproducible: v.reproducible === true,
       typecheck: command === "watch" ? v["no-typecheck"] !== true : v.typecheck === true,
       ...(each ? { each } : {}),
+      ...(jobs !== undefined ? { jobs } : {}),
     },
   };
+}
+
+/** Reads --jobs: a whole number of runs at the same time, at least 1. */
+function parseJobs(text: string): number {
+  const jobs = Number(text);
+  if (!/^\d+$/.test(text.trim()) || !Number.isSafeInteger(jobs) || jobs < 1)
+    throw new UsageError(
+      `--jobs expects how many runs go at the same time, a whole number from 1, got "${text}"`,
+    );
+  return jobs;
 }
 
 /** Where the report of `notebook` goes, given -o and the number of notebooks. */
@@ -276,6 +292,7 @@ async function eachCommand(
   resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
   const { exit, index, entries } = await runBatch(document, each, {
     ...options,
+    jobs: options.jobs ?? os.availableParallelism(),
     cwd: process.cwd(),
     onRun: (run, place) => {
       const label = `${shown(document.path)} [${place.position}/${place.count} ${each.input}=${place.dataFile}]`;

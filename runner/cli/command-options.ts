@@ -22,4 +22,6 @@ export interface CommandOptions {
   readonly typecheck?: boolean;
   /** Run once per data file: --each name=pattern. */
   readonly each?: EachOption;
+  /** With --each: how many runs at the same time (--jobs; default the number of cores). */
+  readonly jobs?: number;
 }

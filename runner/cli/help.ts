@@ -45,6 +45,9 @@ Options for run:
                            one per data file named after it, with index.html listing every run.
                            The exit code is the worst over the runs.
   --typecheck              type-check the cells first; do not run a notebook with type errors
+  --jobs <n>               with --each: how many runs go at the same time (default: the number of
+                           cores); each run has its own cell process, and the output is the same as
+                           one at a time (reports, index and messages in the order of the files)
 Options for watch:
   --port <number>          port on 127.0.0.1 (default ${DEFAULT_PORT}; 0 picks a free one)
   --no-typecheck           do not type-check (by default type errors show in a banner on the page,

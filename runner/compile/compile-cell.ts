@@ -9,6 +9,7 @@ import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { codeFrame } from "../text/code-frame.ts";
+import { BANNER } from "../shared/require-banner.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
 import { cellLineRange, type CellSource, type NotebookDocument } from "../parse/notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
@@ -24,6 +25,8 @@ export interface CompiledCell {
   readonly importBundle?: string;
   /** Absolute paths of the notebook's own files bundled for the cell's imports (not npm packages), for provenance. */
   readonly importedFiles?: readonly string[];
+  /** The modules the cell imports besides "tristim" (as written), when it has any. */
+  readonly imports?: readonly string[];
   readonly sharedNames: readonly string[];
   readonly positions?: CellPositions;
   readonly failure?: ErrorRecord;
@@ -44,7 +47,11 @@ export function cellFilename(index: number): string {
 }
 
 /** Compiles one cell; never throws for problems in the cell (they come back as `failure`). */
-export async function compileCell(cell: CellSource, context: CompileContext): Promise<CompiledCell> {
+export async function compileCell(
+  cell: CellSource,
+  context: CompileContext,
+  options: { readonly deferImports?: boolean } = {},
+): Promise<CompiledCell> {
   const filename = cellFilename(cell.index);
   const { document } = context;
   let js: string;
@@ -103,95 +110,206 @@ export async function compileCell(cell: CellSource, context: CompileContext): Pr
     code: hoisted.code,
   };
 
-  let importBundle: string | undefined;
-  let importedFiles: string[] | undefined;
-  if (hoisted.imports.length > 0) {
-    importBundle = path.join(context.outDir, `cell-${cell.index + 1}-imports.mjs`);
-    const entry = hoisted.imports
-      .map((imp, i) => `export * as m${i} from ${JSON.stringify(imp.specifier)};`)
-      .join("\n");
-    try {
-      const built = await esbuild.build({
-        stdin: {
-          contents: entry,
-          resolveDir: path.dirname(document.path),
-          sourcefile: IMPORTS_ENTRY,
-          loader: "js",
-        },
-        bundle: true,
-        platform: "node",
-        format: "esm",
-        target: "node20",
-        outfile: importBundle,
-        sourcemap: "linked",
-        logLevel: "silent",
-        banner: { js: BANNER },
-        plugins: [tristimExternal(context.tristimModule)],
-        metafile: true,
-      });
-      importedFiles = Object.keys(built.metafile?.inputs ?? {})
-        .filter(
-          (f) =>
-            f !== "<stdin>" &&
-            !f.includes(IMPORTS_ENTRY) &&
-            !/(^|[/\\])node_modules[/\\]/.test(f) &&
-            !f.includes(":"),
-        )
-        .map((f) => path.resolve(f));
-    } catch (e) {
-      const message = (e as esbuild.BuildFailure).errors?.[0];
-      if (!message) throw e;
-      const loc = message.location;
-      if (loc && path.basename(loc.file) !== IMPORTS_ENTRY && loc.file !== "<stdin>") {
-        const file = path.resolve(loc.file);
-        return {
-          index: cell.index,
-          filename,
-          sharedNames: [],
-          failure: {
-            kind: "error",
-            failure: "compile",
-            message: `in a file the cell imports: ${message.text}`,
-            location: { file, line: loc.line, column: loc.column + 1 },
-            codeFrame: loc.lineText ? `> ${loc.line} | ${loc.lineText}` : undefined,
-          },
-        };
-      }
-      const which = loc ? Math.min(loc.line - 1, hoisted.imports.length - 1) : 0;
-      const at = jsOffsetToCellPosition(js, map, hoisted.imports[which]!.start);
-      const text = message.text.replace(/\s*$/, "") + importHint(message.text);
-      return {
-        index: cell.index,
-        filename,
-        sharedNames: [],
-        failure: compileFailure(text, document, cell.firstLine + at.line - 1, cell.columnOffset + at.column),
-      };
-    }
+  if (hoisted.imports.length > 0 && !options.deferImports) {
+    const bundled = await bundleCellImports(cell, hoisted, positions, context);
+    if ("failure" in bundled)
+      return { index: cell.index, filename, sharedNames: [], failure: bundled.failure };
+    return compiledCell(cell, hoisted, positions, bundled);
   }
+  return compiledCell(cell, hoisted, positions, {});
+}
+
+function compiledCell(
+  cell: CellSource,
+  hoisted: HoistedCell,
+  positions: CellPositions,
+  imports: { importBundle?: string; importedFiles?: readonly string[] },
+): CompiledCell {
   return {
     index: cell.index,
     code: hoisted.code,
-    filename,
-    importBundle,
+    filename: cellFilename(cell.index),
+    importBundle: imports.importBundle,
     sharedNames: hoisted.sharedNames,
     positions,
-    ...(importedFiles?.length ? { importedFiles } : {}),
+    ...(imports.importedFiles?.length ? { importedFiles: imports.importedFiles } : {}),
+    ...(hoisted.imports.length ? { imports: hoisted.imports.map((i) => i.specifier) } : {}),
   };
 }
 
-/** Compiles every cell to run, all at once (esbuild works on them in parallel); `no-run` cells give undefined. */
-export function compileCells(context: CompileContext): Promise<(CompiledCell | undefined)[]> {
+/** The entry module of a cell's import bundle: re-exports each imported module as m0, m1, … */
+function importsEntry(specifiers: readonly string[]): string {
+  return specifiers.map((spec, i) => `export * as m${i} from ${JSON.stringify(spec)};`).join("\n");
+}
+
+function importBundlePath(cell: CellSource, context: CompileContext): string {
+  return path.join(context.outDir, `cell-${cell.index + 1}-imports.mjs`);
+}
+
+/** The notebook's own files among esbuild's inputs (not npm packages, not the generated entry). */
+function ownFiles(inputs: readonly string[]): string[] {
+  return inputs
+    .filter(
+      (f) =>
+        f !== "<stdin>" &&
+        !f.includes(IMPORTS_ENTRY) &&
+        !/(^|[/\\])node_modules[/\\]/.test(f) &&
+        !f.includes(":"),
+    )
+    .map((f) => path.resolve(f));
+}
+
+/** Bundles one cell's imports on its own; a failure names the cell's import line (or the imported file's). */
+async function bundleCellImports(
+  cell: CellSource,
+  hoisted: HoistedCell,
+  positions: CellPositions,
+  context: CompileContext,
+): Promise<{ importBundle: string; importedFiles: string[] } | { failure: ErrorRecord }> {
+  const { document } = context;
+  const { js, map } = positions;
+  const importBundle = importBundlePath(cell, context);
+  const entry = importsEntry(hoisted.imports.map((i) => i.specifier));
+  try {
+    const built = await esbuild.build({
+      stdin: {
+        contents: entry,
+        resolveDir: path.dirname(document.path),
+        sourcefile: IMPORTS_ENTRY,
+        loader: "js",
+      },
+      bundle: true,
+      platform: "node",
+      format: "esm",
+      target: "node20",
+      outfile: importBundle,
+      sourcemap: "linked",
+      logLevel: "silent",
+      banner: { js: BANNER },
+      plugins: [tristimExternal(context.tristimModule)],
+      metafile: true,
+    });
+    return { importBundle, importedFiles: ownFiles(Object.keys(built.metafile?.inputs ?? {})) };
+  } catch (e) {
+    const message = (e as esbuild.BuildFailure).errors?.[0];
+    if (!message) throw e;
+    const loc = message.location;
+    if (loc && path.basename(loc.file) !== IMPORTS_ENTRY && loc.file !== "<stdin>") {
+      const file = path.resolve(loc.file);
+      return {
+        failure: {
+          kind: "error",
+          failure: "compile",
+          message: `in a file the cell imports: ${message.text}`,
+          location: { file, line: loc.line, column: loc.column + 1 },
+          codeFrame: loc.lineText ? `> ${loc.line} | ${loc.lineText}` : undefined,
+        },
+      };
+    }
+    const which = loc ? Math.min(loc.line - 1, hoisted.imports.length - 1) : 0;
+    const at = jsOffsetToCellPosition(js, map, hoisted.imports[which]!.start);
+    const text = message.text.replace(/\s*$/, "") + importHint(message.text);
+    return {
+      failure: compileFailure(text, document, cell.firstLine + at.line - 1, cell.columnOffset + at.column),
+    };
+  }
+}
+
+/**
+ * Bundles the imports of several cells in one esbuild build (one entry and one output per cell, as separate as
+ * per-cell builds: no module is shared between cells' bundles). Undefined when the build fails; the caller then
+ * bundles cell by cell, which names the failing cell and line.
+ */
+async function bundleAllImports(
+  cells: readonly { cell: CellSource; specifiers: readonly string[] }[],
+  context: CompileContext,
+): Promise<Map<number, { importBundle: string; importedFiles: string[] }> | undefined> {
+  const entries = new Map(cells.map((c) => [`cell-${c.cell.index + 1}-imports`, c]));
+  const resolveDir = path.dirname(context.document.path);
+  let built: esbuild.BuildResult<{ metafile: true }>;
+  try {
+    built = await esbuild.build({
+      entryPoints: [...entries.keys()].map((name) => ({ in: `${ENTRY_NAMESPACE}:${name}`, out: name })),
+      bundle: true,
+      platform: "node",
+      format: "esm",
+      target: "node20",
+      outdir: context.outDir,
+      outExtension: { ".js": ".mjs" },
+      sourcemap: "linked",
+      logLevel: "silent",
+      banner: { js: BANNER },
+      plugins: [
+        tristimExternal(context.tristimModule),
+        {
+          name: "tristim-cell-imports",
+          setup(build) {
+            build.onResolve({ filter: new RegExp(`^${ENTRY_NAMESPACE}:`) }, (args) => ({
+              path: args.path.slice(ENTRY_NAMESPACE.length + 1),
+              namespace: ENTRY_NAMESPACE,
+            }));
+            build.onLoad({ filter: /.*/, namespace: ENTRY_NAMESPACE }, (args) => ({
+              contents: importsEntry(entries.get(args.path)!.specifiers),
+              resolveDir,
+              loader: "js",
+            }));
+          },
+        },
+      ],
+      metafile: true,
+    });
+  } catch (e) {
+    if ((e as esbuild.BuildFailure).errors?.length) return undefined;
+    throw e;
+  }
+  const result = new Map<number, { importBundle: string; importedFiles: string[] }>();
+  for (const [output, meta] of Object.entries(built.metafile.outputs)) {
+    if (!meta.entryPoint) continue;
+    const name = meta.entryPoint.slice(meta.entryPoint.indexOf(":") + 1);
+    const entry = entries.get(name);
+    if (!entry) continue;
+    result.set(entry.cell.index, {
+      importBundle: path.resolve(output),
+      importedFiles: ownFiles(Object.keys(meta.inputs)),
+    });
+  }
+  return result.size === entries.size ? result : undefined;
+}
+
+/** esbuild namespace of the generated entries of the one-build import bundles. */
+const ENTRY_NAMESPACE = "tristim-cell-imports";
+
+/**
+ * Compiles every cell to run, all at once (esbuild works on them in parallel); `no-run` cells give undefined. The
+ * imports of all cells are bundled in one esbuild build (one output per cell); if that build fails, the cells with
+ * imports are bundled one by one so that the error names its cell.
+ */
+export async function compileCells(context: CompileContext): Promise<(CompiledCell | undefined)[]> {
+  const { cells } = context.document;
+  const compiled = await Promise.all(
+    cells.map((c) => (c.options.noRun ? undefined : compileCell(c, context, { deferImports: true }))),
+  );
+  const withImports = compiled.filter(
+    (c): c is CompiledCell & { imports: string[] } => !!c?.imports && !c.failure,
+  );
+  if (withImports.length === 0) return compiled;
+  const all = await bundleAllImports(
+    withImports.map((c) => ({ cell: cells[c.index]!, specifiers: c.imports })),
+    context,
+  );
   return Promise.all(
-    context.document.cells.map((c) => (c.options.noRun ? undefined : compileCell(c, context))),
+    compiled.map(async (c) => {
+      if (!c?.imports || c.failure) return c;
+      if (all) return { ...c, ...all.get(c.index)! };
+      return compileCell(cells[c.index]!, context);
+    }),
   );
 }
 
 /** Name of the generated entry file that re-exports a cell's imports (never shown to the user). */
 const IMPORTS_ENTRY = "__tristim_cell_imports__.js";
 
-/** Lets CommonJS packages call require() from the ESM bundle. */
-export const BANNER =
-  'import { createRequire as __tristimRequire } from "node:module"; const require = __tristimRequire(import.meta.url);';
+export { BANNER };
 
 /** Resolves "tristim" to the run's library module, kept external so all cells share one instance. */
 export function tristimExternal(modulePath: string): esbuild.Plugin {

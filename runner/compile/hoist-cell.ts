@@ -69,6 +69,7 @@ export function hoistCell(js: string): HoistedCell {
   const edits: Edit[] = [];
   const shared = new Set<string>();
   const linked = new Set<string>();
+  const constants = new Set<string>();
   const imports: CellImport[] = [];
   const R = RUNTIME_PARAMETER;
   const body = program.body;
@@ -92,11 +93,16 @@ export function hoistCell(js: string): HoistedCell {
         break;
       case "VariableDeclaration":
         for (const d of node.declarations as AnyNode[])
-          for (const name of patternNames(d.id as AnyNode)) linked.add(name);
+          for (const name of patternNames(d.id as AnyNode)) {
+            linked.add(name);
+            if (node.kind === "const") constants.add(name);
+            else constants.delete(name);
+          }
         break;
       case "FunctionDeclaration":
       case "ClassDeclaration":
         linked.add((node.id as AnyNode).name as string);
+        constants.delete((node.id as AnyNode).name as string);
         break;
       case "ExpressionStatement":
         if (i === body.length - 1 && !isCheckCall(node.expression as AnyNode)) {
@@ -118,7 +124,11 @@ export function hoistCell(js: string): HoistedCell {
   });
 
   for (const name of linked) shared.delete(name);
-  const links = [...linked].map((n) => `[${JSON.stringify(n)}, () => ${n}, (v) => { ${n} = v; }]`);
+  // A `const` is marked (1): once the cell has finished, its value can never change, so the cell process turns its
+  // global into a plain read-only value, which later cells read at the speed of a module-level constant.
+  const links = [...linked].map(
+    (n) => `[${JSON.stringify(n)}, () => ${n}, (v) => { ${n} = v; }${constants.has(n) ? ", 1" : ""}]`,
+  );
   const prologue =
     `(async function (${R}) { "use strict"; ` +
     (shared.size ? `${R}.declare(${JSON.stringify([...shared])}); ` : "") +

@@ -40,9 +40,9 @@ export class CellProcess {
   /** Receives the records of running cells (set by whoever runs the cells). */
   onOutput: (cell: number, records: readonly OutputRecord[]) => void = () => undefined;
 
-  private constructor(runtime: RuntimeBundle, notebookPath: string) {
+  private constructor(runtime: RuntimeBundle, folder: string) {
     this.child = spawn(process.execPath, [runtime.worker], {
-      cwd: path.dirname(notebookPath),
+      cwd: folder,
       stdio: ["ignore", "pipe", "pipe", "ipc"],
       env: { ...process.env, NODE_NO_WARNINGS: "1" },
     });
@@ -74,7 +74,8 @@ export class CellProcess {
     inputs: Readonly<Record<string, InputValue>>,
     signal?: AbortSignal,
   ): Promise<CellProcess> {
-    const cell = new CellProcess(runtime, notebookPath);
+    const cell =
+      takeSpare(runtime, path.dirname(notebookPath)) ?? new CellProcess(runtime, path.dirname(notebookPath));
     cell.send({ type: "init", notebookPath, inputs });
     const answer = await cell.wait(
       (m) => m.type === "ready" || m.type === "startup-failed",
@@ -95,6 +96,35 @@ export class CellProcess {
       throw new CellProcessStartError(answer.error);
     }
     return cell;
+  }
+
+  /**
+   * Starts a spare cell process for notebooks in `folder` ahead of time: node boots and loads the library while the
+   * runner does other work, and the next `start` for that folder takes it (it has run nothing, so each run still
+   * gets a process of its own). A spare does not keep the runner alive and dies with it.
+   */
+  static prepare(runtime: RuntimeBundle, folder: string): void {
+    const key = spareKey(runtime, folder);
+    const waiting = spares().get(key);
+    if (waiting?.alive) return;
+    const cell = new CellProcess(runtime, folder);
+    cell.setHeld(false);
+    spares().set(key, cell);
+  }
+
+  /** Stops the spare cell process waiting for notebooks in `folder`, if any (watch mode, when it stops). */
+  static discardSpare(folder: string): void {
+    for (const [key, cell] of spares()) {
+      if (key.endsWith(`\0${path.resolve(folder)}`)) (cell.kill(), spares().delete(key));
+    }
+  }
+
+  /** Keeps the runner's event loop alive for this process (or not, while it waits as a spare); for this module. */
+  setHeld(held: boolean): void {
+    const handles = [this.child, this.child.channel, this.child.stdout, this.child.stderr] as (
+      { ref?: () => void; unref?: () => void } | null | undefined
+    )[];
+    for (const h of handles) (held ? h?.ref : h?.unref)?.call(h);
   }
 
   /** Runs one compiled cell with a time limit. */
@@ -190,6 +220,34 @@ export class CellProcess {
       else if (this.exited) onExit();
     });
   }
+}
+
+/** The spare cell processes of this runner process, by worker and folder (shared by every copy of this module). */
+function spares(): Map<string, CellProcess> {
+  const registry = globalThis as Record<symbol, unknown>;
+  const key = Symbol.for("tristim.spare-cell-processes");
+  if (!registry[key]) {
+    const pool = new Map<string, CellProcess>();
+    registry[key] = pool;
+    process.once("exit", () => {
+      for (const cell of pool.values()) cell.kill();
+    });
+  }
+  return registry[key] as Map<string, CellProcess>;
+}
+
+function spareKey(runtime: RuntimeBundle, folder: string): string {
+  return `${runtime.worker}\0${path.resolve(folder)}`;
+}
+
+/** Takes the spare for `folder` if one is waiting and alive. */
+function takeSpare(runtime: RuntimeBundle, folder: string): CellProcess | undefined {
+  const key = spareKey(runtime, folder);
+  const cell = spares().get(key);
+  spares().delete(key);
+  if (!cell?.alive) return undefined;
+  cell.setHeld(true);
+  return cell;
 }
 
 /** The cell process could not start (the library threw while loading, or the process died). */

@@ -32,6 +32,11 @@ export interface RunOptions {
   readonly reproducible?: boolean;
   /** This run's place in a batch over data files. */
   readonly batch?: BatchPlace;
+  /**
+   * Another run of a notebook in the same folder follows (watch, a batch): once this run has its cell process, a
+   * spare one is started and loads the library while this run goes on (see CellProcess.prepare).
+   */
+  readonly prepareNext?: boolean;
 }
 
 /** Runs every cell of a parsed notebook and returns the record of the run. */
@@ -53,6 +58,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
     ? CellProcess.start(runtime, document.path, inputs, options.signal)
     : undefined;
   early?.catch(() => undefined);
+  if (options.prepareNext) CellProcess.prepare(runtime, path.dirname(document.path));
   try {
     const compiled = await compileCells({ document, tristimModule: runtime.tristim, outDir });
     const execution = await executeCells(document, compiled, runtime, {

@@ -9,7 +9,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import * as esbuild from "esbuild";
-import { BANNER } from "../compile/compile-cell.ts";
+import { BANNER } from "../shared/require-banner.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 
 /** Paths of a built runtime. */

@@ -80,12 +80,40 @@ export function writeSharedAssets(folder: string): void {
   fs.renameSync(temporary, target);
 }
 
+let embeddedPlotly: { text: string; bytes: Buffer } | undefined;
+
+/** `<script>` + Plotly + `</script>` as embedded in a report, escaped and encoded once per process. */
+export function embeddedPlotlyScript(): { readonly text: string; readonly bytes: Buffer } {
+  if (!embeddedPlotly) {
+    const text = `<script>${plotlyScript().replace(/<\/script/gi, "<\\/script")}</script>`;
+    embeddedPlotly = { text, bytes: Buffer.from(text, "utf8") };
+  }
+  return embeddedPlotly;
+}
+
+/** The report as the text before the embedded Plotly, whether Plotly is embedded there, and the text after. */
+export interface ReportParts {
+  readonly before: string;
+  readonly embedsPlotly: boolean;
+  readonly after: string;
+}
+
 /** Renders the report HTML for a document and the record of its run. */
 export function renderReport(
   document: NotebookDocument,
   run: RunRecord,
   options: ReportOptions = {},
 ): string {
+  const parts = renderReportParts(document, run, options);
+  return parts.before + (parts.embedsPlotly ? embeddedPlotlyScript().text : "") + parts.after;
+}
+
+/** The report in parts, so a writer can write the (cached) Plotly bytes without copying them into the page. */
+export function renderReportParts(
+  document: NotebookDocument,
+  run: RunRecord,
+  options: ReportOptions = {},
+): ReportParts {
   const model = reportModel(document, run);
   const { notebookDir } = model;
   const env: CellFenceEnv = {
@@ -106,13 +134,13 @@ export function renderReport(
   if (methods) contentsEntries.push({ level: topLevel, text: "Methods", id: "methods" });
   contentsEntries.push({ level: topLevel, text: "Provenance", id: "run-record" });
   const hasFigures = /class="plot-figure"/.test(body);
-  const plotly = !hasFigures
-    ? ""
-    : options.assetsHref !== undefined
+  const embedsPlotly = hasFigures && options.assetsHref === undefined;
+  const plotlyLink =
+    hasFigures && options.assetsHref !== undefined
       ? `<script src="${escapeHtml(`${options.assetsHref.replace(/\/$/, "")}/${PLOTLY_ASSET}`)}"></script>`
-      : `<script>${plotlyScript().replace(/<\/script/gi, "<\\/script")}</script>`;
+      : "";
 
-  return `<!doctype html>
+  const before = `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -135,12 +163,14 @@ ${renderRunDetails(document, run, "run-record", hasFigures ? { plotlyVersion: PL
 <footer class="report-footer">Made with ${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} from ${escapeHtml(path.basename(document.path))}.</footer>
 </main>
 ${runRecordScript(embeddedRunRecord(document, run, title))}
-${plotly}
+${plotlyLink}`;
+  const after = `
 ${hasFigures ? `<script>${FIGURES_CLIENT}</script>` : ""}
 
 </body>
 </html>
 `;
+  return { before, embedsPlotly, after };
 }
 
 /** Printed pages carry the report's title at the foot on the left and "page n of N" on the right (CSS @page margin boxes). */

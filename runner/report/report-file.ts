@@ -1,7 +1,7 @@
 /** Writes a report file: renders it, copies shared assets when asked, and writes atomically. */
 import path from "node:path";
 import type { NotebookDocument } from "../parse/notebook.ts";
-import { renderReport, writeSharedAssets } from "./render-report.ts";
+import { embeddedPlotlyScript, renderReportParts, writeSharedAssets } from "./render-report.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { writeFileAtomic } from "../shared/write-atomic.ts";
 
@@ -24,7 +24,9 @@ export function writeReport(
   linkAssets = false,
 ): string {
   if (linkAssets) writeSharedAssets(path.join(path.dirname(file), ASSETS_FOLDER));
-  const html = renderReport(document, run, linkAssets ? { assetsHref: ASSETS_FOLDER } : {});
-  writeFileAtomic(file, html);
-  return html;
+  const parts = renderReportParts(document, run, linkAssets ? { assetsHref: ASSETS_FOLDER } : {});
+  const plotly = parts.embedsPlotly ? embeddedPlotlyScript() : undefined;
+  // Plotly's 4.8 MB go out as the bytes cached once per process, not re-encoded with every report.
+  writeFileAtomic(file, plotly ? [parts.before, plotly.bytes, parts.after] : [parts.before, parts.after]);
+  return parts.before + (plotly?.text ?? "") + parts.after;
 }

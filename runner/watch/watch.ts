@@ -19,7 +19,7 @@ import { renderReport } from "../report/render-report.ts";
 import { moveRecordsToEdit } from "../records/rerender.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument, runSignature } from "../execute/run-notebook.ts";
-import { RunCancelled } from "../execute/cell-process.ts";
+import { CellProcess, RunCancelled } from "../execute/cell-process.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
 import type { CommandOptions, Io } from "../cli/command-options.ts";
 
@@ -87,6 +87,9 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
   const events = new EventEmitter();
   const clients = new Set<http.ServerResponse>();
   const timeLimitMs = options.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS;
+  let servedFor: string | undefined;
+  let servedBanner: string | undefined;
+  let served = Buffer.alloc(0);
   let html = pageMessage("Running the notebook…", "The report appears here when the first run finishes.");
   let lastRun: RunRecord | undefined;
   let lastDocument: NotebookDocument | undefined;
@@ -184,6 +187,8 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
           timeLimitMs,
           keepGoing: options.keepGoing,
           signal: current.signal,
+          // The next edit's run starts in a cell process readied while this one is shown.
+          prepareNext: true,
         });
         typeBanner = checkTypes?.(document) ?? ""; // checks while the cells run in their own process
         run = await running;
@@ -239,7 +244,7 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
 
   function schedule(): void {
     clearTimeout(timer);
-    timer = setTimeout(rebuild, options.debounceMs ?? 80);
+    timer = setTimeout(rebuild, options.debounceMs ?? 40);
   }
 
   const server = http.createServer((req, res) => {
@@ -269,13 +274,17 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     }
     if (url.pathname === "/" || url.pathname === `/${encodeURIComponent(path.basename(reportPath))}`) {
       res.writeHead(200, { "content-type": "text/html; charset=utf-8", "cache-control": "no-store" });
-      res.end(
-        req.method === "HEAD"
-          ? undefined
-          : html
-              .replace(/<body[^>]*>/, (body) => body + typeBanner)
-              .replace("</body>", `${RELOAD_SCRIPT}\n</body>`),
-      );
+      // The page with its banner and reload script is encoded once per rendering, not per request (a report is ~5 MB).
+      if (servedFor !== html || servedBanner !== typeBanner) {
+        served = Buffer.from(
+          html
+            .replace(/<body[^>]*>/, (body) => body + typeBanner)
+            .replace("</body>", `${RELOAD_SCRIPT}\n</body>`),
+        );
+        servedFor = html;
+        servedBanner = typeBanner;
+      }
+      res.end(req.method === "HEAD" ? undefined : served);
       return;
     }
     serveFile(root, req.url ?? "/", req.method === "HEAD", res);
@@ -309,6 +318,7 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
       clients.clear();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await building;
+      CellProcess.discardSpare(path.dirname(notebookPath));
     },
   };
 }
