@@ -26,6 +26,12 @@ import { runDocument } from "../execute/run-notebook.ts";
 import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
 import { parseTimeLimit } from "../shared/time-limit.ts";
 import { toolVersion } from "../shared/tool-version.ts";
+import {
+  clashingFile,
+  makeReportFolder,
+  notebookGuardedFiles,
+  type GuardedFile,
+} from "../shared/output-path.ts";
 import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 
 const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
@@ -76,7 +82,11 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
   if (command === "run") return runCommand(files, options, io);
   if (files.length !== 1) throw new UsageError(`watch takes exactly one notebook, got ${files.length}`);
   const document = readNotebook(files[0]!);
-  resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  const watched = resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  refuseClash(
+    options.output ? path.resolve(options.output) : defaultReportPath(document.path),
+    notebookGuardedFiles(document.path, watched.inputs),
+  );
   const watcher = await startWatch(document.path, { ...options, io });
   io.out(`Serving ${watcher.url} - watching ${shown(document.path)} (Ctrl+C to stop)\n`);
   await new Promise<void>((resolve) => {
@@ -212,6 +222,12 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
   ) {
     throw new UsageError(`-o ${options.output}: with several notebooks, -o must name a folder`);
   }
+  // A report never replaces a notebook of this command or a file one of them takes as an input.
+  const guarded = documents.flatMap((d) =>
+    notebookGuardedFiles(d.path, resolveInputs(d.frontMatter.inputs, options.inputs, shown(d.path)).inputs),
+  );
+  for (const document of documents)
+    refuseClash(reportPathFor(document.path, options.output, several), guarded);
   for (const document of documents) {
     const run = await runDocument(document, {
       inputs: options.inputs,
@@ -220,8 +236,14 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       reproducible: options.reproducible,
     });
     const target = reportPathFor(document.path, options.output, several);
+    const read = clashingFile(target, readByCells(run));
+    if (read) {
+      io.err(`${shown(document.path)}: ${clashText(target, read)}; nothing was written\n`);
+      exit = worseExit(exit, EXIT.usage);
+      continue;
+    }
     try {
-      fs.mkdirSync(path.dirname(target), { recursive: true });
+      makeReportFolder(path.dirname(target));
       writeReport(document, run, target, options.linkAssets);
     } catch (e) {
       io.err(
@@ -233,6 +255,28 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     exit = worseExit(exit, printOutcome(document, run, target, options, io));
   }
   return exit;
+}
+
+/** Throws a UsageError when the report path is a guarded file (before anything runs or is written). */
+function refuseClash(target: string, guarded: readonly GuardedFile[]): void {
+  const clash = clashingFile(target, guarded);
+  if (clash) throw new UsageError(`${clashText(target, clash)}; nothing was run or written`);
+}
+
+function clashText(target: string, clash: GuardedFile): string {
+  return `the report path ${shown(target)} is ${clash.what}${sameShown(target, clash.path) ? "" : ` (${shown(clash.path)})`}, which the report would replace; choose another path with -o`;
+}
+
+function sameShown(a: string, b: string): boolean {
+  return shown(a) === shown(b);
+}
+
+/** The files the cells of a run read or imported, as guarded files. */
+function readByCells(run: RunRecord): GuardedFile[] {
+  return run.filesRead.map((f) => ({
+    path: f.path,
+    what: `a file ${describeCells(f.cells.map((c) => c + 1))} ${f.imported ? "imported" : "read"}`,
+  }));
 }
 
 /** Runs one notebook once per data file; prints a line per run and where the index is. */
