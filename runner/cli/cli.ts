@@ -29,6 +29,7 @@ import { toolVersion } from "../shared/tool-version.ts";
 import {
   clashingFile,
   makeReportFolder,
+  ReportFolderError,
   notebookGuardedFiles,
   type GuardedFile,
 } from "../shared/output-path.ts";
@@ -48,6 +49,10 @@ export async function main(argv: readonly string[], io: Io = terminal): Promise<
     if (e instanceof NotebookError) {
       io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
       return EXIT.notebookFailed;
+    }
+    if (e instanceof ReportFolderError) {
+      io.err(`tristim: the reports could not be written: ${e.message}\n`);
+      return EXIT.internal;
     }
     if (e instanceof RuntimeBuildError) {
       io.err(`tristim: ${e.message}\n`);

@@ -68,8 +68,8 @@ export function makeReportFolder(folder: string): void {
       stat = fs.statSync(existing);
     } catch (e) {
       const code = (e as NodeJS.ErrnoException).code;
-      if (code !== "ENOENT")
-        throw new ReportFolderError(`${existing} cannot be read (${code ?? (e as Error).message})`);
+      if (code !== "ENOENT" && code !== "ENOTDIR")
+        throw new ReportFolderError(`${existing} cannot be read (${reason(e)})`);
     }
     if (stat) {
       if (!stat.isDirectory())
@@ -87,7 +87,7 @@ export function makeReportFolder(folder: string): void {
     } catch (e) {
       const code = (e as NodeJS.ErrnoException).code;
       if (code === "EEXIST" && isDirectory(level)) continue;
-      throw new ReportFolderError(`the folder ${level} cannot be made (${code ?? (e as Error).message})`);
+      throw new ReportFolderError(`the folder ${level} cannot be made (${reason(e)})`);
     }
   }
 }
@@ -98,4 +98,17 @@ function isDirectory(p: string): boolean {
   } catch {
     return false;
   }
+}
+
+/** An fs error's code in words, with the code. */
+function reason(e: unknown): string {
+  const code = (e as NodeJS.ErrnoException).code;
+  const words: Record<string, string> = {
+    ENOENT: "the file system does not allow it, e.g. a pseudo file system such as /proc",
+    EACCES: "permission denied",
+    EPERM: "operation not permitted",
+    EROFS: "read-only file system",
+    ENOSPC: "no space left on the device",
+  };
+  return code ? `${words[code] ?? "failed"}: ${code}` : (e as Error).message;
 }
