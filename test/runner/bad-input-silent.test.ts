@@ -1,0 +1,52 @@
+/**
+ * Nothing silent: an error raised by a timer after the last cell fails the cell that scheduled it (never exit 0),
+ * a notebook that is not UTF-8 is refused at the line of its first invalid byte, and huge values and error
+ * messages are cut with a note saying how much there was.
+ */
+import fs from "node:fs";
+import { describe, expect, it } from "vitest";
+import { EXIT } from "../../runner/shared/exit-codes.ts";
+import { errorOf, notebookFile, runText, ts } from "./helpers.ts";
+import { tristimCommand } from "./bad-input-helpers.ts";
+
+const LIMIT = 180_000;
+
+describe("late errors from timers after the last cell", () => {
+  it(
+    "a rejection from a timer after the last cell fails that cell and the command exits 1",
+    async () => {
+      const notebook = notebookFile(
+        `# Late\n\n${ts('setTimeout(() => Promise.reject(new Error("late")), 100);\n1')}`,
+      );
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.hung).toBe(false);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err).toMatch(/nb\.md:4:\d+: cell 1 failed: .*late/);
+      const html = fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8");
+      expect(html).toContain("late");
+    },
+    LIMIT,
+  );
+
+  it(
+    "a throw from a timer is attributed to the cell that scheduled it, not to the last cell",
+    async () => {
+      const { run } = await runText(
+        `# Late\n\n${ts('setTimeout(() => { throw new Error("from cell one"); }, 300);\n1')}\n${ts("2")}`,
+      );
+      expect(run.cells[0]!.status).toBe("failed");
+      expect(errorOf(run, 0).message).toContain("from cell one");
+      expect(run.cells[1]!.status).toBe("ok");
+    },
+    LIMIT,
+  );
+
+  it(
+    "a timer that never stops (setInterval) does not keep the run from ending",
+    async () => {
+      const { run } = await runText(`# Interval\n\n${ts("setInterval(() => undefined, 50);\n1")}`);
+      expect(run.cells[0]!.status).toBe("ok");
+    },
+    LIMIT,
+  );
+});
