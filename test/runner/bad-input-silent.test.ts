@@ -50,3 +50,27 @@ describe("late errors from timers after the last cell", () => {
     LIMIT,
   );
 });
+
+describe("notebooks that are not UTF-8", () => {
+  it(
+    "a Latin-1 notebook is refused at the line and column of its first invalid byte",
+    async () => {
+      const notebook = notebookFile("");
+      fs.writeFileSync(notebook, Buffer.from("# Report\n\nCaf\xe9 and more\n\n```ts\n1\n```\n", "latin1"));
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err).toContain("nb.md:3:4: not UTF-8 text: byte 0xE9 is not valid UTF-8");
+      expect(r.err).toContain("Latin-1");
+      expect(fs.existsSync(notebook.replace(/\.md$/, ".html"))).toBe(false);
+    },
+    LIMIT,
+  );
+
+  it("valid UTF-8, including a literal U+FFFD, is accepted", async () => {
+    const { firstInvalidUtf8 } = await import("../../runner/parse/parse-notebook.ts");
+    expect(firstInvalidUtf8(Buffer.from("Grün \uFFFD ok", "utf8"))).toBeUndefined();
+    expect(firstInvalidUtf8(Buffer.from([0x61, 0xc3, 0xbc, 0x62, 0xff, 0x63]))).toBe(4);
+    // A truncated sequence: C3 followed by an ASCII byte.
+    expect(firstInvalidUtf8(Buffer.from([0x61, 0xc3, 0x41]))).toBe(1);
+  });
+});
