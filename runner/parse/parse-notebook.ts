@@ -75,7 +75,8 @@ export function parseNotebook(
   file: string,
   sha256 = createHash("sha256").update(text).digest("hex"),
 ): NotebookDocument {
-  const source = text.startsWith("\uFEFF") ? text.slice(1) : text;
+  // CR-only and CRLF line endings read as LF.
+  const source = (text.startsWith("\uFEFF") ? text.slice(1) : text).replace(/\r\n?/g, "\n");
   const { yaml, body } = splitFrontMatter(source, file);
   const frontMatter = parseFrontMatter(yaml, file);
   const lines = body.split("\n").map((l) => l.replace(/\r$/, ""));
