@@ -13,7 +13,7 @@ import { performance } from "node:perf_hooks";
 import { Writable } from "node:stream";
 import { pathToFileURL } from "node:url";
 import vm from "node:vm";
-import { CellOutput } from "./capture.ts";
+import { CellOutput, cutErrorMessage, MAX_ERROR_MESSAGE_CHARS } from "./capture.ts";
 import { inspectValue, show } from "./display.ts";
 import { setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
@@ -228,11 +228,19 @@ function toRawError(error: unknown, failure: FailureKind): RawError {
     if (typeof error === "object" && error !== null && "message" in error) {
       const e = error as { name?: unknown; message?: unknown; stack?: unknown };
       const name = typeof e.name === "string" ? e.name : "Error";
+      const message = String(e.message);
+      let stack = typeof e.stack === "string" ? e.stack : undefined;
+      // A huge message is cut; the stack repeats it at its start, so only its frames are kept after the cut text.
+      if (stack !== undefined && message.length > MAX_ERROR_MESSAGE_CHARS) {
+        const at = stack.indexOf(message);
+        stack =
+          at < 0 ? undefined : `${name}: ${cutErrorMessage(message)}${stack.slice(at + message.length)}`;
+      }
       return {
         failure: name === "UnserializableError" ? "unserializable" : failure,
         name,
-        message: String(e.message),
-        stack: typeof e.stack === "string" ? e.stack : undefined,
+        message: cutErrorMessage(message),
+        stack,
       };
     }
     return { failure, message: `a value that is not an Error was thrown: ${inspectValue(error)}` };

@@ -17,7 +17,7 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
 import { defaultReportPath, writeReport } from "../report/report-file.ts";
 import { formatDuration } from "../text/duration.ts";
-import { displayLocation, errorTitle } from "../text/error-text.ts";
+import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
@@ -349,7 +349,7 @@ export function printOutcome(
         ? `${shown(document.path)}:${error.location.line}:${error.location.column}`
         : where;
     io.err(
-      `${place}: cell ${cell.index + 1} failed: ${error ? errorTitle(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
+      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);

@@ -74,3 +74,45 @@ describe("notebooks that are not UTF-8", () => {
     expect(firstInvalidUtf8(Buffer.from([0x61, 0xc3, 0x41]))).toBe(1);
   });
 });
+
+describe("huge values and error messages are cut with a note", () => {
+  it(
+    "a 20 M-character string value is cut at 200,000 characters with a note saying how long it was",
+    async () => {
+      const notebook = notebookFile(`# Big value\n\n${ts('"v".repeat(20_000_000) + ["TA", "IL"].join("")')}`);
+      const r = await tristimCommand(["run", notebook, "--quiet"]);
+      expect(r.code).toBe(EXIT.ok);
+      const html = fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8");
+      expect(html.length).toBeLessThan(5_000_000);
+      expect(html).not.toContain("TAIL");
+      expect(html).toContain(
+        "Value cut: it has 20.0 million characters; the first 200,000 characters are shown.",
+      );
+    },
+    LIMIT,
+  );
+
+  it(
+    "a 3 M-character error message is cut on the terminal and in the report, and shown in full once",
+    async () => {
+      const notebook = notebookFile(
+        `# Big error\n\n${ts('throw new Error("Q".repeat(3_000_000) + ["EN", "D"].join(""))')}`,
+      );
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err.length).toBeLessThan(5_000);
+      expect(r.err).toContain("cut at 500 characters");
+      const html = fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8");
+      expect(html).not.toContain("END");
+      expect(html).toContain(
+        "[message cut: it has 3.0 million characters; the first 10,000 characters are kept]",
+      );
+      // The error block holds the 10,000 kept characters once; the summary a 500-character heading; the embedded
+      // run record (data, not shown) the kept message.
+      const runs = [...html.matchAll(/Q{400,}/g)].map((m) => m[0].length).sort((a, b) => a - b);
+      expect(runs).toEqual([493, 10_000, 10_000]);
+      expect(html.length).toBeLessThan(200_000);
+    },
+    LIMIT,
+  );
+});
