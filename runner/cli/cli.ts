@@ -21,6 +21,7 @@ import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
+import { escapeControls } from "../text/terminal-text.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument } from "../execute/run-notebook.ts";
 import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
@@ -38,7 +39,9 @@ import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
 
 /** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
-export async function main(argv: readonly string[], io: Io = terminal): Promise<ExitCode> {
+export async function main(argv: readonly string[], given: Io = terminal): Promise<ExitCode> {
+  // Everything printed may hold text from data or cells: control characters are shown escaped, never obeyed.
+  const io: Io = { out: (t) => given.out(escapeControls(t)), err: (t) => given.err(escapeControls(t)) };
   try {
     return await dispatch(argv, io);
   } catch (e) {
