@@ -8,6 +8,10 @@ import type { OutputRecord } from "./records.ts";
 export const MAX_CONSOLE_CHARS = 400_000;
 /** Most characters of JSON one cell's other records (tables, figures, ...) may take. */
 export const MAX_RECORD_CHARS = 30_000_000;
+/** Most characters of one shown value (a string or an inspected value); the rest is cut with a note. */
+export const MAX_VALUE_CHARS = 200_000;
+/** Most characters of one error message kept in the records; the rest is cut with a note in the message. */
+export const MAX_ERROR_MESSAGE_CHARS = 10_000;
 /** Most separate records one cell keeps. */
 export const MAX_RECORDS = 1_000;
 
@@ -47,6 +51,15 @@ export class CellOutput {
   addRecord(record: OutputRecord): void {
     if (record.kind === "check" || record.kind === "caution") {
       this.pending.push(record);
+      return;
+    }
+    if (record.kind === "value" && record.text.length > MAX_VALUE_CHARS) {
+      const total = record.text.length;
+      this.addRecord({ kind: "value", text: record.text.slice(0, MAX_VALUE_CHARS) });
+      this.addRecord({
+        kind: "note",
+        text: `Value cut: it has ${formatChars(total)}; the first ${formatChars(MAX_VALUE_CHARS)} are shown.`,
+      });
       return;
     }
     const size = JSON.stringify(record).length;
@@ -107,4 +120,10 @@ export class CellOutput {
 export function formatChars(n: number): string {
   if (n >= 1_000_000) return `${(n / 1_000_000).toFixed(1)} million characters`;
   return `${n.toLocaleString("en-US")} characters`;
+}
+
+/** An error message within MAX_ERROR_MESSAGE_CHARS, with a note saying how long it was when it had to be cut. */
+export function cutErrorMessage(message: string): string {
+  if (message.length <= MAX_ERROR_MESSAGE_CHARS) return message;
+  return `${message.slice(0, MAX_ERROR_MESSAGE_CHARS)}… [message cut: it has ${formatChars(message.length)}; the first ${formatChars(MAX_ERROR_MESSAGE_CHARS)} are kept]`;
 }

@@ -69,6 +69,8 @@ export interface FinishedMessage {
   readonly methods: readonly MethodNote[];
   /** An error raised after the last cell finished, by code it left running (timer, unawaited promise). */
   readonly lateError?: RawError;
+  /** The cell whose timer or callback raised `lateError` (0-based), when known. */
+  readonly lateErrorCell?: number;
 }
 
 /** Cell process → runner: the harness itself could not start (e.g. the library threw while loading). */

@@ -13,8 +13,25 @@ import { describeValue as describe } from "./describe-value.ts";
 import type { SwatchGamuts, SwatchPairPlace, SwatchRecord } from "./records.ts";
 
 const HEX = /^#[0-9a-fA-F]{6}$/;
-/** A CSS colour function with numbers, percentages, `none`, keywords and `/`; no quotes, semicolons or braces. */
-const CSS_COLOUR = /^[a-z-]+\(\s*[a-z0-9.%+\-\s/]*\)$/i;
+/** One argument of a CSS colour function: a number (percent or angle allowed) or `none`. */
+const CSS_ARGUMENT = String.raw`(?:[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?(?:%|deg|grad|rad|turn)?|none)`;
+const CSS_ARGUMENTS = String.raw`${CSS_ARGUMENT}(?:\s*[\s,/]\s*${CSS_ARGUMENT})*`;
+/**
+ * The colour values a swatch's css may hold (CSS Color 4): hex, the colour functions with plain numbers, and
+ * color() in a predefined colour space. Nothing else — no url(), image, var() or keyword — so a report never
+ * fetches anything.
+ */
+const CSS_COLOUR = new RegExp(
+  String.raw`^(?:#(?:[0-9a-f]{3,4}|[0-9a-f]{6}|[0-9a-f]{8})` +
+    String.raw`|(?:rgba?|hsla?|hwb|lab|lch|oklab|oklch)\(\s*${CSS_ARGUMENTS}\s*\)` +
+    String.raw`|color\(\s*(?:srgb|srgb-linear|display-p3|a98-rgb|prophoto-rgb|rec2020|xyz|xyz-d50|xyz-d65)\s+${CSS_ARGUMENTS}\s*\))$`,
+  "i",
+);
+
+/** True when `text` is a CSS colour value a swatch may use (see CSS_COLOUR). */
+export function isSwatchCssColour(text: string): boolean {
+  return CSS_COLOUR.test(text.trim());
+}
 const PAIR_ROLES = ["reference", "sample"] as const;
 /** lib/plot's current pair labels and the difference it writes at the start of the sample's note. */
 const LEGACY_REFERENCE = /^(.+) reference$/;
@@ -44,7 +61,7 @@ function checkSwatch(input: unknown, i: number): Mutable<SwatchRecord> {
   }
   if (s.css !== undefined && (typeof s.css !== "string" || !CSS_COLOUR.test(s.css.trim()))) {
     throw new TypeError(
-      `${named}: css must be a CSS colour function like color(display-p3 1 0.2 0.1), got ${describe(s.css)}`,
+      `${named}: css must be a CSS colour value (hex, or rgb(), hsl(), hwb(), lab(), lch(), oklab(), oklch() or color() with numbers), like color(display-p3 1 0.2 0.1); got ${describe(s.css)}`,
     );
   }
   const out: Mutable<SwatchRecord> = { label: s.label, hex: s.hex.toLowerCase() };

@@ -13,7 +13,7 @@ import { performance } from "node:perf_hooks";
 import { Writable } from "node:stream";
 import { pathToFileURL } from "node:url";
 import vm from "node:vm";
-import { CellOutput } from "./capture.ts";
+import { CellOutput, cutErrorMessage, MAX_ERROR_MESSAGE_CHARS } from "./capture.ts";
 import { inspectValue, show } from "./display.ts";
 import { setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
@@ -21,6 +21,8 @@ import type { CellRuntime, FromCellProcess, RawError, RunCellMessage, ToCellProc
 import type { FailureKind, MethodNote } from "./records.ts";
 
 const realExit = process.exit.bind(process);
+const realSetTimeout = setTimeout;
+const realSetImmediate = setImmediate;
 const send = (message: FromCellProcess): void => {
   process.send?.(message);
 };
@@ -50,8 +52,11 @@ interface WorkerState {
   reads: Set<string>;
   /** Fails the running cell (an uncaught error while it runs); null between cells. */
   failCurrentCell: ((error: RawError) => void) | null;
-  /** The first uncaught error after the last cell finished, reported with "finished". */
+  /** The first uncaught error after the last cell finished, reported with "finished", and the cell it came from. */
   lateError: RawError | undefined;
+  lateErrorCell: number | undefined;
+  /** The cell that scheduled the timer or immediate whose callback runs now (kept until the next callback). */
+  callbackCell: number | null;
   /** True while a cell's import bundle loads (its reads are the runner's, not the cell's). */
   suppressReadTracking: boolean;
 }
@@ -66,8 +71,13 @@ const state: WorkerState = {
   reads: new Set(),
   failCurrentCell: null,
   lateError: undefined,
+  lateErrorCell: undefined,
+  callbackCell: null,
   suppressReadTracking: false,
 };
+
+/** How long timers left pending by the cells may still fire after the last cell (README, "When something goes wrong"). */
+const LATE_TIMER_GRACE_MS = 1000;
 
 // --- output: console, stdout/stderr and display records all go to the running cell -------------------------------
 function captureText(stream: "stdout" | "stderr", chunk: unknown): void {
@@ -127,11 +137,35 @@ function raiseUncaught(error: unknown, what: string): void {
   const raw = toRawError(error, "uncaught");
   const message = `${what}: ${raw.message}`;
   if (state.failCurrentCell) state.failCurrentCell({ ...raw, message });
-  else
-    state.lateError ??= {
+  else if (state.lateError === undefined) {
+    state.lateError = {
       ...raw,
       message: `${message} (raised after the cell had finished, by a timer, callback or promise it left running)`,
     };
+    state.lateErrorCell = state.callbackCell ?? state.lastCell ?? undefined;
+  }
+}
+
+/** Install step: timers and immediates remember the cell that scheduled them, so a late error names that cell. */
+function installTimerTracking(): void {
+  const g = globalThis as unknown as Record<string, (...args: unknown[]) => unknown>;
+  for (const name of ["setTimeout", "setInterval", "setImmediate"]) {
+    const original = g[name]!;
+    g[name] = function (this: unknown, callback: unknown, ...rest: unknown[]) {
+      const cell = state.currentCell;
+      if (typeof callback !== "function" || cell === null) return original.call(this, callback, ...rest);
+      const tracked = function (this: unknown, ...args: unknown[]) {
+        state.callbackCell = cell;
+        return (callback as (...a: unknown[]) => unknown).apply(this, args);
+      };
+      return original.call(this, tracked, ...rest);
+    };
+  }
+}
+
+/** True while timers or immediates (other than the harness's own, unreferenced ones) are pending. */
+function timersPending(): boolean {
+  return process.getActiveResourcesInfo().some((r) => r === "Timeout" || r === "Immediate");
 }
 
 // --- files the cells read (for watch re-runs and the report's record of inputs) -----------------------------------
@@ -194,11 +228,19 @@ function toRawError(error: unknown, failure: FailureKind): RawError {
     if (typeof error === "object" && error !== null && "message" in error) {
       const e = error as { name?: unknown; message?: unknown; stack?: unknown };
       const name = typeof e.name === "string" ? e.name : "Error";
+      const message = String(e.message);
+      let stack = typeof e.stack === "string" ? e.stack : undefined;
+      // A huge message is cut; the stack repeats it at its start, so only its frames are kept after the cut text.
+      if (stack !== undefined && message.length > MAX_ERROR_MESSAGE_CHARS) {
+        const at = stack.indexOf(message);
+        stack =
+          at < 0 ? undefined : `${name}: ${cutErrorMessage(message)}${stack.slice(at + message.length)}`;
+      }
       return {
         failure: name === "UnserializableError" ? "unserializable" : failure,
         name,
-        message: String(e.message),
-        stack: typeof e.stack === "string" ? e.stack : undefined,
+        message: cutErrorMessage(message),
+        stack,
       };
     }
     return { failure, message: `a value that is not an Error was thrown: ${inspectValue(error)}` };
@@ -416,14 +458,27 @@ async function handle(message: ToCellProcess): Promise<void> {
   } else if (message.type === "run") {
     await runCell(message);
   } else if (message.type === "finish") {
-    finish();
+    await finish();
   }
 }
 
-/** Finish step: send the method log and any late error, then end the process. */
-function finish(): void {
+/**
+ * Finish step: let timers the cells left pending fire for up to LATE_TIMER_GRACE_MS (an error they raise counts),
+ * then send the method log and any late error, and end the process.
+ */
+async function finish(): Promise<void> {
+  const until = performance.now() + LATE_TIMER_GRACE_MS;
+  while (timersPending() && state.lateError === undefined && performance.now() < until)
+    await new Promise((resolve) => realSetTimeout(resolve, 10));
+  // One more turn, so that a rejection from the last callback is reported.
+  await new Promise((resolve) => realSetImmediate(resolve));
   process.send?.(
-    { type: "finished", methods: methodLog(), lateError: state.lateError } satisfies FromCellProcess,
+    {
+      type: "finished",
+      methods: methodLog(),
+      lateError: state.lateError,
+      ...(state.lateErrorCell === undefined ? {} : { lateErrorCell: state.lateErrorCell }),
+    } satisfies FromCellProcess,
     () => {
       process.disconnect?.();
       realExit(0);
@@ -436,6 +491,7 @@ function install(): void {
   installOutputCapture();
   installErrorCapture();
   installReadTracking();
+  installTimerTracking();
   process.on("disconnect", () => realExit(0));
 }
 

@@ -12,6 +12,7 @@ import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { expandFilePattern, reportNamesFor } from "./file-pattern.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import { writeReport } from "../report/report-file.ts";
+import { makeReportFolder } from "../shared/output-path.ts";
 import { renderBatchIndex } from "../report/render-index.ts";
 import { reportTitle } from "../report/render-report.ts";
 import { runDocument } from "../execute/run-notebook.ts";
@@ -122,7 +123,7 @@ export async function runBatch(
       `-o ${options.output}: with --each, -o must name a folder (it gets one report per data file and index.html)`,
     );
   }
-  fs.mkdirSync(folder, { recursive: true });
+  makeReportFolder(folder);
   const names = reportNamesFor(files, path.dirname(document.path));
   const startedAt = new Date().toISOString();
   const notebookDir = path.dirname(document.path);

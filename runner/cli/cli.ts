@@ -18,21 +18,31 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
 import { defaultReportPath, writeReport } from "../report/report-file.ts";
 import { formatDuration } from "../text/duration.ts";
-import { displayLocation, errorTitle } from "../text/error-text.ts";
+import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
+import { escapeControls } from "../text/terminal-text.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument } from "../execute/run-notebook.ts";
 import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
 import { parseTimeLimit } from "../shared/time-limit.ts";
 import { toolVersion } from "../shared/tool-version.ts";
+import {
+  clashingFile,
+  makeReportFolder,
+  ReportFolderError,
+  notebookGuardedFiles,
+  type GuardedFile,
+} from "../shared/output-path.ts";
 import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 
 const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
 
 /** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
-export async function main(argv: readonly string[], io: Io = terminal): Promise<ExitCode> {
+export async function main(argv: readonly string[], given: Io = terminal): Promise<ExitCode> {
+  // Everything printed may hold text from data or cells: control characters are shown escaped, never obeyed.
+  const io: Io = { out: (t) => given.out(escapeControls(t)), err: (t) => given.err(escapeControls(t)) };
   try {
     return await dispatch(argv, io);
   } catch (e) {
@@ -43,6 +53,10 @@ export async function main(argv: readonly string[], io: Io = terminal): Promise<
     if (e instanceof NotebookError) {
       io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
       return EXIT.notebookFailed;
+    }
+    if (e instanceof ReportFolderError) {
+      io.err(`tristim: the reports could not be written: ${e.message}\n`);
+      return EXIT.internal;
     }
     if (e instanceof RuntimeBuildError) {
       io.err(`tristim: ${e.message}\n`);
@@ -94,7 +108,11 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
   if (command === "run") return runCommand(files, options, io);
   if (files.length !== 1) throw new UsageError(`watch takes exactly one notebook, got ${files.length}`);
   const document = readNotebook(files[0]!);
-  resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  const watched = resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
+  refuseClash(
+    options.output ? path.resolve(options.output) : defaultReportPath(document.path),
+    notebookGuardedFiles(document.path, watched.inputs),
+  );
   const watcher = await startWatch(document.path, { ...options, io });
   io.out(`Serving ${watcher.url} - watching ${shown(document.path)} (Ctrl+C to stop)\n`);
   await new Promise<void>((resolve) => {
@@ -259,6 +277,12 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
   ) {
     throw new UsageError(`-o ${options.output}: with several notebooks, -o must name a folder`);
   }
+  // A report never replaces a notebook of this command or a file one of them takes as an input.
+  const guarded = documents.flatMap((d) =>
+    notebookGuardedFiles(d.path, resolveInputs(d.frontMatter.inputs, options.inputs, shown(d.path)).inputs),
+  );
+  for (const document of documents)
+    refuseClash(reportPathFor(document.path, options.output, several), guarded);
   for (const document of documents) {
     const run = await runDocument(document, {
       inputs: options.inputs,
@@ -267,8 +291,14 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       reproducible: options.reproducible,
     });
     const target = reportPathFor(document.path, options.output, several);
+    const read = clashingFile(target, readByCells(run));
+    if (read) {
+      io.err(`${shown(document.path)}: ${clashText(target, read)}; nothing was written\n`);
+      exit = worseExit(exit, EXIT.usage);
+      continue;
+    }
     try {
-      fs.mkdirSync(path.dirname(target), { recursive: true });
+      makeReportFolder(path.dirname(target));
       writeReport(document, run, target, options.linkAssets);
     } catch (e) {
       io.err(
@@ -280,6 +310,28 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     exit = worseExit(exit, printOutcome(document, run, target, options, io));
   }
   return exit;
+}
+
+/** Throws a UsageError when the report path is a guarded file (before anything runs or is written). */
+function refuseClash(target: string, guarded: readonly GuardedFile[]): void {
+  const clash = clashingFile(target, guarded);
+  if (clash) throw new UsageError(`${clashText(target, clash)}; nothing was run or written`);
+}
+
+function clashText(target: string, clash: GuardedFile): string {
+  return `the report path ${shown(target)} is ${clash.what}${sameShown(target, clash.path) ? "" : ` (${shown(clash.path)})`}, which the report would replace; choose another path with -o`;
+}
+
+function sameShown(a: string, b: string): boolean {
+  return shown(a) === shown(b);
+}
+
+/** The files the cells of a run read or imported, as guarded files. */
+function readByCells(run: RunRecord): GuardedFile[] {
+  return run.filesRead.map((f) => ({
+    path: f.path,
+    what: `a file ${describeCells(f.cells.map((c) => c + 1))} ${f.imported ? "imported" : "read"}`,
+  }));
 }
 
 /** Runs one notebook once per data file; prints a line per run and where the index is. */
@@ -348,7 +400,7 @@ export function printOutcome(
         ? `${shown(document.path)}:${error.location.line}:${error.location.column}`
         : where;
     io.err(
-      `${place}: cell ${cell.index + 1} failed: ${error ? errorTitle(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
+      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);

@@ -32,6 +32,7 @@ export class CellProcess {
   private readonly child: ChildProcess;
   private exited = false;
   private killed = false;
+  private groupEnded = false;
   private exitDetail = "";
   private stderrTail = "";
   private listeners = new Set<(message: FromCellProcess) => void>();
@@ -45,7 +46,10 @@ export class CellProcess {
       cwd: folder,
       stdio: ["ignore", "pipe", "pipe", "ipc"],
       env: { ...process.env, NODE_NO_WARNINGS: "1" },
+      // Its own process group, so that processes a cell starts are ended with it (endGroup).
+      detached: true,
     });
+    liveGroups.add(this);
     const keepTail = (chunk: Buffer) => {
       this.stderrTail = (this.stderrTail + chunk.toString("utf8")).slice(-4000);
     };
@@ -64,6 +68,10 @@ export class CellProcess {
         ? `the cell process was ended by signal ${signal}`
         : `the cell process ended with exit code ${code}`;
       this.markExited();
+      // Children a cell started may still hold the output pipes: end them, and stop reading the pipes.
+      this.endGroup();
+      this.child.stdout?.destroy();
+      this.child.stderr?.destroy();
     });
   }
 
@@ -165,9 +173,24 @@ export class CellProcess {
 
   /** Stops the process at once. */
   kill(): void {
+    this.endGroup();
     if (this.exited) return;
     this.killed = true;
     this.child.kill("SIGKILL");
+  }
+
+  /** Kills the process group: the cell process and every process its cells started that did not leave it. */
+  endGroup(): void {
+    if (this.groupEnded || this.child.pid === undefined) return;
+    try {
+      process.kill(-this.child.pid, "SIGKILL");
+    } catch {
+      // the group is already gone
+    }
+    if (this.exited) {
+      this.groupEnded = true;
+      liveGroups.delete(this);
+    }
   }
 
   /** False once the process has exited or been told to stop (its exit event may come a moment later). */
@@ -221,6 +244,12 @@ export class CellProcess {
     });
   }
 }
+
+/** Cell processes whose groups may still have members; ended if the runner itself exits. */
+const liveGroups = new Set<CellProcess>();
+process.on("exit", () => {
+  for (const group of liveGroups) group.endGroup();
+});
 
 /** The spare cell processes of this runner process, by worker and folder (shared by every copy of this module). */
 function spares(): Map<string, CellProcess> {

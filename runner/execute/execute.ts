@@ -175,11 +175,12 @@ export async function executeCells(
     const finished = await process.finish();
     if (finished) {
       noteMethods(finished.methods);
-      if (finished.lateError && lastRan !== undefined) {
-        // An error raised after the last cell finished, by code it left running: it belongs to that cell.
-        const previous = runs[lastRan]!;
-        outputs[lastRan]!.push(mapError(finished.lateError, lastRan, document, compiled));
-        runs[lastRan] = { ...previous, status: "failed", outputs: outputs[lastRan]! };
+      const late = finished.lateErrorCell ?? lastRan;
+      if (finished.lateError && late !== undefined && runs[late]) {
+        // An error raised after the cells finished, by code a cell left running: it belongs to that cell.
+        const previous = runs[late]!;
+        outputs[late]!.push(mapError(finished.lateError, late, document, compiled));
+        runs[late] = { ...previous, status: "failed", outputs: outputs[late]! };
       }
     }
   }

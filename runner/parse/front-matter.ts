@@ -31,14 +31,13 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
   const doc = parseDocument(yamlText, { prettyErrors: false, uniqueKeys: true });
   if (doc.errors.length > 0) {
     const error = doc.errors[0]!;
-    const line = error.linePos?.[0]?.line;
+    // error.pos is an offset into the YAML text (linePos is only filled in with prettyErrors).
+    const before = yamlText.slice(0, Math.max(0, Math.min(error.pos[0], yamlText.length)));
+    const yamlLine = before.split("\n").length;
+    const column = before.length - before.lastIndexOf("\n");
     const message = error.message.split("\n")[0]!.replace(/ at line \d+, column \d+:?$/, "");
-    throw new NotebookError(
-      `invalid front matter: ${message}`,
-      file,
-      line === undefined ? 1 : line + 1,
-      error.linePos?.[0]?.col,
-    );
+    // The YAML starts on line 2 of the file (after the opening ---).
+    throw new NotebookError(`invalid front matter: ${message}`, file, yamlLine + 1, column);
   }
   const data: unknown = doc.toJS();
   if (data === null || typeof data !== "object" || Array.isArray(data)) {

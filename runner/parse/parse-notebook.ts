@@ -35,7 +35,38 @@ export function readNotebook(file: string): NotebookDocument {
   }
   if (bytes.includes(0))
     throw new NotebookError("not a notebook: the file holds binary data, not Markdown text", file);
+  const invalid = firstInvalidUtf8(bytes);
+  if (invalid !== undefined) {
+    const before = bytes.subarray(0, invalid).toString("utf8");
+    const lines = before.split(/\r\n?|\n/);
+    const line = lines.length;
+    const column = [...lines.at(-1)!].length + 1;
+    const byte = bytes[invalid]!.toString(16).toUpperCase().padStart(2, "0");
+    throw new NotebookError(
+      `not UTF-8 text: byte 0x${byte} is not valid UTF-8 (the file may be Latin-1 or Windows-1252); save the notebook as UTF-8`,
+      file,
+      line,
+      column,
+    );
+  }
   return parseNotebook(bytes.toString("utf8"), absolute, createHash("sha256").update(bytes).digest("hex"));
+}
+
+/** Byte offset of the first byte that is not part of valid UTF-8, or undefined when all of it is valid. */
+export function firstInvalidUtf8(bytes: Uint8Array): number | undefined {
+  const decoded = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
+  if (!decoded.includes("\uFFFD")) return undefined;
+  // Walk the decoded text; a U+FFFD not spelled EF BF BD in the bytes marks the first invalid byte.
+  let offset = 0;
+  for (const char of decoded) {
+    if (
+      char === "\uFFFD" &&
+      !(bytes[offset] === 0xef && bytes[offset + 1] === 0xbf && bytes[offset + 2] === 0xbd)
+    )
+      return offset;
+    offset += Buffer.byteLength(char, "utf8");
+  }
+  return undefined;
 }
 
 /** Parses notebook text (already read) into a document. */
@@ -44,7 +75,8 @@ export function parseNotebook(
   file: string,
   sha256 = createHash("sha256").update(text).digest("hex"),
 ): NotebookDocument {
-  const source = text.startsWith("\uFEFF") ? text.slice(1) : text;
+  // CR-only and CRLF line endings read as LF.
+  const source = (text.startsWith("\uFEFF") ? text.slice(1) : text).replace(/\r\n?/g, "\n");
   const { yaml, body } = splitFrontMatter(source, file);
   const frontMatter = parseFrontMatter(yaml, file);
   const lines = body.split("\n").map((l) => l.replace(/\r$/, ""));

@@ -20,6 +20,15 @@ function create(html: boolean) {
   md.options.highlight = (code, language) => highlight(code, language.split(/\s+/)[0] ?? "");
   md.validateLink = (url) =>
     !/^\s*(javascript|vbscript|data):/i.test(url) || /^\s*data:image\/(png|jpe?g|gif|webp);/i.test(url);
+  // A report fetches nothing: only images embedded as data: URLs are drawn; any other image becomes a link.
+  const image = md.renderer.rules.image!;
+  md.renderer.rules.image = (tokens, i, options, env, self) => {
+    const token = tokens[i]!;
+    const src = String(token.attrGet("src") ?? "");
+    if (/^data:image\//i.test(src)) return image(tokens, i, options, env, self);
+    const alt = String(self.renderInlineAsText(token.children ?? [], options, env));
+    return `<span class="image-link">[image not embedded: <a href="${escapeHtml(src)}">${escapeHtml(alt || src)}</a>]</span>`;
+  };
   return md;
 }
 

@@ -4,6 +4,7 @@
  * rows or pages. A patch outside the display gamut it was made for carries a symbol on the patch and the words
  * "outside <gamut>" (never colour alone), and a legend line under the swatches says what the symbol means.
  */
+import { isSwatchCssColour } from "../../cells/swatch-record.ts";
 import type { SwatchesRecord, SwatchRecord } from "../../cells/records.ts";
 import { escapeHtml } from "./escape.ts";
 
@@ -83,7 +84,9 @@ function memberLabel(s: SwatchRecord, pairLabel: string): string {
 }
 
 function chip(s: SwatchRecord): string {
-  const style = `background:${s.hex};${s.css ? `background:${s.css};` : ""}`;
+  // The css was checked in the cell process; checked again here, so no record can make the page fetch anything.
+  const css = s.css !== undefined && isSwatchCssColour(s.css) ? s.css : undefined;
+  const style = `background:${s.hex};${css ? `background:${css};` : ""}`;
   const mark = outsideDisplay(s)
     ? `<span class="gamut-mark" title="Outside the ${escapeHtml(displayOf(s))} gamut">${GAMUT_MARK}</span>`
     : "";

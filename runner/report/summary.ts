@@ -10,7 +10,7 @@ import { checkOutcomeText } from "../text/check-text.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
-import { displayLocation, errorTitle } from "../text/error-text.ts";
+import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
 
 /** What a summary section may look at. */
@@ -34,7 +34,7 @@ export const failedCellsSection: SummarySection = ({ run, notebookDir }) => {
       ? ` <span class="where">(${escapeHtml(displayLocation(error.location, notebookDir))})</span>`
       : "";
     const allowed = c.failureAllowed ? ` <span class="allowed">failure allowed by may-fail</span>` : "";
-    return `<li><a href="#cell-${c.index + 1}">Cell ${c.index + 1}</a>${where}: ${escapeHtml(error ? errorTitle(error) : "failed")}${allowed}</li>`;
+    return `<li><a href="#cell-${c.index + 1}">Cell ${c.index + 1}</a>${where}: ${escapeHtml(error ? errorHeadline(error) : "failed")}${allowed}</li>`;
   });
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
   const notRunText = notRun.length ? `<p>Not run because of the failure: ${describeCells(notRun)}.</p>` : "";

@@ -11,3 +11,13 @@ export function displayLocation(location: Location, notebookDir: string): string
 export function errorTitle(record: ErrorRecord): string {
   return record.name && record.failure !== "exit" ? `${record.name}: ${record.message}` : record.message;
 }
+
+/** Most characters of an error's heading in the summary and on the terminal (the cell's error block has it all). */
+export const MAX_HEADLINE_CHARS = 500;
+
+/** errorTitle, cut to MAX_HEADLINE_CHARS with a note saying how long it is, for lists and the terminal. */
+export function errorHeadline(record: ErrorRecord): string {
+  const title = errorTitle(record);
+  if (title.length <= MAX_HEADLINE_CHARS) return title;
+  return `${title.slice(0, MAX_HEADLINE_CHARS)}… (cut at ${MAX_HEADLINE_CHARS} characters; the report shows the message at the cell)`;
+}

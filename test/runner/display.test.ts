@@ -98,7 +98,7 @@ describe("display functions", () => {
       "hex must be an sRGB colour like #1a2b3c",
     );
     expect(() => showSwatches([{ label: "x", hex: "#000000", css: "red;background:url(x)" }])).toThrow(
-      "css must be a CSS colour function",
+      "css must be a CSS colour value",
     );
   });
 
