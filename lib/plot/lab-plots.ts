@@ -282,26 +282,7 @@ function captionFor(o: LabPlotOptions, view: View): string {
  * @example labPlane({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }], pairs: [{ label: "invented B", reference: { L: 60, a: -10, b: 30 }, sample: { L: 61, a: -8, b: 28 } }] })
  */
 export function labPlane(options: LabPlotOptions): PlotFigure {
-  checkOptions("labPlane", "options", options, [
-    "samples",
-    "pairs",
-    "title",
-    "caption",
-    "extent",
-    "labels",
-    "height",
-  ]);
-  checkWith(
-    "labPlane",
-    "options",
-    options,
-    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
-    (o) =>
-      typeof o === "object" &&
-      o !== null &&
-      (Array.isArray((o as { samples?: unknown }).samples) ||
-        Array.isArray((o as { pairs?: unknown }).pairs)),
-  );
+  checkLabPlotOptions("labPlane", options);
   return withoutMethodNotes(() => drawLabPlane(options));
 }
 
@@ -383,26 +364,7 @@ function drawLabPlane(options: LabPlotOptions): PlotFigure {
  * @example lightnessChromaPlot({ samples: [{ label: "invented A", lab: { L: 50, a: 20, b: 10 } }, { label: "invented B", lab: { L: 70, a: 5, b: 40 } }] })
  */
 export function lightnessChromaPlot(options: LabPlotOptions): PlotFigure {
-  checkOptions("lightnessChromaPlot", "options", options, [
-    "samples",
-    "pairs",
-    "title",
-    "caption",
-    "extent",
-    "labels",
-    "height",
-  ]);
-  checkWith(
-    "lightnessChromaPlot",
-    "options",
-    options,
-    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
-    (o) =>
-      typeof o === "object" &&
-      o !== null &&
-      (Array.isArray((o as { samples?: unknown }).samples) ||
-        Array.isArray((o as { pairs?: unknown }).pairs)),
-  );
+  checkLabPlotOptions("lightnessChromaPlot", options);
   return withoutMethodNotes(() => drawLightnessChromaPlot(options));
 }
 
@@ -426,5 +388,29 @@ function drawLightnessChromaPlot(options: LabPlotOptions): PlotFigure {
     layout,
     houseConfig(options.title ?? "cielab-lightness-chroma"),
     captionFor(options, "LC"),
+  );
+}
+
+/** The argument check both CIELAB plots share: known option names, and samples or pairs to draw. */
+function checkLabPlotOptions(fn: string, options: LabPlotOptions): void {
+  checkOptions(fn, "options", options, [
+    "samples",
+    "pairs",
+    "title",
+    "caption",
+    "extent",
+    "labels",
+    "height",
+  ]);
+  checkWith(
+    fn,
+    "options",
+    options,
+    "options with samples [{ label, lab }] or pairs [{ label, reference, sample }]",
+    (o) =>
+      typeof o === "object" &&
+      o !== null &&
+      (Array.isArray((o as { samples?: unknown }).samples) ||
+        Array.isArray((o as { pairs?: unknown }).pairs)),
   );
 }
