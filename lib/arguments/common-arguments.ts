@@ -79,11 +79,19 @@ function isRgbSpace(value: unknown): boolean {
   return typeof value === "object" && value !== null && (value as { kind?: unknown }).kind === "rgb space";
 }
 
+// Built once: checked on every RGB conversion, a hot path.
+const RGB_SPACE_RULE = { instead: { string: 'for a space by name use rgbSpace("…")' } };
+
 /** Throws an ArgumentError unless `value` is an RGB space object. */
 export function checkRgbSpace(fn: string, arg: string, value: unknown): void {
-  checkWith(fn, arg, value, 'an RGB space (from rgbSpace("sRGB") or rgbSpaceFromPrimaries)', isRgbSpace, {
-    instead: { string: 'for a space by name use rgbSpace("…")' },
-  });
+  checkWith(
+    fn,
+    arg,
+    value,
+    'an RGB space (from rgbSpace("sRGB") or rgbSpaceFromPrimaries)',
+    isRgbSpace,
+    RGB_SPACE_RULE,
+  );
 }
 
 /** Throws an ArgumentError unless `value` is a gamut: an RGB space or an array of at least 3 chromaticities { x, y }. */

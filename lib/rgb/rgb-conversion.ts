@@ -66,15 +66,6 @@ export function rgbFromXYZ(
   checkFields("rgbFromXYZ", "xyz", xyz, XYZ_FIELDS);
   checkRgbSpace("rgbFromXYZ", "space", space);
   if (options !== NO_OPTIONS) checkOptions("rgbFromXYZ", "options", options, ["encode"]);
-  if (
-    typeof xyz !== "object" ||
-    xyz === null ||
-    !(Number.isFinite(xyz.X) && Number.isFinite(xyz.Y) && Number.isFinite(xyz.Z))
-  ) {
-    throw new Error(
-      `rgbFromXYZ: tristimulus values (${xyz?.X}, ${xyz?.Y}, ${xyz?.Z}) must be finite numbers`,
-    );
-  }
   const s = xyzScale(space);
   const m = space.fromXYZ;
   const X = xyz.X / s,
@@ -100,7 +91,6 @@ export function rgbFromXYZ(
  * @source SMPTE RP 177-1993; the space's transfer function standard.
  * @example xyzFromRgb({ r: 1, g: 0, b: 0 }, rgbSpace("sRGB"))
  */
-
 export function xyzFromRgb(
   rgb: Rgb,
   space: RgbSpace,
@@ -109,13 +99,6 @@ export function xyzFromRgb(
   checkFields("xyzFromRgb", "rgb", rgb, RGB_FIELDS);
   checkRgbSpace("xyzFromRgb", "space", space);
   if (options !== NO_OPTIONS) checkOptions("xyzFromRgb", "options", options, ["decode"]);
-  if (
-    typeof rgb !== "object" ||
-    rgb === null ||
-    !(Number.isFinite(rgb.r) && Number.isFinite(rgb.g) && Number.isFinite(rgb.b))
-  ) {
-    throw new Error(`xyzFromRgb: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
-  }
   const decode = options.decode ?? true;
   noteSpace(space, decode);
   let r = rgb.r,
@@ -148,13 +131,6 @@ export function xyzFromRgb(
 export function isInGamut(rgb: Rgb, tolerance = 1e-6): boolean {
   checkFields("isInGamut", "rgb", rgb, RGB_FIELDS);
   checkNumber("isInGamut", "tolerance", tolerance, { min: 0 });
-  if (
-    typeof rgb !== "object" ||
-    rgb === null ||
-    !(Number.isFinite(rgb.r) && Number.isFinite(rgb.g) && Number.isFinite(rgb.b))
-  ) {
-    throw new Error(`isInGamut: RGB values (${rgb?.r}, ${rgb?.g}, ${rgb?.b}) must be finite numbers`);
-  }
   if (!(Number.isFinite(tolerance) && tolerance >= 0))
     throw new Error(`isInGamut: tolerance ${tolerance} must be a non-negative number`);
   return [rgb.r, rgb.g, rgb.b].every((v) => v >= -tolerance && v <= 1 + tolerance);

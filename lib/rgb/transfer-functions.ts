@@ -9,6 +9,15 @@ import { checkNumber } from "../arguments/check-number.ts";
 import { checkOptions } from "../arguments/check-options.ts";
 import { checkWith } from "../arguments/check-with.ts";
 
+// Argument rules built once: the transfer functions run per channel of every conversion, a hot path.
+const LINEAR_FOR_SRGB = { unit: "linear light, 0–1 for in-gamut colours" };
+const ENCODED_SIGNAL = { unit: "encoded signal, 0–1" };
+const LINEAR_LIGHT = { unit: "linear light, 0–1" };
+const POSITIVE = { above: 0 };
+const LUMINANCE = { unit: "cd/m²" };
+const SCENE_LINEAR = { unit: "scene linear light, 0–1" };
+const POSITIVE_LUMINANCE = { unit: "cd/m²", above: 0 };
+
 function requireFinite(what: string, value: number): void {
   if (typeof value !== "number" || !Number.isFinite(value))
     throw new Error(`${what}: the value ${value} is not a finite number`);
@@ -27,8 +36,7 @@ function odd(f: (x: number) => number): (x: number) => number {
  * @example srgbEncode(0.18)
  */
 export function srgbEncode(linear: number): number {
-  checkNumber("srgbEncode", "linear", linear, { unit: "linear light, 0–1 for in-gamut colours" });
-  requireFinite("srgbEncode", linear);
+  checkNumber("srgbEncode", "linear", linear, LINEAR_FOR_SRGB);
   const l = linear < 0 ? -linear : linear;
   const e = l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055;
   return linear < 0 ? -e : e;
@@ -43,8 +51,7 @@ export function srgbEncode(linear: number): number {
  * @example srgbDecode(0.5)
  */
 export function srgbDecode(signal: number): number {
-  checkNumber("srgbDecode", "signal", signal, { unit: "encoded signal, 0–1" });
-  requireFinite("srgbDecode", signal);
+  checkNumber("srgbDecode", "signal", signal, ENCODED_SIGNAL);
   const v = signal < 0 ? -signal : signal;
   const l = v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
   return signal < 0 ? -l : l;
@@ -65,9 +72,8 @@ function requireGamma(what: string, gamma: number): void {
  * @example gammaEncode(0.18, 2.2)
  */
 export function gammaEncode(linear: number, gamma: number): number {
-  checkNumber("gammaEncode", "linear", linear, { unit: "linear light, 0–1" });
-  checkNumber("gammaEncode", "gamma", gamma, { above: 0 });
-  requireFinite("gammaEncode", linear);
+  checkNumber("gammaEncode", "linear", linear, LINEAR_LIGHT);
+  checkNumber("gammaEncode", "gamma", gamma, POSITIVE);
   requireGamma("gammaEncode", gamma);
   const e = (linear < 0 ? -linear : linear) ** (1 / gamma);
   return linear < 0 ? -e : e;
@@ -83,9 +89,8 @@ export function gammaEncode(linear: number, gamma: number): number {
  * @example gammaDecode(0.5, 2.2)
  */
 export function gammaDecode(signal: number, gamma: number): number {
-  checkNumber("gammaDecode", "signal", signal, { unit: "encoded signal, 0–1" });
-  checkNumber("gammaDecode", "gamma", gamma, { above: 0 });
-  requireFinite("gammaDecode", signal);
+  checkNumber("gammaDecode", "signal", signal, ENCODED_SIGNAL);
+  checkNumber("gammaDecode", "gamma", gamma, POSITIVE);
   requireGamma("gammaDecode", gamma);
   const l = (signal < 0 ? -signal : signal) ** gamma;
   return signal < 0 ? -l : l;
@@ -100,8 +105,7 @@ export function gammaDecode(signal: number, gamma: number): number {
  * @example bt709Encode(0.18)
  */
 export function bt709Encode(linear: number): number {
-  checkNumber("bt709Encode", "linear", linear, { unit: "linear light, 0–1" });
-  requireFinite("bt709Encode", linear);
+  checkNumber("bt709Encode", "linear", linear, LINEAR_LIGHT);
   const l = linear < 0 ? -linear : linear;
   const e = l < 0.018 ? 4.5 * l : 1.099 * l ** 0.45 - 0.099;
   return linear < 0 ? -e : e;
@@ -116,8 +120,7 @@ export function bt709Encode(linear: number): number {
  * @example bt709Decode(0.409)
  */
 export function bt709Decode(signal: number): number {
-  checkNumber("bt709Decode", "signal", signal, { unit: "encoded signal, 0–1" });
-  requireFinite("bt709Decode", signal);
+  checkNumber("bt709Decode", "signal", signal, ENCODED_SIGNAL);
   const v = signal < 0 ? -signal : signal;
   const l = v < 0.081 ? v / 4.5 : ((v + 0.099) / 1.099) ** (1 / 0.45);
   return signal < 0 ? -l : l;
@@ -153,9 +156,8 @@ function bt1886Constants(what: string, d: DisplayLuminance): { a: number; b: num
  * @example bt1886Eotf(0.5, { whiteLuminance: 120, blackLuminance: 0.1 })
  */
 export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): number {
-  checkNumber("bt1886Eotf", "signal", signal, { unit: "encoded signal, 0–1" });
+  checkNumber("bt1886Eotf", "signal", signal, ENCODED_SIGNAL);
   checkOptions("bt1886Eotf", "display", display, ["whiteLuminance", "blackLuminance"]);
-  requireFinite("bt1886Eotf", signal);
   const { a, b } = bt1886Constants("bt1886Eotf", display);
   return a * Math.max(signal + b, 0) ** 2.4;
 }
@@ -170,9 +172,8 @@ export function bt1886Eotf(signal: number, display: DisplayLuminance = {}): numb
  * @example bt1886InverseEotf(20)
  */
 export function bt1886InverseEotf(luminance: number, display: DisplayLuminance = {}): number {
-  checkNumber("bt1886InverseEotf", "luminance", luminance, { unit: "cd/m²" });
+  checkNumber("bt1886InverseEotf", "luminance", luminance, LUMINANCE);
   checkOptions("bt1886InverseEotf", "display", display, ["whiteLuminance", "blackLuminance"]);
-  requireFinite("bt1886InverseEotf", luminance);
   const { a, b } = bt1886Constants("bt1886InverseEotf", display);
   return odd((l) => (l / a) ** (1 / 2.4))(luminance) - b;
 }
@@ -196,8 +197,7 @@ export const PQ_PEAK_LUMINANCE = 10000;
  * @example pqEncode(100)
  */
 export function pqEncode(luminance: number): number {
-  checkNumber("pqEncode", "luminance", luminance, { unit: "cd/m²" });
-  requireFinite("pqEncode", luminance);
+  checkNumber("pqEncode", "luminance", luminance, LUMINANCE);
   return odd((l) => {
     const ym = (l / PQ_PEAK_LUMINANCE) ** PQ_M1;
     return ((PQ_C1 + PQ_C2 * ym) / (1 + PQ_C3 * ym)) ** PQ_M2;
@@ -213,8 +213,7 @@ export function pqEncode(luminance: number): number {
  * @example pqDecode(0.5)
  */
 export function pqDecode(signal: number): number {
-  checkNumber("pqDecode", "signal", signal, { unit: "encoded signal, 0–1" });
-  requireFinite("pqDecode", signal);
+  checkNumber("pqDecode", "signal", signal, ENCODED_SIGNAL);
   return odd((n) => {
     const np = n ** (1 / PQ_M2);
     const den = PQ_C2 - PQ_C3 * np;
@@ -237,8 +236,7 @@ const HLG_C = 0.5 - HLG_A * Math.log(4 * HLG_A);
  * @example hlgEncode(0.18)
  */
 export function hlgEncode(sceneLinear: number): number {
-  checkNumber("hlgEncode", "sceneLinear", sceneLinear, { unit: "scene linear light, 0–1" });
-  requireFinite("hlgEncode", sceneLinear);
+  checkNumber("hlgEncode", "sceneLinear", sceneLinear, SCENE_LINEAR);
   return odd((e) => (e <= 1 / 12 ? Math.sqrt(3 * e) : HLG_A * Math.log(12 * e - HLG_B) + HLG_C))(sceneLinear);
 }
 
@@ -251,8 +249,7 @@ export function hlgEncode(sceneLinear: number): number {
  * @example hlgDecode(0.5)
  */
 export function hlgDecode(signal: number): number {
-  checkNumber("hlgDecode", "signal", signal, { unit: "encoded signal, 0–1" });
-  requireFinite("hlgDecode", signal);
+  checkNumber("hlgDecode", "signal", signal, ENCODED_SIGNAL);
   return odd((v) => (v <= 0.5 ? (v * v) / 3 : (Math.exp((v - HLG_C) / HLG_A) + HLG_B) / 12))(signal);
 }
 
@@ -270,7 +267,7 @@ export function hlgDisplayLight(
   peakLuminance = 1000,
 ): { r: number; g: number; b: number } {
   checkFields("hlgDisplayLight", "sceneLinear", sceneLinear, RGB_FIELDS);
-  checkNumber("hlgDisplayLight", "peakLuminance", peakLuminance, { unit: "cd/m²", above: 0 });
+  checkNumber("hlgDisplayLight", "peakLuminance", peakLuminance, POSITIVE_LUMINANCE);
   for (const k of ["r", "g", "b"] as const) requireFinite(`hlgDisplayLight (${k})`, sceneLinear[k]);
   if (!(Number.isFinite(peakLuminance) && peakLuminance > 0))
     throw new Error(`hlgDisplayLight: peak luminance ${peakLuminance} cd/m² must be positive`);
@@ -361,6 +358,8 @@ const TRANSFERS: Record<TransferName, TransferFunction> = {
  * @example transferFunction("sRGB").encode(0.5)
  */
 export function transferFunction(name: TransferName | string): TransferFunction {
+  // Known names return at once: the conversions ask on every call, and the refusal's message lists every name.
+  if (typeof name === "string" && Object.hasOwn(TRANSFERS, name)) return TRANSFERS[name as TransferName];
   checkWith(
     "transferFunction",
     "name",

@@ -63,6 +63,9 @@ function duvAt(u: number, v: number, cct: number): number {
   return Math.hypot(u - p.u, v - p.v) * Math.sign(v - p.v);
 }
 
+// Built once: checked on every call, a hot path.
+const CCT_XY_FIELDS = { ...XY_FIELDS, instead: { spectrum: "for a spectrum use cctFromSpectrum" } };
+
 /**
  * Correlated colour temperature and Duv of a CIE 1931 chromaticity (Ohno's combined method by default, or Robertson's).
  *
@@ -75,10 +78,7 @@ function duvAt(u: number, v: number, cct: number): number {
  * @example cctAndDuv({ x: 0.3127, y: 0.329 })
  */
 export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
-  checkFields("cctAndDuv", "xy", xy, {
-    ...XY_FIELDS,
-    instead: { spectrum: "for a spectrum use cctFromSpectrum" },
-  });
+  checkFields("cctAndDuv", "xy", xy, CCT_XY_FIELDS);
   checkCctOptions("cctAndDuv", options);
   checkXy(xy, "cctAndDuv");
   const method = options.method ?? "ohno";
