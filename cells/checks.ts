@@ -1,5 +1,5 @@
 /**
- * Acceptance checks: a cell states a measured value and its limits (`check`) or a plain condition (`checkThat`).
+ * Acceptance checks: a cell states a measured value and its limits (`check`) or a plain condition (`checkCondition`).
  * Each becomes a check record, shown in place and counted in the report's summary; a failed check makes
  * `tristim run` exit with code 3 so a notebook can gate a QA step. The value is compared at full precision, never
  * as rounded for display.
@@ -34,7 +34,7 @@ export function check(label: string, value: number, limits: CheckOptions): boole
 }
 
 /** States an acceptance check on a plain condition (true passes); `detail` says what was checked. Returns it. */
-export function checkThat(label: string, condition: boolean, detail?: string): boolean {
+export function checkCondition(label: string, condition: boolean, detail?: string): boolean {
   const record = conditionRecord(label, condition, detail);
   emitRecord(record);
   return record.passed;
@@ -105,16 +105,16 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
   return { ...base, passed, value, valueText: valueText(value, digits, bounds, passed) };
 }
 
-/** The check record of `checkThat` (pure; throws a TypeError for a label or condition of the wrong type). */
+/** The check record of `checkCondition` (pure; throws a TypeError for a label or condition of the wrong type). */
 export function conditionRecord(label: string, condition: boolean, detail?: string): CheckRecord {
-  requireLabel(label, "checkThat");
+  requireLabel(label, "checkCondition");
   if (typeof condition !== "boolean") {
     throw new TypeError(
-      `checkThat "${label}": the condition must be true or false, got ${describe(condition)}; compare explicitly, e.g. list.length > 0`,
+      `checkCondition "${label}": the condition must be true or false, got ${describe(condition)}; compare explicitly, e.g. list.length > 0`,
     );
   }
   if (detail !== undefined && typeof detail !== "string") {
-    throw new TypeError(`checkThat "${label}": detail must be a string, got ${describe(detail)}`);
+    throw new TypeError(`checkCondition "${label}": detail must be a string, got ${describe(detail)}`);
   }
   return { kind: "check", label, passed: condition, ...(detail ? { detail } : {}) };
 }

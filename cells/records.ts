@@ -143,23 +143,23 @@ export interface CheckLimits {
 }
 
 /**
- * An acceptance check stated by `check(label, value, limits)` or `checkThat(label, condition, detail)`. Shown in
+ * An acceptance check stated by `check(label, value, limits)` or `checkCondition(label, condition, detail)`. Shown in
  * place and counted in the summary at the top; a failed check makes `tristim run` exit with code 3.
  */
 export interface CheckRecord {
   readonly kind: "check";
   readonly label: string;
   readonly passed: boolean;
-  /** The checked value; null when it was not a finite number; absent for a plain condition (checkThat). */
+  /** The checked value; null when it was not a finite number; absent for a plain condition (checkCondition). */
   readonly value?: number | null;
   /** The value as the report shows it (formatted with `digits`, or "NaN", "undefined", ...); absent for a condition. */
   readonly valueText?: string;
   readonly unit?: string;
-  /** Absent for a plain condition (checkThat). */
+  /** Absent for a plain condition (checkCondition). */
   readonly limits?: CheckLimits;
   /** Decimals for the value and the limits in the report; default up to 6 significant digits. */
   readonly digits?: number;
-  /** A remark: the detail given to checkThat, or why the value could not be checked. */
+  /** A remark: the detail given to checkCondition, or why the value could not be checked. */
   readonly detail?: string;
 }
 

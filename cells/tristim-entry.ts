@@ -7,7 +7,7 @@
 export * from "../lib/index.ts";
 export { show, showTable, showFigure, showSwatches, showMarkdown, showHtml, showCaution } from "./display.ts";
 export type { TableColumn, TableOptions, FigureInput, TrustOptions } from "./display.ts";
-export { check, checkThat } from "./checks.ts";
+export { check, checkCondition } from "./checks.ts";
 export type { CheckOptions } from "./checks.ts";
 export type { SwatchRecord, PlotSpec } from "./records.ts";
 export { inputs } from "./inputs.ts";

@@ -74,7 +74,7 @@ Acceptance checks (shown in place and summarised at the top; a failed one makes 
   check(label, value, { min, max, target, tolerance, unit, digits })
                            passes when every limit given holds: min <= value <= max,
                            |value - target| <= tolerance; NaN, Infinity or a non-number fails
-  checkThat(label, condition, detail?)
+  checkCondition(label, condition, detail?)
                            passes when condition is true
   Both return true or false.
 
@@ -82,7 +82,7 @@ Exit codes:
   ${EXIT.ok}  every notebook ran and its report was written (typecheck: no type errors)
   ${EXIT.notebookFailed}  a cell failed, or a notebook could not be read or parsed (typecheck: a type error)
   ${EXIT.usage}  wrong command line (unknown option, bad value, unknown input name)
-  ${EXIT.checkFailed}  every cell ran, but an acceptance check failed (check / checkThat)
+  ${EXIT.checkFailed}  every cell ran, but an acceptance check failed (check / checkCondition)
   With several notebooks the most severe code is returned: ${EXIT.internal}, then ${EXIT.notebookFailed}, then ${EXIT.checkFailed}; a failed cell (${EXIT.notebookFailed})
   wins over a failed check (${EXIT.checkFailed}).
   ${EXIT.internal}  the runner itself failed (report not writable, internal error; TRISTIM_DEBUG=1 shows details)

@@ -10,7 +10,7 @@
  *     loaded library);
  *   - the body runs inside an async function, so top-level `await` works;
  *   - the value of a final expression statement is returned, so the report can show it (except a call of `check` or
- *     `checkThat`, whose true/false the check record already shows);
+ *     `checkCondition`, whose true/false the check record already shows);
  *
  * Every edit keeps the line count, and the returned anchors map any offset in the result back to the input, so error
  * positions can be traced to the notebook through esbuild's source map.
@@ -199,9 +199,9 @@ function visit(node: AnyNode, fn: (n: AnyNode) => void): void {
 }
 
 /** The display functions that return a value the report shows already (acceptance checks return pass/fail). */
-const SHOWN_ALREADY = new Set(["check", "checkThat"]);
+const SHOWN_ALREADY = new Set(["check", "checkCondition"]);
 
-/** `check(...)` or `checkThat(...)` as a plain call (an `await`ed one too). */
+/** `check(...)` or `checkCondition(...)` as a plain call (an `await`ed one too). */
 function isCheckCall(expression: AnyNode): boolean {
   const call = expression.type === "AwaitExpression" ? (expression.argument as AnyNode) : expression;
   if (call.type !== "CallExpression") return false;

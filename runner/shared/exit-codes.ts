@@ -9,7 +9,7 @@ export const EXIT = {
   notebookFailed: 1,
   /** The command line was wrong (unknown command or option, bad value, unknown input name). */
   usage: 2,
-  /** Every cell ran, but an acceptance check (check / checkThat) failed. A failed cell (1) wins over this. */
+  /** Every cell ran, but an acceptance check (check / checkCondition) failed. A failed cell (1) wins over this. */
   checkFailed: 3,
   /** The runner itself failed: a report could not be written, or an internal error (set TRISTIM_DEBUG=1 for details). */
   internal: 4,

@@ -8,7 +8,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { check, checkRecord, checkThat, conditionRecord } from "../../cells/checks.ts";
+import { check, checkRecord, checkCondition, conditionRecord } from "../../cells/checks.ts";
 import { installOutputSink } from "../../cells/output-sink.ts";
 import type { CheckRecord, OutputRecord } from "../../cells/records.ts";
 import { checkResults, countChecks } from "../../runner/records/check-results.ts";
@@ -102,7 +102,7 @@ describe("check(): the pass rule", () => {
     });
   });
 
-  it("checkThat takes a true/false condition and an optional detail", () => {
+  it("checkCondition takes a true/false condition and an optional detail", () => {
     expect(conditionRecord("all patches read", true)).toEqual({
       kind: "check",
       label: "all patches read",
@@ -120,7 +120,7 @@ describe("check(): the pass rule", () => {
   });
 });
 
-describe("check() and checkThat() as display functions", () => {
+describe("check() and checkCondition() as display functions", () => {
   let records: OutputRecord[] = [];
   beforeEach(() => {
     records = [];
@@ -130,7 +130,7 @@ describe("check() and checkThat() as display functions", () => {
 
   it("emit one check record each and return whether it passed", () => {
     expect(check("white Y", 180, { min: 150, unit: "cd/m²" })).toBe(true);
-    expect(checkThat("ramp monotonic", false)).toBe(false);
+    expect(checkCondition("ramp monotonic", false)).toBe(false);
     expect(records.map((r) => r.kind)).toEqual(["check", "check"]);
   });
 });
@@ -188,7 +188,7 @@ describe("checks in a run", () => {
         ts(
           'check("τv", 0.125, { min: 0.08, max: 0.18, unit: "", digits: 3 });\ncheck("ΔE00 patch 3", 2.6, { max: 2, digits: 2 })',
         ) +
-        ts('const n = 12;\ncheckThat("all 12 filters measured", n === 12)') +
+        ts('const n = 12;\ncheckCondition("all 12 filters measured", n === 12)') +
         ts('check("<b>evil</b>", Number.NaN, { max: 1 })'),
     );
     expect(run.cells.map((c) => c.status)).toEqual(["ok", "ok", "ok"]);
@@ -241,7 +241,7 @@ describe("tristim run with checks", () => {
     expect(ok.out).toContain("1 check passed");
 
     const failing = notebookFile(
-      ts('check("white Δu′v′", 0.0052, { max: 0.004 });\ncheckThat("ramp monotonic", true)'),
+      ts('check("white Δu′v′", 0.0052, { max: 0.004 });\ncheckCondition("ramp monotonic", true)'),
     );
     const bad = tristim(["run", failing]);
     expect(bad.code).toBe(EXIT.checkFailed);

@@ -20,7 +20,7 @@ const NOTEBOOK =
     "import fs from 'node:fs';\nconst text = fs.readFileSync('data/abc.txt', 'utf8');\nconst w = whitePoint();\n" +
       "check('sum', 0.1 + 0.2, { max: inputs.limit, digits: 2, unit: 'cd/m²' });\n" +
       "check('Y of the white', w.Y, { target: 100, tolerance: 0.01 });\n" +
-      "checkThat('file says abc', text === 'abc', 'read from data/abc.txt');\n" +
+      "checkCondition('file says abc', text === 'abc', 'read from data/abc.txt');\n" +
       "show({ category: 3, caution: 'Informative only: the applicable standard decides.' });",
   ) +
   ts("throw new RangeError('lamp out of range');", "may-fail") +

@@ -16,7 +16,7 @@ const DISPLAY_NAMES = [
   "showHtml",
   "showCaution",
   "check",
-  "checkThat",
+  "checkCondition",
   "inputs",
 ];
 

@@ -99,7 +99,7 @@ describe("tristim typecheck: cells linked as in a run", () => {
 
   it("knows the display functions and checks as globals, with their parameter types", () => {
     const text = ts(
-      'check("white Y", 100, { target: 100, tolerance: 0.5 });\ncheckThat("ok", true);\nshowTable([{ a: 1 }], { digits: 2 });\n' +
+      'check("white Y", 100, { target: 100, tolerance: 0.5 });\ncheckCondition("ok", true);\nshowTable([{ a: 1 }], { digits: 2 });\n' +
         'showTable("not rows");\ncheck("c", 1, { tolerence: 1 });',
     );
     const { found } = check(text);

@@ -93,10 +93,10 @@ describe("hoistCell", () => {
     expect(typeof globals.get("g")?.()).toBe("function");
   });
 
-  it("does not return a final check(...) or checkThat(...) call as the cell's value", async () => {
-    for (const call of ['check("x", 1)', 'checkThat("y", true)']) {
+  it("does not return a final check(...) or checkCondition(...) call as the cell's value", async () => {
+    for (const call of ['check("x", 1)', 'checkCondition("y", true)']) {
       const hoisted = hoistCell(`${call};\n`);
-      const { value } = await runHoisted(hoisted, { check: () => true, checkThat: () => true });
+      const { value } = await runHoisted(hoisted, { check: () => true, checkCondition: () => true });
       expect(value).toBeUndefined();
     }
     const { value } = await runHoisted(hoistCell("other();\n"), { other: () => "shown" });
