@@ -22,7 +22,7 @@ import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
-import { escapeControls } from "../text/terminal-text.ts";
+import { escapeControls, indentLines, notebookErrorText } from "../text/terminal-text.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument } from "../execute/run-notebook.ts";
 import { RuntimeBuildError } from "../execute/runtime-bundle.ts";
@@ -51,7 +51,7 @@ export async function main(argv: readonly string[], given: Io = terminal): Promi
       return EXIT.usage;
     }
     if (e instanceof NotebookError) {
-      io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
+      io.err(notebookErrorText(e, shown(e.file)));
       return EXIT.notebookFailed;
     }
     if (e instanceof ReportFolderError) {
@@ -261,7 +261,7 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       documents.push(readNotebook(file));
     } catch (e) {
       if (!(e instanceof NotebookError)) throw e;
-      io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
+      io.err(notebookErrorText(e, shown(e.file)));
       exit = EXIT.notebookFailed;
     }
   }
@@ -400,7 +400,7 @@ export function printOutcome(
         ? `${shown(document.path)}:${error.location.line}:${error.location.column}`
         : where;
     io.err(
-      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${error?.codeFrame ? `${indent(error.codeFrame)}\n` : ""}`,
+      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${error?.codeFrame ? `${indentLines(error.codeFrame)}\n` : ""}`,
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
@@ -421,11 +421,4 @@ function isDirectory(p: string): boolean {
 /** A path as the user would type it: relative to the working folder when inside it. */
 function shown(file: string): string {
   return displayPath(file, process.cwd(), "as given");
-}
-
-function indent(text: string): string {
-  return text
-    .split("\n")
-    .map((l) => `  ${l}`)
-    .join("\n");
 }

@@ -3,6 +3,10 @@
  * per cell; stops at the first failure (later cells are marked not run) unless told to keep going, in which case a
  * cell process that had to be stopped is replaced by a fresh one (earlier bindings are then gone, and the report
  * says so). Reads the library's method log after the last cell.
+ *
+ * The state of one execution is an `ExecutionState`, driven by named steps that a test can call one by one:
+ * `startProcess` (a cell process when none is alive), `runCell` (one cell to its CellRun), `finish` (the process's
+ * last method notes, and an error raised after the cells finished, given to the cell that left code running).
  */
 import type { InputValue } from "../../cells/inputs.ts";
 import type { ErrorRecord, OutputRecord } from "../../cells/records.ts";
@@ -42,153 +46,178 @@ export async function executeCells(
   runtime: RuntimeBundle,
   options: ExecuteOptions,
 ): Promise<Execution> {
-  const outputs = document.cells.map((): OutputRecord[] => []);
-  const runs: (CellRun | undefined)[] = document.cells.map(() => undefined);
-  const events: string[] = [];
-  const methods: MethodNote[] = [];
-  const methodsMissingFrom: number[] = [];
-  const methodKeys = new Set<string>();
-  // Each cell reports the method log so far; merged in first-use order, so a later crash or restart loses nothing.
-  const noteMethods = (notes: readonly MethodNote[]) => {
-    for (const m of notes) {
-      const key = `${m.topic}\0${m.statement}`;
-      if (!methodKeys.has(key))
-        (methodKeys.add(key), methods.push({ topic: m.topic, statement: m.statement }));
-    }
-  };
-  const onOutput = (cell: number, records: readonly OutputRecord[]) => outputs[cell]?.push(...records);
-  let process: CellProcess | undefined;
-  let stopped: string | undefined;
-  let lastRan: number | undefined;
+  const state = new ExecutionState(document, compiled, runtime, options);
+  for (const cell of document.cells) await state.runCell(cell.index);
+  await state.finish();
+  return state.result();
+}
 
-  const finishCell = (run: CellRun) => {
-    runs[run.index] = run;
-    options.onCell?.(run);
-  };
-  const fail = (index: number, error: ErrorRecord, durationMs?: number, reads: readonly string[] = []) => {
-    const allowed = document.cells[index]!.options.mayFail;
-    outputs[index]!.push(error);
-    finishCell({
-      index,
-      status: "failed",
-      outputs: outputs[index]!,
-      durationMs,
-      reads,
-      ...(allowed ? { failureAllowed: true } : {}),
-    });
-    if (!allowed && !options.keepGoing) stopped = `cell ${index + 1} failed`;
-  };
+/** One cell's place in an execution: the outputs it has sent so far, and its run once it finished. */
+interface CellSlot {
+  readonly outputs: OutputRecord[];
+  run?: CellRun;
+}
 
-  for (const cell of document.cells) {
-    const index = cell.index;
-    if (cell.options.noRun) {
-      finishCell({ index, status: "listing", outputs: [], reads: [] });
-      continue;
-    }
-    if (stopped) {
-      finishCell({ index, status: "not-run", outputs: [], reads: [] });
-      continue;
-    }
-    const unit = compiled[index];
+/** The state of one execution of a document's cells, with the steps that advance it. */
+export class ExecutionState {
+  private readonly slots: CellSlot[];
+  private readonly events: string[] = [];
+  private readonly methods: MethodNote[] = [];
+  private readonly methodKeys = new Set<string>();
+  private readonly methodsMissingFrom: number[] = [];
+  private process: CellProcess | undefined;
+  /** Why later cells do not run (a failure, or a cell process that could not start); unset while they do. */
+  private stopped: string | undefined;
+  /** The last cell that ran in the current process: an error raised after the cells finished is its. */
+  private lastRan: number | undefined;
+
+  constructor(
+    private readonly document: NotebookDocument,
+    private readonly compiled: readonly (CompiledCell | undefined)[],
+    private readonly runtime: RuntimeBundle,
+    private readonly options: ExecuteOptions,
+  ) {
+    this.slots = document.cells.map(() => ({ outputs: [] }));
+  }
+
+  /** Step: runs cell `index` (or marks it a listing or not run) and records its CellRun. */
+  async runCell(index: number): Promise<void> {
+    const cell = this.document.cells[index]!;
+    if (cell.options.noRun) return this.record({ index, status: "listing", outputs: [], reads: [] });
+    if (this.stopped) return this.record({ index, status: "not-run", outputs: [], reads: [] });
+    const unit = this.compiled[index];
     if (!unit?.code || unit.failure) {
-      fail(
-        index,
-        unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, document),
-      );
-      continue;
+      const error =
+        unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, this.document);
+      return this.fail(index, error);
     }
-    if (!process?.alive) {
-      if (process) {
-        events.push(
-          `The cell process was started again before cell ${index + 1}; values from the cells before it were lost, so cells that use them may fail.`,
-        );
-      }
-      try {
-        const early = process ? undefined : options.started;
-        process = await (early ?? CellProcess.start(runtime, document.path, options.inputs, options.signal));
-        process.onOutput = onOutput;
-      } catch (e) {
-        if (!(e instanceof CellProcessStartError)) throw e;
-        const error = mapError(
-          { ...e.error, failure: "startup", message: `the cell process could not start: ${e.error.message}` },
-          index,
-          document,
-          compiled,
-        );
-        outputs[index]!.push(error);
-        finishCell({ index, status: "failed", outputs: outputs[index]!, reads: [] });
-        stopped = "the cell process could not start";
-        continue;
-      }
-    }
-    const limit = cell.options.timeLimitMs ?? options.timeLimitMs;
+    const process = await this.startProcess(index);
+    if (!process) return;
+    const limit = cell.options.timeLimitMs ?? this.options.timeLimitMs;
     const outcome = await process.run(
       { type: "run", cell: index, code: unit.code, filename: unit.filename, importBundle: unit.importBundle },
       limit,
-      options.signal,
+      this.options.signal,
     );
-    lastRan = index;
+    this.lastRan = index;
     if (outcome.kind === "time-limit") {
       const how =
         cell.options.timeLimitMs === undefined
           ? `the run's time limit of ${formatTimeLimit(limit)} (raise it with --time-limit, or with time-limit=… on this cell's fence line)`
           : `its time limit of ${formatTimeLimit(limit)} (set by time-limit=… on its fence line)`;
-      methodsMissingFrom.push(index);
-      fail(
-        index,
-        cellLevelError(
-          "time-limit",
-          `cell ${index + 1} did not finish within ${how}; it was stopped`,
-          index,
-          document,
-        ),
-        outcome.durationMs,
-      );
+      this.methodsMissingFrom.push(index);
+      const message = `cell ${index + 1} did not finish within ${how}; it was stopped`;
+      this.fail(index, cellLevelError("time-limit", message, index, this.document), outcome.durationMs);
     } else if (outcome.kind === "crash") {
-      methodsMissingFrom.push(index);
-      fail(
-        index,
-        cellLevelError(
-          "crash",
-          `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`,
-          index,
-          document,
-        ),
-        outcome.durationMs,
-      );
+      this.methodsMissingFrom.push(index);
+      const message = `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`;
+      this.fail(index, cellLevelError("crash", message, index, this.document), outcome.durationMs);
     } else if (outcome.error) {
-      noteMethods(outcome.methods);
-      fail(index, mapError(outcome.error, index, document, compiled), outcome.durationMs, outcome.reads);
+      this.noteMethods(outcome.methods);
+      const error = mapError(outcome.error, index, this.document, this.compiled);
+      this.fail(index, error, outcome.durationMs, outcome.reads);
     } else {
-      noteMethods(outcome.methods);
-      finishCell({
-        index,
-        status: "ok",
-        outputs: outputs[index]!,
-        durationMs: outcome.durationMs,
-        reads: outcome.reads,
-      });
+      this.noteMethods(outcome.methods);
+      const { outputs } = this.slots[index]!;
+      this.record({ index, status: "ok", outputs, durationMs: outcome.durationMs, reads: outcome.reads });
     }
   }
 
-  if (process?.alive) {
-    const finished = await process.finish();
-    if (finished) {
-      noteMethods(finished.methods);
-      const late = finished.lateErrorCell ?? lastRan;
-      if (finished.lateError && late !== undefined && runs[late]) {
-        // An error raised after the cells finished, by code a cell left running: it belongs to that cell.
-        const previous = runs[late]!;
-        outputs[late]!.push(mapError(finished.lateError, late, document, compiled));
-        runs[late] = { ...previous, status: "failed", outputs: outputs[late]! };
-      }
+  /**
+   * Step: the live cell process for cell `index`, started (or started again, which the report states) when none is
+   * alive. On a failure to start, fails the cell, stops the run and gives undefined.
+   */
+  async startProcess(index: number): Promise<CellProcess | undefined> {
+    if (this.process?.alive) return this.process;
+    if (this.process) {
+      this.events.push(
+        `The cell process was started again before cell ${index + 1}; values from the cells before it were lost, so cells that use them may fail.`,
+      );
+      this.lastRan = undefined;
+    }
+    try {
+      const early = this.process ? undefined : this.options.started;
+      const { runtime, document, options } = this;
+      this.process = await (early ??
+        CellProcess.start(runtime, document.path, options.inputs, options.signal));
+      this.process.onOutput = (cell, records) => this.slots[cell]?.outputs.push(...records);
+      return this.process;
+    } catch (e) {
+      if (!(e instanceof CellProcessStartError)) throw e;
+      const message = `the cell process could not start: ${e.error.message}`;
+      const error = mapError(
+        { ...e.error, failure: "startup", message },
+        index,
+        this.document,
+        this.compiled,
+      );
+      const { outputs } = this.slots[index]!;
+      outputs.push(error);
+      this.record({ index, status: "failed", outputs, reads: [] });
+      this.stopped = "the cell process could not start";
+      return undefined;
     }
   }
-  process?.kill();
-  return {
-    cells: runs.map((r, i) => r ?? { index: i, status: "not-run", outputs: [], reads: [] }),
-    methods,
-    methodsMissingFrom,
-    events,
-  };
+
+  /**
+   * Step, after the last cell: reads the process's last method notes and an error raised after the cells finished
+   * by code a cell left running (a timer, a promise); that error makes its cell failed. Then ends the process.
+   */
+  async finish(): Promise<void> {
+    if (this.process?.alive) {
+      const finished = await this.process.finish();
+      if (finished) {
+        this.noteMethods(finished.methods);
+        const late = finished.lateErrorCell ?? this.lastRan;
+        const slot = late === undefined ? undefined : this.slots[late];
+        if (finished.lateError && late !== undefined && slot?.run) {
+          slot.outputs.push(mapError(finished.lateError, late, this.document, this.compiled));
+          slot.run = { ...slot.run, status: "failed", outputs: slot.outputs };
+        }
+      }
+    }
+    this.process?.kill();
+  }
+
+  /** What the execution produced so far (every cell not yet recorded counts as not run). */
+  result(): Execution {
+    return {
+      cells: this.slots.map(
+        (slot, index) => slot.run ?? { index, status: "not-run", outputs: [], reads: [] },
+      ),
+      methods: [...this.methods],
+      methodsMissingFrom: [...this.methodsMissingFrom],
+      events: [...this.events],
+    };
+  }
+
+  /** Each cell reports the method log so far; merged in first-use order, so a later crash or restart loses nothing. */
+  private noteMethods(notes: readonly MethodNote[]): void {
+    for (const { topic, statement } of notes) {
+      const key = `${topic}\0${statement}`;
+      if (this.methodKeys.has(key)) continue;
+      this.methodKeys.add(key);
+      this.methods.push({ topic, statement });
+    }
+  }
+
+  private record(run: CellRun): void {
+    this.slots[run.index]!.run = run;
+    this.options.onCell?.(run);
+  }
+
+  private fail(index: number, error: ErrorRecord, durationMs?: number, reads: readonly string[] = []): void {
+    const allowed = this.document.cells[index]!.options.mayFail;
+    const { outputs } = this.slots[index]!;
+    outputs.push(error);
+    this.record({
+      index,
+      status: "failed",
+      outputs,
+      durationMs,
+      reads,
+      ...(allowed ? { failureAllowed: true } : {}),
+    });
+    if (!allowed && !this.options.keepGoing) this.stopped = `cell ${index + 1} failed`;
+  }
 }

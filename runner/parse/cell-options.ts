@@ -33,18 +33,20 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
       const bad = rest.slice(at).trim().split(/\s+/)[0];
       throw new NotebookError(
         `cannot read the cell option "${bad}"; write options as words, e.g. hide-source caption="A caption"`,
-        file,
-        line,
+        { file, line },
       );
     }
     at = pattern.lastIndex;
     const name = m[1]!;
     const raw = m[2];
-    if (seen.has(name)) throw new NotebookError(`the cell option "${name}" is given twice`, file, line);
+    if (seen.has(name)) throw new NotebookError(`the cell option "${name}" is given twice`, { file, line });
     seen.add(name);
     if ((CELL_FLAGS as readonly string[]).includes(name)) {
       if (raw !== undefined)
-        throw new NotebookError(`the cell option "${name}" takes no value (write just ${name})`, file, line);
+        throw new NotebookError(`the cell option "${name}" takes no value (write just ${name})`, {
+          file,
+          line,
+        });
       if (name === "hide-source") options.hideSource = true;
       if (name === "show-source") options.showSource = true;
       if (name === "no-run") options.noRun = true;
@@ -53,8 +55,7 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
       if (raw === undefined || raw === '""') {
         throw new NotebookError(
           `the cell option "${name}" needs a value, e.g. ${name === "caption" ? 'caption="Spectral radiance of lamp 2"' : "time-limit=90s"}`,
-          file,
-          line,
+          { file, line },
         );
       }
       const value = raw.startsWith('"') ? raw.slice(1, -1).replace(/\\(.)/g, "$1") : raw;
@@ -63,23 +64,21 @@ export function parseCellOptions(text: string, file: string, line: number): Cell
         try {
           options.timeLimitMs = parseTimeLimit(value, "time-limit");
         } catch (e) {
-          throw new NotebookError(e instanceof UsageError ? e.message : String(e), file, line);
+          throw new NotebookError(e instanceof UsageError ? e.message : String(e), { file, line });
         }
       }
     } else {
       throw new NotebookError(
         `unknown cell option "${name}" (known options: ${[...CELL_FLAGS, ...CELL_VALUE_OPTIONS.map((o) => `${o}=...`)].join(", ")})`,
-        file,
-        line,
+        { file, line },
       );
     }
   }
   if (options.hideSource && options.showSource) {
-    throw new NotebookError(
-      'the cell options "hide-source" and "show-source" contradict each other',
+    throw new NotebookError('the cell options "hide-source" and "show-source" contradict each other', {
       file,
       line,
-    );
+    });
   }
   return options;
 }

@@ -15,8 +15,7 @@ export function splitFrontMatter(text: string, file: string): { yaml: string | n
   if (end < 0) {
     throw new NotebookError(
       "the front matter that starts with --- on line 1 is never closed; end it with a line holding only ---",
-      file,
-      1,
+      { file, line: 1 },
     );
   }
   return {
@@ -37,14 +36,13 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
     const column = before.length - before.lastIndexOf("\n");
     const message = error.message.split("\n")[0]!.replace(/ at line \d+, column \d+:?$/, "");
     // The YAML starts on line 2 of the file (after the opening ---).
-    throw new NotebookError(`invalid front matter: ${message}`, file, yamlLine + 1, column);
+    throw new NotebookError(`invalid front matter: ${message}`, { file, line: yamlLine + 1, column });
   }
   const data: unknown = doc.toJS();
   if (data === null || typeof data !== "object" || Array.isArray(data)) {
     throw new NotebookError(
       "invalid front matter: expected keys such as title:, author:, date: and inputs:",
-      file,
-      2,
+      { file, line: 2 },
     );
   }
   const record = data as Record<string, unknown>;
@@ -52,8 +50,7 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
     if (!(FRONT_MATTER_KEYS as readonly string[]).includes(key)) {
       throw new NotebookError(
         `invalid front matter: unknown key "${key}" (known keys: ${FRONT_MATTER_KEYS.join(", ")})`,
-        file,
-        lineOfKey(yamlText, key),
+        { file, line: lineOfKey(yamlText, key) },
       );
     }
   }
@@ -62,11 +59,10 @@ export function parseFrontMatter(yamlText: string | null, file: string): FrontMa
     if (v === undefined || v === null) return undefined;
     if (typeof v === "string" || typeof v === "number") return String(v);
     if (v instanceof Date) return v.toISOString().slice(0, 10);
-    throw new NotebookError(
-      `invalid front matter: ${key} must be a single line of text`,
+    throw new NotebookError(`invalid front matter: ${key} must be a single line of text`, {
       file,
-      lineOfKey(yamlText, key),
-    );
+      line: lineOfKey(yamlText, key),
+    });
   };
   return {
     title: text("title"),
@@ -80,11 +76,10 @@ function parseInputs(value: unknown, yamlText: string, file: string): Record<str
   if (value === undefined || value === null) return {};
   const line = lineOfKey(yamlText, "inputs");
   if (typeof value !== "object" || Array.isArray(value)) {
-    throw new NotebookError(
-      "invalid front matter: inputs must map each input name to its default value",
+    throw new NotebookError("invalid front matter: inputs must map each input name to its default value", {
       file,
       line,
-    );
+    });
   }
   const out: Record<string, InputValue> = {};
   for (const [name, def] of Object.entries(value as Record<string, unknown>)) {
@@ -92,8 +87,7 @@ function parseInputs(value: unknown, yamlText: string, file: string): Record<str
     if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(name)) {
       throw new NotebookError(
         `invalid front matter: input name "${name}" must be a plain identifier (letters, digits, _)`,
-        file,
-        where,
+        { file, line: where },
       );
     }
     out[name] = checkInputValue(def, name, file, where);
@@ -106,8 +100,7 @@ function checkInputValue(value: unknown, name: string, file: string, line: numbe
     if (!Number.isFinite(value))
       throw new NotebookError(
         `invalid front matter: input "${name}" has the default ${value}; use a finite number`,
-        file,
-        line,
+        { file, line },
       );
     return value;
   }
@@ -121,8 +114,7 @@ function checkInputValue(value: unknown, name: string, file: string, line: numbe
   }
   throw new NotebookError(
     `invalid front matter: input "${name}" needs a default value (a number, text, true/false or a list); its type is taken from it`,
-    file,
-    line,
+    { file, line },
   );
 }
 

@@ -22,19 +22,19 @@ const markdown = new MarkdownIt("commonmark");
 export function readNotebook(file: string): NotebookDocument {
   const absolute = path.resolve(file);
   if (!(NOTEBOOK_EXTENSIONS as readonly string[]).includes(path.extname(absolute).toLowerCase())) {
-    throw new NotebookError(`not a notebook: a notebook is a Markdown file ending in .md`, file);
+    throw new NotebookError(`not a notebook: a notebook is a Markdown file ending in .md`, { file });
   }
   let bytes: Buffer;
   try {
     bytes = fs.readFileSync(absolute);
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    if (code === "ENOENT") throw new NotebookError("no such file", file);
-    if (code === "EISDIR") throw new NotebookError("this is a folder, not a notebook file", file);
-    throw new NotebookError(`cannot read the file (${code ?? String(e)})`, file);
+    if (code === "ENOENT") throw new NotebookError("no such file", { file });
+    if (code === "EISDIR") throw new NotebookError("this is a folder, not a notebook file", { file });
+    throw new NotebookError(`cannot read the file (${code ?? String(e)})`, { file });
   }
   if (bytes.includes(0))
-    throw new NotebookError("not a notebook: the file holds binary data, not Markdown text", file);
+    throw new NotebookError("not a notebook: the file holds binary data, not Markdown text", { file });
   const invalid = firstInvalidUtf8(bytes);
   if (invalid !== undefined) {
     const before = bytes.subarray(0, invalid).toString("utf8");
@@ -44,9 +44,7 @@ export function readNotebook(file: string): NotebookDocument {
     const byte = bytes[invalid]!.toString(16).toUpperCase().padStart(2, "0");
     throw new NotebookError(
       `not UTF-8 text: byte 0x${byte} is not valid UTF-8 (the file may be Latin-1 or Windows-1252); save the notebook as UTF-8`,
-      file,
-      line,
-      column,
+      { file, line, column },
     );
   }
   return parseNotebook(bytes.toString("utf8"), absolute, createHash("sha256").update(bytes).digest("hex"));
@@ -123,9 +121,7 @@ function checkClosed(
   if (!ok) {
     throw new NotebookError(
       `the code fence opened here is never closed; add a line with ${markup} after the code`,
-      file,
-      start + 1,
-      undefined,
+      { file, line: start + 1 },
       codeFrame(text, start + 1),
     );
   }

@@ -51,13 +51,13 @@ export function editorTypesCommand(args: readonly string[], io: Io): ExitCode | 
 export function writeEditorTypes(folder: string): string[] {
   const dir = path.resolve(folder);
   if (!fs.existsSync(dir) || !fs.statSync(dir).isDirectory())
-    throw new NotebookError("no such folder (editor-types writes into a notebook folder)", folder);
+    throw new NotebookError("no such folder (editor-types writes into a notebook folder)", { file: folder });
   const targets = [path.join(dir, EDITOR_FILES.globals), path.join(dir, EDITOR_FILES.tsconfig)];
   for (const target of targets) {
     if (fs.existsSync(target) && !fs.readFileSync(target, "utf8").startsWith(MARKER))
       throw new NotebookError(
         "this file exists and was not written by tristim editor-types; move it away or merge the settings by hand",
-        target,
+        { file: target },
       );
   }
   const [globals, tsconfig] = targets as [string, string];

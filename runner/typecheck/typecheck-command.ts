@@ -9,6 +9,7 @@ import { readNotebook } from "../parse/parse-notebook.ts";
 import { NotebookError, UsageError } from "../shared/errors.ts";
 import { EXIT, type ExitCode } from "../shared/exit-codes.ts";
 import { displayPath } from "../text/display-path.ts";
+import { indentLines, notebookErrorText } from "../text/terminal-text.ts";
 import { createTypecheckSession, type TypecheckSession } from "./typecheck.ts";
 import type { TypeDiagnostic } from "./type-diagnostic.ts";
 
@@ -49,7 +50,7 @@ export function typecheckFiles(
       document = readNotebook(file);
     } catch (e) {
       if (!(e instanceof NotebookError)) throw e;
-      io.err(`${e.where(shown(e.file))}\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`);
+      io.err(notebookErrorText(e, shown(e.file)));
       exit = EXIT.notebookFailed;
       continue;
     }
@@ -74,16 +75,9 @@ export function diagnosticText(d: TypeDiagnostic, cwd = process.cwd()): string {
   const { file, line, column } = d.location;
   const [first, ...more] = d.message.split("\n");
   const rest = more.map((l) => `  ${l.trim()}\n`).join("");
-  return `${displayPath(file, cwd, "as given")}:${line}:${column}: ${first}\n${rest}${indent(d.codeFrame)}\n`;
+  return `${displayPath(file, cwd, "as given")}:${line}:${column}: ${first}\n${rest}${indentLines(d.codeFrame)}\n`;
 }
 
 function shown(file: string): string {
   return displayPath(file, process.cwd(), "as given");
-}
-
-function indent(text: string): string {
-  return text
-    .split("\n")
-    .map((l) => `  ${l}`)
-    .join("\n");
 }

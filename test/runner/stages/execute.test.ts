@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { OutputRecord } from "../../../cells/records.ts";
 import { compileCells, type CompiledCell } from "../../../runner/compile/compile-cell.ts";
 import { CellProcess } from "../../../runner/execute/cell-process.ts";
-import { executeCells } from "../../../runner/execute/execute.ts";
+import { ExecutionState, executeCells } from "../../../runner/execute/execute.ts";
 import { runtimeBundle, type RuntimeBundle } from "../../../runner/execute/runtime-bundle.ts";
 import { parseNotebook } from "../../../runner/parse/parse-notebook.ts";
 import type { NotebookDocument } from "../../../runner/parse/notebook.ts";
@@ -139,5 +139,37 @@ describe("executeCells", () => {
       inputs: {},
     });
     expect(listed.cells[0]).toMatchObject({ status: "listing", outputs: [] });
+  }, 60_000);
+});
+
+describe("ExecutionState, step by step", () => {
+  it("runs one cell per step; unrecorded cells read as not run; finish gives a late error to the cell that left it", async () => {
+    const { document, compiled } = await compiledNotebook(
+      [
+        "const n = 2;\nshow(n);",
+        "setTimeout(() => { throw new Error('late from the timer'); }, 20);",
+        "show(n + 1);",
+      ],
+      "steps",
+    );
+    const state = new ExecutionState(document, compiled, runtime, {
+      timeLimitMs: 10_000,
+      keepGoing: false,
+      inputs: {},
+    });
+    try {
+      await state.runCell(0);
+      expect(state.result().cells.map((c) => c.status)).toEqual(["ok", "not-run", "not-run"]);
+      await state.runCell(1);
+      await state.runCell(2);
+      expect(state.result().cells.map((c) => c.status)).toEqual(["ok", "ok", "ok"]);
+      await state.finish();
+      const cells = state.result().cells;
+      // The timer of cell 2 threw after every cell had finished: cell 2 is the one marked failed, with the error.
+      expect(cells.map((c) => c.status)).toEqual(["ok", "failed", "ok"]);
+      expect(JSON.stringify(cells[1]!.outputs)).toContain("late from the timer");
+    } finally {
+      await state.finish();
+    }
   }, 60_000);
 });
