@@ -189,6 +189,7 @@ export type FailureKind =
   | "time-limit" // the cell ran past its time limit and its process was stopped
   | "exit" // the cell called process.exit()
   | "crash" // the cell process ended unexpectedly
+  | "out-of-memory" // the cell process reached its heap limit (TRISTIM_MEMORY_LIMIT_MB)
   | "unserializable" // the cell asked to show something that cannot be stored as data
   | "startup"; // the cell process or the standard library could not start
 

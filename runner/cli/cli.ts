@@ -22,6 +22,7 @@ import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
 import { checkLine } from "../text/check-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
+import { PACKAGE_ROOT } from "../shared/package-root.ts";
 import { escapeControls, indentLines, notebookErrorText } from "../text/terminal-text.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument } from "../execute/run-notebook.ts";
@@ -399,8 +400,17 @@ export function printOutcome(
       error?.location && error.location.file === document.path
         ? `${shown(document.path)}:${error.location.line}:${error.location.column}`
         : where;
+    // Raised in a helper file the cell imported: the notebook's place first, then the helper's own.
+    const raised = error?.stack?.[0];
+    const helper =
+      raised &&
+      error?.location?.file === document.path &&
+      raised.file !== document.path &&
+      !isLibraryFile(raised.file)
+        ? `  raised in ${displayLocation(raised, dir)}\n`
+        : "";
     io.err(
-      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${error?.codeFrame ? `${indentLines(error.codeFrame)}\n` : ""}`,
+      `${place}: cell ${cell.index + 1} failed: ${error ? errorHeadline(error) : "failed"}\n${helper}${error?.codeFrame ? `${indentLines(error.codeFrame)}\n` : ""}`,
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
@@ -408,6 +418,11 @@ export function printOutcome(
   for (const c of failedChecks) io.err(`  check failed (cell ${c.cell + 1}): ${checkLine(c.record)}\n`);
   io.err(`  report with the error: ${shown(target)}\n`);
   return EXIT.notebookFailed;
+}
+
+/** True for a file of tristim itself (its library), whose place means little to the notebook's author. */
+function isLibraryFile(file: string): boolean {
+  return file.startsWith(PACKAGE_ROOT + path.sep);
 }
 
 function isDirectory(p: string): boolean {

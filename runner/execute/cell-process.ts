@@ -15,6 +15,21 @@ export const STARTUP_LIMIT_MS = 60_000;
 /** How long the cell process may take to answer "finish" after the last cell. */
 export const FINISH_LIMIT_MS = 10_000;
 
+/** The heap limit of a cell process in MB unless TRISTIM_MEMORY_LIMIT_MB says otherwise. */
+export const DEFAULT_MEMORY_LIMIT_MB = 4096;
+
+/** The heap limit a cell process gets (MB): TRISTIM_MEMORY_LIMIT_MB when it is a whole number ≥ 16, else the default. */
+export function memoryLimitMb(env: NodeJS.ProcessEnv = process.env): number {
+  const asked = Number(env.TRISTIM_MEMORY_LIMIT_MB);
+  return Number.isInteger(asked) && asked >= 16 ? asked : DEFAULT_MEMORY_LIMIT_MB;
+}
+
+/** What V8 prints when a process reaches its heap limit. */
+const OUT_OF_MEMORY = /heap out of memory|Reached heap limit|Allocation failed/;
+/** Lines of a crashed process's output that belong to the engine or the runner, never to the notebook. */
+const ENGINE_OR_RUNNER_LINE =
+  /node::|\[node\]|0x[0-9a-f]{6,}|Native stack trace|^\s*-----|Last few GCs|FATAL ERROR|Security context|^\s*\d+: tristim-cell-\d+\.js|\/runtime\/[0-9a-f]+\/worker\.mjs|node:internal|^\s*\d+:\s*$|^\s*<---|^\s*\[\d+:0x/;
+
 /** How one cell ended, seen from the runner. */
 export type CellOutcome =
   | {
@@ -25,7 +40,8 @@ export type CellOutcome =
       readonly methods: readonly MethodNote[];
     }
   | { readonly kind: "time-limit"; readonly durationMs: number }
-  | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string };
+  | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string }
+  | { readonly kind: "out-of-memory"; readonly durationMs: number; readonly limitMb: number };
 
 /** The cell process of a run, or of part of a run after a restart. */
 export class CellProcess {
@@ -35,6 +51,7 @@ export class CellProcess {
   private groupEnded = false;
   private exitDetail = "";
   private stderrTail = "";
+  private readonly limitMb = memoryLimitMb();
   private listeners = new Set<(message: FromCellProcess) => void>();
   private exitListeners = new Set<() => void>();
 
@@ -42,7 +59,7 @@ export class CellProcess {
   onOutput: (cell: number, records: readonly OutputRecord[]) => void = () => undefined;
 
   private constructor(runtime: RuntimeBundle, folder: string) {
-    this.child = spawn(process.execPath, [runtime.worker], {
+    this.child = spawn(process.execPath, [`--max-old-space-size=${this.limitMb}`, runtime.worker], {
       cwd: folder,
       stdio: ["ignore", "pipe", "pipe", "ipc"],
       env: { ...process.env, NODE_NO_WARNINGS: "1" },
@@ -149,7 +166,11 @@ export class CellProcess {
       this.kill();
       return { kind: "time-limit", durationMs };
     }
-    if (answer === "exit") return { kind: "crash", durationMs, detail: this.describeExit() };
+    if (answer === "exit") {
+      if (OUT_OF_MEMORY.test(this.stderrTail))
+        return { kind: "out-of-memory", durationMs, limitMb: this.limitMb };
+      return { kind: "crash", durationMs, detail: this.describeExit() };
+    }
     const done = answer as Extract<FromCellProcess, { type: "done" }>;
     return {
       kind: "done",
@@ -198,9 +219,18 @@ export class CellProcess {
     return !this.exited && !this.killed;
   }
 
+  /** How the process ended, with its last lines of output, less the engine's native frames and the runner's own. */
   private describeExit(): string {
-    const tail = this.stderrTail.trim().split("\n").slice(-6).join("\n");
-    return tail ? `${this.exitDetail}; its last output was:\n${tail}` : this.exitDetail;
+    const tail = this.stderrTail
+      .trim()
+      .split("\n")
+      .filter((line) => line.trim() !== "" && !ENGINE_OR_RUNNER_LINE.test(line))
+      .slice(-6)
+      .join("\n");
+    const detail = this.exitDetail.endsWith("SIGABRT")
+      ? `${this.exitDetail} (process.abort(), or a fatal error inside Node.js)`
+      : this.exitDetail;
+    return tail ? `${detail}; its last output was:\n${tail}` : detail;
   }
 
   private send(message: ToCellProcess): void {

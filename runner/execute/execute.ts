@@ -108,6 +108,10 @@ export class ExecutionState {
       this.methodsMissingFrom.push(index);
       const message = `cell ${index + 1} did not finish within ${how}; it was stopped`;
       this.fail(index, cellLevelError("time-limit", message, index, this.document), outcome.durationMs);
+    } else if (outcome.kind === "out-of-memory") {
+      this.methodsMissingFrom.push(index);
+      const message = `cell ${index + 1} ran out of memory: a cell process may use up to ${outcome.limitMb} MB of heap; raise the limit by setting TRISTIM_MEMORY_LIMIT_MB (in MB) before the run, or make the cell keep less`;
+      this.fail(index, cellLevelError("out-of-memory", message, index, this.document), outcome.durationMs);
     } else if (outcome.kind === "crash") {
       this.methodsMissingFrom.push(index);
       const message = `the cell process ended unexpectedly while cell ${index + 1} ran: ${outcome.detail}`;

@@ -30,11 +30,13 @@ export function mapError(
   const inCell =
     frames.find((f) => f.file === document.path && f.line >= cell.firstLine) ??
     frames.find((f) => f.file === document.path);
-  const location = inCell ?? frames[0];
+  // An error raised in a helper the cell imported (while it loads, or in a callback): the notebook's import line.
+  const importLine = inCell || !frames[0] ? undefined : importLineOf(frames[0].file, cell, document);
+  const location = inCell ?? importLine ?? frames[0];
   const record: { -readonly [K in keyof ErrorRecord]: ErrorRecord[K] } = {
     kind: "error",
     failure: raw.failure,
-    message: raw.message,
+    message: withoutRunnerPaths(raw.message, cellIndex, document),
   };
   if (raw.name) record.name = raw.name;
   if (location) {
@@ -46,6 +48,35 @@ export function mapError(
   }
   if (frames.length > 0) record.stack = frames;
   return record;
+}
+
+/** The runner's own cell-process script, named in Node's messages ("imported from …/runtime/…/worker.mjs"). */
+const RUNNER_SCRIPT = /(file:\/\/)?\/\S*?\/runtime\/[0-9a-f]+\/worker\.mjs/g;
+
+/** A message with the runner's temporary paths replaced by the cell that was running (the user's code). */
+function withoutRunnerPaths(message: string, cellIndex: number, document: NotebookDocument): string {
+  return message.replace(RUNNER_SCRIPT, `cell ${cellIndex + 1} of ${path.basename(document.path)}`);
+}
+
+/** The place in `cell` of the import statement (static or dynamic) that names `file`, when there is one. */
+function importLineOf(
+  file: string,
+  cell: NotebookDocument["cells"][number],
+  document: NotebookDocument,
+): StackFrameRecord | undefined {
+  const folder = path.dirname(document.path);
+  const stem = (p: string) => p.replace(/\.(m|c)?[jt]sx?$/, "");
+  const lines = cell.code.split("\n");
+  for (let i = 0; i < lines.length; i++) {
+    for (const m of lines[i]!.matchAll(/(?:\bfrom|\bimport)\s*\(?\s*["']([^"']+)["']/g)) {
+      const specifier = m[1]!;
+      if (!specifier.startsWith(".") && !specifier.startsWith("/")) continue;
+      if (stem(path.resolve(folder, specifier)) !== stem(file)) continue;
+      const column = (m.index ?? 0) + 1 + cell.columnOffset;
+      return { file: document.path, line: cell.firstLine + i, column };
+    }
+  }
+  return undefined;
 }
 
 /** An error record for a failure that has no stack (time limit, crash), placed at the cell's fence line. */

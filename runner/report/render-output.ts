@@ -200,6 +200,7 @@ const FAILURE_LABEL: Record<ErrorRecord["failure"], string> = {
   "time-limit": "ran past its time limit",
   exit: "called process.exit()",
   crash: "stopped the cell process",
+  "out-of-memory": "ran out of memory",
   unserializable: "tried to show something that cannot be stored",
   startup: "could not start",
 };

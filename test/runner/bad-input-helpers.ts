@@ -17,9 +17,16 @@ export interface CommandResult {
  * the output pipes open counts as a hang). The deadline is generous (a loaded 2-core machine); it is a hang guard,
  * not a timing assertion.
  */
-export function tristimCommand(args: readonly string[], deadlineMs = 120_000): Promise<CommandResult> {
+export function tristimCommand(
+  args: readonly string[],
+  deadlineMs = 120_000,
+  env: NodeJS.ProcessEnv = {},
+): Promise<CommandResult> {
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, [BIN, ...args], { stdio: ["ignore", "pipe", "pipe"] });
+    const child = spawn(process.execPath, [BIN, ...args], {
+      stdio: ["ignore", "pipe", "pipe"],
+      env: { ...process.env, ...env },
+    });
     let out = "";
     let err = "";
     let hung = false;

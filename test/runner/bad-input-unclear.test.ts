@@ -53,3 +53,76 @@ describe("front matter and line endings", () => {
     expect(error && "location" in error ? error.location?.line : undefined).toBe(5);
   });
 });
+
+/** The runner's own temporary script and frames, which must never reach a user. */
+const RUNNER_PLACES = /worker\.mjs|\/runtime\/[0-9a-f]+\/|node::|0x[0-9a-f]{8}/;
+
+describe("crashes and imports placed in the notebook", () => {
+  it(
+    "a cell that runs out of memory is said to, with the limit and how to raise it, and no engine frames",
+    async () => {
+      const notebook = notebookFile(
+        `# Memory\n\n${ts("const kept: number[][] = [];\nwhile (true) kept.push(new Array(1e6).fill(1.5));")}`,
+      );
+      const r = await tristimCommand(["run", notebook], 120_000, { TRISTIM_MEMORY_LIMIT_MB: "64" });
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err).toMatch(
+        /nb\.md:3:1: cell 1 failed: cell 1 ran out of memory: .* up to 64 MB .*TRISTIM_MEMORY_LIMIT_MB/,
+      );
+      expect(r.err).not.toMatch(RUNNER_PLACES);
+      expect(r.err).not.toMatch(/SIGABRT|FATAL ERROR/);
+      const html = fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8");
+      expect(html).toContain("ran out of memory");
+      expect(html).not.toMatch(RUNNER_PLACES);
+    },
+    LIMIT,
+  );
+
+  it(
+    "process.abort() is placed at its notebook line, without the runner's frames or temporary paths",
+    async () => {
+      const notebook = notebookFile(`# Abort\n\n${ts("show(1);")}\n${ts("process.abort();")}`);
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err).toMatch(/nb\.md:7:1: cell 2 failed: .*SIGABRT \(process\.abort\(\)/);
+      expect(r.err).toContain("> 8 | process.abort();");
+      expect(r.err).not.toMatch(RUNNER_PLACES);
+      expect(fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8")).not.toMatch(RUNNER_PLACES);
+    },
+    LIMIT,
+  );
+
+  it(
+    "a failed dynamic import() names the cell and notebook, not the runner's script",
+    async () => {
+      const notebook = notebookFile(
+        `# Import\n\n${ts('const m = await import("./missing-helper.ts");\nshow(m);')}`,
+      );
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      expect(r.err).toMatch(
+        /nb\.md:4:17: cell 1 failed: .*missing-helper\.ts.* imported from cell 1 of nb\.md/,
+      );
+      expect(r.err).not.toMatch(RUNNER_PLACES);
+      expect(fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8")).not.toMatch(RUNNER_PLACES);
+    },
+    LIMIT,
+  );
+
+  it(
+    "an error in an imported helper names the notebook and its import line first, then the helper's place",
+    async () => {
+      const notebook = notebookFile(
+        `# Helper\n\nText.\n\n${ts('const x = 1;\nimport { k } from "./broken.ts";\nshow(k + x);')}`,
+        { "broken.ts": 'export const k = 1;\nthrow new Error("helper broke at load");\n' },
+      );
+      const r = await tristimCommand(["run", notebook]);
+      expect(r.code).toBe(EXIT.notebookFailed);
+      const lines = r.err.split("\n");
+      expect(lines[0]).toMatch(/nb\.md:7:\d+: cell 1 failed: Error: helper broke at load$/);
+      expect(lines[1]).toBe("  raised in broken.ts:2:7");
+      expect(r.err).toContain('> 7 | import { k } from "./broken.ts";');
+    },
+    LIMIT,
+  );
+});
