@@ -75,6 +75,31 @@ describe("notebooks that are not UTF-8", () => {
   });
 });
 
+describe("data files that are not UTF-8, read by a cell", () => {
+  it(
+    "a Latin-1 CGATS file and a Latin-1 CSV keep the sample name Grün, and the report states the encoding",
+    async () => {
+      const notebook = notebookFile(
+        `# Readings\n\n${ts('const a = readColourReadings("latin.cgats");\nconst b = readColourReadings("latin.csv");\nshow(`${a.records[0]!.name}|${b.records[0]!.name}`);')}`,
+      );
+      const folder = notebook.replace(/nb\.md$/, "");
+      const cgats =
+        'CGATS.17\nORIGINATOR "Invented lab"\nNUMBER_OF_FIELDS 4\nBEGIN_DATA_FORMAT\nSAMPLE_NAME XYZ_X XYZ_Y XYZ_Z\n' +
+        'END_DATA_FORMAT\nNUMBER_OF_SETS 1\nBEGIN_DATA\n"Gr\xfcn" 20.1 30.2 10.3\nEND_DATA\n';
+      fs.writeFileSync(`${folder}latin.cgats`, Buffer.from(cgats, "latin1"));
+      fs.writeFileSync(`${folder}latin.csv`, Buffer.from("name;X;Y;Z\nGr\xfcn;20,1;30,2;10,3\n", "latin1"));
+      const r = await tristimCommand(["run", notebook, "--reproducible"]);
+      expect(r.err).toBe("");
+      expect(r.code).toBe(EXIT.ok);
+      const html = fs.readFileSync(notebook.replace(/\.md$/, ".html"), "utf8");
+      expect(html).toContain("Grün|Grün");
+      expect(html).not.toContain("\uFFFD");
+      expect(html).toMatch(/Windows-1252[^<]*inferred because the bytes are not valid UTF-8/);
+    },
+    LIMIT,
+  );
+});
+
 describe("huge values and error messages are cut with a note", () => {
   it(
     "a 20 M-character string value is cut at 200,000 characters with a note saying how long it was",
