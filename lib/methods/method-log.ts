@@ -61,10 +61,9 @@ let previousStatement: string | undefined;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  // The fast path first: a note equal to the last one was checked when it was recorded.
+  // The fast paths first: a note equal to the last or the one before was checked when it was recorded, so a loop
+  // alternating two notes (sRGB → XYZ → CIELAB) neither checks nor looks up anything.
   if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
-  checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
-  checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
   if (statement === previousStatement && topic === previousTopic) {
     previousTopic = lastTopic;
     previousStatement = lastStatement;
@@ -72,6 +71,8 @@ export function noteMethod(topic: MethodTopic, statement: string): void {
     lastStatement = statement;
     return;
   }
+  checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
+  checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
   previousTopic = lastTopic;
   previousStatement = lastStatement;
   lastTopic = topic;

@@ -2,6 +2,7 @@
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { RgbSpace } from "./rgb-space.ts";
+import { srgbDecodeChecked, srgbEncodeChecked } from "./srgb-curve.ts";
 import { PQ_PEAK_LUMINANCE, transferFunction } from "./transfer-functions.ts";
 import { RGB_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
 import { checkNumber } from "../arguments/check-number.ts";
@@ -77,6 +78,9 @@ export function rgbFromXYZ(
   const encode = options.encode ?? true;
   noteSpace(space, encode);
   if (!encode) return { r, g, b };
+  // sRGB, the common case, without checking each finite channel again (the XYZ fields were checked).
+  if (space.transfer === "sRGB")
+    return { r: srgbEncodeChecked(r), g: srgbEncodeChecked(g), b: srgbEncodeChecked(b) };
   const t = transferFunction(space.transfer);
   return { r: t.encode(r), g: t.encode(g), b: t.encode(b) };
 }
@@ -104,7 +108,12 @@ export function xyzFromRgb(
   let r = rgb.r,
     g = rgb.g,
     b = rgb.b;
-  if (decode) {
+  if (decode && space.transfer === "sRGB") {
+    // The common case, without checking each channel again (the RGB fields were checked).
+    r = srgbDecodeChecked(r);
+    g = srgbDecodeChecked(g);
+    b = srgbDecodeChecked(b);
+  } else if (decode) {
     const t = transferFunction(space.transfer);
     r = t.decode(r);
     g = t.decode(g);

@@ -5,6 +5,7 @@
  * visible as out of gamut instead of turning into NaN.
  */
 import { RGB_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { srgbDecodeChecked, srgbEncodeChecked } from "./srgb-curve.ts";
 import { checkNumber } from "../arguments/check-number.ts";
 import { checkOptions } from "../arguments/check-options.ts";
 import { checkWith } from "../arguments/check-with.ts";
@@ -37,9 +38,7 @@ function odd(f: (x: number) => number): (x: number) => number {
  */
 export function srgbEncode(linear: number): number {
   checkNumber("srgbEncode", "linear", linear, LINEAR_FOR_SRGB);
-  const l = linear < 0 ? -linear : linear;
-  const e = l <= 0.0031308 ? 12.92 * l : 1.055 * l ** (1 / 2.4) - 0.055;
-  return linear < 0 ? -e : e;
+  return srgbEncodeChecked(linear);
 }
 
 /**
@@ -52,9 +51,7 @@ export function srgbEncode(linear: number): number {
  */
 export function srgbDecode(signal: number): number {
   checkNumber("srgbDecode", "signal", signal, ENCODED_SIGNAL);
-  const v = signal < 0 ? -signal : signal;
-  const l = v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
-  return signal < 0 ? -l : l;
+  return srgbDecodeChecked(signal);
 }
 
 function requireGamma(what: string, gamma: number): void {
