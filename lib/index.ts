@@ -50,5 +50,8 @@ export * from "./halftone/index.ts";
 export * from "./rendering/index.ts";
 export * from "./files/index.ts";
 
+// Measurement uncertainty (issue 13): input models, Monte Carlo (JCGM 101), first order (JCGM 100).
+export * from "./uncertainty/index.ts";
+
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";
