@@ -20,6 +20,7 @@ export * from "./illuminants/standard-illuminant.ts";
 
 export * from "./colorimetry/chromaticity.ts";
 export * from "./colorimetry/tristimulus.ts";
+export * from "./colorimetry/astm-weights.ts";
 export * from "./colorimetry/cielab.ts";
 
 // Core colorimetry added by the colorimetry owner below this line.

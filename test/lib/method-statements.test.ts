@@ -187,6 +187,13 @@ function exercise(): Map<string, MethodNote[]> {
     t.parseColourReadings("Bench: x\nname;L*;a*;b*\nA;50,5;1;2\n", { units: { Lab: "" } });
     t.parseColourReadings(text);
   });
+  run("colorimetry/astm-weights.ts", () => {
+    const tenNm = t.spectrumOnGrid(400, 10, new Array(31).fill(0.5), { quantity: "reflectance" });
+    t.astmWeightingFactors({ interval: 20, illuminant: "D50", bandpass: "included" });
+    t.bandpassCorrection(tenNm);
+    t.objectColour(tenNm);
+    t.whitePoint({ interval: 10 });
+  });
   run("uncertainty", () => {
     const blank = on5(() => 0.6, "transmittance", "blank");
     const inputs = {
@@ -314,6 +321,7 @@ describe("Methods statements are full sentences", () => {
       "files/cgats-fields.ts": /were taken from CGATS spectral fields/,
       "files/cgats-write.ts": /CGATS\.17 text was written/,
       "files/colour-readings-read.ts": /A table of colorimetric readings/,
+      "colorimetry/astm-weights.ts": /method of ASTM E2022|Stearns–Stearns method/,
       "uncertainty/monte-carlo.ts": /Monte Carlo method of JCGM 101/,
       "uncertainty/first-order.ts": /law of propagation of uncertainty to first order/,
       "uncertainty/method-statements.ts": /was modelled as a normal distribution/,
