@@ -236,6 +236,23 @@ function intervalMeetsLimits(low: number, high: number, limits: CheckLimits): bo
   return lo <= hi;
 }
 
+/**
+ * How a value with its expanded uncertainty stands against limits under a decision rule, without stating a check
+ * (for tables of verdicts that are results, not gates of the run): the rule, guard band, acceptance zone, outcome
+ * ("pass", "marginal pass", "marginal fail", "fail") and whether it was accepted. Limits and options as for `check`.
+ */
+export function acceptanceDecision(
+  value: number | UncertainValue,
+  limits: CheckOptions,
+): CheckDecision & { readonly accepted: boolean } {
+  const record = checkRecord("acceptanceDecision", value, limits);
+  if (!record.decision)
+    throw new RangeError(
+      "acceptanceDecision: give the value's expanded uncertainty (uncertainty: U, or { estimate, expandedUncertainty } as the value)",
+    );
+  return { ...record.decision, accepted: record.passed };
+}
+
 /** The check record of `checkCondition` (pure; throws a TypeError for a label or condition of the wrong type). */
 export function conditionRecord(label: string, condition: boolean, detail?: string): CheckRecord {
   requireLabel(label, "checkCondition");

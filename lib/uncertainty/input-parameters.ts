@@ -167,8 +167,8 @@ function expandSpectrum(name: string, input: SpectralInput): ExpandedInput {
       `a bandwidth error (triangular bandpass ${fmt(bw!.bandwidth)} nm, standard uncertainty ${fmt(bw!.u)} nm, effect S″·Δ(b²)/12)`,
     );
   const description = parts.length
-    ? `the measured spectrum "${s.name}" with ${joinWords(parts)}, each normal and independent of the others`
-    : `the measured spectrum "${s.name}" with no uncertainty stated`;
+    ? `a measured ${s.quantity === "other" ? "" : `${s.quantity} `}spectrum with ${joinWords(parts)}, each normal and independent of the others`
+    : `a measured spectrum with no uncertainty stated`;
   return {
     name,
     dims,

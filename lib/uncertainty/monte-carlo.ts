@@ -196,13 +196,22 @@ export function monteCarloUncertainty(
       const tolerance = numericalTolerance(mc.standardUncertainty, digits);
       const lowDifference = Math.abs(fo.interval.low - mc.interval.low);
       const highDifference = Math.abs(fo.interval.high - mc.interval.high);
-      const agrees = lowDifference <= tolerance && highDifference <= tolerance;
-      agreement[name] = { agrees, tolerance, lowDifference, highDifference };
+      // Too few trials must not pass for non-linearity: twice the Monte Carlo standard error of each interval end
+      // (from 10 batches of the trials) is allowed beyond δ.
+      const [seLow, seHigh] = endStandardErrors(used[names.indexOf(name)]!, p, kind);
+      const agrees = lowDifference <= tolerance + 2 * seLow && highDifference <= tolerance + 2 * seHigh;
+      agreement[name] = {
+        agrees,
+        tolerance,
+        lowDifference,
+        highDifference,
+        monteCarloAllowance: [2 * seLow, 2 * seHigh],
+      };
       if (!agrees) disagreeing.push(name);
     }
     if (disagreeing.length)
       warnings.push(
-        `The law of propagation of uncertainty (first order) does not agree with the Monte Carlo result for ${disagreeing.map((n) => `"${n}"`).join(", ")} within the numerical tolerance of ${digits} significant digits of u (JCGM 101:2008 §8): the model is not linear enough for first order there; the Monte Carlo result is the one to report.`,
+        `The law of propagation of uncertainty (first order) does not agree with the Monte Carlo result for ${disagreeing.map((n) => `"${n}"`).join(", ")} within the numerical tolerance of ${digits} significant digits of u and the Monte Carlo standard error of the interval ends (JCGM 101:2008 §8): the model is not linear enough for first order there; the Monte Carlo result is the one to report.`,
       );
   }
 
@@ -228,6 +237,26 @@ export function monteCarloUncertainty(
     ...(firstOrder ? { firstOrder, agreement: agreement! } : {}),
     ...(warnings.length ? { warning: warnings.join(" ") } : {}),
   };
+}
+
+/** Standard errors of the interval ends, from the spread of the ends over 10 batches of the values. */
+function endStandardErrors(
+  values: Float64Array,
+  p: number,
+  kind: "symmetric" | "shortest",
+): [number, number] {
+  const h = 10;
+  const size = Math.floor(values.length / h);
+  if (size < 100) return [0, 0];
+  const lows = new Float64Array(h),
+    highs = new Float64Array(h);
+  for (let b = 0; b < h; b++) {
+    const [lo, hi] = coverageIntervalOfSorted(values.slice(b * size, (b + 1) * size).sort(), p, kind);
+    lows[b] = lo;
+    highs[b] = hi;
+  }
+  // The batches have 1/h of the trials: the standard error of the whole run's ends is their spread ÷ √h.
+  return [meanAndDeviation(lows)[1] / Math.sqrt(h), meanAndDeviation(highs)[1] / Math.sqrt(h)];
 }
 
 function formatPercent(p: number): string {

@@ -27,6 +27,8 @@ export interface AgreementCheck {
   /** |y − U_p − y_low| and |y + U_p − y_high| (§8.2). */
   readonly lowDifference: number;
   readonly highDifference: number;
+  /** Twice the Monte Carlo standard error of the low and high interval ends, allowed beyond δ. */
+  readonly monteCarloAllowance: readonly [number, number];
 }
 
 export interface UncertaintyResult {
