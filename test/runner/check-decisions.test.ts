@@ -14,6 +14,7 @@ import { checkLine, valueText } from "../../runner/text/check-text.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { okCell, runRecord } from "./run-records.ts";
+import { outputsOf, runText, ts } from "./helpers.ts";
 
 describe("decision rules", () => {
   // The issue's case: τv = 0.64 against a limit of 0.65 … here as a minimum: τv ≥ 0.65.
@@ -120,6 +121,18 @@ describe("words, report, run record and exit code", () => {
 
   it("a marginal pass alone exits 0", () => {
     expect(runExitCode(runRecord([okCell(0, [records[0]!])]))).toBe(EXIT.ok);
+  });
+});
+
+describe("tables", () => {
+  it('show an uncertainty result\'s output as "value ± U (k = 2)" (JCGM 100 §7.2.6: U to two significant digits)', async () => {
+    const { run } = await runText(
+      ts(
+        'showTable([{ blank: "A", tauV: { estimate: 26.5432, expandedUncertainty: 0.2071, standardUncertainty: 0.1 } }])',
+      ),
+    );
+    const table = outputsOf(run, 0, "table")[0]!;
+    expect(table.rows).toEqual([["A", "26.54 ± 0.21 (k = 2)"]]);
   });
 });
 
