@@ -181,6 +181,29 @@ describe("linear models: Monte Carlo agrees with the JCGM 100 formula u² = Σ c
   });
 });
 
+describe("shortest and symmetric intervals (JCGM 101 §7.7)", () => {
+  it("Y = X², X ~ N(0, 1): χ²(1) quantiles (standard tables, recalled from memory): symmetric [0.00098, 5.02], shortest [0, 3.84]", () => {
+    const model = (v: Record<string, number | Spectrum>) => (v.x as number) ** 2;
+    const x = { x: normalInput(0, 1) };
+    const sym = monteCarloUncertainty(model, x, { trials: 200_000, seed: 21, compare: false }).outputs.y!;
+    const short = monteCarloUncertainty(model, x, {
+      trials: 200_000,
+      seed: 21,
+      interval: "shortest",
+      compare: false,
+    }).outputs.y!;
+    expect(sym.interval.low).toBeCloseTo(0.00098, 3);
+    expect(sym.interval.high).toBeCloseTo(5.024, 1);
+    expect(short.interval.low).toBeLessThan(1e-4);
+    expect(short.interval.high).toBeCloseTo(3.841, 1);
+    expect(Math.abs(sym.standardUncertainty - Math.SQRT2)).toBeLessThan(0.02); // var χ²(1) = 2; 3σ of s at 2·10⁵ trials
+    // First order sees no sensitivity at x = 0 (∂y/∂x = 0): the comparison must flag it.
+    const compared = monteCarloUncertainty(model, x, { trials: 20_000, seed: 3 });
+    expect(compared.firstOrder!.outputs.y!.standardUncertainty).toBeLessThan(1e-3);
+    expect(compared.warning).toMatch(/not linear enough/);
+  });
+});
+
 describe("coverage by seeded repetition", () => {
   it("about 95 % of 400 seeded repeats contain the true value of Y = X1 + 2 X2 (binomial 3σ band)", () => {
     const truth = { a: 1, b: 0.5 };
