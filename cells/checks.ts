@@ -6,6 +6,7 @@
  */
 import { inspect } from "node:util";
 import { emitRecord } from "./emit.ts";
+import { noteMethod } from "../lib/methods/method-log.ts";
 import { checkDigits, formatNumber } from "./format-number.ts";
 import type { CheckDecision, CheckLimits, CheckRecord } from "./records.ts";
 
@@ -60,6 +61,7 @@ const OPTION_KEYS = [
  */
 export function check(label: string, value: number | UncertainValue, limits: CheckOptions): boolean {
   const record = checkRecord(label, value, limits);
+  if (record.decision) noteDecisionRule(record.decision);
   emitRecord(record);
   return record.passed;
 }
@@ -250,7 +252,18 @@ export function acceptanceDecision(
     throw new RangeError(
       "acceptanceDecision: give the value's expanded uncertainty (uncertainty: U, or { estimate, expandedUncertainty } as the value)",
     );
+  noteDecisionRule(record.decision);
   return { ...record.decision, accepted: record.passed };
+}
+
+/** The Methods statement of a decision rule (topic "uncertainty"): once per rule. */
+function noteDecisionRule(decision: CheckDecision): void {
+  noteMethod(
+    "uncertainty",
+    decision.rule === "simple"
+      ? "Values with an expanded uncertainty U (k = 2) were decided against their limits by simple acceptance (ILAC-G8:2019 §4.2.1, no guard band); a result whose interval value ± U reaches across a limit is marked as a marginal pass or marginal fail."
+      : "Values with an expanded uncertainty U (k = 2) marked for guarded acceptance were decided against their limits narrowed by the guard band stated with each (w = U unless stated otherwise; ILAC-G8:2019 §4.2.2, ISO 14253-1:2017); a result whose interval value ± U reaches across a limit is marked as a marginal pass or marginal fail.",
+  );
 }
 
 /** The check record of `checkCondition` (pure; throws a TypeError for a label or condition of the wrong type). */
