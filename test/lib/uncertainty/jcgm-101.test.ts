@@ -204,6 +204,43 @@ describe("shortest and symmetric intervals (JCGM 101 §7.7)", () => {
   });
 });
 
+describe("spectral effects against their closed forms", () => {
+  it("a wavelength shift δ moves a linear spectrum S = a + bλ by b·δ: u = |b|·u(δ)", () => {
+    const s = spectrumOnGrid(
+      400,
+      5,
+      Array.from({ length: 41 }, (_, i) => 0.2 + 0.002 * 5 * i),
+      {
+        quantity: "transmittance",
+      },
+    );
+    const model = (v: Record<string, number | Spectrum>) => (v.s as Spectrum).values[20]!;
+    const input = { s: spectralInput(s, { wavelengthShift: 0.3 }) };
+    expect(firstOrderUncertainty(model, input).outputs.y!.standardUncertainty).toBeCloseTo(0.002 * 0.3, 9);
+    const mc = monteCarloUncertainty(model, input, { trials: 50_000, seed: 12 });
+    expect(Math.abs(mc.outputs.y!.standardUncertainty / (0.002 * 0.3) - 1)).toBeLessThan(0.02);
+  });
+
+  it("a bandwidth error on S = cλ² changes a band by S″·((b + δ)² − b²)/12 = c(2bδ + δ²)/6: u ≈ c·b·u(δ)/3", () => {
+    const c = 1e-6;
+    const s = spectrumOnGrid(
+      400,
+      5,
+      Array.from({ length: 41 }, (_, i) => c * (400 + 5 * i) ** 2),
+      {
+        quantity: "other",
+      },
+    );
+    const model = (v: Record<string, number | Spectrum>) => (v.s as Spectrum).values[20]!;
+    const input = { s: spectralInput(s, { bandwidthError: { bandwidth: 5, u: 0.5 } }) };
+    const expected = (c * 5 * 0.5) / 3;
+    expect(firstOrderUncertainty(model, input).outputs.y!.standardUncertainty / expected).toBeCloseTo(1, 6);
+    const mc = monteCarloUncertainty(model, input, { trials: 50_000, seed: 13 });
+    // The δ² term adds c·u²/6 to the mean (second order): the Monte Carlo estimate shows it.
+    expect(mc.outputs.y!.estimate - s.values[20]!).toBeCloseTo((c * 0.25) / 6, 8);
+  });
+});
+
 describe("coverage by seeded repetition", () => {
   it("about 95 % of 400 seeded repeats contain the true value of Y = X1 + 2 X2 (binomial 3σ band)", () => {
     const truth = { a: 1, b: 0.5 };
