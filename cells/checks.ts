@@ -6,8 +6,9 @@
  */
 import { inspect } from "node:util";
 import { emitRecord } from "./emit.ts";
+import { noteMethod } from "../lib/methods/method-log.ts";
 import { checkDigits, formatNumber } from "./format-number.ts";
-import type { CheckLimits, CheckRecord } from "./records.ts";
+import type { CheckDecision, CheckLimits, CheckRecord } from "./records.ts";
 
 /** The limits argument of `check`: at least one of min, max or target ± tolerance; unit and digits for display. */
 export interface CheckOptions {
@@ -19,16 +20,48 @@ export interface CheckOptions {
   readonly unit?: string;
   /** Decimals of the value and limits in the report (the comparison always uses the full value). */
   readonly digits?: number;
+  /**
+   * Expanded uncertainty U of the value (k = 2), in its unit; or pass an uncertainty result's output
+   * ({ estimate, expandedUncertainty }) as the value. Without it the check is decided on the value alone, as before.
+   */
+  readonly uncertainty?: number;
+  /**
+   * The decision rule (ILAC-G8:2019 §4.2): "simple" acceptance compares the value with the limits (default);
+   * "guarded" acceptance compares it with the limits narrowed by `guardBand`.
+   */
+  readonly rule?: "simple" | "guarded";
+  /** The guard band w of guarded acceptance, in the value's unit; default U (ILAC-G8:2019 §4.2.2, w = U). */
+  readonly guardBand?: number;
 }
 
-const OPTION_KEYS = ["min", "max", "target", "tolerance", "unit", "digits"] as const;
+/** A value with its expanded uncertainty, as an uncertainty result gives it (`result.outputs.y`). */
+export interface UncertainValue {
+  readonly estimate: number;
+  readonly expandedUncertainty: number;
+}
+
+const OPTION_KEYS = [
+  "min",
+  "max",
+  "target",
+  "tolerance",
+  "unit",
+  "digits",
+  "uncertainty",
+  "rule",
+  "guardBand",
+] as const;
 
 /**
  * States an acceptance check: passes when every limit given holds (min ≤ value ≤ max, |value − target| ≤ tolerance).
- * A value that is not a finite number fails, with a note saying so. Returns whether the check passed.
+ * A value that is not a finite number fails, with a note saying so. With an uncertainty (the `uncertainty` option, or
+ * a value { estimate, expandedUncertainty }) the decision rule decides: simple acceptance as above, guarded
+ * acceptance against the limits narrowed by the guard band; the record says whether value ± U crosses a limit.
+ * Returns whether the check passed.
  */
-export function check(label: string, value: number, limits: CheckOptions): boolean {
+export function check(label: string, value: number | UncertainValue, limits: CheckOptions): boolean {
   const record = checkRecord(label, value, limits);
+  if (record.decision) noteDecisionRule(record.decision);
   emitRecord(record);
   return record.passed;
 }
@@ -41,7 +74,11 @@ export function checkCondition(label: string, condition: boolean, detail?: strin
 }
 
 /** The check record of `check` (pure; throws a TypeError or RangeError naming a bad label or limit). */
-export function checkRecord(label: string, value: number, limits: CheckOptions): CheckRecord {
+export function checkRecord(
+  label: string,
+  given: number | UncertainValue,
+  limits: CheckOptions,
+): CheckRecord {
   requireLabel(label, "check");
   const where = `check "${label}"`;
   if (typeof limits !== "object" || limits === null || Array.isArray(limits)) {
@@ -82,6 +119,20 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
   }
   const digits = checkDigits(limits.digits, where);
   const unit = limits.unit?.trim() || undefined;
+  const { value, uncertainty } = valueAndUncertainty(given, limits, where);
+  if (limits.rule !== undefined && limits.rule !== "simple" && limits.rule !== "guarded")
+    throw new TypeError(`${where}: rule must be "simple" or "guarded", got ${describe(limits.rule)}`);
+  if ((limits.rule !== undefined || limits.guardBand !== undefined) && uncertainty === undefined)
+    throw new RangeError(
+      `${where}: a decision rule needs the value's expanded uncertainty: give uncertainty: U, or pass { estimate, expandedUncertainty } as the value`,
+    );
+  if (limits.guardBand !== undefined && limits.rule !== "guarded")
+    throw new RangeError(`${where}: a guard band belongs to rule: "guarded"`);
+  if (
+    limits.guardBand !== undefined &&
+    !(typeof limits.guardBand === "number" && Number.isFinite(limits.guardBand) && limits.guardBand >= 0)
+  )
+    throw new TypeError(`${where}: guardBand must be a finite number ≥ 0, got ${describe(limits.guardBand)}`);
   const base = {
     kind: "check" as const,
     label,
@@ -101,8 +152,118 @@ export function checkRecord(label: string, value: number, limits: CheckOptions):
       detail: `The value is ${text}, ${what}, so it cannot meet the limits.`,
     };
   }
-  const passed = withinLimits(value, bounds);
-  return { ...base, passed, value, valueText: valueText(value, digits, bounds, passed) };
+  if (uncertainty === undefined) {
+    const passed = withinLimits(value, bounds);
+    return { ...base, passed, value, valueText: valueText(value, digits, bounds, passed) };
+  }
+  const decision = decide(value, uncertainty, bounds, limits.rule ?? "simple", limits.guardBand);
+  const passed = decision.outcome === "pass" || decision.outcome === "marginal pass";
+  return {
+    ...base,
+    passed,
+    value,
+    valueText: valueText(value, digits, decision.acceptance, passed),
+    decision,
+  };
+}
+
+/** The value and its expanded uncertainty from a bare number, a { estimate, expandedUncertainty }, and the options. */
+function valueAndUncertainty(
+  given: unknown,
+  limits: CheckOptions,
+  where: string,
+): { value: number; uncertainty?: number } {
+  let value = given as number;
+  let uncertainty: number | undefined;
+  if (typeof given === "object" && given !== null && "estimate" in given && "expandedUncertainty" in given) {
+    const g = given as UncertainValue;
+    if (limits.uncertainty !== undefined)
+      throw new RangeError(
+        `${where}: the value already carries its expanded uncertainty; leave out the uncertainty option`,
+      );
+    value = g.estimate;
+    uncertainty = g.expandedUncertainty;
+  } else uncertainty = limits.uncertainty;
+  if (
+    uncertainty !== undefined &&
+    !(typeof uncertainty === "number" && Number.isFinite(uncertainty) && uncertainty >= 0)
+  )
+    throw new TypeError(
+      `${where}: the expanded uncertainty must be a finite number ≥ 0, got ${describe(uncertainty)}`,
+    );
+  return uncertainty === undefined ? { value } : { value, uncertainty };
+}
+
+/**
+ * Decides a value with expanded uncertainty U under a rule (ILAC-G8:2019 §4.2.1 simple acceptance, w = 0; §4.2.2
+ * guarded acceptance, acceptance zone = limits narrowed by w, ISO 14253-1:2017 §5): the outcome, and whether
+ * value ± U crosses a limit (marginal) or lies clear of all of them.
+ */
+export function decide(
+  value: number,
+  U: number,
+  limits: CheckLimits,
+  rule: "simple" | "guarded",
+  guardBand?: number,
+): CheckDecision {
+  const w = rule === "guarded" ? (guardBand ?? U) : 0;
+  const acceptance: { -readonly [K in keyof CheckLimits]: number } = {};
+  if (limits.min !== undefined) acceptance.min = limits.min + w;
+  if (limits.max !== undefined) acceptance.max = limits.max - w;
+  if (limits.target !== undefined && limits.tolerance !== undefined) {
+    acceptance.target = limits.target;
+    acceptance.tolerance = limits.tolerance - w;
+  }
+  const accepted =
+    (acceptance.tolerance === undefined || acceptance.tolerance >= 0) &&
+    (acceptance.min === undefined || acceptance.max === undefined || acceptance.min <= acceptance.max) &&
+    withinLimits(value, acceptance);
+  // value ± U clear of every limit: wholly inside the specification, or wholly outside one of its limits.
+  const inside = withinLimits(value - U, limits) && withinLimits(value + U, limits);
+  const outside = !intervalMeetsLimits(value - U, value + U, limits);
+  const outcome = accepted ? (inside ? "pass" : "marginal pass") : outside ? "fail" : "marginal fail";
+  return { rule, expandedUncertainty: U, coverageFactor: 2, guardBand: w, acceptance, outcome };
+}
+
+/** Whether [low, high] has any point within every limit. */
+function intervalMeetsLimits(low: number, high: number, limits: CheckLimits): boolean {
+  let lo = low,
+    hi = high;
+  if (limits.min !== undefined) lo = Math.max(lo, limits.min);
+  if (limits.max !== undefined) hi = Math.min(hi, limits.max);
+  if (limits.target !== undefined && limits.tolerance !== undefined) {
+    lo = Math.max(lo, limits.target - limits.tolerance);
+    hi = Math.min(hi, limits.target + limits.tolerance);
+  }
+  return lo <= hi;
+}
+
+/**
+ * How a value with its expanded uncertainty stands against limits under a decision rule, without stating a check
+ * (for tables of verdicts that are results, not gates of the run): the rule, guard band, acceptance zone, outcome
+ * ("pass", "marginal pass", "marginal fail", "fail") and whether it was accepted. Limits and options as for `check`.
+ */
+export function acceptanceDecision(
+  value: number | UncertainValue,
+  limits: CheckOptions,
+): CheckDecision & { readonly accepted: boolean } {
+  const record = checkRecord("acceptanceDecision", value, limits);
+  if (!record.decision)
+    throw new RangeError(
+      "acceptanceDecision: give the value's expanded uncertainty (uncertainty: U, or { estimate, expandedUncertainty } as the value)",
+    );
+  noteDecisionRule(record.decision);
+  return { ...record.decision, accepted: record.passed };
+}
+
+/** The Methods statement of a decision rule (topic "uncertainty"): once per rule. */
+function noteDecisionRule(decision: CheckDecision): void {
+  noteMethod(
+    "uncertainty",
+    decision.rule === "simple"
+      ? "Values with an expanded uncertainty U (k = 2) were decided against their limits by simple acceptance (ILAC-G8:2019 §4.2.1, no guard band); a result whose interval value ± U reaches across a limit is marked as a marginal pass or marginal fail."
+      : "Values with an expanded uncertainty U (k = 2) marked for guarded acceptance were decided against their limits narrowed by the guard band stated with each (w = U unless stated otherwise; ILAC-G8:2019 §4.2.2, ISO 14253-1:2017); a result whose interval value ± U reaches across a limit is marked as a marginal pass or marginal fail.",
+  );
 }
 
 /** The check record of `checkCondition` (pure; throws a TypeError for a label or condition of the wrong type). */

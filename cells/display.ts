@@ -4,6 +4,7 @@
  * cell's last line is not shown twice. Available in every cell as globals and as `import { ... } from "tristim"`.
  */
 import { inspect } from "node:util";
+import { roundedPair } from "../lib/uncertainty/rounded-pair.ts";
 import { describeValue as describe } from "./describe-value.ts";
 import { CAUTION_KEY, emitCautionsOf } from "./cautions.ts";
 import { checkDigits, formatNumber } from "./format-number.ts";
@@ -266,5 +267,21 @@ function formatCell(value: unknown, digits: number | undefined): string {
   if (typeof value === "string") return value;
   if (typeof value === "boolean" || typeof value === "bigint") return String(value);
   if (value instanceof Date) return value.toISOString();
+  if (isUncertainValue(value)) {
+    // An uncertainty result's output: "value ± U (k = 2)", U to two significant digits (JCGM 100 §7.2.6).
+    const [v, U] = roundedPair(value.estimate, value.expandedUncertainty);
+    return `${v} ± ${U} (k = 2)`;
+  }
   return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
+}
+
+function isUncertainValue(value: unknown): value is { estimate: number; expandedUncertainty: number } {
+  if (typeof value !== "object" || value === null) return false;
+  const v = value as { estimate?: unknown; expandedUncertainty?: unknown };
+  return (
+    typeof v.estimate === "number" &&
+    Number.isFinite(v.estimate) &&
+    typeof v.expandedUncertainty === "number" &&
+    Number.isFinite(v.expandedUncertainty)
+  );
 }

@@ -161,6 +161,26 @@ export interface CheckRecord {
   readonly digits?: number;
   /** A remark: the detail given to checkCondition, or why the value could not be checked. */
   readonly detail?: string;
+  /** How a value with an uncertainty was decided near its limits; absent for a bare value (decided on the value alone). */
+  readonly decision?: CheckDecision;
+}
+
+/**
+ * The decision rule of a check whose value has an expanded uncertainty U (k = 2), ILAC-G8:2019 §4.2 and ISO 14253-1:
+ * simple acceptance (guard band 0: the value is compared with the limits) or guarded acceptance (the limits narrowed by
+ * the guard band w, the acceptance zone). `outcome` also says whether value ± U crosses a limit: "marginal pass" and
+ * "marginal fail" are such results (ILAC-G8's conditional pass and fail), "pass" and "fail" are clear of every limit.
+ */
+export interface CheckDecision {
+  readonly rule: "simple" | "guarded";
+  /** Expanded uncertainty U of the value, in its unit. */
+  readonly expandedUncertainty: number;
+  readonly coverageFactor: 2;
+  /** The guard band w (0 for simple acceptance). */
+  readonly guardBand: number;
+  /** The acceptance zone: the limits narrowed by the guard band (equal to the limits for simple acceptance). */
+  readonly acceptance: CheckLimits;
+  readonly outcome: "pass" | "marginal pass" | "marginal fail" | "fail";
 }
 
 /** A short remark added by the runner, e.g. that output was truncated. */

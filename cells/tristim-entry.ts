@@ -7,8 +7,8 @@
 export * from "../lib/index.ts";
 export { show, showTable, showFigure, showSwatches, showMarkdown, showHtml, showCaution } from "./display.ts";
 export type { TableColumn, TableOptions, FigureInput, TrustOptions } from "./display.ts";
-export { check, checkCondition } from "./checks.ts";
-export type { CheckOptions } from "./checks.ts";
+export { check, checkCondition, acceptanceDecision } from "./checks.ts";
+export type { CheckOptions, UncertainValue } from "./checks.ts";
 export type { SwatchRecord, PlotSpec } from "./records.ts";
 export { inputs } from "./inputs.ts";
 export type { InputValue } from "./inputs.ts";

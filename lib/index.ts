@@ -20,6 +20,7 @@ export * from "./illuminants/standard-illuminant.ts";
 
 export * from "./colorimetry/chromaticity.ts";
 export * from "./colorimetry/tristimulus.ts";
+export * from "./colorimetry/astm-weights.ts";
 export * from "./colorimetry/cielab.ts";
 
 // Core colorimetry added by the colorimetry owner below this line.
@@ -49,6 +50,9 @@ export * from "./mixing/index.ts";
 export * from "./halftone/index.ts";
 export * from "./rendering/index.ts";
 export * from "./files/index.ts";
+
+// Measurement uncertainty (issue 13): input models, Monte Carlo (JCGM 101), first order (JCGM 100).
+export * from "./uncertainty/index.ts";
 
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

@@ -19,7 +19,7 @@ function checkSummation(fn: string, o: Options): void {
   if (o === undefined) return;
   checkIlluminantChoice(fn, "options.illuminant", o.illuminant);
   checkObserver(fn, "options.observer", o.observer);
-  checkChoice(fn, "options.interval", o.interval, [1, 5], {
+  checkChoice(fn, "options.interval", o.interval, [1, 5, 10, 20], {
     what: "a summation interval in nm",
     optional: true,
   });

@@ -24,6 +24,8 @@ import { checkOptions } from "../arguments/check-options.ts";
 import { checkSpectrum, isWellFormedSpectrum } from "../arguments/check-spectrum.ts";
 import { checkLightOptions, checkObjectColourOptions, checkTableOptions } from "../arguments/option-sets.ts";
 import { checkWith } from "../arguments/check-with.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { astmWeightsFor } from "./astm-weight-table.ts";
 
 export interface ObjectColourOptions {
   /** Illuminant name ("D65", "A", "FL2", ...) or a spectrum; default D65. */
@@ -31,10 +33,17 @@ export interface ObjectColourOptions {
   /** Observer; default the CIE 1931 2° observer. */
   observer?: ObserverName | Observer | 2 | 10;
   /**
-   * Summation interval in nm: 1 or 5. Default 1 when both the sample and the illuminant are tabulated at 1 nm,
-   * otherwise 5 (CIE 015:2018 §7.2).
+   * Summation interval in nm: 1 or 5 (the sample interpolated where needed), or 10 or 20 (weighting factors by the
+   * method of ASTM E2022 at the sample's own wavelengths). Default: 10 or 20 when the sample is tabulated every 10 or
+   * 20 nm on whole nanometres within 360–830 nm (the trade's practice, ASTM E308); else 1 when both the sample and the
+   * illuminant are tabulated at 1 nm, otherwise 5 (CIE 015:2018 §7.2). Pass 1 or 5 to interpolate 10/20 nm data instead.
    */
-  interval?: 1 | 5;
+  interval?: 1 | 5 | 10 | 20;
+  /**
+   * Bandpass of 10/20 nm data: "none" (default; data already corrected, or a narrow bandpass) or "included" (weights
+   * with the ASTM E308 bandpass correction folded in, for uncorrected data from a triangular bandpass equal to the interval).
+   */
+  bandpass?: "none" | "included";
   /**
    * Wavelength range of the summation, cut to what the illuminant covers. Default 360–830 nm, the full tabulated
    * range of the colour-matching functions (CIE 015:2018 §7.2), which reproduces the ASTM E308 white points (e.g. D50
@@ -62,7 +71,7 @@ export interface WeightingTable {
   readonly wz: Float64Array;
   readonly illuminantName: string;
   readonly observer: Observer;
-  readonly interval: 1 | 5;
+  readonly interval: 1 | 5 | 10 | 20;
   /** The first and last summation wavelengths (nm). */
   readonly range: readonly [number, number];
   /** The perfect reflecting diffuser on this table, Σ k·S·x̄, Σ k·S·ȳ (= 100), Σ k·S·z̄: the reference white of its samples. */
@@ -313,7 +322,74 @@ function measuredRange(sample: Spectrum): [number, number] {
   ];
 }
 
+/** 10 or 20 when the sample is tabulated every 10 or 20 nm on whole nanometres within 360–830 nm, else undefined. */
+function coarseStep(sample: Spectrum): 10 | 20 | undefined {
+  const step = regularStep(sample);
+  if (step !== 10 && step !== 20) return undefined;
+  const w = sample.wavelengths;
+  if (!Number.isInteger(w[0]!) || w.length < 3) return undefined;
+  if (w[0]! > 830 - 2 * step || w.at(-1)! < 360 + 2 * step) return undefined;
+  return step;
+}
+
+/** A weighting table of ASTM E2022 factors on the sample's wavelengths within 360–830 nm (or the range asked for). */
+function astmTableForSample(
+  sample: Spectrum,
+  options: ObjectColourOptions,
+  interval: 10 | 20,
+  chosen: boolean,
+): WeightingTable {
+  let range = options.range;
+  if (!range) {
+    const w = sample.wavelengths;
+    const step = regularStep(sample);
+    // The sample's own grid when it is at the interval, else the interval's grid within its measured range.
+    const origin = step === interval && Number.isInteger(w[0]!) ? w[0]! : 0;
+    const first = origin + Math.ceil((Math.max(360, w[0]!) - origin) / interval) * interval;
+    const last = origin + Math.floor((Math.min(830, w.at(-1)!) - origin) / interval) * interval;
+    range = [first, last];
+  }
+  const astm = astmWeightsFor(
+    options.illuminant,
+    options.observer,
+    interval,
+    range,
+    options.bandpass ?? "none",
+  );
+  const why = chosen
+    ? ` They were chosen because the samples were tabulated every ${interval} nm (ASTM E308 practice); interval 1 or 5 would interpolate them instead.`
+    : "";
+  return {
+    wavelengths: astm.wavelengths,
+    wx: astm.wx,
+    wy: astm.wy,
+    wz: astm.wz,
+    illuminantName: astm.illuminantName,
+    observer: astm.observer,
+    interval,
+    range: [astm.wavelengths[0]!, astm.wavelengths.at(-1)!],
+    white: astm.white,
+    notes: {
+      observer: observerStatement(astm.observer),
+      illuminant: `Object colours were computed under ${astm.illuminantName}.`,
+      integration: astm.notes.integration + why,
+      white: astm.notes.white,
+      ...(astm.notes.interpolation ? { interpolation: astm.notes.interpolation } : {}),
+    },
+  };
+}
+
 function tableForSample(sample: Spectrum, options: ObjectColourOptions): WeightingTable {
+  if (options.interval === 10 || options.interval === 20)
+    return astmTableForSample(sample, options, options.interval, false);
+  if (options.interval === undefined) {
+    const coarse = coarseStep(sample);
+    if (coarse !== undefined) return astmTableForSample(sample, options, coarse, true);
+  }
+  if (options.bandpass !== undefined && options.bandpass !== "none")
+    throw new Error(
+      `tristimulus: bandpass "${options.bandpass}" applies to 10 and 20 nm weighting factors only; for ${options.interval ?? "1 or 5"} nm summation correct the data with bandpassCorrection() first`,
+    );
   const interval = options.interval ?? defaultInterval(sample, resolveIlluminant(options.illuminant));
   return tableFor(
     options.illuminant,
@@ -339,7 +415,8 @@ export function tristimulus(sample: Spectrum, options: ObjectColourOptions = {})
   checkSpectrum("tristimulus", "sample", sample, {
     what: "a reflectance or transmittance spectrum (fractions 0–1)",
   });
-  checkObjectColourOptions("tristimulus", options);
+  checkObjectColourOptions("tristimulus", options, ["bandpass"]);
+  checkChoice("tristimulus", "options.bandpass", options.bandpass, ["none", "included"], { optional: true });
   checkObjectSample(sample, "tristimulus");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -357,8 +434,8 @@ export interface ObjectColour {
   readonly illuminant: string;
   /** The observer's name. */
   readonly observer: string;
-  /** Summation interval in nm. */
-  readonly interval: 1 | 5;
+  /** Summation interval in nm (10 and 20: ASTM E2022 weighting factors). */
+  readonly interval: 1 | 5 | 10 | 20;
   /** First and last summation wavelengths in nm. */
   readonly range: readonly [number, number];
 }
@@ -378,7 +455,8 @@ export function objectColour(sample: Spectrum, options: ObjectColourOptions = {}
   checkSpectrum("objectColour", "sample", sample, {
     what: "a reflectance or transmittance spectrum (fractions 0–1)",
   });
-  checkObjectColourOptions("objectColour", options);
+  checkObjectColourOptions("objectColour", options, ["bandpass"]);
+  checkChoice("objectColour", "options.bandpass", options.bandpass, ["none", "included"], { optional: true });
   checkObjectSample(sample, "objectColour");
   const table = tableForSample(sample, options);
   const XYZ = sumOnTable(sample, table, options);
@@ -467,7 +545,28 @@ export function whitePoint(
   const sample = options.sample;
   checkSpectrum("whitePoint", "options.sample", sample, { optional: true });
   const ill = resolveIlluminant(options.illuminant);
-  const interval = options.interval ?? defaultInterval(sample, ill);
+  const coarse =
+    options.interval === 10 || options.interval === 20
+      ? options.interval
+      : options.interval === undefined && sample
+        ? coarseStep(sample)
+        : undefined;
+  if (coarse !== undefined) {
+    // The white of 10/20 nm data: the sum of the same ASTM E2022 weighting factors the sample's colour uses.
+    const table = sample
+      ? astmTableForSample(sample, options, coarse, options.interval === undefined)
+      : astmTableForSample(
+          { ...ill, wavelengths: [360, 830], values: [0, 0] },
+          { ...options, range: options.range ?? [360, coarse === 10 ? 830 : 820] },
+          coarse,
+          false,
+        );
+    noteMethod("observer", table.notes.observer);
+    noteMethod("integration", table.notes.white);
+    if (table.notes.interpolation) noteMethod("interpolation", table.notes.interpolation);
+    return { ...table.white };
+  }
+  const interval = (options.interval ?? defaultInterval(sample, ill)) as 1 | 5;
   const table = sample
     ? tableFor(
         options.illuminant,

@@ -67,7 +67,11 @@ export function transmittedLight(filter: Spectrum, options: LightOptions = {}): 
   // on that interval too.
   const colour = objectColour(filter, { illuminant, observer: options.observer, interval: options.interval });
   const XYZ = colour.XYZ;
-  const tv = luminousTransmittance(filter, { illuminant, interval: colour.interval });
+  // 10/20 nm data are summed with ASTM E2022 weights; τv is then Y/100 of those sums with the CIE 1931 observer (ȳ = V).
+  const coarse = colour.interval === 10 || colour.interval === 20;
+  const tv = coarse
+    ? objectColour(filter, { illuminant, interval: colour.interval }).XYZ.Y / 100
+    : luminousTransmittance(filter, { illuminant, interval: colour.interval as 1 | 5 });
   const notes: string[] = [];
   if (XYZ.X + XYZ.Y + XYZ.Z <= 0)
     throw new Error(

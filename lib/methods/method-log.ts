@@ -33,6 +33,7 @@ export const METHOD_TOPICS = [
   "halftone",
   "colour rendering",
   "data files",
+  "uncertainty",
   "other",
 ] as const;
 export type MethodTopic = (typeof METHOD_TOPICS)[number];

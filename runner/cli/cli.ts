@@ -379,11 +379,16 @@ export function printOutcome(
       checks.length === 0
         ? ""
         : failedChecks.length === 0
-          ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed`
+          ? `, ${checks.length === 1 ? "1 check" : `${checks.length} checks`} passed${marginalPasses(checks)}`
           : `, ${failedChecks.length} of ${checks.length === 1 ? "1 check" : `${checks.length} checks`} FAILED`;
     const line = `${label}: ${ran === 1 ? "1 cell" : `${ran} cells`} ran in ${formatDuration(run.durationMs)}${checkText} -> ${shown(target)}\n`;
     if (failedChecks.length === 0) {
-      if (!options.quiet) io.out(line);
+      if (!options.quiet) {
+        io.out(line);
+        for (const c of checks)
+          if (c.record.decision?.outcome === "marginal pass")
+            io.out(`  marginal pass (cell ${c.cell + 1}): ${checkLine(c.record)}\n`);
+      }
       return EXIT.ok;
     }
     io.err(line);
@@ -436,4 +441,10 @@ function isDirectory(p: string): boolean {
 /** A path as the user would type it: relative to the working folder when inside it. */
 function shown(file: string): string {
   return displayPath(file, process.cwd(), "as given");
+}
+
+/** ", 1 of them marginal" when passes were decided with value ± U reaching across a limit (ILAC-G8:2019 §4.2). */
+function marginalPasses(checks: readonly { record: { decision?: { outcome: string } } }[]): string {
+  const n = checks.filter((c) => c.record.decision?.outcome === "marginal pass").length;
+  return n === 0 ? "" : `, ${n} of them marginal`;
 }

@@ -74,6 +74,11 @@ Acceptance checks (shown in place and summarised at the top; a failed one makes 
   check(label, value, { min, max, target, tolerance, unit, digits })
                            passes when every limit given holds: min <= value <= max,
                            |value - target| <= tolerance; NaN, Infinity or a non-number fails
+  check(label, value, { ..., uncertainty: U, rule: "simple" | "guarded", guardBand })
+                           value ± U (k = 2), also check(label, result.outputs.y, limits): simple
+                           acceptance decides on the value, guarded on the limits narrowed by the
+                           guard band (default U); a pass or fail whose value ± U reaches across a
+                           limit is marked marginal (a marginal fail exits ${EXIT.checkFailed} too)
   checkCondition(label, condition, detail?)
                            passes when condition is true
   Both return true or false.

@@ -78,6 +78,7 @@ export const TOPICS: ReadonlyArray<readonly [string, string]> = [
   ["rendering", "Colour rendering"],
   ["plot", "Figures and swatches"],
   ["files", "Measurement files"],
+  ["uncertainty", "Measurement uncertainty"],
   ["methods", "Methods log"],
 ];
 

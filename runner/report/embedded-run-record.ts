@@ -169,6 +169,7 @@ export function embeddedRunRecord(
       ...(r.limits !== undefined ? { limits: r.limits } : {}),
       ...(r.digits !== undefined ? { digits: r.digits } : {}),
       ...(r.detail !== undefined ? { detail: r.detail } : {}),
+      ...(r.decision !== undefined ? { decision: r.decision } : {}),
     })),
     cautions: cautions.map(({ record: r, cell, anchor }) => ({
       id: anchor,

@@ -38,6 +38,7 @@ const GROUPS: readonly { readonly heading: string; readonly topics: readonly str
   },
   { heading: "Optical, mixing and print models", topics: ["optics", "mixing", "halftone"] },
   { heading: "Data handling", topics: ["data files"] },
+  { heading: "Measurement uncertainty", topics: ["uncertainty"] },
 ];
 
 /** More statements than this under one topic are listed rather than run together. */

@@ -18,7 +18,7 @@ import type {
 } from "../../cells/records.ts";
 import type { OutputView } from "./report-model.ts";
 import { keepsOnOneLine } from "./cell-wrap.ts";
-import { limitsText, marginText, valueText } from "../text/check-text.ts";
+import { limitsText, marginText, valueText, decisionText, OUTCOME_WORDS } from "../text/check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";
@@ -81,10 +81,14 @@ function renderChecks(views: readonly OutputView[]): string {
       const r = view.record as CheckRecord;
       const id = view.anchor!;
       const margin = marginText(r);
-      const detail = r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "";
+      const decision = decisionText(r);
+      const detail =
+        (r.detail ? `<span class="check-detail">${escapeHtml(r.detail)}</span>` : "") +
+        (decision ? `<span class="check-detail check-decision">${escapeHtml(decision)}</span>` : "");
+      const word = r.decision ? OUTCOME_WORDS[r.decision.outcome] : r.passed ? "pass" : "FAIL";
       const result = r.passed
-        ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> pass</td>`
-        : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> FAIL</td>`;
+        ? `<td class="check-result"><span class="check-mark" aria-hidden="true">✓</span> ${word}</td>`
+        : `<td class="check-result"><span class="check-mark" aria-hidden="true">✗</span> ${word}</td>`;
       const measured = r.limits
         ? `<td class="num check-value">${escapeHtml(valueText(r))}${margin ? `<span class="check-margin">${escapeHtml(margin)}</span>` : ""}</td><td class="check-limits">${escapeHtml(limitsText(r))}</td>`
         : `<td class="num check-value">${escapeHtml(valueText(r))}</td><td class="check-limits">condition</td>`;

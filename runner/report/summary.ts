@@ -55,17 +55,22 @@ export const checksSection: SummarySection = ({ run }) => {
   if (checks.length === 0) return undefined;
   const failed = checks.filter((c) => !c.record.passed);
   const total = checks.length === 1 ? "1 acceptance check" : `${checks.length} acceptance checks`;
+  // Passes whose value ± U reaches across a limit are named, with the rule that passed them (ILAC-G8:2019 §4.2).
+  const marginal = checks.filter((c) => c.record.decision?.outcome === "marginal pass");
+  const marginalText = marginal.length
+    ? `<p class="checks-marginal">${marginal.length === 1 ? "One pass is marginal" : `${marginal.length} passes are marginal`} (value ± U reaches across a limit): ${marginal.map((c) => `<a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>`).join(", ")}.</p>`
+    : "";
   if (failed.length === 0) {
-    return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${missing}</div>`;
+    return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${marginalText}${missing}</div>`;
   }
   const items = failed.map(
     (c) =>
-      `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`,
+      `<li><span class="check-word">${c.record.decision?.outcome === "marginal fail" ? "marginal FAIL" : "FAIL"}</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`,
   );
   const passed = checks.length - failed.length;
   return (
     `<div class="summary-part checks failed" id="checks"><h2><span class="check-mark" aria-hidden="true">✗</span> ${failed.length} of ${total} failed</h2>` +
-    `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${missing}</div>`
+    `<ul>${items.join("")}</ul><p>${passed === 0 ? "None passed." : `${passed} passed.`}</p>${marginalText}${missing}</div>`
   );
 };
 

@@ -9,7 +9,11 @@ export const EXIT = {
   notebookFailed: 1,
   /** The command line was wrong (unknown command or option, bad value, unknown input name). */
   usage: 2,
-  /** Every cell ran, but an acceptance check (check / checkCondition) failed. A failed cell (1) wins over this. */
+  /**
+   * Every cell ran, but an acceptance check (check / checkCondition) failed. A failed cell (1) wins over this. A check
+   * with an uncertainty fails by its decision rule: "fail" and "marginal fail" exit 3, "pass" and "marginal pass" 0
+   * (simple acceptance decides on the value, guarded acceptance on the limits narrowed by the guard band).
+   */
   checkFailed: 3,
   /** The runner itself failed: a report could not be written, or an internal error (set TRISTIM_DEBUG=1 for details). */
   internal: 4,

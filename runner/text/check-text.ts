@@ -1,6 +1,7 @@
 /** Words for acceptance checks, shared by the report, the summary, the index page and the terminal. */
 import { formatNumber } from "../../cells/format-number.ts";
 import type { CheckRecord } from "../../cells/records.ts";
+import { roundedPair } from "../../lib/uncertainty/rounded-pair.ts";
 
 const SUPERSCRIPT: Record<string, string> = {
   "-": "⁻",
@@ -48,9 +49,17 @@ export function limitsText(record: CheckRecord): string {
   return parts.join(", and ");
 }
 
-/** The value with its unit: "12.40 %"; "condition met"/"not met" for a plain condition. */
+/**
+ * The value with its unit: "12.40 %"; "condition met"/"not met" for a plain condition; with an uncertainty
+ * "0.642 ± 0.012 (k = 2)", U to two significant digits and the value to the same decimal (JCGM 100 §7.2.6).
+ */
 export function valueText(record: CheckRecord): string {
   if (record.valueText === undefined) return record.passed ? "met" : "not met";
+  if (record.decision && typeof record.value === "number") {
+    const [v, U] = roundedPair(record.value, record.decision.expandedUncertainty);
+    const unit = unitSuffix(record.unit);
+    return `${printedNumber(v)}${unit} ± ${printedNumber(U)}${unit} (k = ${record.decision.coverageFactor})`;
+  }
   const text = record.value === null ? record.valueText : printedNumber(record.valueText);
   return `${text}${record.value !== null ? unitSuffix(record.unit) : ""}`;
 }
@@ -84,6 +93,36 @@ export function marginText(record: CheckRecord): string | undefined {
   return parts.length ? parts.join("; ") : undefined;
 }
 
+/** The words of an outcome: "pass", "marginal pass", "marginal fail", "FAIL". */
+export const OUTCOME_WORDS = {
+  pass: "pass",
+  "marginal pass": "marginal pass",
+  "marginal fail": "marginal FAIL",
+  fail: "FAIL",
+} as const;
+
+/**
+ * How a check with an uncertainty was decided: "guarded acceptance, guard band 0.012 (accepted ≥ 0.662): marginal
+ * FAIL, value ± U reaches across a limit". Undefined for a check without an uncertainty.
+ */
+export function decisionText(record: CheckRecord): string | undefined {
+  const d = record.decision;
+  if (!d || !record.limits) return undefined;
+  const n = (v: number) => printedNumber(formatNumber(v, record.digits));
+  const unit = unitSuffix(record.unit);
+  const rule =
+    d.rule === "simple"
+      ? "simple acceptance (no guard band)"
+      : `guarded acceptance, guard band ${n(d.guardBand)}${unit} (accepted: ${limitsText({ ...record, limits: d.acceptance })})`;
+  const where =
+    d.outcome === "marginal pass" || d.outcome === "marginal fail"
+      ? ", value ± U reaches across a limit"
+      : d.outcome === "pass"
+        ? ", value ± U within the limits"
+        : ", value ± U outside the limits";
+  return `${rule}: ${OUTCOME_WORDS[d.outcome]}${where}`;
+}
+
 /** One line for the terminal or a list: "White Δu′v′: 0.0052 (limits ≤ 0.004)". */
 export function checkLine(record: CheckRecord): string {
   return `${record.label}: ${checkOutcomeText(record)}`;
@@ -94,5 +133,6 @@ export function checkOutcomeText(record: CheckRecord): string {
   if (!record.limits)
     return `condition ${record.passed ? "met" : "not met"}${record.detail ? ` (${record.detail})` : ""}`;
   const value = record.value === null ? `${record.valueText ?? "no value"}, not a number` : valueText(record);
-  return `${value} (limits ${limitsText(record)})`;
+  const decision = decisionText(record);
+  return `${value} (limits ${limitsText(record)}${decision ? `; ${decision}` : ""})`;
 }

@@ -120,6 +120,14 @@ const FUNCTIONS = [
   "resetMethodLog",
   "withoutMethodNotes",
   "methodNotesActive",
+  // measurement uncertainty (issue 13)
+  "normalInput",
+  "rectangularInput",
+  "triangularInput",
+  "spectralInput",
+  "monteCarloUncertainty",
+  "firstOrderUncertainty",
+  "uncertaintyText",
 ];
 
 describe("public API of the colorimetry library", () => {

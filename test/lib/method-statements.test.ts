@@ -187,6 +187,36 @@ function exercise(): Map<string, MethodNote[]> {
     t.parseColourReadings("Bench: x\nname;L*;a*;b*\nA;50,5;1;2\n", { units: { Lab: "" } });
     t.parseColourReadings(text);
   });
+  run("colorimetry/astm-weights.ts", () => {
+    const tenNm = t.spectrumOnGrid(400, 10, new Array(31).fill(0.5), { quantity: "reflectance" });
+    t.astmWeightingFactors({ interval: 20, illuminant: "D50", bandpass: "included" });
+    t.bandpassCorrection(tenNm);
+    t.objectColour(tenNm);
+    t.whitePoint({ interval: 10 });
+  });
+  run("uncertainty", () => {
+    const blank = on5(() => 0.6, "transmittance", "blank");
+    const inputs = {
+      s: t.spectralInput(blank, {
+        scale: 0.002,
+        bandNoise: 0.001,
+        correlatedNoise: { u: 0.001, length: 30 },
+        wavelengthShift: 0.2,
+        bandwidthError: { bandwidth: 5, u: 0.2 },
+      }),
+      k: t.normalInput(1, 0.01),
+      r: t.rectangularInput(0, 0.01, "nm"),
+      q: t.triangularInput(0, 0.01),
+    };
+    const model = (v: Record<string, unknown>) => (v.k as number) * (v.s as { values: number[] }).values[3]!;
+    t.monteCarloUncertainty(model, inputs, { trials: 200 });
+    t.monteCarloUncertainty(
+      (v) => Math.exp(10 * (v.k as number)),
+      { k: t.normalInput(1, 0.3) },
+      { trials: 500 },
+    );
+    t.firstOrderUncertainty(model, inputs);
+  });
   return byFile;
 }
 
@@ -215,6 +245,7 @@ describe("Methods statements are full sentences", () => {
       "halftone",
       "colour rendering",
       "data files",
+      "uncertainty",
     ]) {
       expect(topics, topic).toContain(topic);
     }
@@ -290,6 +321,10 @@ describe("Methods statements are full sentences", () => {
       "files/cgats-fields.ts": /were taken from CGATS spectral fields/,
       "files/cgats-write.ts": /CGATS\.17 text was written/,
       "files/colour-readings-read.ts": /A table of colorimetric readings/,
+      "colorimetry/astm-weights.ts": /method of ASTM E2022|Stearns–Stearns method/,
+      "uncertainty/monte-carlo.ts": /Monte Carlo method of JCGM 101/,
+      "uncertainty/first-order.ts": /law of propagation of uncertainty to first order/,
+      "uncertainty/method-statements.ts": /was modelled as a normal distribution/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {

@@ -17,6 +17,7 @@ const DISPLAY_NAMES = [
   "showCaution",
   "check",
   "checkCondition",
+  "acceptanceDecision",
   "inputs",
 ];
 
