@@ -29,6 +29,7 @@ import { renderOutputs } from "./render-output.ts";
 import { reportModel, type CellView, type ReportModel } from "./report-model.ts";
 import type { CellFenceEnv } from "./cell-fences.ts";
 import { renderRunDetails } from "./run-details.ts";
+import { carriedSources, sourcesScript } from "./carried-sources.ts";
 import { renderSummary } from "./summary.ts";
 import { describeCells } from "../text/cell-numbers.ts";
 
@@ -171,6 +172,7 @@ export function renderReportParts(
   if (methods) contentsEntries.push({ level: topLevel, text: "Methods", id: "methods" });
   contentsEntries.push({ level: topLevel, text: "Provenance", id: "run-record" });
   const hasFigures = /class="plot-figure"/.test(body);
+  const sources = carriedSources(document, run, { linkAssets: options.assetsHref !== undefined });
   const embedsPlotly = hasFigures && options.assetsHref === undefined;
   const plotlyLink =
     hasFigures && options.assetsHref !== undefined
@@ -196,10 +198,11 @@ ${renderContents(contentsEntries)}
 ${body}
 </article>
 ${methods}
-${renderRunDetails(document, run, "run-record", hasFigures ? { plotlyVersion: PLOTLY_VERSION } : {})}
+${renderRunDetails(document, run, "run-record", { ...(hasFigures ? { plotlyVersion: PLOTLY_VERSION } : {}), sources })}
 <footer class="report-footer">Made with ${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} from ${escapeHtml(path.basename(document.path))}.</footer>
 </main>
 ${runRecordScript(embeddedRunRecord(document, run, title))}
+${sourcesScript(sources)}
 ${plotlyLink}`;
   const after = `
 ${hasFigures ? `<script>${FIGURES_CLIENT}</script>` : ""}
