@@ -62,9 +62,9 @@ describe("the report", () => {
     expect(html).not.toContain(evil);
     expect(html).not.toContain("<img src=x");
     expect(html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;");
-    // The only <script> elements are the run record, packed Plotly and its loader, the figure data and the figure
-    // drawing code.
-    expect(html.match(/<script\b/g)).toHaveLength(5);
+    // The only <script> elements are the run record, the carried sources, packed Plotly and its loader, the figure
+    // data and the figure drawing code.
+    expect(html.match(/<script\b/g)).toHaveLength(6);
   });
 
   it("renders trusted HTML and Markdown from code as HTML", () => {
