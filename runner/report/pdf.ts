@@ -38,6 +38,11 @@ const INSTALL_HINT =
   "install one (Debian or Ubuntu: sudo apt-get install chromium; Fedora: sudo dnf install chromium; macOS: install Google Chrome) " +
   "or point CHROMIUM_PATH at a Chromium or Chrome executable";
 
+/** The window the report is laid out in before printing, and the print options (the report's own @page rules). */
+export const PDF_VIEWPORT = { width: 1000, height: 1200 } as const;
+// A4 unless the report's own @page rule names a size (it sets only the margins).
+export const PDF_OPTIONS = { format: "A4", preferCSSPageSize: true, printBackground: true } as const;
+
 let browser: Promise<Browser> | undefined;
 
 async function openBrowser(): Promise<Browser> {
@@ -72,14 +77,14 @@ export async function printReportToPdf(report: string, pdf: string): Promise<voi
     browser = undefined;
     throw e;
   }
-  const page = await opened.newPage({ viewport: { width: 1000, height: 1200 } });
+  const page = await opened.newPage({ viewport: PDF_VIEWPORT });
   try {
     // Nothing but the report's own file is loaded (reports fetch nothing; this makes sure).
     await page.route(/^(?!file:)/, (route) => route.abort());
     await page.goto(pathToFileURL(report).href, { waitUntil: "load" });
     if ((await page.locator(".plot[data-spec]").count()) > 0)
       await page.waitForSelector("body[data-figures]", { timeout: 120_000 });
-    const bytes = await page.pdf({ preferCSSPageSize: true, printBackground: true });
+    const bytes = await page.pdf(PDF_OPTIONS);
     writeFileAtomic(pdf, [bytes]);
   } finally {
     await page.close();
