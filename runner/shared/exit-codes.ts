@@ -11,7 +11,7 @@ export const EXIT = {
   usage: 2,
   /** Every cell ran, but an acceptance check (check / checkCondition) failed. A failed cell (1) wins over this. */
   checkFailed: 3,
-  /** The runner itself failed: a report could not be written, or an internal error (set TRISTIM_DEBUG=1 for details). */
+  /** The runner itself failed: a report, results file or PDF (--pdf) could not be written, or an internal error (TRISTIM_DEBUG=1). */
   internal: 4,
 } as const;
 
