@@ -16,6 +16,7 @@ import { resultsFile, resultsText, type RunResult } from "../report/results-file
 import { writeFileAtomic } from "../shared/write-atomic.ts";
 import { runExitCode } from "../records/run-outcome.ts";
 import { ProgressLine } from "./progress.ts";
+import { pdfPathFor } from "../report/pdf-path.ts";
 import type { CommandOptions, Io } from "./command-options.ts";
 import { checkResults } from "../records/check-results.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
@@ -384,7 +385,7 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
         if (done.pdfProblem) {
           io.err(`${shown(document.path)}: ${done.pdfProblem}\n`);
           code = worseExit(code, EXIT.internal);
-        }
+        } else if (options.pdf && !options.quiet) io.out(`  and ${shown(pdfPathFor(target))}\n`);
       }
       exit = worseExit(exit, code);
       results[i] = {
