@@ -182,6 +182,25 @@ describe("--jobs over several notebooks", () => {
     ]);
   }, 240_000);
 
+  it.skipIf(!fs.existsSync("/usr/bin/script"))(
+    "draws the progress line on a terminal (a pseudo-terminal from util-linux script)",
+    () => {
+      const folder = folderWithLots();
+      const log = path.join(folder, "tty.log");
+      const command = `${JSON.stringify(process.execPath)} ${JSON.stringify(BIN)} run nb.md --each 'data=lots/*.txt' --jobs 2 -o tty`;
+      spawnSync("/usr/bin/script", ["-qec", command, log], {
+        cwd: folder,
+        encoding: "utf8",
+        timeout: 240_000,
+      });
+      const text = fs.readFileSync(log, "utf8");
+      expect(text).toContain("\r\x1b[2K0 of 5 runs done, 0 failed");
+      expect(text).toMatch(/\r\x1b\[2K2 of 5 runs done, 1 failed, about .+ left/);
+      expect(text).toContain("\r\x1b[2K5 of 5 runs done, 2 failed");
+    },
+    240_000,
+  );
+
   it("draws a progress line with runs done, failures and time left", () => {
     let t = 0;
     let written = "";
