@@ -1,11 +1,17 @@
 /**
  * The record of a batch (`tristim run nb.md --each name=pattern`): one entry per data file, reduced from each run's
- * RunRecord to plain data, so the index page is written from records like every report.
+ * embedded run record (plain data), so the index page is written from records like every report, and a merge of
+ * shard folders (batch/collate.ts) rebuilds the same entries from the results embedded in the shards' index pages.
  */
-import { cautionResults } from "../records/caution-results.ts";
-import { checkResults, type CheckCounts } from "../records/check-results.ts";
+import path from "node:path";
 import { EXIT, type ExitCode } from "../shared/exit-codes.ts";
-import type { RunRecord } from "../records/run-record.ts";
+import type { CheckCounts } from "../records/check-results.ts";
+import {
+  resultsFile,
+  type BatchResultsPlace,
+  type ResultsFile,
+  type RunResult,
+} from "../report/results-file.ts";
 
 /** One run of the batch, as the index lists it. */
 export interface BatchEntry {
@@ -18,6 +24,7 @@ export interface BatchEntry {
   readonly cells: {
     readonly total: number;
     readonly ran: number;
+    /** 0-based indexes of the failed cells (failures allowed by may-fail left out). */
     readonly failed: readonly number[];
     readonly notRun: number;
   };
@@ -26,6 +33,8 @@ export interface BatchEntry {
   readonly failedChecks: readonly string[];
   readonly cautions: number;
   readonly exit: ExitCode;
+  /** The run's results, embedded in the index page and written by --results. */
+  readonly result: RunResult;
 }
 
 /** The whole batch. */
@@ -39,32 +48,54 @@ export interface BatchRecord {
   /** ISO date and time the batch started (left out of a reproducible index). */
   readonly startedAt: string;
   readonly reproducible: boolean;
+  /** The number of data files of the whole batch (more than `entries.length` for one shard). */
+  readonly count: number;
+  /** Set for one shard of a batch (`--shard K/N`). */
+  readonly shard?: BatchResultsPlace["shard"];
   readonly entries: readonly BatchEntry[];
 }
 
-/** The index entry of one run. */
-export function batchEntry(
-  run: RunRecord,
-  dataFile: string,
-  sha256: string,
-  report: string | undefined,
-  exit: ExitCode,
-): BatchEntry {
-  const checks = checkResults(run);
-  const failedChecks = checks.filter((c) => !c.record.passed).map((c) => c.record.label);
+/** The index entry of one run, from its results. */
+export function batchEntry(result: RunResult): BatchEntry {
+  const record = result.record;
+  const failedChecks = record.checks.filter((c) => !c.passed).map((c) => c.label);
   return {
-    dataFile,
-    sha256,
-    ...(report ? { report } : {}),
+    dataFile: result.dataFile ?? "",
+    sha256: result.dataFileSha256 ?? "",
+    ...(result.report ? { report: result.report } : {}),
     cells: {
-      total: run.cells.filter((c) => c.status !== "listing").length,
-      ran: run.cells.filter((c) => c.status === "ok" || c.status === "failed").length,
-      failed: run.cells.filter((c) => c.status === "failed" && !c.failureAllowed).map((c) => c.index),
-      notRun: run.cells.filter((c) => c.status === "not-run").length,
+      total: record.cells.filter((c) => c.status !== "listing").length,
+      ran: record.cells.filter((c) => c.status === "ok" || c.status === "failed").length,
+      failed: record.cells.filter((c) => c.status === "failed" && !c.failureAllowed).map((c) => c.cell - 1),
+      notRun: record.cells.filter((c) => c.status === "not-run").length,
     },
-    checks: { passed: checks.length - failedChecks.length, failed: failedChecks.length },
+    checks: { passed: record.checks.length - failedChecks.length, failed: failedChecks.length },
     failedChecks,
-    cautions: cautionResults(run).length,
-    exit: report ? exit : EXIT.internal,
+    cautions: record.cautions.length,
+    exit: result.report ? result.exitCode : EXIT.internal,
+    result,
   };
+}
+
+/** The batch's results (what the index page embeds and --results writes), from its record. */
+export function batchResults(batch: BatchRecord): ResultsFile {
+  return resultsFile(
+    batch.entries.map((e) => e.result),
+    {
+      tool: batch.tool,
+      reproducible: batch.reproducible,
+      startedAt: batch.startedAt,
+      batch: {
+        notebook: {
+          file: path.basename(batch.notebook.path),
+          sha256: batch.notebook.sha256,
+          title: batch.notebook.title,
+        },
+        input: batch.input,
+        pattern: batch.pattern,
+        count: batch.count,
+        ...(batch.shard ? { shard: batch.shard } : {}),
+      },
+    },
+  );
 }

@@ -7,6 +7,7 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { batchEntry, type BatchEntry, type BatchRecord } from "./batch-index.ts";
+import { embeddedRunRecord } from "../report/embedded-run-record.ts";
 import { UsageError } from "../shared/errors.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { expandFilePattern, reportNamesFor } from "./file-pattern.ts";
@@ -28,6 +29,8 @@ export interface BatchRunPlace {
   readonly dataFile: string;
   readonly report?: string;
   readonly error?: string;
+  /** Why the PDF (--pdf) was not written; the HTML report was. */
+  readonly pdfError?: string;
 }
 
 /** One finished run of a batch, waiting to be taken in the order of the files. */
@@ -54,8 +57,14 @@ export interface BatchOptions {
   readonly reproducible: boolean;
   /** How many runs go at the same time (default 1); the results are taken in the order of the files all the same. */
   readonly jobs?: number;
+  /** Run only the index-th (1-based) of `of` slices of the data files (--shard K/N). */
+  readonly shard?: { readonly index: number; readonly of: number };
   /** The working folder the pattern is relative to. */
   readonly cwd: string;
+  /** Print each report to <report>.pdf as well (--pdf). */
+  readonly pdf?: boolean;
+  /** Called once the batch's runs are known, with their number (for a progress line). */
+  readonly onStart?: (count: number) => void;
   /** Called after each run (for the terminal); `report` is absent and `error` set when the report could not be written. */
   readonly onRun?: (run: RunRecord, place: BatchRunPlace) => void;
 }
@@ -115,8 +124,10 @@ export async function runBatch(
   document: NotebookDocument,
   each: EachOption,
   options: BatchOptions,
-): Promise<{ exit: ExitCode; index: string; entries: BatchEntry[] }> {
-  const files = batchFiles(document, each, options);
+): Promise<{ exit: ExitCode; index: string; entries: BatchEntry[]; record: BatchRecord }> {
+  const allFiles = batchFiles(document, each, options);
+  const slice = shardSlice(allFiles.length, options.shard);
+  const files = allFiles.slice(slice.start, slice.end);
   const folder = batchFolder(document.path, options.output);
   if (fs.existsSync(folder) && !fs.statSync(folder).isDirectory()) {
     throw new UsageError(
@@ -124,7 +135,9 @@ export async function runBatch(
     );
   }
   makeReportFolder(folder);
-  const names = reportNamesFor(files, path.dirname(document.path));
+  // Report names from every file of the batch, so a shard names its reports as the whole batch does.
+  const names = reportNamesFor(allFiles, path.dirname(document.path));
+  const title = reportTitle(document);
   const startedAt = new Date().toISOString();
   const notebookDir = path.dirname(document.path);
   let exit: ExitCode = EXIT.ok;
@@ -165,7 +178,12 @@ export async function runBatch(
       timeLimitMs: options.timeLimitMs,
       keepGoing: options.keepGoing,
       reproducible: options.reproducible,
-      batch: { input: each.input, pattern: each.pattern, position: i + 1, count: files.length },
+      batch: {
+        input: each.input,
+        pattern: each.pattern,
+        position: slice.start + i + 1,
+        count: allFiles.length,
+      },
       prepareNext: i + 1 < files.length,
     });
     const name = names.get(file)!;
@@ -177,22 +195,47 @@ export async function runBatch(
       report = undefined;
       error = (e as Error).message;
     }
-    const code = report ? runExitCode(run) : EXIT.internal;
+    let pdfError: string | undefined;
+    if (report && options.pdf) {
+      const { printReportToPdf, pdfPathFor } = await import("../report/pdf.ts");
+      try {
+        await printReportToPdf(path.join(folder, name), pdfPathFor(path.join(folder, name)));
+      } catch (e) {
+        pdfError = `the PDF was not written (the HTML report was): ${(e as Error).message}`;
+      }
+    }
+    const runCode = report ? runExitCode(run) : EXIT.internal;
+    // A PDF that could not be printed makes the command exit with 4; the run's own outcome stays in the index.
+    const code = worseExit(runCode, pdfError ? EXIT.internal : EXIT.ok);
     const place: BatchRunPlace = {
-      position: i + 1,
-      count: files.length,
+      position: slice.start + i + 1,
+      count: allFiles.length,
       dataFile,
       ...(report ? { report: path.join(folder, name) } : {}),
       ...(error ? { error } : {}),
+      ...(pdfError ? { pdfError } : {}),
     };
-    return { run, place, code, entry: batchEntry(run, dataFile, sha256, report, code) };
+    const entry = batchEntry({
+      position: slice.start + i + 1,
+      dataFile,
+      dataFileSha256: sha256,
+      ...(report ? { report } : {}),
+      exitCode: runCode,
+      record: embeddedRunRecord(document, run, title),
+    });
+    return { run, place, code, entry };
   };
-  const jobs = Math.max(1, Math.min(options.jobs ?? 1, files.length));
-  await Promise.all(Array.from({ length: jobs }, worker));
+  const jobs = Math.max(1, Math.min(options.jobs ?? 1, Math.max(1, files.length)));
+  options.onStart?.(files.length);
+  try {
+    await Promise.all(Array.from({ length: jobs }, worker));
+  } finally {
+    if (options.pdf) await (await import("../report/pdf.ts")).closePdfPrinter();
+  }
   if (failure) throw failure.error;
   const tool = toolVersion();
   const record: BatchRecord = {
-    notebook: { path: document.path, sha256: document.sha256, title: reportTitle(document) },
+    notebook: { path: document.path, sha256: document.sha256, title },
     input: each.input,
     pattern: each.pattern,
     tool,
@@ -200,6 +243,8 @@ export async function runBatch(
     platform: `${process.platform}-${process.arch}`,
     startedAt,
     reproducible: options.reproducible,
+    count: allFiles.length,
+    ...(options.shard ? { shard: options.shard } : {}),
     entries,
   };
   const index = path.join(folder, "index.html");
@@ -208,5 +253,31 @@ export async function runBatch(
   } catch {
     exit = EXIT.internal;
   }
-  return { exit, index, entries };
+  return { exit, index, entries, record };
+}
+
+/** The files of shard `index` of `of` (1-based): contiguous slices in the order of the files, sizes differing by at most one. */
+export function shardSlice(
+  count: number,
+  shard: { index: number; of: number } | undefined,
+): { start: number; end: number } {
+  if (!shard) return { start: 0, end: count };
+  return {
+    start: Math.floor(((shard.index - 1) * count) / shard.of),
+    end: Math.floor((shard.index * count) / shard.of),
+  };
+}
+
+/** Reads --shard K/N: whole numbers, 1 ≤ K ≤ N. */
+export function parseShardArgument(text: string): { index: number; of: number } {
+  const m = /^\s*(\d+)\s*\/\s*(\d+)\s*$/.exec(text);
+  const index = m ? Number(m[1]) : NaN;
+  const of = m ? Number(m[2]) : NaN;
+  if (!m || !Number.isSafeInteger(of) || of < 1 || index < 1)
+    throw new UsageError(
+      `--shard expects K/N, the K-th of N slices of the batch, whole numbers with 1 <= K <= N (e.g. --shard 2/4), got "${text}"`,
+    );
+  if (index > of)
+    throw new UsageError(`--shard ${text}: there is no shard ${index} of ${of} (K must be from 1 to ${of})`);
+  return { index, of };
 }

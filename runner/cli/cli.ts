@@ -8,7 +8,15 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { NotebookError, UsageError } from "../shared/errors.ts";
-import { parseEachArgument, runBatch, type EachOption } from "../batch/batch.ts";
+import { parseEachArgument, parseShardArgument, runBatch, type EachOption } from "../batch/batch.ts";
+import { batchResults } from "../batch/batch-index.ts";
+import { embeddedRunRecord } from "../report/embedded-run-record.ts";
+import { reportTitle } from "../report/render-report.ts";
+import { resultsFile, resultsText, type RunResult } from "../report/results-file.ts";
+import { writeFileAtomic } from "../shared/write-atomic.ts";
+import { runExitCode } from "../records/run-outcome.ts";
+import { ProgressLine } from "./progress.ts";
+import { pdfPathFor } from "../report/pdf-path.ts";
 import type { CommandOptions, Io } from "./command-options.ts";
 import { checkResults } from "../records/check-results.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
@@ -38,12 +46,20 @@ import {
 } from "../shared/output-path.ts";
 import { DEFAULT_PORT, startWatch } from "../watch/watch.ts";
 
-const terminal: Io = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
+const terminal: Io = {
+  out: (t) => void process.stdout.write(t),
+  err: (t) => void process.stderr.write(t),
+  ...(process.stderr.isTTY ? { progress: (t: string) => void process.stderr.write(t) } : {}),
+};
 
 /** Runs the command line; resolves to the exit code (watch resolves when the server stops). */
 export async function main(argv: readonly string[], given: Io = terminal): Promise<ExitCode> {
   // Everything printed may hold text from data or cells: control characters are shown escaped, never obeyed.
-  const io: Io = { out: (t) => given.out(escapeControls(t)), err: (t) => given.err(escapeControls(t)) };
+  const io: Io = {
+    out: (t) => given.out(escapeControls(t)),
+    err: (t) => given.err(escapeControls(t)),
+    ...(given.progress ? { progress: given.progress } : {}),
+  };
   try {
     return await dispatch(argv, io);
   } catch (e) {
@@ -96,9 +112,21 @@ async function dispatch(argv: readonly string[], io: Io): Promise<ExitCode> {
     if (exit === "help") io.out(helpText(toolVersion().version));
     return exit === "help" ? EXIT.ok : exit;
   }
+  if (command === "collate") {
+    const { collateCommand } = await import("../batch/collate.ts");
+    const exit = collateCommand(rest, io, shown);
+    if (exit === "help") io.out(helpText(toolVersion().version));
+    return exit === "help" ? EXIT.ok : exit;
+  }
+  if (command === "restore") {
+    const { restoreCommand } = await import("../report/restore.ts");
+    const exit = restoreCommand(rest, io, shown);
+    if (exit === "help") io.out(helpText(toolVersion().version));
+    return exit === "help" ? EXIT.ok : exit;
+  }
   if (command !== "run" && command !== "watch") {
     throw new UsageError(
-      `unknown command "${command}"; the commands are run, watch, typecheck, editor-types, reference and help`,
+      `unknown command "${command}"; the commands are run, watch, collate, restore, typecheck, editor-types, reference and help`,
     );
   }
   const { options, files, help } = parseOptions(rest, command);
@@ -148,6 +176,9 @@ export function parseOptions(
         typecheck: { type: "boolean" },
         "no-typecheck": { type: "boolean" },
         jobs: { type: "string" },
+        shard: { type: "string" },
+        results: { type: "string", multiple: true },
+        pdf: { type: "boolean" },
         help: { type: "boolean", short: "h" },
       },
     });
@@ -185,9 +216,21 @@ export function parseOptions(
   if ((v.each?.length ?? 0) > 1)
     throw new UsageError("--each can be given once (one input takes the data files)");
   const each = v.each?.[0] === undefined ? undefined : parseEachArgument(v.each[0]);
-  if (v.jobs !== undefined && each === undefined)
-    throw new UsageError("--jobs is an option of run --each (it sets how many of its runs go at once)");
+  if (v.jobs !== undefined && command !== "run")
+    throw new UsageError("--jobs is an option of run (it sets how many runs go at once), not of watch");
   const jobs = v.jobs === undefined ? undefined : parseJobs(v.jobs);
+  if (v.shard !== undefined && each === undefined)
+    throw new UsageError("--shard is an option of run --each (it runs one slice of the batch's data files)");
+  const shard = v.shard === undefined ? undefined : parseShardArgument(v.shard);
+  if (v.results !== undefined && command !== "run")
+    throw new UsageError("--results is an option of run, not of watch");
+  if (v.pdf && command !== "run") throw new UsageError("--pdf is an option of run, not of watch");
+  for (const file of v.results ?? []) {
+    if (!/\.(json|csv)$/i.test(file))
+      throw new UsageError(
+        `--results ${file}: the file name must end in .json (every result) or .csv (the acceptance checks)`,
+      );
+  }
   const inputs: Record<string, string> = {};
   for (const argument of v.input ?? []) {
     const [name, value] = parseInputArgument(argument);
@@ -220,6 +263,9 @@ export function parseOptions(
       typecheck: command === "watch" ? v["no-typecheck"] !== true : v.typecheck === true,
       ...(each ? { each } : {}),
       ...(jobs !== undefined ? { jobs } : {}),
+      ...(shard ? { shard } : {}),
+      ...(v.results?.length ? { results: v.results.map((f) => path.resolve(f)) } : {}),
+      ...(v.pdf ? { pdf: true } : {}),
     },
   };
 }
@@ -284,33 +330,150 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
   );
   for (const document of documents)
     refuseClash(reportPathFor(document.path, options.output, several), guarded);
-  for (const document of documents) {
-    const run = await runDocument(document, {
-      inputs: options.inputs,
-      timeLimitMs: options.timeLimitMs,
-      keepGoing: options.keepGoing,
-      reproducible: options.reproducible,
-    });
-    const target = reportPathFor(document.path, options.output, several);
-    const read = clashingFile(target, readByCells(run));
-    if (read) {
-      io.err(`${shown(document.path)}: ${clashText(target, read)}; nothing was written\n`);
-      exit = worseExit(exit, EXIT.usage);
-      continue;
-    }
-    try {
-      makeReportFolder(path.dirname(target));
-      writeReport(document, run, target, options.linkAssets);
-    } catch (e) {
-      io.err(
-        `${shown(document.path)}: the report could not be written to ${shown(target)}: ${(e as Error).message}\n`,
-      );
-      exit = EXIT.internal;
-      continue;
-    }
-    exit = worseExit(exit, printOutcome(document, run, target, options, io));
+  for (const file of options.results ?? []) refuseClash(file, guarded);
+  const startedAt = new Date().toISOString();
+  const results: (RunResult | undefined)[] = documents.map(() => undefined);
+  const progress =
+    io.progress && documents.length > 1 && !options.quiet
+      ? new ProgressLine(documents.length, io.progress)
+      : undefined;
+  progress?.draw();
+  // Runs go `jobs` at a time, each in a cell process of its own; each one's messages are printed strictly in the
+  // order of the notebooks, so the output is that of a run one at a time.
+  await inOrder(
+    documents.length,
+    options.jobs ?? os.availableParallelism(),
+    async (i) => {
+      const document = documents[i]!;
+      const run = await runDocument(document, {
+        inputs: options.inputs,
+        timeLimitMs: options.timeLimitMs,
+        keepGoing: options.keepGoing,
+        reproducible: options.reproducible,
+      });
+      const target = reportPathFor(document.path, options.output, several);
+      const read = clashingFile(target, readByCells(run));
+      if (read)
+        return {
+          document,
+          run,
+          target,
+          problem: `${clashText(target, read)}; nothing was written`,
+          code: EXIT.usage,
+        };
+      try {
+        makeReportFolder(path.dirname(target));
+        writeReport(document, run, target, options.linkAssets);
+      } catch (e) {
+        return {
+          document,
+          run,
+          target,
+          problem: `the report could not be written to ${shown(target)}: ${(e as Error).message}`,
+          code: EXIT.internal,
+        };
+      }
+      const pdfProblem = options.pdf ? await writePdfBeside(target) : undefined;
+      return { document, run, target, pdfProblem, code: runExitCode(run) };
+    },
+    (done, i) => {
+      progress?.clear();
+      const { document, run, target } = done;
+      let code: ExitCode = done.code;
+      if (done.problem) io.err(`${shown(document.path)}: ${done.problem}\n`);
+      else {
+        code = printOutcome(document, run, target, options, io);
+        if (done.pdfProblem) {
+          io.err(`${shown(document.path)}: ${done.pdfProblem}\n`);
+          code = worseExit(code, EXIT.internal);
+        } else if (options.pdf && !options.quiet) io.out(`  and ${shown(pdfPathFor(target))}\n`);
+      }
+      exit = worseExit(exit, code);
+      results[i] = {
+        position: i + 1,
+        ...(done.problem
+          ? {}
+          : { report: path.relative(resultsBase(options), target).split(path.sep).join("/") }),
+        exitCode: code,
+        record: embeddedRunRecord(document, run, reportTitle(document)),
+      };
+      progress?.finished(code !== EXIT.ok);
+    },
+  );
+  progress?.clear();
+  if (options.pdf) await (await import("../report/pdf.ts")).closePdfPrinter();
+  if (options.results?.length) {
+    const file = resultsFile(
+      results.filter((r): r is RunResult => r !== undefined),
+      { tool: toolVersion(), reproducible: options.reproducible, startedAt },
+    );
+    exit = worseExit(exit, writeResults(file, options.results, io));
   }
   return exit;
+}
+
+/** The folder report paths in a results file are relative to (the first results file's). */
+function resultsBase(options: CommandOptions): string {
+  return path.dirname(options.results?.[0] ?? path.join(process.cwd(), "results.json"));
+}
+
+/** Writes the results to each --results file (atomically); returns 4 when one could not be written. */
+function writeResults(results: ReturnType<typeof resultsFile>, files: readonly string[], io: Io): ExitCode {
+  let exit: ExitCode = EXIT.ok;
+  for (const file of files) {
+    try {
+      writeFileAtomic(file, resultsText(results, file));
+    } catch (e) {
+      io.err(`tristim: the results could not be written to ${shown(file)}: ${(e as Error).message}\n`);
+      exit = EXIT.internal;
+    }
+  }
+  return exit;
+}
+
+/**
+ * Runs `start(i)` for i = 0 … count − 1, `jobs` at a time, and calls `take` with each result strictly in order of
+ * i (a finished run waits until all earlier ones are taken). A failure of `start` (an internal error) stops
+ * scheduling further runs and is raised after the running ones end.
+ */
+async function inOrder<T>(
+  count: number,
+  jobs: number,
+  start: (i: number) => Promise<T>,
+  take: (result: T, i: number) => void,
+): Promise<void> {
+  const finished: ({ value: T } | undefined)[] = Array.from({ length: count }, () => undefined);
+  let taken = 0;
+  let next = 0;
+  let failure: { error: unknown } | undefined;
+  const worker = async () => {
+    while (next < count && !failure) {
+      const i = next++;
+      try {
+        finished[i] = { value: await start(i) };
+      } catch (error) {
+        failure ??= { error };
+        return;
+      }
+      for (let r = finished[taken]; r && !failure; r = finished[taken]) {
+        finished[taken] = undefined;
+        take(r.value, taken++);
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: Math.max(1, Math.min(jobs, count)) }, worker));
+  if (failure) throw failure.error;
+}
+
+/** Prints the report beside its HTML as <report>.pdf; returns what went wrong, or undefined. */
+async function writePdfBeside(report: string): Promise<string | undefined> {
+  const { printReportToPdf, pdfPathFor } = await import("../report/pdf.ts");
+  try {
+    await printReportToPdf(report, pdfPathFor(report));
+    return undefined;
+  } catch (e) {
+    return `the PDF was not written (the HTML report was): ${(e as Error).message}`;
+  }
 }
 
 /** Throws a UsageError when the report path is a guarded file (before anything runs or is written). */
@@ -343,18 +506,37 @@ async function eachCommand(
   io: Io,
 ): Promise<ExitCode> {
   resolveInputs(document.frontMatter.inputs, options.inputs, shown(document.path));
-  const { exit, index, entries } = await runBatch(document, each, {
+  const guarded = notebookGuardedFiles(document.path, {});
+  for (const file of options.results ?? []) refuseClash(file, guarded);
+  let progress: ProgressLine | undefined;
+  const batch = await runBatch(document, each, {
     ...options,
     jobs: options.jobs ?? os.availableParallelism(),
     cwd: process.cwd(),
+    onStart: (count) => {
+      if (io.progress && !options.quiet && count > 1)
+        (progress = new ProgressLine(count, io.progress)).draw();
+    },
     onRun: (run, place) => {
+      progress?.clear();
       const label = `${shown(document.path)} [${place.position}/${place.count} ${each.input}=${place.dataFile}]`;
-      if (place.report) printOutcome(document, run, place.report, options, io, label);
+      let code: ExitCode = EXIT.internal;
+      if (place.report) code = printOutcome(document, run, place.report, options, io, label);
       else io.err(`${label}: the report could not be written: ${place.error}\n`);
+      if (place.pdfError) io.err(`${label}: ${place.pdfError}\n`);
+      progress?.finished(code !== EXIT.ok || place.pdfError !== undefined);
     },
   });
+  progress?.clear();
+  let exit = batch.exit;
+  const { index, entries } = batch;
+  if (options.results?.length)
+    exit = worseExit(exit, writeResults(batchResults(batch.record), options.results, io));
   const ok = entries.filter((e) => e.exit === EXIT.ok).length;
-  const line = `${entries.length === 1 ? "1 run" : `${entries.length} runs`}, ${ok} passed -> ${shown(index)}\n`;
+  const shard = options.shard
+    ? ` (shard ${options.shard.index} of ${options.shard.of} of ${batch.record.count} data files)`
+    : "";
+  const line = `${entries.length === 1 ? "1 run" : `${entries.length} runs`}${shard}, ${ok} passed -> ${shown(index)}\n`;
   if (exit === EXIT.ok) {
     if (!options.quiet) io.out(line);
   } else io.err(line);

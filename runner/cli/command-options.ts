@@ -5,6 +5,8 @@ import type { EachOption } from "../batch/batch.ts";
 export interface Io {
   readonly out: (text: string) => void;
   readonly err: (text: string) => void;
+  /** Raw terminal text for a progress line; only set when the error stream is a terminal. */
+  readonly progress?: (text: string) => void;
 }
 
 /** Options common to run and watch, after checking. */
@@ -22,6 +24,12 @@ export interface CommandOptions {
   readonly typecheck?: boolean;
   /** Run once per data file: --each name=pattern. */
   readonly each?: EachOption;
-  /** With --each: how many runs at the same time (--jobs; default the number of cores). */
+  /** How many runs at the same time, of several notebooks or of --each (--jobs; default the number of cores). */
   readonly jobs?: number;
+  /** With --each: run only the index-th of `of` slices of the data files (--shard K/N). */
+  readonly shard?: { readonly index: number; readonly of: number };
+  /** Files to write the results to (--results): .json for everything, .csv for the checks. */
+  readonly results?: readonly string[];
+  /** Also print each report to <report>.pdf through headless Chromium (--pdf). */
+  readonly pdf?: boolean;
 }

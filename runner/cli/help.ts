@@ -12,6 +12,11 @@ Usage:
                                            run one notebook once per data file, one report each
                                            and an index page
   tristim watch <notebook.md> [options]    serve the report on 127.0.0.1, re-run on save
+  tristim collate <shard folder>... -o <folder> [--results <file>]
+                                           merge the folders of a batch's shards (--shard K/N) into
+                                           one folder: every report, one index page, one results file
+  tristim restore <report.html> <folder>   write the notebook and data files a report carries into a
+                                           new folder and print the command that runs them again
   tristim typecheck <notebook.md>... [--quiet]
                                            type-check the cells as a run links them; prints
                                            notebook.md:line:column: message for each error
@@ -45,9 +50,18 @@ Options for run:
                            one per data file named after it, with index.html listing every run.
                            The exit code is the worst over the runs.
   --typecheck              type-check the cells first; do not run a notebook with type errors
-  --jobs <n>               with --each: how many runs go at the same time (default: the number of
-                           cores); each run has its own cell process, and the output is the same as
-                           one at a time (reports, index and messages in the order of the files)
+  --jobs <n>               how many runs go at the same time, of several notebooks or of --each
+                           (default: the number of cores); each run has its own cell process, and the
+                           output is the same as one at a time (reports, index and messages in order);
+                           on a terminal a progress line shows runs done, failures and time left
+  --shard <k>/<n>          with --each: run only the k-th of n slices of the data files (in their
+                           order), e.g. one per array job; merge the folders with tristim collate
+  --results <file>         also write the results as data: <file>.json holds every run's cells,
+                           checks (value, limits, outcome, unit), tables, cautions, inputs and
+                           data-file SHA-256 (schema: docs/results.md); <file>.csv the checks, one a
+                           row; repeat for both
+  --pdf                    also print each report to <report>.pdf with headless Chromium (the
+                           system's, or CHROMIUM_PATH), after its figures are drawn
 Options for watch:
   --port <number>          port on 127.0.0.1 (default ${DEFAULT_PORT}; 0 picks a free one)
   --no-typecheck           do not type-check (by default type errors show in a banner on the page,
@@ -90,6 +104,8 @@ Exit codes:
   ${EXIT.checkFailed}  every cell ran, but an acceptance check failed (check / checkCondition)
   With several notebooks the most severe code is returned: ${EXIT.internal}, then ${EXIT.notebookFailed}, then ${EXIT.checkFailed}; a failed cell (${EXIT.notebookFailed})
   wins over a failed check (${EXIT.checkFailed}).
-  ${EXIT.internal}  the runner itself failed (report not writable, internal error; TRISTIM_DEBUG=1 shows details)
+  ${EXIT.internal}  the runner itself failed (report, results or PDF not written, internal error; TRISTIM_DEBUG=1
+     shows details)
+  collate exits with the worst code of the merged runs, restore with ${EXIT.notebookFailed} when the report lacks a file.
 `;
 }

@@ -17,6 +17,12 @@ import { cacheRoot, runtimeBundle } from "./runtime-bundle.ts";
 import type { CellRun } from "../records/run-record.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
 import { toolVersion } from "../shared/tool-version.ts";
+import {
+  CARRIED_FILE_LIMIT,
+  CARRIED_TOTAL_LIMIT,
+  carryRefusal,
+  describeBytes,
+} from "../shared/carried-files.ts";
 
 /** Options of a run (all optional). */
 export interface RunOptions {
@@ -84,7 +90,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       cells,
       methods: execution.methods,
       ...(execution.methodsMissingFrom.length ? { methodsMissingFrom: execution.methodsMissingFrom } : {}),
-      filesRead: filesRead(cells, compiled),
+      filesRead: filesRead(cells, compiled, path.dirname(document.path)),
       events: execution.events,
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),
       ...(options.reproducible ? { reproducible: true } : {}),
@@ -122,7 +128,11 @@ export function runSignature(
 }
 
 /** The files the cells read or imported, each with its SHA-256 now and the cells that used it. */
-function filesRead(cells: readonly CellRun[], compiled: readonly (CompiledCell | undefined)[]): FileRead[] {
+function filesRead(
+  cells: readonly CellRun[],
+  compiled: readonly (CompiledCell | undefined)[],
+  notebookDir: string,
+): FileRead[] {
   const byPath = new Map<string, { cells: number[]; read: boolean }>();
   const add = (file: string, cell: number, read: boolean) => {
     const entry = byPath.get(file) ?? { cells: [], read: false };
@@ -135,19 +145,29 @@ function filesRead(cells: readonly CellRun[], compiled: readonly (CompiledCell |
       if (cell.status !== "listing") add(file, cell.index, false);
     for (const file of cell.reads) add(file, cell.index, true);
   }
-  return [...byPath.entries()].map(([file, { cells: readers, read }]) => {
+  let carried = 0;
+  return [...byPath.entries()].map(([file, { cells: readers, read }]): FileRead => {
     const imported = read ? {} : { imported: true as const };
     try {
       const stat = fs.statSync(file);
-      if (!stat.isFile()) return { path: file, cells: readers, ...imported };
+      if (!stat.isFile()) return { path: file, cells: readers, ...imported, notCarried: "not a file" };
+      const bytes = fs.readFileSync(file);
+      // The report carries the file so that it can be run again from the report alone (carried-files.ts).
+      let notCarried = carryRefusal(file, notebookDir);
+      if (!notCarried && bytes.length > CARRIED_FILE_LIMIT)
+        notCarried = `larger than ${describeBytes(CARRIED_FILE_LIMIT)}`;
+      if (!notCarried && carried + bytes.length > CARRIED_TOTAL_LIMIT)
+        notCarried = `the carried files reached ${describeBytes(CARRIED_TOTAL_LIMIT)}`;
+      if (!notCarried) carried += bytes.length;
       return {
         path: file,
-        sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"),
+        sha256: createHash("sha256").update(bytes).digest("hex"),
         cells: readers,
         ...imported,
+        ...(notCarried ? { notCarried } : { content: bytes.toString("base64") }),
       };
     } catch {
-      return { path: file, cells: readers, ...imported };
+      return { path: file, cells: readers, ...imported, notCarried: "not readable after the run" };
     }
   });
 }

@@ -33,6 +33,10 @@ export interface FileRead {
   readonly cells: readonly number[];
   /** The file was a module bundled for a cell's import (a helper .ts/.js/.json beside the notebook), not read by fs. */
   readonly imported?: boolean;
+  /** The file's bytes, base64, when the report carries it (inside the notebook's folder, within the limits of carried-files.ts). */
+  readonly content?: string;
+  /** Why the report does not carry the file (too large, outside the notebook's folder, not a file). */
+  readonly notCarried?: string;
 }
 
 /** The place of one run in a batch (`tristim run nb.md --each name=pattern`). */

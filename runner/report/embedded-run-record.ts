@@ -16,6 +16,7 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import { runExitCode } from "../records/run-outcome.ts";
 import type { CellStatus, RunRecord } from "../records/run-record.ts";
 import { jsonForScript } from "./escape.ts";
+import { reportModel } from "./report-model.ts";
 import { displayPath } from "../text/display-path.ts";
 
 /** The element id of the embedded record. */
@@ -62,6 +63,19 @@ export interface EmbeddedCaution {
   readonly about?: CautionRecord["about"];
 }
 
+/** One table as the report shows it: its number ("Table n"), caption, columns with units, and the rows as shown. */
+export interface EmbeddedTable {
+  /** The number of the table in the report ("Table 2" → 2). */
+  readonly number: number;
+  readonly cell: number;
+  readonly caption?: string;
+  readonly columns: readonly { readonly label: string; readonly unit?: string; readonly numeric: boolean }[];
+  /** Each row's cells as the report prints them (formatted in the cell process). */
+  readonly rows: readonly (readonly string[])[];
+  /** How many rows the cell gave; more than `rows.length` when the report shows only the first ones. */
+  readonly totalRows: number;
+}
+
 /** The embedded run record. */
 export interface EmbeddedRunRecord {
   readonly format: typeof RUN_RECORD_FORMAT;
@@ -92,6 +106,8 @@ export interface EmbeddedRunRecord {
   readonly cells: readonly EmbeddedCell[];
   readonly checks: readonly EmbeddedCheck[];
   readonly cautions: readonly EmbeddedCaution[];
+  /** Every table shown, in the order of the report (added in version 1 with issue 18). */
+  readonly tables: readonly EmbeddedTable[];
   readonly methods: readonly { readonly topic: string; readonly statement: string }[];
   /** Cells whose process stopped before reporting its method notes: the Methods may be incomplete. */
   readonly methodsMissingFrom: readonly number[];
@@ -178,6 +194,7 @@ export function embeddedRunRecord(
       text: r.text,
       ...(r.about ? { about: r.about } : {}),
     })),
+    tables: tablesShown(document, run),
     methods: run.methods.map((m) => ({ topic: m.topic, statement: m.statement })),
     methodsMissingFrom: (run.methodsMissingFrom ?? []).map((i) => i + 1),
     filesRead: run.filesRead.map((f) => ({
@@ -189,6 +206,27 @@ export function embeddedRunRecord(
     events: [...run.events],
     ...(run.batch ? { batch: { ...run.batch, dataFile: String(run.inputs[run.batch.input]) } } : {}),
   };
+}
+
+/** The tables of the run with the numbers and captions the report gives them (from the report model). */
+function tablesShown(document: NotebookDocument, run: RunRecord): EmbeddedTable[] {
+  const tables: EmbeddedTable[] = [];
+  for (const view of reportModel(document, run).cells)
+    for (const o of view.outputs)
+      if (o.record.kind === "table")
+        tables.push({
+          number: o.number ?? tables.length + 1,
+          cell: view.cell.index + 1,
+          ...(o.record.caption !== undefined ? { caption: o.record.caption } : {}),
+          columns: o.record.columns.map((c) => ({
+            label: c.label,
+            ...(c.unit !== undefined ? { unit: c.unit } : {}),
+            numeric: c.numeric,
+          })),
+          rows: o.record.rows.map((r) => [...r]),
+          totalRows: o.record.totalRows,
+        });
+  return tables;
 }
 
 function embeddedError(error: ErrorRecord, dir: string): NonNullable<EmbeddedCell["error"]> {

@@ -1,4 +1,4 @@
-/* Draws every figure of a tristim report with the Plotly copy loaded before this script. No network access. */
+/* Draws every figure of a tristim report with the Plotly copy loaded before this script (unpacked by plotly-loader.js when embedded), then marks <body data-figures="drawn">. No network access. */
 (function () {
   "use strict";
   var sans = 'system-ui, -apple-system, "Segoe UI", Roboto, "Noto Sans", "Helvetica Neue", Arial, sans-serif';
@@ -21,22 +21,30 @@
     }
     return out;
   }
-  var nodes = document.querySelectorAll(".plot[data-spec]");
-  for (var i = 0; i < nodes.length; i++) {
-    var node = nodes[i];
-    if (typeof window.Plotly === "undefined") {
-      node.innerHTML = '<p class="plot-missing">This figure needs the Plotly script, which did not load.</p>';
-      continue;
+  function drawAll(problem) {
+    var nodes = document.querySelectorAll(".plot[data-spec]");
+    var drawing = [];
+    for (var i = 0; i < nodes.length; i++) {
+      var node = nodes[i];
+      if (typeof window.Plotly === "undefined") {
+        node.innerHTML = '<p class="plot-missing">This figure needs the Plotly script, which did not load' + (problem ? ": " + String(problem.message || problem).replace(/[&<>]/g, "") : "") + ".</p>";
+        continue;
+      }
+      try {
+        var spec = JSON.parse(document.getElementById(node.getAttribute("data-spec")).textContent);
+        var layout = merge(base, spec.layout || {});
+        var axes = Object.keys(spec.layout || {}).filter(function (k) { return /^[xy]axis\d+$/.test(k); });
+        axes.forEach(function (k) { layout[k] = merge(base[k.charAt(0) + "axis"], spec.layout[k]); });
+        var config = merge({ displaylogo: false, responsive: true, showLink: false, showEditInChartStudio: false }, spec.config || {});
+        drawing.push(window.Plotly.newPlot(node, spec.data, layout, config));
+      } catch (e) {
+        node.innerHTML = '<p class="plot-missing">This figure could not be drawn: ' + String(e && e.message || e).replace(/[&<>]/g, "") + "</p>";
+      }
     }
-    try {
-      var spec = JSON.parse(document.getElementById(node.getAttribute("data-spec")).textContent);
-      var layout = merge(base, spec.layout || {});
-      var axes = Object.keys(spec.layout || {}).filter(function (k) { return /^[xy]axis\d+$/.test(k); });
-      axes.forEach(function (k) { layout[k] = merge(base[k.charAt(0) + "axis"], spec.layout[k]); });
-      var config = merge({ displaylogo: false, responsive: true, showLink: false, showEditInChartStudio: false }, spec.config || {});
-      window.Plotly.newPlot(node, spec.data, layout, config);
-    } catch (e) {
-      node.innerHTML = '<p class="plot-missing">This figure could not be drawn: ' + String(e && e.message || e).replace(/[&<>]/g, "") + "</p>";
-    }
+    Promise.all(drawing).then(
+      function () { document.body.setAttribute("data-figures", "drawn"); },
+      function () { document.body.setAttribute("data-figures", "failed"); }
+    );
   }
+  (window.tristimPlotlyReady || Promise.resolve()).then(function () { drawAll(); }, drawAll);
 })();

@@ -6,7 +6,8 @@
 import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import type { BatchEntry, BatchRecord } from "../batch/batch-index.ts";
+import { batchResults, type BatchEntry, type BatchRecord } from "../batch/batch-index.ts";
+import { batchResultsScript } from "./results-file.ts";
 import { EXIT } from "../shared/exit-codes.ts";
 import { escapeHtml } from "./escape.ts";
 import { describeCells } from "../text/cell-numbers.ts";
@@ -27,6 +28,14 @@ export function renderBatchIndex(batch: BatchRecord): string {
   const meta: [string, string][] = [
     ["Notebook", `<code>${escapeHtml(path.basename(batch.notebook.path))}</code>`],
     ["Runs", `${n}, one per data file`],
+    ...(batch.shard
+      ? ([
+          [
+            "Shard",
+            `${batch.shard.index} of ${batch.shard.of} of a batch of ${batch.count} data files (merge the shard folders with <code>tristim collate</code>)`,
+          ],
+        ] as [string, string][])
+      : []),
     ["Made with", escapeHtml(`${batch.tool.name} ${batch.tool.version}`)],
   ];
   if (!batch.reproducible) meta.push(["Date", escapeHtml(batch.startedAt.slice(0, 10))]);
@@ -141,6 +150,7 @@ export function renderBatchIndex(batch: BatchRecord): string {
 </section>
 <footer class="report-footer">Made with ${escapeHtml(batch.tool.name)} ${escapeHtml(batch.tool.version)} from ${escapeHtml(path.basename(batch.notebook.path))}.</footer>
 </main>
+${batchResultsScript(batchResults(batch))}
 </body>
 </html>
 `

@@ -26,7 +26,7 @@ export function writeReport(
   if (linkAssets) writeSharedAssets(path.join(path.dirname(file), ASSETS_FOLDER));
   const parts = renderReportParts(document, run, linkAssets ? { assetsHref: ASSETS_FOLDER } : {});
   const plotly = parts.embedsPlotly ? embeddedPlotlyScript() : undefined;
-  // Plotly's 4.8 MB go out as the bytes cached once per process, not re-encoded with every report.
+  // Plotly's packed 2 MB go out as the bytes cached once per process, not re-encoded with every report.
   writeFileAtomic(file, plotly ? [parts.before, plotly.bytes, parts.after] : [parts.before, parts.after]);
   return parts.before + (plotly?.text ?? "") + parts.after;
 }

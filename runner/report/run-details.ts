@@ -11,12 +11,16 @@ import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
 import { displayPath } from "../text/display-path.ts";
 import { formatDuration } from "../text/duration.ts";
+import { shellLine, type CarriedSources } from "./carried-sources.ts";
+import { describeBytes } from "../shared/carried-files.ts";
 
 const STATUS_TEXT = { ok: "ran", failed: "failed", "not-run": "not run", listing: "listing only" } as const;
 
 /** What the appendix needs besides the run: the Plotly version when the report draws figures. */
 export interface RunDetailsOptions {
   readonly plotlyVersion?: string;
+  /** What the report carries to be run again (carried-sources.ts). */
+  readonly sources?: CarriedSources;
 }
 
 /** The provenance appendix. */
@@ -68,6 +72,8 @@ export function renderRunDetails(
         `one run per matching file, this one with <code>${escapeHtml(run.batch.input)}</code> = <code>${escapeHtml(String(run.inputs[run.batch.input]))}</code>`,
     ]);
   }
+
+  if (options.sources) facts.push(["Run it again", rerunText(options.sources, run)]);
 
   const inputs = Object.entries(run.inputs);
   const inputTable =
@@ -126,4 +132,30 @@ export function renderRunDetails(
     `<p class="section-note">How this report was made. A SHA-256 identifies the exact bytes of a file: compute it again (for example with <code>sha256sum</code>) to confirm a file is the one used here.</p>` +
     `<dl class="facts">${facts.map(([k, v]) => `<dt>${k}</dt><dd>${v}</dd>`).join("")}</dl>${inputTable}${cellTable}${files}</section>`
   );
+}
+
+/** How to run the report again from the sources it carries. */
+function rerunText(sources: CarriedSources, run: RunRecord): string {
+  const carried = sources.files.filter((f) => f.base64 !== undefined).length;
+  const missing = sources.files.filter((f) => f.base64 === undefined);
+  const what =
+    carried === 0
+      ? "the notebook's source"
+      : `the notebook's source and the ${carried === 1 ? "file" : `${carried} files`} its cells read or imported`;
+  let text =
+    `This report carries ${what} (each file up to ${describeBytes(sources.limits.fileBytes)}, ${describeBytes(sources.limits.totalBytes)} in all). ` +
+    `<code>tristim restore &lt;this report&gt; &lt;new folder&gt;</code> writes them into a folder; there, ` +
+    `<code>${escapeHtml(shellLine(sources.rerun))}</code> makes this report again with ${escapeHtml(`${run.tool.name} ${run.tool.version}`)}` +
+    `${run.reproducible ? ", byte for byte" : " (with --reproducible, without its date and durations)"}.`;
+  if (run.batch)
+    text +=
+      " As a single run, its title block and this appendix no longer name the batch; its results are the same.";
+  if (missing.length)
+    text +=
+      ` Not carried, by SHA-256 only (put a copy with that SHA-256 in its place first): ` +
+      missing
+        .map((f) => `<code>${escapeHtml(f.path)}</code> (${escapeHtml(f.missing ?? "not carried")})`)
+        .join(", ") +
+      ".";
+  return text;
 }

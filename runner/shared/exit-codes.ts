@@ -15,7 +15,7 @@ export const EXIT = {
    * (simple acceptance decides on the value, guarded acceptance on the limits narrowed by the guard band).
    */
   checkFailed: 3,
-  /** The runner itself failed: a report could not be written, or an internal error (set TRISTIM_DEBUG=1 for details). */
+  /** The runner itself failed: a report, results file or PDF (--pdf) could not be written, or an internal error (TRISTIM_DEBUG=1). */
   internal: 4,
 } as const;
 

@@ -83,7 +83,7 @@ describe("--each --jobs", () => {
     expect(b["e.html"]).toContain("lot epsilon");
   }, 240_000);
 
-  it("refuses --jobs 0, a fraction, and --jobs without --each (exit 2)", () => {
+  it("refuses --jobs 0, a fraction, and --jobs with watch (exit 2)", () => {
     const folder = batchFolder();
     for (const [args, message] of [
       [
@@ -91,12 +91,16 @@ describe("--each --jobs", () => {
         '--jobs expects how many runs go at the same time, a whole number from 1, got "0"',
       ],
       [["--each", "data=lots/*.txt", "--jobs", "1.5"], 'got "1.5"'],
-      [["--jobs", "2"], "--jobs is an option of run --each"],
+      [["--jobs", "0"], 'got "0"'],
     ] as const) {
       const result = tristim(["run", "nb.md", ...args], folder);
       expect(result.code).toBe(EXIT.usage);
       expect(result.err).toContain(message);
     }
+    const watch = tristim(["watch", "nb.md", "--jobs", "2"], folder);
+    expect(watch.code).toBe(EXIT.usage);
+    expect(watch.err).toContain("--jobs is an option of run");
     expect(fs.existsSync(path.join(folder, "nb-reports"))).toBe(false);
+    expect(fs.existsSync(path.join(folder, "nb.html"))).toBe(false);
   }, 60_000);
 });

@@ -135,7 +135,10 @@ describe("tristim run --each", () => {
     expect(index).toMatch(
       /<tr class="check check-fail" id="run-2">.*FAIL.*lots\/b\.csv.*1 of 1 failed.*value/,
     );
-    expect(index).not.toMatch(/<script\b/);
+    // The only script is the batch's results as data (JSON, never run).
+    expect(index.match(/<script\b[^>]*>/g)).toEqual([
+      '<script type="application/json" id="tristim-batch-results">',
+    ]);
 
     // Same command again into another folder: byte-identical (diff -r).
     const second = tristim([...args, "-o", "two"], folder);

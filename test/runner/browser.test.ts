@@ -35,7 +35,8 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : ` (skipped: ${N
       page.on("request", (r) => void (r.url().startsWith("file:") || requests.push(r.url())));
       page.on("pageerror", (e) => void errors.push(e.message));
       await page.goto(pathToFileURL(file).href);
-      await page.waitForSelector("#figure-1 .plot .main-svg", { timeout: 20_000 });
+      // Plotly is unpacked in the page first (DecompressionStream); on a loaded machine that and drawing take a while.
+      await page.waitForSelector("#figure-1 .plot .main-svg", { timeout: 90_000 });
       expect(await page.locator("#figure-1 .scatterlayer .trace").count()).toBe(1);
       expect(await page.locator("#figure-1 figcaption").textContent()).toBe("Figure 1. Invented curve");
       expect(await page.locator("#figure-2 .chip").count()).toBe(1);
@@ -53,7 +54,7 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : ` (skipped: ${N
     } finally {
       await browser.close();
     }
-  }, 60_000);
+  }, 150_000);
 
   it("prints as a lab report: no Plotly tool bar, figures kept whole and no wider than an A4 column", async () => {
     const { document: doc, run } = await runText(
@@ -73,7 +74,8 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : ` (skipped: ${N
       // A wide window: the figure is drawn for the screen before the page is printed.
       const page = await browser.newPage({ viewport: { width: 1600, height: 1000 } });
       await page.goto(pathToFileURL(file).href);
-      await page.waitForSelector("#figure-1 .plot .main-svg", { timeout: 20_000 });
+      // Plotly is unpacked in the page first (DecompressionStream); on a loaded machine that and drawing take a while.
+      await page.waitForSelector("#figure-1 .plot .main-svg", { timeout: 90_000 });
       const onScreen = await page.$eval(".modebar-container", (m) => getComputedStyle(m).display);
       expect(onScreen).not.toBe("none");
       await page.emulateMedia({ media: "print" });
@@ -98,7 +100,7 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : ` (skipped: ${N
     } finally {
       await browser.close();
     }
-  }, 60_000);
+  }, 150_000);
 
   it("keeps each swatch pair side by side on one row, marks patches outside the display gamut, and keeps IDs on one line", async () => {
     // Invented CIELAB pairs, drawn by lib/plot's swatchPairs (its current output: two swatches per pair).
@@ -179,5 +181,5 @@ describe.skipIf(!CHROMIUM)(`report in a browser${CHROMIUM ? "" : ` (skipped: ${N
     } finally {
       await browser.close();
     }
-  }, 60_000);
+  }, 150_000);
 });
