@@ -50,5 +50,11 @@ export * from "./halftone/index.ts";
 export * from "./rendering/index.ts";
 export * from "./files/index.ts";
 
+// Display and HDR measurement (issue 14): ICtCp, ΔE ITP, Jzazbz, CAM16/CIECAM02 and CAM16-UCS (lib/appearance);
+// Y′CbCr and integer code values (lib/video); the display QA calculations (lib/display). Figures are in lib/plot.
+export * from "./appearance/index.ts";
+export * from "./video/index.ts";
+export * from "./display/index.ts";
+
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";
