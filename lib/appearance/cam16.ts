@@ -239,6 +239,9 @@ const eccentricity = (h: number): number => 0.25 * (Math.cos((h * Math.PI) / 180
 /**
  * Colour appearance correlates J, C, h, Q, M, s and H of a colour under viewing conditions (CAM16 or CIECAM02).
  *
+ * The models are defined for real colours; far outside the spectrum locus the achromatic response A can fall to
+ * zero or below, and J, C, Q, M and s are then returned as 0.
+ *
  * @param xyz Tristimulus values { X, Y, Z } on the scale of the conditions' white (Y = 100 for a relative white).
  * @param conditions Viewing conditions from `viewingConditions`.
  * @returns { J, C, h, Q, M, s, H }.
