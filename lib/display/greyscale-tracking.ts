@@ -79,7 +79,7 @@ export function greyscaleTracking(
   const k = options.black;
   noteMethod(
     "colour difference",
-    "Grey-scale tracking gave each level's Δu′v′ from the target white in the CIE 1976 UCS diagram (CIE 015:2018 §8.1).",
+    "Grey-scale tracking was computed as each level's Δu′v′ from the target white in the CIE 1976 UCS diagram (CIE 015:2018 §8.1), with CCT and Duv per level.",
   );
   if (k)
     noteMethod(

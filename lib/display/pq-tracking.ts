@@ -95,7 +95,7 @@ export function pqTracking(readings: readonly PqReading[], options: PqTrackingOp
   const abs = options.absoluteTolerance ?? 0;
   noteMethod(
     "other",
-    `PQ tracking compared each level's luminance with the SMPTE ST 2084 EOTF of its ${options.format.bits}-bit ${options.format.range}-range code value${options.peakLuminance ? `, clipped at the display peak of ${peak} cd/m²` : ""}.`,
+    `PQ tracking was assessed by comparing each level's luminance with the SMPTE ST 2084 EOTF of its ${options.format.bits}-bit ${options.format.range}-range code value${options.peakLuminance ? `, clipped at the display peak of ${peak} cd/m²` : ""}.`,
   );
   const levels = readings.map((r) => {
     const signal = Math.min(Math.max(codeValueSignal(r.code, options.format), 0), 1);
