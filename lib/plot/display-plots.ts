@@ -178,7 +178,7 @@ export function greyscaleTrackingPlot(
     const maxUv = Math.max(options.limit ?? 0, ...levels.map((l) => l.deltaUv));
     const layout = houseLayout({
       title: options.title ?? "Grey-scale tracking",
-      subtitle: `target white x ${tracking.target.x}, y ${tracking.target.y}${tracking.blackSubtracted ? "; black level subtracted" : ""}`,
+      subtitle: `target white x ${tracking.target.x.toFixed(4)}, y ${tracking.target.y.toFixed(4)}${tracking.blackSubtracted ? "; black level subtracted" : ""}`,
       height: FIGURE_HEIGHTS.square,
       xaxis: houseAxis("Signal level (%)", { range: [0, 102], anchor: "y2" }),
       yaxis: houseAxis("Δu′v′", {
@@ -299,15 +299,21 @@ export function eotfPlot(series: readonly EotfSeries[], options: EotfPlotOptions
     series.forEach((s, i) => {
       const look = seriesLook(i);
       const r = s.readings.filter(shown);
-      data.push({
-        type: "scatter",
-        mode: "markers",
-        name: `${s.label} (measured)`,
-        x: r.map((p) => p.signal),
-        y: r.map((p) => p.luminance),
-        marker: { symbol: look.symbol, size: 7, color: look.color, line: { width: 1.2, color: look.color } },
-        hovertemplate: `${escapeHover(s.label)}<br>V = %{x:.4f}<br>L = %{y:.4~g} cd/m²<extra></extra>`,
-      });
+      if (r.length > 0)
+        data.push({
+          type: "scatter",
+          mode: "markers",
+          name: `${s.label} (measured)`,
+          x: r.map((p) => p.signal),
+          y: r.map((p) => p.luminance),
+          marker: {
+            symbol: look.symbol,
+            size: 7,
+            color: look.color,
+            line: { width: 1.2, color: look.color },
+          },
+          hovertemplate: `${escapeHover(s.label)}<br>V = %{x:.4f}<br>L = %{y:.4~g} cd/m²<extra></extra>`,
+        });
       if (s.fit) {
         const f = s.fit;
         const cx = curveX(100);
