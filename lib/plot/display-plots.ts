@@ -137,6 +137,8 @@ export function greyscaleTrackingPlot(
         mode: "lines+markers",
         name: "Δu′v′ from the target white",
         x,
+        xaxis: "x2",
+        yaxis: "y",
         y: levels.map((l) => roundForDisplay(l.deltaUv, 6)),
         line: { color: blue.color, width: 1.6 },
         marker: { symbol: blue.symbol, size: 7, color: blue.color },
@@ -171,6 +173,8 @@ export function greyscaleTrackingPlot(
         mode: "lines",
         name: `QA limit Δu′v′ ≤ ${options.limit}`,
         x: [0, 100],
+        xaxis: "x2",
+        yaxis: "y",
         y: [options.limit, options.limit],
         line: { color: INK.frame, width: 1.2, dash: "dash" },
         hoverinfo: "skip",
@@ -185,10 +189,13 @@ export function greyscaleTrackingPlot(
         domain: [0.56, 1],
         range: [0, maxUv * 1.15 || 0.001],
         rangemode: "tozero",
+        anchor: "x2",
       }),
       legend: "below",
     });
     layout.yaxis2 = houseAxis("CCT (K)", { domain: [0, 0.44], anchor: "x" });
+    // The upper panel's own x axis: the same scale as the lower one, its labels left to the lower panel.
+    layout.xaxis2 = houseAxis("", { matches: "x", anchor: "y", showticklabels: false });
     const caption =
       options.caption ??
       `Grey-scale tracking: the chromaticity difference Δu′v′ (CIE 1976 UCS) of each level from the target white, and each level's CCT (CIE 1960 UCS, Ohno 2014), against the signal level.`;
