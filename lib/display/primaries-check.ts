@@ -3,7 +3,8 @@ import type { Chromaticity } from "../colorimetry/chromaticity.ts";
 import { checkWith } from "../arguments/check-with.ts";
 import { isRgbSpace } from "../arguments/common-arguments.ts";
 import { noteMethod } from "../methods/method-log.ts";
-import { rgbSpace, type RgbSpace } from "../rgb/rgb-space.ts";
+import { refuse } from "../arguments/refuse.ts";
+import { rgbSpace, rgbSpaceNames, type RgbSpace } from "../rgb/rgb-space.ts";
 import { readingXy, uvOf, type ColourReading } from "./colour-input.ts";
 
 /** Measured full-screen red, green, blue and white, as XYZ or chromaticities. */
@@ -63,7 +64,12 @@ export function primariesAgainstTarget(
     'an RGB space or its name (e.g. "BT.709")',
     (t) => typeof t === "string" || isRgbSpace(t),
   );
-  const space = typeof target === "string" ? rgbSpace(target) : target;
+  let space: RgbSpace;
+  try {
+    space = typeof target === "string" ? rgbSpace(target) : target;
+  } catch {
+    refuse(fn, "target", `an RGB space name, one of ${rgbSpaceNames().join(", ")}`, target);
+  }
   const want = {
     red: space.primaries.r,
     green: space.primaries.g,

@@ -209,5 +209,6 @@ describe("primaries against a named target", () => {
       12,
     );
     expect(p3.target).toBe("DCI-P3");
+    expect(() => t.primariesAgainstTarget(m, "P3 cinema")).toThrow(/primariesAgainstTarget: target/);
   });
 });
