@@ -53,6 +53,11 @@ export * from "./files/index.ts";
 
 // Measurement uncertainty (issue 13): input models, Monte Carlo (JCGM 101), first order (JCGM 100).
 export * from "./uncertainty/index.ts";
+// Display and HDR measurement (issue 14): ICtCp, ΔE ITP, Jzazbz, CAM16/CIECAM02 and CAM16-UCS (lib/appearance);
+// Y′CbCr and integer code values (lib/video); the display QA calculations (lib/display). Figures are in lib/plot.
+export * from "./appearance/index.ts";
+export * from "./video/index.ts";
+export * from "./display/index.ts";
 
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

@@ -75,7 +75,7 @@ export function checkSampling(fn: string, arg: string, value: unknown, more: rea
 }
 
 /** True for an RGB space object (from rgbSpace() or rgbSpaceFromPrimaries()). */
-function isRgbSpace(value: unknown): boolean {
+export function isRgbSpace(value: unknown): boolean {
   return typeof value === "object" && value !== null && (value as { kind?: unknown }).kind === "rgb space";
 }
 

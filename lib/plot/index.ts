@@ -40,3 +40,12 @@ export type { LabPlotOptions, LabSample, LabPair } from "./lab-plots.ts";
 
 export { swatch, swatchGrid, swatchPairs } from "./swatch.ts";
 export type { Swatch, SwatchColour, SwatchOptions, SwatchEntry, SwatchPairEntry } from "./swatch.ts";
+
+// Display measurement figures (issue 14).
+export { decadeTicks, greyscaleTrackingPlot, eotfPlot, uniformityMap } from "./display-plots.ts";
+export type {
+  GreyscaleTrackingPlotOptions,
+  EotfSeries,
+  EotfPlotOptions,
+  UniformityMapOptions,
+} from "./display-plots.ts";

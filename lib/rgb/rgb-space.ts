@@ -37,7 +37,8 @@ export interface RgbSpace {
   readonly source: string;
 }
 
-function requireChromaticity(what: string, c: Chromaticity): void {
+function requireChromaticity(what: string, c: Chromaticity, imaginary = false): void {
+  if (imaginary && Number.isFinite(c?.x) && Number.isFinite(c?.y)) return;
   if (
     typeof c !== "object" ||
     c === null ||
@@ -68,9 +69,14 @@ export function normalisedPrimaryMatrix(primaries: RgbPrimaries, white: Chromati
     ...XY_FIELDS,
     what: "the white's chromaticity { x, y }",
   });
-  requireChromaticity("red primary", primaries.r);
-  requireChromaticity("green primary", primaries.g);
-  requireChromaticity("blue primary", primaries.b);
+  return primaryMatrix(primaries, white, false);
+}
+
+/** The NPM; `imaginary` admits primaries outside the spectrum locus (AP0's blue has y < 0, AP1's red x + y > 1), never the white. */
+function primaryMatrix(primaries: RgbPrimaries, white: Chromaticity, imaginary: boolean): Matrix3 {
+  requireChromaticity("red primary", primaries.r, imaginary);
+  requireChromaticity("green primary", primaries.g, imaginary);
+  requireChromaticity("blue primary", primaries.b, imaginary);
   requireChromaticity("white point", white);
   const col = (c: Chromaticity) => [c.x, c.y, 1 - c.x - c.y] as const;
   const [r, g, b] = [col(primaries.r), col(primaries.g), col(primaries.b)];
@@ -110,9 +116,18 @@ export function rgbSpaceFromPrimaries(
     what: "the white's chromaticity { x, y }",
   });
   checkOptions("rgbSpaceFromPrimaries", "options", options, ["name", "transfer", "source"]);
+  return buildSpace(primaries, white, options, false);
+}
+
+function buildSpace(
+  primaries: RgbPrimaries,
+  white: Chromaticity,
+  options: { name?: string; transfer?: TransferName; source?: string },
+  imaginary: boolean,
+): RgbSpace {
   const transfer = options.transfer ?? "linear";
   transferFunction(transfer); // checks the name
-  const toXYZ = normalisedPrimaryMatrix(primaries, white);
+  const toXYZ = primaryMatrix(primaries, white, imaginary);
   return {
     kind: "rgb space",
     name: options.name ?? "RGB from measured primaries",
@@ -142,9 +157,43 @@ const P3_PRIMARIES: RgbPrimaries = {
   b: { x: 0.15, y: 0.06 },
 };
 
+// SMPTE RP 431-2:2011: the DCI white. ISO 22028-2:2013: the ROMM (D50) white. SMPTE ST 2065-1:2012: the ACES white.
+const DCI_WHITE: Chromaticity = { x: 0.314, y: 0.351 };
+const D50_ROMM: Chromaticity = { x: 0.3457, y: 0.3585 };
+const ACES_WHITE: Chromaticity = { x: 0.32168, y: 0.33767 };
+const OPRGB_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.64, y: 0.33 },
+  g: { x: 0.21, y: 0.71 },
+  b: { x: 0.15, y: 0.06 },
+};
+const ROMM_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.7347, y: 0.2653 },
+  g: { x: 0.1596, y: 0.8404 },
+  b: { x: 0.0366, y: 0.0001 },
+};
+const AP0_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.7347, y: 0.2653 },
+  g: { x: 0.0, y: 1.0 },
+  b: { x: 0.0001, y: -0.077 },
+};
+const AP1_PRIMARIES: RgbPrimaries = {
+  r: { x: 0.713, y: 0.293 },
+  g: { x: 0.165, y: 0.83 },
+  b: { x: 0.128, y: 0.044 },
+};
+
 const DEFINITIONS: Record<
   string,
-  { primaries: RgbPrimaries; white: Chromaticity; transfer: TransferName; source: string }
+  {
+    primaries: RgbPrimaries;
+    white: Chromaticity;
+    transfer: TransferName;
+    source: string;
+    /** Other names the space is asked for by (compared without case, spaces, "-" and "_"). */
+    aliases?: readonly string[];
+    /** Primaries outside the spectrum locus are allowed (ACES AP0). */
+    imaginary?: boolean;
+  }
 > = {
   sRGB: {
     primaries: BT709_PRIMARIES,
@@ -182,6 +231,51 @@ const DEFINITIONS: Record<
     transfer: "HLG",
     source: "ITU-R BT.2100-2 (BT.2020 primaries, D65, HLG)",
   },
+  "DCI-P3": {
+    primaries: P3_PRIMARIES,
+    white: DCI_WHITE,
+    transfer: "gamma 2.6",
+    source: "SMPTE RP 431-2:2011 reference projector (P3 primaries, DCI white (0.314, 0.351), 2.6 power law)",
+    aliases: ["P3-DCI", "DCI P3", "SMPTE RP 431-2"],
+  },
+  "P3-D65": {
+    primaries: P3_PRIMARIES,
+    white: D65,
+    transfer: "gamma 2.6",
+    source: "SMPTE EG 432-1:2010 P3D65 (P3 primaries of SMPTE RP 431-2 with the D65 white, 2.6 power law)",
+    aliases: ["P3D65", "DCI-P3 D65"],
+  },
+  opRGB: {
+    primaries: OPRGB_PRIMARIES,
+    white: D65,
+    transfer: "opRGB",
+    source: "IEC 61966-2-5:2007 (opRGB primaries, D65 white, γ = 563/256)",
+    aliases: ["IEC 61966-2-5"],
+  },
+  "ROMM RGB": {
+    primaries: ROMM_PRIMARIES,
+    white: D50_ROMM,
+    transfer: "ROMM",
+    source: "ISO 22028-2:2013 (ROMM RGB primaries, D50 white (0.3457, 0.3585), ROMM encoding)",
+    aliases: ["ROMM", "ISO 22028-2"],
+  },
+  "ACES AP0": {
+    primaries: AP0_PRIMARIES,
+    white: ACES_WHITE,
+    transfer: "linear",
+    source: "SMPTE ST 2065-1:2012 (ACES2065-1: AP0 primaries, ACES white (0.32168, 0.33767), linear)",
+    aliases: ["AP0", "ACES2065-1", "SMPTE ST 2065-1"],
+    imaginary: true,
+  },
+  "ACES AP1": {
+    primaries: AP1_PRIMARIES,
+    white: ACES_WHITE,
+    transfer: "linear",
+    source:
+      "the ACES AP1 primaries (Academy S-2014-004, ACEScg) with the ACES white of SMPTE ST 2065-1:2012, linear",
+    aliases: ["AP1", "ACEScg"],
+    imaginary: true,
+  },
 };
 
 const cache = new Map<string, RgbSpace>();
@@ -189,8 +283,8 @@ const cache = new Map<string, RgbSpace>();
 /**
  * The names `rgbSpace()` knows.
  *
- * @returns The names: "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ", "BT.2100 HLG".
- * @source IEC 61966-2-1; SMPTE EG 432-1 (Display P3); ITU-R BT.709-6, BT.2020-2, BT.2100-2.
+ * @returns The names: "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ", "BT.2100 HLG", "DCI-P3", "P3-D65", "opRGB", "ROMM RGB", "ACES AP0", "ACES AP1".
+ * @source IEC 61966-2-1; SMPTE EG 432-1 (Display P3, P3D65); ITU-R BT.709-6, BT.2020-2, BT.2100-2; SMPTE RP 431-2; IEC 61966-2-5; ISO 22028-2; SMPTE ST 2065-1.
  * @example rgbSpaceNames()
  */
 export function rgbSpaceNames(): string[] {
@@ -200,37 +294,24 @@ export function rgbSpaceNames(): string[] {
 /**
  * A standard RGB space by name (case and spaces ignored), with matrices derived from its primaries and white.
  *
- * @param name "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ" or "BT.2100 HLG".
+ * "DCI-P3" is the reference projector of SMPTE RP 431-2 (DCI white, 2.6 power law); "P3-D65" the same primaries with
+ * D65 (SMPTE EG 432-1's P3D65); "Display P3" the P3 primaries with D65 and the sRGB curve. "ACES AP0" (also
+ * "ACES2065-1") has a blue primary outside the spectrum locus; both ACES spaces are linear. "ROMM RGB" has a D50
+ * white: pass XYZ relative to that white (adapt with `adaptXYZ`).
+ *
+ * @param name "sRGB", "Display P3", "BT.709", "BT.2020", "BT.2100 PQ", "BT.2100 HLG", "DCI-P3", "P3-D65", "opRGB", "ROMM RGB", "ACES AP0" or "ACES AP1" (aliases such as "ACEScg", "P3D65", "Rec2020").
  * @returns An `RgbSpace`: primaries, white, transfer function name, toXYZ and fromXYZ matrices, source.
- * @source IEC 61966-2-1:1999; SMPTE EG 432-1 (Display P3); ITU-R BT.709-6, BT.2020-2, BT.2100-2; matrices per SMPTE RP 177-1993.
+ * @source IEC 61966-2-1:1999; SMPTE EG 432-1 (Display P3, P3D65); ITU-R BT.709-6, BT.2020-2, BT.2100-2; SMPTE RP 431-2:2011; IEC 61966-2-5:2007; ISO 22028-2:2013; SMPTE ST 2065-1:2012; matrices per SMPTE RP 177-1993.
  * @example rgbSpace("Display P3").white
  */
 export function rgbSpace(name: string): RgbSpace {
+  const key = typeof name === "string" ? spaceKey(name) : undefined;
   checkWith(
     "rgbSpace",
     "name",
     name,
     `an RGB space name, one of ${rgbSpaceNames().join(", ")}`,
-    (n) =>
-      typeof n === "string" &&
-      Object.keys(DEFINITIONS).some((k) => {
-        const norm = (t: string) => t.replace(/[\s_-]+/g, "").toUpperCase();
-        return (
-          norm(k) === norm(n) ||
-          (norm(n) === "REC709" && k === "BT.709") ||
-          (norm(n) === "REC2020" && k === "BT.2020")
-        );
-      }),
-  );
-  const norm = (s: string) =>
-    String(s)
-      .replace(/[\s_-]+/g, "")
-      .toUpperCase();
-  const key = Object.keys(DEFINITIONS).find(
-    (k) =>
-      norm(k) === norm(name) ||
-      (norm(name) === "REC709" && k === "BT.709") ||
-      (norm(name) === "REC2020" && k === "BT.2020"),
+    () => key !== undefined,
   );
   if (!key)
     throw new Error(
@@ -239,12 +320,26 @@ export function rgbSpace(name: string): RgbSpace {
   let space = cache.get(key);
   if (!space) {
     const d = DEFINITIONS[key]!;
-    space = rgbSpaceFromPrimaries(d.primaries, d.white, {
-      name: key,
-      transfer: d.transfer,
-      source: d.source,
-    });
+    space = buildSpace(
+      d.primaries,
+      d.white,
+      { name: key, transfer: d.transfer, source: d.source },
+      d.imaginary ?? false,
+    );
     cache.set(key, space);
   }
   return space;
+}
+
+const normName = (t: string) => t.replace(/[\s_-]+/g, "").toUpperCase();
+const LOOKUP = new Map<string, string>();
+for (const [key, d] of Object.entries(DEFINITIONS)) {
+  LOOKUP.set(normName(key), key);
+  for (const alias of d.aliases ?? []) LOOKUP.set(normName(alias), key);
+}
+LOOKUP.set("REC709", "BT.709");
+LOOKUP.set("REC2020", "BT.2020");
+
+function spaceKey(name: string): string | undefined {
+  return LOOKUP.get(normName(name));
 }

@@ -274,9 +274,51 @@ export function hlgDisplayLight(
   return { r: k * sceneLinear.r, g: k * sceneLinear.g, b: k * sceneLinear.b };
 }
 
+// ISO 22028-2:2013 (ROMM RGB): Et = 16^(1.8 / (1 − 1.8)) = 1/512, the end of the linear segment.
+const ROMM_ET = 1 / 512;
+
+/**
+ * ROMM RGB encoding: C′ = 16·C for C < Et = 1/512, else C^(1/1.8) (negative values keep their sign).
+ *
+ * @param linear Linear light, relative 0–1.
+ * @returns The encoded signal, 0–1.
+ * @source ISO 22028-2:2013 (ROMM RGB), the non-linear encoding.
+ * @example rommEncode(0.18)
+ */
+export function rommEncode(linear: number): number {
+  checkNumber("rommEncode", "linear", linear, LINEAR_LIGHT);
+  return odd((c) => (c < ROMM_ET ? 16 * c : c ** (1 / 1.8)))(linear);
+}
+
+/**
+ * ROMM RGB decoding: C = C′ ÷ 16 for C′ < 16·Et = 1/32, else C′^1.8 (negative values keep their sign).
+ *
+ * @param signal The encoded signal, 0–1.
+ * @returns Linear light, relative 0–1.
+ * @source ISO 22028-2:2013 (ROMM RGB), the encoding inverted.
+ * @example rommDecode(0.5)
+ */
+export function rommDecode(signal: number): number {
+  checkNumber("rommDecode", "signal", signal, ENCODED_SIGNAL);
+  return odd((v) => (v < 16 * ROMM_ET ? v / 16 : v ** 1.8))(signal);
+}
+
+/** The opRGB exponent 563/256 = 2.19921875 (IEC 61966-2-5:2007). */
+export const OPRGB_GAMMA = 563 / 256;
+
 /** The transfer functions an RGB space can name. */
 export type TransferName =
-  "sRGB" | "linear" | "gamma 2.2" | "gamma 2.4" | "gamma 2.6" | "BT.709" | "BT.1886" | "PQ" | "HLG";
+  | "sRGB"
+  | "linear"
+  | "gamma 2.2"
+  | "gamma 2.4"
+  | "gamma 2.6"
+  | "BT.709"
+  | "BT.1886"
+  | "PQ"
+  | "HLG"
+  | "opRGB"
+  | "ROMM";
 
 /** A transfer function by name: encode (linear → signal) and decode (signal → linear), and what it is for the Methods section. */
 export interface TransferFunction {
@@ -342,16 +384,28 @@ const TRANSFERS: Record<TransferName, TransferFunction> = {
     encode: hlgEncode,
     decode: hlgDecode,
   },
+  opRGB: {
+    name: "opRGB",
+    description: "the opRGB power law of IEC 61966-2-5:2007 (γ = 563/256)",
+    encode: (v) => gammaEncode(v, OPRGB_GAMMA),
+    decode: (v) => gammaDecode(v, OPRGB_GAMMA),
+  },
+  ROMM: {
+    name: "ROMM",
+    description: "the ROMM RGB encoding of ISO 22028-2:2013 (1/1.8 power with a linear segment below 1/512)",
+    encode: rommEncode,
+    decode: rommDecode,
+  },
 };
 
 /**
- * The transfer function with this name ("sRGB", "linear", "gamma 2.2", "gamma 2.4", "gamma 2.6", "BT.709", "BT.1886", "PQ", "HLG"); an unknown name is an error listing the known ones.
+ * The transfer function with this name ("sRGB", "linear", "gamma 2.2", "gamma 2.4", "gamma 2.6", "BT.709", "BT.1886", "PQ", "HLG", "opRGB", "ROMM"); an unknown name is an error listing the known ones.
  *
  * "PQ" here takes linear 1 = 10000 cd/m²; "BT.1886" is the EOTF with zero black level (a 2.4 power law).
  *
  * @param name The transfer function's name.
  * @returns { name, description, encode(linear), decode(signal) }.
- * @source IEC 61966-2-1:1999; ITU-R BT.709-6; ITU-R BT.1886; SMPTE ST 2084:2014; ITU-R BT.2100-2.
+ * @source IEC 61966-2-1:1999; ITU-R BT.709-6; ITU-R BT.1886; SMPTE ST 2084:2014; ITU-R BT.2100-2; IEC 61966-2-5:2007; ISO 22028-2:2013.
  * @example transferFunction("sRGB").encode(0.5)
  */
 export function transferFunction(name: TransferName | string): TransferFunction {

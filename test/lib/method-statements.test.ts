@@ -217,6 +217,35 @@ function exercise(): Map<string, MethodNote[]> {
     );
     t.firstOrderUncertainty(model, inputs);
   });
+  // Display and HDR measurement (issue 14), invented readings.
+  run("display and HDR", () => {
+    const a = t.ictcpFromXYZ({ X: 95, Y: 100, Z: 108 });
+    t.ictcpFromLinearRgb({ r: 0.5, g: 0.4, b: 0.3 }, { transfer: "HLG" });
+    t.deltaEItp(a, t.ictcpFromXYZ({ X: 40, Y: 30, Z: 10 }));
+    t.deltaEz(t.jzazbzFromXYZ({ X: 95, Y: 100, Z: 108 }), t.jzazbzFromXYZ({ X: 40, Y: 30, Z: 10 }));
+    const white = { X: 95.05, Y: 100, Z: 108.88 };
+    for (const model of ["CAM16", "CIECAM02"] as const) {
+      const v = t.viewingConditions({ white, adaptingLuminance: 64, model });
+      t.deltaECam16Ucs(t.cam16Ucs(t.colourAppearance({ X: 40, Y: 30, Z: 10 }, v)), { J: 50, a: 0, b: 0 });
+    }
+    t.ycbcrCodeValues(t.ycbcrFromRgbSignal({ r: 1, g: 0, b: 0 }, "BT.709"), { bits: 8, range: "narrow" });
+    t.codeValueSignal(512, { bits: 10, range: "full" });
+    t.deltaUvPrime({ x: 0.3127, y: 0.329 }, { X: 95, Y: 100, Z: 100 });
+    t.subtractBlack({ X: 20, Y: 21, Z: 22 }, { X: 0.1, Y: 0.1, Z: 0.1 });
+    t.sequentialContrast(250, 0.2);
+    t.checkerboardContrast([180, 181], [0.4, 0.41]);
+    const ramp = [0, 0.25, 0.5, 0.75, 1].map((s) => ({ signal: s, luminance: 0.1 + 200 * s ** 2.2 }));
+    t.fitEotf(ramp);
+    t.fitEotf(ramp, { model: "BT.1886" });
+    t.greyscaleTracking([{ signal: 1, xyz: white }], { black: { X: 0.1, Y: 0.1, Z: 0.1 } });
+    t.pqTracking([{ code: 520, luminance: 100 }], {
+      format: { bits: 10, range: "full" },
+      tolerance: 0.05,
+      peakLuminance: 1000,
+    });
+    t.displayUniformity([[white, white, white]]);
+    t.primariesAgainstTarget({ red: white, green: white, blue: white, white }, "DCI-P3");
+  });
   return byFile;
 }
 
@@ -325,6 +354,20 @@ describe("Methods statements are full sentences", () => {
       "uncertainty/monte-carlo.ts": /Monte Carlo method of JCGM 101/,
       "uncertainty/first-order.ts": /law of propagation of uncertainty to first order/,
       "uncertainty/method-statements.ts": /was modelled as a normal distribution/,
+      // Display and HDR measurement (issue 14).
+      "appearance/ictcp.ts": /ICtCp was computed per ITU-R BT\.2100-2 .*HLG/,
+      "appearance/delta-e-itp.ts": /ΔE ITP were computed/,
+      "appearance/jzazbz.ts": /ΔEz were computed/,
+      "appearance/cam16.ts": /CIECAM02 viewing conditions were/,
+      "appearance/cam16-ucs.ts": /CAM16-UCS/,
+      "video/code-values.ts": /8-bit narrow-range integer code values/,
+      "display/delta-uv.ts": /Chromaticity differences Δu′v′/,
+      "display/black-and-contrast.ts": /Checkerboard contrast was computed/,
+      "display/eotf-fit.ts": /BT\.1886-form EOTFs/,
+      "display/greyscale-tracking.ts": /Grey-scale tracking was computed/,
+      "display/pq-tracking.ts": /clipped at the display peak/,
+      "display/uniformity.ts": /Uniformity was computed over a 1 × 3 grid/,
+      "display/primaries-check.ts": /compared with those of DCI-P3/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {

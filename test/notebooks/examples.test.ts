@@ -306,16 +306,15 @@ describe("display measurement record: results against outside references", () =>
     // The embedded record carries the full value the cell checked, not the report's rounded text.
     const value = (start: string) => checks.find((c) => c.label.startsWith(start))!.value!;
     expect(Math.abs(value("Q3 contrast ratio") / (Y("white") / Y("black")) - 1)).toBeLessThan(1e-12);
-    // Least squares of ln L on ln V through the origin, L = (Y − Yblack)/(Ywhite − Yblack), V = code/255.
-    const ramp = readings.filter((r) => r.role === "ramp");
-    const pairs = ramp.map(
-      (r) =>
-        [
-          Math.log(Number(r.R) / 255),
-          Math.log((Number(r.Y) - Y("black")) / (Y("white") - Y("black"))),
-        ] as const,
-    );
-    const gamma = pairs.reduce((s, [x, y]) => s + x * y, 0) / pairs.reduce((s, [x]) => s + x * x, 0);
+    // Least squares of ln(Y − Yblack) on ln V with an intercept (the power law L − Lk = a·V^γ), V = code/255, over
+    // the ramp and the white (V = 1), computed here from the file with csv-parse.
+    const ramp = [...readings.filter((r) => r.role === "ramp"), readings.find((r) => r.patch === "white")!];
+    const pairs = ramp.map((r) => [Math.log(Number(r.R) / 255), Math.log(Number(r.Y) - Y("black"))] as const);
+    const mx = pairs.reduce((s, [x]) => s + x, 0) / pairs.length;
+    const my = pairs.reduce((s, [, y]) => s + y, 0) / pairs.length;
+    const gamma =
+      pairs.reduce((s, [x, y]) => s + (x - mx) * (y - my), 0) /
+      pairs.reduce((s, [x]) => s + (x - mx) ** 2, 0);
     // The same fit computed here from the file: with the full value (not 3 shown decimals) they agree to rounding.
     expect(Math.abs(value("Q4 fitted gamma") - gamma)).toBeLessThan(1e-9);
   });
