@@ -39,7 +39,8 @@ export function checkIlluminantChoice(fn: string, arg: string, value: unknown): 
   );
 }
 
-const QUANTITIES = [
+/** The spectral quantities a spectrum can be labelled with (SpectralQuantity). */
+export const QUANTITIES: readonly string[] = [
   "relative power",
   "radiance",
   "irradiance",

@@ -7,9 +7,12 @@ import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import { spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
-import { parseCgats, readCgats, type CgatsFile, type CgatsTable } from "./cgats-read.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkChoice, checkString } from "../arguments/check-text.ts";
+import { cgatsFromText, readCgatsFile, type CgatsFile, type CgatsTable } from "./cgats-read.ts";
 import { DataFileError, withFileName } from "./data-file-error.ts";
-import { decideValueScale, type ValueScale } from "./value-scale.ts";
+import { checkCgatsFile, checkCgatsTable, checkPath, checkQuantityOptions } from "./file-arguments.ts";
+import { scaleDecision, type ValueScale } from "./value-scale.ts";
 
 const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
 
@@ -24,6 +27,11 @@ const SPECTRAL_FIELD = /^(?:SPECTRAL_NM_?|SPECTRAL_|NM_?)(\d+(?:\.\d+)?)$/i;
 export function cgatsSpectralFields(
   table: CgatsTable,
 ): { field: string; index: number; wavelength: number }[] {
+  checkCgatsTable("cgatsSpectralFields", "table", table);
+  return spectralFields(table);
+}
+
+function spectralFields(table: CgatsTable): { field: string; index: number; wavelength: number }[] {
   const out: { field: string; index: number; wavelength: number }[] = [];
   table.fields.forEach((field, index) => {
     const m = SPECTRAL_FIELD.exec(field);
@@ -48,6 +56,11 @@ export function cgatsSpectralFields(
  * @example cgatsSampleIds(readCgats("data/blue-cut-plates.cgats.txt").tables[0]!)
  */
 export function cgatsSampleIds(table: CgatsTable): string[] {
+  checkCgatsTable("cgatsSampleIds", "table", table);
+  return sampleIds(table);
+}
+
+function sampleIds(table: CgatsTable): string[] {
   const nameAt = table.fields.indexOf("SAMPLE_NAME");
   const idAt = table.fields.indexOf("SAMPLE_ID");
   const ids = table.sets.map((set, i) => {
@@ -95,8 +108,9 @@ function requireFields(table: CgatsTable, wanted: readonly string[], what: strin
  * @example cgatsTristimulus(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID XYZ_X XYZ_Y XYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1 41.2 21.3 1.9\nEND_DATA\n").tables[0]!)
  */
 export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimulus }[] {
+  checkCgatsTable("cgatsTristimulus", "table", table);
   requireFields(table, ["XYZ_X", "XYZ_Y", "XYZ_Z"], "XYZ fields");
-  const ids = cgatsSampleIds(table);
+  const ids = sampleIds(table);
   const [X, Y, Z] = (["XYZ_X", "XYZ_Y", "XYZ_Z"] as const).map((f) => numericColumn(table, f));
   return ids.map((id, i) => ({ id, XYZ: { X: X![i]!, Y: Y![i]!, Z: Z![i]! } }));
 }
@@ -110,8 +124,9 @@ export function cgatsTristimulus(table: CgatsTable): { id: string; XYZ: Tristimu
  * @example cgatsLab(parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID LAB_L LAB_A LAB_B\nEND_DATA_FORMAT\nBEGIN_DATA\n1 50 20 -10\nEND_DATA\n").tables[0]!)
  */
 export function cgatsLab(table: CgatsTable): { id: string; Lab: Lab }[] {
+  checkCgatsTable("cgatsLab", "table", table);
   requireFields(table, ["LAB_L", "LAB_A", "LAB_B"], "Lab fields");
-  const ids = cgatsSampleIds(table);
+  const ids = sampleIds(table);
   const [L, A, B] = (["LAB_L", "LAB_A", "LAB_B"] as const).map((f) => numericColumn(table, f));
   return ids.map((id, i) => ({ id, Lab: { L: L![i]!, a: A![i]!, b: B![i]! } }));
 }
@@ -144,29 +159,41 @@ export interface CgatsSpectraResult {
  * @example cgatsSpectra(readCgats("data/blue-cut-plates.cgats.txt"), { quantity: "transmittance", scale: "percent" }).spectra.length
  */
 export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): CgatsSpectraResult {
-  if (!options || !options.quantity)
-    throw new DataFileError(
-      'state what the spectral fields hold, e.g. { quantity: "reflectance" }; it is never assumed',
-    );
+  checkCgatsFile("cgatsSpectra", "file", file);
+  checkSpectraOptions("cgatsSpectra", options);
+  return spectraOf(file, options);
+}
+
+const SPECTRA_OPTIONS = ["quantity", "scale", "table"];
+
+/** The options of the CGATS spectra readers: a quantity (required), a scale and a table number. */
+function checkSpectraOptions(fn: string, options: unknown): void {
+  checkQuantityOptions(fn, options, SPECTRA_OPTIONS, "the spectral fields");
+  const o = options as Record<string, unknown>;
+  checkChoice(fn, "options.scale", o.scale, ["percent", "fraction", "auto"], { optional: true });
+  checkNumber(fn, "options.table", o.table, { integer: true, min: 0, optional: true });
+}
+
+function spectraOf(file: CgatsFile, options: CgatsSpectraOptions): CgatsSpectraResult {
   const which = options.table ?? 0;
   const table = file.tables[which];
   if (!table)
     throw new DataFileError(
       `the file has ${file.tables.length} table${file.tables.length === 1 ? "" : "s"}; table ${which} does not exist`,
     );
-  const fields = cgatsSpectralFields(table);
+  const fields = spectralFields(table);
   if (fields.length === 0)
     throw new DataFileError(
       `the table has no spectral fields (SPECTRAL_NMxxx, SPECTRAL_xxx or NMxxx); its fields are ${table.fields.join(", ")}`,
     );
-  const ids = cgatsSampleIds(table);
+  const ids = sampleIds(table);
   const columns = fields.map((f) => numericColumn(table, f.field));
   const ratio = options.quantity === "reflectance" || options.quantity === "transmittance";
   const inferred: string[] = [];
   let scale: ValueScale | "as written" = "as written";
   let factor = 1;
   if (ratio || options.scale === "percent" || options.scale === "fraction") {
-    const d = decideValueScale(columns.flat(), options.scale, options.quantity);
+    const d = scaleDecision(columns.flat(), options.scale, options.quantity);
     scale = d.scale;
     factor = d.scale === "percent" ? 0.01 : 1;
     if (d.inferred) inferred.push(d.statement);
@@ -196,7 +223,12 @@ export function cgatsSpectra(file: CgatsFile, options: CgatsSpectraOptions): Cga
  * @example parseCgatsSpectra("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID SPECTRAL_400 SPECTRAL_500\nEND_DATA_FORMAT\nBEGIN_DATA\nA 0.2 0.4\nEND_DATA\n", { quantity: "reflectance" }).spectra[0]
  */
 export function parseCgatsSpectra(text: string, options: CgatsSpectraOptions): CgatsSpectraResult {
-  return cgatsSpectra(parseCgats(text), options);
+  checkString("parseCgatsSpectra", "text", text, {
+    what: "the file's text (a string)",
+    instead: { object: "for a file by its path use readCgatsSpectra(path, options)" },
+  });
+  checkSpectraOptions("parseCgatsSpectra", options);
+  return spectraOf(cgatsFromText(text), options);
 }
 
 /**
@@ -208,9 +240,11 @@ export function parseCgatsSpectra(text: string, options: CgatsSpectraOptions): C
  * @example readCgatsSpectra("data/blue-cut-plates.cgats.txt", { quantity: "transmittance" }).spectra[0]!.name
  */
 export function readCgatsSpectra(path: string, options: CgatsSpectraOptions): CgatsSpectraResult {
-  const file = readCgats(path);
+  checkPath("readCgatsSpectra", "path", path);
+  checkSpectraOptions("readCgatsSpectra", options);
+  const file = readCgatsFile(path);
   try {
-    return cgatsSpectra(file, options);
+    return spectraOf(file, options);
   } catch (e) {
     throw withFileName(e, path);
   }

@@ -5,7 +5,9 @@
  * Declared counts (NUMBER_OF_FIELDS, NUMBER_OF_SETS) are checked; every fault is reported with its line number.
  */
 import { noteMethod } from "../methods/method-log.ts";
-import { DataFileError, parseDataFile } from "./data-file-error.ts";
+import { checkString } from "../arguments/check-text.ts";
+import { DataFileError, parseDataFileText } from "./data-file-error.ts";
+import { checkPath } from "./file-arguments.ts";
 import { readNumber } from "./number-text.ts";
 
 export type CgatsValue = string | number;
@@ -75,6 +77,7 @@ const NUMERIC_FIELD = /^(SPECTRAL_|NM_?\d|XYZ_|XYY_|LAB_|LCH_|CMYK_|CMY_|RGB_|D_
  * @example isNumericCgatsField("LAB_L")
  */
 export function isNumericCgatsField(field: string): boolean {
+  checkString("isNumericCgatsField", "field", field, { what: "a CGATS field name (a string)" });
   return NUMERIC_FIELD.test(field);
 }
 
@@ -89,8 +92,15 @@ const KEYWORD_NAME = /^[A-Za-z][A-Za-z0-9_.]*$/;
  * @example parseCgats("CGATS.17\nBEGIN_DATA_FORMAT\nSAMPLE_ID\tXYZ_X\tXYZ_Y\tXYZ_Z\nEND_DATA_FORMAT\nBEGIN_DATA\n1\t41.2\t21.3\t1.9\nEND_DATA\n").tables[0]!.fields
  */
 export function parseCgats(text: string): CgatsFile {
-  if (typeof text !== "string")
-    throw new DataFileError(`expected the file's text as a string, got ${typeof text}`);
+  checkString("parseCgats", "text", text, {
+    what: "the file's text (a string)",
+    instead: { object: "for a file by its path use readCgats(path)" },
+  });
+  return cgatsFromText(text);
+}
+
+/** parseCgats for the readers, whose text is already checked. */
+export function cgatsFromText(text: string): CgatsFile {
   const lines = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
   const comments: string[] = [];
   const tables: CgatsTable[] = [];
@@ -220,12 +230,12 @@ export function parseCgats(text: string): CgatsFile {
     const row: CgatsValue[] = tokens.map((t, k) => {
       const field = fields[k]!;
       if (t.quoted) {
-        if (isNumericCgatsField(field))
+        if (NUMERIC_FIELD.test(field))
           throw new DataFileError(`field ${field} must be a number, found the text "${t.text}"`, n);
         return t.text;
       }
       const v = readNumber(t.text, ".");
-      if (v === undefined && isNumericCgatsField(field)) {
+      if (v === undefined && NUMERIC_FIELD.test(field)) {
         const hint = /^[+-]?\d*,\d+$/.test(t.text) ? " (CGATS numbers use a decimal point)" : "";
         throw new DataFileError(`field ${field} must be a number, found ${JSON.stringify(t.text)}${hint}`, n);
       }
@@ -284,5 +294,11 @@ function checkFieldCount(
  * @example readCgats("data/blue-cut-plates.cgats.txt").tables.length
  */
 export function readCgats(path: string): CgatsFile {
-  return parseDataFile(path, (text) => parseCgats(text));
+  checkPath("readCgats", "path", path);
+  return readCgatsFile(path);
+}
+
+/** readCgats for the readers, whose path is already checked. */
+export function readCgatsFile(path: string): CgatsFile {
+  return parseDataFileText(path, cgatsFromText);
 }

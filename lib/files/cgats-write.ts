@@ -3,12 +3,22 @@
  * other keywords declared with KEYWORD first), the data format (SAMPLE_ID, SAMPLE_NAME, spectral SPECTRAL_NMxxx
  * fields, XYZ_X/Y/Z, LAB_L/A/B) and one tab-separated set per line.
  */
-import { writeFileSync } from "node:fs";
+import { ArgumentError } from "../arguments/argument-error.ts";
+import { checkFields, LAB_FIELDS, XYZ_FIELDS } from "../arguments/check-fields.ts";
+import { checkSpectrumList } from "../arguments/check-list.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkChoice, checkString } from "../arguments/check-text.ts";
+import { checkWith } from "../arguments/check-with.ts";
+import { describeKind } from "../arguments/describe-kind.ts";
+import { refuse } from "../arguments/refuse.ts";
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import type { Lab } from "../colorimetry/cielab.ts";
 import { requireSameGrid } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
+import { writeDataFileText } from "./data-file-error.ts";
+import { checkPath, checkStringList, isRecord } from "./file-arguments.ts";
 import { writeNumber } from "./number-text.ts";
 import type { ValueScale } from "./value-scale.ts";
 
@@ -50,12 +60,153 @@ export interface CgatsWriteInput {
   identifier?: string;
 }
 
-function quote(value: string, what: string): string {
-  if (/["\r\n]/.test(value))
-    throw new Error(
-      `formatCgats: ${what} ${JSON.stringify(value)} contains a double quote or line break, which CGATS text cannot hold`,
+const INPUT_KEYS = [
+  "sampleIds",
+  "sampleNames",
+  "spectra",
+  "XYZ",
+  "Lab",
+  "keywords",
+  "scale",
+  "digits",
+  "identifier",
+] as const satisfies readonly (keyof CgatsWriteInput)[];
+
+const UNQUOTABLE = /["\r\n]/;
+
+/** Throws an ArgumentError for text CGATS cannot quote: a double quote or a line break in it. */
+function checkQuotable(fn: string, arg: string, value: string): void {
+  if (UNQUOTABLE.test(value))
+    refuse(fn, arg, "text without a double quote or line break (CGATS text cannot hold them)", value);
+}
+
+/** An array argument of the input, each item checked by `item` (undefined passes: the list is optional). */
+function checkEach(
+  fn: string,
+  arg: string,
+  value: unknown,
+  what: string,
+  item: (v: unknown, at: string) => void,
+): void {
+  if (value === undefined) return;
+  if (!Array.isArray(value)) refuse(fn, arg, `an array of ${what}`, value);
+  value.forEach((v, i) => item(v, `${arg}[${i}]`));
+}
+
+/**
+ * Checks the writer's input once: its lists of the right kinds and of one length, at least one sample of spectra,
+ * XYZ or Lab, identifiers unique, keywords writable, and every text quotable in CGATS.
+ */
+function checkWriteInput(fn: string, input: unknown): void {
+  if (!isRecord(input))
+    refuse(
+      fn,
+      "input",
+      "what to write: { spectra?, XYZ?, Lab?, sampleIds?, sampleNames?, keywords?, … }",
+      input,
+      {
+        spectrum: "for a spectrum write { spectra: [spectrum] }",
+        array:
+          "for a list of spectra write { spectra: [...] }, for XYZ { XYZ: [...] }, for CIELAB { Lab: [...] }",
+      },
     );
-  return `"${value}"`;
+  checkOptions(fn, "input", input, INPUT_KEYS);
+  checkSpectrumList(fn, "input.spectra", input.spectra, { optional: true });
+  checkEach(fn, "input.XYZ", input.XYZ, "tristimulus values { X, Y, Z }", (v, at) =>
+    checkFields(fn, at, v, XYZ_FIELDS),
+  );
+  checkEach(fn, "input.Lab", input.Lab, "CIELAB values { L, a, b }", (v, at) =>
+    checkFields(fn, at, v, LAB_FIELDS),
+  );
+  const isIdentifier = (v: unknown) => typeof v === "string" || (typeof v === "number" && Number.isFinite(v));
+  checkEach(
+    fn,
+    "input.sampleIds",
+    input.sampleIds,
+    "sample identifiers (strings or finite numbers)",
+    (v, at) => {
+      checkWith(fn, at, v, "a sample identifier (a string or a finite number)", isIdentifier);
+      if (typeof v === "string") checkQuotable(fn, at, v);
+    },
+  );
+  checkStringList(fn, "input.sampleNames", input.sampleNames, "sample names (strings)");
+  (input.sampleNames as string[] | undefined)?.forEach((v, i) =>
+    checkQuotable(fn, `input.sampleNames[${i}]`, v),
+  );
+  checkChoice(fn, "input.scale", input.scale, ["fraction", "percent"], { optional: true });
+  checkNumber(fn, "input.digits", input.digits, { integer: true, min: 1, max: 17, optional: true });
+  checkString(fn, "input.identifier", input.identifier, { optional: true });
+  if (typeof input.identifier === "string" && !/^\S+$/.test(input.identifier))
+    refuse(fn, "input.identifier", 'one word, e.g. "CGATS.17"', input.identifier);
+  if (input.keywords !== undefined) {
+    if (!isRecord(input.keywords))
+      refuse(
+        fn,
+        "input.keywords",
+        'header keywords { ORIGINATOR: "…", … } (strings or numbers)',
+        input.keywords,
+      );
+    for (const [key, value] of Object.entries(input.keywords)) {
+      const at = `input.keywords.${key}`;
+      if (!/^[A-Z][A-Z0-9_]*$/.test(key))
+        throw new ArgumentError(
+          fn,
+          "input.keywords",
+          "keywords named by upper-case letters, digits and underscores",
+          `a keyword named ${JSON.stringify(key)}`,
+        );
+      if (/^(NUMBER_OF_|BEGIN_|END_|KEYWORD$)/.test(key))
+        throw new ArgumentError(
+          fn,
+          "input.keywords",
+          "keywords other than NUMBER_OF_…, BEGIN_…, END_… and KEYWORD (the writer writes those itself)",
+          `the keyword ${key}`,
+        );
+      checkWith(fn, at, value, "a keyword value (a string or a finite number)", isIdentifier);
+      if (typeof value === "string") checkQuotable(fn, at, value);
+    }
+  }
+  const counts = [
+    ["spectra", input.spectra],
+    ["XYZ", input.XYZ],
+    ["Lab", input.Lab],
+    ["sampleIds", input.sampleIds],
+    ["sampleNames", input.sampleNames],
+  ]
+    .filter(([, list]) => list !== undefined)
+    .map(([k, list]) => [k, (list as unknown[]).length] as [string, number]);
+  if (!counts.some(([k]) => k === "spectra" || k === "XYZ" || k === "Lab"))
+    refuse(fn, "input", "samples to write: spectra, XYZ and/or Lab, one entry per sample", input);
+  const n = counts[0]![1];
+  if (counts.some(([, c]) => c !== n))
+    throw new ArgumentError(
+      fn,
+      "input",
+      "lists with one entry per sample",
+      counts.map(([k, c]) => `${c} ${k}`).join(", "),
+    );
+  if (n === 0) throw new ArgumentError(fn, "input", "at least one sample to write", "empty lists");
+  const ids = (input.sampleIds as readonly (string | number)[] | undefined)?.map(String) ?? [];
+  const dup = ids.findIndex((id, i) => ids.indexOf(id) !== i);
+  if (dup >= 0)
+    throw new ArgumentError(
+      fn,
+      `input.sampleIds[${dup}]`,
+      `an identifier of its own (sample identifiers must be unique; input.sampleIds[${ids.indexOf(ids[dup]!)}] is the same)`,
+      describeKind((input.sampleIds as unknown[])[dup]),
+    );
+  const spectra = (input.spectra ?? []) as readonly Spectrum[];
+  if (input.scale === "percent") {
+    const other = spectra.findIndex((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
+    if (other >= 0)
+      throw new ArgumentError(
+        fn,
+        "input.scale",
+        `"fraction" for spectra[${other}], a ${spectra[other]!.quantity} spectrum (only reflectance and transmittance can be written in percent)`,
+        describeKind(input.scale),
+      );
+  }
+  if (spectra.length > 0) requireSameGrid(spectra, fn);
 }
 
 /**
@@ -67,49 +218,19 @@ function quote(value: string, what: string): string {
  * @example formatCgats({ Lab: [{ L: 50, a: 20, b: -10 }], keywords: { DESCRIPTOR: "invented sample" } })
  */
 export function formatCgats(input: CgatsWriteInput): string {
-  const counts = [
-    ["spectra", input.spectra?.length],
-    ["XYZ", input.XYZ?.length],
-    ["Lab", input.Lab?.length],
-    ["sampleIds", input.sampleIds?.length],
-    ["sampleNames", input.sampleNames?.length],
-  ].filter(([, n]) => n !== undefined) as [string, number][];
-  const measured = counts.filter(([k]) => k === "spectra" || k === "XYZ" || k === "Lab");
-  if (measured.length === 0) throw new Error("formatCgats: nothing to write; give spectra, XYZ and/or Lab");
-  const n = counts[0]![1];
-  const odd = counts.find(([, c]) => c !== n);
-  if (odd)
-    throw new Error(
-      `formatCgats: ${counts.map(([k, c]) => `${c} ${k}`).join(", ")} — every list must have one entry per sample`,
-    );
-  if (n === 0) throw new Error("formatCgats: no samples to write");
+  checkWriteInput("formatCgats", input);
+  return cgatsText(input);
+}
+
+/** The writer itself, on an input checked at the public entry. */
+function cgatsText(input: CgatsWriteInput): string {
+  const n = (input.spectra ?? input.XYZ ?? input.Lab)!.length;
   const digits = input.digits ?? 6;
-  if (!Number.isInteger(digits) || digits < 1 || digits > 17)
-    throw new Error(`formatCgats: digits ${digits} must be a whole number from 1 to 17`);
   const scale = input.scale ?? "fraction";
-  if (scale !== "fraction" && scale !== "percent")
-    throw new Error(`formatCgats: scale "${String(scale)}" is not "fraction" or "percent"`);
   const spectra = input.spectra ?? [];
-  if (spectra.length > 0) requireSameGrid(spectra, "formatCgats");
-  if (scale === "percent") {
-    const other = spectra.find((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
-    if (other)
-      throw new Error(
-        `formatCgats: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`,
-      );
-  }
   const factor = scale === "percent" ? 100 : 1;
   const ids = input.sampleIds ?? Array.from({ length: n }, (_, i) => i + 1);
-  const idText = ids.map((id) => {
-    if (typeof id === "number") {
-      if (!Number.isFinite(id))
-        throw new Error(`formatCgats: sample identifier ${id} is not a finite number`);
-      return String(id);
-    }
-    return quote(String(id), "sample identifier");
-  });
-  if (new Set(ids.map(String)).size !== ids.length)
-    throw new Error("formatCgats: sample identifiers must be unique");
+  const idText = ids.map((id) => (typeof id === "number" ? String(id) : `"${id}"`));
 
   const fields = ["SAMPLE_ID"];
   if (input.sampleNames) fields.push("SAMPLE_NAME");
@@ -119,20 +240,10 @@ export function formatCgats(input: CgatsWriteInput): string {
   if (input.Lab) fields.push("LAB_L", "LAB_A", "LAB_B");
 
   const lines: string[] = [input.identifier ?? "CGATS.17"];
-  if (!/^\S+$/.test(lines[0]!))
-    throw new Error(`formatCgats: identifier ${JSON.stringify(lines[0])} must be one word`);
   const keywords = input.keywords ?? {};
   for (const [key, value] of Object.entries(keywords)) {
-    if (!/^[A-Z][A-Z0-9_]*$/.test(key))
-      throw new Error(
-        `formatCgats: keyword ${JSON.stringify(key)} must be upper-case letters, digits and underscores`,
-      );
-    if (/^(NUMBER_OF_|BEGIN_|END_|KEYWORD$)/.test(key))
-      throw new Error(`formatCgats: keyword ${key} is written by the writer itself`);
     if (!(CGATS_STANDARD_KEYWORDS as readonly string[]).includes(key)) lines.push(`KEYWORD\t"${key}"`);
-    lines.push(
-      `${key}\t${typeof value === "number" ? writeNumber(value, ".", 12) : quote(String(value), `keyword ${key}`)}`,
-    );
+    lines.push(`${key}\t${typeof value === "number" ? writeNumber(value, ".", 12) : `"${value}"`}`);
   }
   lines.push(
     `NUMBER_OF_FIELDS\t${fields.length}`,
@@ -144,7 +255,7 @@ export function formatCgats(input: CgatsWriteInput): string {
   );
   for (let i = 0; i < n; i++) {
     const row = [idText[i]!];
-    if (input.sampleNames) row.push(quote(input.sampleNames[i]!, "sample name"));
+    if (input.sampleNames) row.push(`"${input.sampleNames[i]!}"`);
     for (const v of spectra[i]?.values ?? []) row.push(writeNumber(v * factor, ".", digits));
     if (input.XYZ) {
       const t = input.XYZ[i]!;
@@ -173,5 +284,7 @@ export function formatCgats(input: CgatsWriteInput): string {
  * @example writeCgats("invented-lab.cgats.txt", { Lab: [{ L: 50, a: 20, b: -10 }] })
  */
 export function writeCgats(path: string, input: CgatsWriteInput): void {
-  writeFileSync(path, formatCgats(input), "utf8");
+  checkPath("writeCgats", "path", path);
+  checkWriteInput("writeCgats", input);
+  writeDataFileText(path, cgatsText(input));
 }

@@ -7,7 +7,9 @@
 import type { Tristimulus } from "../colorimetry/chromaticity.ts";
 import type { Lab } from "../colorimetry/cielab.ts";
 import { noteMethod } from "../methods/method-log.ts";
-import { parseCgats } from "./cgats-read.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkChoice } from "../arguments/check-text.ts";
+import { cgatsFromText } from "./cgats-read.ts";
 import { DataFileError, parseDataFileBytes } from "./data-file-error.ts";
 import {
   FIELD_SEPARATORS,
@@ -20,9 +22,15 @@ import {
 } from "./delimited-text.ts";
 import { hasDecimalComma, hasDecimalPoint } from "./number-text.ts";
 import { scanNumber } from "./number-scan.ts";
-import { checkOptionNames, choiceOption } from "./option-names.ts";
+import {
+  checkCountOrAuto,
+  checkEncodingOfText,
+  checkPath,
+  checkStringRecord,
+  checkTextOrBytes,
+} from "./file-arguments.ts";
 import { readPreamble } from "./preamble-metadata.ts";
-import { recogniseFields, type ReadingField, type ReadingGroup } from "./reading-fields.ts";
+import { READING_GROUPS, recogniseFields, type ReadingField, type ReadingGroup } from "./reading-fields.ts";
 import { decodeMeasurementText, TEXT_ENCODINGS, type TextEncoding } from "./text-encoding.ts";
 
 export interface ColourReadingsOptions {
@@ -82,7 +90,32 @@ export interface ColourReadings {
   readonly inferred: readonly string[];
 }
 
-const READER = "colour readings";
+/** The choices of the options, each with "auto" where the reader can decide by itself. */
+const CHOICES = {
+  encoding: [...TEXT_ENCODINGS, "auto"],
+  format: ["CGATS", "delimited", "auto"],
+  delimiter: [",", ";", "\t", " ", "auto"],
+  decimal: [".", ",", "auto"],
+} as const satisfies Partial<Record<keyof ColourReadingsOptions, readonly string[]>>;
+
+/** Checks a readings reader's arguments once, at its entry (the options; for the parser, the text or bytes too). */
+function checkReadingsArguments(fn: string, input: unknown, options: unknown, text: boolean): void {
+  if (text) checkTextOrBytes(fn, "input", input);
+  checkOptions(fn, "options", options, OPTION_NAMES);
+  if (options === undefined) return;
+  const o = options as Record<string, unknown>;
+  for (const [key, choices] of Object.entries(CHOICES))
+    checkChoice(fn, `options.${key}`, o[key], choices, { optional: true });
+  checkCountOrAuto(fn, "options.headerLine", o.headerLine, 1, "the line number of the header row");
+  checkStringRecord(
+    fn,
+    "options.units",
+    o.units,
+    `units by group, e.g. { XYZ: "cd/m²" }, with any of ${READING_GROUPS.join(", ")}`,
+  );
+  if (o.units !== undefined) checkOptions(fn, "options.units", o.units, READING_GROUPS);
+  checkEncodingOfText(fn, input, o.encoding);
+}
 
 const GROUP_COMPONENTS: Partial<Record<ReadingGroup, string[]>> = {
   RGB: ["R", "G", "B"],
@@ -155,36 +188,30 @@ export function parseColourReadings(
   input: string | Uint8Array,
   options: ColourReadingsOptions = {},
 ): ColourReadings {
-  checkOptionNames(options, OPTION_NAMES, READER);
-  const encodingOption = choiceOption(options.encoding, TEXT_ENCODINGS, "encoding", READER);
-  const formatOption = choiceOption(options.format, ["CGATS", "delimited"] as const, "format", READER);
-  const sepOption = choiceOption(options.delimiter, [",", ";", "\t", " "] as const, "delimiter", READER);
-  const decimalOption = choiceOption(options.decimal, [".", ","] as const, "decimal", READER);
+  checkReadingsArguments("parseColourReadings", input, options, true);
+  return colourReadings(input, options);
+}
+
+/** The reader itself, on arguments checked at the public entry. */
+function colourReadings(input: string | Uint8Array, options: ColourReadingsOptions): ColourReadings {
+  const encodingOption = options.encoding ?? "auto";
+  const formatOption = options.format ?? "auto";
+  const sepOption = options.delimiter ?? "auto";
+  const decimalOption = options.decimal ?? "auto";
   const headerOption = options.headerLine ?? "auto";
-  if (headerOption !== "auto" && !(Number.isInteger(headerOption) && headerOption >= 1))
-    throw new DataFileError(
-      `${READER}: option headerLine is ${JSON.stringify(headerOption)}; expected a line number from 1, or "auto"`,
-    );
   const units = options.units ?? {};
   const inferred: string[] = [];
   let text: string;
   let encoding: TextEncoding | "text";
   if (typeof input === "string") {
-    if (encodingOption !== "auto")
-      throw new DataFileError(
-        `${READER}: option encoding applies to a file's bytes; the text given is already decoded`,
-      );
     text = input.replace(/^\uFEFF/, "");
     encoding = "text";
-  } else if (input instanceof Uint8Array) {
+  } else {
     const d = decodeMeasurementText(input, encodingOption);
     text = d.text;
     encoding = d.encoding;
     if (d.inferred) inferred.push(d.inferred);
-  } else
-    throw new DataFileError(
-      `expected the file's text (a string) or bytes (a Uint8Array), got ${typeof input}`,
-    );
+  }
 
   const format =
     formatOption !== "auto" ? formatOption : /^\s*BEGIN_DATA_FORMAT\b/m.test(text) ? "CGATS" : "delimited";
@@ -196,7 +223,7 @@ export function parseColourReadings(
     );
   let result: ColourReadings;
   if (format === "CGATS") {
-    const file = parseCgats(text);
+    const file = cgatsFromText(text);
     const tables = file.tables.map((t) => {
       checkUniqueNames(t.fields, undefined);
       const fields = recogniseFields(t.fields, units);
@@ -417,5 +444,7 @@ function readDelimited(
  * @example readColourReadings("data/panel-kx0042.csv", { units: { XYZ: "cd/m²" } }).records.length
  */
 export function readColourReadings(path: string, options: ColourReadingsOptions = {}): ColourReadings {
-  return parseDataFileBytes(path, (bytes) => parseColourReadings(bytes, options));
+  checkPath("readColourReadings", "path", path);
+  checkReadingsArguments("readColourReadings", undefined, options, false);
+  return parseDataFileBytes(path, (bytes) => colourReadings(bytes, options));
 }

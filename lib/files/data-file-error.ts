@@ -1,5 +1,7 @@
 /** Errors from reading measurement files: they name the file (when known), the line, and where it applies the sample and wavelength. */
-import { readFileSync } from "node:fs";
+import { readFileSync, writeFileSync } from "node:fs";
+import { checkFunction } from "../arguments/check-text.ts";
+import { checkPath } from "./file-arguments.ts";
 
 /** Where in a table a fault lies, beyond its line. */
 export interface DataFilePlace {
@@ -43,6 +45,7 @@ export class DataFileError extends Error {
  * @example withFileName(new DataFileError("bad value", 3), "invented.csv").message
  */
 export function withFileName(error: unknown, file: string): Error {
+  checkPath("withFileName", "file", file);
   if (error instanceof DataFileError && error.file === undefined) {
     return new DataFileError(error.reason, error.line, file, {
       sample: error.sample,
@@ -52,7 +55,7 @@ export function withFileName(error: unknown, file: string): Error {
   return error instanceof Error ? error : new Error(String(error));
 }
 
-/** Reads a file's bytes; a missing file is an error naming the file. */
+/** Reads a file's bytes; a missing file is an error naming the file. The path was checked by the public reader. */
 export function readDataFileBytes(path: string): Buffer {
   if (typeof path !== "string" || path === "")
     throw new DataFileError(`expected a file path as a non-empty string, got ${JSON.stringify(path)}`);
@@ -73,6 +76,15 @@ export function readDataFileBytes(path: string): Buffer {
  * @example parseDataFile("data/filter-lot-114.csv", (text) => text.split("\n").length)
  */
 export function parseDataFile<T>(path: string, parse: (text: string) => T): T {
+  checkPath("parseDataFile", "path", path);
+  checkFunction("parseDataFile", "parse", parse, {
+    what: 'a function from the file\'s text to the result, e.g. (text) => text.split("\\n")',
+  });
+  return parseDataFileText(path, parse);
+}
+
+/** parseDataFile for the readers, whose arguments are already checked. */
+export function parseDataFileText<T>(path: string, parse: (text: string) => T): T {
   const bytes = readDataFileBytes(path);
   try {
     return parse(bytes.toString("utf8"));
@@ -88,5 +100,14 @@ export function parseDataFileBytes<T>(path: string, parse: (bytes: Uint8Array) =
     return parse(bytes);
   } catch (e) {
     throw withFileName(e, path);
+  }
+}
+
+/** Writes a writer's text to a file; a file that cannot be written is an error naming the file. */
+export function writeDataFileText(path: string, text: string): void {
+  try {
+    writeFileSync(path, text, "utf8");
+  } catch (e) {
+    throw new DataFileError(`cannot write the file: ${(e as Error).message}`, undefined, path);
   }
 }

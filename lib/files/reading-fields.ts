@@ -10,6 +10,20 @@ import { unitFromValues, wavelengthFromHeader } from "./wavelength-text.ts";
 export type ReadingGroup =
   "sample id" | "sample name" | "RGB" | "CMYK" | "XYZ" | "xyY" | "Lab" | "LCh" | "spectral" | "other";
 
+/** Every group a column of readings can belong to. */
+export const READING_GROUPS: readonly ReadingGroup[] = [
+  "sample id",
+  "sample name",
+  "RGB",
+  "CMYK",
+  "XYZ",
+  "xyY",
+  "Lab",
+  "LCh",
+  "spectral",
+  "other",
+];
+
 export interface ReadingField {
   /** The column's name as written. */
   readonly name: string;

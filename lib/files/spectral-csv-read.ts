@@ -9,6 +9,7 @@
  */
 import { noteMethod } from "../methods/method-log.ts";
 import { roundWavelength, spectrum, type SpectralQuantity, type Spectrum } from "../spectrum/spectrum.ts";
+import { checkChoice, checkString } from "../arguments/check-text.ts";
 import { DataFileError, parseDataFileBytes } from "./data-file-error.ts";
 import {
   cellBounds,
@@ -21,11 +22,17 @@ import {
 } from "./delimited-text.ts";
 import { hasDecimalComma, hasDecimalPoint } from "./number-text.ts";
 import { scanNumber, scanNumberRow } from "./number-scan.ts";
-import { checkOptionNames, choiceOption } from "./option-names.ts";
+import {
+  checkCountOrAuto,
+  checkEncodingOfText,
+  checkPath,
+  checkQuantityOptions,
+  checkTextOrBytes,
+} from "./file-arguments.ts";
 import { readPreamble, statedScale } from "./preamble-metadata.ts";
 import { findTableStart, looksNumeric, wavelengthTail } from "./table-start.ts";
 import { decodeMeasurementText, TEXT_ENCODINGS, type TextEncoding } from "./text-encoding.ts";
-import { decideValueScale, type ValueScale } from "./value-scale.ts";
+import { scaleDecision, type ValueScale } from "./value-scale.ts";
 import {
   unitFromHeading,
   unitFromValues,
@@ -121,7 +128,36 @@ export interface SpectralTableResult {
 /** The former name of the result, kept for existing notebooks. */
 export type SpectraCsvResult = SpectralTableResult;
 
-const READER = "spectral table";
+/** The choices of the options, each with "auto" where the reader can decide by itself. */
+const CHOICES = {
+  encoding: [...TEXT_ENCODINGS, "auto"],
+  delimiter: [",", ";", "\t", " ", "auto"],
+  decimal: [".", ",", "auto"],
+  wavelengthsIn: ["first column", "header row", "auto"],
+  wavelengthUnit: ["nm", "µm", "auto"],
+  order: ["ascending", "descending", "auto"],
+  unevenGrid: ["refuse", "accept"],
+  scale: ["percent", "fraction", "auto"],
+} as const satisfies Partial<Record<keyof SpectralTableOptions, readonly string[]>>;
+
+/**
+ * Checks a spectral table reader's arguments once, at its entry: the options (quantity stated, every option known
+ * and one of its values) and, for the parsers, the text or bytes (an encoding applies only to bytes).
+ */
+function checkTableArguments(fn: string, input: unknown, options: unknown, text: boolean): void {
+  if (text) checkTextOrBytes(fn, "input", input);
+  checkQuantityOptions(fn, options, OPTION_NAMES, "the columns");
+  const o = options as Record<string, unknown>;
+  for (const [key, choices] of Object.entries(CHOICES))
+    checkChoice(fn, `options.${key}`, o[key], choices, { optional: true });
+  checkCountOrAuto(fn, "options.headerLine", o.headerLine, 1, "the line number of the header row");
+  checkCountOrAuto(fn, "options.attributeColumns", o.attributeColumns, 0, "a number of columns");
+  checkString(fn, "options.unit", o.unit, {
+    optional: true,
+    what: 'a unit of the values, e.g. "W/(sr·m²·nm)"',
+  });
+  checkEncodingOfText(fn, input, o.encoding);
+}
 
 function fail(message: string, line?: number, sample?: string, wavelength?: number): never {
   throw new DataFileError(message, line, undefined, { sample, wavelength });
@@ -145,59 +181,34 @@ export function parseSpectralTable(
   input: string | Uint8Array,
   options: SpectralTableOptions,
 ): SpectralTableResult {
-  if (!options || typeof options !== "object" || !options.quantity)
-    throw new DataFileError(
-      'state what the columns hold, e.g. { quantity: "transmittance" } or { quantity: "reflectance" }; it is never assumed',
-    );
-  checkOptionNames(options, OPTION_NAMES, READER);
+  checkTableArguments("parseSpectralTable", input, options, true);
+  return spectralTable(input, options);
+}
+
+/** The reader itself, on arguments checked at the public entry. */
+function spectralTable(input: string | Uint8Array, options: SpectralTableOptions): SpectralTableResult {
   const inferred: string[] = [];
-  const encodingOption = choiceOption(options.encoding, TEXT_ENCODINGS, "encoding", READER);
-  const separatorOption = choiceOption(
-    options.delimiter,
-    [",", ";", "\t", " "] as const,
-    "delimiter",
-    READER,
-  );
-  const decimalOption = choiceOption(options.decimal, [".", ","] as const, "decimal", READER);
-  const placementOption = choiceOption(
-    options.wavelengthsIn,
-    ["first column", "header row"] as const,
-    "wavelengthsIn",
-    READER,
-  );
-  const unitOption = choiceOption(options.wavelengthUnit, ["nm", "µm"] as const, "wavelengthUnit", READER);
-  const orderOption = choiceOption(options.order, ["ascending", "descending"] as const, "order", READER);
-  const scaleOption = choiceOption(options.scale, ["percent", "fraction"] as const, "scale", READER);
-  if (options.unevenGrid !== undefined && options.unevenGrid !== "refuse" && options.unevenGrid !== "accept")
-    fail(
-      `${READER}: option unevenGrid is ${JSON.stringify(options.unevenGrid)}; expected "refuse" or "accept"`,
-    );
+  const encodingOption = options.encoding ?? "auto";
+  const separatorOption = options.delimiter ?? "auto";
+  const decimalOption = options.decimal ?? "auto";
+  const placementOption = options.wavelengthsIn ?? "auto";
+  const unitOption = options.wavelengthUnit ?? "auto";
+  const orderOption = options.order ?? "auto";
+  const scaleOption = options.scale ?? "auto";
   const headerOption = options.headerLine ?? "auto";
-  if (headerOption !== "auto" && !(Number.isInteger(headerOption) && headerOption >= 1))
-    fail(
-      `${READER}: option headerLine is ${JSON.stringify(headerOption)}; expected a line number from 1, or "auto"`,
-    );
   const attributeOption = options.attributeColumns ?? "auto";
-  if (attributeOption !== "auto" && !(Number.isInteger(attributeOption) && attributeOption >= 0))
-    fail(
-      `${READER}: option attributeColumns is ${JSON.stringify(attributeOption)}; expected a whole number, or "auto"`,
-    );
 
   // Text.
   let text: string;
   let encoding: TextEncoding | "text";
   if (typeof input === "string") {
-    if (encodingOption !== "auto")
-      fail(`${READER}: option encoding applies to a file's bytes; the text given is already decoded`);
     text = input.charCodeAt(0) === 0xfeff ? input.slice(1) : input;
     encoding = "text";
-  } else if (input instanceof Uint8Array) {
+  } else {
     const d = decodeMeasurementText(input, encodingOption);
     text = d.text;
     encoding = d.encoding;
     if (d.inferred) inferred.push(d.inferred);
-  } else {
-    fail(`expected the file's text (a string) or bytes (a Uint8Array), got ${typeof input}`);
   }
   const lines = splitLines(text);
 
@@ -394,7 +405,7 @@ export function parseSpectralTable(
         `The ${options.quantity} values were read as ${said.scale === "percent" ? "percent and divided by 100" : "fractions"}, as the file says on line ${said.line} ("${said.text}") (state scale to override).`,
       );
     } else {
-      const d = decideValueScale([largest], scaleOption, options.quantity);
+      const d = scaleDecision([largest], scaleOption, options.quantity);
       scale = d.scale;
       if (d.inferred) inferred.push(`${d.statement.replace(/\.$/, "")} (state scale to override).`);
     }
@@ -784,7 +795,9 @@ function checkGrid(
  * @example readSpectralTable("data/filter-lot-114.csv", { quantity: "transmittance" }).spectra.length
  */
 export function readSpectralTable(path: string, options: SpectralTableOptions): SpectralTableResult {
-  return parseDataFileBytes(path, (bytes) => parseSpectralTable(bytes, options));
+  checkPath("readSpectralTable", "path", path);
+  checkTableArguments("readSpectralTable", undefined, options, false);
+  return parseDataFileBytes(path, (bytes) => spectralTable(bytes, options));
 }
 
 /**
@@ -800,7 +813,8 @@ export function parseSpectraCsv(
   input: string | Uint8Array,
   options: SpectralTableOptions,
 ): SpectralTableResult {
-  return parseSpectralTable(input, options);
+  checkTableArguments("parseSpectraCsv", input, options, true);
+  return spectralTable(input, options);
 }
 
 /**
@@ -813,5 +827,7 @@ export function parseSpectraCsv(
  * @example readSpectraCsv("data/filter-lot-114.csv", { quantity: "transmittance" }).spectra.length
  */
 export function readSpectraCsv(path: string, options: SpectralTableOptions): SpectralTableResult {
-  return readSpectralTable(path, options);
+  checkPath("readSpectraCsv", "path", path);
+  checkTableArguments("readSpectraCsv", undefined, options, false);
+  return parseDataFileBytes(path, (bytes) => spectralTable(bytes, options));
 }

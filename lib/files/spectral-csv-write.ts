@@ -1,8 +1,16 @@
 /** Writing spectra as a CSV/TSV table: a wavelength column and one column per sample, fields quoted per RFC 4180 when needed. */
-import { writeFileSync } from "node:fs";
+import { ArgumentError } from "../arguments/argument-error.ts";
+import { checkSpectrumList } from "../arguments/check-list.ts";
+import { checkNumber } from "../arguments/check-number.ts";
+import { checkOptions } from "../arguments/check-options.ts";
+import { checkChoice, checkString } from "../arguments/check-text.ts";
+import { describeKind } from "../arguments/describe-kind.ts";
+import { refuse } from "../arguments/refuse.ts";
 import { requireSameGrid } from "../filters/checks.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
+import { writeDataFileText } from "./data-file-error.ts";
+import { checkPath, checkStringList, checkStringRecord } from "./file-arguments.ts";
 import { writeNumber } from "./number-text.ts";
 import type { ValueScale } from "./value-scale.ts";
 import type { FieldSeparator } from "./delimited-text.ts";
@@ -29,6 +37,96 @@ export interface SpectraCsvWriteOptions {
   comments?: readonly string[];
 }
 
+const OPTION_NAMES = [
+  "delimiter",
+  "wavelengthsIn",
+  "attributes",
+  "metadata",
+  "decimal",
+  "scale",
+  "digits",
+  "wavelengthHeader",
+  "comments",
+] as const satisfies readonly (keyof SpectraCsvWriteOptions)[];
+
+/** Checks the writer's arguments: spectra on one grid with names of their own, and options of the right kinds. */
+function checkWriteArguments(fn: string, spectra: unknown, options: unknown): void {
+  checkSpectrumList(fn, "spectra", spectra, {
+    minLength: 1,
+    instead: { spectrum: "for one spectrum write [spectrum]" },
+  });
+  checkOptions(fn, "options", options, OPTION_NAMES);
+  const list = spectra as readonly Spectrum[];
+  const o = (options ?? {}) as Record<string, unknown>;
+  checkChoice(fn, "options.delimiter", o.delimiter, [",", ";", "\t", " "], { optional: true });
+  checkChoice(fn, "options.wavelengthsIn", o.wavelengthsIn, ["first column", "header row"], {
+    optional: true,
+  });
+  checkChoice(fn, "options.decimal", o.decimal, [".", ","], { optional: true });
+  checkChoice(fn, "options.scale", o.scale, ["fraction", "percent"], { optional: true });
+  checkNumber(fn, "options.digits", o.digits, { integer: true, min: 1, max: 17, optional: true });
+  checkString(fn, "options.wavelengthHeader", o.wavelengthHeader, { optional: true });
+  checkStringList(fn, "options.comments", o.comments, "comment lines (strings)");
+  checkStringRecord(fn, "options.metadata", o.metadata, 'metadata { key: "value", … } (strings)');
+  if (o.attributes !== undefined) {
+    if (!Array.isArray(o.attributes))
+      refuse(fn, "options.attributes", "an array of attribute records, one per spectrum", o.attributes);
+    o.attributes.forEach((a, i) =>
+      checkStringRecord(fn, `options.attributes[${i}]`, a, 'an attribute record { column: "text", … }'),
+    );
+    if (o.attributes.length !== list.length)
+      throw new ArgumentError(
+        fn,
+        "options.attributes",
+        `an array of ${list.length} attribute records, one per spectrum`,
+        describeKind(o.attributes),
+      );
+  }
+  if (o.decimal === "," && (o.delimiter ?? ",") === ",")
+    throw new ArgumentError(
+      fn,
+      "options.decimal",
+      '"." with comma-separated fields (a decimal comma needs ";" or tab as the separator)',
+      describeKind(o.decimal),
+    );
+  if (o.scale === "percent") {
+    const other = list.findIndex((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
+    if (other >= 0)
+      throw new ArgumentError(
+        fn,
+        "options.scale",
+        `"fraction" for spectra[${other}], a ${list[other]!.quantity} spectrum (only reflectance and transmittance can be written in percent)`,
+        describeKind(o.scale),
+      );
+  }
+  const names = list.map((s) => s.name);
+  const dup = names.findIndex((n, i) => names.indexOf(n) !== i);
+  if (dup >= 0)
+    throw new ArgumentError(
+      fn,
+      `spectra[${dup}]`,
+      `a spectrum with a name of its own (the names are the column headings; spectra[${names.indexOf(names[dup]!)}] has the same)`,
+      describeKind(list[dup]),
+      "rename one with withValues(s, s.values, { name })",
+    );
+  for (const [key, value] of Object.entries((o.metadata ?? {}) as Record<string, string>))
+    if (
+      /[\r\n:;=\t]/.test(key) ||
+      /[\r\n]/.test(value) ||
+      key.trim() !== key ||
+      value.trim() !== value ||
+      !key ||
+      !value
+    )
+      throw new ArgumentError(
+        fn,
+        "options.metadata",
+        'entries that each make one "key: value" line (a key without ":", ";", "=", tabs or line breaks; a value without line breaks; neither empty nor with edge spaces)',
+        `the entry ${JSON.stringify(key)}: ${JSON.stringify(value)}`,
+      );
+  requireSameGrid(list, fn);
+}
+
 /** One field, quoted when it holds the separator, a quote, a line break or edge spaces (RFC 4180 §2). */
 function field(text: string, delimiter: string): string {
   return /["\r\n]/.test(text) ||
@@ -49,60 +147,25 @@ function field(text: string, delimiter: string): string {
  * @example formatSpectraCsv([spectrumOnGrid(400, 100, [0.2, 0.4, 0.5], { name: "invented A", quantity: "reflectance" })], { scale: "percent" })
  */
 export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraCsvWriteOptions = {}): string {
-  if (!Array.isArray(spectra) || spectra.length === 0)
-    throw new Error("formatSpectraCsv: no spectra to write");
-  requireSameGrid(spectra, "formatSpectraCsv");
+  checkWriteArguments("formatSpectraCsv", spectra, options);
+  return spectraCsvText(spectra, options);
+}
+
+/** The writer itself, on arguments checked at the public entry. */
+function spectraCsvText(spectra: readonly Spectrum[], options: SpectraCsvWriteOptions = {}): string {
   const delimiter = options.delimiter ?? ",";
-  if (![",", ";", "\t", " "].includes(delimiter))
-    throw new Error(`formatSpectraCsv: delimiter ${JSON.stringify(delimiter)} is not ",", ";", "\\t" or " "`);
   const decimal = options.decimal ?? ".";
-  if (decimal !== "." && decimal !== ",")
-    throw new Error(`formatSpectraCsv: decimal ${JSON.stringify(decimal)} is not "." or ","`);
-  if (decimal === "," && delimiter === ",")
-    throw new Error('formatSpectraCsv: a decimal comma needs ";" or tab as the separator');
   const digits = options.digits ?? 6;
-  if (!Number.isInteger(digits) || digits < 1 || digits > 17)
-    throw new Error(`formatSpectraCsv: digits ${digits} must be a whole number from 1 to 17`);
   const scale = options.scale ?? "fraction";
-  if (scale !== "fraction" && scale !== "percent")
-    throw new Error(`formatSpectraCsv: scale "${String(scale)}" is not "fraction" or "percent"`);
   const factor = (s: Spectrum) =>
     scale === "percent" && (s.quantity === "reflectance" || s.quantity === "transmittance") ? 100 : 1;
-  if (scale === "percent") {
-    const other = spectra.find((s) => s.quantity !== "reflectance" && s.quantity !== "transmittance");
-    if (other)
-      throw new Error(
-        `formatSpectraCsv: "${other.name}" is a ${other.quantity} spectrum; only reflectance and transmittance can be written in percent`,
-      );
-  }
   const names = spectra.map((s) => s.name);
-  const dup = names.find((n, i) => names.indexOf(n) !== i);
-  if (dup !== undefined)
-    throw new Error(`formatSpectraCsv: two spectra are named "${dup}"; column names must differ`);
   const lines: string[] = [];
-  for (const c of options.comments ?? [])
-    for (const part of String(c).split(/\r\n|\n|\r/)) lines.push(`# ${part}`);
-  for (const [key, value] of Object.entries(options.metadata ?? {})) {
-    if (
-      /[\r\n:;=\t]/.test(key) ||
-      /[\r\n]/.test(value) ||
-      key.trim() !== key ||
-      value.trim() !== value ||
-      !key ||
-      !value
-    )
-      throw new Error(
-        `formatSpectraCsv: metadata ${JSON.stringify(key)}: ${JSON.stringify(value)} cannot be written as one "key: value" line`,
-      );
-    lines.push(`# ${key}: ${value}`);
-  }
+  for (const c of options.comments ?? []) for (const part of c.split(/\r\n|\n|\r/)) lines.push(`# ${part}`);
+  for (const [key, value] of Object.entries(options.metadata ?? {})) lines.push(`# ${key}: ${value}`);
   if (options.wavelengthsIn === "header row") {
     const attributes: readonly Readonly<Record<string, string>>[] =
       options.attributes ?? spectra.map((s) => ({ sample: s.name }));
-    if (attributes.length !== spectra.length)
-      throw new Error(
-        `formatSpectraCsv: ${attributes.length} attribute records for ${spectra.length} spectra`,
-      );
     const keys = Object.keys(attributes[0] ?? {});
     lines.push(
       [...keys, ...spectra[0]!.wavelengths.map((w: number) => writeNumber(w, decimal, 10))]
@@ -123,10 +186,7 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
       `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
     );
     return lines.join("\n") + "\n";
-  } else if (options.wavelengthsIn !== undefined && options.wavelengthsIn !== "first column")
-    throw new Error(
-      `formatSpectraCsv: wavelengthsIn ${JSON.stringify(options.wavelengthsIn)} is not "first column" or "header row"`,
-    );
+  }
   lines.push(
     [options.wavelengthHeader ?? "wavelength_nm", ...names].map((t) => field(t, delimiter)).join(delimiter),
   );
@@ -158,5 +218,7 @@ export function writeSpectraCsv(
   spectra: readonly Spectrum[],
   options: SpectraCsvWriteOptions = {},
 ): void {
-  writeFileSync(path, formatSpectraCsv(spectra, options), "utf8");
+  checkPath("writeSpectraCsv", "path", path);
+  checkWriteArguments("writeSpectraCsv", spectra, options);
+  writeDataFileText(path, spectraCsvText(spectra, options));
 }

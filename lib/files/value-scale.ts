@@ -3,6 +3,8 @@
  * convention). The scale is taken from the caller when stated; otherwise it is inferred from the values and the
  * inference is reported, never applied silently.
  */
+import { checkNumberList } from "../arguments/check-list.ts";
+import { checkChoice, checkString } from "../arguments/check-text.ts";
 
 export type ValueScale = "fraction" | "percent";
 
@@ -34,6 +36,28 @@ export function decideValueScale(
   stated: ValueScale | "auto" | undefined,
   what: string,
 ): ScaleDecision {
+  const fn = "decideValueScale";
+  // Any iterable of numbers is taken (a Set, a generator), read once into a list; a string is not a list of numbers.
+  const list =
+    typeof values === "object" &&
+    values !== null &&
+    !Array.isArray(values) &&
+    !ArrayBuffer.isView(values) &&
+    typeof (values as { [Symbol.iterator]?: unknown })[Symbol.iterator] === "function"
+      ? Array.from(values)
+      : values;
+  checkNumberList(fn, "values", list);
+  checkChoice(fn, "stated", stated, ["fraction", "percent", "auto"], { what: "the scale", optional: true });
+  checkString(fn, "what", what, { nonEmpty: true, what: 'what the values are, e.g. "transmittance"' });
+  return scaleDecision(list as unknown as ArrayLike<number>, stated, what);
+}
+
+/** decideValueScale for the readers, whose arguments are already checked (one pass over the values, no checks). */
+export function scaleDecision(
+  values: ArrayLike<number>,
+  stated: ValueScale | "auto" | undefined,
+  what: string,
+): ScaleDecision {
   if (stated === "fraction" || stated === "percent") {
     return {
       scale: stated,
@@ -41,10 +65,8 @@ export function decideValueScale(
       statement: `The ${what} values were stated by the caller to be ${stated === "percent" ? "percent (divided by 100)" : "fractions (0–1)"}.`,
     };
   }
-  if (stated !== undefined && stated !== "auto")
-    throw new Error(`scale "${String(stated)}" is not "fraction", "percent" or "auto"`);
   let max = -Infinity;
-  for (const v of values) if (v > max) max = v;
+  for (let i = 0; i < values.length; i++) if (values[i]! > max) max = values[i]!;
   if (max > PERCENT_THRESHOLD) {
     return {
       scale: "percent",

@@ -123,8 +123,16 @@ describe("tables of colorimetric readings", () => {
     expect(() => parseColourReadings("name,X,Y,Z\na,1,2,x\n")).toThrow(
       /line 2: sample "a", field Z: "x" is not a number/,
     );
+    // A misspelt option is the caller's fault: an ArgumentError naming the reader, in the library's words ("valid
+    // options are", which replaced the reader's own "the options are").
     expect(() => parseColourReadings("X,Y,Z\n1,2,3\n", { unit: "cd" } as never)).toThrow(
-      /unknown option "unit"; the options are encoding, format/,
+      /^parseColourReadings: options should be .*unknown option "unit"; valid options are encoding, format/,
+    );
+    expect(() =>
+      readColourReadings(corpus("readings-cmyk-xyy.csv"), { units: { xyz: "cd/m²" } } as never),
+    ).toThrow(/^readColourReadings: options.units should be .*unknown option "xyz"; valid options are .*XYZ/);
+    expect(() => parseColourReadings("X,Y,Z\n1,2,3\n", { format: "csv" } as never)).toThrow(
+      /^parseColourReadings: options.format should be one of "CGATS", "delimited", "auto", but got a string \("csv"\)/,
     );
   });
 });

@@ -10,6 +10,7 @@ import { parse } from "csv-parse/sync";
 import { describe, expect, it } from "vitest";
 import {
   DataFileError,
+  isArgumentError,
   methodsUsed,
   parseSpectralTable,
   readSpectralTable,
@@ -197,17 +198,39 @@ describe("spectral tables read with only the quantity stated", () => {
   });
 
   it("refuses an unknown option, listing the valid ones", () => {
+    // Wrong options are the caller's, not the file's: an ArgumentError naming the reader and the option, in the
+    // library's words ("valid options are", "should be one of"; these replaced the reader's own wording).
     expect(() =>
       parseSpectralTable("nm,a\n400,0.5\n", { quantity: "reflectance", skipLines: 8 } as never),
     ).toThrow(
-      /unknown option "skipLines"; the options are quantity, encoding, delimiter, decimal, headerLine/,
+      /^parseSpectralTable: options should be .*unknown option "skipLines"; valid options are quantity, encoding, delimiter, decimal, headerLine/,
     );
     expect(() =>
       parseSpectralTable("nm,a\n400,0.5\n", { quantity: "reflectance", order: "up" } as never),
-    ).toThrow(/option order is "up"; expected "ascending", "descending", "auto"/);
+    ).toThrow(
+      /^parseSpectralTable: options.order should be one of "ascending", "descending", "auto", but got a string \("up"\)/,
+    );
     expect(() =>
       parseSpectralTable("nm,a\n400,0.5\n", { quantity: "reflectance", encoding: "utf-8" }),
-    ).toThrow(/encoding applies to a file's bytes/);
+    ).toThrow(/^parseSpectralTable: options.encoding should be .*an encoding applies to a file's bytes/);
+    expect(() =>
+      readSpectralTable(corpus("descending-preamble.csv"), { quantity: "reflectence" } as never),
+    ).toThrow(/^readSpectralTable: options.quantity should be what the columns hold: one of .*"reflectance"/);
+    expect(() =>
+      readSpectralTable(corpus("descending-preamble.csv"), { quantity: "reflectance", headerLine: 0 }),
+    ).toThrow(
+      /options.headerLine should be the line number of the header row \(a whole number from 1\) or "auto"/,
+    );
+    let e: unknown;
+    try {
+      parseSpectralTable("nm,a\n400,0.5\n", {} as never);
+    } catch (x) {
+      e = x;
+    }
+    expect(isArgumentError(e)).toBe(true);
+    expect((e as Error).message).toMatch(
+      /options.quantity .*The quantity is never assumed: state what the columns hold/,
+    );
   });
 });
 
