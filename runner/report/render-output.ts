@@ -22,6 +22,7 @@ import { limitsText, marginText, valueText } from "../text/check-text.ts";
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";
+import { hazardSign } from "./marks.ts";
 import { displayLocation, errorTitle } from "../text/error-text.ts";
 
 /** A renderer of one kind: the record, its place in the report, and the notebook's folder (for paths). */
@@ -176,17 +177,28 @@ const CAUTION_ABOUT: Record<NonNullable<CautionRecord["about"]>, string> = {
 function renderCaution(record: CautionRecord, view: OutputView): string {
   const anchor = view.caution?.anchor;
   const about = record.about
-    ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>`
+    ? ` <span class="caution-about">(applies to ${CAUTION_ABOUT[record.about] ?? "the result above"})</span>`
     : "";
+  const title = sentenceCase(record.title);
   if (view.caution?.repeat) {
     const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
     const more = first.length < record.text.length ? " …" : "";
     return (
-      `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
-      `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
+      `<aside class="caution caution-repeat" role="note">${hazardSign(16)}<p><span class="caution-title">${escapeHtml(title)}.</span>${about} ` +
+      `${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
     );
   }
-  return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
+  return (
+    `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}>${hazardSign(26)}<div class="caution-body">` +
+    `<p class="caution-title">${escapeHtml(title)}${about}</p><p>${escapeHtml(record.text)}</p></div></aside>`
+  );
+}
+
+/** A caution's heading as the panel prints it: its first letter capitalised, the rest as the author wrote it, no
+ * shouting (a title written all in capitals is set in sentence case). */
+function sentenceCase(title: string): string {
+  const text = /[a-z]/.test(title) ? title : title.toLowerCase();
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 function renderNote(record: NoteRecord): string {

@@ -55,9 +55,9 @@ export const checksSection: SummarySection = ({ run }) => {
   if (checks.length === 0) return undefined;
   const failed = checks.filter((c) => !c.record.passed);
   const total = checks.length === 1 ? "1 acceptance check" : `${checks.length} acceptance checks`;
-  if (failed.length === 0) {
-    return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${missing}</div>`;
-  }
+  // All passed: the report's head says so in its outcome panel; only the note about missing checks is left to say.
+  if (failed.length === 0)
+    return missing ? `<div class="summary-part checks passed">${missing}</div>` : undefined;
   const items = failed.map(
     (c) =>
       `<li><span class="check-word">FAIL</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`,
@@ -93,14 +93,9 @@ export const SUMMARY_SECTIONS: SummarySection[] = [
   runEventsSection,
 ];
 
-/** The summary block: a one-line all-clear for the cells when none failed, then every section with something to say. */
+/** The summary block under the report's head (which already states the outcome): every section with something to say. */
 export function renderSummary(ctx: SummaryContext): string {
   const parts = SUMMARY_SECTIONS.map((section) => section(ctx)).filter((p): p is string => p !== undefined);
-  const failed = ctx.run.cells.some((c) => c.status === "failed");
-  const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
-  const clear = failed
-    ? ""
-    : `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
-  if (parts.length === 0) return clear;
-  return `<section class="summary" aria-label="Summary">${clear}${parts.join("")}</section>`;
+  if (parts.length === 0) return "";
+  return `<section class="summary" aria-label="Summary">${parts.join("")}</section>`;
 }

@@ -324,17 +324,24 @@ describe("the report", () => {
       record([ok(0, []), ok(1, []), ok(2, []), { index: 3, status: "listing", outputs: [], reads: [] }]),
     );
     expect(html).toContain("<h1>Filter lot 7</h1>");
-    expect(html).toContain("<dd>Q. Lab</dd>");
-    expect(html).toContain("<dd>2024-06-01</dd>");
-    expect(html).toContain("<dd>tristim 0.1.0</dd>");
-    expect(html).toContain("<dd>3 cells in 1.23 s</dd>");
+    // The head of a lab record: who and when in a sentence, the outcome before anything else, no grid of labels.
+    expect(html).toContain("<p>Prepared by Q. Lab, dated <time>2024-06-01</time>.</p>");
+    expect(html).toContain("by tristim 0.1.0 (3 cells in 1.23 s).</p>");
+    expect(html).toContain('<p class="outcome-headline">No acceptance checks were stated</p>');
+    expect(html).toContain("All 3 cells ran without error.");
+    expect(html).not.toContain('<dl class="meta">');
     expect(html).toMatch(
       /<nav class="contents"[^]*href="#setup"[^]*href="#results"[^]*href="#detail"[^]*href="#run-record"/,
     );
-    expect(html).toContain('<details class="cell-source"><summary>Code <span class="cell-lines">cell 1');
-    expect(html).toContain('<details class="cell-source" open><summary>Code <span class="cell-lines">cell 2');
-    expect(html).not.toContain("cell 3 · line");
-    expect(html).toContain("Listing, not run · cell 4");
+    expect(html).toMatch(
+      /<details class="cell-source"><summary>.*?<span class="fold-words">Calculation, cell 1, line/,
+    );
+    expect(html).toMatch(
+      /<details class="cell-source" open><summary>.*?<span class="fold-words">Calculation, cell 2, line/,
+    );
+    expect(html).not.toContain("Calculation, cell 3");
+    expect(html).not.toMatch(/<summary>Code\b/);
+    expect(html).toContain("Listing, not run: cell 4");
     expect(html).not.toMatch(/In \[\d+\]|Out\[\d+\]/);
     expect(html).toContain("@media print");
     expect(html).toMatch(/figure, table[^{]*\{ break-inside: avoid; \}/);
