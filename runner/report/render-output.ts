@@ -154,8 +154,8 @@ function renderSwatches(record: SwatchesRecord, view: OutputView): string {
   return renderSwatchFigure(record, view.number!);
 }
 
-function renderMarkdown(record: MarkdownRecord): string {
-  return `<div class="out-markdown">${renderCellMarkdown(record.text, record.trusted)}</div>`;
+function renderMarkdown(record: MarkdownRecord, view: OutputView): string {
+  return `<div class="out-markdown">${renderCellMarkdown(record.text, record.trusted, view.shownBy)}</div>`;
 }
 
 function renderHtml(record: HtmlRecord): string {

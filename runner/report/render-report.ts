@@ -21,6 +21,7 @@ import { renderMethods } from "./methods-section.ts";
 import { renderOutputs } from "./render-output.ts";
 import { reportModel, type CellView, type ReportModel } from "./report-model.ts";
 import type { CellFenceEnv } from "./cell-fences.ts";
+import type { MathEnv } from "./prose-math.ts";
 import { renderRunDetails } from "./run-details.ts";
 import { renderSummary } from "./summary.ts";
 import { renderRecordHead } from "./record-head.ts";
@@ -114,7 +115,8 @@ export function renderReportParts(
 ): ReportParts {
   const model = reportModel(document, run);
   const { notebookDir } = model;
-  const env: CellFenceEnv = {
+  const env: CellFenceEnv & MathEnv = {
+    mathFile: document.path,
     cellsByFence: model.cellsByFence,
     renderCell: (view) => renderCell(view, model),
   };

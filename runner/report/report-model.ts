@@ -21,6 +21,8 @@ export interface OutputView {
   readonly anchor?: string;
   /** A caution's box: the anchor of the box that says its text in full, and whether this one only reminds of it. */
   readonly caution?: { readonly anchor: string | undefined; readonly repeat: boolean };
+  /** For Markdown a cell showed: which cell ("cell 5"), named where its math cannot be typeset. */
+  readonly shownBy?: string;
 }
 
 /** One cell as the report shows it. */
@@ -49,7 +51,7 @@ export function reportModel(document: NotebookDocument, run: RunRecord): ReportM
   const cautionsShown = new Set<string>();
   let figures = 0;
   let tables = 0;
-  const place = (record: OutputRecord): OutputView => {
+  const place = (record: OutputRecord, cellNumber: number): OutputView => {
     switch (record.kind) {
       case "figure":
       case "swatches":
@@ -65,13 +67,17 @@ export function reportModel(document: NotebookDocument, run: RunRecord): ReportM
         cautionsShown.add(anchor ?? key);
         return { record, caution: { anchor, repeat } };
       }
+      case "markdown":
+        return { record, shownBy: `cell ${cellNumber}` };
       default:
         return { record };
     }
   };
   const cells = document.cells.map((cell): CellView => {
     const cellRun = run.cells[cell.index];
-    const outputs = withCaption(cellRun?.outputs ?? [], cell.options.caption).map(place);
+    const outputs = withCaption(cellRun?.outputs ?? [], cell.options.caption).map((o) =>
+      place(o, cell.index + 1),
+    );
     return { cell, run: cellRun, outputs };
   });
   return {
