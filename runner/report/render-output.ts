@@ -110,7 +110,11 @@ function renderValue(record: ValueRecord): string {
 function renderTable(record: TableRecord, view: OutputView): string {
   const number = view.number!;
   const id = `table-${number}`;
-  const caption = `<figcaption><span class="label">Table ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption>`;
+  // A table the cell gave no caption is described by its columns, so no bare "Table 2." is printed.
+  const described =
+    record.caption ??
+    `Columns: ${record.columns.map((c) => `${c.label}${c.unit ? ` (${c.unit})` : ""}`).join(", ")}.`;
+  const caption = `<figcaption><span class="label">Table ${number}.</span> ${escapeHtml(described)}</figcaption>`;
   const head = record.columns
     .map(
       (c) =>
@@ -143,11 +147,25 @@ function cellClass(text: string, numeric: boolean): string {
 function renderFigure(record: FigureRecord, view: OutputView): string {
   const number = view.number!;
   const id = `figure-${number}`;
+  const caption = record.caption ?? plotTitle(record.spec);
   return (
     `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
     `<script type="application/json" id="${id}-spec">${jsonForScript(record.spec)}</script>` +
-    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`
+    `<figcaption><span class="label">Figure ${number}.</span>${caption ? ` ${escapeHtml(caption)}` : ""}</figcaption></figure>`
   );
+}
+
+/** A figure the cell gave no caption is captioned by its plot title, when it has one (tags taken out). */
+function plotTitle(spec: FigureRecord["spec"]): string | undefined {
+  const title = spec.layout?.["title"];
+  const text = typeof title === "string" ? title : (title as { text?: unknown } | undefined)?.text;
+  if (typeof text !== "string") return undefined;
+  const plain = text
+    .replace(/<br\s*\/?>/gi, " ")
+    .replace(/<[^>]*>/g, "")
+    .replace(/\s+/g, " ")
+    .trim();
+  return plain ? (/[.!?]$/.test(plain) ? plain : `${plain}.`) : undefined;
 }
 
 function renderSwatches(record: SwatchesRecord, view: OutputView): string {

@@ -120,7 +120,7 @@ describe("the report", () => {
     );
     expect(html).toContain('<span class="label">Figure 1.</span> Lamp spectra');
     expect(html).toContain('<span class="label">Figure 2.</span></figcaption>');
-    expect(html).toContain('<span class="label">Table 1.</span></figcaption>');
+    expect(html).toContain('<span class="label">Table 1.</span> Columns: Y (cd/m²).</figcaption>');
     expect(html).toContain('<span class="label">Figure 3.</span> Own caption');
     expect(html).toContain('Y<span class="unit">cd/m²</span>');
     expect(html).toContain("the first 1 of 3 rows are shown");
@@ -345,6 +345,26 @@ describe("the report", () => {
     expect(html).not.toMatch(/In \[\d+\]|Out\[\d+\]/);
     expect(html).toContain("@media print");
     expect(html).toMatch(/figure, table[^{]*\{ break-inside: avoid; \}/);
+  });
+
+  it("describes a table given no caption by its columns, and a figure given none by its plot title", () => {
+    const doc = parseNotebook("# T\n\n" + ts("1"), "/lab/nb.md");
+    const html = renderReport(
+      doc,
+      record([
+        ok(0, [
+          {
+            kind: "table",
+            columns: [{ label: "blank" }, { label: "τv", unit: "%", numeric: true }],
+            rows: [["A", "1"]],
+            totalRows: 1,
+          } as OutputRecord,
+          { kind: "figure", spec: { data: [], layout: { title: { text: "Lot <b>114</b>" } } } },
+        ]),
+      ]),
+    );
+    expect(html).toContain('<span class="label">Table 1.</span> Columns: blank, τv (%).</figcaption>');
+    expect(html).toContain('<span class="label">Figure 1.</span> Lot 114.</figcaption>');
   });
 
   it("puts a summary of failed cells and cautions at the top, and marks later cells not run", () => {
