@@ -23,6 +23,12 @@ export interface SpectraCsvWriteOptions {
   scale?: ValueScale;
   /** Significant digits of the values (default 6). */
   digits?: number;
+  /**
+   * At most this many decimals (0–20; default none): with it no value is written with an exponent, and a value that
+   * rounds to 0 there is written as 0 (e.g. `decimals: 6` writes 6.3929e-75 as 0 and 0.1234567 as 0.123457). Without
+   * it values keep `digits` significant digits, written out in full down to 20 decimals, with an exponent below that.
+   */
+  decimals?: number;
   /** Header of the wavelength column (default "wavelength_nm"). */
   wavelengthHeader?: string;
   /** Lines written at the top as "# ..." comments (e.g. provenance); default none. */
@@ -38,6 +44,15 @@ function field(text: string, delimiter: string): string {
     text === ""
     ? `"${text.replace(/"/g, '""')}"`
     : text;
+}
+
+/** The Methods statement of a written table: its rule for digits and decimals. */
+function writtenStatement(digits: number, decimals: number | undefined, scale: ValueScale): string {
+  const rule =
+    decimals === undefined
+      ? `${digits} significant digits (an exponent only below 10⁻²⁰)`
+      : `${digits} significant digits and at most ${decimals} decimals (smaller values written as 0, no exponents)`;
+  return `Spectral tables were written with ${rule}${scale === "percent" ? " in percent" : ""}.`;
 }
 
 /**
@@ -63,6 +78,9 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
   const digits = options.digits ?? 6;
   if (!Number.isInteger(digits) || digits < 1 || digits > 17)
     throw new Error(`formatSpectraCsv: digits ${digits} must be a whole number from 1 to 17`);
+  const decimals = options.decimals;
+  if (decimals !== undefined && (!Number.isInteger(decimals) || decimals < 0 || decimals > 20))
+    throw new Error(`formatSpectraCsv: decimals ${decimals} must be a whole number from 0 to 20`);
   const scale = options.scale ?? "fraction";
   if (scale !== "fraction" && scale !== "percent")
     throw new Error(`formatSpectraCsv: scale "${String(scale)}" is not "fraction" or "percent"`);
@@ -114,14 +132,11 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
       lines.push(
         [
           ...keys.map((key) => field(a[key] ?? "", delimiter)),
-          ...s.values.map((v: number) => writeNumber(v * factor(s), decimal, digits)),
+          ...s.values.map((v: number) => writeNumber(v * factor(s), decimal, digits, decimals)),
         ].join(delimiter),
       );
     });
-    noteMethod(
-      "data files",
-      `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
-    );
+    noteMethod("data files", writtenStatement(digits, decimals, scale));
     return lines.join("\n") + "\n";
   } else if (options.wavelengthsIn !== undefined && options.wavelengthsIn !== "first column")
     throw new Error(
@@ -134,14 +149,11 @@ export function formatSpectraCsv(spectra: readonly Spectrum[], options: SpectraC
     lines.push(
       [
         writeNumber(w, decimal, 10),
-        ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits)),
+        ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits, decimals)),
       ].join(delimiter),
     );
   });
-  noteMethod(
-    "data files",
-    `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
-  );
+  noteMethod("data files", writtenStatement(digits, decimals, scale));
   return lines.join("\n") + "\n";
 }
 
