@@ -22,6 +22,7 @@ export type CellOutcome =
       readonly durationMs: number;
       readonly error?: RawError;
       readonly reads: readonly string[];
+      readonly writes: readonly string[];
       readonly methods: readonly MethodNote[];
     }
   | { readonly kind: "time-limit"; readonly durationMs: number }
@@ -156,6 +157,7 @@ export class CellProcess {
       durationMs: done.durationMs,
       error: done.error,
       reads: done.reads,
+      writes: done.writes ?? [],
       methods: done.methods ?? [],
     };
   }

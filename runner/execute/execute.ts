@@ -167,6 +167,7 @@ export async function executeCells(
         outputs: outputs[index]!,
         durationMs: outcome.durationMs,
         reads: outcome.reads,
+        ...(outcome.writes.length ? { writes: outcome.writes } : {}),
       });
     }
   }
