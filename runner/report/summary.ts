@@ -10,6 +10,7 @@ import { checkOutcomeText } from "../text/check-text.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
+import { hazardSign } from "./marks.ts";
 import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
 
@@ -76,7 +77,7 @@ export const cautionsSection: SummarySection = ({ run }) => {
       `<li>${c.record.title === "Caution" ? "" : `<strong>${escapeHtml(c.record.title)}.</strong> `}${escapeHtml(c.record.text)} <a href="#${c.anchor}">(cell ${c.cell + 1})</a></li>`,
   );
   if (items.length === 0) return undefined;
-  return `<div class="summary-part cautions" id="cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
+  return `<div class="summary-part cautions" id="cautions"><h2>${hazardSign(18)} ${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
 };
 
 /** Things that happened to the run itself (e.g. the cell process had to be restarted). */
