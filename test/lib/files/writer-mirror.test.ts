@@ -94,7 +94,10 @@ describe("spectral table writer and reader mirror each other", () => {
     // The rule (issue 17): 6 significant digits, at most 6 decimals; what rounds to 0 there is written as 0.
     // Reference: Number.prototype.toFixed (ECMA-262 §21.1.3.3) of each value, compared after reading back.
     const values = [6.3929e-75, 0.1234567, 0.0000004, 0.0000006, -0.0000001, 0.5];
-    const s = spectrum([400, 410, 420, 430, 440, 450], values, { name: "invented", quantity: "relative power" });
+    const s = spectrum([400, 410, 420, 430, 440, 450], values, {
+      name: "invented",
+      quantity: "relative power",
+    });
     const text = formatSpectraCsv([s], { digits: 6, decimals: 6 });
     expect(text).not.toMatch(/e-?\d/i);
     expect(
