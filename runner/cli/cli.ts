@@ -301,6 +301,14 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       makeReportFolder(path.dirname(target));
       writeReport(document, run, target, options.linkAssets);
     } catch (e) {
+      // A fault in the notebook found while writing (math in the prose that cannot be typeset): its file and line.
+      if (e instanceof NotebookError) {
+        io.err(
+          `${e.where(shown(e.file))}; nothing was written\n${e.codeFrame ? `${indent(e.codeFrame)}\n` : ""}`,
+        );
+        exit = worseExit(exit, EXIT.notebookFailed);
+        continue;
+      }
       io.err(
         `${shown(document.path)}: the report could not be written to ${shown(target)}: ${(e as Error).message}\n`,
       );

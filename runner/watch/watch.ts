@@ -209,7 +209,14 @@ export async function startWatch(notebook: string, options: WatchOptions): Promi
     } catch (e) {
       io.err(`the report could not be written to ${reportPath}: ${(e as Error).message}\n`);
     }
-    html = written !== undefined && !options.linkAssets ? written : renderReport(document, run, {});
+    try {
+      html = written !== undefined && !options.linkAssets ? written : renderReport(document, run, {});
+    } catch (e) {
+      // Math in the prose that cannot be typeset: said with its line; the page keeps the last good rendering.
+      if (!(e instanceof NotebookError)) throw e;
+      io.err(`${e.where(e.file ?? notebookPath)}\n`);
+      return;
+    }
     watchFiles([notebookPath, ...run.filesRead.map((f) => f.path)]);
     broadcast("reload");
     const ms = performance.now() - started;

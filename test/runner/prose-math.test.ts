@@ -2,12 +2,16 @@
  * Math in prose (runner/report/prose-math.ts): `$…$` and `$$…$$` typeset as MathML by temml when the report is
  * written, with the documented rule that keeps prices as text, escaping, and errors that name the line.
  */
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
 import { renderCellMarkdown } from "../../runner/report/markdown.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
 import { NotebookError } from "../../runner/shared/errors.ts";
-import { ts } from "./helpers.ts";
+import { tempFolder, ts } from "./helpers.ts";
 import { okCell, runRecord } from "./run-records.ts";
 
 const body = (html: string) =>
@@ -66,6 +70,20 @@ describe("math in prose", () => {
     const unclosed = parseNotebook("Text.\n\n$$\n\\sqrt{2}\n\nMore.\n", "/lab/nb.md");
     expect(() => renderReport(unclosed, runRecord([]))).toThrow(/not closed with \$\$/);
   });
+
+  it("tristim run prints the file and line of malformed math, exits 1 and writes no report", () => {
+    const folder = tempFolder();
+    fs.writeFileSync(path.join(folder, "nb.md"), "---\ntitle: T\n---\n\nBad $\\frac{a$ here.\n");
+    const bin = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));
+    const result = spawnSync(process.execPath, [bin, "run", "nb.md"], {
+      cwd: folder,
+      encoding: "utf8",
+      timeout: 60_000,
+    });
+    expect(result.status).toBe(1);
+    expect(result.stderr).toMatch(/nb\.md:5: math could not be typeset: .*; nothing was written/);
+    expect(fs.existsSync(path.join(folder, "nb.html"))).toBe(false);
+  }, 60_000);
 
   it("marks malformed math in Markdown a cell showed, naming the cell and the line, and writes the rest", () => {
     const doc = parseNotebook("# T\n\n" + ts("1"), "/lab/nb.md");
