@@ -59,6 +59,8 @@ export interface CellDoneMessage {
   readonly error?: RawError;
   /** Absolute paths of the files the cell read. */
   readonly reads: readonly string[];
+  /** Absolute paths of the files the cell wrote (absent from older cell processes). */
+  readonly writes?: readonly string[];
   /** The method log so far (every condition noted since the run began), so a later crash cannot lose it. */
   readonly methods?: readonly MethodNote[];
 }

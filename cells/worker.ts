@@ -50,6 +50,8 @@ interface WorkerState {
   /** The running cell's output and the files it read. */
   output: CellOutput;
   reads: Set<string>;
+  /** The files the running cell wrote (for the report's Provenance). */
+  writes: Set<string>;
   /** Fails the running cell (an uncaught error while it runs); null between cells. */
   failCurrentCell: ((error: RawError) => void) | null;
   /** The first uncaught error after the last cell finished, reported with "finished", and the cell it came from. */
@@ -69,6 +71,7 @@ const state: WorkerState = {
   lastCell: null,
   output: new CellOutput(),
   reads: new Set(),
+  writes: new Set(),
   failCurrentCell: null,
   lateError: undefined,
   lateErrorCell: undefined,
@@ -180,6 +183,14 @@ function trackRead(file: unknown): void {
   if (absolute.includes(`${path.sep}node_modules${path.sep}`)) return;
   state.reads.add(absolute);
 }
+function trackWrite(file: unknown): void {
+  if (state.currentCell === null) return;
+  let p: string | undefined;
+  if (typeof file === "string") p = file;
+  else if (file instanceof URL && file.protocol === "file:") p = decodeURIComponent(file.pathname);
+  if (p === undefined) return;
+  state.writes.add(path.resolve(p));
+}
 function isReadFlag(flags: unknown): boolean {
   return (
     flags === undefined ||
@@ -203,6 +214,22 @@ function installReadTracking(): void {
     const original = f[name]!;
     f[name] = function (this: unknown, ...args: unknown[]) {
       if (isReadFlag(typeof args[1] === "function" ? undefined : args[1])) trackRead(args[0]);
+      else trackWrite(args[0]);
+      return original.apply(this, args);
+    };
+  }
+  // Files the cells write (listed with their SHA-256 in the report's Provenance, like files read).
+  for (const name of ["writeFileSync", "writeFile", "appendFileSync", "appendFile", "createWriteStream"]) {
+    const original = f[name]!;
+    f[name] = function (this: unknown, ...args: unknown[]) {
+      trackWrite(args[0]);
+      return original.apply(this, args);
+    };
+  }
+  for (const name of ["copyFileSync", "copyFile", "renameSync", "rename"]) {
+    const original = f[name]!;
+    f[name] = function (this: unknown, ...args: unknown[]) {
+      trackWrite(args[1]);
       return original.apply(this, args);
     };
   }
@@ -215,8 +242,16 @@ function installReadTracking(): void {
   const open = promises.open!;
   promises.open = function (this: unknown, ...args: unknown[]) {
     if (isReadFlag(args[1])) trackRead(args[0]);
+    else trackWrite(args[0]);
     return open.apply(this, args);
   };
+  for (const name of ["writeFile", "appendFile"]) {
+    const original = promises[name]!;
+    promises[name] = function (this: unknown, ...args: unknown[]) {
+      trackWrite(args[0]);
+      return original.apply(this, args);
+    };
+  }
   syncBuiltinESMExports();
 }
 
@@ -359,6 +394,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
   state.currentCell = message.cell;
   state.output = new CellOutput();
   state.reads = new Set();
+  state.writes = new Set();
   const failed = new Promise<never>((_, reject) => {
     state.failCurrentCell = reject;
   });
@@ -404,6 +440,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
     durationMs,
     error,
     reads: [...state.reads],
+    writes: [...state.writes],
     methods: methodLog(),
   });
   state.lastCell = state.currentCell;

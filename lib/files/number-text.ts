@@ -24,11 +24,18 @@ export function hasDecimalPoint(text: string): boolean {
   return /^\s*[+-]?\d*\.\d+([eE][+-]?\d+)?\s*$/.test(text) || /^\s*[+-]?\d+\.\s*$/.test(text);
 }
 
-/** A number written with a given decimal mark and at most `digits` significant digits, without exponent noise. */
-export function writeNumber(value: number, decimal: "." | ",", digits: number): string {
+/**
+ * A number written with a given decimal mark and at most `digits` significant digits, without exponent noise; with
+ * `maxDecimals`, also at most that many decimals (no exponent ever; what rounds to zero is written as 0).
+ */
+export function writeNumber(value: number, decimal: "." | ",", digits: number, maxDecimals?: number): string {
   if (!Number.isFinite(value)) throw new Error(`cannot write ${value} to a data file`);
   let s = String(Number(value.toPrecision(digits)));
-  if (/e-/i.test(s)) {
+  if (maxDecimals !== undefined) {
+    s = Number(s).toFixed(maxDecimals);
+    if (s.includes(".")) s = s.replace(/\.?0+$/, "");
+    if (/^-0$/.test(s)) s = "0";
+  } else if (/e-/i.test(s)) {
     // Small values are written out in full (0.0000001234) while that needs at most 20 decimals; tinier ones keep the exponent.
     const decimals = digits - Math.floor(Math.log10(Math.abs(value))) - 1;
     if (decimals <= 20) {

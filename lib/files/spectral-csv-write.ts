@@ -31,6 +31,12 @@ export interface SpectraCsvWriteOptions {
   scale?: ValueScale;
   /** Significant digits of the values (default 6). */
   digits?: number;
+  /**
+   * At most this many decimals (0–20; default none): with it no value is written with an exponent, and a value that
+   * rounds to 0 there is written as 0 (e.g. `decimals: 6` writes 6.3929e-75 as 0 and 0.1234567 as 0.123457). Without
+   * it values keep `digits` significant digits, written out in full down to 20 decimals, with an exponent below that.
+   */
+  decimals?: number;
   /** Header of the wavelength column (default "wavelength_nm"). */
   wavelengthHeader?: string;
   /** Lines written at the top as "# ..." comments (e.g. provenance); default none. */
@@ -45,6 +51,7 @@ const OPTION_NAMES = [
   "decimal",
   "scale",
   "digits",
+  "decimals",
   "wavelengthHeader",
   "comments",
 ] as const satisfies readonly (keyof SpectraCsvWriteOptions)[];
@@ -65,6 +72,7 @@ function checkWriteArguments(fn: string, spectra: unknown, options: unknown): vo
   checkChoice(fn, "options.decimal", o.decimal, [".", ","], { optional: true });
   checkChoice(fn, "options.scale", o.scale, ["fraction", "percent"], { optional: true });
   checkNumber(fn, "options.digits", o.digits, { integer: true, min: 1, max: 17, optional: true });
+  checkNumber(fn, "options.decimals", o.decimals, { integer: true, min: 0, max: 20, optional: true });
   checkString(fn, "options.wavelengthHeader", o.wavelengthHeader, { optional: true });
   checkStringList(fn, "options.comments", o.comments, "comment lines (strings)");
   checkStringRecord(fn, "options.metadata", o.metadata, 'metadata { key: "value", … } (strings)');
@@ -138,6 +146,15 @@ function field(text: string, delimiter: string): string {
     : text;
 }
 
+/** The Methods statement of a written table: its rule for digits and decimals. */
+function writtenStatement(digits: number, decimals: number | undefined, scale: ValueScale): string {
+  const rule =
+    decimals === undefined
+      ? `${digits} significant digits (an exponent only below 10⁻²⁰)`
+      : `${digits} significant digits and at most ${decimals} decimals (smaller values written as 0, no exponents)`;
+  return `Spectral tables were written with ${rule}${scale === "percent" ? " in percent" : ""}.`;
+}
+
 /**
  * The spectra (all on one grid) as CSV/TSV text with a header row; the inverse of `parseSpectraCsv`.
  *
@@ -156,6 +173,7 @@ function spectraCsvText(spectra: readonly Spectrum[], options: SpectraCsvWriteOp
   const delimiter = options.delimiter ?? ",";
   const decimal = options.decimal ?? ".";
   const digits = options.digits ?? 6;
+  const decimals = options.decimals;
   const scale = options.scale ?? "fraction";
   const factor = (s: Spectrum) =>
     scale === "percent" && (s.quantity === "reflectance" || s.quantity === "transmittance") ? 100 : 1;
@@ -177,14 +195,11 @@ function spectraCsvText(spectra: readonly Spectrum[], options: SpectraCsvWriteOp
       lines.push(
         [
           ...keys.map((key) => field(a[key] ?? "", delimiter)),
-          ...s.values.map((v: number) => writeNumber(v * factor(s), decimal, digits)),
+          ...s.values.map((v: number) => writeNumber(v * factor(s), decimal, digits, decimals)),
         ].join(delimiter),
       );
     });
-    noteMethod(
-      "data files",
-      `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
-    );
+    noteMethod("data files", writtenStatement(digits, decimals, scale));
     return lines.join("\n") + "\n";
   }
   lines.push(
@@ -194,14 +209,11 @@ function spectraCsvText(spectra: readonly Spectrum[], options: SpectraCsvWriteOp
     lines.push(
       [
         writeNumber(w, decimal, 10),
-        ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits)),
+        ...spectra.map((s) => writeNumber(s.values[i]! * factor(s), decimal, digits, decimals)),
       ].join(delimiter),
     );
   });
-  noteMethod(
-    "data files",
-    `Spectral tables were written with ${digits} significant digits${scale === "percent" ? " in percent" : ""}.`,
-  );
+  noteMethod("data files", writtenStatement(digits, decimals, scale));
   return lines.join("\n") + "\n";
 }
 

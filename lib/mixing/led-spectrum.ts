@@ -6,7 +6,7 @@
  * the FWHM (real LEDs often tail towards long wavelengths; common practice, no source).
  */
 import { requireFinite, requirePositive } from "../filters/checks.ts";
-import { noteMethod } from "../methods/method-log.ts";
+import { noteMethod, withoutMethodNotes } from "../methods/method-log.ts";
 import { gridWavelengths, type WavelengthGrid } from "../spectrum/grid.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { checkNumber } from "../arguments/check-number.ts";
@@ -181,7 +181,11 @@ export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
     }
     band = [...p.values];
   } else {
-    band = ledSpectrum({ ...options.phosphor, shape: "gaussian", grid, name: "phosphor" }).values as number[];
+    // The phosphor band's shape is stated below with the white it belongs to, not as a second LED model.
+    const phosphor = options.phosphor;
+    band = withoutMethodNotes(
+      () => ledSpectrum({ ...phosphor, shape: "gaussian", grid, name: "phosphor" }).values as number[],
+    );
   }
   const sumBlue = blue.values.reduce((s, v) => s + v, 0);
   const sumBand = band.reduce((s, v) => s + v, 0);
@@ -189,7 +193,9 @@ export function phosphorWhite(options: PhosphorWhiteOptions): Spectrum {
   const k = (ratio * sumBlue) / sumBand;
   noteMethod(
     "mixing",
-    "Phosphor-converted white light was modelled as a blue LED band plus a broad phosphor band at a stated ratio of radiant powers.",
+    "kind" in options.phosphor
+      ? "Phosphor-converted white light was modelled as a blue LED band plus the given phosphor spectrum at a stated ratio of radiant powers."
+      : "Phosphor-converted white light was modelled as a blue LED band plus a Gaussian phosphor band of stated peak wavelength and FWHM, at a stated ratio of radiant powers.",
   );
   return spectrum(
     w,

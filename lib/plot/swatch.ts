@@ -21,7 +21,6 @@ import {
   DISPLAY_GAMUTS,
   encodeRgb,
   hexFromEncoded,
-  insideCube,
   linearRgb,
   xyzFromLinearRgb,
   type DisplayGamut,
@@ -160,6 +159,19 @@ function cssNumber(v: number): string {
 }
 
 /**
+ * The stated tolerance of the gamut marks, in linear display RGB (full scale 1): a channel down to −0.002 still
+ * counts as inside, so rounding in a measurement or a conversion marks nothing; a channel above 1 + 0.002 is said as
+ * "brighter than the display's white". Common practice with no source: 0.2 % of full scale is below what a patch
+ * can show.
+ */
+export const GAMUT_TOLERANCE = 0.002;
+
+/** True when a display with these linear channels holds the colour's chromaticity (none below −GAMUT_TOLERANCE). */
+function holdsColour(rgb: readonly number[]): boolean {
+  return rgb.every((v) => v >= -GAMUT_TOLERANCE);
+}
+
+/**
  * What the patch shows when the mapping did more than approximate the colour: these are true on every screen (the
  * wide-gamut CSS colour is mapped to the same white or black). Reduced chroma is not claimed: where the patch has a
  * wide-gamut `css`, the browser draws that and fits it to the screen its own way (Chromium clips each channel), and the
@@ -210,11 +222,14 @@ export function swatch(
     "Display P3": linearRgb(rel, "Display P3"),
     "BT.2020": linearRgb(rel, "BT.2020"),
   };
+  // A gamut holds the colour when no linear channel is below −GAMUT_TOLERANCE: one only brighter than the display's
+  // white (a channel above 1) is said to be that, not marked as a gamut error (a 0.1 % overshoot of white is neither).
   const inGamut = {
-    sRGB: insideCube(lin.sRGB),
-    displayP3: insideCube(lin["Display P3"]),
-    bt2020: insideCube(lin["BT.2020"]),
+    sRGB: holdsColour(lin.sRGB),
+    displayP3: holdsColour(lin["Display P3"]),
+    bt2020: holdsColour(lin["BT.2020"]),
   };
+  const brighter = Math.max(...lin[display]) > 1 + GAMUT_TOLERANCE;
   // Drawing only, like the adaptation above: gamut mapping for display notes nothing.
   const shown = (gamut: DisplayGamut) => withoutMethodNotes(() => mapToDisplayGamut(rel, gamut));
   const hex = hexFromEncoded(encodeRgb(shown("sRGB").linear, "sRGB"));
@@ -231,7 +246,14 @@ export function swatch(
   // The gamut mark and its words ("outside sRGB", "outside BT.2020 too") are drawn by the report from the fields below.
   const remarks: string[] = [];
   if (options.note) remarks.push(options.note);
-  const mappingRemark = outOfDisplay ? MAPPING_REMARKS[shown(display).how] : undefined;
+  const how = shown(display).how;
+  const mappingRemark = outOfDisplay
+    ? MAPPING_REMARKS[how]
+    : brighter
+      ? how === "white"
+        ? MAPPING_REMARKS.white
+        : "brighter than the display's white, shown at its white level"
+      : undefined;
   if (mappingRemark) remarks.push(mappingRemark);
   return {
     label,

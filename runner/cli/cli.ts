@@ -365,6 +365,12 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
         makeReportFolder(path.dirname(target));
         writeReport(document, run, target, options.linkAssets);
       } catch (e) {
+        // A fault in the notebook found while writing (math in the prose that cannot be typeset): its file and line.
+        if (e instanceof NotebookError) {
+          const [first, ...frame] = notebookErrorText(e, shown(e.file)).split("\n");
+          const text = [`${first}; nothing was written`, ...frame].join("\n");
+          return { document, run, target, problemText: text, code: EXIT.notebookFailed };
+        }
         return {
           document,
           run,
@@ -380,7 +386,8 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
       progress?.clear();
       const { document, run, target } = done;
       let code: ExitCode = done.code;
-      if (done.problem) io.err(`${shown(document.path)}: ${done.problem}\n`);
+      if (done.problemText !== undefined) io.err(done.problemText);
+      else if (done.problem) io.err(`${shown(document.path)}: ${done.problem}\n`);
       else {
         code = printOutcome(document, run, target, options, io);
         if (done.pdfProblem) {

@@ -37,6 +37,7 @@ export type CellOutcome =
       readonly durationMs: number;
       readonly error?: RawError;
       readonly reads: readonly string[];
+      readonly writes: readonly string[];
       readonly methods: readonly MethodNote[];
     }
   | { readonly kind: "time-limit"; readonly durationMs: number }
@@ -177,6 +178,7 @@ export class CellProcess {
       durationMs: done.durationMs,
       error: done.error,
       reads: done.reads,
+      writes: done.writes ?? [],
       methods: done.methods ?? [],
     };
   }

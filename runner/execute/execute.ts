@@ -123,7 +123,15 @@ export class ExecutionState {
     } else {
       this.noteMethods(outcome.methods);
       const { outputs } = this.slots[index]!;
-      this.record({ index, status: "ok", outputs, durationMs: outcome.durationMs, reads: outcome.reads });
+      const writes = outcome.writes.length ? { writes: outcome.writes } : {};
+      this.record({
+        index,
+        status: "ok",
+        outputs,
+        durationMs: outcome.durationMs,
+        reads: outcome.reads,
+        ...writes,
+      });
     }
   }
 

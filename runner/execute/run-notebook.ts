@@ -91,6 +91,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       methods: execution.methods,
       ...(execution.methodsMissingFrom.length ? { methodsMissingFrom: execution.methodsMissingFrom } : {}),
       filesRead: filesRead(cells, compiled, path.dirname(document.path)),
+      ...(cells.some((c) => c.writes?.length) ? { filesWritten: filesWritten(cells) } : {}),
       events: execution.events,
       signature: runSignature(document, inputs, timeLimitMs, keepGoing),
       ...(options.reproducible ? { reproducible: true } : {}),
@@ -127,6 +128,34 @@ export function runSignature(
     .digest("hex");
 }
 
+/** True when a cell up to `index` wrote `file`: reading it back then reads an output of the run, not an input. */
+function writtenBefore(cells: readonly CellRun[], file: string, index: number): boolean {
+  return cells.some((c) => c.index <= index && c.writes?.includes(file));
+}
+
+/** The files the cells wrote, each with its SHA-256 at the end of the run and the cells that wrote it. */
+function filesWritten(cells: readonly CellRun[]): FileRead[] {
+  const byPath = new Map<string, number[]>();
+  for (const cell of cells)
+    for (const file of cell.writes ?? []) {
+      const writers = byPath.get(file) ?? [];
+      if (!writers.includes(cell.index)) writers.push(cell.index);
+      byPath.set(file, writers);
+    }
+  return [...byPath.entries()].map(([file, writers]) => {
+    try {
+      if (!fs.statSync(file).isFile()) return { path: file, cells: writers };
+      return {
+        path: file,
+        sha256: createHash("sha256").update(fs.readFileSync(file)).digest("hex"),
+        cells: writers,
+      };
+    } catch {
+      return { path: file, cells: writers };
+    }
+  });
+}
+
 /** The files the cells read or imported, each with its SHA-256 now and the cells that used it. */
 function filesRead(
   cells: readonly CellRun[],
@@ -143,7 +172,7 @@ function filesRead(
   for (const cell of cells) {
     for (const file of compiled[cell.index]?.importedFiles ?? [])
       if (cell.status !== "listing") add(file, cell.index, false);
-    for (const file of cell.reads) add(file, cell.index, true);
+    for (const file of cell.reads) if (!writtenBefore(cells, file, cell.index)) add(file, cell.index, true);
   }
   let carried = 0;
   return [...byPath.entries()].map(([file, { cells: readers, read }]): FileRead => {

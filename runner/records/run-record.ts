@@ -21,6 +21,8 @@ export interface CellRun {
   readonly durationMs?: number;
   /** Absolute paths of files the cell read. */
   readonly reads: readonly string[];
+  /** Absolute paths of files the cell wrote (absent when it wrote none). */
+  readonly writes?: readonly string[];
   /** The failure was allowed by the cell's may-fail option. */
   readonly failureAllowed?: boolean;
 }
@@ -72,6 +74,8 @@ export interface RunRecord {
   /** Cells (0-based) whose process was stopped before it reported its method notes: the Methods may be incomplete. */
   readonly methodsMissingFrom?: readonly number[];
   readonly filesRead: readonly FileRead[];
+  /** Files the cells wrote, each with its SHA-256 at the end of the run (absent in records made before it existed). */
+  readonly filesWritten?: readonly FileRead[];
   /** Things the reader should know about the run itself (e.g. the cell process was restarted). */
   readonly events: readonly string[];
   /** Identifies what was executed (code, run options, inputs), so watch can tell a prose-only edit. */

@@ -7,6 +7,7 @@ import MarkdownIt, { type Token } from "markdown-it";
 import { highlight } from "./highlight.ts";
 import { escapeHtml } from "./escape.ts";
 import { cellFences } from "./cell-fences.ts";
+import { proseMath, type MathEnv } from "./prose-math.ts";
 
 /** A heading of the report, for the contents list. */
 export interface Heading {
@@ -33,9 +34,9 @@ function create(html: boolean) {
 }
 
 /** Renderer for the notebook's prose (raw HTML escaped); its fences are cells or highlighted code. */
-export const proseMarkdown = create(false).use(cellFences);
+export const proseMarkdown = create(false).use(cellFences).use(proseMath);
 /** Renderer for Markdown a cell marked trusted. */
-export const trustedMarkdown = create(true);
+export const trustedMarkdown = create(true).use(proseMath);
 
 /** A URL fragment id from heading text, unique within `used`. */
 export function slug(text: string, used: Set<string>): string {
@@ -70,9 +71,11 @@ export function labelHeadings(tokens: Token[], used: Set<string>): Heading[] {
   return headings;
 }
 
-/** Renders generated Markdown (a cell's showMarkdown), trusted or not. */
-export function renderCellMarkdown(text: string, trusted: boolean): string {
-  return (trusted ? trustedMarkdown : proseMarkdown).render(text);
+/** Renders generated Markdown (a cell's showMarkdown), trusted or not; `shownBy` ("cell 5") is named by the mark
+ * left where its math could not be typeset. */
+export function renderCellMarkdown(text: string, trusted: boolean, shownBy?: string): string {
+  const env: MathEnv = shownBy === undefined ? {} : { mathShownBy: shownBy };
+  return (trusted ? trustedMarkdown : proseMarkdown).render(text, env);
 }
 
 export { escapeHtml };

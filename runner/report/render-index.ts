@@ -25,20 +25,10 @@ export function renderBatchIndex(batch: BatchRecord): string {
   const unwritten = batch.entries.filter((e) => e.exit === EXIT.internal);
   const withCautions = batch.entries.filter((e) => e.cautions > 0).length;
 
-  const meta: [string, string][] = [
-    ["Notebook", `<code>${escapeHtml(path.basename(batch.notebook.path))}</code>`],
-    ["Runs", `${n}, one per data file`],
-    ...(batch.shard
-      ? ([
-          [
-            "Shard",
-            `${batch.shard.index} of ${batch.shard.of} of a batch of ${batch.count} data files (merge the shard folders with <code>tristim collate</code>)`,
-          ],
-        ] as [string, string][])
-      : []),
-    ["Made with", escapeHtml(`${batch.tool.name} ${batch.tool.version}`)],
-  ];
-  if (!batch.reproducible) meta.push(["Date", escapeHtml(batch.startedAt.slice(0, 10))]);
+  const shard = batch.shard
+    ? ` This folder is shard ${batch.shard.index} of ${batch.shard.of} of a batch of ${batch.count} data files (merge the shard folders with <code>tristim collate</code>).`
+    : "";
+  const made = `Computed from <code>${escapeHtml(path.basename(batch.notebook.path))}</code> by ${escapeHtml(`${batch.tool.name} ${batch.tool.version}`)}, ${n === 1 ? "1 run" : `${n} runs`}, one per data file${batch.reproducible ? "" : `, on <time>${escapeHtml(batch.startedAt.slice(0, 10))}</time>`}.${shard}`;
 
   const parts: string[] = [];
   if (passed.length === n) {
@@ -135,9 +125,8 @@ export function renderBatchIndex(batch: BatchRecord): string {
 </head>
 <body>
 <main class="report batch-index">
-<header class="title-block"><h1>${escapeHtml(batch.notebook.title)}</h1>
-<p class="title-sub">Index of ${runs(n)} of one notebook, one per data file.</p>
-<dl class="meta">${meta.map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${v}</dd></div>`).join("")}</dl></header>
+<header class="record-head"><p class="record-kind">Index of lab records</p><h1>${escapeHtml(batch.notebook.title)}</h1>
+<div class="record-facts"><p>${made}</p></div></header>
 <section class="summary" aria-label="Summary">${parts.join("")}</section>
 <h2 id="runs">Runs</h2>
 <div class="table-scroll"><table class="checks index-table"><thead><tr><th scope="col">Result</th><th scope="col" class="num">Run</th><th scope="col">Data file</th>` +

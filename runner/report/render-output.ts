@@ -22,6 +22,7 @@ import { limitsText, marginText, valueText, decisionText, OUTCOME_WORDS } from "
 import { escapeHtml, jsonForScript } from "./escape.ts";
 import { renderCellMarkdown } from "./markdown.ts";
 import { renderSwatchFigure } from "./render-swatches.ts";
+import { hazardSign } from "./marks.ts";
 import { displayLocation, errorTitle } from "../text/error-text.ts";
 
 /** A renderer of one kind: the record, its place in the report, and the notebook's folder (for paths). */
@@ -113,7 +114,11 @@ function renderValue(record: ValueRecord): string {
 function renderTable(record: TableRecord, view: OutputView): string {
   const number = view.number!;
   const id = `table-${number}`;
-  const caption = `<figcaption><span class="label">Table ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption>`;
+  // A table the cell gave no caption is described by its columns, so no bare "Table 2." is printed.
+  const described =
+    record.caption ??
+    `Columns: ${record.columns.map((c) => `${c.label}${c.unit ? ` (${c.unit})` : ""}`).join(", ")}.`;
+  const caption = `<figcaption><span class="label">Table ${number}.</span> ${escapeHtml(described)}</figcaption>`;
   const head = record.columns
     .map(
       (c) =>
@@ -146,19 +151,33 @@ function cellClass(text: string, numeric: boolean): string {
 function renderFigure(record: FigureRecord, view: OutputView): string {
   const number = view.number!;
   const id = `figure-${number}`;
+  const caption = record.caption ?? plotTitle(record.spec);
   return (
     `<figure class="plot-figure" id="${id}"><div class="plot" data-spec="${id}-spec" role="img" aria-label="Figure ${number}"><noscript>This figure is drawn by JavaScript, which is turned off.</noscript></div>` +
     `<script type="application/json" id="${id}-spec">${jsonForScript(record.spec)}</script>` +
-    `<figcaption><span class="label">Figure ${number}.</span>${record.caption ? ` ${escapeHtml(record.caption)}` : ""}</figcaption></figure>`
+    `<figcaption><span class="label">Figure ${number}.</span>${caption ? ` ${escapeHtml(caption)}` : ""}</figcaption></figure>`
   );
+}
+
+/** A figure the cell gave no caption is captioned by its plot title, when it has one (tags taken out). */
+function plotTitle(spec: FigureRecord["spec"]): string | undefined {
+  const title = spec.layout?.["title"];
+  const text = typeof title === "string" ? title : (title as { text?: unknown } | undefined)?.text;
+  if (typeof text !== "string") return undefined;
+  const plain = text
+    .replace(/<br\s*\/?>/gi, " ")
+    .replace(/<[^>]*>/g, "")
+    .replace(/\s+/g, " ")
+    .trim();
+  return plain ? (/[.!?]$/.test(plain) ? plain : `${plain}.`) : undefined;
 }
 
 function renderSwatches(record: SwatchesRecord, view: OutputView): string {
   return renderSwatchFigure(record, view.number!);
 }
 
-function renderMarkdown(record: MarkdownRecord): string {
-  return `<div class="out-markdown">${renderCellMarkdown(record.text, record.trusted)}</div>`;
+function renderMarkdown(record: MarkdownRecord, view: OutputView): string {
+  return `<div class="out-markdown">${renderCellMarkdown(record.text, record.trusted, view.shownBy)}</div>`;
 }
 
 function renderHtml(record: HtmlRecord): string {
@@ -180,17 +199,28 @@ const CAUTION_ABOUT: Record<NonNullable<CautionRecord["about"]>, string> = {
 function renderCaution(record: CautionRecord, view: OutputView): string {
   const anchor = view.caution?.anchor;
   const about = record.about
-    ? ` <span class="caution-about">· applies to ${CAUTION_ABOUT[record.about] ?? "the result above"}</span>`
+    ? ` <span class="caution-about">(applies to ${CAUTION_ABOUT[record.about] ?? "the result above"})</span>`
     : "";
+  const title = sentenceCase(record.title);
   if (view.caution?.repeat) {
     const first = /^(.*?[.!?])(\s|$)/s.exec(record.text)?.[1] ?? record.text;
     const more = first.length < record.text.length ? " …" : "";
     return (
-      `<aside class="caution caution-repeat" role="note"><p><span class="caution-title">${escapeHtml(record.title)}</span>${about}</p>` +
-      `<p>${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
+      `<aside class="caution caution-repeat" role="note">${hazardSign(16)}<p><span class="caution-title">${escapeHtml(title)}.</span>${about} ` +
+      `${escapeHtml(first)}${more} ${anchor ? `<a href="#${anchor}">(full text above)</a>` : ""}</p></aside>`
     );
   }
-  return `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}><p class="caution-title">${escapeHtml(record.title)}${about}</p><p>${escapeHtml(record.text)}</p></aside>`;
+  return (
+    `<aside class="caution" role="note"${anchor ? ` id="${anchor}"` : ""}>${hazardSign(26)}<div class="caution-body">` +
+    `<p class="caution-title">${escapeHtml(title)}${about}</p><p>${escapeHtml(record.text)}</p></div></aside>`
+  );
+}
+
+/** A caution's heading as the panel prints it: its first letter capitalised, the rest as the author wrote it, no
+ * shouting (a title written all in capitals is set in sentence case). */
+function sentenceCase(title: string): string {
+  const text = /[a-z]/.test(title) ? title : title.toLowerCase();
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 function renderNote(record: NoteRecord): string {

@@ -17,20 +17,19 @@ import { writeFileAtomic } from "../shared/write-atomic.ts";
 import { sevenBitText } from "./seven-bit-text.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
-import { cautionResults } from "../records/caution-results.ts";
-import { countChecks } from "../records/check-results.ts";
 import { embeddedRunRecord, runRecordScript } from "./embedded-run-record.ts";
 import { cssString, escapeHtml } from "./escape.ts";
-import { formatDuration } from "../text/duration.ts";
 import { highlight } from "./highlight.ts";
 import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
 import { renderMethods } from "./methods-section.ts";
 import { renderOutputs } from "./render-output.ts";
 import { reportModel, type CellView, type ReportModel } from "./report-model.ts";
 import type { CellFenceEnv } from "./cell-fences.ts";
+import type { MathEnv } from "./prose-math.ts";
 import { renderRunDetails } from "./run-details.ts";
 import { carriedSources, sourcesScript } from "./carried-sources.ts";
 import { renderSummary } from "./summary.ts";
+import { renderRecordHead } from "./record-head.ts";
 import { describeCells } from "../text/cell-numbers.ts";
 
 /** Options of the report writer. */
@@ -154,7 +153,8 @@ export function renderReportParts(
 ): ReportParts {
   const model = reportModel(document, run);
   const { notebookDir } = model;
-  const env: CellFenceEnv = {
+  const env: CellFenceEnv & MathEnv = {
+    mathFile: document.path,
     cellsByFence: model.cellsByFence,
     renderCell: (view) => renderCell(view, model),
   };
@@ -191,7 +191,7 @@ ${pageMarginStyle(run.batch ? `${title} — ${path.basename(String(run.inputs[ru
 </head>
 <body>
 <main class="report">
-${renderTitleBlock(document, run, title)}
+${renderRecordHead(document, run, title)}
 ${renderSummary({ document, run, notebookDir })}
 ${renderContents(contentsEntries)}
 <article class="report-body">
@@ -240,50 +240,6 @@ export function reportTitle(document: NotebookDocument): string {
   return takeTitle(document, proseMarkdown.parse(document.body, {}));
 }
 
-function renderTitleBlock(document: NotebookDocument, run: RunRecord, title: string): string {
-  const fm = document.frontMatter;
-  const ran = run.cells.filter((c) => c.status === "ok" || c.status === "failed").length;
-  const meta: [string, string][] = [];
-  if (fm.author) meta.push(["Author", escapeHtml(fm.author)]);
-  if (run.batch) {
-    const value = String(run.inputs[run.batch.input]);
-    meta.push([
-      "Data file",
-      `<code>${escapeHtml(value)}</code> <br><span class="meta-note">run ${run.batch.position} of ${run.batch.count} · <a href="index.html">all runs</a></span>`,
-    ]);
-  }
-  // A reproducible report carries no wall-clock value: only the date the notebook itself states.
-  const date = fm.date ?? (run.reproducible ? undefined : run.startedAt.slice(0, 10));
-  if (date) meta.push(["Date", escapeHtml(date)]);
-  meta.push(["Made with", escapeHtml(`${run.tool.name} ${run.tool.version}`)]);
-  const cells = ran === 1 ? "1 cell" : `${ran} cells`;
-  meta.push([
-    "Run",
-    escapeHtml(
-      run.reproducible ? `${cells} (reproducible report)` : `${cells} in ${formatDuration(run.durationMs)}`,
-    ),
-  ]);
-  const counts = countChecks(run);
-  if (counts.passed + counts.failed > 0) {
-    const text =
-      counts.failed === 0
-        ? `✓ all ${counts.passed} passed`
-        : `✗ ${counts.failed} of ${counts.passed + counts.failed} failed`;
-    meta.push([
-      "Acceptance checks",
-      `<a href="#checks"${counts.failed ? ' class="meta-fail"' : ""}>${escapeHtml(text)}</a>`,
-    ]);
-  }
-  const cautions = cautionResults(run).length;
-  const notice =
-    cautions === 0
-      ? ""
-      : `<p class="title-notice" role="note"><span class="notice-mark" aria-hidden="true">!</span> This report contains ${cautions === 1 ? "a caution" : `${cautions} cautions`} about the use of its results — <a href="#cautions">read ${cautions === 1 ? "it" : "them"} first</a>.</p>`;
-  return `<header class="title-block"><h1>${escapeHtml(title)}</h1><dl class="meta">${meta
-    .map(([k, v]) => `<div><dt>${escapeHtml(k)}</dt><dd>${v}</dd></div>`)
-    .join("")}</dl>${notice}</header>`;
-}
-
 function renderContents(entries: Heading[]): string {
   if (entries.length < 3) return "";
   const min = Math.min(...entries.map((e) => e.level));
@@ -292,6 +248,10 @@ function renderContents(entries: Heading[]): string {
     .join("");
   return `<nav class="contents" id="contents" aria-label="Contents"><h2>Contents</h2><ol${entries.length > 8 ? ' class="long"' : ""}>${items}</ol></nav>`;
 }
+
+/** The fold's sign: a small drawn page corner with lines of text, an SVG of our own (not a triangle). */
+const FOLD_SIGN =
+  '<svg class="fold-sign" viewBox="0 0 16 16" width="15" height="15" aria-hidden="true"><path d="M3 1.5h7l3 3v10H3z" fill="none" stroke="currentColor" stroke-width="1.3" stroke-linejoin="round"/><path d="M10 1.5v3h3" fill="none" stroke="currentColor" stroke-width="1.1"/><path class="fold-lines" d="M5.2 7.5h5.6M5.2 10h5.6M5.2 12.5h3.4" stroke="currentColor" stroke-width="1.1" stroke-linecap="round"/></svg>';
 
 function renderCell(view: CellView, { run, notebookDir }: ReportModel): string {
   const { cell } = view;
@@ -302,9 +262,10 @@ function renderCell(view: CellView, { run, notebookDir }: ReportModel): string {
   const code = `<pre><code class="hljs language-ts">${highlight(cell.code, "typescript")}</code></pre>`;
   let source = "";
   if (status === "listing") {
-    source = `<div class="listing"><p class="listing-label">Listing, not run · cell ${number} · ${range}</p>${code}</div>`;
+    source = `<div class="listing"><p class="listing-label">Listing, not run: cell ${number}, ${range}</p>${code}</div>`;
   } else if (!cell.options.hideSource) {
-    source = `<details class="cell-source"${cell.options.showSource ? " open" : ""}><summary>Code <span class="cell-lines">cell ${number} · ${range}</span></summary>${code}</details>`;
+    // The fold names what it holds in the words of a lab record; the drawn brackets turn to say open or closed.
+    source = `<details class="cell-source"${cell.options.showSource ? " open" : ""}><summary>${FOLD_SIGN}<span class="fold-words">Calculation, cell ${number}, ${range}</span><span class="fold-hint"></span></summary>${code}</details>`;
   }
   let notRun = "";
   if (status === "not-run") {

@@ -21,6 +21,8 @@ export interface OutputView {
   readonly anchor?: string;
   /** A caution's box: the anchor of the box that says its text in full, and whether this one only reminds of it. */
   readonly caution?: { readonly anchor: string | undefined; readonly repeat: boolean };
+  /** For Markdown a cell showed: which cell ("cell 5"), named where its math cannot be typeset. */
+  readonly shownBy?: string;
 }
 
 /** One cell as the report shows it. */
@@ -49,7 +51,7 @@ export function reportModel(document: NotebookDocument, run: RunRecord): ReportM
   const cautionsShown = new Set<string>();
   let figures = 0;
   let tables = 0;
-  const place = (record: OutputRecord): OutputView => {
+  const place = (record: OutputRecord, cellNumber: number): OutputView => {
     switch (record.kind) {
       case "figure":
       case "swatches":
@@ -65,13 +67,17 @@ export function reportModel(document: NotebookDocument, run: RunRecord): ReportM
         cautionsShown.add(anchor ?? key);
         return { record, caution: { anchor, repeat } };
       }
+      case "markdown":
+        return { record, shownBy: `cell ${cellNumber}` };
       default:
         return { record };
     }
   };
   const cells = document.cells.map((cell): CellView => {
     const cellRun = run.cells[cell.index];
-    const outputs = withCaption(cellRun?.outputs ?? [], cell.options.caption).map(place);
+    const outputs = withCaption(cellRun?.outputs ?? [], cell.options.caption).map((o) =>
+      place(o, cell.index + 1),
+    );
     return { cell, run: cellRun, outputs };
   });
   return {
@@ -83,12 +89,34 @@ export function reportModel(document: NotebookDocument, run: RunRecord): ReportM
   };
 }
 
-/** Gives the fence line's caption to the cell's first figure, table or swatch row that has no caption of its own. */
+/**
+ * The fence line's `caption="..."`: it goes to the cell's first figure, table or swatch row that has no caption of
+ * its own. When every one has its own caption (a library figure carries one), the fence's caption wins: it comes
+ * first and the figure's own caption follows it, so neither is dropped. A fence caption with no figure or table to
+ * go to is said in a note under the cell's outputs.
+ */
 function withCaption(outputs: readonly OutputRecord[], caption: string | undefined): readonly OutputRecord[] {
   if (!caption) return outputs;
-  const i = outputs.findIndex(
-    (o) => (o.kind === "figure" || o.kind === "table" || o.kind === "swatches") && !o.caption,
-  );
-  if (i < 0) return outputs;
-  return outputs.map((o, j) => (j === i ? ({ ...o, caption } as OutputRecord) : o));
+  const captioned = (o: OutputRecord) => o.kind === "figure" || o.kind === "table" || o.kind === "swatches";
+  let i = outputs.findIndex((o) => captioned(o) && !(o as { caption?: string }).caption);
+  const free = i >= 0;
+  if (!free) i = outputs.findIndex(captioned);
+  if (i < 0) {
+    return [
+      ...outputs,
+      {
+        kind: "note",
+        text: `The caption on this cell's fence line ("${caption}") has no figure or table to go to.`,
+      },
+    ];
+  }
+  return outputs.map((o, j) => {
+    if (j !== i) return o;
+    const own = (o as { caption?: string }).caption;
+    return { ...o, caption: free || !own ? caption : `${withStop(caption)} ${own}` } as OutputRecord;
+  });
+}
+
+function withStop(text: string): string {
+  return /[.!?]$/.test(text.trim()) ? text.trim() : `${text.trim()}.`;
 }

@@ -127,10 +127,23 @@ export function renderRunDetails(
           )
           .join("")}</tbody></table></div>`;
 
+  const written = run.filesWritten ?? [];
+  const writtenTable =
+    written.length === 0
+      ? ""
+      : `<h3>Files written by the cells</h3><p class="section-note">Paths are relative to the notebook's folder; each SHA-256 is of the file as the run left it.</p><div class="table-scroll"><table class="compact files-read files-written"><thead><tr><th>File</th><th>SHA-256</th><th>Written by</th></tr></thead><tbody>${written
+          .map(
+            (f) =>
+              `<tr><td class="file-path">${escapeHtml(displayPath(f.path, dir, "relative"))}</td>` +
+              `<td><code class="hash">${f.sha256 ?? "(not a readable file)"}</code></td>` +
+              `<td>${f.cells.map((i) => `<a href="#cell-${i + 1}">cell&nbsp;${i + 1}</a>`).join(", ")}</td></tr>`,
+          )
+          .join("")}</tbody></table></div>`;
+
   return (
     `<section class="run-details" id="${id}"><h2>Provenance</h2>` +
     `<p class="section-note">How this report was made. A SHA-256 identifies the exact bytes of a file: compute it again (for example with <code>sha256sum</code>) to confirm a file is the one used here.</p>` +
-    `<dl class="facts">${facts.map(([k, v]) => `<dt>${k}</dt><dd>${v}</dd>`).join("")}</dl>${inputTable}${cellTable}${files}</section>`
+    `<dl class="facts">${facts.map(([k, v]) => `<dt>${k}</dt><dd>${v}</dd>`).join("")}</dl>${inputTable}${cellTable}${files}${writtenTable}</section>`
   );
 }
 

@@ -10,6 +10,7 @@ import { checkOutcomeText } from "../text/check-text.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { escapeHtml } from "./escape.ts";
+import { hazardSign } from "./marks.ts";
 import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { describeCells } from "../text/cell-numbers.ts";
 
@@ -60,9 +61,11 @@ export const checksSection: SummarySection = ({ run }) => {
   const marginalText = marginal.length
     ? `<p class="checks-marginal">${marginal.length === 1 ? "One pass is marginal" : `${marginal.length} passes are marginal`} (value ± U reaches across a limit): ${marginal.map((c) => `<a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>`).join(", ")}.</p>`
     : "";
-  if (failed.length === 0) {
-    return `<div class="summary-part checks passed" id="checks"><h2><span class="check-mark" aria-hidden="true">✓</span> ${checks.length === 1 ? "The acceptance check passed" : `All ${total} passed`}</h2>${marginalText}${missing}</div>`;
-  }
+  // All passed: the report's head says so in its outcome panel; left to say are marginal passes and missing checks.
+  if (failed.length === 0)
+    return missing || marginalText
+      ? `<div class="summary-part checks passed" id="checks">${marginalText}${missing}</div>`
+      : undefined;
   const items = failed.map(
     (c) =>
       `<li><span class="check-word">${c.record.decision?.outcome === "marginal fail" ? "marginal FAIL" : "FAIL"}</span> <a href="#${c.anchor}">${escapeHtml(c.record.label)}</a>: ${escapeHtml(checkOutcomeText(c.record))} <span class="where">(cell ${c.cell + 1})</span></li>`,
@@ -81,7 +84,7 @@ export const cautionsSection: SummarySection = ({ run }) => {
       `<li>${c.record.title === "Caution" ? "" : `<strong>${escapeHtml(c.record.title)}.</strong> `}${escapeHtml(c.record.text)} <a href="#${c.anchor}">(cell ${c.cell + 1})</a></li>`,
   );
   if (items.length === 0) return undefined;
-  return `<div class="summary-part cautions" id="cautions"><h2>${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
+  return `<div class="summary-part cautions" id="cautions"><h2>${hazardSign(18)} ${items.length === 1 ? "Caution" : "Cautions"}</h2><ul>${items.join("")}</ul></div>`;
 };
 
 /** Things that happened to the run itself (e.g. the cell process had to be restarted). */
@@ -98,14 +101,9 @@ export const SUMMARY_SECTIONS: SummarySection[] = [
   runEventsSection,
 ];
 
-/** The summary block: a one-line all-clear for the cells when none failed, then every section with something to say. */
+/** The summary block under the report's head (which already states the outcome): every section with something to say. */
 export function renderSummary(ctx: SummaryContext): string {
   const parts = SUMMARY_SECTIONS.map((section) => section(ctx)).filter((p): p is string => p !== undefined);
-  const failed = ctx.run.cells.some((c) => c.status === "failed");
-  const ran = ctx.run.cells.filter((c) => c.status === "ok").length;
-  const clear = failed
-    ? ""
-    : `<p class="all-clear">${ran === 0 ? "No cells to run." : `All ${ran === 1 ? "1 cell" : `${ran} cells`} ran without error.`}</p>`;
-  if (parts.length === 0) return clear;
-  return `<section class="summary" aria-label="Summary">${clear}${parts.join("")}</section>`;
+  if (parts.length === 0) return "";
+  return `<section class="summary" aria-label="Summary">${parts.join("")}</section>`;
 }

@@ -67,18 +67,23 @@ export function valueText(record: CheckRecord): string {
 /**
  * How far the value lies from what was asked: the deviation from a target ("+35 K from target"), and for a failed
  * check how far outside the nearest limit it lies ("0.0012 above the limit"). Undefined when there is nothing to say.
+ * Margins are printed at the check's `digits` (up to 6 significant digits without it); a margin that rounds to
+ * zero there is said in words ("on target to 2 decimals", "less than 0.01 % above the limit"), never "−0.00".
  */
 export function marginText(record: CheckRecord): string | undefined {
   const { limits, value } = record;
   if (!limits || typeof value !== "number") return undefined;
   const unit = unitSuffix(record.unit);
-  const fmt = (v: number) => printedNumber(formatNumber(Math.abs(v), record.digits));
-  // Up to 6 significant digits: a small excess must not round to 0 at the value's digits.
-  const exact = (v: number) => printedNumber(formatNumber(Math.abs(v)));
+  const digits = record.digits;
+  const roundsToZero = (v: number) => digits !== undefined && Number(Math.abs(v).toFixed(digits)) === 0;
+  const fmt = (v: number) => printedNumber(formatNumber(Math.abs(v), digits));
+  const step = digits === undefined ? "" : printedNumber(formatNumber(10 ** -digits, digits));
   const parts: string[] = [];
   if (limits.target !== undefined) {
     const d = value - limits.target;
-    parts.push(d === 0 ? "on target" : `${d > 0 ? "+" : "−"}${fmt(d)}${unit} from target`);
+    if (d === 0) parts.push("on target");
+    else if (roundsToZero(d)) parts.push(`on target to ${digits} ${digits === 1 ? "decimal" : "decimals"}`);
+    else parts.push(`${d > 0 ? "+" : "−"}${fmt(d)}${unit} from target`);
   }
   if (!record.passed) {
     let lower = limits.min ?? -Infinity;
@@ -87,8 +92,15 @@ export function marginText(record: CheckRecord): string | undefined {
       lower = Math.max(lower, limits.target - limits.tolerance);
       upper = Math.min(upper, limits.target + limits.tolerance);
     }
-    if (value > upper) parts.push(`${exact(value - upper)}${unit} above the limit`);
-    else if (value < lower) parts.push(`${exact(lower - value)}${unit} below the limit`);
+    const outside = value > upper ? value - upper : value < lower ? lower - value : 0;
+    const side = value > upper ? "above" : "below";
+    if (outside > 0) {
+      parts.push(
+        roundsToZero(outside)
+          ? `less than ${step}${unit} ${side} the limit`
+          : `${fmt(outside)}${unit} ${side} the limit`,
+      );
+    }
   }
   return parts.length ? parts.join("; ") : undefined;
 }

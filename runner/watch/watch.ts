@@ -213,13 +213,27 @@ export class WatchSession {
     this.last = { run, document };
     // One rendering serves both the file and the page, unless the file links shared assets the page does not.
     let written: string | undefined;
+    let html: string;
     try {
-      written = writeReport(document, run, this.reportPath, this.options.linkAssets);
+      try {
+        written = writeReport(document, run, this.reportPath, this.options.linkAssets);
+      } catch (e) {
+        if (e instanceof NotebookError) throw e;
+        this.io.err(`the report could not be written to ${this.reportPath}: ${(e as Error).message}\n`);
+      }
+      html = written !== undefined && !this.options.linkAssets ? written : renderReport(document, run, {});
     } catch (e) {
-      this.io.err(`the report could not be written to ${this.reportPath}: ${(e as Error).message}\n`);
+      // Math in the prose that cannot be typeset: said with its line; the page keeps the last good rendering.
+      if (!(e instanceof NotebookError)) throw e;
+      const message = e.where(e.file);
+      this.io.err(`${message}\n`);
+      this.events.emit("render", {
+        executed,
+        error: message,
+        ms: performance.now() - started,
+      } satisfies RenderEvent);
+      return;
     }
-    const html =
-      written !== undefined && !this.options.linkAssets ? written : renderReport(document, run, {});
     this.page = { html, banner };
     this.files.set([this.notebookPath, ...run.filesRead.map((f) => f.path)]);
     this.server.broadcast("reload");

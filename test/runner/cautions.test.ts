@@ -90,7 +90,7 @@ describe("cautions in a run and its report", () => {
     const html = renderReport(document, run);
     const escaped = first[0]!.text.replace(/'/g, "&#39;");
     // In full once beside the first result (and once in the summary); the table in cell 2 gets a short reminder.
-    expect(html.split(`<p>${escaped}</p></aside>`).length - 1).toBe(1);
+    expect(html.split(`<p>${escaped}</p></div></aside>`).length - 1).toBe(1);
     expect(html.split(`${escaped} <a href="#caution-1">(cell 1)</a></li>`).length - 1).toBe(1);
     expect(html).toContain('id="caution-1"');
     expect(html).toContain('class="caution caution-repeat"');

@@ -162,6 +162,16 @@ describe("words for checks in the report", () => {
     ).toBe("+0.15 from target; 0.05 above the limit");
     expect(marginText(r({ value: 1, limits: { min: 0 } }))).toBeUndefined();
     expect(marginText(r({ value: 8, limits: { target: 8, tolerance: 0 } }))).toBe("on target");
+    // Margins at the check's digits (issue 17: "0.534536 % above the limit" with digits 2, "−0.000000 % from target").
+    expect(
+      marginText(r({ passed: false, value: 10.534536, limits: { max: 10 }, unit: "%", digits: 2 })),
+    ).toBe("0.53 % above the limit");
+    expect(
+      marginText(r({ value: 25 - 1e-12, limits: { target: 25, tolerance: 1 }, unit: "%", digits: 6 })),
+    ).toBe("on target to 6 decimals");
+    expect(marginText(r({ passed: false, value: 2.001, limits: { max: 2 }, digits: 2 }))).toBe(
+      "less than 0.01 above the limit",
+    );
   });
   it("prints powers of ten and minus signs as a report does", () => {
     expect(printedNumber("7.10543e-15")).toBe("7.10543 × 10⁻¹⁵");
@@ -209,7 +219,7 @@ describe("checks in a run", () => {
     expect(html).toContain('href="#check-1-2"');
     expect(html).toContain('id="check-1-2"');
     expect(html).toMatch(
-      /<tr class="check check-fail" id="check-1-2">.*FAIL.*ΔE00 patch 3.*2\.60.*0\.6 above the limit.*≤ 2/,
+      /<tr class="check check-fail" id="check-1-2">.*FAIL.*ΔE00 patch 3.*2\.60.*0\.60 above the limit.*≤ 2/,
     );
     expect(html).toMatch(/<tr class="check check-pass" id="check-1-1">.*pass.*τv.*0\.125.*0\.08 to 0\.18/);
     expect(html).toContain("&lt;b&gt;evil&lt;/b&gt;");

@@ -125,4 +125,23 @@ describe("tristim run --reproducible", () => {
     expect(plain.code).toBe(EXIT.checkFailed);
     expect(fs.readFileSync(path.join(folder, "plain.html"), "utf8")).toContain("Run started");
   }, 120_000);
+
+  it("lists the files the cells wrote with their SHA-256, and a file read back after writing it is not an input", async () => {
+    // SHA-256 of "abc": the worked example of FIPS 180-2, Appendix B.1.
+    const { document, run } = await runText(
+      "# Writes\n\n" +
+        ts(
+          'import fs from "node:fs";\nfs.mkdirSync("out", { recursive: true });\nfs.writeFileSync("out/abc.txt", "abc");',
+        ) +
+        ts('import fs from "node:fs";\nfs.readFileSync("out/abc.txt", "utf8")'),
+    );
+    expect(run.filesWritten?.map((f) => [path.basename(f.path), f.sha256, f.cells])).toEqual([
+      ["abc.txt", "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad", [0]],
+    ]);
+    expect(run.filesRead.map((f) => path.basename(f.path))).not.toContain("abc.txt");
+    const html = renderReport(document, run);
+    const written = html.slice(html.indexOf("<h3>Files written by the cells</h3>"));
+    expect(written).toContain("out/abc.txt");
+    expect(written).toContain("ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad");
+  });
 });

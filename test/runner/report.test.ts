@@ -122,7 +122,7 @@ describe("the report", () => {
     );
     expect(html).toContain('<span class="label">Figure 1.</span> Lamp spectra');
     expect(html).toContain('<span class="label">Figure 2.</span></figcaption>');
-    expect(html).toContain('<span class="label">Table 1.</span></figcaption>');
+    expect(html).toContain('<span class="label">Table 1.</span> Columns: Y (cd/m²).</figcaption>');
     expect(html).toContain('<span class="label">Figure 3.</span> Own caption');
     expect(html).toContain('Y<span class="unit">cd/m²</span>');
     expect(html).toContain("the first 1 of 3 rows are shown");
@@ -326,20 +326,47 @@ describe("the report", () => {
       record([ok(0, []), ok(1, []), ok(2, []), { index: 3, status: "listing", outputs: [], reads: [] }]),
     );
     expect(html).toContain("<h1>Filter lot 7</h1>");
-    expect(html).toContain("<dd>Q. Lab</dd>");
-    expect(html).toContain("<dd>2024-06-01</dd>");
-    expect(html).toContain("<dd>tristim 0.1.0</dd>");
-    expect(html).toContain("<dd>3 cells in 1.23 s</dd>");
+    // The head of a lab record: who and when in a sentence, the outcome before anything else, no grid of labels.
+    expect(html).toContain("<p>Prepared by Q. Lab, dated <time>2024-06-01</time>.</p>");
+    expect(html).toContain("by tristim 0.1.0 (3 cells in 1.23 s).</p>");
+    expect(html).toContain('<p class="outcome-headline">No acceptance checks were stated</p>');
+    expect(html).toContain("All 3 cells ran without error.");
+    expect(html).not.toContain('<dl class="meta">');
     expect(html).toMatch(
       /<nav class="contents"[^]*href="#setup"[^]*href="#results"[^]*href="#detail"[^]*href="#run-record"/,
     );
-    expect(html).toContain('<details class="cell-source"><summary>Code <span class="cell-lines">cell 1');
-    expect(html).toContain('<details class="cell-source" open><summary>Code <span class="cell-lines">cell 2');
-    expect(html).not.toContain("cell 3 · line");
-    expect(html).toContain("Listing, not run · cell 4");
+    expect(html).toMatch(
+      /<details class="cell-source"><summary>.*?<span class="fold-words">Calculation, cell 1, line/,
+    );
+    expect(html).toMatch(
+      /<details class="cell-source" open><summary>.*?<span class="fold-words">Calculation, cell 2, line/,
+    );
+    expect(html).not.toContain("Calculation, cell 3");
+    expect(html).not.toMatch(/<summary>Code\b/);
+    expect(html).toContain("Listing, not run: cell 4");
     expect(html).not.toMatch(/In \[\d+\]|Out\[\d+\]/);
     expect(html).toContain("@media print");
     expect(html).toMatch(/figure, table[^{]*\{ break-inside: avoid; \}/);
+  });
+
+  it("describes a table given no caption by its columns, and a figure given none by its plot title", () => {
+    const doc = parseNotebook("# T\n\n" + ts("1"), "/lab/nb.md");
+    const html = renderReport(
+      doc,
+      record([
+        ok(0, [
+          {
+            kind: "table",
+            columns: [{ label: "blank" }, { label: "τv", unit: "%", numeric: true }],
+            rows: [["A", "1"]],
+            totalRows: 1,
+          } as OutputRecord,
+          { kind: "figure", spec: { data: [], layout: { title: { text: "Lot <b>114</b>" } } } },
+        ]),
+      ]),
+    );
+    expect(html).toContain('<span class="label">Table 1.</span> Columns: blank, τv (%).</figcaption>');
+    expect(html).toContain('<span class="label">Figure 1.</span> Lot 114.</figcaption>');
   });
 
   it("puts a summary of failed cells and cautions at the top, and marks later cells not run", () => {

@@ -90,6 +90,30 @@ describe("spectral table writer and reader mirror each other", () => {
     );
   });
 
+  it("with decimals, writes no exponent and at most that many decimals, and reads back rounded to them", () => {
+    // The rule (issue 17): 6 significant digits, at most 6 decimals; what rounds to 0 there is written as 0.
+    // Reference: Number.prototype.toFixed (ECMA-262 §21.1.3.3) of each value, compared after reading back.
+    const values = [6.3929e-75, 0.1234567, 0.0000004, 0.0000006, -0.0000001, 0.5];
+    const s = spectrum([400, 410, 420, 430, 440, 450], values, {
+      name: "invented",
+      quantity: "relative power",
+    });
+    const text = formatSpectraCsv([s], { digits: 6, decimals: 6 });
+    expect(text).not.toMatch(/e-?\d/i);
+    expect(
+      text
+        .trim()
+        .split("\n")
+        .slice(1)
+        .map((l) => l.split(",")[1]),
+    ).toEqual(["0", "0.123457", "0", "0.000001", "0", "0.5"]);
+    const back = parseSpectralTable(text, { quantity: "relative power" }).spectra[0]!.values;
+    back.forEach((v, i) => expect(v).toBeCloseTo(Number(values[i]!.toFixed(6)), 12));
+    expect(() => formatSpectraCsv([s], { decimals: 21 })).toThrow(
+      /decimals 21 must be a whole number from 0 to 20/,
+    );
+  });
+
   it("CGATS written by formatCgats reads back as readings with every field", () => {
     fc.assert(
       fc.property(

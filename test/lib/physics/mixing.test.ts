@@ -14,6 +14,8 @@ import {
   lchFromLab,
   ledSpectrum,
   lightXYZ,
+  methodsUsed,
+  resetMethodLog,
   mixLights,
   mixPaint,
   nonNegativeLeastSquares,
@@ -230,6 +232,18 @@ describe("LED spectra", () => {
     const blueOnly = ledSpectrum({ peak: 450, fwhm: 20 });
     const sum = (a: readonly number[]) => a.reduce((s, v) => s + v, 0);
     expect((sum(w.values) - sum(blueOnly.values)) / sum(blueOnly.values)).toBeCloseTo(2.5, 10);
+  });
+
+  it("states one LED model in Methods for a phosphor white: the pump's shape, the phosphor band with the white", () => {
+    // Issue 17: Methods listed "modelled as Gaussians" beside Ohno's shape when only the pump was an LED model.
+    resetMethodLog();
+    phosphorWhite({ blue: { peak: 450, fwhm: 20 }, phosphor: { peak: 565, fwhm: 110 }, phosphorToBlue: 2.5 });
+    const statements = methodsUsed().map((m) => m.statement);
+    expect(statements.filter((t) => t.startsWith("LED spectra were modelled"))).toEqual([
+      expect.stringMatching(/Ohno's shape/),
+    ]);
+    expect(statements.some((t) => /Gaussian phosphor band/.test(t))).toBe(true);
+    resetMethodLog();
   });
 });
 

@@ -9,6 +9,7 @@ import { describe, expect, it } from "vitest";
 import type { SwatchRecord } from "../../../cells/records.ts";
 import { swatchRecords } from "../../../cells/swatch-record.ts";
 import { swatch, swatchGrid, swatchPairs } from "../../../lib/plot/index.ts";
+import { GAMUT_TOLERANCE } from "../../../lib/plot/swatch.ts";
 import { spectrum } from "../../../lib/spectrum/spectrum.ts";
 import { HAVE_REFERENCE, NO_REFERENCE, readReferenceCsv } from "../reference-data.ts";
 
@@ -144,18 +145,34 @@ describe("wide-gamut colours", () => {
     expect(records[1]!.inGamut?.sRGB).toBe(false);
   });
 
-  it("a light brighter than the white is marked and its note says it is shown as white, as colorjs.io maps it", () => {
+  it("a light brighter than the white is said to be that, not marked as outside a gamut, and shown as white as colorjs.io maps it", () => {
     // Invented: twice the white's luminance. CSS Color 4 §13.2 (colorjs.io's "css" method): OKLab L ≥ 1 gives white.
+    // Its chromaticity is inside sRGB (every linear channel positive), so no gamut is wrong: only its level is.
     const xyz = { X: 190, Y: 200, Z: 120 };
     const ref = new Color("xyz-d65", [1.9, 2, 1.2]).toGamut({ space: "srgb", method: "css" }).to("srgb")
       .coords as number[];
     for (const display of ["sRGB", "BT.2020"] as const) {
       const s = swatch("flash", { XYZ: xyz }, { display });
       expect(s.hex).toBe(hexOf(ref));
-      expect(s.outOfDisplayGamut).toBe(true);
+      expect(s.outOfDisplayGamut).toBe(false);
+      expect(s.outOfGamut).toBe(false);
       expect(s.note).toBe("brighter than the display's white, shown as white");
-      expect(cssNumbers(s.css!)).toEqual([1, 1, 1]); // white in BT.2020 too, so every screen shows white
     }
+  });
+
+  it("marks nothing within the stated gamut tolerance: the RGB white at Y = 100.1 is white, not outside BT.2020", () => {
+    // sRGB white = D65 (IEC 61966-2-1: x 0.3127, y 0.3290); 0.1 % above Y = 100 is within GAMUT_TOLERANCE (0.2 %).
+    const white = { X: (0.3127 / 0.329) * 100.1, Y: 100.1, Z: ((1 - 0.3127 - 0.329) / 0.329) * 100.1 };
+    const s = swatch("RGB white", { XYZ: white });
+    expect(s.hex).toBe("#ffffff");
+    expect(s.inGamut).toEqual({ sRGB: true, displayP3: true, bt2020: true });
+    expect(s.outOfDisplayGamut).toBe(false);
+    expect(s).not.toHaveProperty("note");
+    expect(GAMUT_TOLERANCE).toBe(0.002);
+    // Beyond the tolerance the words say what is wrong: brighter than white, still not a gamut error.
+    const bright = swatch("RGB white", { XYZ: { X: white.X * 1.01, Y: 101.1, Z: white.Z * 1.01 } });
+    expect(bright.outOfDisplayGamut).toBe(false);
+    expect(bright.note).toMatch(/^brighter than the display's white/);
   });
 
   it("a colour that is not a colour is an error naming the swatch", () => {

@@ -61,6 +61,26 @@ describe("reportModel", () => {
     expect(run.cells[0]!.outputs[0]).not.toHaveProperty("caption");
   });
 
+  it("lets the fence's caption win over a figure's own caption, keeping both, and never drops it silently", () => {
+    const doc = parseNotebook(
+      '# M\n\n```ts caption="Lot 114 as measured"\n1\n```\n\n```ts caption="Lost?"\n2\n```\n',
+      "/lab/nb.md",
+    );
+    const own: OutputRecord = {
+      kind: "figure",
+      caption: "Spectral transmittance (invented data).",
+      spec: { data: [] },
+    };
+    const m = reportModel(doc, runRecord([okCell(0, [own]), okCell(1, [check("x")])]));
+    expect((m.cells[0]!.outputs[0]!.record as { caption?: string }).caption).toBe(
+      "Lot 114 as measured. Spectral transmittance (invented data).",
+    );
+    expect(m.cells[1]!.outputs.at(-1)!.record).toEqual({
+      kind: "note",
+      text: 'The caption on this cell\'s fence line ("Lost?") has no figure or table to go to.',
+    });
+  });
+
   it("takes the check anchors from the run's check results, so report and summary link the same rows", () => {
     const anchors = model.cells.flatMap((c) =>
       c.outputs.filter((o) => o.record.kind === "check").map((o) => o.anchor),
