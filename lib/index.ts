@@ -50,5 +50,19 @@ export * from "./halftone/index.ts";
 export * from "./rendering/index.ts";
 export * from "./files/index.ts";
 
+// Cones, colour-vision deficiency, cameras and demo spectra (issue 15): one block, kept together.
+export {
+  CIE_2006_LMS_2_DEGREE,
+  CIE_2006_LMS_10_DEGREE,
+  coneFundamentals,
+  coneFundamentalSpectra,
+  type ConeFundamentals,
+} from "./vision/cone-fundamentals.ts";
+export * from "./vision/cie-2015-observer.ts";
+export * from "./vision/cone-excitations.ts";
+export * from "./plot/macleod-boynton-diagram.ts";
+export * from "./vision/deficiency.ts";
+export { deficiencySwatches, type DeficiencySwatchEntry } from "./plot/deficiency-swatches.ts";
+
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

@@ -187,6 +187,15 @@ function exercise(): Map<string, MethodNote[]> {
     t.parseColourReadings("Bench: x\nname;L*;a*;b*\nA;50,5;1;2\n", { units: { Lab: "" } });
     t.parseColourReadings(text);
   });
+  // Cones, colour-vision deficiency, cameras and demo spectra (issue 15).
+  run("vision/cone-excitations.ts", () => {
+    t.coneExcitations(lamp);
+    t.coneExcitations(refl, { fundamentals: "10°" });
+  });
+  run("vision/deficiency.ts", () => {
+    for (const method of ["Brettel 1997", "Viénot 1999", "Machado 2009"] as const)
+      t.simulateDeficiencyRgb({ r: 0.7, g: 0.3, b: 0.2 }, "deutan", { method });
+  });
   return byFile;
 }
 
@@ -290,6 +299,8 @@ describe("Methods statements are full sentences", () => {
       "files/cgats-fields.ts": /were taken from CGATS spectral fields/,
       "files/cgats-write.ts": /CGATS\.17 text was written/,
       "files/colour-readings-read.ts": /A table of colorimetric readings/,
+      "vision/cone-excitations.ts": /Cone excitations were summed/,
+      "vision/deficiency.ts": /simulated by the (method|single-plane matrix|matrices)/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {
