@@ -63,6 +63,17 @@ export * from "./vision/cone-excitations.ts";
 export * from "./plot/macleod-boynton-diagram.ts";
 export * from "./vision/deficiency.ts";
 export { deficiencySwatches, type DeficiencySwatchEntry } from "./plot/deficiency-swatches.ts";
+export {
+  cameraSensor,
+  inventedCameraSensor,
+  cameraSensorSpectra,
+  type CameraSensor,
+  type InventedSensorOptions,
+} from "./camera/camera-sensor.ts";
+export { cameraRgb, type CameraRgbOptions } from "./camera/camera-rgb.ts";
+export * from "./camera/colour-correction.ts";
+export * from "./camera/luther-ives.ts";
+export * from "./camera/metamer-pairs.ts";
 
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

@@ -196,6 +196,27 @@ function exercise(): Map<string, MethodNote[]> {
     for (const method of ["Brettel 1997", "Viénot 1999", "Machado 2009"] as const)
       t.simulateDeficiencyRgb({ r: 0.7, g: 0.3, b: 0.2 }, "deutan", { method });
   });
+  run("camera/camera-rgb.ts", () => {
+    t.cameraRgb(refl, t.inventedCameraSensor());
+    t.cameraRgb(lamp, t.inventedCameraSensor());
+  });
+  run("camera/colour-correction.ts", () => {
+    const rgb = [0, 1, 2, 3, 4, 5, 6].map((i) => ({
+      r: 0.1 + 0.1 * i,
+      g: 0.5 - 0.05 * i,
+      b: 0.2 + 0.03 * i * i,
+    }));
+    const xyz = rgb.map((c) => ({ X: 40 * c.r + 30 * c.g + 10 * c.b, Y: 20 * c.r + 70 * c.g, Z: 90 * c.b }));
+    t.fitColourCorrection(rgb, xyz);
+    t.fitColourCorrection(rgb, xyz, { model: "root-polynomial" });
+  });
+  run("camera/luther-ives.ts", () => t.lutherIvesMeasure(t.inventedCameraSensor(), { illuminant: "D65" }));
+  run("camera/metamer-pairs.ts", () =>
+    t.metamerPair(
+      on5(() => 0.5, "reflectance", "grey"),
+      t.inventedCameraSensor(),
+    ),
+  );
   return byFile;
 }
 
@@ -301,6 +322,10 @@ describe("Methods statements are full sentences", () => {
       "files/colour-readings-read.ts": /A table of colorimetric readings/,
       "vision/cone-excitations.ts": /Cone excitations were summed/,
       "vision/deficiency.ts": /simulated by the (method|single-plane matrix|matrices)/,
+      "camera/camera-rgb.ts": /Camera RGB values/,
+      "camera/colour-correction.ts": /colour-correction matrix|root-polynomial colour correction/,
+      "camera/luther-ives.ts": /Luther–Ives condition was measured/,
+      "camera/metamer-pairs.ts": /Metameric pairs were made/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {
