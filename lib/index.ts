@@ -74,6 +74,9 @@ export { cameraRgb, type CameraRgbOptions } from "./camera/camera-rgb.ts";
 export * from "./camera/colour-correction.ts";
 export * from "./camera/luther-ives.ts";
 export * from "./camera/metamer-pairs.ts";
+export * from "./synthesis/reflectance-from-srgb.ts";
+export * from "./filters/notch-filter.ts";
+export * from "./mixing/efficient-drive-levels.ts";
 
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

@@ -217,6 +217,14 @@ function exercise(): Map<string, MethodNote[]> {
       t.inventedCameraSensor(),
     ),
   );
+  run("synthesis/reflectance-from-srgb.ts", () => t.reflectanceFromSrgb({ r: 0.7, g: 0.4, b: 0.3 }));
+  run("filters/notch-filter.ts", () => t.notchFilter(589, 20));
+  run("mixing/efficient-drive-levels.ts", () =>
+    t.mostEfficientDriveLevels(
+      [450, 530, 590, 630].map((peak) => t.ledSpectrum({ peak, fwhm: 25 })),
+      { x: 0.3127, y: 0.329, Y: 100 },
+    ),
+  );
   return byFile;
 }
 
@@ -326,6 +334,9 @@ describe("Methods statements are full sentences", () => {
       "camera/colour-correction.ts": /colour-correction matrix|root-polynomial colour correction/,
       "camera/luther-ives.ts": /Luther–Ives condition was measured/,
       "camera/metamer-pairs.ts": /Metameric pairs were made/,
+      "synthesis/reflectance-from-srgb.ts": /least-slope-squared/,
+      "filters/notch-filter.ts": /band-stop filters/,
+      "mixing/efficient-drive-levels.ts": /highest luminous efficacy/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {
