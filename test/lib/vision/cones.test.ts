@@ -148,3 +148,13 @@ describe("cone excitations and MacLeod–Boynton chromaticity", () => {
     expect(() => t.macLeodBoynton({ L: 0, M: 0, S: 1 })).toThrow(/no luminance/);
   });
 });
+
+describe("CIE 2015 observers by name", () => {
+  it('observerByName("CIE 2015 10°") and an options observer "2015 2°" give the CIE 170-2 observers', () => {
+    expect(t.observerByName("CIE 2015 10°")).toBe(t.CIE_2015_10_DEGREE);
+    expect(t.observerByName("2015 2°")).toBe(t.CIE_2015_2_DEGREE);
+    const a = t.whitePoint({ illuminant: "A", observer: "CIE 2015 2°" });
+    const b = t.whitePoint({ illuminant: "A", observer: t.CIE_2015_2_DEGREE });
+    expect(a).toEqual(b);
+  });
+});
