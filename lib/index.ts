@@ -58,6 +58,33 @@ export * from "./uncertainty/index.ts";
 export * from "./appearance/index.ts";
 export * from "./video/index.ts";
 export * from "./display/index.ts";
+// Cones, colour-vision deficiency, cameras and demo spectra (issue 15): one block, kept together.
+export {
+  CIE_2006_LMS_2_DEGREE,
+  CIE_2006_LMS_10_DEGREE,
+  coneFundamentals,
+  coneFundamentalSpectra,
+  type ConeFundamentals,
+} from "./vision/cone-fundamentals.ts";
+export * from "./vision/cie-2015-observer.ts";
+export * from "./vision/cone-excitations.ts";
+export * from "./plot/macleod-boynton-diagram.ts";
+export * from "./vision/deficiency.ts";
+export { deficiencySwatches, type DeficiencySwatchEntry } from "./plot/deficiency-swatches.ts";
+export {
+  cameraSensor,
+  inventedCameraSensor,
+  cameraSensorSpectra,
+  type CameraSensor,
+  type InventedSensorOptions,
+} from "./camera/camera-sensor.ts";
+export { cameraRgb, type CameraRgbOptions } from "./camera/camera-rgb.ts";
+export * from "./camera/colour-correction.ts";
+export * from "./camera/luther-ives.ts";
+export * from "./camera/metamer-pairs.ts";
+export * from "./synthesis/reflectance-from-srgb.ts";
+export * from "./filters/notch-filter.ts";
+export * from "./mixing/efficient-drive-levels.ts";
 
 // Argument checking: the error every public function throws for a wrong argument.
 export * from "./arguments/argument-error.ts";

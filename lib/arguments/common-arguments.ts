@@ -9,7 +9,8 @@ import { isWellFormedSpectrum } from "./check-spectrum.ts";
 import { checkWith } from "./check-with.ts";
 
 /** The expected-value phrase for an observer argument. */
-export const OBSERVER_CHOICE = 'an observer: "2°" (CIE 1931), "10°" (CIE 1964), 2, 10, or an observer object';
+export const OBSERVER_CHOICE =
+  'an observer: "2°" (CIE 1931), "10°" (CIE 1964), "CIE 2015 2°", "CIE 2015 10°", 2, 10, or an observer object';
 
 /** True for what observerByName accepts: the names "2°", "10°", "1931", "1964", "CIE 1931", ..., 2, 10, an observer. */
 export function isObserverChoice(value: unknown): boolean {
@@ -19,7 +20,9 @@ export function isObserverChoice(value: unknown): boolean {
     .replace(/^CIE\s*/i, "")
     .replace("°", "")
     .trim();
-  return key === "2" || key === "10" || key === "1931" || key === "1964";
+  return (
+    key === "2" || key === "10" || key === "1931" || key === "1964" || key === "2015 2" || key === "2015 10"
+  );
 }
 
 /** Throws an ArgumentError unless `value` is an observer choice (undefined passes: the default applies). */

@@ -5,6 +5,7 @@ import type { TabulatedData } from "../data/tabulated-data.ts";
 import { checkNumber } from "../arguments/check-number.ts";
 import { checkWith } from "../arguments/check-with.ts";
 import { checkObserver } from "../arguments/common-arguments.ts";
+import { CIE_2015_10_DEGREE, CIE_2015_2_DEGREE } from "../vision/cie-2015-observer.ts";
 
 export interface Observer {
   readonly kind: "observer";
@@ -49,12 +50,24 @@ export const CIE_1964_10_DEGREE: Observer = fromTable(
 );
 
 /** Names accepted wherever an observer is asked for. */
-export type ObserverName = "2°" | "10°" | "2" | "10" | "1931" | "1964" | "CIE 1931" | "CIE 1964";
+export type ObserverName =
+  | "2°"
+  | "10°"
+  | "2"
+  | "10"
+  | "1931"
+  | "1964"
+  | "CIE 1931"
+  | "CIE 1964"
+  | "2015 2°"
+  | "2015 10°"
+  | "CIE 2015 2°"
+  | "CIE 2015 10°";
 
 /**
  * A CIE standard colorimetric observer by name ("2°"/"1931" or "10°"/"1964"), or the observer itself; an unknown name is an error.
  *
- * @param which "2°", "2", "1931", "CIE 1931", 2 for the CIE 1931 2° observer; "10°", "10", "1964", "CIE 1964", 10 for the CIE 1964 10° observer; or an `Observer`, returned as it is. Default "2°".
+ * @param which "2°", "2", "1931", "CIE 1931", 2 for the CIE 1931 2° observer; "10°", "10", "1964", "CIE 1964", 10 for the CIE 1964 10° observer; "CIE 2015 2°" or "CIE 2015 10°" ("2015 2°", "2015 10°") for the CIE 170-2 cone-fundamental-based observers; or an `Observer`, returned as it is. Default "2°".
  * @returns The `Observer`: x̄, ȳ, z̄ tabulated 360–830 nm at 1 nm.
  * @source CIE 018:2019 Table 6 (1931 2°); ISO/CIE 11664-1:2019 Table 2 (1964 10°).
  * @example observerByName("10°").name
@@ -68,6 +81,8 @@ export function observerByName(which: ObserverName | Observer | 2 | 10 = "2°"):
     .trim();
   if (key === "2" || key === "1931") return CIE_1931_2_DEGREE;
   if (key === "10" || key === "1964") return CIE_1964_10_DEGREE;
+  if (key === "2015 2") return CIE_2015_2_DEGREE;
+  if (key === "2015 10") return CIE_2015_10_DEGREE;
   throw new Error(`unknown observer "${which}": use "2°" (CIE 1931) or "10°" (CIE 1964)`);
 }
 

@@ -189,7 +189,10 @@ function locusTraces(
   if (labels === false) return traces;
   const spans: [number, number] = [range.x[1] - range.x[0], range.y[1] - range.y[0]];
   const centre = diagramPoint({ x: 1 / 3, y: 1 / 3 }, space);
-  const wanted = [...new Set(labels)].filter((w) => w >= 380 && w <= 780 && Number.isInteger(w));
+  // Only wavelengths on the locus: a table on a 5 nm grid, or one with no sensitivity at its ends, lacks some.
+  const wanted = [...new Set(labels)].filter(
+    (w) => w >= 380 && w <= 780 && Number.isInteger(w) && locus.some((p) => p.wavelength === w),
+  );
   const candidates = wanted.map((w) => {
     const i = locus.findIndex((p) => p.wavelength === w);
     return { at: locus[i]!.at, priority: labelPriority(w), item: i };

@@ -246,6 +246,44 @@ function exercise(): Map<string, MethodNote[]> {
     t.displayUniformity([[white, white, white]]);
     t.primariesAgainstTarget({ red: white, green: white, blue: white, white }, "DCI-P3");
   });
+  // Cones, colour-vision deficiency, cameras and demo spectra (issue 15).
+  run("vision/cone-excitations.ts", () => {
+    t.coneExcitations(lamp);
+    t.coneExcitations(refl, { fundamentals: "10°" });
+  });
+  run("vision/deficiency.ts", () => {
+    for (const method of ["Brettel 1997", "Viénot 1999", "Machado 2009"] as const)
+      t.simulateDeficiencyRgb({ r: 0.7, g: 0.3, b: 0.2 }, "deutan", { method });
+  });
+  run("camera/camera-rgb.ts", () => {
+    t.cameraRgb(refl, t.inventedCameraSensor());
+    t.cameraRgb(lamp, t.inventedCameraSensor());
+  });
+  run("camera/colour-correction.ts", () => {
+    const rgb = [0, 1, 2, 3, 4, 5, 6].map((i) => ({
+      r: 0.1 + 0.1 * i,
+      g: 0.5 - 0.05 * i,
+      b: 0.2 + 0.03 * i * i,
+    }));
+    const xyz = rgb.map((c) => ({ X: 40 * c.r + 30 * c.g + 10 * c.b, Y: 20 * c.r + 70 * c.g, Z: 90 * c.b }));
+    t.fitColourCorrection(rgb, xyz);
+    t.fitColourCorrection(rgb, xyz, { model: "root-polynomial" });
+  });
+  run("camera/luther-ives.ts", () => t.lutherIvesMeasure(t.inventedCameraSensor(), { illuminant: "D65" }));
+  run("camera/metamer-pairs.ts", () =>
+    t.metamerPair(
+      on5(() => 0.5, "reflectance", "grey"),
+      t.inventedCameraSensor(),
+    ),
+  );
+  run("synthesis/reflectance-from-srgb.ts", () => t.reflectanceFromSrgb({ r: 0.7, g: 0.4, b: 0.3 }));
+  run("filters/notch-filter.ts", () => t.notchFilter(589, 20));
+  run("mixing/efficient-drive-levels.ts", () =>
+    t.mostEfficientDriveLevels(
+      [450, 530, 590, 630].map((peak) => t.ledSpectrum({ peak, fwhm: 25 })),
+      { x: 0.3127, y: 0.329, Y: 100 },
+    ),
+  );
   return byFile;
 }
 
@@ -368,6 +406,15 @@ describe("Methods statements are full sentences", () => {
       "display/pq-tracking.ts": /clipped at the display peak/,
       "display/uniformity.ts": /Uniformity was computed over a 1 × 3 grid/,
       "display/primaries-check.ts": /compared with those of DCI-P3/,
+      "vision/cone-excitations.ts": /Cone excitations were summed/,
+      "vision/deficiency.ts": /simulated by the (method|single-plane matrix|matrices)/,
+      "camera/camera-rgb.ts": /Camera RGB values/,
+      "camera/colour-correction.ts": /colour-correction matrix|root-polynomial colour correction/,
+      "camera/luther-ives.ts": /Luther–Ives condition was measured/,
+      "camera/metamer-pairs.ts": /Metameric pairs were made/,
+      "synthesis/reflectance-from-srgb.ts": /least-slope-squared/,
+      "filters/notch-filter.ts": /band-stop filters/,
+      "mixing/efficient-drive-levels.ts": /highest luminous efficacy/,
     };
     const text = all.map((n) => n.statement).join("\n");
     for (const f of files) {
