@@ -110,7 +110,7 @@ describe("spectral table writer and reader mirror each other", () => {
     const back = parseSpectralTable(text, { quantity: "relative power" }).spectra[0]!.values;
     back.forEach((v, i) => expect(v).toBeCloseTo(Number(values[i]!.toFixed(6)), 12));
     expect(() => formatSpectraCsv([s], { decimals: 21 })).toThrow(
-      /decimals 21 must be a whole number from 0 to 20/,
+      /formatSpectraCsv: options\.decimals should be a whole number from 0 to 20, but got the number 21/,
     );
   });
 
