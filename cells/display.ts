@@ -83,16 +83,24 @@ export function showTable(rows: readonly object[], options: TableOptions = {}): 
       shown.some((r) => typeof r[c.key] === "number") &&
       shown.every((r) => r[c.key] === undefined || r[c.key] === null || typeof r[c.key] === "number"),
   );
+  // A column of uncertainty results states its coverage factor once, in its header, not in every cell.
+  const uncertain = columns.map(
+    (c) =>
+      shown.some((r) => isUncertainValue(r[c.key])) &&
+      shown.every((r) => r[c.key] === undefined || r[c.key] === null || isUncertainValue(r[c.key])),
+  );
   const formatted = shown.map((row) =>
-    columns.map((c) =>
-      formatCell(row[c.key], checkDigits(c.digits, `showTable column "${c.key}"`) ?? defaultDigits),
+    columns.map((c, i) =>
+      uncertain[i]
+        ? formatUncertain(row[c.key], false)
+        : formatCell(row[c.key], checkDigits(c.digits, `showTable column "${c.key}"`) ?? defaultDigits),
     ),
   );
   const headers: TableColumnRecord[] = columns.map((c, i) => {
     const unit = c.unit ?? options.units?.[c.key];
-    return unit
-      ? { label: c.label ?? c.key, unit, numeric: numeric[i]! }
-      : { label: c.label ?? c.key, numeric: numeric[i]! };
+    const given = c.label ?? c.key;
+    const label = uncertain[i] && !/k\s*=\s*2/.test(given) ? `${given} (k = 2)` : given;
+    return unit ? { label, unit, numeric: numeric[i]! } : { label, numeric: numeric[i]! };
   });
   emit({
     kind: "table",
@@ -267,12 +275,15 @@ function formatCell(value: unknown, digits: number | undefined): string {
   if (typeof value === "string") return value;
   if (typeof value === "boolean" || typeof value === "bigint") return String(value);
   if (value instanceof Date) return value.toISOString();
-  if (isUncertainValue(value)) {
-    // An uncertainty result's output: "value ± U (k = 2)", U to two significant digits (JCGM 100 §7.2.6).
-    const [v, U] = roundedPair(value.estimate, value.expandedUncertainty);
-    return `${v} ± ${U} (k = 2)`;
-  }
+  if (isUncertainValue(value)) return formatUncertain(value, true);
   return inspect(value, { depth: 1, colors: false, breakLength: Infinity, maxArrayLength: 12 });
+}
+
+/** An uncertainty result's output: "value ± U", U to two significant digits (JCGM 100 §7.2.6), then "(k = 2)" when asked. */
+function formatUncertain(value: unknown, withCoverage: boolean): string {
+  if (!isUncertainValue(value)) return "";
+  const [v, U] = roundedPair(value.estimate, value.expandedUncertainty);
+  return withCoverage ? `${v} ± ${U} (k = 2)` : `${v} ± ${U}`;
 }
 
 function isUncertainValue(value: unknown): value is { estimate: number; expandedUncertainty: number } {

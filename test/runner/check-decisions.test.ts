@@ -125,14 +125,22 @@ describe("words, report, run record and exit code", () => {
 });
 
 describe("tables", () => {
-  it('show an uncertainty result\'s output as "value ± U (k = 2)" (JCGM 100 §7.2.6: U to two significant digits)', async () => {
+  it('show a column of uncertainty results as "value ± U" under a header stating (k = 2) once (JCGM 100 §7.2.6: U to two significant digits)', async () => {
     const { run } = await runText(
       ts(
         'showTable([{ blank: "A", tauV: { estimate: 26.5432, expandedUncertainty: 0.2071, standardUncertainty: 0.1 } }])',
       ),
     );
     const table = outputsOf(run, 0, "table")[0]!;
-    expect(table.rows).toEqual([["A", "26.54 ± 0.21 (k = 2)"]]);
+    expect(table.rows).toEqual([["A", "26.54 ± 0.21"]]);
+    expect(table.columns.map((c) => c.label)).toEqual(["blank", "tauV (k = 2)"]);
+  });
+
+  it("keep (k = 2) in a cell when its column mixes uncertainty results with other values", async () => {
+    const { run } = await runText(
+      ts('showTable([{ v: { estimate: 1.234, expandedUncertainty: 0.05 } }, { v: "not measured" }])'),
+    );
+    expect(outputsOf(run, 0, "table")[0]!.rows).toEqual([["1.234 ± 0.050 (k = 2)"], ["not measured"]]);
   });
 });
 
