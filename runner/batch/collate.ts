@@ -8,7 +8,6 @@
  */
 import fs from "node:fs";
 import path from "node:path";
-import { parseArgs } from "node:util";
 import { batchEntry, batchResults, type BatchRecord } from "./batch-index.ts";
 import { UsageError } from "../shared/errors.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
@@ -18,6 +17,7 @@ import { renderBatchIndex } from "../report/render-index.ts";
 import { readBatchResults, resultsText, type ResultsFile } from "../report/results-file.ts";
 import { ASSETS_FOLDER } from "../report/report-file.ts";
 import { pdfPathFor } from "../report/pdf-path.ts";
+import { parseCommandWords } from "../shared/command-words.ts";
 
 /** Where collate writes its messages. */
 export interface CollateIo {
@@ -37,24 +37,16 @@ export function collateCommand(
   io: CollateIo,
   shown: (p: string) => string,
 ): ExitCode | "help" {
-  let parsed;
-  try {
-    parsed = parseArgs({
-      args: [...args],
-      allowPositionals: true,
-      strict: true,
-      options: {
-        output: { type: "string", short: "o" },
-        results: { type: "string", multiple: true },
-        quiet: { type: "boolean" },
-        help: { type: "boolean", short: "h" },
-      },
-    });
-  } catch (e) {
-    throw new UsageError(
-      `collate: ${(e as Error).message.replace(/\. To specify a positional argument.*$/s, "")}`,
-    );
-  }
+  const parsed = parseCommandWords(
+    args,
+    {
+      output: { type: "string", short: "o" },
+      results: { type: "string", multiple: true },
+      quiet: { type: "boolean" },
+      help: { type: "boolean", short: "h" },
+    },
+    "collate: ",
+  );
   if (parsed.values.help) return "help";
   const folders = parsed.positionals.map((f) => path.resolve(f));
   if (folders.length === 0)

@@ -7,11 +7,11 @@
 import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import { parseArgs } from "node:util";
 import { UsageError } from "../shared/errors.ts";
 import { EXIT, type ExitCode } from "../shared/exit-codes.ts";
 import { writeFileAtomic } from "../shared/write-atomic.ts";
 import { readCarriedSources, shellLine, type CarriedSources } from "./carried-sources.ts";
+import { parseCommandWords } from "../shared/command-words.ts";
 
 /** Runs `tristim restore`; 0 when every file was restored, 1 when some are missing from the report. */
 export function restoreCommand(
@@ -19,19 +19,7 @@ export function restoreCommand(
   io: { out: (t: string) => void; err: (t: string) => void },
   shown: (p: string) => string,
 ): ExitCode | "help" {
-  let parsed;
-  try {
-    parsed = parseArgs({
-      args: [...args],
-      allowPositionals: true,
-      strict: true,
-      options: { help: { type: "boolean", short: "h" } },
-    });
-  } catch (e) {
-    throw new UsageError(
-      `restore: ${(e as Error).message.replace(/\. To specify a positional argument.*$/s, "")}`,
-    );
-  }
+  const parsed = parseCommandWords(args, { help: { type: "boolean", short: "h" } }, "restore: ");
   if (parsed.values.help) return "help";
   if (parsed.positionals.length !== 2)
     throw new UsageError(

@@ -5,7 +5,6 @@
  */
 import fs from "node:fs";
 import path from "node:path";
-import { parseArgs } from "node:util";
 import type { Io } from "../cli/command-options.ts";
 import { NOTEBOOK_EXTENSIONS, readNotebook } from "../parse/parse-notebook.ts";
 import { NotebookError, UsageError } from "../shared/errors.ts";
@@ -16,6 +15,7 @@ import { CELL_ENTRY, cellGlobalsDeclaration, entryExportNames } from "./cell-glo
 import { mergedInputsType } from "./input-types.ts";
 import { cellCompilerOptions } from "./typecheck.ts";
 import ts from "./typescript.ts";
+import { parseCommandWords } from "../shared/command-words.ts";
 
 /** The files written, by name. */
 export const EDITOR_FILES = { globals: "tristim-globals.d.ts", tsconfig: "tsconfig.json" } as const;
@@ -25,17 +25,7 @@ const MARKER = "// Written by `tristim editor-types`";
 
 /** `tristim editor-types` with the words after the command. */
 export function editorTypesCommand(args: readonly string[], io: Io): ExitCode | "help" {
-  let parsed;
-  try {
-    parsed = parseArgs({
-      args: [...args],
-      allowPositionals: true,
-      strict: true,
-      options: { help: { type: "boolean", short: "h" } },
-    });
-  } catch (e) {
-    throw new UsageError((e as Error).message.replace(/\. To specify a positional argument.*$/s, ""));
-  }
+  const parsed = parseCommandWords(args, { help: { type: "boolean", short: "h" } });
   if (parsed.values.help) return "help";
   if (parsed.positionals.length !== 1)
     throw new UsageError(
