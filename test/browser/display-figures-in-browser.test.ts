@@ -5,13 +5,11 @@
  * legend lies below its plot area (off the data), that every figure was drawn and that the page logged no errors.
  * Screenshot: test/.artifacts/display-figures.png. Skipped, saying why, when no Chromium is installed.
  */
-import { execFile } from "node:child_process";
 import { mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
-import { promisify } from "node:util";
-import { chromium, type Browser, type Page } from "playwright-core";
+import { type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { CHROMIUM, NO_CHROMIUM } from "./chromium.ts";
+import { CHROMIUM, NO_CHROMIUM, launchChromium, reportByCli } from "./chromium.ts";
 
 const ROOT = fileURLToPath(new URL("../../", import.meta.url));
 const ARTIFACTS = ROOT + "test/.artifacts/";
@@ -45,14 +43,8 @@ describe.skipIf(!CHROMIUM)(
 
     beforeAll(async () => {
       mkdirSync(ARTIFACTS, { recursive: true });
-      await promisify(execFile)(process.execPath, [ROOT + "runner/bin.mjs", "run", NOTEBOOK, "-o", REPORT], {
-        cwd: ROOT,
-        timeout: 120_000,
-      });
-      browser = await chromium.launch({
-        executablePath: CHROMIUM,
-        args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
-      });
+      await reportByCli(NOTEBOOK, REPORT);
+      browser = await launchChromium();
       page = await browser.newPage({ viewport: { width: 1000, height: 900 } });
       page.on("console", (m) => {
         if (m.type() === "error") errors.push(m.text());

@@ -6,14 +6,12 @@
  * display gamut are marked from their fields and that a pair's ΔE00 (culori) sits under the pair. A screenshot goes to
  * test/.artifacts/. Skipped, saying why, only when no Chromium is installed.
  */
-import { execFile } from "node:child_process";
 import { existsSync, mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
-import { promisify } from "node:util";
 import Color from "colorjs.io";
 import { differenceCiede2000 } from "culori";
-import { chromium, type Browser, type Page } from "playwright-core";
-import { CHROMIUM, NO_CHROMIUM } from "./chromium.ts";
+import { type Browser, type Page } from "playwright-core";
+import { CHROMIUM, NO_CHROMIUM, launchChromium, reportByCli } from "./chromium.ts";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodeRgb, linearRgb } from "../../lib/plot/display-rgb.ts";
 import { GAMUT_TOLERANCE } from "../../lib/plot/swatch.ts";
@@ -68,14 +66,8 @@ describe.skipIf(!HAVE_CHROMIUM)(
     beforeAll(async () => {
       mkdirSync(ARTIFACTS, { recursive: true });
       // The report as a user makes it: the runner's CLI on the fixture notebook.
-      await promisify(execFile)(process.execPath, [ROOT + "runner/bin.mjs", "run", NOTEBOOK, "-o", REPORT], {
-        cwd: ROOT,
-        timeout: 120_000,
-      });
-      browser = await chromium.launch({
-        executablePath: CHROMIUM,
-        args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
-      });
+      await reportByCli(NOTEBOOK, REPORT);
+      browser = await launchChromium();
       page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
       page.on("console", (m) => {
         if (m.type() === "error") errors.push(`console: ${m.text()}`);

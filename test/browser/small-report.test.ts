@@ -4,13 +4,11 @@
  * is at most 2.2 MB, it makes no request beyond its own file, every figure is drawn with the traces its spec holds,
  * and the figures are still drawn in print. Skipped, saying why, only when no Chromium is installed.
  */
-import { execFile } from "node:child_process";
 import { mkdirSync, statSync } from "node:fs";
 import { fileURLToPath } from "node:url";
-import { promisify } from "node:util";
-import { chromium, type Browser } from "playwright-core";
+import { type Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { CHROMIUM, NO_CHROMIUM } from "./chromium.ts";
+import { CHROMIUM, NO_CHROMIUM, launchChromium, reportByCli } from "./chromium.ts";
 
 const ROOT = fileURLToPath(new URL("../../", import.meta.url));
 const ARTIFACTS = ROOT + "test/.artifacts/";
@@ -31,14 +29,8 @@ describe.skipIf(!CHROMIUM)(
     let browser: Browser;
     beforeAll(async () => {
       mkdirSync(ARTIFACTS, { recursive: true });
-      await promisify(execFile)(process.execPath, [ROOT + "runner/bin.mjs", "run", NOTEBOOK, "-o", REPORT], {
-        cwd: ROOT,
-        timeout: 120_000,
-      });
-      browser = await chromium.launch({
-        executablePath: CHROMIUM,
-        args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
-      });
+      await reportByCli(NOTEBOOK, REPORT);
+      browser = await launchChromium();
     }, 180_000);
     afterAll(async () => {
       await browser?.close();
