@@ -6,7 +6,15 @@
  */
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import ts from "typescript";
+import type {
+  FunctionDeclaration,
+  JSDocComment,
+  JSDocTag,
+  NodeArray,
+  ParameterDeclaration,
+  TypeChecker,
+} from "typescript";
+import ts from "../typecheck/typescript.ts";
 
 /** The folder of the tristim package (where lib/ and runner/ are). */
 const PACKAGE_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..", "..");
@@ -139,8 +147,8 @@ function topicRank(topic: string): number {
 
 function entryFor(
   name: string,
-  overloads: ts.FunctionDeclaration[],
-  checker: ts.TypeChecker,
+  overloads: FunctionDeclaration[],
+  checker: TypeChecker,
   root: string,
 ): ReferenceEntry {
   // The documented declaration: the first overload with a comment, else the implementation, else the first.
@@ -174,7 +182,7 @@ function entryFor(
   };
 }
 
-function signatureText(name: string, d: ts.FunctionDeclaration, checker: ts.TypeChecker): string {
+function signatureText(name: string, d: FunctionDeclaration, checker: TypeChecker): string {
   const params = d.parameters.map((p) => {
     const rest = p.dotDotDotToken ? "..." : "";
     const optional = p.questionToken || p.initializer ? "?" : "";
@@ -190,7 +198,7 @@ function signatureText(name: string, d: ts.FunctionDeclaration, checker: ts.Type
   return `${name}${generics}(${params.join(", ")}): ${squash(result)}`;
 }
 
-function typeText(p: ts.ParameterDeclaration, checker: ts.TypeChecker): string {
+function typeText(p: ParameterDeclaration, checker: TypeChecker): string {
   if (p.type) return squash(p.type.getText());
   return checker.typeToString(checker.getTypeAtLocation(p), p, FORMAT);
 }
@@ -201,16 +209,16 @@ function squash(text: string): string {
 }
 
 /** An argument is an options argument when it is named `options` or its type's name ends in `Options`. */
-function isOptionsParameter(p: ts.ParameterDeclaration): boolean {
+function isOptionsParameter(p: ParameterDeclaration): boolean {
   const name = p.name.getText();
   const type = p.type?.getText() ?? "";
   return name === "options" || /Options(<.*>)?$/.test(type);
 }
 
 function parameterFor(
-  p: ts.ParameterDeclaration,
+  p: ParameterDeclaration,
   params: ReadonlyMap<string, string>,
-  checker: ts.TypeChecker,
+  checker: TypeChecker,
 ): ReferenceParameter {
   const name = p.name.getText();
   let options: ReferenceOption[] = [];
@@ -250,13 +258,13 @@ interface DocParts {
   examples: string[];
 }
 
-function commentText(comment: string | ts.NodeArray<ts.JSDocComment> | undefined): string {
+function commentText(comment: string | NodeArray<JSDocComment> | undefined): string {
   if (comment === undefined) return "";
   if (typeof comment === "string") return comment;
   return comment.map((c) => c.text).join("");
 }
 
-function readDoc(d: ts.FunctionDeclaration): DocParts {
+function readDoc(d: FunctionDeclaration): DocParts {
   const docs = ts.getJSDocCommentsAndTags(d).filter(ts.isJSDoc);
   const doc = docs[docs.length - 1];
   const parts: DocParts = {
@@ -286,7 +294,7 @@ function readDoc(d: ts.FunctionDeclaration): DocParts {
 }
 
 /** A tag's text as written in the source, without "@tag", the parameter name and the comment's line-start stars. */
-function rawTagText(source: string, tag: ts.JSDocTag): string {
+function rawTagText(source: string, tag: JSDocTag): string {
   const raw = source
     .slice(tag.pos, tag.end)
     .replace(/\n[ \t]*\*(?!\/)[ \t]?/g, "\n")
