@@ -5,6 +5,7 @@ import { KM_PHOTOPIC } from "../colorimetry/tristimulus.ts";
 import { CIE_1931_2_DEGREE } from "../observers/standard-observer.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { checkChoice } from "../arguments/check-text.ts";
+import { readOnly } from "../data/read-only.ts";
 
 /** Km = 683 lm/W, maximum luminous efficacy for photopic vision (CIE 018:2019 §3; the SI value Kcd at 540 THz). */
 export const KM = KM_PHOTOPIC;
@@ -27,17 +28,21 @@ let scotopic: Spectrum | undefined;
 export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
   checkChoice("luminousEfficiency", "vision", vision, ["photopic", "scotopic"]);
   if (vision === "photopic") {
-    photopic ??= spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, {
-      name: "CIE photopic V(λ)",
-      quantity: "luminous efficiency",
-    });
+    photopic ??= readOnly(
+      spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, {
+        name: "CIE photopic V(λ)",
+        quantity: "luminous efficiency",
+      }),
+    );
     return photopic;
   }
   if (vision === "scotopic") {
-    scotopic ??= tableColumn(CIE_SCOTOPIC_TABLE, "V'", {
-      name: "CIE scotopic V′(λ)",
-      quantity: "luminous efficiency",
-    });
+    scotopic ??= readOnly(
+      tableColumn(CIE_SCOTOPIC_TABLE, "V'", {
+        name: "CIE scotopic V′(λ)",
+        quantity: "luminous efficiency",
+      }),
+    );
     return scotopic;
   }
   throw new Error(`luminousEfficiency: unknown vision "${String(vision)}"; use "photopic" or "scotopic"`);
