@@ -7,13 +7,10 @@
 export type InputValue =
   number | string | boolean | readonly InputValue[] | { readonly [key: string]: InputValue };
 
-const values: Record<string, InputValue> = {};
+/** The inputs of this run (read-only for cells; a new frozen object for each run the cell process serves). */
+export let inputs: Readonly<Record<string, InputValue>> = Object.freeze({});
 
-/** The inputs of this run (read-only for cells). */
-export const inputs: Readonly<Record<string, InputValue>> = values;
-
-/** Sets the inputs of the run once, before the first cell (called by the cell harness). */
+/** Sets the inputs of the run, before its first cell (called by the cell harness). */
 export function setRunInputs(given: Readonly<Record<string, InputValue>>): void {
-  Object.assign(values, given);
-  Object.freeze(values);
+  inputs = Object.freeze({ ...given });
 }

@@ -4,7 +4,7 @@
 import type { InputValue } from "./inputs.ts";
 import type { FailureKind, MethodNote, OutputRecord } from "./records.ts";
 
-/** Runner → cell process: set up the run (sent once, first). */
+/** Runner → cell process: set up a run (sent first, and again for each further run of a process handed on). */
 export interface InitMessage {
   readonly type: "init";
   readonly notebookPath: string;
@@ -23,9 +23,13 @@ export interface RunCellMessage {
   readonly importBundle?: string;
 }
 
-/** Runner → cell process: no more cells; send the method log and end. */
+/**
+ * Runner → cell process: no more cells; send the method log and end; or, with `reuse`, put the process's state
+ * back and stay for another run if it is clean (the answer's `reusable` says which).
+ */
 export interface FinishMessage {
   readonly type: "finish";
+  readonly reuse?: boolean;
 }
 
 export type ToCellProcess = InitMessage | RunCellMessage | FinishMessage;
@@ -73,6 +77,8 @@ export interface FinishedMessage {
   readonly lateError?: RawError;
   /** The cell whose timer or callback raised `lateError` (0-based), when known. */
   readonly lateErrorCell?: number;
+  /** True when the process was asked to stay for another run and is clean: it then waits for "init". */
+  readonly reusable?: boolean;
 }
 
 /** Cell process → runner: the harness itself could not start (e.g. the library threw while loading). */

@@ -15,12 +15,15 @@ import { pathToFileURL } from "node:url";
 import vm from "node:vm";
 import { CellOutput, cutErrorMessage, MAX_ERROR_MESSAGE_CHARS } from "./capture.ts";
 import { inspectValue, show } from "./display.ts";
-import { setRunInputs } from "./inputs.ts";
+import { inputs as runInputs, setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
 import type { CellRuntime, FromCellProcess, RawError, RunCellMessage, ToCellProcess } from "./protocol.ts";
 import type { FailureKind, MethodNote } from "./records.ts";
+import { readOnly } from "../lib/data/read-only.ts";
+import { restoreBaseline, takeBaseline, type ProcessBaseline } from "./run-baseline.ts";
 
 const realExit = process.exit.bind(process);
+const realStderrWrite = process.stderr.write.bind(process.stderr);
 const realSetTimeout = setTimeout;
 const realSetImmediate = setImmediate;
 const send = (message: FromCellProcess): void => {
@@ -61,6 +64,14 @@ interface WorkerState {
   callbackCell: number | null;
   /** True while a cell's import bundle loads (its reads are the runner's, not the cell's). */
   suppressReadTracking: boolean;
+  /** Which run this process serves (1 for the first; later ones when a batch hands the process on). */
+  runNumber: number;
+  /** The state recorded once the library loaded, put back between runs (run-baseline.ts). */
+  baseline: ProcessBaseline | undefined;
+  /** Timers and immediates scheduled through the globals since the run began (cleared before a reuse). */
+  timers: Set<{ readonly clear: () => void }>;
+  /** Set when a cell loaded an ES module at run time (import()): node keeps it, so the process is not handed on. */
+  loadedModules: boolean;
 }
 
 const state: WorkerState = {
@@ -77,6 +88,10 @@ const state: WorkerState = {
   lateErrorCell: undefined,
   callbackCell: null,
   suppressReadTracking: false,
+  runNumber: 0,
+  baseline: undefined,
+  timers: new Set(),
+  loadedModules: false,
 };
 
 /** How long timers left pending by the cells may still fire after the last cell (README, "When something goes wrong"). */
@@ -152,16 +167,27 @@ function raiseUncaught(error: unknown, what: string): void {
 /** Install step: timers and immediates remember the cell that scheduled them, so a late error names that cell. */
 function installTimerTracking(): void {
   const g = globalThis as unknown as Record<string, (...args: unknown[]) => unknown>;
+  const clears: Record<string, (handle: unknown) => void> = {
+    setTimeout: clearTimeout as (handle: unknown) => void,
+    setInterval: clearInterval as (handle: unknown) => void,
+    setImmediate: clearImmediate as (handle: unknown) => void,
+  };
   for (const name of ["setTimeout", "setInterval", "setImmediate"]) {
     const original = g[name]!;
+    const clear = clears[name]!;
     g[name] = function (this: unknown, callback: unknown, ...rest: unknown[]) {
       const cell = state.currentCell;
-      if (typeof callback !== "function" || cell === null) return original.call(this, callback, ...rest);
-      const tracked = function (this: unknown, ...args: unknown[]) {
-        state.callbackCell = cell;
-        return (callback as (...a: unknown[]) => unknown).apply(this, args);
-      };
-      return original.call(this, tracked, ...rest);
+      let handle: unknown;
+      if (typeof callback !== "function" || cell === null) handle = original.call(this, callback, ...rest);
+      else {
+        const tracked = function (this: unknown, ...args: unknown[]) {
+          state.callbackCell = cell;
+          return (callback as (...a: unknown[]) => unknown).apply(this, args);
+        };
+        handle = original.call(this, tracked, ...rest);
+      }
+      state.timers.add({ clear: () => clear(handle) });
+      return handle;
     };
   }
 }
@@ -285,6 +311,15 @@ function toRawError(error: unknown, failure: FailureKind): RawError {
 }
 
 // --- running a cell -------------------------------------------------------------------------------------------------
+/**
+ * The URL a run imports a cell's import bundle by: the file's URL, with the run's number after the first run, so a
+ * run in a process handed on evaluates the bundled modules afresh instead of getting the earlier run's instances.
+ */
+function runModuleUrl(file: string): string {
+  const url = pathToFileURL(file).href;
+  return state.runNumber > 1 ? `${url}?run=${state.runNumber}` : url;
+}
+
 const notebookRequire = () => createRequire(path.join(state.notebookDir, "noop.js"));
 
 /** A cell's runtime, and its `const` bindings (name, read) to freeze when it has finished. */
@@ -338,6 +373,7 @@ function runtimeFor(namespaces: Record<string, Record<string, unknown>>): CellRu
     async dynamicImport(specifier) {
       if (specifier === "tristim") return state.lib;
       if (isBuiltin(specifier)) return import(specifier);
+      state.loadedModules = true;
       if (/^\.{0,2}\//.test(specifier))
         return import(pathToFileURL(path.resolve(state.notebookDir, specifier)).href);
       try {
@@ -408,7 +444,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
       state.suppressReadTracking = true;
       try {
         namespaces = (await Promise.race([
-          import(pathToFileURL(message.importBundle).href),
+          import(runModuleUrl(message.importBundle)),
           failed,
         ])) as typeof namespaces;
       } finally {
@@ -465,8 +501,9 @@ function methodLog(): MethodNote[] {
 async function start(): Promise<void> {
   try {
     state.lib = { ...(await import("./tristim-entry.ts")) };
-    const resetMethodLog = state.lib.resetMethodLog;
-    if (typeof resetMethodLog === "function") resetMethodLog();
+    resetLibraryLog();
+    // The library's exported tables (observers, data tables) are read-only, as the cached ones it hands out are.
+    for (const value of Object.values(state.lib)) if (typeof value === "object") readOnly(value);
   } catch (e) {
     send({ type: "startup-failed", error: toRawError(e, "startup") });
     setTimeout(() => realExit(1), 50);
@@ -476,13 +513,24 @@ async function start(): Promise<void> {
   process.on("message", (message: ToCellProcess) => {
     queue = queue.then(() => handle(message));
   });
+  // Last, so that the harness's own listeners and patches belong to the baseline.
+  state.baseline = takeBaseline({ "the tristim module": state.lib });
+}
+
+function resetLibraryLog(): void {
+  const resetMethodLog = state.lib.resetMethodLog;
+  if (typeof resetMethodLog === "function") resetMethodLog();
 }
 
 async function handle(message: ToCellProcess): Promise<void> {
   if (message.type === "init") {
+    state.runNumber++;
+    if (state.runNumber > 1) resetLibraryLog();
     state.notebookPath = message.notebookPath;
     state.notebookDir = path.dirname(message.notebookPath);
     setRunInputs(message.inputs);
+    // The copy of the library's exports holds the inputs object of the run it was made in; this run has its own.
+    if ("inputs" in state.lib) state.lib.inputs = runInputs;
     for (const [name, value] of Object.entries(state.lib)) {
       Object.defineProperty(globalThis, name, {
         value,
@@ -495,20 +543,29 @@ async function handle(message: ToCellProcess): Promise<void> {
   } else if (message.type === "run") {
     await runCell(message);
   } else if (message.type === "finish") {
-    await finish();
+    await finish(message.reuse === true);
   }
 }
 
 /**
  * Finish step: let timers the cells left pending fire for up to LATE_TIMER_GRACE_MS (an error they raise counts),
- * then send the method log and any late error, and end the process.
+ * then send the method log and any late error, and end the process; or, when the runner asks to reuse it, put the
+ * process's state back (reset step) and stay, saying whether it is clean enough to serve another run.
  */
-async function finish(): Promise<void> {
+async function finish(reuse: boolean): Promise<void> {
   const until = performance.now() + LATE_TIMER_GRACE_MS;
   while (timersPending() && state.lateError === undefined && performance.now() < until)
     await new Promise((resolve) => realSetTimeout(resolve, 10));
   // One more turn, so that a rejection from the last callback is reported.
   await new Promise((resolve) => realSetImmediate(resolve));
+  if (reuse) {
+    const methods = methodLog();
+    if (await reset()) {
+      // Clean: the process stays and waits for the next run's "init".
+      send({ type: "finished", methods, reusable: true });
+      return;
+    }
+  }
   process.send?.(
     {
       type: "finished",
@@ -521,6 +578,30 @@ async function finish(): Promise<void> {
       realExit(0);
     },
   );
+}
+
+/**
+ * Reset step, between two runs that share this process: clears the timers the run left, puts the baseline back and
+ * forgets the run. True when the process is clean (run-baseline.ts); false when it must not serve another run.
+ */
+async function reset(): Promise<boolean> {
+  if (!state.baseline || state.loadedModules || state.lateError !== undefined) return false;
+  for (const timer of state.timers) timer.clear();
+  state.timers.clear();
+  // Give the cleared handles a turn to close before the active resources are counted.
+  await new Promise((resolve) => realSetImmediate(resolve));
+  const outcome = restoreBaseline(state.baseline);
+  if (process.env.TRISTIM_DEBUG && !outcome.clean)
+    realStderrWrite(`tristim cell process not reused: ${outcome.leftovers.join("; ")}\n`);
+  state.currentCell = null;
+  state.lastCell = null;
+  state.callbackCell = null;
+  state.output = new CellOutput();
+  state.reads = new Set();
+  state.writes = new Set();
+  state.lateError = undefined;
+  state.lateErrorCell = undefined;
+  return outcome.clean;
 }
 
 /** Install step: every patch of the process, made once before the library loads. */

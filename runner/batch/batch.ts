@@ -16,7 +16,7 @@ import { writeReport } from "../report/report-file.ts";
 import { makeReportFolder } from "../shared/output-path.ts";
 import { renderBatchIndex } from "../report/render-index.ts";
 import { reportTitle } from "../report/render-report.ts";
-import { runDocument } from "../execute/run-notebook.ts";
+import { runDocument, sharedRunParts, type SharedRunParts } from "../execute/run-notebook.ts";
 import { runExitCode } from "../records/run-outcome.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { toolVersion } from "../shared/tool-version.ts";
@@ -63,6 +63,8 @@ export interface BatchOptions {
   readonly cwd: string;
   /** Print each report to <report>.pdf as well (--pdf). */
   readonly pdf?: boolean;
+  /** Start a new cell process for every run instead of handing a clean one on (--fresh-process). */
+  readonly freshProcess?: boolean;
   /** Called once the batch's runs are known, with their number (for a progress line). */
   readonly onStart?: (count: number) => void;
   /** Called after each run (for the terminal); `report` is absent and `error` set when the report could not be written. */
@@ -142,9 +144,12 @@ export async function runBatch(
   const notebookDir = path.dirname(document.path);
   let exit: ExitCode = EXIT.ok;
   const entries: BatchEntry[] = [];
-  // Runs go `jobs` at a time, each in a cell process of its own (a spare one is readied for the next run while a
-  // run goes on); their results are taken strictly in the order of the files, so the messages, the index and every
-  // report are those of a run one at a time.
+  // Runs go `jobs` at a time. The cells are compiled once for all of them. Each run gets a cell process that is
+  // new or was left clean by an earlier run (with --fresh-process always a new one, a spare readied for the next
+  // run while a run goes on). Their results are taken strictly in the order of the files, so the messages, the
+  // index and every report are those of a run one at a time.
+  const share = options.freshProcess !== true;
+  let shared: SharedRunParts | undefined;
   const finished: (BatchRunResult | undefined)[] = files.map(() => undefined);
   let taken = 0;
   const takeInOrder = () => {
@@ -184,7 +189,9 @@ export async function runBatch(
         position: slice.start + i + 1,
         count: allFiles.length,
       },
-      prepareNext: i + 1 < files.length,
+      prepareNext: !share && i + 1 < files.length,
+      shareProcess: share,
+      shared,
     });
     const name = names.get(file)!;
     let report: string | undefined = name;
@@ -228,8 +235,10 @@ export async function runBatch(
   const jobs = Math.max(1, Math.min(options.jobs ?? 1, Math.max(1, files.length)));
   options.onStart?.(files.length);
   try {
+    if (files.length > 0) shared = await sharedRunParts(document);
     await Promise.all(Array.from({ length: jobs }, worker));
   } finally {
+    shared?.dispose();
     if (options.pdf) await (await import("../report/pdf.ts")).closePdfPrinter();
   }
   if (failure) throw failure.error;

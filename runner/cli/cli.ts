@@ -179,6 +179,7 @@ export function parseOptions(
         shard: { type: "string" },
         results: { type: "string", multiple: true },
         pdf: { type: "boolean" },
+        "fresh-process": { type: "boolean" },
         help: { type: "boolean", short: "h" },
       },
     });
@@ -225,6 +226,10 @@ export function parseOptions(
   if (v.results !== undefined && command !== "run")
     throw new UsageError("--results is an option of run, not of watch");
   if (v.pdf && command !== "run") throw new UsageError("--pdf is an option of run, not of watch");
+  if (v["fresh-process"] && command !== "run")
+    throw new UsageError(
+      "--fresh-process is an option of run (watch starts a new cell process for each run)",
+    );
   for (const file of v.results ?? []) {
     if (!/\.(json|csv)$/i.test(file))
       throw new UsageError(
@@ -266,6 +271,7 @@ export function parseOptions(
       ...(shard ? { shard } : {}),
       ...(v.results?.length ? { results: v.results.map((f) => path.resolve(f)) } : {}),
       ...(v.pdf ? { pdf: true } : {}),
+      ...(v["fresh-process"] ? { freshProcess: true } : {}),
     },
   };
 }
@@ -350,6 +356,7 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
         timeLimitMs: options.timeLimitMs,
         keepGoing: options.keepGoing,
         reproducible: options.reproducible,
+        shareProcess: options.freshProcess !== true,
       });
       const target = reportPathFor(document.path, options.output, several);
       const read = clashingFile(target, readByCells(run));

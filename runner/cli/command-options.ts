@@ -32,4 +32,6 @@ export interface CommandOptions {
   readonly results?: readonly string[];
   /** Also print each report to <report>.pdf through headless Chromium (--pdf). */
   readonly pdf?: boolean;
+  /** Start a new cell process for every run (--fresh-process), instead of handing a clean one on to the next run. */
+  readonly freshProcess?: boolean;
 }

@@ -51,9 +51,14 @@ Options for run:
                            The exit code is the worst over the runs.
   --typecheck              type-check the cells first; do not run a notebook with type errors
   --jobs <n>               how many runs go at the same time, of several notebooks or of --each
-                           (default: the number of cores); each run has its own cell process, and the
-                           output is the same as one at a time (reports, index and messages in order);
-                           on a terminal a progress line shows runs done, failures and time left
+                           (default: the number of cores); the output is the same as one at a time
+                           (reports, index and messages in order); on a terminal a progress line
+                           shows runs done, failures and time left
+  --fresh-process          start a new cell process for every run. By default a run whose cells left
+                           the process clean hands it on to the next run of a notebook in the same
+                           folder, after putting back what the run changed (globals, built-ins,
+                           environment, working folder); a run that leaves a server, socket, child
+                           process or import() module behind never hands its process on
   --shard <k>/<n>          with --each: run only the k-th of n slices of the data files (in their
                            order), e.g. one per array job; merge the folders with tristim collate
   --results <file>         also write the results as data: <file>.json holds every run's cells,

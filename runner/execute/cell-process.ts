@@ -44,9 +44,90 @@ export type CellOutcome =
   | { readonly kind: "crash"; readonly durationMs: number; readonly detail: string }
   | { readonly kind: "out-of-memory"; readonly durationMs: number; readonly limitMb: number };
 
-/** The cell process of a run, or of part of a run after a restart. */
+/** How many runs one cell process may serve before it is replaced (each run's import bundles stay loaded in it). */
+export const RUNS_PER_PROCESS = 100;
+/** How many clean processes may wait for runs of one folder. */
+const IDLE_LIMIT = 4;
+
+/**
+ * A run's hold on a cell process: the cell process of a run, or of part of a run after a restart. When the run
+ * finishes with `reuse` and the process is clean, the process goes back to the idle pool for the next run of the
+ * same folder and this hold is void (its `kill` then does nothing, `alive` is false), so a late call from the
+ * finished run can never touch the next run's process.
+ */
 export class CellProcess {
+  private released = false;
+
+  private constructor(private readonly host: ProcessHost) {}
+
+  /** Receives the records of running cells (set by whoever runs the cells). */
+  set onOutput(receive: (cell: number, records: readonly OutputRecord[]) => void) {
+    if (!this.released) this.host.onOutput = receive;
+  }
+
+  /** Starts a cell process (or takes an idle one for the folder) and waits until it is ready for this run. */
+  static async start(
+    runtime: RuntimeBundle,
+    notebookPath: string,
+    inputs: Readonly<Record<string, InputValue>>,
+    signal?: AbortSignal,
+  ): Promise<CellProcess> {
+    return new CellProcess(await ProcessHost.start(runtime, notebookPath, inputs, signal));
+  }
+
+  /** See ProcessHost.prepare. */
+  static prepare(runtime: RuntimeBundle, folder: string): void {
+    ProcessHost.prepare(runtime, folder);
+  }
+
+  /** Stops the idle cell processes waiting for notebooks in `folder` (watch mode, when it stops). */
+  static discardSpare(folder: string): void {
+    ProcessHost.discardSpare(folder);
+  }
+
+  /** Runs one compiled cell with a time limit. */
+  run(
+    message: Extract<ToCellProcess, { type: "run" }>,
+    timeLimitMs: number,
+    signal?: AbortSignal,
+  ): Promise<CellOutcome> {
+    if (this.released) throw new Error("internal: a released cell process was asked to run a cell");
+    return this.host.run(message, timeLimitMs, signal);
+  }
+
+  /**
+   * Asks for the method log and ends the process; with `reuse`, a process that comes back clean (cells/run-
+   * baseline.ts) is handed to the idle pool instead, and this hold is released. Undefined when it does not answer.
+   */
+  async finish(
+    options: { readonly reuse?: boolean } = {},
+  ): Promise<Extract<FromCellProcess, { type: "finished" }> | undefined> {
+    if (this.released) return undefined;
+    const reuse = options.reuse === true && this.host.runs < RUNS_PER_PROCESS;
+    const finished = await this.host.finish(reuse);
+    if (finished?.reusable && this.host.alive) {
+      this.released = true;
+      this.host.offer();
+    } else this.host.kill();
+    return finished;
+  }
+
+  /** Stops the process at once (nothing once the process was handed on). */
+  kill(): void {
+    if (!this.released) this.host.kill();
+  }
+
+  /** False once the process has exited, been told to stop, or been handed on. */
+  get alive(): boolean {
+    return !this.released && this.host.alive;
+  }
+}
+
+/** One child Node process running the cell harness, over one or several runs. */
+class ProcessHost {
   private readonly child: ChildProcess;
+  /** How many runs this process has been started for ("init" messages sent). */
+  runs = 0;
   private exited = false;
   private killed = false;
   private groupEnded = false;
@@ -59,7 +140,10 @@ export class CellProcess {
   /** Receives the records of running cells (set by whoever runs the cells). */
   onOutput: (cell: number, records: readonly OutputRecord[]) => void = () => undefined;
 
+  private readonly key: string;
+
   private constructor(runtime: RuntimeBundle, folder: string) {
+    this.key = spareKey(runtime, folder);
     this.child = spawn(process.execPath, [`--max-old-space-size=${this.limitMb}`, runtime.worker], {
       cwd: folder,
       stdio: ["ignore", "pipe", "pipe", "ipc"],
@@ -93,15 +177,16 @@ export class CellProcess {
     });
   }
 
-  /** Starts a cell process and waits until the library is loaded and the inputs are set. */
+  /** Starts a cell process (or takes an idle one) and waits until the library is loaded and the inputs are set. */
   static async start(
     runtime: RuntimeBundle,
     notebookPath: string,
     inputs: Readonly<Record<string, InputValue>>,
     signal?: AbortSignal,
-  ): Promise<CellProcess> {
+  ): Promise<ProcessHost> {
     const cell =
-      takeSpare(runtime, path.dirname(notebookPath)) ?? new CellProcess(runtime, path.dirname(notebookPath));
+      takeSpare(runtime, path.dirname(notebookPath)) ?? new ProcessHost(runtime, path.dirname(notebookPath));
+    cell.runs++;
     cell.send({ type: "init", notebookPath, inputs });
     const answer = await cell.wait(
       (m) => m.type === "ready" || m.type === "startup-failed",
@@ -125,24 +210,35 @@ export class CellProcess {
   }
 
   /**
-   * Starts a spare cell process for notebooks in `folder` ahead of time: node boots and loads the library while the
-   * runner does other work, and the next `start` for that folder takes it (it has run nothing, so each run still
-   * gets a process of its own). A spare does not keep the runner alive and dies with it.
+   * Starts a spare cell process for notebooks in `folder` ahead of time, unless one is idle already: node boots and
+   * loads the library while the runner does other work, and the next `start` for that folder takes it. An idle
+   * process does not keep the runner alive and dies with it.
    */
   static prepare(runtime: RuntimeBundle, folder: string): void {
-    const key = spareKey(runtime, folder);
-    const waiting = spares().get(key);
-    if (waiting?.alive) return;
-    const cell = new CellProcess(runtime, folder);
+    const idle = idleFor(spareKey(runtime, folder));
+    if (idle.some((host) => host.alive)) return;
+    const cell = new ProcessHost(runtime, folder);
     cell.setHeld(false);
-    spares().set(key, cell);
+    idle.push(cell);
   }
 
-  /** Stops the spare cell process waiting for notebooks in `folder`, if any (watch mode, when it stops). */
+  /** Stops the idle cell processes waiting for notebooks in `folder` (watch mode, when it stops). */
   static discardSpare(folder: string): void {
-    for (const [key, cell] of spares()) {
-      if (key.endsWith(`\0${path.resolve(folder)}`)) (cell.kill(), spares().delete(key));
+    for (const [key, idle] of spares()) {
+      if (key.endsWith(`\0${path.resolve(folder)}`)) {
+        for (const host of idle) host.kill();
+        spares().delete(key);
+      }
     }
+  }
+
+  /** Puts this clean, finished process in the idle pool of its folder (or stops it when the pool is full). */
+  offer(): void {
+    const idle = idleFor(this.key);
+    if (idle.filter((host) => host.alive).length >= IDLE_LIMIT) return this.kill();
+    this.onOutput = () => undefined;
+    this.setHeld(false);
+    idle.push(this);
   }
 
   /** Keeps the runner's event loop alive for this process (or not, while it waits as a spare); for this module. */
@@ -183,12 +279,14 @@ export class CellProcess {
     };
   }
 
-  /** Asks for the method log and lets the process end; undefined when it does not answer in time. */
-  async finish(): Promise<Extract<FromCellProcess, { type: "finished" }> | undefined> {
+  /**
+   * Asks for the method log; undefined when it does not answer in time. Without `reuse` the process then ends (the
+   * caller kills it in any case unless the answer says `reusable`).
+   */
+  async finish(reuse: boolean): Promise<Extract<FromCellProcess, { type: "finished" }> | undefined> {
     if (this.exited) return undefined;
-    this.send({ type: "finish" });
+    this.send({ type: "finish", ...(reuse ? { reuse } : {}) });
     const answer = await this.wait((m) => m.type === "finished", FINISH_LIMIT_MS);
-    this.kill();
     return typeof answer === "object"
       ? (answer as Extract<FromCellProcess, { type: "finished" }>)
       : undefined;
@@ -278,37 +376,45 @@ export class CellProcess {
 }
 
 /** Cell processes whose groups may still have members; ended if the runner itself exits. */
-const liveGroups = new Set<CellProcess>();
+const liveGroups = new Set<ProcessHost>();
 process.on("exit", () => {
   for (const group of liveGroups) group.endGroup();
 });
 
-/** The spare cell processes of this runner process, by worker and folder (shared by every copy of this module). */
-function spares(): Map<string, CellProcess> {
+/** The idle cell processes of this runner process, by worker and folder (shared by every copy of this module). */
+function spares(): Map<string, ProcessHost[]> {
   const registry = globalThis as Record<symbol, unknown>;
-  const key = Symbol.for("tristim.spare-cell-processes");
+  const key = Symbol.for("tristim.idle-cell-processes");
   if (!registry[key]) {
-    const pool = new Map<string, CellProcess>();
+    const pool = new Map<string, ProcessHost[]>();
     registry[key] = pool;
     process.once("exit", () => {
-      for (const cell of pool.values()) cell.kill();
+      for (const idle of pool.values()) for (const cell of idle) cell.kill();
     });
   }
-  return registry[key] as Map<string, CellProcess>;
+  return registry[key] as Map<string, ProcessHost[]>;
+}
+
+/** The idle processes for one key (a list kept in the pool). */
+function idleFor(key: string): ProcessHost[] {
+  let idle = spares().get(key);
+  if (!idle) spares().set(key, (idle = []));
+  return idle;
 }
 
 function spareKey(runtime: RuntimeBundle, folder: string): string {
   return `${runtime.worker}\0${path.resolve(folder)}`;
 }
 
-/** Takes the spare for `folder` if one is waiting and alive. */
-function takeSpare(runtime: RuntimeBundle, folder: string): CellProcess | undefined {
-  const key = spareKey(runtime, folder);
-  const cell = spares().get(key);
-  spares().delete(key);
-  if (!cell?.alive) return undefined;
-  cell.setHeld(true);
-  return cell;
+/** Takes an idle process for `folder` if one is waiting and alive (the one that went idle last). */
+function takeSpare(runtime: RuntimeBundle, folder: string): ProcessHost | undefined {
+  const idle = idleFor(spareKey(runtime, folder));
+  for (let cell = idle.pop(); cell; cell = idle.pop()) {
+    if (!cell.alive) continue;
+    cell.setHeld(true);
+    return cell;
+  }
+  return undefined;
 }
 
 /** The cell process could not start (the library threw while loading, or the process died). */

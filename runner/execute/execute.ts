@@ -28,6 +28,8 @@ export interface ExecuteOptions {
   readonly onCell?: (run: CellRun) => void;
   /** A cell process started while the cells were compiled (saves its start-up time); used for the first cell. */
   readonly started?: Promise<CellProcess>;
+  /** Hand the cell process on to a later run when it finishes clean (CellProcess.finish). */
+  readonly reuseProcess?: boolean;
 }
 
 /** What execution produced. */
@@ -177,7 +179,7 @@ export class ExecutionState {
    */
   async finish(): Promise<void> {
     if (this.process?.alive) {
-      const finished = await this.process.finish();
+      const finished = await this.process.finish({ reuse: this.options.reuseProcess === true });
       if (finished) {
         this.noteMethods(finished.methods);
         const late = finished.lateErrorCell ?? this.lastRan;

@@ -13,7 +13,7 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import type { BatchPlace, FileRead, RunRecord } from "../records/run-record.ts";
 import type { CompiledCell } from "../compile/compile-cell.ts";
 import type { OutputRecord } from "../../cells/records.ts";
-import { cacheRoot, runtimeBundle } from "./runtime-bundle.ts";
+import { cacheRoot, runtimeBundle, type RuntimeBundle } from "./runtime-bundle.ts";
 import type { CellRun } from "../records/run-record.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
 import { toolVersion } from "../shared/tool-version.ts";
@@ -43,6 +43,39 @@ export interface RunOptions {
    * spare one is started and loads the library while this run goes on (see CellProcess.prepare).
    */
   readonly prepareNext?: boolean;
+  /**
+   * Hand the cell process on when the run leaves it clean (see CellProcess.finish), so the next run of a notebook
+   * in the same folder skips node's start and the library's loading.
+   */
+  readonly shareProcess?: boolean;
+  /** The runtime and compiled cells shared by the runs of a batch (sharedRunParts); the run compiles when absent. */
+  readonly shared?: SharedRunParts;
+}
+
+/**
+ * What every run of one notebook in a batch has in common: the runtime and the compiled cells (compiling depends on
+ * the cells alone, not on the inputs), with the folder of the cells' import bundles, kept until `dispose`.
+ */
+export interface SharedRunParts {
+  readonly runtime: RuntimeBundle;
+  readonly outDir: string;
+  readonly compiled: Promise<(CompiledCell | undefined)[]>;
+  dispose(): void;
+}
+
+/** Compiles a notebook's cells once for the runs of a batch. */
+export async function sharedRunParts(document: NotebookDocument): Promise<SharedRunParts> {
+  const runtime = await runtimeBundle();
+  const outDir = runFolder();
+  const compiled = compileCells({ document, tristimModule: runtime.tristim, outDir });
+  compiled.catch(() => undefined);
+  return { runtime, outDir, compiled, dispose: () => fs.rmSync(outDir, { recursive: true, force: true }) };
+}
+
+/** A new folder for a run's (or a batch's) import bundles, under the cache root. */
+function runFolder(): string {
+  fs.mkdirSync(path.join(cacheRoot(), "runs"), { recursive: true });
+  return fs.mkdtempSync(path.join(cacheRoot(), "runs", `${process.pid}-`));
 }
 
 /** Runs every cell of a parsed notebook and returns the record of the run. */
@@ -56,9 +89,9 @@ export async function runDocument(document: NotebookDocument, options: RunOption
   );
   const timeLimitMs = options.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS;
   const keepGoing = options.keepGoing ?? false;
-  const runtime = await runtimeBundle();
-  fs.mkdirSync(path.join(cacheRoot(), "runs"), { recursive: true });
-  const outDir = fs.mkdtempSync(path.join(cacheRoot(), "runs", `${process.pid}-`));
+  const { shared } = options;
+  const runtime = shared?.runtime ?? (await runtimeBundle());
+  const outDir = shared?.outDir ?? runFolder();
   // Start the cell process (node, library) while esbuild compiles the cells.
   const early = document.cells.some((c) => !c.options.noRun)
     ? CellProcess.start(runtime, document.path, inputs, options.signal)
@@ -66,7 +99,8 @@ export async function runDocument(document: NotebookDocument, options: RunOption
   early?.catch(() => undefined);
   if (options.prepareNext) CellProcess.prepare(runtime, path.dirname(document.path));
   try {
-    const compiled = await compileCells({ document, tristimModule: runtime.tristim, outDir });
+    const compiled = await (shared?.compiled ??
+      compileCells({ document, tristimModule: runtime.tristim, outDir }));
     const execution = await executeCells(document, compiled, runtime, {
       timeLimitMs,
       keepGoing,
@@ -74,6 +108,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       signal: options.signal,
       onCell: options.onCell,
       started: early,
+      reuseProcess: options.shareProcess === true,
     });
     const cells = execution.cells.map((c) => withoutTemporaryPaths(c, outDir));
     return {
@@ -102,7 +137,7 @@ export async function runDocument(document: NotebookDocument, options: RunOption
       (p) => p.kill(),
       () => undefined,
     );
-    fs.rmSync(outDir, { recursive: true, force: true });
+    if (!shared) fs.rmSync(outDir, { recursive: true, force: true });
   }
 }
 
