@@ -44,12 +44,13 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
-// The last two notes recorded or found recorded: a loop that notes the same one or two conditions on every call
-// (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) costs a few compares.
-let lastTopic: string | undefined;
-let lastStatement: string | undefined;
-let previousTopic: string | undefined;
-let previousStatement: string | undefined;
+// The last few distinct notes recorded or found recorded: a loop that notes the same few conditions on every call
+// (sRGB → XYZ → CIELAB → ΔE notes the RGB space, CIELAB and the ΔE formula) answers from here with a few compares
+// and no writes. Each entry was checked when it came in, so a note equal to one is neither checked nor looked up.
+const RECENT = 4;
+const recentTopics: (string | undefined)[] = [undefined, undefined, undefined, undefined];
+const recentStatements: (string | undefined)[] = [undefined, undefined, undefined, undefined];
+let recentNext = 0;
 
 /**
  * Notes that a computation used a condition, for the report's Methods section; repeated notes are kept once, in first-use order.
@@ -62,22 +63,18 @@ let previousStatement: string | undefined;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  // The fast paths first: a note equal to the last or the one before was checked when it was recorded, so a loop
-  // alternating two notes (sRGB → XYZ → CIELAB) neither checks nor looks up anything.
-  if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
-  if (statement === previousStatement && topic === previousTopic) {
-    previousTopic = lastTopic;
-    previousStatement = lastStatement;
-    lastTopic = topic;
-    lastStatement = statement;
-    return;
-  }
+  // Kept this small so that it inlines into the conversions' loops; a note not among the recent ones goes on.
+  if (silentDepth > 0) return;
+  for (let i = 0; i < RECENT; i++) if (recentStatements[i] === statement && recentTopics[i] === topic) return;
+  recordNote(topic, statement);
+}
+
+function recordNote(topic: MethodTopic, statement: string): void {
   checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
   checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
-  previousTopic = lastTopic;
-  previousStatement = lastStatement;
-  lastTopic = topic;
-  lastStatement = statement;
+  recentTopics[recentNext] = topic;
+  recentStatements[recentNext] = statement;
+  recentNext = (recentNext + 1) % RECENT;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -154,5 +151,7 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
-  lastTopic = lastStatement = previousTopic = previousStatement = undefined;
+  recentTopics.fill(undefined);
+  recentStatements.fill(undefined);
+  recentNext = 0;
 }
