@@ -22,8 +22,9 @@ const KAPPA_SLOPE = 841 / 108; // (1/3)(29/6)²
 function f(t: number): number {
   return t > EPSILON ? Math.cbrt(t) : KAPPA_SLOPE * t + 16 / 116;
 }
+// u·u·u rather than u ** 3: V8 runs ** as a general power, several times the cost of two products (within 1 ε).
 function fInverse(u: number): number {
-  return u > 24 / 116 ? u ** 3 : (u - 16 / 116) / KAPPA_SLOPE;
+  return u > 24 / 116 ? u * u * u : (u - 16 / 116) / KAPPA_SLOPE;
 }
 
 function requireWhite(white: Tristimulus, what: string): void {
