@@ -48,15 +48,18 @@ function random(seed: number): () => number {
   };
 }
 
+// Every workload's sum ends here, so that no loop's result is unused.
+let sink = 0;
+
 /** Times two workloads alternately, each going first in turn (after one warm-up each); median times in ms. */
 function timePair(ours: () => number, theirs: () => number): [number, number] {
-  ours();
-  theirs();
+  sink += ours();
+  sink += theirs();
   const a: number[] = [],
     b: number[] = [];
   const once = (f: () => number, into: number[]) => {
     const t0 = performance.now();
-    f();
+    sink += f();
     into.push(performance.now() - t0);
   };
   for (let i = 0; i < REPEATS; i++) {
@@ -307,6 +310,7 @@ const bench: Bench = {
         note: `${ours.toFixed(0)} ms against ${theirs.toFixed(0)} ms; mean |difference| ${w.agreement().toExponential(1)}`,
       });
     }
+    if (!Number.isFinite(sink)) throw new Error(`a workload's sum is not finite (${sink})`);
     return results;
   },
 };
