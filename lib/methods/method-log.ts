@@ -44,12 +44,18 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
-// The last few distinct notes recorded or found recorded: a loop that notes the same few conditions on every call
-// (sRGB → XYZ → CIELAB → ΔE notes the RGB space, CIELAB and the ΔE formula) answers from here with a few compares
-// and no writes. Each entry was checked when it came in, so a note equal to one is neither checked nor looked up.
-const RECENT = 4;
-const recentTopics: (string | undefined)[] = [undefined, undefined, undefined, undefined];
-const recentStatements: (string | undefined)[] = [undefined, undefined, undefined, undefined];
+// The last two distinct notes recorded or found recorded, newest first: a loop that notes the same one or two
+// conditions on every call (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) answers with a few compares and no
+// writes, in code small enough to inline into the loop. Behind them the last eight distinct notes, looked through
+// out of line: a loop of three or more conditions costs a short scan, not the checks and two hash lookups. Each
+// entry was checked when it came in, so a note equal to one is neither checked nor looked up.
+let newestTopic: string | undefined;
+let newestStatement: string | undefined;
+let olderTopic: string | undefined;
+let olderStatement: string | undefined;
+const RECENT = 8;
+const recentTopics: (string | undefined)[] = new Array<string | undefined>(RECENT).fill(undefined);
+const recentStatements: (string | undefined)[] = new Array<string | undefined>(RECENT).fill(undefined);
 let recentNext = 0;
 
 /**
@@ -63,18 +69,29 @@ let recentNext = 0;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  // Kept this small so that it inlines into the conversions' loops; a note not among the recent ones goes on.
   if (silentDepth > 0) return;
-  for (let i = 0; i < RECENT; i++) if (recentStatements[i] === statement && recentTopics[i] === topic) return;
-  recordNote(topic, statement);
+  if (statement === newestStatement && topic === newestTopic) return;
+  if (statement === olderStatement && topic === olderTopic) return;
+  noteNotNewest(topic, statement);
 }
 
-function recordNote(topic: MethodTopic, statement: string): void {
-  checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
-  checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
-  recentTopics[recentNext] = topic;
-  recentStatements[recentNext] = statement;
-  recentNext = (recentNext + 1) % RECENT;
+/** A note that is neither of the newest two: found among the recent ones, or checked and recorded. */
+function noteNotNewest(topic: MethodTopic, statement: string): void {
+  let found = false;
+  for (let i = 0; i < RECENT && !found; i++)
+    found = recentStatements[i] === statement && recentTopics[i] === topic;
+  if (!found) {
+    checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
+    checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
+    recentTopics[recentNext] = topic;
+    recentStatements[recentNext] = statement;
+    recentNext = (recentNext + 1) % RECENT;
+  }
+  olderTopic = newestTopic;
+  olderStatement = newestStatement;
+  newestTopic = topic;
+  newestStatement = statement;
+  if (found) return;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -151,6 +168,7 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
+  newestTopic = newestStatement = olderTopic = olderStatement = undefined;
   recentTopics.fill(undefined);
   recentStatements.fill(undefined);
   recentNext = 0;

@@ -117,9 +117,10 @@ describe("method notes once per condition", () => {
     expect(methodsUsed().map((n) => n.statement)).toEqual(["B was done."]);
   });
 
-  it("more notes cycling in a loop than the log keeps at hand (six): each kept once, in first-use order", () => {
+  it("three, then more notes cycling in a loop than the log keeps at hand (ten): each kept once, in first-use order", () => {
     resetMethodLog();
-    const notes = ["A", "B", "C", "D", "E", "F"].map((x) => `${x} was done.`);
+    const notes = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J"].map((x) => `${x} was done.`);
+    for (let i = 0; i < 5; i++) for (const n of notes.slice(0, 3)) noteMethod("other", n);
     for (let i = 0; i < 5; i++) for (const n of notes) noteMethod("other", n);
     for (let i = 0; i < 5; i++) for (const n of notes.slice(0, 3)) noteMethod("gamut", n);
     expect(methodsUsed()).toEqual([
