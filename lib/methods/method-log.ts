@@ -44,12 +44,19 @@ const order: MethodNote[] = [];
 const seen = new Map<string, Set<string>>();
 // How many withoutMethodNotes calls are running: while above zero, noteMethod records nothing.
 let silentDepth = 0;
-// The last two notes recorded or found recorded: a loop that notes the same one or two conditions on every call
-// (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) costs a few compares.
-let lastTopic: string | undefined;
-let lastStatement: string | undefined;
-let previousTopic: string | undefined;
-let previousStatement: string | undefined;
+// The last two distinct notes recorded or found recorded, newest first: a loop that notes the same one or two
+// conditions on every call (sRGB → XYZ → CIELAB notes the RGB space, then CIELAB) answers with a few compares and no
+// writes, in code small enough to inline into the loop. Behind them the last eight distinct notes, looked through
+// out of line: a loop of three or more conditions costs a short scan, not the checks and two hash lookups. Each
+// entry was checked when it came in, so a note equal to one is neither checked nor looked up.
+let newestTopic: string | undefined;
+let newestStatement: string | undefined;
+let olderTopic: string | undefined;
+let olderStatement: string | undefined;
+const RECENT = 8;
+const recentTopics: (string | undefined)[] = new Array<string | undefined>(RECENT).fill(undefined);
+const recentStatements: (string | undefined)[] = new Array<string | undefined>(RECENT).fill(undefined);
+let recentNext = 0;
 
 /**
  * Notes that a computation used a condition, for the report's Methods section; repeated notes are kept once, in first-use order.
@@ -62,22 +69,29 @@ let previousStatement: string | undefined;
  * @example noteMethod("other", "Invented samples were measured twice and averaged.")
  */
 export function noteMethod(topic: MethodTopic, statement: string): void {
-  // The fast paths first: a note equal to the last or the one before was checked when it was recorded, so a loop
-  // alternating two notes (sRGB → XYZ → CIELAB) neither checks nor looks up anything.
-  if (silentDepth > 0 || (statement === lastStatement && topic === lastTopic)) return;
-  if (statement === previousStatement && topic === previousTopic) {
-    previousTopic = lastTopic;
-    previousStatement = lastStatement;
-    lastTopic = topic;
-    lastStatement = statement;
-    return;
+  if (silentDepth > 0) return;
+  if (statement === newestStatement && topic === newestTopic) return;
+  if (statement === olderStatement && topic === olderTopic) return;
+  noteNotNewest(topic, statement);
+}
+
+/** A note that is neither of the newest two: found among the recent ones, or checked and recorded. */
+function noteNotNewest(topic: MethodTopic, statement: string): void {
+  let found = false;
+  for (let i = 0; i < RECENT && !found; i++)
+    found = recentStatements[i] === statement && recentTopics[i] === topic;
+  if (!found) {
+    checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
+    checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
+    recentTopics[recentNext] = topic;
+    recentStatements[recentNext] = statement;
+    recentNext = (recentNext + 1) % RECENT;
   }
-  checkChoice("noteMethod", "topic", topic, METHOD_TOPICS);
-  checkString("noteMethod", "statement", statement, { what: "a sentence for the Methods section" });
-  previousTopic = lastTopic;
-  previousStatement = lastStatement;
-  lastTopic = topic;
-  lastStatement = statement;
+  olderTopic = newestTopic;
+  olderStatement = newestStatement;
+  newestTopic = topic;
+  newestStatement = statement;
+  if (found) return;
   let statements = seen.get(topic);
   if (statements === undefined) {
     statements = new Set();
@@ -154,5 +168,8 @@ export function methodsUsed(): MethodNote[] {
 export function resetMethodLog(): void {
   order.length = 0;
   seen.clear();
-  lastTopic = lastStatement = previousTopic = previousStatement = undefined;
+  newestTopic = newestStatement = olderTopic = olderStatement = undefined;
+  recentTopics.fill(undefined);
+  recentStatements.fill(undefined);
+  recentNext = 0;
 }

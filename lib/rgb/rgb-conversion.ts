@@ -32,6 +32,34 @@ const statements = new WeakMap<RgbSpace, { encoded?: string; linear?: string }>(
 // The default options, shared (an object literal as default would be allocated on every call).
 const NO_OPTIONS: { readonly encode?: boolean; readonly decode?: boolean } = Object.freeze({});
 
+// The common case of each argument check, written out here so that it inlines into a cell's loop: the shared checks
+// (checkFields, checkRgbSpace) see every shape the library checks, and there their field reads and the call of the
+// shape's test are slow polymorphic operations that cost more than the conversion. Each test accepts exactly what
+// the shared check accepts; anything else goes to the shared check, which throws naming what is wrong.
+function isPlainXyz(v: Tristimulus): boolean {
+  return (
+    typeof v === "object" &&
+    v !== null &&
+    Number.isFinite(v.X) &&
+    Number.isFinite(v.Y) &&
+    Number.isFinite(v.Z) &&
+    !Array.isArray(v)
+  );
+}
+function isPlainRgb(v: Rgb): boolean {
+  return (
+    typeof v === "object" &&
+    v !== null &&
+    Number.isFinite(v.r) &&
+    Number.isFinite(v.g) &&
+    Number.isFinite(v.b) &&
+    !Array.isArray(v)
+  );
+}
+function isSpace(v: RgbSpace): boolean {
+  return typeof v === "object" && v !== null && v.kind === "rgb space";
+}
+
 let lastSpace: RgbSpace | undefined;
 let lastStatements: { encoded?: string; linear?: string } = {};
 
@@ -64,8 +92,8 @@ export function rgbFromXYZ(
   space: RgbSpace,
   options: { encode?: boolean } = NO_OPTIONS,
 ): Rgb {
-  checkFields("rgbFromXYZ", "xyz", xyz, XYZ_FIELDS);
-  checkRgbSpace("rgbFromXYZ", "space", space);
+  if (!isPlainXyz(xyz)) checkFields("rgbFromXYZ", "xyz", xyz, XYZ_FIELDS);
+  if (!isSpace(space)) checkRgbSpace("rgbFromXYZ", "space", space);
   if (options !== NO_OPTIONS) checkOptions("rgbFromXYZ", "options", options, ["encode"]);
   const s = xyzScale(space);
   const m = space.fromXYZ;
@@ -100,8 +128,8 @@ export function xyzFromRgb(
   space: RgbSpace,
   options: { decode?: boolean } = NO_OPTIONS,
 ): Tristimulus {
-  checkFields("xyzFromRgb", "rgb", rgb, RGB_FIELDS);
-  checkRgbSpace("xyzFromRgb", "space", space);
+  if (!isPlainRgb(rgb)) checkFields("xyzFromRgb", "rgb", rgb, RGB_FIELDS);
+  if (!isSpace(space)) checkRgbSpace("xyzFromRgb", "space", space);
   if (options !== NO_OPTIONS) checkOptions("xyzFromRgb", "options", options, ["decode"]);
   const decode = options.decode ?? true;
   noteSpace(space, decode);

@@ -116,4 +116,51 @@ describe("method notes once per condition", () => {
     noteMethod("colour space", "B was done.");
     expect(methodsUsed().map((n) => n.statement)).toEqual(["B was done."]);
   });
+
+  it("three, then more notes cycling in a loop than the log keeps at hand (ten): each kept once, in first-use order", () => {
+    resetMethodLog();
+    const notes = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J"].map((x) => `${x} was done.`);
+    for (let i = 0; i < 5; i++) for (const n of notes.slice(0, 3)) noteMethod("other", n);
+    for (let i = 0; i < 5; i++) for (const n of notes) noteMethod("other", n);
+    for (let i = 0; i < 5; i++) for (const n of notes.slice(0, 3)) noteMethod("gamut", n);
+    expect(methodsUsed()).toEqual([
+      ...notes.map((statement) => ({ topic: "other", statement })),
+      ...notes.slice(0, 3).map((statement) => ({ topic: "gamut", statement })),
+    ]);
+  });
+
+  it("a recent statement under a topic that is not one is still refused (the quick answer compares the topic too)", () => {
+    resetMethodLog();
+    noteMethod("other", "A was done.");
+    expect(() => noteMethod("no such topic" as never, "A was done.")).toThrow(/noteMethod.*topic/);
+    expect(() => noteMethod(undefined as never, "A was done.")).toThrow(/noteMethod.*topic/);
+    expect(methodsUsed()).toEqual([{ topic: "other", statement: "A was done." }]);
+  });
+
+  it("a loop of sRGB → XYZ → CIELAB → CIELUV → XYZ → sRGB notes each condition once, and again after a reset", () => {
+    const srgb = rgbSpace("sRGB");
+    const loop = () => {
+      for (let i = 0; i < 50; i++) {
+        const t = xyzFromRgb({ r: i / 50, g: 0.5, b: 0.2 }, srgb);
+        labFromXYZ(t, white);
+        luvFromXYZ(t, white);
+        rgbFromXYZ(t, srgb, { encode: false });
+        rgbFromXYZ(t, srgb);
+      }
+    };
+    const expected = [
+      ["rgb encoding", sentence(srgb, true)],
+      ["colour space", "CIELAB (CIE 1976 L*a*b*) values were computed per CIE 015:2018 §8.2.1."],
+      ["colour space", "CIELUV (CIE 1976 L*u*v*) values were computed per CIE 015:2018 §8.2.2."],
+      ["rgb encoding", sentence(srgb, false)],
+    ];
+    resetMethodLog();
+    loop();
+    expect(methodsUsed().map((n) => [n.topic, n.statement])).toEqual(expected);
+    resetMethodLog();
+    withoutMethodNotes(loop);
+    expect(methodsUsed()).toEqual([]);
+    loop();
+    expect(methodsUsed().map((n) => [n.topic, n.statement])).toEqual(expected);
+  });
 });
