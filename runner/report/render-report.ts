@@ -6,6 +6,7 @@
  * and outputs in place, Methods, Provenance; then the run's plain-data record for tools (embedded-run-record.ts).
  * Plotly is embedded once when the report has a figure (or linked from a shared assets folder when asked).
  */
+import { createHash } from "node:crypto";
 import fs from "node:fs";
 import type { Token } from "markdown-it";
 import path from "node:path";
@@ -85,47 +86,57 @@ export function writeSharedAssets(folder: string): void {
   fs.renameSync(temporary, target);
 }
 
-let embeddedPlotly: { text: string; bytes: Buffer } | undefined;
+let embeddedPlotly: { readonly text: string; readonly bytes: Buffer } | undefined;
 
 /**
  * Plotly as embedded in a report: gzip-compressed (level 9) and written as seven-bit text (seven-bit-text.ts) in a
  * `<script type="application/gzip" id="tristim-plotly-gzip" data-bytes="n">` element, then plotly-loader.js,
  * which unpacks it with the browser's DecompressionStream: about 1.7 MB instead of 4.8 MB (base64 would need 2.0),
  * still offline. zlib's output depends only on the input, the level and zlib's version, so reproducible reports
- * stay byte for byte the same; the packed text is made once per Plotly and zlib version and cached on disk (0.2 s).
+ * stay byte for byte the same. The two script elements are made once per Plotly, zlib and loader version (0.2 s)
+ * and cached on disk as the UTF-8 bytes a report holds, so a run reads them and writes them out as they are; the
+ * text is decoded only when asked for.
  */
 export function embeddedPlotlyScript(): { readonly text: string; readonly bytes: Buffer } {
   if (!embeddedPlotly) {
-    const { text: packed, bytes } = packedPlotly();
-    const text =
-      `<script type="application/gzip" id="tristim-plotly-gzip" data-bytes="${bytes}">${packed}</script>\n` +
-      `<script>${PLOTLY_LOADER}</script>`;
-    embeddedPlotly = { text, bytes: Buffer.from(text, "utf8") };
+    const bytes = embeddedPlotlyBytes();
+    let text: string | undefined;
+    embeddedPlotly = {
+      bytes,
+      get text() {
+        return (text ??= bytes.toString("utf8"));
+      },
+    };
   }
   return embeddedPlotly;
 }
 
-/** Plotly gzip-compressed, as seven-bit text and its byte count; from the disk cache when there. */
-function packedPlotly(): { text: string; bytes: number } {
+/** The embedded Plotly's bytes, from the disk cache when there. */
+function embeddedPlotlyBytes(): Buffer {
+  const loader = createHash("sha256").update(PLOTLY_LOADER).digest("hex").slice(0, 12);
   const cache = path.join(
     cacheRoot(),
     "assets",
-    `plotly-${PLOTLY_VERSION}-zlib-${process.versions.zlib}-level9.gz.7bit.json`,
+    `plotly-${PLOTLY_VERSION}-zlib-${process.versions.zlib}-level9-loader-${loader}.html`,
   );
   try {
-    return JSON.parse(fs.readFileSync(cache, "utf8")) as { text: string; bytes: number };
+    return fs.readFileSync(cache);
   } catch {
     // not cached yet
   }
   const gzip = zlib.gzipSync(plotlyScript(), { level: 9 });
-  const packed = { text: sevenBitText(gzip), bytes: gzip.length };
+  const bytes = Buffer.from(
+    `<script type="application/gzip" id="tristim-plotly-gzip" data-bytes="${gzip.length}">${sevenBitText(gzip)}</script>\n` +
+      `<script>${PLOTLY_LOADER}</script>`,
+    "utf8",
+  );
   try {
     fs.mkdirSync(path.dirname(cache), { recursive: true });
-    writeFileAtomic(cache, JSON.stringify(packed));
+    writeFileAtomic(cache, [bytes]);
   } catch {
     // a cache that cannot be written only costs time
   }
-  return packed;
+  return bytes;
 }
 
 /** The report as the text before the embedded Plotly, whether Plotly is embedded there, and the text after. */
