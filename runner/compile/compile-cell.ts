@@ -4,6 +4,7 @@
  * cell's imports (npm packages, relative .ts/.js/.json files) are bundled by esbuild with "tristim" kept external
  * and pointed at the one library bundle of the run.
  */
+import fs from "node:fs";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import * as esbuild from "esbuild";
@@ -13,6 +14,15 @@ import { BANNER } from "../shared/require-banner.ts";
 import { CellRewriteError, hoistCell, type HoistedCell } from "./hoist-cell.ts";
 import { cellLineRange, type CellSource, type NotebookDocument } from "../parse/notebook.ts";
 import { jsOffsetToCellPosition, type CellPositions } from "./cell-positions.ts";
+import {
+  cachedImports,
+  cachedTransform,
+  importsBuildFolder,
+  importsKey,
+  keepImports,
+  keepTransform,
+  type TransformedCell,
+} from "./compile-cache.ts";
 
 /** A cell ready to run, or the reason it cannot run. Plain data. */
 export interface CompiledCell {
@@ -54,6 +64,9 @@ export async function compileCell(
 ): Promise<CompiledCell> {
   const filename = cellFilename(cell.index);
   const { document } = context;
+  const sourcefile = path.basename(document.path);
+  const cached = cachedTransform(cell.code, sourcefile);
+  if (cached) return compiledFromTransform(cell, cached, context, options);
   let js: string;
   let map: string;
   try {
@@ -62,7 +75,7 @@ export async function compileCell(
       format: "esm",
       target: "node20",
       sourcemap: "external",
-      sourcefile: path.basename(document.path),
+      sourcefile,
       logLevel: "silent",
       // Keep every import that is not marked `type`: a later cell may use a name this cell imported but did not use.
       tsconfigRaw: { compilerOptions: { verbatimModuleSyntax: true } },
@@ -101,6 +114,18 @@ export async function compileCell(
       failure: compileFailure(text, document, line, cell.columnOffset + at.column),
     };
   }
+  keepTransform(cell.code, sourcefile, { js, map, hoisted });
+  return compiledFromTransform(cell, { js, map, hoisted }, context, options);
+}
+
+/** The compiled cell from its transform (new or from the cache), with its imports bundled unless deferred. */
+async function compiledFromTransform(
+  cell: CellSource,
+  { js, map, hoisted }: TransformedCell,
+  context: CompileContext,
+  options: { readonly deferImports?: boolean },
+): Promise<CompiledCell> {
+  const filename = cellFilename(cell.index);
   const positions: CellPositions = {
     firstLine: cell.firstLine,
     columnOffset: cell.columnOffset,
@@ -226,6 +251,14 @@ async function bundleAllImports(
 ): Promise<Map<number, { importBundle: string; importedFiles: string[] }> | undefined> {
   const entries = new Map(cells.map((c) => [`cell-${c.cell.index + 1}-imports`, c]));
   const resolveDir = path.dirname(context.document.path);
+  const key = importsKey(
+    cells.map((c) => ({ index: c.cell.index, specifiers: c.specifiers })),
+    resolveDir,
+    context.tristimModule,
+  );
+  const kept = cachedImports(key);
+  if (kept && kept.size === entries.size) return kept;
+  const outdir = importsBuildFolder(key);
   let built: esbuild.BuildResult<{ metafile: true }>;
   try {
     built = await esbuild.build({
@@ -234,7 +267,7 @@ async function bundleAllImports(
       platform: "node",
       format: "esm",
       target: "node20",
-      outdir: context.outDir,
+      outdir,
       outExtension: { ".js": ".mjs" },
       sourcemap: "linked",
       logLevel: "silent",
@@ -259,6 +292,7 @@ async function bundleAllImports(
       metafile: true,
     });
   } catch (e) {
+    fs.rmSync(outdir, { recursive: true, force: true });
     if ((e as esbuild.BuildFailure).errors?.length) return undefined;
     throw e;
   }
@@ -273,7 +307,15 @@ async function bundleAllImports(
       importedFiles: ownFiles(Object.keys(meta.inputs)),
     });
   }
-  return result.size === entries.size ? result : undefined;
+  if (result.size !== entries.size) {
+    fs.rmSync(outdir, { recursive: true, force: true });
+    return undefined;
+  }
+  // Every file the bundles were made from (npm packages included), so a changed one makes the kept bundles stale.
+  const inputs = Object.keys(built.metafile.inputs)
+    .filter((f) => !f.includes(":"))
+    .map((f) => path.resolve(f));
+  return keepImports(key, outdir, result, inputs);
 }
 
 /** esbuild namespace of the generated entries of the one-build import bundles. */
