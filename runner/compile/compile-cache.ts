@@ -17,7 +17,7 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import * as esbuild from "esbuild";
+import { esbuildVersion } from "../shared/lazy-esbuild.ts";
 import { cacheRoot } from "../execute/runtime-bundle.ts";
 import type { HoistedCell } from "./hoist-cell.ts";
 
@@ -41,7 +41,7 @@ let stageStamp: string | undefined;
 /** What identifies this version of the compile stage: esbuild's version and the stage's sources. */
 function compilerStamp(): string {
   if (stageStamp !== undefined) return stageStamp;
-  const hash = createHash("sha256").update(`${esbuild.version}\n${process.version}\n`);
+  const hash = createHash("sha256").update(`${esbuildVersion()}\n${process.version}\n`);
   const folder = path.dirname(fileURLToPath(import.meta.url));
   for (const name of fs.readdirSync(folder).sort()) {
     const s = fs.statSync(path.join(folder, name));

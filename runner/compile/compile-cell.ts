@@ -7,7 +7,8 @@
 import fs from "node:fs";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
-import * as esbuild from "esbuild";
+import type * as Esbuild from "esbuild";
+import { esbuild } from "../shared/lazy-esbuild.ts";
 import type { ErrorRecord } from "../../cells/records.ts";
 import { codeFrame } from "../text/code-frame.ts";
 import { BANNER } from "../shared/require-banner.ts";
@@ -70,7 +71,7 @@ export async function compileCell(
   let js: string;
   let map: string;
   try {
-    const result = await esbuild.transform(cell.code, {
+    const result = await esbuild().transform(cell.code, {
       loader: "ts",
       format: "esm",
       target: "node20",
@@ -83,7 +84,7 @@ export async function compileCell(
     js = result.code;
     map = result.map;
   } catch (e) {
-    const message = (e as esbuild.TransformFailure).errors?.[0];
+    const message = (e as Esbuild.TransformFailure).errors?.[0];
     if (!message) throw e;
     const loc = message.location;
     const line = loc ? cell.firstLine + loc.line - 1 : cell.fenceLine;
@@ -196,7 +197,7 @@ async function bundleCellImports(
   const importBundle = importBundlePath(cell, context);
   const entry = importsEntry(hoisted.imports.map((i) => i.specifier));
   try {
-    const built = await esbuild.build({
+    const built = await esbuild().build({
       stdin: {
         contents: entry,
         resolveDir: path.dirname(document.path),
@@ -216,7 +217,7 @@ async function bundleCellImports(
     });
     return { importBundle, importedFiles: ownFiles(Object.keys(built.metafile?.inputs ?? {})) };
   } catch (e) {
-    const message = (e as esbuild.BuildFailure).errors?.[0];
+    const message = (e as Esbuild.BuildFailure).errors?.[0];
     if (!message) throw e;
     const loc = message.location;
     if (loc && path.basename(loc.file) !== IMPORTS_ENTRY && loc.file !== "<stdin>") {
@@ -259,9 +260,9 @@ async function bundleAllImports(
   const kept = cachedImports(key);
   if (kept && kept.size === entries.size) return kept;
   const outdir = importsBuildFolder(key);
-  let built: esbuild.BuildResult<{ metafile: true }>;
+  let built: Esbuild.BuildResult<{ metafile: true }>;
   try {
-    built = await esbuild.build({
+    built = await esbuild().build({
       entryPoints: [...entries.keys()].map((name) => ({ in: `${ENTRY_NAMESPACE}:${name}`, out: name })),
       bundle: true,
       platform: "node",
@@ -293,7 +294,7 @@ async function bundleAllImports(
     });
   } catch (e) {
     fs.rmSync(outdir, { recursive: true, force: true });
-    if ((e as esbuild.BuildFailure).errors?.length) return undefined;
+    if ((e as Esbuild.BuildFailure).errors?.length) return undefined;
     throw e;
   }
   const result = new Map<number, { importBundle: string; importedFiles: string[] }>();
@@ -354,7 +355,7 @@ const IMPORTS_ENTRY = "__tristim_cell_imports__.js";
 export { BANNER };
 
 /** Resolves "tristim" to the run's library module, kept external so all cells share one instance. */
-export function tristimExternal(modulePath: string): esbuild.Plugin {
+export function tristimExternal(modulePath: string): Esbuild.Plugin {
   return {
     name: "tristim-external",
     setup(build) {

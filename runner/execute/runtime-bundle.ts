@@ -8,7 +8,8 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import * as esbuild from "esbuild";
+import type * as Esbuild from "esbuild";
+import { esbuild, esbuildVersion } from "../shared/lazy-esbuild.ts";
 import { BANNER } from "../shared/require-banner.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 
@@ -40,7 +41,7 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
   if (fs.existsSync(path.join(dir, "complete"))) return bundle;
   const temporary = `${dir}.${process.pid}.${Math.random().toString(36).slice(2)}.tmp`;
   try {
-    await esbuild.build({
+    await esbuild().build({
       entryPoints: {
         worker: path.join(PACKAGE_ROOT, "cells", "worker.ts"),
         tristim: path.join(PACKAGE_ROOT, "cells", "tristim-entry.ts"),
@@ -60,7 +61,7 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
     });
   } catch (e) {
     fs.rmSync(temporary, { recursive: true, force: true });
-    const errors = (e as esbuild.BuildFailure).errors ?? [];
+    const errors = (e as Esbuild.BuildFailure).errors ?? [];
     const first = errors[0];
     const where = first?.location
       ? `${first.location.file}:${first.location.line}:${first.location.column + 1}: `
@@ -84,7 +85,7 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
 /** A key that changes whenever a file in lib/ or cells/ (or the installed packages) changes. */
 function sourceKey(): string {
   const hash = createHash("sha256");
-  hash.update(`${process.version}\n${esbuild.version}\n${PACKAGE_ROOT}\n`);
+  hash.update(`${process.version}\n${esbuildVersion()}\n${PACKAGE_ROOT}\n`);
   for (const folder of ["lib", "cells"]) walk(path.join(PACKAGE_ROOT, folder), hash);
   for (const file of ["package.json", "package-lock.json"]) stamp(path.join(PACKAGE_ROOT, file), hash);
   return hash.digest("hex").slice(0, 20);
