@@ -12,10 +12,10 @@ import { UsageError } from "../shared/errors.ts";
 import { EXIT, worseExit, type ExitCode } from "../shared/exit-codes.ts";
 import { expandFilePattern, reportNamesFor } from "./file-pattern.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
-import { writeReport } from "../report/report-file.ts";
+import { saveReport } from "../report/report-file.ts";
 import { makeReportFolder } from "../shared/output-path.ts";
 import { renderBatchIndex } from "../report/render-index.ts";
-import { reportTitle } from "../report/render-report.ts";
+import { prewarmReport, reportTitle } from "../report/render-report.ts";
 import { runDocument, sharedRunParts, type SharedRunParts } from "../execute/run-notebook.ts";
 import { runExitCode } from "../records/run-outcome.ts";
 import type { RunRecord } from "../records/run-record.ts";
@@ -197,7 +197,7 @@ export async function runBatch(
     let report: string | undefined = name;
     let error: string | undefined;
     try {
-      writeReport(document, run, path.join(folder, name), options.linkAssets);
+      saveReport(document, run, path.join(folder, name), options.linkAssets);
     } catch (e) {
       report = undefined;
       error = (e as Error).message;
@@ -236,6 +236,7 @@ export async function runBatch(
   options.onStart?.(files.length);
   try {
     if (files.length > 0) shared = await sharedRunParts(document);
+    prewarmReport(document);
     await Promise.all(Array.from({ length: jobs }, worker));
   } finally {
     shared?.dispose();

@@ -11,7 +11,7 @@ import { NotebookError, UsageError } from "../shared/errors.ts";
 import { parseEachArgument, parseShardArgument, runBatch, type EachOption } from "../batch/batch.ts";
 import { batchResults } from "../batch/batch-index.ts";
 import { embeddedRunRecord } from "../report/embedded-run-record.ts";
-import { reportTitle } from "../report/render-report.ts";
+import { prewarmReport, reportTitle } from "../report/render-report.ts";
 import { resultsFile, resultsText, type RunResult } from "../report/results-file.ts";
 import { writeFileAtomic } from "../shared/write-atomic.ts";
 import { runExitCode } from "../records/run-outcome.ts";
@@ -24,7 +24,7 @@ import { helpText } from "./help.ts";
 import { parseInputArgument, resolveInputs } from "../execute/inputs.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
-import { defaultReportPath, writeReport } from "../report/report-file.ts";
+import { defaultReportPath, saveReport } from "../report/report-file.ts";
 import { formatDuration } from "../text/duration.ts";
 import { displayLocation, errorHeadline } from "../text/error-text.ts";
 import { displayPath } from "../text/display-path.ts";
@@ -351,6 +351,7 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     options.jobs ?? os.availableParallelism(),
     async (i) => {
       const document = documents[i]!;
+      prewarmReport(document);
       const run = await runDocument(document, {
         inputs: options.inputs,
         timeLimitMs: options.timeLimitMs,
@@ -370,7 +371,7 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
         };
       try {
         makeReportFolder(path.dirname(target));
-        writeReport(document, run, target, options.linkAssets);
+        saveReport(document, run, target, options.linkAssets);
       } catch (e) {
         // A fault in the notebook found while writing (math in the prose that cannot be typeset): its file and line.
         if (e instanceof NotebookError) {

@@ -20,7 +20,7 @@ import type { NotebookDocument } from "../parse/notebook.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { embeddedRunRecord, runRecordScript } from "./embedded-run-record.ts";
 import { cssString, escapeHtml } from "./escape.ts";
-import { highlight } from "./highlight.ts";
+import { highlight, prewarmHighlighting } from "./highlight.ts";
 import { labelHeadings, proseMarkdown, type Heading } from "./markdown.ts";
 import { renderMethods } from "./methods-section.ts";
 import { renderOutputs } from "./render-output.ts";
@@ -264,13 +264,24 @@ function renderContents(entries: Heading[]): string {
 const FOLD_SIGN =
   '<svg class="fold-sign" viewBox="0 0 16 16" width="15" height="15" aria-hidden="true"><path d="M3 1.5h7l3 3v10H3z" fill="none" stroke="currentColor" stroke-width="1.3" stroke-linejoin="round"/><path d="M10 1.5v3h3" fill="none" stroke="currentColor" stroke-width="1.1"/><path class="fold-lines" d="M5.2 7.5h5.6M5.2 10h5.6M5.2 12.5h3.4" stroke="currentColor" stroke-width="1.1" stroke-linecap="round"/></svg>';
 
+/** The language a cell's source is highlighted in. */
+const CELL_LANGUAGE = "typescript";
+
+/**
+ * Starts the report work that needs only the notebook (highlighting every cell's source), in small steps while
+ * the cells run; the report written afterwards finds it done (highlight.ts keeps what it made).
+ */
+export function prewarmReport(document: NotebookDocument): void {
+  prewarmHighlighting(document.cells.map((c) => ({ code: c.code, language: CELL_LANGUAGE })));
+}
+
 function renderCell(view: CellView, { run, notebookDir }: ReportModel): string {
   const { cell } = view;
   const status = view.run?.status ?? "not-run";
   const number = cell.index + 1;
   const range =
     cell.lastLine > cell.firstLine ? `lines ${cell.firstLine}–${cell.lastLine}` : `line ${cell.firstLine}`;
-  const code = `<pre><code class="hljs language-ts">${highlight(cell.code, "typescript")}</code></pre>`;
+  const code = `<pre><code class="hljs language-ts">${highlight(cell.code, CELL_LANGUAGE)}</code></pre>`;
   let source = "";
   if (status === "listing") {
     source = `<div class="listing"><p class="listing-label">Listing, not run: cell ${number}, ${range}</p>${code}</div>`;

@@ -16,9 +16,14 @@ import type { InputValue } from "../../cells/inputs.ts";
 import { resolveInputs } from "../execute/inputs.ts";
 import type { NotebookDocument } from "../parse/notebook.ts";
 import { readNotebook } from "../parse/parse-notebook.ts";
-import { defaultReportPath, writeReport } from "../report/report-file.ts";
+import { defaultReportPath, saveReport } from "../report/report-file.ts";
 import { formatDuration } from "../text/duration.ts";
-import { renderReport } from "../report/render-report.ts";
+import {
+  embeddedPlotlyScript,
+  prewarmReport,
+  renderReportParts,
+  type ReportParts,
+} from "../report/render-report.ts";
 import { moveRecordsToEdit } from "../records/rerender.ts";
 import type { RunRecord } from "../records/run-record.ts";
 import { runDocument, runSignature } from "../execute/run-notebook.ts";
@@ -26,7 +31,7 @@ import { CellProcess, RunCancelled } from "../execute/cell-process.ts";
 import { DEFAULT_TIME_LIMIT_MS } from "../shared/time-limit.ts";
 import type { CommandOptions, Io } from "../cli/command-options.ts";
 import { WatchedFiles } from "./watched-files.ts";
-import { EVENTS_PATH, pageMessage, WatchServer, type PageContent } from "./watch-server.ts";
+import { EVENTS_PATH, htmlPage, pageMessage, WatchServer, type PageContent } from "./watch-server.ts";
 
 export { EVENTS_PATH, serveFile } from "./watch-server.ts";
 
@@ -85,10 +90,9 @@ export class WatchSession {
   private readonly timeLimitMs: number;
   private readonly server: WatchServer;
   /** What the page shows now. */
-  private page: PageContent = {
-    html: pageMessage("Running the notebook…", "The report appears here when the first run finishes."),
-    banner: "",
-  };
+  private page: PageContent = htmlPage(
+    pageMessage("Running the notebook…", "The report appears here when the first run finishes."),
+  );
   /** The last run and the document it ran, from which a prose-only edit is re-rendered. */
   private last: { run: RunRecord; document: NotebookDocument } | undefined;
   /** A file a cell read has changed since the last run, so even a prose-only edit needs a run. */
@@ -182,6 +186,7 @@ export class WatchSession {
     this.running = new AbortController();
     let run: RunRecord;
     let banner: string;
+    prewarmReport(document);
     try {
       const running = runDocument(document, {
         inputs: this.options.inputs,
@@ -212,16 +217,17 @@ export class WatchSession {
   ): void {
     this.last = { run, document };
     // One rendering serves both the file and the page, unless the file links shared assets the page does not.
-    let written: string | undefined;
-    let html: string;
+    let written: ReportParts | undefined;
+    let shown: ReportParts;
     try {
       try {
-        written = writeReport(document, run, this.reportPath, this.options.linkAssets);
+        written = saveReport(document, run, this.reportPath, this.options.linkAssets);
       } catch (e) {
         if (e instanceof NotebookError) throw e;
         this.io.err(`the report could not be written to ${this.reportPath}: ${(e as Error).message}\n`);
       }
-      html = written !== undefined && !this.options.linkAssets ? written : renderReport(document, run, {});
+      shown =
+        written !== undefined && !this.options.linkAssets ? written : renderReportParts(document, run, {});
     } catch (e) {
       // Math in the prose that cannot be typeset: said with its line; the page keeps the last good rendering.
       if (!(e instanceof NotebookError)) throw e;
@@ -234,7 +240,12 @@ export class WatchSession {
       } satisfies RenderEvent);
       return;
     }
-    this.page = { html, banner };
+    this.page = {
+      before: shown.before,
+      ...(shown.embedsPlotly ? { plotly: embeddedPlotlyScript().bytes } : {}),
+      after: shown.after,
+      banner,
+    };
     this.files.set([this.notebookPath, ...run.filesRead.map((f) => f.path)]);
     this.server.broadcast("reload");
     const ms = performance.now() - started;
@@ -278,7 +289,7 @@ export class WatchSession {
       error instanceof NotebookError ? error.where(path.basename(this.notebookPath)) : error.message;
     this.io.err(`${message}\n`);
     const frame = error instanceof NotebookError ? error.codeFrame : undefined;
-    this.page = { html: pageMessage("The notebook could not be read", message, frame), banner: "" };
+    this.page = htmlPage(pageMessage("The notebook could not be read", message, frame));
     this.server.broadcast("reload");
     this.events.emit("render", {
       executed: false,
