@@ -25,6 +25,8 @@ export interface LibraryDeclarations {
   readonly entry: string;
   /** The names the entry exports (what cells get as globals). */
   readonly names: readonly string[];
+  /** Every declaration file in `dir` (absolute paths). */
+  readonly files: ReadonlySet<string>;
 }
 
 /** Where the library is and where its declarations go (tests point both at folders of their own). */
@@ -34,7 +36,7 @@ export interface DeclarationPlace {
 }
 
 /** Bumped when what is written changes, so an older cache is not read. */
-const FORMAT = "1";
+const FORMAT = "2";
 const MANIFEST = "manifest.json";
 
 /** The default place: this package, in the cache folder. */
@@ -65,10 +67,15 @@ export function libraryDeclarations(
 /** The cached declarations in `dir`, when complete. */
 function readManifest(dir: string, root: string): LibraryDeclarations | undefined {
   try {
-    const manifest = JSON.parse(fs.readFileSync(path.join(dir, MANIFEST), "utf8")) as { names: string[] };
+    const manifest = JSON.parse(fs.readFileSync(path.join(dir, MANIFEST), "utf8")) as {
+      names: string[];
+      files: string[];
+    };
     const entry = path.join(dir, "cells", "tristim-entry.d.ts");
-    if (!Array.isArray(manifest.names) || !fs.existsSync(entry)) return undefined;
-    return { dir, root, entry, names: manifest.names };
+    if (!Array.isArray(manifest.names) || !Array.isArray(manifest.files) || !fs.existsSync(entry))
+      return undefined;
+    const files = new Set(manifest.files.map((f) => path.join(dir, f)));
+    return { dir, root, entry, names: manifest.names, files };
   } catch {
     return undefined;
   }
@@ -92,6 +99,7 @@ function emitDeclarations(
     removeComments: true,
     rootDir: root,
     outDir: temporary,
+    listEmittedFiles: true,
   };
   const host = ts.createCompilerHost(emitOptions);
   host.jsDocParsingMode = ts.JSDocParsingMode.ParseForTypeErrors;
@@ -112,7 +120,10 @@ function emitDeclarations(
         `declaration emit failed: ${errors.map((d) => ts.flattenDiagnosticMessageText(d.messageText, " ")).join("; ")}`,
       );
     const names = entryExportNames(program, entrySource);
-    fs.writeFileSync(path.join(temporary, MANIFEST), JSON.stringify({ key, names }));
+    const files = (result.emittedFiles ?? []).map((f) => path.relative(temporary, f));
+    if (!files.includes(path.join("cells", "tristim-entry.d.ts")))
+      throw new Error("declaration emit did not write cells/tristim-entry.d.ts");
+    fs.writeFileSync(path.join(temporary, MANIFEST), JSON.stringify({ key, names, files }));
     // A folder of this key without a manifest is not ours to trust (left by hand or by a crash): replace it.
     if (fs.existsSync(dir) && !readManifest(dir, root)) fs.rmSync(dir, { recursive: true, force: true });
     try {

@@ -9,7 +9,7 @@ import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
 import type { CompilerHost, CompilerOptions, Diagnostic, Program, SourceFile } from "typescript";
-import ts from "./typescript.ts";
+import ts, { saveCompilerCodeCache } from "./typescript.ts";
 import { cellLineRange, type NotebookDocument } from "../parse/notebook.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 import { codeFrame } from "../text/code-frame.ts";
@@ -146,6 +146,33 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
               isExternalLibraryImport: false,
             },
           };
+        // Shortcuts that give what resolveModuleName would, without its file lookups: a cell's import of an
+        // earlier cell (a virtual file), and a declaration file's relative import of another (listed in the cache).
+        if (isCellFileName(containingFile) && /^\.\/__tristim_cell_\d+$/.test(literal.text)) {
+          const cell = path.join(path.dirname(containingFile), `${literal.text.slice(2)}.ts`);
+          if (virtual.has(cell))
+            return {
+              resolvedModule: {
+                resolvedFileName: cell,
+                extension: ts.Extension.Ts,
+                isExternalLibraryImport: false,
+              },
+            };
+        }
+        if (declarations && literal.text.startsWith(".") && literal.text.endsWith(".ts")) {
+          const declaration = path
+            .resolve(path.dirname(containingFile), literal.text)
+            .replace(/\.ts$/, ".d.ts");
+          if (declarations.files.has(declaration) && isInside(declarations.dir, containingFile))
+            return {
+              resolvedModule: {
+                resolvedFileName: declaration,
+                extension: ts.Extension.Dts,
+                isExternalLibraryImport: false,
+                resolvedUsingTsExtension: true,
+              },
+            };
+        }
         // A package a declaration file imports is found from the library's own folder, as from its source.
         const from =
           declarations && !literal.text.startsWith(".") && isInside(declarations.dir, containingFile)
@@ -189,6 +216,8 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
         ...files.flatMap((f) => cellDiagnostics(program, f, document)),
         ...helperDiagnostics(program, document),
       ].map(named);
+      // Now that a check has run the compiler's code, keep it compiled for the next process.
+      saveCompilerCodeCache();
       return found;
     },
   };
