@@ -179,7 +179,8 @@ function stamp(file: string, hash: ReturnType<typeof createHash>): void {
 function pruneOld(folder: string, keep: string): void {
   const dayAgo = Date.now() - 24 * 3600_000;
   for (const name of fs.readdirSync(folder)) {
-    if (name === keep) continue;
+    // types-*.json are stripped-types.ts's, pruned there.
+    if (name === keep || name.startsWith("types-")) continue;
     const full = path.join(folder, name);
     try {
       if (fs.statSync(full).mtimeMs < dayAgo) fs.rmSync(full, { recursive: true, force: true });

@@ -16,7 +16,9 @@ import { codeFrame } from "../text/code-frame.ts";
 import { cellFiles, isCellFileName, notebookPositionOf, type CellFile } from "./cell-files.ts";
 import { CELL_ENTRY, cellGlobalsDeclaration, entryExportNames } from "./cell-globals.ts";
 import { inputsType } from "./input-types.ts";
+import { strippedTypes, type StrippedText } from "./stripped-types.ts";
 import {
+  defaultDeclarationPlace,
   libraryDeclarations,
   type DeclarationPlace,
   type LibraryDeclarations,
@@ -99,6 +101,8 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
   let sourceEntryNames: string[] | undefined;
   /** The declarations the current check reads, if any. */
   let declarations: LibraryDeclarations | undefined;
+  /** Comment-free copies of the Node and lib declaration files (stripped-types.ts), read at the first check. */
+  let strippedCopies: Map<string, StrippedText> | undefined;
   const resolutionCache = ts.createModuleResolutionCache(base.getCurrentDirectory(), (s) => s, options);
 
   const host: CompilerHost = {
@@ -116,15 +120,21 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
         virtualParsed.set(fileName, file);
         return file;
       }
-      let mtimeMs: number;
+      let stat: fs.Stats;
       try {
-        mtimeMs = fs.statSync(fileName).mtimeMs;
+        stat = fs.statSync(fileName);
       } catch {
         return undefined;
       }
+      const { mtimeMs } = stat;
       const known = parsed.get(fileName);
       if (known && known.mtimeMs === mtimeMs) return known.file;
-      const file = base.getSourceFile(fileName, languageVersion);
+      // The comment-free copy of a Node or lib declaration file, while the file is the one it was made from.
+      const copy = strippedCopies?.get(fileName);
+      const file =
+        copy && copy.size === stat.size && copy.mtimeMs === mtimeMs
+          ? ts.createSourceFile(fileName, copy.text, languageVersion)
+          : base.getSourceFile(fileName, languageVersion);
       if (file) parsed.set(fileName, { mtimeMs, file });
       return file;
     },
@@ -193,6 +203,9 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
     check(document) {
       const files = cellFiles(document);
       const inputs = inputsType(document.frontMatter.inputs);
+      if (sessionOptions.library !== "sources" && strippedCopies === undefined)
+        strippedCopies =
+          strippedTypes(options, (sessionOptions.place ?? defaultDeclarationPlace()).cacheDir) ?? new Map();
       const before = declarations;
       declarations =
         sessionOptions.library === "sources" ? undefined : libraryDeclarations(options, sessionOptions.place);

@@ -1,8 +1,9 @@
 /**
- * The type check reads the library from cached declaration files (runner/typecheck/library-declarations.ts). These
- * tests check that it finds exactly what a check against the library's sources finds, that the cache is made again
- * when a library file changes (also within one session, as in watch), and that a cache that cannot be made or read
- * falls back to the sources.
+ * The type check reads the library from cached declaration files (runner/typecheck/library-declarations.ts) and the
+ * Node and lib types from comment-free copies (stripped-types.ts). These tests check that it finds exactly what a
+ * check against the library's sources and the original types finds, that the cache is made again when a library
+ * file changes (also within one session, as in watch), and that a cache that cannot be made or read falls back to
+ * the sources.
  */
 import fs from "node:fs";
 import path from "node:path";
@@ -15,7 +16,9 @@ import {
   libraryDeclarations,
   type DeclarationPlace,
 } from "../../runner/typecheck/library-declarations.ts";
+import { stripped, strippedTypes } from "../../runner/typecheck/stripped-types.ts";
 import { cellCompilerOptions, createTypecheckSession } from "../../runner/typecheck/typecheck.ts";
+import compiler from "../../runner/typecheck/typescript.ts";
 import { notebookFile, tempFolder, ts, writeFiles } from "./helpers.ts";
 
 // Emitting the library's declarations and checking against its sources take seconds on a loaded machine.
@@ -156,6 +159,11 @@ describe("library declarations in the type check", () => {
   });
 });
 
+/** The compiler's default lib file for the cell options. */
+function tsLibFile(): string {
+  return compiler.getDefaultLibFilePath(cellCompilerOptions());
+}
+
 /** A small library of its own (lib/ and cells/tristim-entry.ts) with an empty cache folder. */
 function fixtureLibrary(extra: Record<string, string> = {}): DeclarationPlace {
   const root = tempFolder("tristim-test-library-");
@@ -167,3 +175,39 @@ function fixtureLibrary(extra: Record<string, string> = {}): DeclarationPlace {
   });
   return { root, cacheDir: path.join(root, "cache") };
 }
+
+describe("comment-free copies of the Node and lib declaration files", () => {
+  it("drop comments and keep every `///` directive and declaration", () => {
+    const text =
+      '/// <reference no-default-lib="true"/>\n/// <reference lib="es2020" />\n/// <reference path="other.d.ts" />\n' +
+      "/** The invented meter's reading. */\ndeclare function reading(/* channel */ c: number): number; // mA\n" +
+      'declare module "invented-meter" {\n  /** Serial number. */\n  export const serial: `SN-${number}`;\n}\n';
+    const copy = stripped("/x/types.d.ts", text)!;
+    expect(copy).not.toMatch(/invented meter's|channel|mA|Serial number/);
+    for (const kept of ['no-default-lib="true"', 'reference lib="es2020"', 'reference path="other.d.ts"'])
+      expect(copy).toContain(kept);
+    expect(copy).toContain("declare function reading(c: number): number;");
+    expect(copy).toContain("export const serial: `SN-${number}`;");
+    // A file that does not parse is not copied.
+    expect(stripped("/x/broken.d.ts", "declare const x: ;\n")).toBeUndefined();
+  });
+
+  it("are made for the Node types and the compiler's libs, recorded with each original's size and mtime, then read back", () => {
+    const cacheDir = tempFolder("tristim-test-types-");
+    const options = cellCompilerOptions();
+    const copies = strippedTypes(options, cacheDir)!;
+    const nodeIndex = path.join(options.typeRoots![0]!, "node", "index.d.ts");
+    const es5 = path.join(path.dirname(tsLibFile()), "lib.es5.d.ts");
+    for (const file of [nodeIndex, es5]) {
+      const copy = copies.get(file)!;
+      const stat = fs.statSync(file);
+      expect({ size: copy.size, mtimeMs: copy.mtimeMs }).toEqual({ size: stat.size, mtimeMs: stat.mtimeMs });
+      expect(copy.text.length).toBeLessThan(stat.size);
+    }
+    const [cacheFile, ...others] = fs.readdirSync(cacheDir);
+    expect(others).toEqual([]);
+    const written = fs.statSync(path.join(cacheDir, cacheFile!)).mtimeMs;
+    expect(strippedTypes(options, cacheDir)).toEqual(copies);
+    expect(fs.statSync(path.join(cacheDir, cacheFile!)).mtimeMs).toBe(written);
+  });
+});
