@@ -16,7 +16,7 @@ import { codeFrame } from "../text/code-frame.ts";
 import { cellFiles, isCellFileName, notebookPositionOf, type CellFile } from "./cell-files.ts";
 import { CELL_ENTRY, cellGlobalsDeclaration, entryExportNames } from "./cell-globals.ts";
 import { inputsType } from "./input-types.ts";
-import { strippedTypes, type StrippedText } from "./stripped-types.ts";
+import { currentCopy, strippedTypes, type StrippedText } from "./stripped-types.ts";
 import {
   defaultDeclarationPlace,
   libraryDeclarations,
@@ -130,10 +130,10 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
       const known = parsed.get(fileName);
       if (known && known.mtimeMs === mtimeMs) return known.file;
       // The comment-free copy of a Node or lib declaration file, while the file is the one it was made from.
-      const copy = strippedCopies?.get(fileName);
+      const copy = currentCopy(strippedCopies, fileName, stat);
       const file =
-        copy && copy.size === stat.size && copy.mtimeMs === mtimeMs
-          ? ts.createSourceFile(fileName, copy.text, languageVersion)
+        copy !== undefined
+          ? ts.createSourceFile(fileName, copy, languageVersion)
           : base.getSourceFile(fileName, languageVersion);
       if (file) parsed.set(fileName, { mtimeMs, file });
       return file;
@@ -208,7 +208,9 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
           strippedTypes(options, (sessionOptions.place ?? defaultDeclarationPlace()).cacheDir) ?? new Map();
       const before = declarations;
       declarations =
-        sessionOptions.library === "sources" ? undefined : libraryDeclarations(options, sessionOptions.place);
+        sessionOptions.library === "sources"
+          ? undefined
+          : libraryDeclarations(options, sessionOptions.place, strippedCopies);
       if (declarations?.dir !== before?.dir) {
         // The library changed (or its declarations appeared or went): the old program's resolutions of the entry
         // would be kept for the unchanged notebook module, so start a new one (parsed files are still reused).
