@@ -9,11 +9,10 @@
 import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import type { CompilerOptions, Program } from "typescript";
+import type { CompilerHost, CompilerOptions, Program } from "typescript";
 import { cacheRoot } from "../execute/runtime-bundle.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 import { entryExportNames } from "./cell-globals.ts";
-import { withCopies, type StrippedText } from "./stripped-types.ts";
 import ts from "./typescript.ts";
 
 /** A complete set of cached declarations. */
@@ -52,14 +51,14 @@ export function defaultDeclarationPlace(): DeclarationPlace {
 export function libraryDeclarations(
   options: CompilerOptions,
   place: DeclarationPlace = defaultDeclarationPlace(),
-  copies?: ReadonlyMap<string, StrippedText>,
+  getSourceFile?: CompilerHost["getSourceFile"],
 ): LibraryDeclarations | undefined {
   const key = declarationKey(place.root);
   const dir = path.join(place.cacheDir, key);
   const cached = readManifest(dir, place.root);
   if (cached) return cached;
   try {
-    return emitDeclarations(options, place, key, copies);
+    return emitDeclarations(options, place, key, getSourceFile);
   } catch (e) {
     if (process.env.TRISTIM_DEBUG) console.error("tristim: library declarations not cached:", e);
     return undefined;
@@ -88,7 +87,7 @@ function emitDeclarations(
   options: CompilerOptions,
   place: DeclarationPlace,
   key: string,
-  copies: ReadonlyMap<string, StrippedText> | undefined,
+  getSourceFile: CompilerHost["getSourceFile"] | undefined,
 ): LibraryDeclarations {
   const { root, cacheDir } = place;
   const dir = path.join(cacheDir, key);
@@ -106,8 +105,8 @@ function emitDeclarations(
   };
   const host = ts.createCompilerHost(emitOptions);
   host.jsDocParsingMode = ts.JSDocParsingMode.ParseForTypeErrors;
-  // The Node and lib types from their comment-free copies, as the check reads them.
-  host.getSourceFile = withCopies(host, copies);
+  // The session's reader: the comment-free Node and lib types, and parsed files shared with the check that follows.
+  if (getSourceFile) host.getSourceFile = getSourceFile;
   const program = ts.createProgram({ rootNames: [entrySource], options: emitOptions, host });
   const inside = (f: string) => !path.relative(root, f).startsWith("..") && !/[/\\]node_modules[/\\]/.test(f);
   const own = program.getSourceFiles().filter((s) => inside(path.resolve(s.fileName)));

@@ -11,7 +11,7 @@ import { createHash } from "node:crypto";
 import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
-import type { CompilerHost, CompilerOptions, Node, SourceFile } from "typescript";
+import type { CompilerOptions, Node, SourceFile } from "typescript";
 import { writeFileAtomic } from "../shared/write-atomic.ts";
 import ts from "./typescript.ts";
 
@@ -30,21 +30,6 @@ export function currentCopy(
 ): string | undefined {
   const copy = copies?.get(fileName);
   return copy && copy.size === stat.size && copy.mtimeMs === stat.mtimeMs ? copy.text : undefined;
-}
-
-/** A compiler host's getSourceFile that reads the copies where they are current (for a program of its own). */
-export function withCopies(
-  host: CompilerHost,
-  copies: ReadonlyMap<string, StrippedText> | undefined,
-): CompilerHost["getSourceFile"] {
-  const original = host.getSourceFile.bind(host);
-  return (fileName, languageVersion, onError, fresh) => {
-    const stat = fs.statSync(fileName, { throwIfNoEntry: false });
-    const text = stat && currentCopy(copies, fileName, stat);
-    return text !== undefined
-      ? ts.createSourceFile(fileName, text, languageVersion)
-      : original(fileName, languageVersion, onError, fresh);
-  };
 }
 
 /** Bumped when what is written changes. */

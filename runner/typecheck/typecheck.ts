@@ -210,7 +210,7 @@ export function createTypecheckSession(sessionOptions: TypecheckSessionOptions =
       declarations =
         sessionOptions.library === "sources"
           ? undefined
-          : libraryDeclarations(options, sessionOptions.place, strippedCopies);
+          : libraryDeclarations(options, sessionOptions.place, host.getSourceFile);
       if (declarations?.dir !== before?.dir) {
         // The library changed (or its declarations appeared or went): the old program's resolutions of the entry
         // would be kept for the unchanged notebook module, so start a new one (parsed files are still reused).
