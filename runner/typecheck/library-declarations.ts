@@ -93,6 +93,9 @@ function emitDeclarations(
   const dir = path.join(cacheDir, key);
   const temporary = `${dir}.${process.pid}.${Math.random().toString(36).slice(2)}.tmp`;
   const entrySource = path.join(root, "cells", "tristim-entry.ts");
+  // Before any work: a cache folder that cannot be written means checking against the sources.
+  fs.mkdirSync(cacheDir, { recursive: true });
+  fs.accessSync(cacheDir, fs.constants.W_OK);
   const emitOptions: CompilerOptions = {
     ...options,
     noEmit: false,
@@ -112,7 +115,6 @@ function emitDeclarations(
   const own = program.getSourceFiles().filter((s) => inside(path.resolve(s.fileName)));
   const odd = own.find((s) => !/\.ts$/.test(s.fileName) || /\.d\.[cm]?ts$/.test(s.fileName));
   if (odd) throw new Error(`the library holds ${odd.fileName}, which is not emitted as a declaration`);
-  fs.mkdirSync(cacheDir, { recursive: true });
   try {
     // The last argument (forceDtsEmit, not in the published signature) emits without first type-checking every
     // file (about 3 s instead of 6 s here); the declarations are the same, and the cells are checked against them.

@@ -77,6 +77,9 @@ export function strippedTypes(
     } catch {
       // missing or unreadable: made below
     }
+    // A cache folder that cannot be written would make the copies on every check: use the originals.
+    fs.mkdirSync(cacheDir, { recursive: true });
+    fs.accessSync(cacheDir, fs.constants.W_OK);
     const made: Record<string, StrippedText> = {};
     for (const folder of folders)
       for (const name of declarationFiles(folder, folder === folders.at(-1))) {
@@ -85,7 +88,6 @@ export function strippedTypes(
         const text = stripped(name, original);
         if (text !== undefined) made[name] = { size: stat.size, mtimeMs: stat.mtimeMs, text };
       }
-    fs.mkdirSync(cacheDir, { recursive: true });
     writeFileAtomic(file, JSON.stringify(made));
     pruneOld(cacheDir, path.basename(file));
     return new Map(Object.entries(made));
