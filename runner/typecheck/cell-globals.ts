@@ -11,12 +11,12 @@ import { PACKAGE_ROOT } from "../shared/package-root.ts";
 /** The module a cell's `import ... from "tristim"` gives (cells/tristim-entry.ts). */
 export const CELL_ENTRY = path.join(PACKAGE_ROOT, "cells", "tristim-entry.ts");
 
-/** The names exported by the cell entry, read with the type checker of a program that holds it. */
-export function entryExportNames(program: Program): string[] {
+/** The names exported by the cell entry (or its declaration `entry`), read with the checker of a program that holds it. */
+export function entryExportNames(program: Program, entry = CELL_ENTRY): string[] {
   const checker = program.getTypeChecker();
-  const source = program.getSourceFile(CELL_ENTRY);
+  const source = program.getSourceFile(entry);
   const symbol = source && checker.getSymbolAtLocation(source);
-  if (!symbol) throw new Error(`internal: the type checker did not load ${CELL_ENTRY}`);
+  if (!symbol) throw new Error(`internal: the type checker did not load ${entry}`);
   return checker
     .getExportsOfModule(symbol)
     .map((s) => s.name)

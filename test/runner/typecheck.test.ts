@@ -16,7 +16,8 @@ import { createTypecheckSession } from "../../runner/typecheck/typecheck.ts";
 import { startWatch, type RenderEvent, type Watcher } from "../../runner/watch/watch.ts";
 import { notebookFile, ts } from "./helpers.ts";
 
-// The first check parses the library and the Node types (seconds on a loaded machine); later ones reuse them.
+// The first check parses the Node types and the library's declarations (emitting those first after a library
+// change: seconds on a loaded machine); later ones reuse them.
 vi.setConfig({ testTimeout: 120_000 });
 
 const session = createTypecheckSession();
