@@ -173,16 +173,26 @@ function importBundlePath(cell: CellSource, context: CompileContext): string {
 }
 
 /** The notebook's own files among esbuild's inputs (not npm packages, not the generated entry). */
-function ownFiles(inputs: readonly string[]): string[] {
+function ownFiles(inputs: readonly string[], notebookDir: string): string[] {
   return inputs
-    .filter(
-      (f) =>
-        f !== "<stdin>" &&
-        !f.includes(IMPORTS_ENTRY) &&
-        !/(^|[/\\])node_modules[/\\]/.test(f) &&
-        !f.includes(":"),
-    )
-    .map((f) => path.resolve(f));
+    .filter((f) => f !== "<stdin>" && !f.includes(IMPORTS_ENTRY) && !f.includes(":"))
+    .map((f) => path.resolve(f))
+    .filter((f) => !inInstalledPackage(f, notebookDir));
+}
+
+/**
+ * True when `file` is inside an installed package: below a node_modules folder, other than one the notebook itself
+ * is inside (a notebook kept under node_modules/.cache imports its packages by paths like ../../culori/…, which
+ * name no node_modules, so the test is made on absolute paths).
+ */
+export function inInstalledPackage(file: string, notebookDir: string): boolean {
+  const parts = file.split(path.sep);
+  for (let i = 0; i < parts.length - 1; i++) {
+    if (parts[i] !== "node_modules") continue;
+    const packageRoot = parts.slice(0, i + 2).join(path.sep);
+    if (!(notebookDir === packageRoot || notebookDir.startsWith(packageRoot + path.sep))) return true;
+  }
+  return false;
 }
 
 /** Bundles one cell's imports on its own; a failure names the cell's import line (or the imported file's). */
@@ -215,7 +225,10 @@ async function bundleCellImports(
       plugins: [tristimExternal(context.tristimModule)],
       metafile: true,
     });
-    return { importBundle, importedFiles: ownFiles(Object.keys(built.metafile?.inputs ?? {})) };
+    return {
+      importBundle,
+      importedFiles: ownFiles(Object.keys(built.metafile?.inputs ?? {}), path.dirname(document.path)),
+    };
   } catch (e) {
     const message = (e as Esbuild.BuildFailure).errors?.[0];
     if (!message) throw e;
@@ -305,7 +318,7 @@ async function bundleAllImports(
     if (!entry) continue;
     result.set(entry.cell.index, {
       importBundle: path.resolve(output),
-      importedFiles: ownFiles(Object.keys(meta.inputs)),
+      importedFiles: ownFiles(Object.keys(meta.inputs), resolveDir),
     });
   }
   if (result.size !== entries.size) {

@@ -12,6 +12,9 @@ import { describe, expect, it } from "vitest";
 import { EXIT } from "../../runner/shared/exit-codes.ts";
 import { readEmbeddedRunRecord } from "../../runner/report/embedded-run-record.ts";
 import { renderReport } from "../../runner/report/render-report.ts";
+import { inInstalledPackage } from "../../runner/compile/compile-cell.ts";
+import { runDocument } from "../../runner/execute/run-notebook.ts";
+import { readNotebook } from "../../runner/parse/parse-notebook.ts";
 import { runText, tempFolder, ts, writeFiles } from "./helpers.ts";
 
 const BIN = fileURLToPath(new URL("../../runner/bin.mjs", import.meta.url));
@@ -143,5 +146,43 @@ describe("tristim run --reproducible", () => {
     const written = html.slice(html.indexOf("<h3>Files written by the cells</h3>"));
     expect(written).toContain("out/abc.txt");
     expect(written).toContain("ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad");
+  });
+});
+
+describe("which imported files are the notebook's own", () => {
+  it("leaves out installed packages, also for a notebook kept below a node_modules folder", () => {
+    const p = path.sep;
+    const at = (...parts: string[]) => [""].concat(parts).join(p);
+    expect(inInstalledPackage(at("w", "node_modules", "culori", "src", "index.js"), at("w", "nb"))).toBe(
+      true,
+    );
+    expect(inInstalledPackage(at("w", "nb", "node_modules", "x", "i.js"), at("w", "nb"))).toBe(true);
+    // A notebook in node_modules/.cache imports culori as ../../culori/src/index.js: still a package file.
+    const cached = at("w", "node_modules", ".cache", "nb");
+    expect(inInstalledPackage(at("w", "node_modules", "culori", "src", "index.js"), cached)).toBe(true);
+    expect(inInstalledPackage(at("w", "node_modules", ".cache", "nb", "helper.ts"), cached)).toBe(false);
+    expect(inInstalledPackage(at("w", "nb", "lib", "helper.ts"), at("w", "nb"))).toBe(false);
+  });
+
+  it("lists no culori file among the imports of a notebook kept in node_modules/.cache", async () => {
+    const cache = path.join(fileURLToPath(new URL("../../node_modules/.cache", import.meta.url)));
+    fs.mkdirSync(cache, { recursive: true });
+    const folder = fs.mkdtempSync(path.join(cache, "tristim-provenance-"));
+    try {
+      writeFiles(folder, {
+        "nb.md":
+          "# Packages (invented)\n\n" +
+          ts(
+            'import { converter } from "culori";\nimport { k } from "./helper.ts";\nconsole.log(typeof converter, k);',
+          ),
+        "helper.ts": "export const k = 2;\n",
+      });
+      const document = readNotebook(path.join(folder, "nb.md"));
+      const run = await runDocument(document);
+      expect(run.cells[0]!.status).toBe("ok");
+      expect(run.filesRead.map((f) => path.basename(f.path))).toEqual(["helper.ts"]);
+    } finally {
+      fs.rmSync(folder, { recursive: true, force: true });
+    }
   });
 });
