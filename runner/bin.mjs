@@ -9,16 +9,34 @@
 // written after the first run, so it holds the functions that run used): node 20 has no code cache for ES modules,
 // and compiling the 1.1 MB bundle afresh took about half of a short command's own time (import of the ES module
 // bundle 180 ms against 85 ms with the cache, measured side by side on a loaded 2-core machine).
-import { createHash } from "node:crypto";
+//
+// Only fs and path are imported up front, so that `--version` loads nothing else; the other built-in modules are
+// imported when the CLI is loaded.
 import fs from "node:fs";
-import Module, { createRequire } from "node:module";
 import path from "node:path";
-import { fileURLToPath, pathToFileURL } from "node:url";
-import vm from "node:vm";
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const root = path.resolve(path.dirname(decodeURIComponent(new URL(import.meta.url).pathname)), "..");
+
+/** The built-in modules the launcher needs beyond fs and path, imported once the CLI is to be loaded. */
+let builtins;
+async function loadBuiltins() {
+  const [crypto, module, url, vm] = await Promise.all([
+    import("node:crypto"),
+    import("node:module"),
+    import("node:url"),
+    import("node:vm"),
+  ]);
+  builtins = {
+    createHash: crypto.createHash,
+    Module: module.default,
+    createRequire: module.createRequire,
+    url,
+    vm: vm.default,
+  };
+}
 
 async function loadCli(argv) {
+  await loadBuiltins();
   if (process.env.TRISTIM_TSX !== "1") {
     try {
       const bundles = await cachedBundle();
@@ -42,6 +60,7 @@ async function loadCli(argv) {
  * time reads either no cache or a whole one, and V8 refuses a cache that does not match the source.
  */
 function loadScript(file) {
+  const { Module, createRequire, vm } = builtins;
   const cacheFile = `${file}.v8cache`;
   let cachedData;
   try {
@@ -73,7 +92,7 @@ function loadScript(file) {
 
 /** Paths of the bundled CLI (and its early start) for the current sources, building them when missing. */
 async function cachedBundle() {
-  const hash = createHash("sha256").update(`${process.version}\0cjs`);
+  const hash = builtins.createHash("sha256").update(`${process.version}\0cjs`);
   const walk = (dir) => {
     for (const entry of fs
       .readdirSync(dir, { withFileTypes: true })
@@ -137,7 +156,7 @@ const keepModuleUrls = {
     build.onLoad({ filter: /[\\/](runner|cells|lib)[\\/].*\.ts$/ }, (args) => ({
       contents: fs
         .readFileSync(args.path, "utf8")
-        .replaceAll("import.meta.url", JSON.stringify(pathToFileURL(args.path).href)),
+        .replaceAll("import.meta.url", JSON.stringify(builtins.url.pathToFileURL(args.path).href)),
       loader: "ts",
     }));
   },
