@@ -3,6 +3,7 @@ import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 import { LAB_FIELDS, LCH_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { isPlainWhite, isPlainXyz } from "../arguments/plain-tristimulus.ts";
 
 export interface Lab {
   readonly L: number;
@@ -42,19 +43,6 @@ const WHITE_FIELDS = {
 // every shape the library checks, and there its field reads and the call of the shape's test are slow polymorphic
 // operations that cost more than the conversion. Each test accepts exactly what checkFields (and requireWhite)
 // accept; anything else goes to the full checks, which throw naming what is wrong.
-function isPlainXyz(v: Tristimulus): boolean {
-  return (
-    typeof v === "object" &&
-    v !== null &&
-    Number.isFinite(v.X) &&
-    Number.isFinite(v.Y) &&
-    Number.isFinite(v.Z) &&
-    !Array.isArray(v)
-  );
-}
-function isPlainWhite(v: Tristimulus): boolean {
-  return isPlainXyz(v) && v.X > 0 && v.Y > 0 && v.Z > 0;
-}
 function isPlainLab(v: Lab): boolean {
   return (
     typeof v === "object" &&

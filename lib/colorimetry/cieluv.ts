@@ -3,6 +3,7 @@ import { hueAngleDegrees } from "./hue-angle.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Tristimulus } from "./chromaticity.ts";
 import { LCH_FIELDS, LUV_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.ts";
+import { isPlainWhite, isPlainXyz } from "../arguments/plain-tristimulus.ts";
 
 export interface Luv {
   readonly L: number;
@@ -37,21 +38,6 @@ function requireXYZ(what: string, name: string, t: Tristimulus, positive: boolea
   }
 }
 
-// The common case of luvFromXYZ's checks, written out here so that it inlines into a cell's loop: checkFields sees
-// every shape the library checks, and there its field reads and the call of the shape's test are slow polymorphic
-// operations that cost more than the conversion. It accepts exactly what checkFields and requireXYZ accept (the
-// white positive); anything else goes to the full checks, which throw naming what is wrong.
-function isPlainXyz(v: Tristimulus): boolean {
-  return (
-    typeof v === "object" &&
-    v !== null &&
-    Number.isFinite(v.X) &&
-    Number.isFinite(v.Y) &&
-    Number.isFinite(v.Z) &&
-    !Array.isArray(v)
-  );
-}
-
 /**
  * CIELUV coordinates relative to a reference white: L* = 116 f(Y/Yn) − 16, u* = 13 L*(u′ − u′n), v* = 13 L*(v′ − v′n).
  *
@@ -62,7 +48,7 @@ function isPlainXyz(v: Tristimulus): boolean {
  * @example luvFromXYZ({ X: 41.24, Y: 21.26, Z: 1.93 }, { X: 95.047, Y: 100, Z: 108.883 })
  */
 export function luvFromXYZ(t: Tristimulus, white: Tristimulus): Luv {
-  if (!(isPlainXyz(t) && isPlainXyz(white) && white.X > 0 && white.Y > 0 && white.Z > 0)) {
+  if (!(isPlainXyz(t) && isPlainWhite(white))) {
     checkFields("luvFromXYZ", "t", t, XYZ_FIELDS);
     checkFields("luvFromXYZ", "white", white, XYZ_FIELDS);
     requireXYZ("luvFromXYZ", "the colour", t, false);

@@ -8,6 +8,7 @@ import { RGB_FIELDS, XYZ_FIELDS, checkFields } from "../arguments/check-fields.t
 import { checkNumber } from "../arguments/check-number.ts";
 import { checkOptions } from "../arguments/check-options.ts";
 import { checkRgbSpace } from "../arguments/common-arguments.ts";
+import { isPlainXyz } from "../arguments/plain-tristimulus.ts";
 
 export interface Rgb {
   readonly r: number;
@@ -36,16 +37,6 @@ const NO_OPTIONS: { readonly encode?: boolean; readonly decode?: boolean } = Obj
 // (checkFields, checkRgbSpace) see every shape the library checks, and there their field reads and the call of the
 // shape's test are slow polymorphic operations that cost more than the conversion. Each test accepts exactly what
 // the shared check accepts; anything else goes to the shared check, which throws naming what is wrong.
-function isPlainXyz(v: Tristimulus): boolean {
-  return (
-    typeof v === "object" &&
-    v !== null &&
-    Number.isFinite(v.X) &&
-    Number.isFinite(v.Y) &&
-    Number.isFinite(v.Z) &&
-    !Array.isArray(v)
-  );
-}
 function isPlainRgb(v: Rgb): boolean {
   return (
     typeof v === "object" &&

@@ -12,6 +12,7 @@ import type * as Esbuild from "esbuild";
 import { esbuild, esbuildVersion } from "../shared/lazy-esbuild.ts";
 import { BANNER } from "../shared/require-banner.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
+import { stampFile, stampTree } from "../shared/source-stamp.ts";
 
 /** Paths of a built runtime. */
 export interface RuntimeBundle {
@@ -86,33 +87,9 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
 function sourceKey(): string {
   const hash = createHash("sha256");
   hash.update(`${process.version}\n${esbuildVersion()}\n${PACKAGE_ROOT}\n`);
-  for (const folder of ["lib", "cells"]) walk(path.join(PACKAGE_ROOT, folder), hash);
-  for (const file of ["package.json", "package-lock.json"]) stamp(path.join(PACKAGE_ROOT, file), hash);
+  for (const folder of ["lib", "cells"]) stampTree(path.join(PACKAGE_ROOT, folder), hash);
+  for (const file of ["package.json", "package-lock.json"]) stampFile(path.join(PACKAGE_ROOT, file), hash);
   return hash.digest("hex").slice(0, 20);
-}
-
-function walk(folder: string, hash: ReturnType<typeof createHash>): void {
-  let entries: fs.Dirent[];
-  try {
-    entries = fs.readdirSync(folder, { withFileTypes: true });
-  } catch {
-    return;
-  }
-  entries.sort((a, b) => (a.name < b.name ? -1 : 1));
-  for (const entry of entries) {
-    const full = path.join(folder, entry.name);
-    if (entry.isDirectory()) walk(full, hash);
-    else stamp(full, hash);
-  }
-}
-
-function stamp(file: string, hash: ReturnType<typeof createHash>): void {
-  try {
-    const s = fs.statSync(file);
-    hash.update(`${file}\0${s.size}\0${s.mtimeMs}\n`);
-  } catch {
-    hash.update(`${file}\0missing\n`);
-  }
 }
 
 /** Removes cached bundles older than a day (other than the current one). */

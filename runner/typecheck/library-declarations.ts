@@ -14,6 +14,7 @@ import { cacheRoot } from "../execute/runtime-bundle.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 import { entryExportNames } from "./cell-globals.ts";
 import ts from "./typescript.ts";
+import { stampFile, stampTree } from "../shared/source-stamp.ts";
 
 /** A complete set of cached declarations. */
 export interface LibraryDeclarations {
@@ -152,33 +153,9 @@ function emitDeclarations(
 export function declarationKey(root: string): string {
   const hash = createHash("sha256");
   hash.update(`${FORMAT}\n${ts.version}\n${root}\n`);
-  for (const folder of ["lib", "cells"]) walk(path.join(root, folder), hash);
-  for (const file of ["package.json", "package-lock.json"]) stamp(path.join(root, file), hash);
+  for (const folder of ["lib", "cells"]) stampTree(path.join(root, folder), hash);
+  for (const file of ["package.json", "package-lock.json"]) stampFile(path.join(root, file), hash);
   return hash.digest("hex").slice(0, 20);
-}
-
-function walk(folder: string, hash: ReturnType<typeof createHash>): void {
-  let entries: fs.Dirent[];
-  try {
-    entries = fs.readdirSync(folder, { withFileTypes: true });
-  } catch {
-    return;
-  }
-  entries.sort((a, b) => (a.name < b.name ? -1 : 1));
-  for (const entry of entries) {
-    const full = path.join(folder, entry.name);
-    if (entry.isDirectory()) walk(full, hash);
-    else stamp(full, hash);
-  }
-}
-
-function stamp(file: string, hash: ReturnType<typeof createHash>): void {
-  try {
-    const s = fs.statSync(file);
-    hash.update(`${file}\0${s.size}\0${s.mtimeMs}\n`);
-  } catch {
-    hash.update(`${file}\0missing\n`);
-  }
 }
 
 /** Removes other keys' declarations older than a day (a watch started before a change may still read them). */
