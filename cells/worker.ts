@@ -19,7 +19,7 @@ import { inputs as runInputs, setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
 import type { CellRuntime, FromCellProcess, RawError, RunCellMessage, ToCellProcess } from "./protocol.ts";
 import type { FailureKind, MethodNote } from "./records.ts";
-import { readOnly } from "../lib/data/read-only.ts";
+import { sameFingerprint, sharedTableChanged, tablesFingerprint } from "../lib/data/shared-tables.ts";
 import { restoreBaseline, takeBaseline, type ProcessBaseline } from "./run-baseline.ts";
 
 const realExit = process.exit.bind(process);
@@ -72,6 +72,8 @@ interface WorkerState {
   timers: Set<{ readonly clear: () => void }>;
   /** Set when a cell loaded an ES module at run time (import()): node keeps it, so the process is not handed on. */
   loadedModules: boolean;
+  /** The fingerprint of the library's tables when the process became ready (lib/data/shared-tables.ts). */
+  tables: number[];
 }
 
 const state: WorkerState = {
@@ -92,6 +94,7 @@ const state: WorkerState = {
   baseline: undefined,
   timers: new Set(),
   loadedModules: false,
+  tables: [],
 };
 
 /** How long timers left pending by the cells may still fire after the last cell (README, "When something goes wrong"). */
@@ -502,8 +505,6 @@ async function start(): Promise<void> {
   try {
     state.lib = { ...(await import("./tristim-entry.ts")) };
     resetLibraryLog();
-    // The library's exported tables (observers, data tables) are read-only, as the cached ones it hands out are.
-    for (const value of Object.values(state.lib)) if (typeof value === "object") readOnly(value);
   } catch (e) {
     send({ type: "startup-failed", error: toRawError(e, "startup") });
     setTimeout(() => realExit(1), 50);
@@ -515,6 +516,15 @@ async function start(): Promise<void> {
   });
   // Last, so that the harness's own listeners and patches belong to the baseline.
   state.baseline = takeBaseline({ "the tristim module": state.lib });
+  state.tables = tablesFingerprint(exportedTables());
+}
+
+/** The library's exported constants that are tables (observers, data tables), for the fingerprint. */
+function exportedTables(): unknown[] {
+  // `inputs` is each run's own, set at "init".
+  return Object.entries(state.lib)
+    .filter(([name, v]) => name !== "inputs" && typeof v === "object" && v !== null)
+    .map(([, v]) => v);
 }
 
 function resetLibraryLog(): void {
@@ -586,6 +596,9 @@ async function finish(reuse: boolean): Promise<void> {
  */
 async function reset(): Promise<boolean> {
   if (!state.baseline || state.loadedModules || state.lateError !== undefined) return false;
+  // A run that wrote into a library table (an observer, illuminant("D65")) would change every later result.
+  if (sharedTableChanged() || !sameFingerprint(state.tables, tablesFingerprint(exportedTables())))
+    return false;
   for (const timer of state.timers) timer.clear();
   state.timers.clear();
   // Give the cleared handles a turn to close before the active resources are counted.

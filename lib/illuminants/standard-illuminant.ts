@@ -7,7 +7,7 @@ import { spectrumOnGrid, type Spectrum } from "../spectrum/spectrum.ts";
 import { daylightSpectrum } from "./daylight.ts";
 import { illuminantA } from "./illuminant-a.ts";
 import { checkWith } from "../arguments/check-with.ts";
-import { readOnly } from "../data/read-only.ts";
+import { sharedTable } from "../data/shared-tables.ts";
 
 /**
  * The nominal CCTs of D50, D55, D75 corrected for the change of c2 from 1.4380e-2 to 1.4388e-2 m·K
@@ -81,7 +81,7 @@ export function illuminant(name: string): Spectrum {
   if (!key) throw new Error(`unknown illuminant "${name}"; known names: ${illuminantNames().join(", ")}`);
   let s = cache.get(key);
   if (!s) {
-    s = readOnly(BUILDERS[key]!());
+    s = sharedTable(BUILDERS[key]!());
     cache.set(key, s);
   }
   return s;

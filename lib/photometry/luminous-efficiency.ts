@@ -5,7 +5,7 @@ import { KM_PHOTOPIC } from "../colorimetry/tristimulus.ts";
 import { CIE_1931_2_DEGREE } from "../observers/standard-observer.ts";
 import { spectrum, type Spectrum } from "../spectrum/spectrum.ts";
 import { checkChoice } from "../arguments/check-text.ts";
-import { readOnly } from "../data/read-only.ts";
+import { sharedTable } from "../data/shared-tables.ts";
 
 /** Km = 683 lm/W, maximum luminous efficacy for photopic vision (CIE 018:2019 §3; the SI value Kcd at 540 THz). */
 export const KM = KM_PHOTOPIC;
@@ -28,7 +28,7 @@ let scotopic: Spectrum | undefined;
 export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
   checkChoice("luminousEfficiency", "vision", vision, ["photopic", "scotopic"]);
   if (vision === "photopic") {
-    photopic ??= readOnly(
+    photopic ??= sharedTable(
       spectrum(CIE_1931_2_DEGREE.wavelengths, CIE_1931_2_DEGREE.yBar, {
         name: "CIE photopic V(λ)",
         quantity: "luminous efficiency",
@@ -37,7 +37,7 @@ export function luminousEfficiency(vision: Vision = "photopic"): Spectrum {
     return photopic;
   }
   if (vision === "scotopic") {
-    scotopic ??= readOnly(
+    scotopic ??= sharedTable(
       tableColumn(CIE_SCOTOPIC_TABLE, "V'", {
         name: "CIE scotopic V′(λ)",
         quantity: "luminous efficiency",

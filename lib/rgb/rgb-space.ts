@@ -15,7 +15,7 @@ import { XY_FIELDS, checkFields } from "../arguments/check-fields.ts";
 import { checkOptions } from "../arguments/check-options.ts";
 import { checkWith } from "../arguments/check-with.ts";
 import { checkPrimaries } from "../arguments/option-sets.ts";
-import { readOnly } from "../data/read-only.ts";
+import { sharedTable } from "../data/shared-tables.ts";
 
 export interface RgbPrimaries {
   readonly r: Chromaticity;
@@ -327,7 +327,7 @@ export function rgbSpace(name: string): RgbSpace {
       { name: key, transfer: d.transfer, source: d.source },
       d.imaginary ?? false,
     );
-    cache.set(key, readOnly(space));
+    cache.set(key, sharedTable(space));
   }
   return space;
 }

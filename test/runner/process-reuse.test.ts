@@ -2,8 +2,8 @@
  * Runs that hand their cell process on (the default for the runs of a batch and for several notebooks of one folder):
  * the next run must see a process as if it were new. Each notebook here leaves behind what a careless cell might
  * (globals, a patched built-in prototype and fs function, an environment variable, another working folder, a
- * running interval, a changed library table, module state in a helper file) and the next run reports what it sees.
- * A run that leaves a server open or loaded an ES module with import() must not hand its process on.
+ * running interval, module state in a helper file) and the next run reports what it sees. A run that leaves a
+ * server open, loaded an ES module with import() or wrote into a library table must not hand its process on.
  */
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
@@ -49,13 +49,6 @@ const CARELESS = [
       'process.chdir("/");',
       "process.exitCode = 3;",
       "setInterval(() => undefined, 60_000);",
-      "// Library tables are read-only: a write throws (strict mode) and changes nothing.",
-      "for (const write of [",
-      '  () => ((illuminant("D65").values as number[])[260] = -1),',
-      "  () => ((CIE_1931_2_DEGREE.yBar as number[])[200] = -1),",
-      "]) {",
-      "  try { write(); } catch {}",
-      "}",
       "process.exitCode = undefined;",
     ].join("\n"),
   ),
@@ -136,6 +129,11 @@ describe("a cell process handed on to the next run", () => {
       'import net from "node:net";\nnet.createServer().listen(0, "127.0.0.1");\nconsole.log("pid " + process.pid);',
     ],
     [
+      "a library table written (an observer and a cached illuminant)",
+      '(CIE_1931_2_DEGREE.yBar as number[])[200] = -1;\n(illuminant("D65").values as number[])[260] = -1;\n' +
+        'console.log("pid " + process.pid);',
+    ],
+    [
       "an ES module loaded with import()",
       'const m = await import("./counter.mjs");\nm.nextCount();\nconsole.log("pid " + process.pid);',
     ],
@@ -185,4 +183,24 @@ describe("--each with a shared cell process", () => {
     // The running total never carries over: each run starts from nothing.
     expect(fs.readFileSync(path.join(folder, "shared", "c.html"), "utf8")).not.toMatch(/>6</);
   }, 120_000);
+});
+
+describe("a run after one that wrote into a library table", () => {
+  it("gets a new process, and the tables as the library made them", async () => {
+    const file = notebookFile(
+      "---\ntitle: Table writes (invented)\ninputs:\n  n: 0\n---\n\n" +
+        ts(
+          'console.log(JSON.stringify([CIE_1931_2_DEGREE.yBar[200], valueAt(illuminant("D65"), 560), process.pid]));\n' +
+            '(CIE_1931_2_DEGREE.yBar as number[])[200] = -1;\n(illuminant("D65").values as number[])[260] = -1;',
+        ),
+    );
+    folders.push(path.dirname(file));
+    const runs = await runsOf(file, 2, true);
+    const [first, second] = runs.map((r) => JSON.parse(consoleText(r, 0).trim()) as [number, number, number]);
+    // ȳ(560 nm) = 0.995 (CIE 018:2019); D65 at 560 nm = 100.000 (CIE 015:2018, Table 5).
+    expect(first![0]).toBeCloseTo(0.995, 3);
+    expect(second![0]).toBeCloseTo(0.995, 3);
+    expect(second![1]).toBeCloseTo(100, 6);
+    expect(second![2]).not.toBe(first![2]);
+  }, 60_000);
 });
