@@ -616,7 +616,12 @@ export function printOutcome(
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
-  if (notRun.length) io.err(`  ${describeCells(notRun)} not run (use --keep-going to run them anyway)\n`);
+  // A notebook with a cell that does not compile runs no cell at all (ExecutionState.refuseUncompiled).
+  const ranNothing = run.cells.every((c) => c.status !== "ok" && c.durationMs === undefined);
+  if (notRun.length)
+    io.err(
+      `  ${describeCells(notRun)} not run${ranNothing ? ": a notebook runs when all its cells compile" : ""} (use --keep-going to run them anyway)\n`,
+    );
   for (const c of failedChecks) io.err(`  check failed (cell ${c.cell + 1}): ${checkLine(c.record)}\n`);
   io.err(`  report with the error: ${shown(target)}\n`);
   return EXIT.notebookFailed;

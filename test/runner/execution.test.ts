@@ -216,6 +216,20 @@ describe("failures", { timeout: 60_000 }, () => {
     expect(error.location).toEqual({ file: document.path, line: 5, column: 11 });
   });
 
+  it("runs no cell of a notebook with cells that do not compile, and names every such cell", async () => {
+    const text =
+      ts("console.log('first');") + ts("const b = (1 + ;") + ts("console.log('third');") + ts("const c = ];");
+    const { run } = await runText(text);
+    expect(run.cells.map((c) => c.status)).toEqual(["not-run", "failed", "not-run", "failed"]);
+    expect(errorOf(run, 1).failure).toBe("compile");
+    expect(errorOf(run, 3).failure).toBe("compile");
+    expect(run.events.join(" ")).toContain("No cell was run: cells 2 and 4 do not compile");
+    // With --keep-going the cells that compile run.
+    const going = await runText(text, { keepGoing: true });
+    expect(going.run.cells.map((c) => c.status)).toEqual(["ok", "failed", "ok", "failed"]);
+    expect(consoleText(going.run, 2).trim()).toBe("third");
+  });
+
   it("maps errors thrown inside functions of earlier cells and of imported files", async () => {
     const { document, run } = await runText(
       ts(
