@@ -23,7 +23,6 @@ import { sameFingerprint, sharedTableChanged, tablesFingerprint } from "../lib/d
 import { restoreBaseline, takeBaseline, type ProcessBaseline } from "./run-baseline.ts";
 
 const realExit = process.exit.bind(process);
-const realStderrWrite = process.stderr.write.bind(process.stderr);
 const realSetTimeout = setTimeout;
 const realSetImmediate = setImmediate;
 const send = (message: FromCellProcess): void => {
@@ -68,8 +67,8 @@ interface WorkerState {
   runNumber: number;
   /** The state recorded once the library loaded, put back between runs (run-baseline.ts). */
   baseline: ProcessBaseline | undefined;
-  /** Timers and immediates scheduled through the globals since the run began (cleared before a reuse). */
-  timers: Set<{ readonly clear: () => void }>;
+  /** Timers and immediates scheduled through the globals and not yet fired (cleared before a reuse). */
+  timers: Set<() => void>;
   /** Set when a cell loaded an ES module at run time (import()): node keeps it, so the process is not handed on. */
   loadedModules: boolean;
   /** The fingerprint of the library's tables when the process became ready (lib/data/shared-tables.ts). */
@@ -178,18 +177,19 @@ function installTimerTracking(): void {
   for (const name of ["setTimeout", "setInterval", "setImmediate"]) {
     const original = g[name]!;
     const clear = clears[name]!;
+    const repeats = name === "setInterval";
     g[name] = function (this: unknown, callback: unknown, ...rest: unknown[]) {
+      if (typeof callback !== "function") return original.call(this, callback, ...rest);
       const cell = state.currentCell;
-      let handle: unknown;
-      if (typeof callback !== "function" || cell === null) handle = original.call(this, callback, ...rest);
-      else {
-        const tracked = function (this: unknown, ...args: unknown[]) {
-          state.callbackCell = cell;
-          return (callback as (...a: unknown[]) => unknown).apply(this, args);
-        };
-        handle = original.call(this, tracked, ...rest);
-      }
-      state.timers.add({ clear: () => clear(handle) });
+      // Kept until it fires (an interval until cleared), so that a reuse can clear what is still pending.
+      const forget = () => clear(handle);
+      const tracked = function (this: unknown, ...args: unknown[]) {
+        if (cell !== null) state.callbackCell = cell;
+        if (!repeats) state.timers.delete(forget);
+        return (callback as (...a: unknown[]) => unknown).apply(this, args);
+      };
+      const handle = original.call(this, tracked, ...rest);
+      state.timers.add(forget);
       return handle;
     };
   }
@@ -599,13 +599,11 @@ async function reset(): Promise<boolean> {
   // A run that wrote into a library table (an observer, illuminant("D65")) would change every later result.
   if (sharedTableChanged() || !sameFingerprint(state.tables, tablesFingerprint(exportedTables())))
     return false;
-  for (const timer of state.timers) timer.clear();
+  for (const clear of state.timers) clear();
   state.timers.clear();
   // Give the cleared handles a turn to close before the active resources are counted.
   await new Promise((resolve) => realSetImmediate(resolve));
   const outcome = restoreBaseline(state.baseline);
-  if (process.env.TRISTIM_DEBUG && !outcome.clean)
-    realStderrWrite(`tristim cell process not reused: ${outcome.leftovers.join("; ")}\n`);
   state.currentCell = null;
   state.lastCell = null;
   state.callbackCell = null;
