@@ -616,8 +616,13 @@ export function printOutcome(
     );
   }
   const notRun = run.cells.filter((c) => c.status === "not-run").map((c) => c.index + 1);
-  // A notebook with a cell that does not compile runs no cell at all (ExecutionState.refuseUncompiled).
-  const ranNothing = run.cells.every((c) => c.status !== "ok" && c.durationMs === undefined);
+  // A notebook with a cell that does not compile runs no cell at all (ExecutionState.refuseUncompiled): every
+  // failure is a compile error and no cell took any time.
+  const ranNothing = run.cells.every(
+    (c) =>
+      c.durationMs === undefined &&
+      (c.status !== "failed" || c.outputs.some((o) => o.kind === "error" && o.failure === "compile")),
+  );
   if (notRun.length)
     io.err(
       `  ${describeCells(notRun)} not run${ranNothing ? ": a notebook runs when all its cells compile" : ""} (use --keep-going to run them anyway)\n`,

@@ -92,32 +92,30 @@ export class ExecutionState {
    */
   refuseUncompiled(): boolean {
     if (this.options.keepGoing) return false;
-    const uncompiled = this.document.cells.filter((cell) => {
-      const unit = this.compiled[cell.index];
-      return !cell.options.noRun && !cell.options.mayFail && (!unit?.code || unit.failure);
-    });
+    const uncompiled = this.document.cells.filter(
+      (cell) => !cell.options.noRun && !cell.options.mayFail && this.compileFailure(cell.index),
+    );
     if (uncompiled.length === 0) return false;
     for (const cell of this.document.cells) {
-      if (cell.options.noRun) this.record({ index: cell.index, status: "listing", outputs: [], reads: [] });
-      else if (uncompiled.includes(cell)) {
-        const error =
-          this.compiled[cell.index]?.failure ??
-          cellLevelError("compile", "the cell could not be compiled", cell.index, this.document);
-        this.slots[cell.index]!.outputs.push(error);
-        this.record({
-          index: cell.index,
-          status: "failed",
-          outputs: this.slots[cell.index]!.outputs,
-          reads: [],
-        });
-      } else this.record({ index: cell.index, status: "not-run", outputs: [], reads: [] });
+      const failure = uncompiled.includes(cell) ? this.compileFailure(cell.index) : undefined;
+      if (failure) this.fail(cell.index, failure);
+      else {
+        const status = cell.options.noRun ? "listing" : "not-run";
+        this.record({ index: cell.index, status, outputs: [], reads: [] });
+      }
     }
     const which = describeCells(uncompiled.map((c) => c.index + 1));
     this.events.push(
       `No cell was run: ${which} ${uncompiled.length > 1 ? "do" : "does"} not compile. A notebook runs when all its cells compile (with --keep-going the others run).`,
     );
-    this.stopped = `${which} did not compile`;
     return true;
+  }
+
+  /** The error of cell `index` when it did not compile (undefined when it did). */
+  private compileFailure(index: number): ErrorRecord | undefined {
+    const unit = this.compiled[index];
+    if (unit?.code && !unit.failure) return undefined;
+    return unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, this.document);
   }
 
   /** Step: runs cell `index` (or marks it a listing or not run) and records its CellRun. */
@@ -125,12 +123,10 @@ export class ExecutionState {
     const cell = this.document.cells[index]!;
     if (cell.options.noRun) return this.record({ index, status: "listing", outputs: [], reads: [] });
     if (this.stopped) return this.record({ index, status: "not-run", outputs: [], reads: [] });
-    const unit = this.compiled[index];
-    if (!unit?.code || unit.failure) {
-      const error =
-        unit?.failure ?? cellLevelError("compile", "the cell could not be compiled", index, this.document);
-      return this.fail(index, error);
-    }
+    const failure = this.compileFailure(index);
+    if (failure) return this.fail(index, failure);
+    // compileFailure found none, so the cell has its code.
+    const unit = this.compiled[index] as CompiledCell & { readonly code: string };
     const process = await this.startProcess(index);
     if (!process) return;
     const limit = cell.options.timeLimitMs ?? this.options.timeLimitMs;
