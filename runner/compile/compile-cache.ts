@@ -110,14 +110,20 @@ export function importsKey(
 
 /** The folder a build of the import bundles for `key` writes to (then renamed by keepImports). */
 export function importsBuildFolder(key: string): string {
-  return path.join(folderOf("imports"), `${key}.${process.pid}.${Date.now().toString(36)}.tmp`);
+  return path.join(folderOf("imports"), `${key}-${process.pid}-${Date.now().toString(36)}.tmp`);
 }
 
-/** The kept import bundles for `key`, when every file they were made from is unchanged. */
+/**
+ * The kept import bundles for `key`, when every file they were made from is unchanged. `<key>.json` names the
+ * folder of the newest build; a folder is never changed once kept, so a run still importing from an older one is
+ * not disturbed by a rebuild.
+ */
 export function cachedImports(key: string): Map<number, CellImportBundle> | undefined {
-  const folder = path.join(folderOf("imports"), key);
+  let folder: string;
   let manifest: ImportsManifest;
   try {
+    const pointer = JSON.parse(fs.readFileSync(pointerOf(key), "utf8")) as { folder: string };
+    folder = path.join(folderOf("imports"), path.basename(pointer.folder));
     manifest = JSON.parse(fs.readFileSync(path.join(folder, "manifest.json"), "utf8")) as ImportsManifest;
     for (const [file, size, mtimeMs] of manifest.inputs) {
       const s = fs.statSync(file);
@@ -145,7 +151,7 @@ export function keepImports(
   bundles: Map<number, CellImportBundle>,
   inputs: readonly string[],
 ): Map<number, CellImportBundle> {
-  const folder = path.join(folderOf("imports"), key);
+  const folder = built.replace(/\.tmp$/, "");
   try {
     const manifest: ImportsManifest = {
       inputs: inputs.map((file) => {
@@ -155,26 +161,35 @@ export function keepImports(
       bundles: [...bundles].map(([cell, b]) => [cell, path.relative(built, b.importBundle), b.importedFiles]),
     };
     fs.writeFileSync(path.join(built, "manifest.json"), JSON.stringify(manifest));
-    fs.rmSync(folder, { recursive: true, force: true });
     fs.renameSync(built, folder);
+    const temporary = `${pointerOf(key)}.${process.pid}.tmp`;
+    fs.writeFileSync(temporary, JSON.stringify({ folder: path.basename(folder) }));
+    fs.renameSync(temporary, pointerOf(key));
   } catch {
-    // Another run kept the same bundles at the same time, or the cache cannot be written: use what was built.
-    if (fs.existsSync(path.join(folder, "manifest.json"))) {
-      const kept = cachedImports(key);
-      if (kept) {
-        fs.rmSync(built, { recursive: true, force: true });
-        return kept;
-      }
-    }
-    return bundles;
+    // The cache cannot be written: use the bundles where they were built.
+    return fs.existsSync(built) ? bundles : relocated(bundles, built, folder);
   }
   pruneOnce();
+  return relocated(bundles, built, folder);
+}
+
+/** The bundles with their paths moved from folder `from` to folder `to`. */
+function relocated(
+  bundles: Map<number, CellImportBundle>,
+  from: string,
+  to: string,
+): Map<number, CellImportBundle> {
   return new Map(
     [...bundles].map(([cell, b]) => [
       cell,
-      { ...b, importBundle: path.join(folder, path.relative(built, b.importBundle)) },
+      { ...b, importBundle: path.join(to, path.relative(from, b.importBundle)) },
     ]),
   );
+}
+
+/** The file that names the newest kept build for `key`. */
+function pointerOf(key: string): string {
+  return path.join(folderOf("imports"), `${key}.json`);
 }
 
 function touch(file: string): void {
@@ -202,8 +217,9 @@ function pruneOnce(): void {
     }
     for (const name of names) {
       const full = path.join(folderOf(kind), name);
-      const building = name.endsWith(".tmp");
-      const stamp = kind === "imports" && !building ? path.join(full, "manifest.json") : full;
+      // A build in progress (.tmp) and a pointer (.json) by their own time, a kept build by its manifest's.
+      const kept = kind === "imports" && !name.endsWith(".tmp") && !name.endsWith(".json");
+      const stamp = kept ? path.join(full, "manifest.json") : full;
       try {
         if (fs.statSync(stamp).mtimeMs < weekAgo) fs.rmSync(full, { recursive: true, force: true });
       } catch {
