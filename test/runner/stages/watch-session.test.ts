@@ -20,6 +20,9 @@ async function withSession(
     keepGoing: false,
     linkAssets: false,
     quiet: true,
+    // The steps call build() themselves: file events must not add builds of their own (under load a 40 ms
+    // debounce fired between steps and a fourth render appeared), so their debounce outlasts any test.
+    debounceMs: 600_000,
   });
   const renders: RenderEvent[] = [];
   session.events.on("render", (e: RenderEvent) => renders.push(e));
