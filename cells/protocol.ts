@@ -21,6 +21,12 @@ export interface RunCellMessage {
   readonly filename: string;
   /** Absolute path of the bundle of the cell's imports, if it has any (other than "tristim"). */
   readonly importBundle?: string;
+  /**
+   * Set when the runner sent this cell ahead, while cell `unlessFailed` still ran (so the harness starts it without
+   * waiting for a round trip): the harness skips it, sending nothing, when that cell failed, since the runner stops
+   * there.
+   */
+  readonly unlessFailed?: number;
 }
 
 /**

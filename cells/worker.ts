@@ -49,6 +49,8 @@ interface WorkerState {
   /** The cell running now, or the last one that ran (for output written later by its timers). */
   currentCell: number | null;
   lastCell: number | null;
+  /** The last cell that ran, when it failed (a cell sent ahead `unlessFailed` it is then skipped). */
+  lastFailed: number | null;
   /** The running cell's output and the files it read. */
   output: CellOutput;
   reads: Set<string>;
@@ -81,6 +83,7 @@ const state: WorkerState = {
   lib: {},
   currentCell: null,
   lastCell: null,
+  lastFailed: null,
   output: new CellOutput(),
   reads: new Set(),
   writes: new Set(),
@@ -483,6 +486,7 @@ async function runCell(message: RunCellMessage): Promise<void> {
     methods: methodLog(),
   });
   state.lastCell = state.currentCell;
+  state.lastFailed = error ? message.cell : null;
   state.currentCell = null;
 }
 
@@ -551,6 +555,7 @@ async function handle(message: ToCellProcess): Promise<void> {
     }
     send({ type: "ready" });
   } else if (message.type === "run") {
+    if (message.unlessFailed !== undefined && message.unlessFailed === state.lastFailed) return;
     await runCell(message);
   } else if (message.type === "finish") {
     await finish(message.reuse === true);
@@ -606,6 +611,7 @@ async function reset(): Promise<boolean> {
   const outcome = restoreBaseline(state.baseline);
   state.currentCell = null;
   state.lastCell = null;
+  state.lastFailed = null;
   state.callbackCell = null;
   state.output = new CellOutput();
   state.reads = new Set();

@@ -96,6 +96,14 @@ export class CellProcess {
   }
 
   /**
+   * Sends a cell's run ahead, while the cell before it still runs, so the process starts it without waiting for a
+   * round trip through the runner; `run` with the same cell later waits for it (its time limit counted from then).
+   */
+  sendAhead(message: Extract<ToCellProcess, { type: "run" }>): void {
+    if (!this.released) this.host.sendAhead(message);
+  }
+
+  /**
    * Asks for the method log and ends the process; with `reuse`, a process that comes back clean (cells/run-
    * baseline.ts) is handed to the idle pool instead, and this hold is released. Undefined when it does not answer.
    */
@@ -135,6 +143,8 @@ class ProcessHost {
   private stderrTail = "";
   private readonly limitMb = memoryLimitMb();
   private listeners = new Set<(message: FromCellProcess) => void>();
+  /** Cells whose run was sent ahead, with their "done" once it came (it may come before anyone waits for it). */
+  private readonly ahead = new Map<number, Extract<FromCellProcess, { type: "done" }> | undefined>();
   private exitListeners = new Set<() => void>();
 
   /** Receives the records of running cells (set by whoever runs the cells). */
@@ -159,6 +169,7 @@ class ProcessHost {
     this.child.stdout?.on("data", keepTail);
     this.child.on("message", (message: FromCellProcess) => {
       if (message.type === "output") this.onOutput(message.cell, message.records);
+      else if (message.type === "done" && this.ahead.has(message.cell)) this.ahead.set(message.cell, message);
       for (const listener of [...this.listeners]) listener(message);
     });
     this.child.on("error", (error) => {
@@ -187,6 +198,8 @@ class ProcessHost {
     const cell =
       takeSpare(runtime, path.dirname(notebookPath)) ?? new ProcessHost(runtime, path.dirname(notebookPath));
     cell.runs++;
+    // A cell sent ahead in the last run and skipped there is not this run's.
+    cell.ahead.clear();
     cell.send({ type: "init", notebookPath, inputs });
     const answer = await cell.wait(
       (m) => m.type === "ready" || m.type === "startup-failed",
@@ -256,8 +269,11 @@ class ProcessHost {
     signal?: AbortSignal,
   ): Promise<CellOutcome> {
     const started = performance.now();
-    this.send(message);
-    const answer = await this.wait((m) => m.type === "done" && m.cell === message.cell, timeLimitMs, signal);
+    if (!this.ahead.has(message.cell)) this.send(message);
+    const answer =
+      this.ahead.get(message.cell) ??
+      (await this.wait((m) => m.type === "done" && m.cell === message.cell, timeLimitMs, signal));
+    this.ahead.delete(message.cell);
     const durationMs = performance.now() - started;
     if (answer === "timeout") {
       this.kill();
@@ -277,6 +293,12 @@ class ProcessHost {
       writes: done.writes ?? [],
       methods: done.methods ?? [],
     };
+  }
+
+  /** See CellProcess.sendAhead. */
+  sendAhead(message: Extract<ToCellProcess, { type: "run" }>): void {
+    this.ahead.set(message.cell, undefined);
+    this.send(message);
   }
 
   /**

@@ -9,6 +9,7 @@
  * last method notes, and an error raised after the cells finished, given to the cell that left code running).
  */
 import type { InputValue } from "../../cells/inputs.ts";
+import type { RunCellMessage } from "../../cells/protocol.ts";
 import type { ErrorRecord, OutputRecord } from "../../cells/records.ts";
 import { CellProcess, CellProcessStartError } from "./cell-process.ts";
 import type { CompiledCell } from "../compile/compile-cell.ts";
@@ -125,16 +126,12 @@ export class ExecutionState {
     if (this.stopped) return this.record({ index, status: "not-run", outputs: [], reads: [] });
     const failure = this.compileFailure(index);
     if (failure) return this.fail(index, failure);
-    // compileFailure found none, so the cell has its code.
-    const unit = this.compiled[index] as CompiledCell & { readonly code: string };
     const process = await this.startProcess(index);
     if (!process) return;
     const limit = cell.options.timeLimitMs ?? this.options.timeLimitMs;
-    const outcome = await process.run(
-      { type: "run", cell: index, code: unit.code, filename: unit.filename, importBundle: unit.importBundle },
-      limit,
-      this.options.signal,
-    );
+    const running = process.run(this.runMessage(index), limit, this.options.signal);
+    this.sendNextAhead(index, process);
+    const outcome = await running;
     this.lastRan = index;
     if (outcome.kind === "time-limit") {
       const how =
@@ -169,6 +166,33 @@ export class ExecutionState {
         ...writes,
       });
     }
+  }
+
+  /** The "run" message of a cell that compiled. */
+  private runMessage(index: number): RunCellMessage {
+    // Only cells that compiled are run, so the cell has its code.
+    const unit = this.compiled[index] as CompiledCell & { readonly code: string };
+    return {
+      type: "run",
+      cell: index,
+      code: unit.code,
+      filename: unit.filename,
+      importBundle: unit.importBundle,
+    };
+  }
+
+  /**
+   * While cell `index` runs, sends the next cell that will run to the same process, so it starts as soon as this one
+   * ends instead of a round trip later (about 1.5 ms a cell, more after large outputs). When a failure of `index`
+   * stops the run, the process is told to skip it in that case. Not past a cell that did not compile (it fails here,
+   * without the process).
+   */
+  private sendNextAhead(index: number, process: CellProcess): void {
+    let next = index + 1;
+    while (next < this.document.cells.length && this.document.cells[next]!.options.noRun) next++;
+    if (next >= this.document.cells.length || this.compileFailure(next)) return;
+    const stopsOnFailure = !this.document.cells[index]!.options.mayFail && !this.options.keepGoing;
+    process.sendAhead({ ...this.runMessage(next), ...(stopsOnFailure ? { unlessFailed: index } : {}) });
   }
 
   /**

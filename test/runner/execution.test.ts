@@ -2,6 +2,7 @@
  * Execution semantics, end to end: notebooks in temporary folders run through the real pipeline (esbuild, the cell
  * process, records). Each test asserts behaviour a notebook user relies on.
  */
+import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { consoleText, errorOf, outputsOf, runText, ts } from "./helpers.ts";
@@ -206,6 +207,28 @@ describe("failures", { timeout: 60_000 }, () => {
     expect(error.location).toEqual({ file: document.path, line: 10, column: 17 });
     expect(error.codeFrame).toContain("> 10 | (b as any).nope.deeper;");
     expect(error.codeFrame).toMatch(/\n\s+\| {17}\^/);
+  });
+
+  it("never runs the cell after a failing one, though it was sent to the cell process ahead", async () => {
+    // The runner sends each next cell while the one before runs; the process must skip it when that one failed.
+    const marker = 'import fs from "node:fs";\nfs.writeFileSync("after.txt", "ran");';
+    const stopped = await runText(ts("throw new Error('first')") + ts(marker));
+    expect(stopped.run.cells.map((c) => c.status)).toEqual(["failed", "not-run"]);
+    const folder = path.dirname(stopped.document.path);
+    // One more turn of the same process would have written the file by the time the run ended.
+    expect(fs.existsSync(path.join(folder, "after.txt"))).toBe(false);
+    // Where the run goes on, the cell sent ahead does run.
+    const allowed = await runText(ts("throw new Error('first')", "may-fail") + ts(marker));
+    expect(allowed.run.cells.map((c) => c.status)).toEqual(["failed", "ok"]);
+    expect(fs.readFileSync(path.join(path.dirname(allowed.document.path), "after.txt"), "utf8")).toBe("ran");
+  });
+
+  it("holds a cell sent ahead to its own time limit, counted from the end of the cell before", async () => {
+    const { run } = await runText(
+      ts("await new Promise((r) => setTimeout(r, 400));") + ts("while (true) {}", "time-limit=300ms"),
+    );
+    expect(run.cells.map((c) => c.status)).toEqual(["ok", "failed"]);
+    expect(errorOf(run, 1).failure).toBe("time-limit");
   });
 
   it("reports a TypeScript syntax error at notebook file:line:column without running anything", async () => {

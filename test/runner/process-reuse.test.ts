@@ -114,6 +114,22 @@ describe("a cell process handed on to the next run", () => {
     seen.forEach((s, i) => expect(s.seen).toEqual({ ...first, inputN: i }));
   }, 60_000);
 
+  it("runs a cell that the run before skipped (a cell sent ahead after a failure is that run's only)", async () => {
+    // In the first notebook, cell 2 is sent to the process ahead and skipped there, as cell 1 fails. The second
+    // notebook of the folder takes the same process and starts at cell 2 (cell 1 is a listing): it must be sent.
+    const folder = path.dirname(
+      notebookFile(ts("throw new Error('the first notebook fails');") + ts('console.log("A2");'), {}, "a.md"),
+    );
+    folders.push(folder);
+    fs.writeFileSync(path.join(folder, "b.md"), ts("1", "no-run") + ts('console.log("B2 " + process.pid);'));
+    const [a, b] = [readNotebook(path.join(folder, "a.md")), readNotebook(path.join(folder, "b.md"))];
+    const first = await runDocument(a, { shareProcess: true, timeLimitMs: 10_000 });
+    const second = await runDocument(b, { shareProcess: true, timeLimitMs: 10_000 });
+    expect(first.cells.map((c) => c.status)).toEqual(["failed", "not-run"]);
+    expect(second.cells.map((c) => c.status)).toEqual(["listing", "ok"]);
+    expect(consoleText(second, 1)).toMatch(/^B2 \d+\n$/);
+  }, 60_000);
+
   it("gives each run its own process with shareProcess off", async () => {
     const file = notebookFile(CARELESS, { "counter.ts": COUNTER });
     folders.push(path.dirname(file));
