@@ -40,7 +40,7 @@ async function loadCli(argv) {
   if (process.env.TRISTIM_TSX !== "1") {
     try {
       const bundles = await cachedBundle();
-      // `run` starts its cell process first (early-start.ts), then loads the rest of the CLI.
+      // `run` readies its cell process (early-start.ts: adopts the one started above), then loads the rest.
       if (argv[0] === "run") await loadScript(bundles.early).exports.startEarly(argv);
       const cli = loadScript(bundles.cli);
       return { main: async (args) => cli.finished(await cli.exports.main(args)) };
@@ -167,6 +167,8 @@ if (argv.length === 1 && (argv[0] === "--version" || argv[0] === "-v")) {
   // Answered before anything else is loaded (the CLI's main gives the same answer).
   process.stdout.write(`${JSON.parse(fs.readFileSync(path.join(root, "package.json"), "utf8")).version}\n`);
 } else {
+  // `run` starts its cell process first of all (cell-spawn.mjs), so that node's start overlaps everything else.
+  if (argv[0] === "run") (await import("./execute/cell-spawn.mjs")).startEarlyCellProcess(argv);
   const { main } = await loadCli(argv);
   const code = await main(argv);
   // Everything is written (files synchronously, stdout and stderr are synchronous on pipes and files): exit now,

@@ -3,26 +3,20 @@
  * receives their records, and stops it when a cell runs past its time limit or the run is cancelled. The CLI never
  * waits on a cell process without a deadline.
  */
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import path from "node:path";
 import type { InputValue } from "../../cells/inputs.ts";
 import type { FromCellProcess, RawError, ToCellProcess } from "../../cells/protocol.ts";
 import type { MethodNote, OutputRecord } from "../../cells/records.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
+import { EARLY_PROCESS, memoryLimitMb, spawnCellProcess, type EarlyCellProcess } from "./cell-spawn.mjs";
+
+export { DEFAULT_MEMORY_LIMIT_MB, memoryLimitMb } from "./cell-spawn.mjs";
 
 /** How long the cell process may take to load the library and get ready. */
 export const STARTUP_LIMIT_MS = 60_000;
 /** How long the cell process may take to answer "finish" after the last cell. */
 export const FINISH_LIMIT_MS = 10_000;
-
-/** The heap limit of a cell process in MB unless TRISTIM_MEMORY_LIMIT_MB says otherwise. */
-export const DEFAULT_MEMORY_LIMIT_MB = 4096;
-
-/** The heap limit a cell process gets (MB): TRISTIM_MEMORY_LIMIT_MB when it is a whole number ≥ 16, else the default. */
-export function memoryLimitMb(env: NodeJS.ProcessEnv = process.env): number {
-  const asked = Number(env.TRISTIM_MEMORY_LIMIT_MB);
-  return Number.isInteger(asked) && asked >= 16 ? asked : DEFAULT_MEMORY_LIMIT_MB;
-}
 
 /** What V8 prints when a process reaches its heap limit. */
 const OUT_OF_MEMORY = /heap out of memory|Reached heap limit|Allocation failed/;
@@ -152,15 +146,11 @@ class ProcessHost {
 
   private readonly key: string;
 
-  private constructor(runtime: RuntimeBundle, folder: string) {
+  /** Starts a cell process for `folder`, or takes on `started`, one the launcher started with the same arguments. */
+  private constructor(runtime: RuntimeBundle, folder: string, started?: ChildProcess) {
     this.key = spareKey(runtime, folder);
-    this.child = spawn(process.execPath, [`--max-old-space-size=${this.limitMb}`, runtime.worker], {
-      cwd: folder,
-      stdio: ["ignore", "pipe", "pipe", "ipc"],
-      env: { ...process.env, NODE_NO_WARNINGS: "1" },
-      // Its own process group, so that processes a cell starts are ended with it (endGroup).
-      detached: true,
-    });
+    // In a process group of its own, so that processes a cell starts are ended with it (endGroup).
+    this.child = started ?? spawnCellProcess(runtime.worker, folder, this.limitMb);
     liveGroups.add(this);
     const keepTail = (chunk: Buffer) => {
       this.stderrTail = (this.stderrTail + chunk.toString("utf8")).slice(-4000);
@@ -195,6 +185,7 @@ class ProcessHost {
     inputs: Readonly<Record<string, InputValue>>,
     signal?: AbortSignal,
   ): Promise<ProcessHost> {
+    adoptEarly(runtime);
     const cell =
       takeSpare(runtime, path.dirname(notebookPath)) ?? new ProcessHost(runtime, path.dirname(notebookPath));
     cell.runs++;
@@ -228,11 +219,42 @@ class ProcessHost {
    * process does not keep the runner alive and dies with it.
    */
   static prepare(runtime: RuntimeBundle, folder: string): void {
+    adoptEarly(runtime);
     const idle = idleFor(spareKey(runtime, folder));
     if (idle.some((host) => host.alive)) return;
     const cell = new ProcessHost(runtime, folder);
     cell.setHeld(false);
     idle.push(cell);
+  }
+
+  /**
+   * Takes on the cell process the launcher started (cell-spawn.mjs) as an idle process of its folder, when it runs
+   * `runtime`'s worker with this process's heap limit and is still alive; stops it otherwise (a runtime rebuilt
+   * since the last run). Either way it is no longer the launcher's.
+   */
+  static adoptEarly(runtime: RuntimeBundle, early: EarlyCellProcess): void {
+    early.adopted = true;
+    const { child } = early;
+    const usable =
+      early.worker === runtime.worker &&
+      early.limitMb === memoryLimitMb() &&
+      !early.failed &&
+      child.exitCode === null &&
+      child.signalCode === null &&
+      child.connected;
+    if (!usable) {
+      if (child.pid !== undefined) {
+        try {
+          process.kill(-child.pid, "SIGKILL");
+        } catch {
+          // already gone
+        }
+      }
+      return;
+    }
+    const cell = new ProcessHost(runtime, early.folder, child);
+    cell.setHeld(false);
+    idleFor(cell.key).push(cell);
   }
 
   /** Stops the idle cell processes waiting for notebooks in `folder` (watch mode, when it stops). */
@@ -422,6 +444,15 @@ function idleFor(key: string): ProcessHost[] {
   let idle = spares().get(key);
   if (!idle) spares().set(key, (idle = []));
   return idle;
+}
+
+/** Takes on the launcher's cell process, if it left one (see ProcessHost.adoptEarly). */
+function adoptEarly(runtime: RuntimeBundle): void {
+  const registry = globalThis as { [EARLY_PROCESS]?: EarlyCellProcess };
+  const early = registry[EARLY_PROCESS];
+  if (!early) return;
+  delete registry[EARLY_PROCESS];
+  ProcessHost.adoptEarly(runtime, early);
 }
 
 function spareKey(runtime: RuntimeBundle, folder: string): string {

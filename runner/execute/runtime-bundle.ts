@@ -6,13 +6,13 @@
  */
 import { createHash } from "node:crypto";
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
 import type * as Esbuild from "esbuild";
 import { esbuild, esbuildVersion } from "../shared/lazy-esbuild.ts";
 import { BANNER } from "../shared/require-banner.ts";
 import { PACKAGE_ROOT } from "../shared/package-root.ts";
 import { stampFile, stampTree } from "../shared/source-stamp.ts";
+import { cacheRoot, latestWorkerFile } from "./cell-spawn.mjs";
 
 /** Paths of a built runtime. */
 export interface RuntimeBundle {
@@ -28,18 +28,14 @@ export class RuntimeBuildError extends Error {
   override readonly name = "RuntimeBuildError";
 }
 
-/** Where tristim keeps its cached bundles and each run's temporary files. */
-export function cacheRoot(): string {
-  const uid = typeof process.getuid === "function" ? process.getuid() : "user";
-  return path.join(os.tmpdir(), `tristim-${uid}`);
-}
+export { cacheRoot } from "./cell-spawn.mjs";
 
 /** Returns the runtime bundle, building it when lib/ or cells/ changed since the cached one. */
 export async function runtimeBundle(): Promise<RuntimeBundle> {
   const key = sourceKey();
   const dir = path.join(cacheRoot(), "runtime", key);
   const bundle = { dir, worker: path.join(dir, "worker.mjs"), tristim: path.join(dir, "tristim.mjs") };
-  if (fs.existsSync(path.join(dir, "complete"))) return bundle;
+  if (fs.existsSync(path.join(dir, "complete"))) return namedLatest(bundle);
   const temporary = `${dir}.${process.pid}.${Math.random().toString(36).slice(2)}.tmp`;
   try {
     await esbuild().build({
@@ -80,6 +76,28 @@ export async function runtimeBundle(): Promise<RuntimeBundle> {
     fs.rmSync(temporary, { recursive: true, force: true });
   }
   pruneOldBundles(path.dirname(dir), key);
+  return namedLatest(bundle);
+}
+
+/**
+ * Names `bundle`'s worker in the pointer file the launcher reads to start the next run's cell process before
+ * anything else (cell-spawn.mjs); written only when it names another, and renamed into place, so a launcher reads
+ * a whole path or none.
+ */
+function namedLatest(bundle: RuntimeBundle): RuntimeBundle {
+  const file = latestWorkerFile();
+  try {
+    if (fs.readFileSync(file, "utf8") === bundle.worker) return bundle;
+  } catch {
+    // not written yet
+  }
+  try {
+    const temporary = `${file}.${process.pid}.tmp`;
+    fs.writeFileSync(temporary, bundle.worker);
+    fs.renameSync(temporary, file);
+  } catch {
+    // A launcher without the pointer only starts its cell process later.
+  }
   return bundle;
 }
 
@@ -96,7 +114,7 @@ function sourceKey(): string {
 function pruneOldBundles(folder: string, keep: string): void {
   const dayAgo = Date.now() - 24 * 3600_000;
   for (const name of fs.readdirSync(folder)) {
-    if (name === keep) continue;
+    if (name === keep || name === path.basename(latestWorkerFile())) continue;
     const full = path.join(folder, name);
     try {
       if (fs.statSync(full).mtimeMs < dayAgo) fs.rmSync(full, { recursive: true, force: true });
