@@ -150,6 +150,8 @@ export async function runBatch(
   // index and every report are those of a run one at a time.
   const share = options.freshProcess !== true;
   let shared: SharedRunParts | undefined;
+  // One for all the runs: the sources are highlighted once, each run's figures encoded as they come.
+  const warmReport = prewarmReport(document);
   const finished: (BatchRunResult | undefined)[] = files.map(() => undefined);
   let taken = 0;
   const takeInOrder = () => {
@@ -179,6 +181,7 @@ export async function runBatch(
     const dataFile = pathForNotebook(file, notebookDir);
     const sha256 = createHash("sha256").update(fs.readFileSync(file)).digest("hex");
     const run = await runDocument(document, {
+      onCell: warmReport,
       inputs: { ...options.inputs, [each.input]: dataFile },
       timeLimitMs: options.timeLimitMs,
       keepGoing: options.keepGoing,
@@ -236,7 +239,6 @@ export async function runBatch(
   options.onStart?.(files.length);
   try {
     if (files.length > 0) shared = await sharedRunParts(document);
-    prewarmReport(document);
     await Promise.all(Array.from({ length: jobs }, worker));
   } finally {
     shared?.dispose();

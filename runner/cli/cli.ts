@@ -351,8 +351,8 @@ async function runCommand(files: string[], options: CommandOptions, io: Io): Pro
     options.jobs ?? os.availableParallelism(),
     async (i) => {
       const document = documents[i]!;
-      prewarmReport(document);
       const run = await runDocument(document, {
+        onCell: prewarmReport(document),
         inputs: options.inputs,
         timeLimitMs: options.timeLimitMs,
         keepGoing: options.keepGoing,

@@ -186,9 +186,9 @@ export class WatchSession {
     this.running = new AbortController();
     let run: RunRecord;
     let banner: string;
-    prewarmReport(document);
     try {
       const running = runDocument(document, {
+        onCell: prewarmReport(document),
         inputs: this.options.inputs,
         timeLimitMs: this.timeLimitMs,
         keepGoing: this.options.keepGoing,

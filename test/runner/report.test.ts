@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import type { OutputRecord, SwatchRecord } from "../../cells/records.ts";
 import { parseNotebook } from "../../runner/parse/parse-notebook.ts";
 import { writeReport } from "../../runner/report/report-file.ts";
-import { PLOTLY_ASSET, renderReport } from "../../runner/report/render-report.ts";
+import { PLOTLY_ASSET, prewarmReport, renderReport } from "../../runner/report/render-report.ts";
 import type { CellRun, RunRecord } from "../../runner/records/run-record.ts";
 import { writeFileAtomic } from "../../runner/shared/write-atomic.ts";
 import { runText, tempFolder, ts } from "./helpers.ts";
@@ -94,6 +94,22 @@ describe("the report", () => {
     expect(html).not.toContain(plotly.slice(0, 200));
     expect(html).not.toMatch(/<(script|link|img)[^>]+(src|href)="(https?:)?\/\//);
     expect((html.match(/class="plot-figure"/g) ?? []).length).toBe(3);
+  });
+
+  it("is the same page when its figures and sources were prepared while the cells ran", async () => {
+    const doc = parseNotebook(ts("1") + ts("2"), "/lab/nb.md");
+    const spec = (y: number) => ({
+      data: [{ type: "scatter", x: [1, 2], y: [y, 4] }],
+      layout: { title: "<b>" },
+    });
+    const cells = [ok(0, [{ kind: "figure", spec: spec(3) }]), ok(1, [{ kind: "figure", spec: spec(5) }])];
+    const fresh = renderReport(doc, record(structuredClone(cells)));
+    const warm = prewarmReport(doc);
+    for (const cell of cells) warm(cell);
+    // Let the highlighting steps and the Plotly read run, as they do between cells.
+    for (let i = 0; i < 5; i++) await new Promise((resolve) => setImmediate(resolve));
+    expect(renderReport(doc, record(cells))).toBe(fresh);
+    expect(fresh).toContain("\\u003cb\\u003e");
   });
 
   it("leaves Plotly out of a report without figures, and links a shared copy when asked", () => {
