@@ -269,20 +269,15 @@ const CELL_LANGUAGE = "typescript";
 
 /**
  * Does the report's costly parts while the cells run, so that the report written after the last cell finds them
- * made: give the function it returns as runDocument's `onCell`. From the first cell's end on, every cell's source
- * is highlighted, one per turn of the event loop (highlight.ts keeps what it made); each cell's figure specs are
- * encoded (prewarmOutputs), and the packed Plotly is read once a figure has come. Nothing starts before the first
- * cell has run: until then the runner waits for the cell process to start, whose start-up is the longest step
- * before the first cell, and highlighting (about 60 ms of CPU) would compete with it on a 2-core machine.
+ * made: every cell's source is highlighted at once, one per turn of the event loop (highlight.ts keeps what it
+ * made; highlight.js builds its TypeScript grammar on first use, about 35 ms, which a notebook refused for a syntax
+ * error would otherwise spend after its compile); the function returned, given as runDocument's `onCell`, encodes
+ * each cell's figure specs as they come (prewarmOutputs) and reads the packed Plotly once a figure has come.
  */
 export function prewarmReport(document: NotebookDocument): (run: CellRun) => void {
-  let highlighting = false;
+  prewarmHighlighting(document.cells.map((c) => ({ code: c.code, language: CELL_LANGUAGE })));
   let plotly = false;
   return (run) => {
-    if (!highlighting) {
-      highlighting = true;
-      prewarmHighlighting(document.cells.map((c) => ({ code: c.code, language: CELL_LANGUAGE })));
-    }
     prewarmOutputs(run.outputs);
     if (!plotly && run.outputs.some((o) => o.kind === "figure")) {
       plotly = true;
