@@ -9,7 +9,13 @@ import type { InputValue } from "../../cells/inputs.ts";
 import type { FromCellProcess, RawError, ToCellProcess } from "../../cells/protocol.ts";
 import type { MethodNote, OutputRecord } from "../../cells/records.ts";
 import type { RuntimeBundle } from "./runtime-bundle.ts";
-import { EARLY_PROCESS, memoryLimitMb, spawnCellProcess, type EarlyCellProcess } from "./cell-spawn.mjs";
+import {
+  EARLY_PROCESS,
+  killGroup,
+  memoryLimitMb,
+  spawnCellProcess,
+  type EarlyCellProcess,
+} from "./cell-spawn.mjs";
 
 export { DEFAULT_MEMORY_LIMIT_MB, memoryLimitMb } from "./cell-spawn.mjs";
 
@@ -242,16 +248,7 @@ class ProcessHost {
       child.exitCode === null &&
       child.signalCode === null &&
       child.connected;
-    if (!usable) {
-      if (child.pid !== undefined) {
-        try {
-          process.kill(-child.pid, "SIGKILL");
-        } catch {
-          // already gone
-        }
-      }
-      return;
-    }
+    if (!usable) return killGroup(child);
     const cell = new ProcessHost(runtime, early.folder, child);
     cell.setHeld(false);
     idleFor(cell.key).push(cell);
@@ -347,11 +344,7 @@ class ProcessHost {
   /** Kills the process group: the cell process and every process its cells started that did not leave it. */
   endGroup(): void {
     if (this.groupEnded || this.child.pid === undefined) return;
-    try {
-      process.kill(-this.child.pid, "SIGKILL");
-    } catch {
-      // the group is already gone
-    }
+    killGroup(this.child);
     if (this.exited) {
       this.groupEnded = true;
       liveGroups.delete(this);

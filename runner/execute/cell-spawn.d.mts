@@ -5,6 +5,7 @@ export declare const DEFAULT_MEMORY_LIMIT_MB: number;
 export declare function memoryLimitMb(env?: NodeJS.ProcessEnv): number;
 export declare function cacheRoot(): string;
 export declare function latestWorkerFile(): string;
+export declare function killGroup(child: ChildProcess): void;
 export declare function spawnCellProcess(worker: string, folder: string, limitMb: number): ChildProcess;
 export declare function firstNotebookOfRun(argv: readonly string[]): string | undefined;
 

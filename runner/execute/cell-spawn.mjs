@@ -46,6 +46,16 @@ export function spawnCellProcess(worker, folder, limitMb) {
   });
 }
 
+/** Kills a cell process's group: the process and every process its cells started that did not leave it. */
+export function killGroup(child) {
+  if (child.pid === undefined) return;
+  try {
+    process.kill(-child.pid, "SIGKILL");
+  } catch {
+    // the group is already gone
+  }
+}
+
 /** Options of `run` that take a value (their value is not a notebook). */
 const VALUE_OPTIONS = new Set(["-o", "--output", "--input", "--time-limit", "--each", "--port", "--jobs"]);
 
@@ -82,12 +92,7 @@ export function startEarlyCellProcess(argv) {
     child.on("error", () => (early.failed = true));
     for (const handle of [child, child.channel, child.stdout, child.stderr]) handle?.unref?.();
     process.once("exit", () => {
-      if (early.adopted || child.pid === undefined) return;
-      try {
-        process.kill(-child.pid, "SIGKILL");
-      } catch {
-        // already gone
-      }
+      if (!early.adopted) killGroup(child);
     });
     globalThis[EARLY_PROCESS] = early;
   } catch {
