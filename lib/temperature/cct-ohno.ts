@@ -21,8 +21,16 @@ const TRIANGULAR_SUB_ROWS = 100;
 const PARABOLIC_SUB_ROWS = 10;
 /** T(c)/T(a) for the triangular solution's two refined rows, 2/TRIANGULAR_SUB_ROWS of a row apart. */
 const TRIANGULAR_PAIR_RATIO = Math.exp((2 / TRIANGULAR_SUB_ROWS) * Math.log(OHNO_STEP_RATIO));
+/** T(row + 1/PARABOLIC_SUB_ROWS)/T(row) for the parabolic solution's neighbouring refined rows. */
+const PARABOLIC_STEP_RATIO = Math.exp((1 / PARABOLIC_SUB_ROWS) * Math.log(OHNO_STEP_RATIO));
 /** Rows beyond each end of the range, so that a CCT at the very limits still has a row on either side. */
 const MARGIN_ROWS = 2 * NODE_EVERY;
+/**
+ * Rows between the points of the search table: the nearest row is searched first among every SEARCH_EVERY-th row
+ * (about 900 points, 15 kB, which stay in the processor's first-level cache), then among the 2·SEARCH_EVERY rows
+ * around the point found. A search of the whole 750 kB table in one go waits on a cache miss at most of its steps.
+ */
+const SEARCH_EVERY = NODE_EVERY / 2;
 /** Rows between the points of the coarse whole-table scan used for chromaticities far from the locus. */
 const COARSE_EVERY = 25;
 /**
@@ -43,6 +51,8 @@ interface LocusTable {
   readonly t: Float64Array;
   /** u and v of row i at 2i and 2i + 1 (side by side, so each step of the search reads one cache line). */
   readonly uv: Float64Array;
+  /** u and v of row SEARCH_EVERY·j at 2j and 2j + 1. */
+  readonly searchUv: Float64Array;
   readonly nodeU: Float64Array;
   readonly nodeV: Float64Array;
   /** Slopes du/d ln T and dv/d ln T at the nodes, times the node spacing in ln T. */
@@ -77,6 +87,7 @@ function buildTable(): LocusTable {
     step,
     t: new Float64Array(rows),
     uv: new Float64Array(2 * rows),
+    searchUv: new Float64Array(2 * ((rows - 1) / SEARCH_EVERY + 1)),
     nodeU,
     nodeV,
     slopeU,
@@ -100,6 +111,10 @@ function buildTable(): LocusTable {
     tab.uv[2 * i] = h00 * nodeU[k]! + h10 * slopeU[k]! + h01 * nodeU[k + 1]! + h11 * slopeU[k + 1]!;
     tab.uv[2 * i + 1] = h00 * nodeV[k]! + h10 * slopeV[k]! + h01 * nodeV[k + 1]! + h11 * slopeV[k + 1]!;
   }
+  for (let j = 0; 2 * j < tab.searchUv.length; j++) {
+    tab.searchUv[2 * j] = tab.uv[2 * j * SEARCH_EVERY]!;
+    tab.searchUv[2 * j + 1] = tab.uv[2 * j * SEARCH_EVERY + 1]!;
+  }
   return tab;
 }
 
@@ -122,25 +137,41 @@ export function ohnoTable(): LocusTable {
 }
 
 function distance2(tab: LocusTable, i: number, u: number, v: number): number {
-  const a = u - tab.uv[2 * i]!,
-    b = v - tab.uv[2 * i + 1]!;
+  return pointDistance2(tab.uv, i, u, v);
+}
+
+/** Squared distance from (u, v) to point i of an array of (u, v) pairs. */
+function pointDistance2(uv: Float64Array, i: number, u: number, v: number): number {
+  const a = u - uv[2 * i]!,
+    b = v - uv[2 * i + 1]!;
   return a * a + b * b;
 }
 
-/** Index of the nearest row between lo and hi (inclusive), by binary search on the slope of the distance. */
-function nearestBySlope(tab: LocusTable, u: number, v: number, lo: number, hi: number): number {
+/** Index of the point nearest (u, v) between lo and hi (inclusive), by binary search on the slope of the distance. */
+function nearestBySlope(uv: Float64Array, u: number, v: number, lo: number, hi: number): number {
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (distance2(tab, mid + 1, u, v) >= distance2(tab, mid, u, v)) hi = mid;
+    if (pointDistance2(uv, mid + 1, u, v) >= pointDistance2(uv, mid, u, v)) hi = mid;
     else lo = mid + 1;
   }
   return lo;
 }
 
-/** Index of the nearest row: the slope search, checked by a whole-table scan for points far from the locus. */
+/**
+ * Index of the nearest row: the slope search on the search table, then on the rows either side of the point it found
+ * (where the distance falls towards one point, the nearest row is within a search step of the nearest search point),
+ * checked by a whole-table scan for points far from the locus.
+ */
 function nearestRow(tab: LocusTable, u: number, v: number): number {
   const last = tab.t.length - 1;
-  const i = nearestBySlope(tab, u, v, 0, last);
+  const s = nearestBySlope(tab.searchUv, u, v, 0, tab.searchUv.length / 2 - 1);
+  const i = nearestBySlope(
+    tab.uv,
+    u,
+    v,
+    Math.max(0, (s - 1) * SEARCH_EVERY),
+    Math.min(last, (s + 1) * SEARCH_EVERY),
+  );
   if (distance2(tab, i, u, v) <= UNIMODAL_DISTANCE * UNIMODAL_DISTANCE) return i;
   let best = 0,
     bestD = Infinity;
@@ -260,8 +291,9 @@ function triangularAround(tab: LocusTable, row: number, half: number, u: number,
  */
 function parabolicAround(tab: LocusTable, row: number, half: number, u: number, v: number) {
   const t0 = temperatureAtRow(tab, row);
-  const x1 = temperatureAtRow(tab, row - half) - t0,
-    x3 = temperatureAtRow(tab, row + half) - t0;
+  const ratio = half === 1 / PARABOLIC_SUB_ROWS ? PARABOLIC_STEP_RATIO : Math.exp(half * tab.step);
+  const x1 = t0 / ratio - t0,
+    x3 = t0 * ratio - t0;
   const d1 = Math.sqrt(distance2At(tab, row - half, u, v)),
     d2 = Math.sqrt(distance2At(tab, row, u, v)),
     d3 = Math.sqrt(distance2At(tab, row + half, u, v));
@@ -271,7 +303,9 @@ function parabolicAround(tab: LocusTable, row: number, half: number, u: number, 
   const xm = -b / (2 * a);
   const cct = t0 + xm;
   const dist = a * xm * xm + b * xm + d2;
-  locusAtRow(tab, (Math.log(cct) - tab.first) / tab.step, point);
+  // The row of Tx to first order, ln(1 + xm/t0) ≈ xm/t0: xm is under a row, 1e-4 of t0, so the row is off by
+  // under 1e-6 of a row, and the sign is asked only at |Duv| ≥ 0.002.
+  locusAtRow(tab, row + xm / t0 / tab.step, point);
   return { cct, duv: dist * Math.sign(v - point.v) };
 }
 

@@ -2,12 +2,7 @@
  * Correlated colour temperature (CCT) and distance from the Planckian locus (Duv) in the CIE 1960 UCS
  * (CIE 015:2018 §9.5), and the inverse: the chromaticity at a given CCT and Duv.
  */
-import {
-  chromaticityXy,
-  uv1960FromXy,
-  xyFromUv1960,
-  type Chromaticity,
-} from "../colorimetry/chromaticity.ts";
+import { chromaticityXy, xyFromUv1960, type Chromaticity } from "../colorimetry/chromaticity.ts";
 import { lightTristimulus } from "../colorimetry/tristimulus.ts";
 import { noteMethod } from "../methods/method-log.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
@@ -77,12 +72,16 @@ const CCT_XY_FIELDS = { ...XY_FIELDS, instead: { spectrum: "for a spectrum use c
  * @source CIE 015:2018 §9.5; Y. Ohno, LEUKOS 10:47–55, 2014; A. R. Robertson, JOSA 58:1528–1535, 1968.
  * @example cctAndDuv({ x: 0.3127, y: 0.329 })
  */
-export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult {
+export function cctAndDuv(xy: Chromaticity, options?: CctOptions): CctResult {
   checkFields("cctAndDuv", "xy", xy, CCT_XY_FIELDS);
-  checkCctOptions("cctAndDuv", options);
+  // Checked only when given: the default costs nothing in a loop over a million chromaticities.
+  if (options !== undefined) checkCctOptions("cctAndDuv", options);
   checkXy(xy, "cctAndDuv");
-  const method = options.method ?? "ohno";
-  const uv = uv1960FromXy(xy);
+  const method = options?.method ?? "ohno";
+  // CIE 1960 UCS u = 4x / (−2x + 12y + 3), v = 6y / (−2x + 12y + 3) (CIE 015:2018 §8.1), written out: checkXy has
+  // checked xy, and the divisor exceeds 1 for every physical chromaticity.
+  const d = -2 * xy.x + 12 * xy.y + 3;
+  const uv = { u: (4 * xy.x) / d, v: (6 * xy.y) / d };
   let result: CctResult;
   if (method === "ohno") {
     result = cctOhno(uv);
@@ -110,7 +109,7 @@ export function cctAndDuv(xy: Chromaticity, options: CctOptions = {}): CctResult
  * @source CIE 015:2018 §9.5 (with eq. 7.5 for the tristimulus values).
  * @example cctFromSpectrum(illuminant("A"))
  */
-export function cctFromSpectrum(spd: Spectrum, options: CctOptions = {}): CctResult {
+export function cctFromSpectrum(spd: Spectrum, options?: CctOptions): CctResult {
   checkSpectrum("cctFromSpectrum", "spd", spd, {
     what: "a spectrum of a light source",
     instead: { object: "for a chromaticity { x, y } use cctAndDuv" },
