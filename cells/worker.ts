@@ -14,6 +14,7 @@ import { Writable } from "node:stream";
 import { pathToFileURL } from "node:url";
 import vm from "node:vm";
 import { CellOutput, cutErrorMessage, MAX_ERROR_MESSAGE_CHARS } from "./capture.ts";
+import { installDeferredCaCertificates } from "./deferred-ca-certificates.ts";
 import { inspectValue, show } from "./display.ts";
 import { inputs as runInputs, setRunInputs } from "./inputs.ts";
 import { installOutputSink } from "./output-sink.ts";
@@ -506,6 +507,7 @@ function methodLog(): MethodNote[] {
 
 /** Start step: load the library once, then handle the runner's messages one after another. */
 async function start(): Promise<void> {
+  installDeferredCaCertificates();
   try {
     state.lib = { ...(await import("./tristim-entry.ts")) };
     resetLibraryLog();

@@ -20,3 +20,5 @@ export interface EarlyCellProcess {
 }
 export declare const EARLY_PROCESS: unique symbol;
 export declare function startEarlyCellProcess(argv: readonly string[]): void;
+export declare const DEFERRED_CA_CERTS: string;
+export declare function cellProcessEnv(env?: NodeJS.ProcessEnv): NodeJS.ProcessEnv;

@@ -41,9 +41,29 @@ export function spawnCellProcess(worker, folder, limitMb) {
   return spawn(process.execPath, [`--max-old-space-size=${limitMb}`, worker], {
     cwd: folder,
     stdio: ["ignore", "pipe", "pipe", "ipc"],
-    env: { ...process.env, NODE_NO_WARNINGS: "1" },
+    env: cellProcessEnv(),
     detached: true,
   });
+}
+
+/** The variable that hands NODE_EXTRA_CA_CERTS to the cell process, which reads it on first use (see below). */
+export const DEFERRED_CA_CERTS = "TRISTIM_DEFERRED_CA_CERTS";
+
+/**
+ * The cell process's environment: the runner's, with warnings off, and NODE_EXTRA_CA_CERTS handed over under
+ * DEFERRED_CA_CERTS. Node reads and parses that file while it starts, before any code runs (40 ms for a system
+ * bundle of 140 certificates, on the way to every notebook's first cell, whether a cell uses TLS or not); the
+ * harness (cells/deferred-ca-certificates.ts) puts the variable back at once and adds the certificates to each TLS
+ * context as Node would, parsing them when a cell first makes one. Only on the Node versions that was tested on.
+ */
+export function cellProcessEnv(env = process.env) {
+  const out = { ...env, NODE_NO_WARNINGS: "1" };
+  const major = Number(process.versions.node.split(".")[0]);
+  if (env.NODE_EXTRA_CA_CERTS && major >= 20 && major <= 22) {
+    delete out.NODE_EXTRA_CA_CERTS;
+    out[DEFERRED_CA_CERTS] = env.NODE_EXTRA_CA_CERTS;
+  }
+  return out;
 }
 
 /** Kills a cell process's group: the process and every process its cells started that did not leave it. */
