@@ -37,17 +37,42 @@ export function certificatesBeyond(fileText: string, known: readonly string[]): 
   return extra.join("\n");
 }
 
-/** The native context object of a SecureContext, which has the method Node's own `ca` option uses. */
-interface NativeContext {
+/** Node's native TLS context (its `ca` option and its default roots call these methods). */
+interface NativeSecureContext {
+  addRootCerts(): void;
   addCACert(pem: string): void;
+}
+
+/** The prototype of Node's native SecureContext, if this Node still shows it (Node 20 does, to process.binding). */
+function nativeSecureContext(): NativeSecureContext | null {
+  try {
+    const binding = (process as unknown as { binding(name: string): Record<string, unknown> }).binding(
+      "crypto",
+    );
+    const prototype = (binding.SecureContext as { prototype?: Partial<NativeSecureContext> } | undefined)
+      ?.prototype;
+    return typeof prototype?.addRootCerts === "function" && typeof prototype.addCACert === "function"
+      ? (prototype as NativeSecureContext)
+      : null;
+  } catch {
+    return null;
+  }
 }
 
 /**
  * Puts NODE_EXTRA_CA_CERTS back from DEFERRED_CA_CERTS and makes TLS contexts trust its certificates. The file is
  * read now, as Node reads it at start-up (so that no read of it by a later cell's code is seen as the notebook's);
  * an unreadable file is ignored, as Node ignores it.
+ *
+ * Node gives a context its default roots through the native addRootCerts, for every context made without `ca`
+ * (https, fetch, tls.connect, servers): that method, wrapped, adds the file's certificates after them, and loading
+ * the tls module (20 ms) waits until a cell needs it. Where Node does not show that method, tls.createSecureContext
+ * is wrapped instead, which loads tls now.
  */
-export function installDeferredCaCertificates(env: NodeJS.ProcessEnv = process.env): void {
+export function installDeferredCaCertificates(
+  env: NodeJS.ProcessEnv = process.env,
+  native: NativeSecureContext | null = nativeSecureContext(),
+): void {
   const file = env[DEFERRED_CA_CERTS];
   if (!file) return;
   delete env[DEFERRED_CA_CERTS];
@@ -58,15 +83,27 @@ export function installDeferredCaCertificates(env: NodeJS.ProcessEnv = process.e
   } catch {
     return;
   }
-  // Loaded here, not imported: without the variable, the harness does not spend the 7 ms of loading tls.
-  const tls = createRequire(import.meta.url)("node:tls") as typeof import("node:tls");
+  const load = createRequire(import.meta.url);
   let extra: string | undefined;
+  // Computed at the first context, when tls is loaded anyway.
+  const extraCertificates = (): string =>
+    (extra ??= certificatesBeyond(text, (load("node:tls") as typeof import("node:tls")).rootCertificates));
+  if (native) {
+    const addRootCerts = native.addRootCerts;
+    native.addRootCerts = function (this: NativeSecureContext) {
+      addRootCerts.call(this);
+      const pem = extraCertificates();
+      if (pem !== "") this.addCACert(pem);
+    };
+    return;
+  }
+  const tls = load("node:tls") as typeof import("node:tls");
   const original = tls.createSecureContext;
   tls.createSecureContext = function createSecureContext(options?: import("node:tls").SecureContextOptions) {
     const context = original(options);
     if (!options?.ca) {
-      extra ??= certificatesBeyond(text, tls.rootCertificates);
-      if (extra !== "") (context as unknown as { context: NativeContext }).context.addCACert(extra);
+      const pem = extraCertificates();
+      if (pem !== "") (context as unknown as { context: NativeSecureContext }).context.addCACert(pem);
     }
     return context;
   };

@@ -54,12 +54,12 @@ export const DEFERRED_CA_CERTS = "TRISTIM_DEFERRED_CA_CERTS";
  * DEFERRED_CA_CERTS. Node reads and parses that file while it starts, before any code runs (40 ms for a system
  * bundle of 140 certificates, on the way to every notebook's first cell, whether a cell uses TLS or not); the
  * harness (cells/deferred-ca-certificates.ts) puts the variable back at once and adds the certificates to each TLS
- * context as Node would, parsing them when a cell first makes one. Only on the Node versions that was tested on.
+ * context as Node would, parsing them when a cell first makes one. Only on Node 20, where that was tested.
  */
 export function cellProcessEnv(env = process.env) {
   const out = { ...env, NODE_NO_WARNINGS: "1" };
   const major = Number(process.versions.node.split(".")[0]);
-  if (env.NODE_EXTRA_CA_CERTS && major >= 20 && major <= 22) {
+  if (env.NODE_EXTRA_CA_CERTS && major === 20) {
     delete out.NODE_EXTRA_CA_CERTS;
     out[DEFERRED_CA_CERTS] = env.NODE_EXTRA_CA_CERTS;
   }

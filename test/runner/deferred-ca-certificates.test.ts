@@ -13,7 +13,12 @@ import path from "node:path";
 import tls from "node:tls";
 import { fileURLToPath } from "node:url";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { certificatesBeyond, DEFERRED_CA_CERTS } from "../../cells/deferred-ca-certificates.ts";
+import { syncBuiltinESMExports } from "node:module";
+import {
+  certificatesBeyond,
+  DEFERRED_CA_CERTS,
+  installDeferredCaCertificates,
+} from "../../cells/deferred-ca-certificates.ts";
 import { cellProcessEnv, DEFERRED_CA_CERTS as SPAWN_NAME } from "../../runner/execute/cell-spawn.mjs";
 import { tristimCommand } from "./bad-input-helpers.ts";
 import { notebookFile, ts } from "./helpers.ts";
@@ -101,6 +106,34 @@ describe("a cell's TLS with NODE_EXTRA_CA_CERTS", () => {
   it("does not give them to a context with a ca of its own, as Node does not", async () => {
     const seen = await run(CERT);
     expect(seen.ownCa).toMatch(/^failed: .*SELF_SIGNED/);
+  });
+
+  it("where Node does not show its native context, trusts them through tls.createSecureContext", async () => {
+    const original = tls.createSecureContext;
+    const before = await fetch(url).then(
+      (r) => r.text(),
+      (e: { cause?: { code?: string } }) => e.cause?.code,
+    );
+    const env: NodeJS.ProcessEnv = { [DEFERRED_CA_CERTS]: CERT };
+    try {
+      installDeferredCaCertificates(env, null);
+      expect(env).toEqual({ NODE_EXTRA_CA_CERTS: CERT });
+      // A new agent: the global one may keep a connection from before.
+      const body = await new Promise<string>((resolve, reject) =>
+        https
+          .get(url, { agent: false }, (r) => {
+            let b = "";
+            r.on("data", (c) => (b += c));
+            r.on("end", () => resolve(b));
+          })
+          .on("error", reject),
+      );
+      expect(before).toMatch(/SELF_SIGNED/);
+      expect(body).toBe("served");
+    } finally {
+      tls.createSecureContext = original;
+      syncBuiltinESMExports();
+    }
   });
 
   it("trusts nothing more without the variable (the server's certificate is self-signed)", async () => {
