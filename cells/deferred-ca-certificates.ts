@@ -3,8 +3,7 @@
  * context. The runner hands the variable over under another name (cellProcessEnv in runner/execute/cell-spawn.mjs),
  * so that Node does not parse the file before the harness even loads; this puts it back, for the cells and the
  * processes they start, and gives every TLS context made without its own `ca` the extra certificates, as Node adds
- * them to its default root store: https, fetch and tls.connect all make their contexts through
- * tls.createSecureContext. A context with `ca` of its own does not get them, as in Node.
+ * them to its default root store. A context with `ca` of its own does not get them, as in Node.
  *
  * Only the certificates that Node's bundled roots do not already hold are added: a file that is a whole system bundle
  * (140 certificates, mostly the same roots) would otherwise be parsed again for every connection, 20 ms each.
@@ -71,10 +70,12 @@ function nativeSecureContext(): NativeSecureContext | null {
  */
 export function installDeferredCaCertificates(
   env: NodeJS.ProcessEnv = process.env,
-  native: NativeSecureContext | null = nativeSecureContext(),
+  given?: NativeSecureContext | null,
 ): void {
   const file = env[DEFERRED_CA_CERTS];
   if (!file) return;
+  // Looked up only here: without the variable, the harness's start does not touch the binding.
+  const native = given === undefined ? nativeSecureContext() : given;
   delete env[DEFERRED_CA_CERTS];
   env.NODE_EXTRA_CA_CERTS = file;
   let text: string;
