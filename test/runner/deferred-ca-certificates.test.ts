@@ -65,7 +65,8 @@ describe("a cell's TLS with NODE_EXTRA_CA_CERTS", () => {
       res.end("served"),
     );
     await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-    url = `https://localhost:${(server.address() as AddressInfo).port}/`;
+    // By address (the certificate names 127.0.0.1 too): "localhost" may resolve to ::1 first on another machine.
+    url = `https://127.0.0.1:${(server.address() as AddressInfo).port}/`;
   });
   afterAll(() => server.close());
 
