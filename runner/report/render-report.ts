@@ -269,7 +269,7 @@ const CELL_LANGUAGE = "typescript";
 
 /**
  * Does the report's costly parts while the cells run, so that the report written after the last cell finds them
- * made: every cell's source is highlighted at once, one per turn of the event loop (highlight.ts keeps what it
+ * made: highlighting of every cell's source starts at once, one cell per turn of the event loop (highlight.ts keeps what it
  * made; highlight.js builds its TypeScript grammar on first use, about 35 ms, which a notebook refused for a syntax
  * error would otherwise spend after its compile); the function returned, given as runDocument's `onCell`, encodes
  * each cell's figure specs as they come (prewarmOutputs) and reads the packed Plotly once a figure has come.
